@@ -1,0 +1,130 @@
+using Briefwright.Model.Inputs;
+using Briefwright.Model.Results;
+
+namespace Briefwright.Model.Core;
+
+/// <summary>
+/// Output-maximising schooling length: closed form where it applies, otherwise a grid search over the
+/// feasible range with every local maximum refined by bisection on the sign of d ln(h·ω)/dE.
+/// </summary>
+public static class OptimumSearch
+{
+    public const int DefaultGridPoints = 400;
+    public const double Tolerance = 1e-10;
+
+    public static OptimumResult Find(Demography demography, HumanCapital humanCapital, double outputPerEffectiveWorker, int gridPoints = DefaultGridPoints)
+    {
+        var cycle = new LifeCycle(demography, humanCapital);
+        double eMax = cycle.MaxSchooling;
+        var grid = new double[gridPoints + 1];
+        for (int i = 0; i <= gridPoints; i++) grid[i] = cycle.Objective(eMax * i / gridPoints);
+
+        var maxima = new List<LocalMaximum>();
+        int iterations = 0;
+        bool converged = true;
+        string refinement = "derivative bisection";
+        if (grid[0] >= grid[1]) maxima.Add(new LocalMaximum(0.0, grid[0], AtBoundary: true));
+        for (int i = 1; i < gridPoints; i++)
+        {
+            if (!(grid[i] >= grid[i - 1] && grid[i] > grid[i + 1])) continue;
+            var (e, it, ok, how) = Refine(cycle, eMax * (i - 1) / gridPoints, eMax * (i + 1) / gridPoints);
+            iterations += it;
+            converged &= ok;
+            if (how != refinement) refinement = how;
+            maxima.Add(new LocalMaximum(e, cycle.Objective(e), AtBoundary: false));
+        }
+        if (maxima.Count == 0) maxima.Add(new LocalMaximum(eMax, grid[gridPoints], AtBoundary: true));
+
+        var best = maxima.MaxBy(m => m.OutputPerPerson)!;
+        double bestE = best.SchoolingYears;
+        bool atBoundary = best.AtBoundary;
+        var method = OptimumMethod.Numerical;
+        string? whyNot = ClosedFormObstacle(demography, humanCapital);
+        if (whyNot is null)
+        {
+            bestE = ClosedForm(demography, ((ConstantReturn)humanCapital.Returns).Rate, eMax);
+            atBoundary = bestE <= 0.0 || bestE >= eMax;
+            method = OptimumMethod.ClosedForm;
+        }
+        double bestF = cycle.Objective(bestE);
+        var band = Band(cycle, bestE, bestF * 0.99, eMax);
+        var scaled = maxima.Select(m => m with { OutputPerPerson = m.OutputPerPerson * outputPerEffectiveWorker }).ToList();
+        return new OptimumResult(
+            bestE, bestF * outputPerEffectiveWorker, method, whyNot, band, atBoundary, eMax, scaled,
+            new SolverDiagnostics(gridPoints + 1, iterations, converged, Tolerance, refinement));
+    }
+
+    /// <summary>Why the closed form E* = R − a₀ + ln(1 − n/r)/n does not apply, or null when it does.</summary>
+    public static string? ClosedFormObstacle(Demography demography, HumanCapital humanCapital)
+    {
+        if (humanCapital.Returns is not ConstantReturn c) return "the return to schooling is not constant";
+        if (demography.Survival is not RectangularSurvival) return "survival is not rectangular";
+        if (humanCapital.Experience is not null) return "an experience profile is used";
+        if (!(c.Rate > demography.GrowthRate)) return "the return to schooling does not exceed population growth";
+        return null;
+    }
+
+    /// <summary>Working years at the optimum W* = −ln(1 − n/r)/n (→ 1/r as n → 0); E* = R − a₀ − W*, clamped to the feasible range.</summary>
+    public static double ClosedForm(Demography demography, double rate, double maxSchooling)
+    {
+        double n = demography.GrowthRate;
+        double working = Math.Abs(n / rate) < 1e-12 ? 1.0 / rate : -Numerics.Stable.Log1p(-n / rate) / n;
+        double end = Math.Min(demography.RetirementAge, demography.Survival.MaxAge);
+        return Math.Clamp(end - demography.EntryAge - working, 0.0, maxSchooling);
+    }
+
+    private static (double E, int Iterations, bool Converged, string How) Refine(LifeCycle cycle, double lo, double hi)
+    {
+        if (cycle.ObjectiveLogSlope(lo) > 0 && cycle.ObjectiveLogSlope(hi) < 0)
+        {
+            int it = 0;
+            while (hi - lo > Tolerance && it < 200)
+            {
+                double mid = 0.5 * (lo + hi);
+                if (cycle.ObjectiveLogSlope(mid) > 0) lo = mid; else hi = mid;
+                it++;
+            }
+            return (0.5 * (lo + hi), it, hi - lo <= Tolerance, "derivative bisection");
+        }
+        return GoldenSection(cycle, lo, hi);
+    }
+
+    private static (double E, int Iterations, bool Converged, string How) GoldenSection(LifeCycle cycle, double lo, double hi)
+    {
+        double phi = (Math.Sqrt(5) - 1) / 2;
+        double x1 = hi - phi * (hi - lo), x2 = lo + phi * (hi - lo);
+        double f1 = cycle.Objective(x1), f2 = cycle.Objective(x2);
+        int it = 0;
+        while (hi - lo > 1e-8 && it < 200)
+        {
+            if (f1 < f2) { lo = x1; x1 = x2; f1 = f2; x2 = lo + phi * (hi - lo); f2 = cycle.Objective(x2); }
+            else { hi = x2; x2 = x1; f2 = f1; x1 = hi - phi * (hi - lo); f1 = cycle.Objective(x1); }
+            it++;
+        }
+        return (0.5 * (lo + hi), it, hi - lo <= 1e-8, "golden section");
+    }
+
+    /// <summary>[low, high]: the connected range around E* where h·ω stays at or above the threshold.</summary>
+    private static double[] Band(LifeCycle cycle, double best, double threshold, double eMax)
+    {
+        const double step = 0.25;
+        double Edge(double direction, double limit)
+        {
+            double inside = best, outside = best;
+            while (true)
+            {
+                double next = Math.Clamp(outside + direction * step, 0.0, eMax);
+                if (next == outside) return limit;
+                if (cycle.Objective(next) < threshold) { outside = next; break; }
+                inside = outside = next;
+            }
+            for (int i = 0; i < 60 && Math.Abs(outside - inside) > 1e-9; i++)
+            {
+                double mid = 0.5 * (inside + outside);
+                if (cycle.Objective(mid) >= threshold) inside = mid; else outside = mid;
+            }
+            return inside;
+        }
+        return new[] { Edge(-1, 0.0), Edge(+1, eMax) };
+    }
+}

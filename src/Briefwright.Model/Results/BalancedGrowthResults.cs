@@ -1,0 +1,45 @@
+namespace Briefwright.Model.Results;
+
+/// <summary>One option on the balanced growth path (technology level 1 at the brief's date).</summary>
+public sealed record OptionResult(
+    string Id,
+    string Label,
+    bool IsBaseline,
+    double SchoolingYears,
+    double WorkerShare,
+    double HumanCapitalPerWorker,
+    double OutputPerEffectiveWorker,
+    double OutputPerPerson,
+    double ChangeVsBaselinePct);
+
+/// <summary>A local maximum of output per person over schooling length.</summary>
+public sealed record LocalMaximum(double SchoolingYears, double OutputPerPerson, bool AtBoundary);
+
+/// <summary>How the optimum was found and whether the search converged.</summary>
+public sealed record SolverDiagnostics(int GridPoints, int RefinementIterations, bool Converged, double Tolerance, string Refinement);
+
+public enum OptimumMethod
+{
+    ClosedForm,
+    Numerical,
+}
+
+/// <summary>The output-maximising schooling length E* and the band of lengths within 1% of its output.</summary>
+public sealed record OptimumResult(
+    double SchoolingYears,
+    double OutputPerPerson,
+    OptimumMethod Method,
+    string? ClosedFormNotApplicable,
+    double[] Within1Pct,
+    bool AtBoundary,
+    double FeasibleMaxSchooling,
+    IReadOnlyList<LocalMaximum> LocalMaxima,
+    SolverDiagnostics Diagnostics);
+
+/// <summary>Balanced-growth quantities shared by all options.</summary>
+public sealed record SteadyState(double OutputPerEffectiveWorker, double CapitalPerEffectiveWorker, double EffectiveDepreciation);
+
+public sealed record BalancedGrowthResults(
+    SteadyState SteadyState,
+    IReadOnlyList<OptionResult> Options,
+    OptimumResult Optimum);
