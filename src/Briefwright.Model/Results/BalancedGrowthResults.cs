@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace Briefwright.Model.Results;
 
 /// <summary>One option on the balanced growth path (technology level 1 at the brief's date).</summary>
@@ -30,7 +32,7 @@ public sealed record OptimumResult(
     double OutputPerPerson,
     OptimumMethod Method,
     string? ClosedFormNotApplicable,
-    double[] Within1Pct,
+    [property: JsonPropertyName("within_1pct")] double[] Within1Pct,
     bool AtBoundary,
     double FeasibleMaxSchooling,
     IReadOnlyList<LocalMaximum> LocalMaxima,

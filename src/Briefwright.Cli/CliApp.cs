@@ -1,0 +1,23 @@
+using System.CommandLine;
+using Briefwright.Cli.Commands;
+
+namespace Briefwright.Cli;
+
+/// <summary>The command tree. Every command writes to the given writers and returns an exit code, so tests run it in process.</summary>
+public static class CliApp
+{
+    public static int Run(string[] args, TextWriter output, TextWriter error)
+    {
+        var root = new RootCommand(
+            "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief (PDF) on " +
+            "schooling length, demography and long-run output per person, with its numbers also written as data.\n\n" +
+            "Start with:  briefwright check briefs-demo   then   briefwright solve briefs-demo/<file>.yaml\n" +
+            "Exit codes: 0 success, 1 a brief or run failed, 2 invalid input (nothing written).")
+        {
+            CheckCommand.Create(output, error),
+            SolveCommand.Create(output, error),
+        };
+        var config = new InvocationConfiguration { Output = output, Error = error };
+        return root.Parse(args).Invoke(config);
+    }
+}

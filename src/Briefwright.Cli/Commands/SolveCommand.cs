@@ -1,0 +1,49 @@
+using System.CommandLine;
+using Briefwright.Cli.Output;
+using Briefwright.Model.Core;
+
+namespace Briefwright.Cli.Commands;
+
+/// <summary><c>solve PATH... [--json]</c>: the balanced-growth results and the optimum, as a table or JSON.</summary>
+public static class SolveCommand
+{
+    public static Command Create(TextWriter output, TextWriter error)
+    {
+        var paths = new Argument<string[]>("paths")
+        {
+            Description = "Scenario files, or folders whose *.yaml files are all solved.",
+            Arity = ArgumentArity.OneOrMore,
+        };
+        var json = new Option<bool>("--json") { Description = "Print the results as JSON (one object per scenario; a list when there are several). Field names: docs/results-json.md." };
+        var command = new Command("solve", "Solve scenarios: output per person for every option on the balanced growth path, and the output-maximising schooling length.") { paths, json };
+        command.SetAction(parse =>
+        {
+            var files = ScenarioInputs.Expand(parse.GetValue(paths)!, error);
+            bool asJson = parse.GetValue(json);
+            int code = ExitCodes.Ok;
+            var documents = new List<ResultsDocument>();
+            foreach (var file in files)
+            {
+                var loaded = ScenarioInputs.Load(file, error);
+                if (!loaded.Ok)
+                {
+                    code = ExitCodes.InvalidInput;
+                    continue;
+                }
+                var scenario = loaded.Document!;
+                var results = BalancedGrowth.Solve(scenario.Inputs);
+                if (asJson) documents.Add(ResultsDocument.From(scenario, results));
+                else
+                {
+                    if (files.Count > 1) output.WriteLine($"== {file}");
+                    output.Write(SummaryTable.Render(scenario, results));
+                    if (files.Count > 1) output.WriteLine();
+                }
+            }
+            if (asJson && documents.Count == 1) output.Write(ResultsJson.Write(documents[0]));
+            else if (asJson && documents.Count > 1) output.Write(System.Text.Json.JsonSerializer.Serialize(documents, ResultsJson.Options) + "\n");
+            return code;
+        });
+        return command;
+    }
+}

@@ -1,0 +1,40 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+using Briefwright.Model.Results;
+using Briefwright.Scenario;
+
+namespace Briefwright.Cli.Output;
+
+/// <summary>The results data written beside a brief and printed by <c>solve --json</c>. Field names are documented in docs/results-json.md.</summary>
+public sealed record ResultsDocument(
+    string ScenarioId,
+    string Title,
+    string Date,
+    int Edition,
+    string ToolVersion,
+    SteadyState SteadyState,
+    IReadOnlyList<OptionResult> Options,
+    OptimumResult Optimum)
+{
+    public static ResultsDocument From(ScenarioDocument scenario, BalancedGrowthResults results) => new(
+        scenario.Brief.Id,
+        scenario.Brief.Title,
+        scenario.Brief.Date.ToString("yyyy-MM-dd"),
+        scenario.Brief.Edition,
+        ToolInfo.Version,
+        results.SteadyState,
+        results.Options,
+        results.Optimum);
+}
+
+public static class ResultsJson
+{
+    public static readonly JsonSerializerOptions Options = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+        WriteIndented = true,
+        Converters = { new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower) },
+    };
+
+    public static string Write(ResultsDocument document) => JsonSerializer.Serialize(document, Options) + "\n";
+}

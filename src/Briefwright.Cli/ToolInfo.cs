@@ -1,0 +1,9 @@
+using System.Reflection;
+
+namespace Briefwright.Cli;
+
+public static class ToolInfo
+{
+    public static string Version { get; } =
+        typeof(ToolInfo).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion.Split('+')[0] ?? "0.0.0";
+}

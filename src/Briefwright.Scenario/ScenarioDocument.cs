@@ -1,0 +1,34 @@
+using Briefwright.Model.Inputs;
+
+namespace Briefwright.Scenario;
+
+/// <summary>Title-block facts of a brief.</summary>
+public sealed record BriefInfo(
+    string Id,
+    string Title,
+    string ShortTitle,
+    string Organisation,
+    string? Author,
+    DateOnly Date,
+    string Status,
+    int Edition,
+    string? Question);
+
+public enum ValueUnit
+{
+    Rate,
+    Years,
+    Age,
+    Number,
+    Text,
+}
+
+/// <summary>One row of the assumptions table: a parameter, its value, unit, source and note.</summary>
+public sealed record Assumption(string Path, string Label, double? Value, string? Text, ValueUnit Unit, string? Source, string? Note);
+
+/// <summary>A validated scenario: brief facts, model inputs, provenance of every parameter, and the files it was read from.</summary>
+public sealed record ScenarioDocument(
+    BriefInfo Brief,
+    ModelInputs Inputs,
+    IReadOnlyList<Assumption> Assumptions,
+    IReadOnlyList<string> Files);

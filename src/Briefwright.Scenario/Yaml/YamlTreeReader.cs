@@ -1,0 +1,137 @@
+using Briefwright.Scenario.Diagnostics;
+using YamlDotNet.Core;
+using YamlDotNet.Core.Events;
+
+namespace Briefwright.Scenario.Yaml;
+
+/// <summary>
+/// Reads one YAML document into a positioned tree. Rejects what a scenario never needs and an attacker might
+/// use: several documents, non-scalar keys, duplicate keys, nesting deeper than <see cref="MaxDepth"/>, more than
+/// <see cref="MaxAliases"/> aliases, and files over <see cref="MaxBytes"/>.
+/// </summary>
+public static class YamlTreeReader
+{
+    public const int MaxBytes = 1 << 20;
+    public const int MaxDepth = 32;
+    public const int MaxAliases = 256;
+
+    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(string file, string text)
+    {
+        var problems = new List<Diagnostic>();
+        var start = new SourceSpan(file, 1, 1);
+        if (text.Length > MaxBytes)
+            return (null, new[] { new Diagnostic(start, "", $"file is larger than the {MaxBytes / 1024} KiB limit for a scenario", $"{text.Length / 1024} KiB") });
+        if (text.Contains('\0'))
+            return (null, new[] { new Diagnostic(start, "", "file is binary, not YAML text", "a NUL byte") });
+        if (string.IsNullOrWhiteSpace(StripComments(text)))
+            return (null, new[] { new Diagnostic(start, "", "file is empty; a scenario needs at least the brief, demography and options sections", "nothing") });
+
+        var state = new State(file, new Parser(new StringReader(text)), problems);
+        try
+        {
+            state.Expect<StreamStart>();
+            state.Expect<DocumentStart>();
+            var root = state.ReadNode(0, "");
+            state.Expect<DocumentEnd>();
+            if (state.Parser.Current is DocumentStart ds)
+                problems.Add(new Diagnostic(state.Span(ds.Start), "", "file holds more than one YAML document; put one scenario per file", "a second '---'"));
+            return (problems.Count == 0 ? root : null, problems);
+        }
+        catch (YamlException ex)
+        {
+            string reason = ex.InnerException?.Message ?? ex.Message;
+            int cut = reason.IndexOf("): ", StringComparison.Ordinal);
+            if (reason.StartsWith('(') && cut > 0) reason = reason[(cut + 3)..];
+            problems.Add(new Diagnostic(state.Span(ex.Start), "", "YAML syntax error: " + reason.TrimEnd('.'), null));
+            return (null, problems);
+        }
+        catch (LimitException ex)
+        {
+            problems.Add(ex.Diagnostic);
+            return (null, problems);
+        }
+    }
+
+    private static string StripComments(string text) =>
+        string.Join('\n', text.Split('\n').Select(l => l.TrimStart().StartsWith('#') || l.Trim() == "---" ? "" : l));
+
+    private sealed class LimitException(Diagnostic diagnostic) : Exception(diagnostic.Message)
+    {
+        public Diagnostic Diagnostic { get; } = diagnostic;
+    }
+
+    private sealed class State(string file, IParser parser, List<Diagnostic> problems)
+    {
+        private readonly Dictionary<string, YNode> anchors = new(StringComparer.Ordinal);
+        private int aliases;
+
+        public IParser Parser => parser;
+
+        public SourceSpan Span(Mark m) => new(file, (int)Math.Max(1, m.Line), (int)Math.Max(1, m.Column));
+
+        public void Expect<T>() where T : ParsingEvent
+        {
+            if (parser.Current is null) parser.MoveNext();
+            if (parser.Current is not T) throw new YamlException(parser.Current!.Start, parser.Current.End, $"expected {typeof(T).Name}");
+            parser.MoveNext();
+        }
+
+        public YNode ReadNode(int depth, string path)
+        {
+            var ev = parser.Current!;
+            if (depth > MaxDepth)
+                throw new LimitException(new Diagnostic(Span(ev.Start), "", $"nesting is deeper than the limit of {MaxDepth} levels", $"more than {MaxDepth}"));
+            parser.MoveNext();
+            switch (ev)
+            {
+                case Scalar s:
+                    return Remember(s.Anchor, new YScalar(s.Value, s.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted or ScalarStyle.Literal or ScalarStyle.Folded, Span(s.Start)));
+                case AnchorAlias a:
+                    if (++aliases > MaxAliases)
+                        throw new LimitException(new Diagnostic(Span(a.Start), "", $"more than {MaxAliases} aliases", $"*{a.Value}"));
+                    if (anchors.TryGetValue(a.Value.Value, out var target)) return target;
+                    throw new LimitException(new Diagnostic(Span(a.Start), "", "alias refers to an anchor that is not defined before it", $"*{a.Value}"));
+                case SequenceStart ss:
+                {
+                    var items = new List<YNode>();
+                    while (parser.Current is not SequenceEnd) items.Add(ReadNode(depth + 1, $"{path}[{items.Count}]"));
+                    parser.MoveNext();
+                    return Remember(ss.Anchor, new YSequence(items, Span(ss.Start)));
+                }
+                case MappingStart ms:
+                {
+                    var entries = new List<KeyValuePair<YScalar, YNode>>();
+                    var seen = new Dictionary<string, YScalar>(StringComparer.Ordinal);
+                    while (parser.Current is not MappingEnd)
+                    {
+                        var keyNode = ReadNode(depth + 1, path);
+                        string childPath = keyNode is YScalar k ? (path.Length == 0 ? k.Value : $"{path}.{k.Value}") : path;
+                        var value = ReadNode(depth + 1, childPath);
+                        if (keyNode is not YScalar key)
+                        {
+                            problems.Add(new Diagnostic(keyNode.At, "", "mapping keys must be plain names", keyNode.Kind));
+                            continue;
+                        }
+                        if (seen.TryGetValue(key.Value, out var first))
+                        {
+                            problems.Add(new Diagnostic(key.At, childPath, $"duplicate key; first given at line {first.At.Line}", $"'{key.Value}' again"));
+                            continue;
+                        }
+                        seen[key.Value] = key;
+                        entries.Add(new(key, value));
+                    }
+                    parser.MoveNext();
+                    return Remember(ms.Anchor, new YMapping(entries, Span(ms.Start)));
+                }
+                default:
+                    throw new YamlException(ev.Start, ev.End, $"unexpected {ev.GetType().Name}");
+            }
+        }
+
+        private YNode Remember(AnchorName anchor, YNode node)
+        {
+            if (!anchor.IsEmpty) anchors[anchor.Value] = node;
+            return node;
+        }
+    }
+}
