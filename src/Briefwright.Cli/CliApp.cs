@@ -11,11 +11,13 @@ public static class CliApp
         var root = new RootCommand(
             "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief (PDF) on " +
             "schooling length, demography and long-run output per person, with its numbers also written as data.\n\n" +
-            "Start with:  briefwright check briefs-demo   then   briefwright solve briefs-demo/<file>.yaml\n" +
+            "Start with:  briefwright check briefs-demo,  briefwright solve briefs-demo/auroria-national.yaml,\n" +
+            "             briefwright build briefs-demo   (writes briefs-demo/out/<id>-<date>.pdf)\n" +
             "Exit codes: 0 success, 1 a brief or run failed, 2 invalid input (nothing written).")
         {
             CheckCommand.Create(output, error),
             SolveCommand.Create(output, error),
+            BuildCommand.Create(output, error),
         };
         var config = new InvocationConfiguration { Output = output, Error = error };
         return root.Parse(args).Invoke(config);

@@ -31,4 +31,8 @@ public sealed record ScenarioDocument(
     BriefInfo Brief,
     ModelInputs Inputs,
     IReadOnlyList<Assumption> Assumptions,
-    IReadOnlyList<string> Files);
+    IReadOnlyList<string> Files)
+{
+    /// <summary>SHA-256 over the text of every input file, in the order read (the scenario, what it extends, life tables).</summary>
+    public string InputHash { get; init; } = "";
+}

@@ -30,7 +30,7 @@ public sealed class ScenarioLoader(ISourceReader reader)
         var ctx = new BindContext();
         var binder = new ScenarioBinder(ctx, (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, ctx, sources, files));
         var document = binder.Bind(root, files);
-        return new LoadResult(document, ctx.Problems, sources);
+        return new LoadResult(document is null ? null : document with { InputHash = sources.Hash() }, ctx.Problems, sources);
     }
 
     private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, BindContext ctx, SourceSet sources, List<string> files)

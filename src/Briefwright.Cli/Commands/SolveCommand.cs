@@ -1,4 +1,5 @@
 using System.CommandLine;
+using Briefwright.Brief.Annex;
 using Briefwright.Cli.Output;
 using Briefwright.Model.Core;
 

@@ -32,7 +32,24 @@ public static class BalancedGrowth
             r.Option.Id, r.Option.Label, r.Option.Id == inputs.BaselineId, r.Option.SchoolingYears,
             r.Omega, r.H, yHat, r.Y, 100.0 * (r.Y / baseY - 1.0))).ToList();
 
-        var optimum = OptimumSearch.Find(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, yHat, gridPoints);
-        return new BalancedGrowthResults(new SteadyState(yHat, kHat, EffectiveDepreciation(d, p)), options, optimum);
+        var baseDemography = inputs.DemographyFor(inputs.Baseline);
+        var optimum = OptimumSearch.Find(baseDemography, inputs.HumanCapital, yHat, gridPoints);
+        return new BalancedGrowthResults(new SteadyState(yHat, kHat, EffectiveDepreciation(d, p)), options, optimum,
+            Curve(new LifeCycle(baseDemography, inputs.HumanCapital), yHat, CurvePoints));
+    }
+
+    public const int CurvePoints = 121;
+
+    /// <summary>Output per person and its two factors over the feasible schooling range, for charts.</summary>
+    public static IReadOnlyList<CurvePoint> Curve(LifeCycle cycle, double yHat, int points)
+    {
+        var curve = new CurvePoint[points];
+        for (int i = 0; i < points; i++)
+        {
+            double e = cycle.MaxSchooling * i / (points - 1);
+            double omega = cycle.WorkerShare(e), h = cycle.HumanCapitalPerWorker(e);
+            curve[i] = new CurvePoint(e, omega, h, yHat * h * omega);
+        }
+        return curve;
     }
 }

@@ -4,8 +4,26 @@ namespace Briefwright.Scenario.Diagnostics;
 public sealed class SourceSet
 {
     private readonly Dictionary<string, string[]> lines = new(StringComparer.Ordinal);
+    private readonly List<string> texts = new();
 
-    public void Add(string file, string text) => lines[file] = text.Split('\n');
+    public void Add(string file, string text)
+    {
+        lines[file] = text.Split('\n');
+        texts.Add(text);
+    }
+
+    /// <summary>SHA-256 (hex) over every text added, in order, each prefixed by its length.</summary>
+    public string Hash()
+    {
+        using var sha = System.Security.Cryptography.IncrementalHash.CreateHash(System.Security.Cryptography.HashAlgorithmName.SHA256);
+        foreach (var t in texts)
+        {
+            var bytes = System.Text.Encoding.UTF8.GetBytes(t);
+            sha.AppendData(BitConverter.GetBytes((long)bytes.Length));
+            sha.AppendData(bytes);
+        }
+        return Convert.ToHexStringLower(sha.GetHashAndReset());
+    }
 
     public string? Line(string file, int line) =>
         lines.TryGetValue(file, out var l) && line >= 1 && line <= l.Length ? l[line - 1].TrimEnd('\r') : null;

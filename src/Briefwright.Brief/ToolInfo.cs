@@ -1,6 +1,6 @@
 using System.Reflection;
 
-namespace Briefwright.Cli;
+namespace Briefwright.Brief;
 
 public static class ToolInfo
 {

@@ -3,7 +3,7 @@ using System.Text.Json.Serialization;
 using Briefwright.Model.Results;
 using Briefwright.Scenario;
 
-namespace Briefwright.Cli.Output;
+namespace Briefwright.Brief.Annex;
 
 /// <summary>The results data written beside a brief and printed by <c>solve --json</c>. Field names are documented in docs/results-json.md.</summary>
 public sealed record ResultsDocument(
@@ -14,7 +14,8 @@ public sealed record ResultsDocument(
     string ToolVersion,
     SteadyState SteadyState,
     IReadOnlyList<OptionResult> Options,
-    OptimumResult Optimum)
+    OptimumResult Optimum,
+    IReadOnlyList<CurvePoint> SchoolingCurve)
 {
     public static ResultsDocument From(ScenarioDocument scenario, BalancedGrowthResults results) => new(
         scenario.Brief.Id,
@@ -24,7 +25,8 @@ public sealed record ResultsDocument(
         ToolInfo.Version,
         results.SteadyState,
         results.Options,
-        results.Optimum);
+        results.Optimum,
+        results.SchoolingCurve);
 }
 
 public static class ResultsJson

@@ -1,0 +1,86 @@
+using System.Security.Cryptography;
+using System.Text;
+using Briefwright.Brief.Annex;
+using Briefwright.Charts;
+using Briefwright.Composer;
+using Briefwright.Composer.Document;
+using Briefwright.Composer.Drawing;
+using Briefwright.Composer.Markdown;
+using Briefwright.Model.Core;
+using Briefwright.Model.Results;
+using Briefwright.Scenario;
+using Briefwright.Templating;
+
+namespace Briefwright.Brief;
+
+/// <summary>
+/// Runs the pipeline for one scenario: model → charts and filled template → composer. Pure apart from the bytes it
+/// returns; the command line writes them.
+/// </summary>
+public static class BriefBuilder
+{
+    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template)
+    {
+        var results = BalancedGrowth.Solve(scenario.Inputs);
+        ResultsGuard.EnsureFinite(results);
+        var charts = RenderCharts(results, scenario);
+        string markdown = FillTemplate(scenario, results, charts, template);
+        var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
+        var blocks = MarkdownReader.Read(markdown, figures);
+        var info = scenario.Brief;
+        var document = new BriefDocument(
+            new DocumentInfo(
+                info.Title, info.ShortTitle, info.Author ?? info.Organisation,
+                "Schooling length, demography and long-run output per person",
+                "schooling; human capital; demography; balanced growth; output per person",
+                "en-GB", info.Date, $"Edition {info.Edition}" + (info.Status == "final" ? "" : $" ({info.Status})"),
+                $"{info.Organisation} · Model illustration, not a forecast"),
+            blocks);
+        byte[] pdf = DocumentComposer.WritePdf(document);
+        string json = ResultsJson.Write(ResultsDocument.From(scenario, results));
+        return new BuiltBrief(FileStem(scenario), pdf, json, markdown, CountPages(pdf));
+    }
+
+    /// <summary>Output files are named from the scenario id and the brief's date: auroria-national-2026-11-30.</summary>
+    public static string FileStem(ScenarioDocument scenario) => $"{scenario.Brief.Id}-{scenario.Brief.Date:yyyy-MM-dd}";
+
+    public static string FillTemplate(ScenarioDocument scenario, BalancedGrowthResults results, IReadOnlyList<RenderedChart> charts, BriefTemplate template)
+    {
+        var inputs = new BriefInputs(scenario, results, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(),
+            scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), Sha256(template.Text));
+        return template.Render(BriefModelBuilder.Build(inputs));
+    }
+
+    public static IReadOnlyList<RenderedChart> RenderCharts(BalancedGrowthResults results, ScenarioDocument scenario)
+    {
+        ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
+        string source = $"briefwright model, scenario {scenario.Brief.Id}";
+        var baseline = results.Options.First(o => o.IsBaseline);
+        var opt = results.Optimum;
+        return new[]
+        {
+            new RenderedChart("output-curve", ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(results)), ChartRenderer.Width, ChartRenderer.Height,
+                "Output per person against years of schooling, balanced growth path",
+                $"Line chart: output per person rises with schooling from zero, peaks at {opt.SchoolingYears:0.0} years and falls to zero at {opt.FeasibleMaxSchooling:0} years. The options sit on the rising part of the curve; the band within 1% of the maximum runs from {opt.Within1Pct[0]:0.0} to {opt.Within1Pct[1]:0.0} years.",
+                source),
+            new RenderedChart("opposing-forces", ChartRenderer.ToPdf(SchoolingCharts.OpposingForces(results)), ChartRenderer.Width, ChartRenderer.Height,
+                "The two opposing forces: worker share and human capital per worker against schooling",
+                $"Line chart with two axes: the worker share falls steadily with schooling while human capital per worker rises; at the baseline of {baseline.SchoolingYears:0.#} years the worker share is {baseline.WorkerShare:0.000} and human capital per worker {baseline.HumanCapitalPerWorker:0.00}.",
+                source),
+        };
+    }
+
+    public static string Sha256(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
+
+    private static int CountPages(byte[] pdf)
+    {
+        string s = Encoding.Latin1.GetString(pdf);
+        int count = 0, i = 0;
+        while ((i = s.IndexOf("/Type /Page", i, StringComparison.Ordinal)) >= 0)
+        {
+            i += 11;
+            if (i < s.Length && s[i] != 's') count++;
+        }
+        return count;
+    }
+}

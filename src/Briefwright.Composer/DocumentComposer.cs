@@ -1,0 +1,93 @@
+using System.Globalization;
+using Briefwright.Composer.Document;
+using Briefwright.Composer.Drawing;
+using Briefwright.Composer.Layout;
+using PdfSharp.Pdf;
+using PdfSharp.UniversalAccessibility;
+
+namespace Briefwright.Composer;
+
+/// <summary>Lays out a brief and writes it as a tagged PDF with outline, metadata, running header and footer.</summary>
+public sealed class DocumentComposer
+{
+    private static readonly Lazy<PdfTextMeasurer> SharedMeasurer = new(() => new PdfTextMeasurer());
+
+    public static ITextMeasurer Measurer => SharedMeasurer.Value;
+
+    /// <summary>Measure stage and pagination, without drawing: pages of placed atoms.</summary>
+    public static IReadOnlyList<IReadOnlyList<Placement>> Layout(BriefDocument brief, Theme theme, ITextMeasurer measurer) =>
+        Paginator.Paginate(new Planner(theme, measurer).Plan(brief.Blocks), theme.ContentHeight);
+
+    /// <summary>Draws laid-out pages on any surface, with running header and footer as artifacts.</summary>
+    public static void Draw(BriefDocument brief, Theme theme, IReadOnlyList<IReadOnlyList<Placement>> pages, IDrawingSurface surface, ITextMeasurer measurer)
+    {
+        for (int p = 0; p < pages.Count; p++)
+        {
+            surface.BeginPage(p, theme.PageWidth, theme.PageHeight);
+            DrawRunningParts(brief.Info, theme, p, pages.Count, surface, measurer);
+            object? group = null;
+            foreach (var (atom, y) in pages[p])
+            {
+                if (atom.Group != group)
+                {
+                    if (group is not null) surface.EndTag();
+                    group = atom.Group;
+                    if (group is not null) surface.BeginTag(atom.GroupTag);
+                }
+                atom.Draw(surface, theme, theme.MarginLeft, theme.MarginTop + y);
+            }
+            if (group is not null) surface.EndTag();
+            surface.EndPage();
+        }
+    }
+
+    private static void DrawRunningParts(DocumentInfo info, Theme theme, int page, int pageCount, IDrawingSurface surface, ITextMeasurer measurer)
+    {
+        var font = new FontSpec(RunStyle.Regular, 8);
+        double right = theme.PageWidth - theme.MarginRight;
+        double headerY = theme.MarginTop - 30;
+        double footerY = theme.PageHeight - theme.MarginBottom + 30;
+        string date = info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture);
+        string pageText = $"Page {page + 1} of {pageCount}";
+        string headerRight = $"{date} · {info.Edition}";
+        surface.BeginArtifact();
+        surface.Text(info.ShortTitle, theme.MarginLeft, headerY, font, theme.Muted);
+        surface.Text(headerRight, right - measurer.Width(headerRight, font), headerY, font, theme.Muted);
+        surface.Line(theme.MarginLeft, headerY + 5, right, headerY + 5, theme.Rule, 0.5);
+        surface.Line(theme.MarginLeft, footerY - 10, right, footerY - 10, theme.Rule, 0.5);
+        surface.Text(info.FooterNote, theme.MarginLeft, footerY, font, theme.Muted);
+        surface.Text(pageText, right - measurer.Width(pageText, font), footerY, font, theme.Muted);
+        surface.EndArtifact();
+    }
+
+    /// <summary>The whole brief as PDF bytes; the same document gives the same bytes.</summary>
+    public static byte[] WritePdf(BriefDocument brief)
+    {
+        var theme = Theme.For(brief.Paper);
+        var measurer = SharedMeasurer.Value;
+        var pages = Layout(brief, theme, measurer);
+
+        using var document = new PdfDocument();
+        var info = brief.Info;
+        var when = info.Date.ToDateTime(TimeOnly.MinValue, DateTimeKind.Utc);
+        document.Info.Title = info.Title;
+        document.Info.Author = info.Author;
+        document.Info.Subject = info.Subject;
+        document.Info.Keywords = info.Keywords;
+        document.Info.Creator = "briefwright";
+        document.Info.CreationDate = when;
+        document.Info.ModificationDate = when;
+        document.Language = info.Language;
+        document.ViewerPreferences.DisplayDocTitle = true;
+        document.PageMode = PdfPageMode.UseOutlines;
+        var surface = new PdfSurface(document, measurer);
+        UAManager.ForDocument(document).SetDocumentLanguage(info.Language);
+
+        Draw(brief, theme, pages, surface, measurer);
+        surface.WriteOutline();
+
+        using var stream = new MemoryStream();
+        document.Save(stream, false);
+        return ReproducibleBytes.Fix(stream.ToArray(), info.Date);
+    }
+}

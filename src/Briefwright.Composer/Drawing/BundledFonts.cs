@@ -1,0 +1,55 @@
+using System.Collections.Concurrent;
+using Briefwright.Composer.Document;
+using PdfSharp.Fonts;
+
+namespace Briefwright.Composer.Drawing;
+
+/// <summary>
+/// The fonts shipped with the tool (Liberation Sans, SIL OFL), served from embedded resources so output never
+/// depends on fonts installed on the host. Loaded once per process.
+/// </summary>
+public sealed class BundledFonts : IFontResolver
+{
+    public const string Family = "Briefwright Sans";
+    private static readonly ConcurrentDictionary<string, byte[]> Cache = new();
+    private static readonly object Gate = new();
+    private static bool installed;
+
+    public static string FaceName(RunStyle style) => style switch
+    {
+        RunStyle.Bold => "LiberationSans-Bold",
+        RunStyle.Italic => "LiberationSans-Italic",
+        RunStyle.BoldItalic => "LiberationSans-BoldItalic",
+        _ => "LiberationSans-Regular",
+    };
+
+    public static byte[] Bytes(RunStyle style) => Load(FaceName(style));
+
+    private static byte[] Load(string face) => Cache.GetOrAdd(face, name =>
+    {
+        using var stream = typeof(BundledFonts).Assembly.GetManifestResourceStream($"fonts.{name}.ttf")
+            ?? throw new InvalidOperationException($"Bundled font {name} is missing from the build.");
+        using var ms = new MemoryStream();
+        stream.CopyTo(ms);
+        return ms.ToArray();
+    });
+
+    /// <summary>Registers the resolver with PDFsharp once; PDFsharp allows a single global resolver.</summary>
+    public static void Install()
+    {
+        lock (Gate)
+        {
+            if (installed) return;
+            GlobalFontSettings.FontResolver = new BundledFonts();
+            installed = true;
+        }
+    }
+
+    public FontResolverInfo? ResolveTypeface(string familyName, bool bold, bool italic)
+    {
+        var style = (bold, italic) switch { (true, true) => RunStyle.BoldItalic, (true, _) => RunStyle.Bold, (_, true) => RunStyle.Italic, _ => RunStyle.Regular };
+        return new FontResolverInfo(FaceName(style));
+    }
+
+    public byte[]? GetFont(string faceName) => Load(faceName);
+}

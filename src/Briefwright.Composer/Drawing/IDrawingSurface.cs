@@ -1,0 +1,61 @@
+using Briefwright.Composer.Layout;
+
+namespace Briefwright.Composer.Drawing;
+
+/// <summary>Structure tags for tagged PDF (a subset of the standard structure types).</summary>
+public enum StructTag
+{
+    H1,
+    H2,
+    H3,
+    P,
+    L,
+    LI,
+    Lbl,
+    LBody,
+    Table,
+    TR,
+    TH,
+    TD,
+    Figure,
+    Caption,
+    Div,
+}
+
+/// <summary>
+/// What layout draws on. Coordinates are points from the top-left of the page. The PDF implementation writes
+/// a tagged PDF; the recording implementation keeps a list of operations for layout tests.
+/// </summary>
+public interface IDrawingSurface
+{
+    void BeginPage(int pageIndex, double width, double height);
+
+    void EndPage();
+
+    /// <summary>Opens a structure element; closed by <see cref="EndTag"/>.</summary>
+    void BeginTag(StructTag tag, string? altText = null, Box? bounds = null);
+
+    void EndTag();
+
+    /// <summary>Marks what follows as decoration (running header, rules, shading) until <see cref="EndArtifact"/>.</summary>
+    void BeginArtifact();
+
+    void EndArtifact();
+
+    /// <summary>Draws text with its baseline at <paramref name="baseline"/>.</summary>
+    void Text(string text, double x, double baseline, FontSpec font, Rgb color);
+
+    void FillRect(Box box, Rgb color);
+
+    void Line(double x1, double y1, double x2, double y2, Rgb color, double width);
+
+    /// <summary>Places a one-page vector PDF scaled into <paramref name="box"/>.</summary>
+    void Figure(string id, byte[] pdf, Box box);
+
+    void Link(Box box, string url);
+
+    /// <summary>Records a heading for the document outline.</summary>
+    void Outline(int level, string title, double y);
+}
+
+public readonly record struct Box(double X, double Y, double Width, double Height);

@@ -1,0 +1,121 @@
+using Briefwright.Composer.Layout;
+using PdfSharp.Drawing;
+using PdfSharp.Pdf;
+using PdfSharp.UniversalAccessibility;
+
+namespace Briefwright.Composer.Drawing;
+
+/// <summary>Draws into a tagged PDF with PDFsharp: structure elements, artifacts, outline entries and links.</summary>
+public sealed class PdfSurface : IDrawingSurface
+{
+    private readonly PdfDocument document;
+    private readonly PdfTextMeasurer measurer;
+    private readonly StructureBuilder structure;
+    private readonly Dictionary<string, XPdfForm> forms = new();
+    private readonly List<(int Level, string Title, PdfPage Page, double Y)> outline = new();
+    private PdfPage? page;
+    private XGraphics? gfx;
+
+    public PdfSurface(PdfDocument document, PdfTextMeasurer measurer)
+    {
+        this.document = document;
+        this.measurer = measurer;
+        structure = UAManager.ForDocument(document).StructureBuilder;
+    }
+
+    private XGraphics G => gfx ?? throw new InvalidOperationException("Draw calls must come between BeginPage and EndPage.");
+
+    public void BeginPage(int pageIndex, double width, double height)
+    {
+        page = document.AddPage();
+        page.Width = XUnit.FromPoint(width);
+        page.Height = XUnit.FromPoint(height);
+        gfx = XGraphics.FromPdfPage(page);
+    }
+
+    public void EndPage()
+    {
+        gfx?.Dispose();
+        gfx = null;
+    }
+
+    public void BeginTag(StructTag tag, string? altText = null, Box? bounds = null)
+    {
+        switch (tag)
+        {
+            case StructTag.Figure:
+                var b = bounds ?? new Box(0, 0, 0, 0);
+                structure.BeginElement(PdfIllustrationElementTag.Figure, altText ?? "", new XRect(b.X, b.Y, b.Width, b.Height));
+                break;
+            case StructTag.Caption:
+                structure.BeginElement(PdfGroupingElementTag.Caption);
+                break;
+            case StructTag.Div:
+                structure.BeginElement(PdfGroupingElementTag.Division);
+                break;
+            default:
+                structure.BeginElement(tag switch
+                {
+                    StructTag.H1 => PdfBlockLevelElementTag.Heading1,
+                    StructTag.H2 => PdfBlockLevelElementTag.Heading2,
+                    StructTag.H3 => PdfBlockLevelElementTag.Heading3,
+                    StructTag.L => PdfBlockLevelElementTag.List,
+                    StructTag.LI => PdfBlockLevelElementTag.ListItem,
+                    StructTag.Lbl => PdfBlockLevelElementTag.Label,
+                    StructTag.LBody => PdfBlockLevelElementTag.ListBody,
+                    StructTag.Table => PdfBlockLevelElementTag.Table,
+                    StructTag.TR => PdfBlockLevelElementTag.TableRow,
+                    StructTag.TH => PdfBlockLevelElementTag.TableHeaderCell,
+                    StructTag.TD => PdfBlockLevelElementTag.TableDataCell,
+                    _ => PdfBlockLevelElementTag.Paragraph,
+                });
+                break;
+        }
+    }
+
+    public void EndTag() => structure.End();
+
+    public void BeginArtifact() => structure.BeginArtifact();
+
+    public void EndArtifact() => structure.End();
+
+    public void Text(string text, double x, double baseline, FontSpec font, Rgb color) =>
+        G.DrawString(text, measurer.Font(font), new XSolidBrush(XColor.FromArgb(color.R, color.G, color.B)), x, baseline, XStringFormats.BaseLineLeft);
+
+    public void FillRect(Box box, Rgb color) =>
+        G.DrawRectangle(new XSolidBrush(XColor.FromArgb(color.R, color.G, color.B)), box.X, box.Y, box.Width, box.Height);
+
+    public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) =>
+        G.DrawLine(new XPen(XColor.FromArgb(color.R, color.G, color.B), width), x1, y1, x2, y2);
+
+    public void Figure(string id, byte[] pdf, Box box)
+    {
+        if (!forms.TryGetValue(id, out var form))
+        {
+            form = XPdfForm.FromStream(new MemoryStream(pdf));
+            forms[id] = form;
+        }
+        G.DrawImage(form, box.X, box.Y, box.Width, box.Height);
+    }
+
+    public void Link(Box box, string url)
+    {
+        double h = page!.Height.Point;
+        var rect = new PdfRectangle(new XPoint(box.X, h - box.Y - box.Height), new XPoint(box.X + box.Width, h - box.Y));
+        page.AddWebLink(rect, url);
+    }
+
+    public void Outline(int level, string title, double y) => outline.Add((level, title, page!, y));
+
+    /// <summary>Writes the collected headings as the document outline (bookmarks), nested by level.</summary>
+    public void WriteOutline()
+    {
+        PdfOutline? top = null, second = null;
+        foreach (var (level, title, p, _) in outline)
+        {
+            if (level <= 1 || top is null) { top = document.Outlines.Add(title, p, true); second = null; }
+            else if (level == 2 || second is null) second = top.Outlines.Add(title, p, true);
+            else second.Outlines.Add(title, p, true);
+        }
+    }
+}

@@ -1,0 +1,60 @@
+using System.Globalization;
+
+namespace Briefwright.Templating;
+
+/// <summary>Number and date formatting for templates: <c>pct</c>, <c>change</c>, <c>num</c>, <c>sig</c>, <c>big</c>, <c>years</c>, <c>date</c>.</summary>
+public static class TemplateFunctions
+{
+    private static readonly CultureInfo Invariant = CultureInfo.InvariantCulture;
+
+    /// <summary>A fraction as a percentage: 0.0412 → "4.1%".</summary>
+    public static string Pct(double fraction, int digits = 1) => Fixed(fraction * 100, digits) + "%";
+
+    /// <summary>A percentage change with its sign: 4.08 → "+4.1%", −0.3 → "−0.3%".</summary>
+    public static string Change(double percent, int digits = 1)
+    {
+        string s = Fixed(Math.Abs(percent), digits);
+        return (Math.Round(percent, digits) > 0 ? "+" : Math.Round(percent, digits) < 0 ? "−" : "") + s + "%";
+    }
+
+    /// <summary>Fixed decimals with a true minus sign.</summary>
+    public static string Num(double value, int digits = 2) => Fixed(value, digits);
+
+    /// <summary>Significant digits: 0.0004123 → "0.000412" for 3.</summary>
+    public static string Sig(double value, int digits = 3)
+    {
+        if (value == 0 || !double.IsFinite(value)) return Fixed(value, 0);
+        int magnitude = (int)Math.Floor(Math.Log10(Math.Abs(value)));
+        int decimals = Math.Max(0, digits - 1 - magnitude);
+        double rounded = Math.Round(value, Math.Min(15, decimals));
+        string s = Fixed(rounded, Math.Min(15, decimals));
+        return s.Contains('.') ? s.TrimEnd('0').TrimEnd('.') : s;
+    }
+
+    /// <summary>Large numbers with thousands separators: 1234567 → "1,234,567".</summary>
+    public static string Big(double value, int digits = 0) => (value < 0 ? "−" : "") + Math.Abs(value).ToString("N" + digits, Invariant);
+
+    /// <summary>Years: 34.51 → "34.5 years"; 1 → "1 year".</summary>
+    public static string Years(double value, int digits = 1)
+    {
+        string s = Fixed(value, Math.Round(value, digits) == Math.Round(value) ? 0 : digits);
+        return s + (s == "1" ? " year" : " years");
+    }
+
+    /// <summary>A date as "30 November 2026"; accepts a date or YYYY-MM-DD text.</summary>
+    public static string Date(object value) => value switch
+    {
+        DateOnly d => d.ToString("d MMMM yyyy", Invariant),
+        DateTime dt => dt.ToString("d MMMM yyyy", Invariant),
+        string s when DateOnly.TryParseExact(s, "yyyy-MM-dd", Invariant, DateTimeStyles.None, out var d) => d.ToString("d MMMM yyyy", Invariant),
+        _ => value?.ToString() ?? "",
+    };
+
+    private static string Fixed(double value, int digits)
+    {
+        if (!double.IsFinite(value)) throw new InvalidOperationException($"A number to be printed in the brief is not finite. Got {value.ToString(Invariant)}.");
+        string s = Math.Round(value, Math.Clamp(digits, 0, 15)).ToString("F" + Math.Clamp(digits, 0, 15), Invariant);
+        if (s.StartsWith('-')) s = s.TrimStart('-') is var abs && abs.Trim('0', '.').Length == 0 ? abs : "−" + abs;
+        return s;
+    }
+}
