@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
-# Builds the demo: every scenario in briefs-demo/. Restores and compiles on first use.
+# Builds the demo briefs: every scenario in briefs-demo/ → briefs-demo/out/<id>-<date>.pdf (+ results JSON).
+# Restores and compiles on first use; needs only the .NET 10 SDK.
 set -euo pipefail
 cd "$(dirname "$0")"
 dotnet build src/Briefwright.Cli -c Release -v quiet -nologo >/dev/null
-dotnet src/Briefwright.Cli/bin/Release/net10.0/briefwright.dll check briefs-demo
-dotnet src/Briefwright.Cli/bin/Release/net10.0/briefwright.dll solve briefs-demo
+dotnet src/Briefwright.Cli/bin/Release/net10.0/briefwright.dll build briefs-demo "$@"

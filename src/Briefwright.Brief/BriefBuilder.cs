@@ -36,9 +36,9 @@ public static class BriefBuilder
                 "en-GB", info.Date, $"Edition {info.Edition}" + (info.Status == "final" ? "" : $" ({info.Status})"),
                 $"{info.Organisation} · Model illustration, not a forecast"),
             blocks);
-        byte[] pdf = DocumentComposer.WritePdf(document);
+        var pdf = DocumentComposer.WritePdf(document);
         string json = ResultsJson.Write(ResultsDocument.From(scenario, results));
-        return new BuiltBrief(FileStem(scenario), pdf, json, markdown, CountPages(pdf));
+        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount);
     }
 
     /// <summary>Output files are named from the scenario id and the brief's date: auroria-national-2026-11-30.</summary>
@@ -71,16 +71,4 @@ public static class BriefBuilder
     }
 
     public static string Sha256(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
-
-    private static int CountPages(byte[] pdf)
-    {
-        string s = Encoding.Latin1.GetString(pdf);
-        int count = 0, i = 0;
-        while ((i = s.IndexOf("/Type /Page", i, StringComparison.Ordinal)) >= 0)
-        {
-            i += 11;
-            if (i < s.Length && s[i] != 's') count++;
-        }
-        return count;
-    }
 }

@@ -13,7 +13,7 @@ public static class SchoolingCharts
     public static Plot OutputCurve(BalancedGrowthResults results)
     {
         var plot = new Plot();
-        ChartRenderer.Style(plot, "Years of schooling", "Output per person (index, technology = 1)");
+        ChartRenderer.Style(plot, "Years of schooling", "Output per person (index)");
         var band = plot.Add.HorizontalSpan(results.Optimum.Within1Pct[0], results.Optimum.Within1Pct[1]);
         band.FillStyle.Color = Palette.Band;
         band.LineStyle.Width = 0;

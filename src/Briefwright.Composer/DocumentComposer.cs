@@ -7,6 +7,9 @@ using PdfSharp.UniversalAccessibility;
 
 namespace Briefwright.Composer;
 
+/// <summary>A written PDF and its number of pages.</summary>
+public sealed record ComposedPdf(byte[] Bytes, int PageCount);
+
 /// <summary>Lays out a brief and writes it as a tagged PDF with outline, metadata, running header and footer.</summary>
 public sealed class DocumentComposer
 {
@@ -61,7 +64,7 @@ public sealed class DocumentComposer
     }
 
     /// <summary>The whole brief as PDF bytes; the same document gives the same bytes.</summary>
-    public static byte[] WritePdf(BriefDocument brief)
+    public static ComposedPdf WritePdf(BriefDocument brief)
     {
         var theme = Theme.For(brief.Paper);
         var measurer = SharedMeasurer.Value;
@@ -80,6 +83,9 @@ public sealed class DocumentComposer
         document.Language = info.Language;
         document.ViewerPreferences.DisplayDocTitle = true;
         document.PageMode = PdfPageMode.UseOutlines;
+        // PDFsharp 6.2.4 leaves page content streams without their final deflate block when tagging is on
+        // (qpdf: "input stream is complete but output may still be valid"); write them uncompressed.
+        document.Options.CompressContentStreams = false;
         var surface = new PdfSurface(document, measurer);
         UAManager.ForDocument(document).SetDocumentLanguage(info.Language);
 
@@ -88,6 +94,6 @@ public sealed class DocumentComposer
 
         using var stream = new MemoryStream();
         document.Save(stream, false);
-        return ReproducibleBytes.Fix(stream.ToArray(), info.Date);
+        return new ComposedPdf(ReproducibleBytes.Fix(stream.ToArray(), info.Date), pages.Count);
     }
 }

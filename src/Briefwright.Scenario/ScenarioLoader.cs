@@ -103,7 +103,8 @@ public sealed class ScenarioLoader(ISourceReader reader)
         child["form"] is YScalar c && (parent["form"] is not YScalar p || p.Value != c.Value);
 
     /// <summary>Deep merge: mappings merge key by key, the child's value winning; lists and scalars are replaced whole,
-    /// and so is a mapping whose <c>form</c> changes.</summary>
+    /// and so is a mapping whose <c>form</c> changes and a parameter given as <c>{ value, source, note }</c> (so a
+    /// parent's note never sticks to a child's value).</summary>
     public static YMapping Merge(YMapping parent, YMapping child)
     {
         var entries = new List<KeyValuePair<YScalar, YNode>>();
@@ -114,7 +115,7 @@ public sealed class ScenarioLoader(ISourceReader reader)
             entries.Add(new(child.KeyNode(key.Value) ?? key, over switch
             {
                 null => value,
-                YMapping cm when value is YMapping pm && !FormChanges(pm, cm) => Merge(pm, cm),
+                YMapping cm when value is YMapping pm && !FormChanges(pm, cm) && cm["value"] is null => Merge(pm, cm),
                 _ => over,
             }));
         }

@@ -40,6 +40,9 @@ public sealed class BriefTemplate
         var context = new TemplateContext
         {
             StrictVariables = true,
+            EnableRelaxedMemberAccess = false,
+            EnableRelaxedTargetAccess = false,
+            EnableRelaxedFunctionAccess = false,
             LoopLimit = LoopLimit,
             RecursiveLimit = RecursiveLimit,
             OutputLimit = OutputLimit,

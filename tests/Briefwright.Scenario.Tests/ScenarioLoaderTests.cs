@@ -48,6 +48,17 @@ public class ScenarioLoaderTests
         }
 
         [Fact]
+        public void A_child_parameter_replaces_the_parents_source_and_note_whole()
+        {
+            var parent = MemoryReader.With("population_growth: 1%", "population_growth: { value: 1%, source: P, note: Parent note }");
+            var child = "extends: p.yaml\ndemography:\n  population_growth: { value: 2%, source: C }\n";
+            var files = new Dictionary<string, string> { ["c.yaml"] = child, ["p.yaml"] = parent };
+            var r = new ScenarioLoader(new MemoryReader(files)).Load("c.yaml");
+            var row = r.Document!.Assumptions.Single(a => a.Path == "demography.population_growth");
+            Assert.Equal((0.02, "C", (string?)null), (row.Value!.Value, row.Source, row.Note));
+        }
+
+        [Fact]
         public void Reads_a_life_table_with_any_radix_and_scales_it_to_one()
         {
             var text = MemoryReader.With("form: rectangular\n    max_age: 80", "form: life_table\n    file: lt.csv");

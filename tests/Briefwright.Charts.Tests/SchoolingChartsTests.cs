@@ -1,0 +1,64 @@
+using Briefwright.Model.Core;
+using Briefwright.Model.Inputs;
+using Briefwright.Model.Results;
+using ScottPlot;
+
+namespace Briefwright.Charts.Tests;
+
+public class SchoolingChartsTests
+{
+    private static BalancedGrowthResults Results() => BalancedGrowth.Solve(new ModelInputs(
+        new Demography(0.01, 6, 65, new RectangularSurvival(80), 0.75),
+        new HumanCapital(BracketReturns.HallJones, null),
+        new Production(0.2, 1.0 / 3, 0.03, 0.02),
+        new[] { new PolicyOption("base", "Base", 11), new PolicyOption("more", "More", 12) },
+        "base"));
+
+    static SchoolingChartsTests()
+    {
+        var dir = new DirectoryInfo(AppContext.BaseDirectory);
+        while (!File.Exists(Path.Combine(dir!.FullName, "ReportBuilder.sln"))) dir = dir.Parent;
+        string fonts = Path.Combine(dir.FullName, "fonts");
+        ChartFont.Install(File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Regular.ttf")), File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Bold.ttf")));
+    }
+
+    [Fact]
+    public void Output_curve_marks_every_option_the_optimum_and_the_band()
+    {
+        var r = Results();
+        var plot = SchoolingCharts.OutputCurve(r);
+        Assert.Equal(r.Options.Count, plot.GetPlottables<ScottPlot.Plottables.Marker>().Count());
+        var line = Assert.Single(plot.GetPlottables<ScottPlot.Plottables.VerticalLine>());
+        Assert.Equal(r.Optimum.SchoolingYears, line.X, 12);
+        var span = Assert.Single(plot.GetPlottables<ScottPlot.Plottables.HorizontalSpan>());
+        Assert.Equal((r.Optimum.Within1Pct[0], r.Optimum.Within1Pct[1]), (span.X1, span.X2));
+        Assert.Equal("Years of schooling", plot.Axes.Bottom.Label.Text);
+    }
+
+    [Fact]
+    public void Opposing_forces_puts_human_capital_on_the_right_axis()
+    {
+        var plot = SchoolingCharts.OpposingForces(Results());
+        var lines = plot.GetPlottables<ScottPlot.Plottables.Scatter>().ToList();
+        Assert.Equal(2, lines.Count);
+        Assert.Same(plot.Axes.Right, lines[1].Axes.YAxis);
+        Assert.Contains("Human capital", plot.Axes.Right.Label.Text);
+    }
+
+    [Fact]
+    public void Renders_to_the_same_vector_pdf_bytes_every_time()
+    {
+        var a = ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Results()));
+        var b = ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Results()));
+        Assert.Equal("%PDF-", System.Text.Encoding.ASCII.GetString(a, 0, 5));
+        Assert.Equal(a, b);
+    }
+
+    [Fact]
+    public void Uses_the_bundled_font_not_a_host_font()
+    {
+        var pdf = System.Text.Encoding.Latin1.GetString(ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Results())));
+        Assert.Contains("LiberationSans", pdf);
+        Assert.DoesNotContain("DejaVu", pdf);
+    }
+}
