@@ -13,6 +13,13 @@ public static class BalancedGrowth
     public static double OutputPerEffectiveWorker(Demography d, Production p) =>
         Math.Pow(p.SavingRate / EffectiveDepreciation(d, p), p.CapitalShare / (1 - p.CapitalShare));
 
+    /// <summary>Output per person of one option on the balanced growth path (technology level 1).</summary>
+    public static double OutputPerPerson(ModelInputs inputs, PolicyOption option)
+    {
+        var cycle = new LifeCycle(inputs.DemographyFor(option), inputs.HumanCapital);
+        return OutputPerEffectiveWorker(inputs.Demography, inputs.Production) * cycle.Objective(option.SchoolingYears);
+    }
+
     public static BalancedGrowthResults Solve(ModelInputs inputs, int gridPoints = OptimumSearch.DefaultGridPoints)
     {
         var d = inputs.Demography;

@@ -1,0 +1,55 @@
+namespace Briefwright.Model.Dynamics;
+
+/// <summary>
+/// Present value of a reform's gain in output per person, in multiples of today's annual output per person:
+/// PV = Σ_{t=0..H} D(t)·e^(gt)·gain(t). Beyond the horizon H the gain is taken at its balanced-growth value and
+/// the tail is summed exactly (explicitly to the schedule's last step, then as a geometric series); when the last
+/// discount rate does not exceed growth the tail has no finite value, and only the value to the horizon is given.
+/// </summary>
+public sealed record PresentValue(
+    string ScheduleId,
+    string ScheduleLabel,
+    double ToHorizon,
+    double? Tail,
+    double? Total,
+    int? BreakEvenYear,
+    string TailNote)
+{
+    public static PresentValue Compute(ReformPath path, DiscountSchedule schedule, double technologyGrowth)
+    {
+        int h = path.Horizon;
+        var d = schedule.Factors(h);
+        var cumulative = new double[h + 1];
+        double sum = 0;
+        for (int t = 0; t <= h; t++)
+        {
+            sum += d[t] * Math.Exp(technologyGrowth * t) * path.Gain[t];
+            cumulative[t] = sum;
+        }
+        // Break-even: the first year from which the cumulative discounted gain stays positive to the horizon.
+        int? breakEven = null;
+        for (int t = h; t >= 0 && cumulative[t] > 0; t--) breakEven = t;
+        var (tail, note) = TailValue(schedule, d[h], h, technologyGrowth, path.BalancedGrowthGain);
+        return new PresentValue(schedule.Id, schedule.Label, sum, tail, tail is null ? null : sum + tail, breakEven, note);
+    }
+
+    private static (double? Tail, string Note) TailValue(DiscountSchedule schedule, double dH, int h, double g, double longRunGain)
+    {
+        int lastStart = schedule.Steps[^1].FromYear;
+        double lastRate = schedule.Steps[^1].Rate;
+        double q = Math.Exp(g) / (1 + lastRate);
+        if (q >= 1)
+            return (null, $"beyond year {h} the gain is not counted: the long-run discount rate ({lastRate:P1}) does not exceed technology growth ({g:P1}), so the tail has no finite value");
+        double sum = 0, factor = dH;
+        int t = h;
+        while (t + 1 < lastStart)
+        {
+            t++;
+            factor /= 1 + schedule.RateInYear(t);
+            sum += factor * Math.Exp(g * t) * longRunGain;
+        }
+        // From year t + 1 on the rate is the last one: Σ_{j≥1} factor·e^(gt)·q^j = factor·e^(gt)·q/(1 − q).
+        sum += factor * Math.Exp(g * t) * longRunGain * q / (1 - q);
+        return (sum, $"beyond year {h} the gain is held at its balanced-growth value ({longRunGain:P2}) and discounted to infinity");
+    }
+}
