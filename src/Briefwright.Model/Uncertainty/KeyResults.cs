@@ -1,0 +1,35 @@
+using Briefwright.Model.Core;
+using Briefwright.Model.Dynamics;
+using Briefwright.Model.Inputs;
+
+namespace Briefwright.Model.Uncertainty;
+
+/// <summary>The numbers a brief headlines, for one set of inputs: per alternative option, and the optimum.</summary>
+public sealed record KeyResults(
+    IReadOnlyList<string> OptionIds,
+    double[] LongRunChangePct,
+    double[] PresentValue,
+    double OptimumYears,
+    double[]? HeadlinePath);
+
+/// <summary>Evaluates the key results quickly enough to repeat thousands of times.</summary>
+public static class KeyResultsEvaluator
+{
+    public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool keepHeadlinePath)
+    {
+        var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
+        double baseY = BalancedGrowth.OutputPerPerson(inputs, inputs.Baseline);
+        var change = new double[alternatives.Count];
+        var pv = new double[alternatives.Count];
+        double[]? headlinePath = null;
+        for (int i = 0; i < alternatives.Count; i++)
+        {
+            change[i] = 100 * (BalancedGrowth.OutputPerPerson(inputs, alternatives[i]) / baseY - 1);
+            var path = ReformSimulator.Simulate(inputs, alternatives[i], settings.Reform);
+            pv[i] = PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth).ToHorizon;
+            if (keepHeadlinePath && alternatives[i].Id == settings.HeadlineOptionId) headlinePath = path.Gain;
+        }
+        double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess);
+        return new KeyResults(alternatives.Select(o => o.Id).ToList(), change, pv, optimum, headlinePath);
+    }
+}

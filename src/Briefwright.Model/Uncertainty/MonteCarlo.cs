@@ -1,0 +1,87 @@
+using Briefwright.Model.Inputs;
+
+namespace Briefwright.Model.Uncertainty;
+
+/// <summary>Percentiles 5, 25, 50, 75, 95 of one result over the accepted draws.</summary>
+public sealed record Percentiles(double P5, double P25, double P50, double P75, double P95, double Mean)
+{
+    public static Percentiles Of(IReadOnlyList<double> values)
+    {
+        var sorted = values.Order().ToArray();
+        double Q(double p)
+        {
+            // Linear interpolation between order statistics (type 7, the common default).
+            double h = (sorted.Length - 1) * p;
+            int i = (int)Math.Floor(h);
+            return i + 1 < sorted.Length ? sorted[i] + (h - i) * (sorted[i + 1] - sorted[i]) : sorted[i];
+        }
+        return new Percentiles(Q(0.05), Q(0.25), Q(0.5), Q(0.75), Q(0.95), sorted.Average());
+    }
+}
+
+public sealed record OptionUncertainty(string OptionId, Percentiles LongRunChangePct, Percentiles PresentValue, double ProbabilityGain, double ProbabilityPositivePv);
+
+/// <summary>Monte Carlo results: distributions of the key results, probabilities, and a fan of the headline path.</summary>
+public sealed record MonteCarloResults(
+    int Draws,
+    int Rejected,
+    ulong Seed,
+    IReadOnlyList<OptionUncertainty> Options,
+    Percentiles OptimumYears,
+    IReadOnlyList<Percentiles> HeadlineFan,
+    double[] HeadlineChangeSample);
+
+public static class MonteCarlo
+{
+    public const int MaxAttemptsPerDraw = 20;
+
+    /// <summary>Maps uniforms in (0,1) to parameter values through each distribution's quantile function.</summary>
+    public static ModelInputs Apply(ModelInputs inputs, IReadOnlyList<UncertainParameter> parameters, ReadOnlySpan<double> u)
+    {
+        for (int j = 0; j < parameters.Count; j++)
+            inputs = Parameters.Find(parameters[j].Parameter)!.Set(inputs, parameters[j].Distribution.Quantile(u[j]));
+        return inputs;
+    }
+
+    /// <summary>
+    /// Draw i uses its own random stream from (seed, i), so results are identical however the draws are spread
+    /// over threads. A draw whose inputs break a model rule is rejected, counted and replaced by the next attempt of
+    /// the same stream.
+    /// </summary>
+    public static MonteCarloResults Run(ModelInputs inputs, AnalysisSettings settings, double optimumGuess)
+    {
+        var spec = settings.MonteCarlo ?? throw new ArgumentException("No Monte Carlo settings.");
+        int d = spec.Parameters.Count;
+        var results = new KeyResults?[spec.Draws];
+        var rejected = new int[spec.Draws];
+        Parallel.For(0, spec.Draws, i =>
+        {
+            var rng = SplitMix64.ForStream(spec.Seed, (ulong)i);
+            Span<double> u = stackalloc double[d];
+            for (int attempt = 0; attempt < MaxAttemptsPerDraw; attempt++)
+            {
+                for (int j = 0; j < d; j++) u[j] = rng.NextOpenUnit();
+                var trial = Apply(inputs, spec.Parameters, u);
+                if (Parameters.Violation(trial) is not null) { rejected[i]++; continue; }
+                results[i] = KeyResultsEvaluator.Evaluate(trial, settings, optimumGuess, keepHeadlinePath: true);
+                return;
+            }
+        });
+        var accepted = results.Where(r => r is not null).Select(r => r!).ToList();
+        if (accepted.Count < spec.Draws / 2)
+            throw new InvalidOperationException($"Monte Carlo: {rejected.Sum()} draws broke a model rule and only {accepted.Count} of {spec.Draws} were accepted; narrow the distributions.");
+        var ids = accepted[0].OptionIds;
+        var options = ids.Select((id, k) => new OptionUncertainty(
+            id,
+            Percentiles.Of(accepted.Select(r => r.LongRunChangePct[k]).ToList()),
+            Percentiles.Of(accepted.Select(r => r.PresentValue[k]).ToList()),
+            accepted.Count(r => r.LongRunChangePct[k] > 0) / (double)accepted.Count,
+            accepted.Count(r => r.PresentValue[k] > 0) / (double)accepted.Count)).ToList();
+        int horizon = settings.Reform.HorizonYears;
+        var fan = Enumerable.Range(0, horizon + 1).Select(t => Percentiles.Of(accepted.Select(r => r.HeadlinePath![t]).ToList())).ToList();
+        int headline = ids.ToList().IndexOf(settings.HeadlineOptionId);
+        return new MonteCarloResults(accepted.Count, rejected.Sum(), spec.Seed, options,
+            Percentiles.Of(accepted.Select(r => r.OptimumYears).ToList()), fan,
+            accepted.Select(r => r.LongRunChangePct[headline]).ToArray());
+    }
+}

@@ -1,0 +1,48 @@
+using Briefwright.Model.Inputs;
+
+namespace Briefwright.Model.Uncertainty;
+
+/// <summary>Effect of one parameter at the low and high end of its range on every key result (one row of a tornado).</summary>
+public sealed record TornadoRow(string Parameter, string Label, double Low, double High, KeyResults AtLow, KeyResults AtHigh, double Swing);
+
+/// <summary>A two-way grid: <see cref="Values"/>[i][j] at X[i], Y[j].</summary>
+/// <summary>Cells whose inputs break a model rule are null.</summary>
+public sealed record GridResult(GridSpec Spec, double[] X, double[] Y, double?[][] Values, int Invalid);
+
+public static class Sensitivity
+{
+    /// <summary>One-at-a-time ranges, sorted by the swing in the headline option's long-run change (largest first).</summary>
+    public static IReadOnlyList<TornadoRow> Tornado(ModelInputs inputs, AnalysisSettings settings, double optimumGuess)
+    {
+        int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);
+        var rows = settings.Ranges.AsParallel().AsOrdered().Select(range =>
+        {
+            var def = Parameters.Find(range.Parameter) ?? throw new ArgumentException($"Unknown parameter {range.Parameter}.");
+            var low = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.Low), settings, optimumGuess, false);
+            var high = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.High), settings, optimumGuess, false);
+            return new TornadoRow(range.Parameter, def.Label, range.Low, range.High, low, high, Math.Abs(high.LongRunChangePct[headline] - low.LongRunChangePct[headline]));
+        }).ToList();
+        return rows.OrderByDescending(r => r.Swing).ThenBy(r => r.Parameter, StringComparer.Ordinal).ToList();
+    }
+
+    public static GridResult Grid(ModelInputs inputs, AnalysisSettings settings, GridSpec spec, double optimumGuess)
+    {
+        var dx = Parameters.Find(spec.X)!;
+        var dy = Parameters.Find(spec.Y)!;
+        double[] Axis(double lo, double hi) => Enumerable.Range(0, spec.Steps).Select(i => lo + (hi - lo) * i / (spec.Steps - 1)).ToArray();
+        var xs = Axis(spec.XLow, spec.XHigh);
+        var ys = Axis(spec.YLow, spec.YHigh);
+        int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);
+        int invalid = 0;
+        var values = xs.AsParallel().AsOrdered().Select(x => ys.Select(double? (y) =>
+        {
+            var trial = dy.Set(dx.Set(inputs, x), y);
+            if (Parameters.Violation(trial) is not null) { Interlocked.Increment(ref invalid); return null; }
+            if (spec.Output == "optimum")
+                return Core.OptimumSearch.LocalFrom(trial.DemographyFor(trial.Baseline), trial.HumanCapital, optimumGuess);
+            double baseY = Core.BalancedGrowth.OutputPerPerson(trial, trial.Baseline);
+            return 100 * (Core.BalancedGrowth.OutputPerPerson(trial, trial.Options.First(o => o.Id == settings.HeadlineOptionId)) / baseY - 1);
+        }).ToArray()).ToArray();
+        return new GridResult(spec, xs, ys, values, invalid);
+    }
+}
