@@ -21,8 +21,8 @@ public static class BriefBuilder
 {
     public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template)
     {
-        var results = BalancedGrowth.Solve(scenario.Inputs);
-        ResultsGuard.EnsureFinite(results);
+        var solved = ScenarioSolver.Solve(scenario);
+        var results = solved.BalancedGrowth;
         var charts = RenderCharts(results, scenario);
         string markdown = FillTemplate(scenario, results, charts, template);
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
@@ -37,7 +37,7 @@ public static class BriefBuilder
                 $"{info.Organisation} · Model illustration, not a forecast"),
             blocks);
         var pdf = DocumentComposer.WritePdf(document);
-        string json = ResultsJson.Write(ResultsDocument.From(scenario, results));
+        string json = ResultsJson.Write(ResultsDocument.From(scenario, results, solved.Analysis));
         return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount);
     }
 

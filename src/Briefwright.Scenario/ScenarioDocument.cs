@@ -35,4 +35,7 @@ public sealed record ScenarioDocument(
 {
     /// <summary>SHA-256 over the text of every input file, in the order read (the scenario, what it extends, life tables).</summary>
     public string InputHash { get; init; } = "";
+
+    /// <summary>Reform path, appraisal, sensitivity and uncertainty settings (defaults when the scenario gives none).</summary>
+    public Model.Uncertainty.AnalysisSettings Analysis { get; init; } = null!;
 }

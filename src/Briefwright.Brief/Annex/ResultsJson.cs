@@ -1,6 +1,7 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
 using Briefwright.Model.Results;
+using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 
 namespace Briefwright.Brief.Annex;
@@ -15,9 +16,10 @@ public sealed record ResultsDocument(
     SteadyState SteadyState,
     IReadOnlyList<OptionResult> Options,
     OptimumResult Optimum,
-    IReadOnlyList<CurvePoint> SchoolingCurve)
+    IReadOnlyList<CurvePoint> SchoolingCurve,
+    AnalysisResults Analysis)
 {
-    public static ResultsDocument From(ScenarioDocument scenario, BalancedGrowthResults results) => new(
+    public static ResultsDocument From(ScenarioDocument scenario, BalancedGrowthResults results, AnalysisResults analysis) => new(
         scenario.Brief.Id,
         scenario.Brief.Title,
         scenario.Brief.Date.ToString("yyyy-MM-dd"),
@@ -26,7 +28,8 @@ public sealed record ResultsDocument(
         results.SteadyState,
         results.Options,
         results.Optimum,
-        results.SchoolingCurve);
+        results.SchoolingCurve,
+        analysis);
 }
 
 public static class ResultsJson

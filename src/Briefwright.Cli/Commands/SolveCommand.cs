@@ -1,7 +1,7 @@
 using System.CommandLine;
 using Briefwright.Brief.Annex;
 using Briefwright.Cli.Output;
-using Briefwright.Model.Core;
+using Briefwright.Brief;
 
 namespace Briefwright.Cli.Commands;
 
@@ -32,12 +32,14 @@ public static class SolveCommand
                     continue;
                 }
                 var scenario = loaded.Document!;
-                var results = BalancedGrowth.Solve(scenario.Inputs);
-                if (asJson) documents.Add(ResultsDocument.From(scenario, results));
+                var solved = ScenarioSolver.Solve(scenario);
+                var results = solved.BalancedGrowth;
+                if (asJson) documents.Add(ResultsDocument.From(scenario, results, solved.Analysis));
                 else
                 {
                     if (files.Count > 1) output.WriteLine($"== {file}");
                     output.Write(SummaryTable.Render(scenario, results));
+                    output.Write(AnalysisSummary.Render(solved));
                     if (files.Count > 1) output.WriteLine();
                 }
             }

@@ -10,7 +10,7 @@ public sealed record KeyResults(
     double[] LongRunChangePct,
     double[] PresentValue,
     double OptimumYears,
-    double[]? HeadlinePath);
+    [property: System.Text.Json.Serialization.JsonIgnore] double[]? HeadlinePath);
 
 /// <summary>Evaluates the key results quickly enough to repeat thousands of times.</summary>
 public static class KeyResultsEvaluator

@@ -29,7 +29,7 @@ public sealed record MonteCarloResults(
     IReadOnlyList<OptionUncertainty> Options,
     Percentiles OptimumYears,
     IReadOnlyList<Percentiles> HeadlineFan,
-    double[] HeadlineChangeSample);
+    [property: System.Text.Json.Serialization.JsonIgnore] double[] HeadlineChangeSample);
 
 public static class MonteCarlo
 {

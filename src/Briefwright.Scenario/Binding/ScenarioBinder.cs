@@ -9,7 +9,7 @@ namespace Briefwright.Scenario.Binding;
 /// <summary>Turns the merged YAML tree of a scenario into validated model inputs, reporting every problem.</summary>
 public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceSpan, string, TabulatedSurvival?> loadLifeTable)
 {
-    public static readonly string[] TopLevelKeys = { "extends", "brief", "demography", "human_capital", "production", "options" };
+    public static readonly string[] TopLevelKeys = { "extends", "brief", "demography", "human_capital", "production", "options", "reform", "appraisal", "sensitivity", "uncertainty" };
 
     [GeneratedRegex("^[a-z0-9][a-z0-9_-]{0,63}$")]
     private static partial Regex IdPattern();
@@ -31,7 +31,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             return null;
         var inputs = new ModelInputs(demography, humanCapital, production, options, baselineId);
         CrossFieldRules.Check(top, inputs, ctx);
-        return ctx.Problems.Count > 0 ? null : new ScenarioDocument(brief, inputs, ctx.Assumptions, files);
+        var analysis = new AnalysisBinder(ctx).Bind(top, inputs, brief);
+        return ctx.Problems.Count > 0 || analysis is null ? null : new ScenarioDocument(brief, inputs, ctx.Assumptions, files) { Analysis = analysis };
     }
 
     private BriefInfo? BindBrief(YMapping top)

@@ -1,0 +1,58 @@
+using System.Globalization;
+using System.Text;
+using Briefwright.Brief;
+using Briefwright.Model.Dynamics;
+
+namespace Briefwright.Cli.Output;
+
+/// <summary>The reform path, appraisal and uncertainty part of the <c>solve</c> summary.</summary>
+public static class AnalysisSummary
+{
+    private static string N(double v, string f) => v.ToString(f, CultureInfo.InvariantCulture);
+    private static string Pct(double fraction) => N(fraction * 100, "0.00") + "%";
+
+    public static string Render(SolvedScenario solved)
+    {
+        var a = solved.Analysis;
+        var sb = new StringBuilder();
+        var r = a.Reform;
+        sb.AppendLine();
+        sb.AppendLine($"Reform from {r.ReformYear}, phased in over {r.PhaseInCohorts} cohort(s), {r.HorizonYears}-year horizon:");
+        foreach (var o in r.Options)
+        {
+            var p = o.Path;
+            string dip = p.DipDepth is { } depth ? $"dip {Pct(depth)} in {r.ReformYear + p.DipYear}" : "no dip";
+            string positive = p.FirstPositiveYear is { } fp ? $"positive from {r.ReformYear + fp}" : "never positive";
+            sb.AppendLine($"  {o.OptionId}: {dip}, {positive}, long run {Pct(p.LongRunGain)} (balanced growth {Pct(p.BalancedGrowthGain)})");
+            foreach (var pv in o.PresentValues)
+            {
+                string be = pv.BreakEvenYear is { } y ? $"break-even {r.ReformYear + y}" : "no break-even in horizon";
+                string total = pv.Total is { } t ? $", with tail {N(t, "0.00")}" : ", tail not finite";
+                sb.AppendLine($"      PV {pv.ScheduleId}: {N(pv.ToHorizon, "0.00")} years of output per person to the horizon{total}; {be}");
+            }
+        }
+        var d = r.Optimum;
+        sb.AppendLine($"  discounted optimum ({d.ScheduleId}): {N(d.SchoolingYears, "0.0")} years (PV {N(d.PresentValue, "0.00")}) beside balanced-growth E* {N(d.BalancedGrowthOptimum, "0.0")} years");
+        if (a.Tornado.Count > 0)
+        {
+            sb.AppendLine($"Sensitivity of {a.HeadlineOptionId}'s long-run change (largest swing first):");
+            int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
+            foreach (var t in a.Tornado)
+                sb.AppendLine($"  {t.Parameter,-20} {N(t.AtLow.LongRunChangePct[k], "0.00")}% .. {N(t.AtHigh.LongRunChangePct[k], "0.00")}%   E* {N(t.AtLow.OptimumYears, "0.0")} .. {N(t.AtHigh.OptimumYears, "0.0")}");
+        }
+        if (a.MonteCarlo is { } mc)
+        {
+            sb.AppendLine($"Monte Carlo: {mc.Draws} draws (seed {mc.Seed}), {mc.Rejected} rejected for breaking a model rule");
+            foreach (var o in mc.Options)
+                sb.AppendLine($"  {o.OptionId}: change 5–95%: {N(o.LongRunChangePct.P5, "0.00")}% .. {N(o.LongRunChangePct.P95, "0.00")}% (median {N(o.LongRunChangePct.P50, "0.00")}%), P(gain) {N(o.ProbabilityGain, "0.000")}, P(PV > 0) {N(o.ProbabilityPositivePv, "0.000")}");
+            sb.AppendLine($"  E* 5–95%: {N(mc.OptimumYears.P5, "0.0")} .. {N(mc.OptimumYears.P95, "0.0")} years");
+        }
+        if (a.Sobol is { } s)
+        {
+            sb.AppendLine($"Sobol indices (first-order / total), {s.Indices[0].Samples} base samples:");
+            for (int i = 0; i < s.Outputs.Count; i++)
+                sb.AppendLine($"  {s.Outputs[i]}: " + string.Join(", ", s.Indices[i].Inputs.Select((name, j) => $"{name} {N(s.Indices[i].FirstOrder[j], "0.00")}/{N(s.Indices[i].Total[j], "0.00")}")));
+        }
+        return sb.ToString();
+    }
+}

@@ -1,0 +1,243 @@
+using System.Globalization;
+using Briefwright.Model.Dynamics;
+using Briefwright.Model.Inputs;
+using Briefwright.Model.Uncertainty;
+using Briefwright.Scenario.Yaml;
+
+namespace Briefwright.Scenario.Binding;
+
+/// <summary>Reads the optional sections reform, appraisal, sensitivity and uncertainty into analysis settings.</summary>
+public sealed class AnalysisBinder(BindContext ctx)
+{
+    public const int MaxDraws = 200_000;
+    public const int MaxSobolSamples = 8192;
+    public const int MaxHorizon = 400;
+
+    private static string Names => string.Join(", ", Parameters.All.Select(p => p.Name));
+
+    public AnalysisSettings? Bind(YMapping top, ModelInputs inputs, BriefInfo brief)
+    {
+        int before = ctx.Problems.Count;
+        var reform = BindReform(top, inputs, brief, out string headline);
+        var discounts = BindDiscounts(top);
+        var (ranges, grids) = BindSensitivity(top);
+        var monteCarlo = BindUncertainty(top);
+        if (ctx.Problems.Count > before || reform is null || discounts is null) return null;
+        return new AnalysisSettings(reform, headline, discounts, ranges, grids, monteCarlo);
+    }
+
+    private ReformSettings? BindReform(YMapping top, ModelInputs inputs, BriefInfo brief, out string headline)
+    {
+        headline = inputs.Options.First(o => o.Id != inputs.BaselineId).Id;
+        var m = ctx.Mapping(top, "reform", "", required: false);
+        int defaultYear = brief.Date.Year + 1;
+        if (m is null) return new ReformSettings(defaultYear);
+        const string p = "reform";
+        ctx.CheckKeys(m, p, "year", "phase_in_cohorts", "horizon_years", "headline_option");
+        double? year = ctx.Number(m, "year", p, ValueUnit.Number, Bounds.Closed(1900, 2300), fallback: defaultYear);
+        double? phase = ctx.Number(m, "phase_in_cohorts", p, ValueUnit.Number, Bounds.Closed(1, 40), fallback: 1);
+        double? horizon = ctx.Number(m, "horizon_years", p, ValueUnit.Years, Bounds.Closed(20, MaxHorizon), fallback: 150);
+        foreach (var (key, v) in new[] { ("year", year), ("phase_in_cohorts", phase), ("horizon_years", horizon) })
+            if (v is { } x && x != Math.Floor(x)) ctx.Report(m[key]!.At, $"{p}.{key}", "must be a whole number", BindContext.Show(m[key]!));
+        if (ctx.Text(m, "headline_option", p, required: false) is { } h)
+        {
+            if (inputs.Options.All(o => o.Id != h) || h == inputs.BaselineId)
+                ctx.Report(m["headline_option"]!.At, "reform.headline_option", $"must name an option other than the baseline ({string.Join(", ", inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id))})", $"'{h}'");
+            else headline = h;
+        }
+        return year is null || phase is null || horizon is null ? null : new ReformSettings((int)year, (int)phase, (int)horizon);
+    }
+
+    private IReadOnlyList<DiscountSchedule>? BindDiscounts(YMapping top)
+    {
+        var m = ctx.Mapping(top, "appraisal", "", required: false);
+        if (m is null) return DiscountSchedule.Published;
+        ctx.CheckKeys(m, "appraisal", "discount_rates");
+        var list = ctx.Sequence(m, "discount_rates", "appraisal", required: false);
+        if (list is null) return DiscountSchedule.Published;
+        var result = new List<DiscountSchedule>();
+        var known = new Dictionary<string, DiscountSchedule> { ["green_book"] = DiscountSchedule.GreenBook, ["omb_3"] = DiscountSchedule.Omb3, ["omb_7"] = DiscountSchedule.Omb7 };
+        for (int i = 0; i < list.Items.Count; i++)
+        {
+            string ip = $"appraisal.discount_rates[{i}]";
+            switch (list.Items[i])
+            {
+                case YScalar s when known.TryGetValue(s.Value, out var schedule):
+                    result.Add(schedule);
+                    break;
+                case YScalar s:
+                    ctx.Report(s.At, ip, $"must be one of green_book, omb_3, omb_7 or a mapping with id, label and rate or schedule{(Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "")}", $"'{s.Value}'");
+                    break;
+                case YMapping item:
+                    if (BindSchedule(item, ip) is { } own) result.Add(own);
+                    break;
+                default:
+                    ctx.Report(list.Items[i].At, ip, "must be a published schedule name or a mapping", list.Items[i].Kind);
+                    break;
+            }
+        }
+        if (result.Count == 0) ctx.Report(list.At, "appraisal.discount_rates", "must list at least one discount rate", "an empty list");
+        return result;
+    }
+
+    private DiscountSchedule? BindSchedule(YMapping item, string ip)
+    {
+        ctx.CheckKeys(item, ip, "id", "label", "rate", "schedule", "source");
+        string? id = ctx.Text(item, "id", ip, required: true);
+        string? label = ctx.Text(item, "label", ip, required: true, maxLength: 120);
+        if (item["rate"] is not null)
+        {
+            double? rate = ctx.Number(item, "rate", ip, ValueUnit.Rate, Bounds.Closed(-0.05, 0.5));
+            return id is null || label is null || rate is null ? null : DiscountSchedule.Constant(id, label, rate.Value);
+        }
+        var steps = ctx.Sequence(item, "schedule", ip, required: true);
+        if (steps is null) return null;
+        var list = new List<DiscountStep>();
+        for (int j = 0; j < steps.Items.Count; j++)
+        {
+            string sp = $"{ip}.schedule[{j}]";
+            if (steps.Items[j] is not YMapping s) { ctx.Report(steps.Items[j].At, sp, "must be a mapping with from_year and rate", steps.Items[j].Kind); continue; }
+            ctx.CheckKeys(s, sp, "from_year", "rate");
+            double? from = ctx.Number(s, "from_year", sp, ValueUnit.Number, Bounds.Closed(1, 10_000));
+            double? rate = ctx.Number(s, "rate", sp, ValueUnit.Rate, Bounds.Closed(-0.05, 0.5));
+            if (from is null || rate is null) continue;
+            if (j == 0 && from != 1) ctx.Report(s["from_year"]!.At, sp + ".from_year", "the first step must start at year 1", BindContext.Show(s["from_year"]!));
+            if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(s["from_year"]!.At, sp + ".from_year", $"steps must start at increasing years (previous step starts at {list[^1].FromYear})", BindContext.Show(s["from_year"]!));
+            list.Add(new DiscountStep((int)from.Value, rate.Value));
+        }
+        return id is null || label is null || list.Count == 0 ? null : new DiscountSchedule(id, label, list);
+    }
+
+    private Parameters.Definition? Parameter(YScalar key, string path)
+    {
+        var def = Parameters.Find(key.Value);
+        if (def is null)
+            ctx.Report(key.At, path, Suggestions.Closest(key.Value, Parameters.All.Select(p => p.Name)) is { } g ? $"unknown parameter (did you mean '{g}'?)" : $"unknown parameter (expected one of: {Names})", $"'{key.Value}'");
+        return def;
+    }
+
+    private (double Low, double High)? Pair(YNode node, string path, Parameters.Definition def)
+    {
+        if (node is not YSequence { Items.Count: 2 } seq || seq.Items.Any(i => i is not YScalar))
+        {
+            ctx.Report(node.At, path, "must be a list of two numbers, [low, high]", node.Kind);
+            return null;
+        }
+        var wrapper = new YMapping(new[] { new KeyValuePair<YScalar, YNode>(new YScalar("low", false, seq.At), seq.Items[0]), new(new YScalar("high", false, seq.At), seq.Items[1]) }, seq.At);
+        var unit = def.IsRate ? ValueUnit.Rate : ValueUnit.Number;
+        double? lo = ctx.Number(wrapper, "low", path + "[0]", unit, Bounds.Closed(-1000, 1000));
+        double? hi = ctx.Number(wrapper, "high", path + "[1]", unit, Bounds.Closed(-1000, 1000));
+        if (lo is null || hi is null) return null;
+        if (!(hi > lo)) { ctx.Report(seq.Items[1].At, path + "[1]", $"the high end must be above the low end ({lo.Value.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(seq.Items[1])); return null; }
+        return (lo.Value, hi.Value);
+    }
+
+    private (IReadOnlyList<SensitivityRange>, IReadOnlyList<GridSpec>) BindSensitivity(YMapping top)
+    {
+        var ranges = new List<SensitivityRange>();
+        var grids = new List<GridSpec>();
+        var m = ctx.Mapping(top, "sensitivity", "", required: false);
+        if (m is null) return (ranges, grids);
+        ctx.CheckKeys(m, "sensitivity", "ranges", "grids");
+        if (ctx.Mapping(m, "ranges", "sensitivity", required: false) is { } r)
+            foreach (var (key, value) in r.Entries)
+            {
+                string path = $"sensitivity.ranges.{key.Value}";
+                if (Parameter(key, path) is { } def && Pair(value, path, def) is { } pair) ranges.Add(new SensitivityRange(def.Name, pair.Low, pair.High));
+            }
+        if (ctx.Sequence(m, "grids", "sensitivity", required: false) is { } g)
+            for (int i = 0; i < g.Items.Count; i++)
+            {
+                string ip = $"sensitivity.grids[{i}]";
+                if (g.Items[i] is not YMapping item) { ctx.Report(g.Items[i].At, ip, "must be a mapping with x, x_range, y, y_range", g.Items[i].Kind); continue; }
+                ctx.CheckKeys(item, ip, "x", "x_range", "y", "y_range", "steps", "output");
+                var x = item["x"] as YScalar;
+                var y = item["y"] as YScalar;
+                if (x is null || y is null) { ctx.Report(item.At, ip, "needs x and y parameter names", null); continue; }
+                var dx = Parameter(x, ip + ".x");
+                var dy = Parameter(y, ip + ".y");
+                double? steps = ctx.Number(item, "steps", ip, ValueUnit.Number, Bounds.Closed(2, 41), fallback: 9);
+                string output = ctx.Choice(item, "output", ip, required: false, "optimum", "change") ?? "optimum";
+                if (dx is null || dy is null || steps is null) continue;
+                if (dx == dy) { ctx.Report(y.At, ip + ".y", "must differ from x", $"'{y.Value}'"); continue; }
+                var xr = item["x_range"] is { } xn ? Pair(xn, ip + ".x_range", dx) : null;
+                var yr = item["y_range"] is { } yn ? Pair(yn, ip + ".y_range", dy) : null;
+                if (xr is null || yr is null) { if (item["x_range"] is null || item["y_range"] is null) ctx.Report(item.At, ip, "needs x_range and y_range", null); continue; }
+                grids.Add(new GridSpec(dx.Name, xr.Value.Low, xr.Value.High, dy.Name, yr.Value.Low, yr.Value.High, (int)steps.Value, output));
+            }
+        return (ranges, grids);
+    }
+
+    private MonteCarloSpec? BindUncertainty(YMapping top)
+    {
+        var m = ctx.Mapping(top, "uncertainty", "", required: false);
+        if (m is null) return null;
+        const string p = "uncertainty";
+        ctx.CheckKeys(m, p, "draws", "seed", "sobol_samples", "parameters");
+        double? draws = ctx.Number(m, "draws", p, ValueUnit.Number, Bounds.Closed(10, MaxDraws), fallback: 2000);
+        double? seed = ctx.Number(m, "seed", p, ValueUnit.Number, Bounds.Closed(0, 9_007_199_254_740_991));
+        double? sobol = ctx.Number(m, "sobol_samples", p, ValueUnit.Number, Bounds.Closed(0, MaxSobolSamples), fallback: 256);
+        var parameters = new List<UncertainParameter>();
+        if (ctx.Mapping(m, "parameters", p, required: true) is { } ps)
+            foreach (var (key, value) in ps.Entries)
+            {
+                string path = $"{p}.parameters.{key.Value}";
+                if (Parameter(key, path) is not { } def) continue;
+                if (value is not YMapping dm) { ctx.Report(value.At, path, "must be a mapping with a distribution and its parameters", value.Kind); continue; }
+                if (BindDistribution(dm, path, def) is { } dist) parameters.Add(new UncertainParameter(def.Name, dist));
+            }
+        if (draws is null || seed is null || sobol is null) return null;
+        if (parameters.Count == 0) { ctx.Report(m.At, p + ".parameters", "must give at least one parameter a distribution", null); return null; }
+        return new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);
+    }
+
+    private Distribution? BindDistribution(YMapping m, string path, Parameters.Definition def)
+    {
+        var unit = def.IsRate ? ValueUnit.Rate : ValueUnit.Number;
+        var any = Bounds.Closed(-1000, 1000);
+        var positive = Bounds.OpenClosed(0, 1000);
+        string? kind = ctx.Choice(m, "distribution", path, required: true, "normal", "truncated_normal", "uniform", "triangular", "lognormal");
+        switch (kind)
+        {
+            case "normal":
+            {
+                ctx.CheckKeys(m, path, "distribution", "mean", "sd");
+                double? mean = ctx.Number(m, "mean", path, unit, any), sd = ctx.Number(m, "sd", path, unit, positive);
+                return mean is null || sd is null ? null : new NormalDistribution(mean.Value, sd.Value);
+            }
+            case "truncated_normal":
+            {
+                ctx.CheckKeys(m, path, "distribution", "mean", "sd", "low", "high");
+                double? mean = ctx.Number(m, "mean", path, unit, any), sd = ctx.Number(m, "sd", path, unit, positive);
+                double? lo = ctx.Number(m, "low", path, unit, any), hi = ctx.Number(m, "high", path, unit, any);
+                if (mean is null || sd is null || lo is null || hi is null) return null;
+                if (!(hi > lo)) { ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!)); return null; }
+                return new TruncatedNormalDistribution(mean.Value, sd.Value, lo.Value, hi.Value);
+            }
+            case "uniform":
+            {
+                ctx.CheckKeys(m, path, "distribution", "low", "high");
+                double? lo = ctx.Number(m, "low", path, unit, any), hi = ctx.Number(m, "high", path, unit, any);
+                if (lo is null || hi is null) return null;
+                if (!(hi > lo)) { ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!)); return null; }
+                return new UniformDistribution(lo.Value, hi.Value);
+            }
+            case "triangular":
+            {
+                ctx.CheckKeys(m, path, "distribution", "low", "mode", "high");
+                double? lo = ctx.Number(m, "low", path, unit, any), mode = ctx.Number(m, "mode", path, unit, any), hi = ctx.Number(m, "high", path, unit, any);
+                if (lo is null || mode is null || hi is null) return null;
+                if (!(lo <= mode && mode <= hi && hi > lo)) { ctx.Report(m["mode"]!.At, path + ".mode", "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!)); return null; }
+                return new TriangularDistribution(lo.Value, mode.Value, hi.Value);
+            }
+            case "lognormal":
+            {
+                ctx.CheckKeys(m, path, "distribution", "median", "sigma_log");
+                double? median = ctx.Number(m, "median", path, unit, positive), sigma = ctx.Number(m, "sigma_log", path, ValueUnit.Number, Bounds.OpenClosed(0, 5));
+                return median is null || sigma is null ? null : new LognormalDistribution(median.Value, sigma.Value);
+            }
+            default:
+                return null;
+        }
+    }
+}
