@@ -61,3 +61,18 @@ public class OptimumSearchTests
         for (double e = 0; e < result.FeasibleMaxSchooling; e += 0.01) Assert.True(cycle.Objective(e) <= best * (1 + 1e-12));
     }
 }
+
+public class LocalOptimumTests
+{
+    [Theory]
+    [InlineData(5.0)]
+    [InlineData(34.0)]
+    [InlineData(50.0)]
+    public void Local_search_from_any_start_finds_the_full_search_optimum(double guess)
+    {
+        var d = new Demography(0.009, 6, 65, new GompertzMakehamSurvival(0.0004, 3e-6, 1.12, 110), 0.76);
+        var hc = new HumanCapital(BracketReturns.HallJones, new ExperienceProfile(0.081, 0.0012));
+        var full = OptimumSearch.Find(d, hc, 1.0);
+        Assert.Equal(full.SchoolingYears, OptimumSearch.LocalFrom(d, hc, guess), 5);
+    }
+}

@@ -14,9 +14,9 @@ public static class BalancedGrowth
         Math.Pow(p.SavingRate / EffectiveDepreciation(d, p), p.CapitalShare / (1 - p.CapitalShare));
 
     /// <summary>Output per person of one option on the balanced growth path (technology level 1).</summary>
-    public static double OutputPerPerson(ModelInputs inputs, PolicyOption option)
+    public static double OutputPerPerson(ModelInputs inputs, PolicyOption option, double? population = null)
     {
-        var cycle = new LifeCycle(inputs.DemographyFor(option), inputs.HumanCapital);
+        var cycle = new LifeCycle(inputs.DemographyFor(option), inputs.HumanCapital, population);
         return OutputPerEffectiveWorker(inputs.Demography, inputs.Production) * cycle.Objective(option.SchoolingYears);
     }
 

@@ -13,12 +13,14 @@ public sealed class LifeCycle
     private readonly HumanCapital humanCapital;
     private readonly bool rectangular;
 
-    public LifeCycle(Demography demography, HumanCapital humanCapital)
+    /// <param name="population">The population integral if already known for this growth rate and survival curve
+    /// (it does not depend on schooling, retirement or participation).</param>
+    public LifeCycle(Demography demography, HumanCapital humanCapital, double? population = null)
     {
         this.demography = demography;
         this.humanCapital = humanCapital;
         rectangular = demography.Survival is RectangularSurvival;
-        Population = PersonYears(0.0, demography.Survival.MaxAge);
+        Population = population ?? PersonYears(0.0, demography.Survival.MaxAge);
     }
 
     /// <summary>∫₀^Ω e^(−na) l(a) da: population relative to the annual number of births.</summary>

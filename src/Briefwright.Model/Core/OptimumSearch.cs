@@ -59,26 +59,34 @@ public static class OptimumSearch
     /// change of d ln(h·ω)/dE, then bisection to 1e-6 years. Used where thousands of evaluations are needed
     /// (Monte Carlo, Sobol, grids), starting from the full search's optimum for the central scenario.
     /// </summary>
-    public static double LocalFrom(Demography demography, HumanCapital humanCapital, double guess)
+    public static double LocalFrom(Demography demography, HumanCapital humanCapital, double guess, double? population = null)
     {
-        var cycle = new LifeCycle(demography, humanCapital);
+        var cycle = new LifeCycle(demography, humanCapital, population);
         double eMax = cycle.MaxSchooling;
         double lo = Math.Clamp(guess, 0, eMax), hi = lo;
+        double fLo = cycle.ObjectiveLogSlope(lo), fHi = fLo;
         const double step = 2.0;
-        if (cycle.ObjectiveLogSlope(lo) > 0)
+        if (fLo > 0)
         {
-            do { lo = hi; hi = Math.Min(eMax, hi + step); } while (hi < eMax && cycle.ObjectiveLogSlope(hi) > 0);
-            if (hi >= eMax && cycle.ObjectiveLogSlope(hi) > 0) return eMax;
+            do { lo = hi; fLo = fHi; hi = Math.Min(eMax, hi + step); fHi = cycle.ObjectiveLogSlope(hi); } while (hi < eMax && fHi > 0);
+            if (fHi > 0) return eMax;
         }
         else
         {
-            do { hi = lo; lo = Math.Max(0, lo - step); } while (lo > 0 && cycle.ObjectiveLogSlope(lo) <= 0);
-            if (lo <= 0 && cycle.ObjectiveLogSlope(0) <= 0) return 0;
+            do { hi = lo; fHi = fLo; lo = Math.Max(0, lo - step); fLo = cycle.ObjectiveLogSlope(lo); } while (lo > 0 && fLo <= 0);
+            if (fLo <= 0) return 0;
         }
-        while (hi - lo > 1e-6)
+        if (double.IsInfinity(fHi)) fHi = -1e6;
+        // Illinois regula falsi on the slope: superlinear, and the bracket always holds the root.
+        int side = 0;
+        for (int i = 0; i < 60 && hi - lo > 1e-7; i++)
         {
-            double mid = 0.5 * (lo + hi);
-            if (cycle.ObjectiveLogSlope(mid) > 0) lo = mid; else hi = mid;
+            double mid = (lo * fHi - hi * fLo) / (fHi - fLo);
+            if (!(mid > lo && mid < hi)) mid = 0.5 * (lo + hi);
+            double fMid = cycle.ObjectiveLogSlope(mid);
+            if (Math.Abs(fMid) < 1e-12) return mid;
+            if (fMid > 0) { lo = mid; fLo = fMid; if (side == -1) fHi /= 2; side = -1; }
+            else { hi = mid; fHi = fMid; if (side == 1) fLo /= 2; side = 1; }
         }
         return 0.5 * (lo + hi);
     }

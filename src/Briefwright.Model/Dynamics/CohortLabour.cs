@@ -10,7 +10,7 @@ namespace Briefwright.Model.Dynamics;
 /// </summary>
 internal sealed class CohortLabour
 {
-    public const double Step = 0.5;
+    public const double Step = 1.0;
     private readonly double start, end, lnH, n;
     private readonly double[] values, slopes;
     private readonly Demography d;
@@ -24,6 +24,7 @@ internal sealed class CohortLabour
         start = d.EntryAge + schooling;
         end = Math.Min(lastWorkingAge, d.Survival.MaxAge);
         lnH = hc.Returns.Phi(schooling);
+        SchoolingCapital = Math.Exp(lnH);
         int count = end > start ? (int)Math.Ceiling((end - start) / Step) + 1 : 1;
         values = new double[count];
         slopes = new double[count];
@@ -31,13 +32,30 @@ internal sealed class CohortLabour
         for (int i = 1; i < count; i++)
         {
             double a0 = start + (i - 1) * Step, a1 = Math.Min(end, start + i * Step);
-            values[i] = values[i - 1] + Quadrature.Integrate(Integrand, a0, a1, d.Survival.Breakpoints);
+            values[i] = values[i - 1] + PanelIntegral(a0, a1);
             slopes[i] = Integrand(a1);
         }
     }
 
+    /// <summary>One table step, split at life-table ages so that each piece is smooth.</summary>
+    private double PanelIntegral(double a0, double a1)
+    {
+        double sum = 0, left = a0;
+        foreach (double b in d.Survival.Breakpoints)
+        {
+            if (b <= left) continue;
+            if (b >= a1) break;
+            sum += Quadrature.Panel3(Integrand, left, b);
+            left = b;
+        }
+        return sum + Quadrature.Panel3(Integrand, left, a1);
+    }
+
     /// <summary>log h(E) from schooling alone; the experience premium is inside the integral.</summary>
     public double LogSchoolingCapital => lnH;
+
+    /// <summary>e^φ(E), the schooling part of human capital.</summary>
+    public double SchoolingCapital { get; private init; } = double.NaN;
 
     private double Integrand(double a) =>
         Math.Exp(-n * a) * d.Survival.At(a) * (experience is { } e ? Math.Exp(e.LogPremium(a - start)) : 1.0);

@@ -14,7 +14,28 @@ public static class ReformSimulator
 {
     private sealed record Group(double EntryFrom, double EntryTo, CohortLabour Labour);
 
-    public static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings)
+    /// <summary>Cohort labour tables of one set of inputs, shared by the options simulated for them.</summary>
+    public sealed class Cache
+    {
+        private readonly Dictionary<string, double> outputs = new();
+        private double? population;
+
+        internal Dictionary<(double Schooling, double LastAge), CohortLabour> Tables { get; } = new();
+
+        /// <summary>The population integral (the same for every option of one set of inputs).</summary>
+        public double Population(ModelInputs inputs) =>
+            population ??= new LifeCycle(inputs.Demography, inputs.HumanCapital).Population;
+
+        /// <summary>Balanced-growth output per person of an option, computed once.</summary>
+        public double OutputPerPerson(ModelInputs inputs, PolicyOption option)
+        {
+            if (!outputs.TryGetValue(option.Id, out double y))
+                outputs[option.Id] = y = BalancedGrowth.OutputPerPerson(inputs, option, Population(inputs));
+            return y;
+        }
+    }
+
+    public static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache = null)
     {
         var baseline = inputs.Baseline;
         if (reform.Id == baseline.Id) return ReformPath.Flat(reform.Id, settings.HorizonYears);
@@ -22,15 +43,24 @@ public static class ReformSimulator
         var after = inputs.DemographyFor(reform);
         var hc = inputs.HumanCapital;
         var p = inputs.Production;
-        double lastAge = Math.Max(before.RetirementAge, after.RetirementAge);
-        double population = new LifeCycle(before, hc).Population;
+        // Tables run to the latest retirement age of any option, so options share them.
+        double lastAge = inputs.Options.Max(o => inputs.DemographyFor(o).RetirementAge);
+        cache ??= new Cache();
+        double population = cache.Population(inputs);
 
-        var groups = new List<Group> { new(double.NegativeInfinity, 0, new CohortLabour(before, hc, baseline.SchoolingYears, lastAge)) };
+        CohortLabour Table(double e)
+        {
+            if (!cache.Tables.TryGetValue((e, lastAge), out var table))
+                cache.Tables[(e, lastAge)] = table = new CohortLabour(before, hc, e, lastAge);
+            return table;
+        }
+
+        var groups = new List<Group> { new(double.NegativeInfinity, 0, Table(baseline.SchoolingYears)) };
         int k = Math.Max(1, settings.PhaseInCohorts);
         for (int j = 0; j < k; j++)
         {
             double e = baseline.SchoolingYears + (reform.SchoolingYears - baseline.SchoolingYears) * (j + 1) / k;
-            groups.Add(new Group(j, j == k - 1 ? double.PositiveInfinity : j + 1, new CohortLabour(before, hc, e, lastAge)));
+            groups.Add(new Group(j, j == k - 1 ? double.PositiveInfinity : j + 1, Table(e)));
         }
 
         // x(t): effective labour per person. Cohort entering school at time s is aged a = t + a₀ − s at time t.
@@ -41,41 +71,42 @@ public static class ReformSimulator
             foreach (var g in groups)
             {
                 double youngest = t + dem.EntryAge - g.EntryTo, oldest = t + dem.EntryAge - g.EntryFrom;
-                sum += Math.Exp(g.Labour.LogSchoolingCapital) * g.Labour.Between(youngest, Math.Min(oldest, dem.RetirementAge));
+                sum += g.Labour.SchoolingCapital * g.Labour.Between(youngest, Math.Min(oldest, dem.RetirementAge));
             }
             return dem.Participation * sum / population;
         }
 
-        double alpha = p.CapitalShare, s = p.SavingRate, dilution = BalancedGrowth.EffectiveDepreciation(before, p);
+        // Capital: with z = k^(1−α), k̇ = s·k^α·x^(1−α) − λk becomes linear, ż = (1−α)(s·x^(1−α) − λz), and is
+        // integrated exactly for forcing that is linear within each time step (an exponential integrator).
+        double alpha = p.CapitalShare, s = p.SavingRate, lambda = BalancedGrowth.EffectiveDepreciation(before, p);
+        double beta = 1 - alpha, mu = beta * lambda, h = ReformSettings.TimeStep;
+        double decay = Math.Exp(-mu * h);
+        // ∫₀^h e^(−μ(h−τ))·(1 − τ/h) dτ and ∫₀^h e^(−μ(h−τ))·τ/h dτ.
+        double w1 = (1 - (1 - decay) / (mu * h)) / mu, w0 = (1 - decay) / mu - w1;
+        double Forcing(double x) => s * Math.Exp(beta * Math.Log(x));
         double x0 = X(-1);
-        double kStar = x0 * Math.Pow(s / dilution, 1 / (1 - alpha));
-        double y0 = Math.Pow(kStar, alpha) * Math.Pow(x0, 1 - alpha);
-        double Y(double kk, double x) => Math.Exp(alpha * Math.Log(kk) + (1 - alpha) * Math.Log(x));
-        double Dk(double kk, double x) => s * Y(kk, x) - dilution * kk;
+        double z = s * Math.Exp(beta * Math.Log(x0)) / lambda;
+        double Output(double zz, double x) => Math.Exp(alpha / beta * Math.Log(zz) + beta * Math.Log(x));
+        double y0 = Output(z, x0);
 
         int horizon = settings.HorizonYears;
         var gain = new double[horizon + 1];
-        double capital = kStar, h = ReformSettings.TimeStep;
         int stepsPerYear = (int)Math.Round(1 / h);
-        double xNow = X(0);
-        gain[0] = Y(capital, xNow) / y0 - 1;
+        double xNow = X(0), fNow = Forcing(xNow);
+        gain[0] = Output(z, xNow) / y0 - 1;
         for (int year = 0; year < horizon; year++)
         {
             for (int step = 0; step < stepsPerYear; step++)
             {
-                double t = year + step * h;
-                double xMid = X(t + h / 2), xEnd = X(t + h);
-                double k1 = Dk(capital, xNow);
-                double k2 = Dk(capital + h / 2 * k1, xMid);
-                double k3 = Dk(capital + h / 2 * k2, xMid);
-                double k4 = Dk(capital + h * k3, xEnd);
-                capital += h / 6 * (k1 + 2 * k2 + 2 * k3 + k4);
-                xNow = xEnd;
+                double xNext = X(year + (step + 1) * h), fNext = Forcing(xNext);
+                z = z * decay + beta * (w0 * fNow + w1 * fNext);
+                xNow = xNext;
+                fNow = fNext;
             }
-            gain[year + 1] = Y(capital, xNow) / y0 - 1;
+            gain[year + 1] = Output(z, xNow) / y0 - 1;
         }
 
-        double bgpGain = BalancedGrowth.OutputPerPerson(inputs, reform) / BalancedGrowth.OutputPerPerson(inputs, baseline) - 1;
+        double bgpGain = cache.OutputPerPerson(inputs, reform) / cache.OutputPerPerson(inputs, baseline) - 1;
         return Landmarks(reform.Id, gain, bgpGain);
     }
 

@@ -28,14 +28,13 @@ public sealed record RectangularSurvival(double MaxAge) : Survival
 /// </summary>
 public sealed record GompertzMakehamSurvival(double A, double B, double C, double MaxAge) : Survival
 {
+    private readonly double lnC = Math.Log(C);
+    private readonly double bOverLnC = B / Math.Log(C);
+
     public override double MaxAge { get; } = MaxAge;
 
-    public override double At(double age)
-    {
-        if (age > MaxAge) return 0.0;
-        double lnC = Math.Log(C);
-        return Math.Exp(-A * age - B / lnC * Stable.Expm1(age * lnC));
-    }
+    public override double At(double age) =>
+        age > MaxAge ? 0.0 : Math.Exp(-A * age - bOverLnC * Stable.Expm1(age * lnC));
 }
 
 /// <summary>A life table: survivors at tabulated ages, linear between them, zero after the last age.</summary>

@@ -18,18 +18,19 @@ public static class KeyResultsEvaluator
     public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool keepHeadlinePath)
     {
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
-        double baseY = BalancedGrowth.OutputPerPerson(inputs, inputs.Baseline);
+        var cache = new ReformSimulator.Cache();
+        double baseY = cache.OutputPerPerson(inputs, inputs.Baseline);
         var change = new double[alternatives.Count];
         var pv = new double[alternatives.Count];
         double[]? headlinePath = null;
         for (int i = 0; i < alternatives.Count; i++)
         {
-            change[i] = 100 * (BalancedGrowth.OutputPerPerson(inputs, alternatives[i]) / baseY - 1);
-            var path = ReformSimulator.Simulate(inputs, alternatives[i], settings.Reform);
+            change[i] = 100 * (cache.OutputPerPerson(inputs, alternatives[i]) / baseY - 1);
+            var path = ReformSimulator.Simulate(inputs, alternatives[i], settings.Reform, cache);
             pv[i] = PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth).ToHorizon;
             if (keepHeadlinePath && alternatives[i].Id == settings.HeadlineOptionId) headlinePath = path.Gain;
         }
-        double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess);
+        double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess, cache.Population(inputs));
         return new KeyResults(alternatives.Select(o => o.Id).ToList(), change, pv, optimum, headlinePath);
     }
 }

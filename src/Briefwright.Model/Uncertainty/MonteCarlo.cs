@@ -7,7 +7,8 @@ public sealed record Percentiles(double P5, double P25, double P50, double P75, 
 {
     public static Percentiles Of(IReadOnlyList<double> values)
     {
-        var sorted = values.Order().ToArray();
+        var sorted = values.ToArray();
+        Array.Sort(sorted);
         double Q(double p)
         {
             // Linear interpolation between order statistics (type 7, the common default).
@@ -78,7 +79,8 @@ public static class MonteCarlo
             accepted.Count(r => r.LongRunChangePct[k] > 0) / (double)accepted.Count,
             accepted.Count(r => r.PresentValue[k] > 0) / (double)accepted.Count)).ToList();
         int horizon = settings.Reform.HorizonYears;
-        var fan = Enumerable.Range(0, horizon + 1).Select(t => Percentiles.Of(accepted.Select(r => r.HeadlinePath![t]).ToList())).ToList();
+        var fan = Enumerable.Range(0, horizon + 1).AsParallel().AsOrdered()
+            .Select(t => Percentiles.Of(accepted.Select(r => r.HeadlinePath![t]).ToArray())).ToList();
         int headline = ids.ToList().IndexOf(settings.HeadlineOptionId);
         return new MonteCarloResults(accepted.Count, rejected.Sum(), spec.Seed, options,
             Percentiles.Of(accepted.Select(r => r.OptimumYears).ToList()), fan,
