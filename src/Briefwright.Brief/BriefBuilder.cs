@@ -23,8 +23,8 @@ public static class BriefBuilder
     {
         var solved = ScenarioSolver.Solve(scenario);
         var results = solved.BalancedGrowth;
-        var charts = RenderCharts(results, scenario);
-        string markdown = FillTemplate(scenario, results, charts, template);
+        var charts = RenderCharts(solved);
+        string markdown = FillTemplate(solved, charts, template);
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
         var info = scenario.Brief;
@@ -44,20 +44,23 @@ public static class BriefBuilder
     /// <summary>Output files are named from the scenario id and the brief's date: auroria-national-2026-11-30.</summary>
     public static string FileStem(ScenarioDocument scenario) => $"{scenario.Brief.Id}-{scenario.Brief.Date:yyyy-MM-dd}";
 
-    public static string FillTemplate(ScenarioDocument scenario, BalancedGrowthResults results, IReadOnlyList<RenderedChart> charts, BriefTemplate template)
+    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<RenderedChart> charts, BriefTemplate template)
     {
-        var inputs = new BriefInputs(scenario, results, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(),
+        var scenario = solved.Scenario;
+        var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(),
             scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), Sha256(template.Text));
         return template.Render(BriefModelBuilder.Build(inputs));
     }
 
-    public static IReadOnlyList<RenderedChart> RenderCharts(BalancedGrowthResults results, ScenarioDocument scenario)
+    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved)
     {
         ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
+        var scenario = solved.Scenario;
+        var results = solved.BalancedGrowth;
         string source = $"briefwright model, scenario {scenario.Brief.Id}";
         var baseline = results.Options.First(o => o.IsBaseline);
         var opt = results.Optimum;
-        return new[]
+        var charts = new List<RenderedChart>
         {
             new RenderedChart("output-curve", ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(results)), ChartRenderer.Width, ChartRenderer.Height,
                 "Output per person against years of schooling, balanced growth path",
@@ -68,6 +71,8 @@ public static class BriefBuilder
                 $"Line chart with two axes: the worker share falls steadily with schooling while human capital per worker rises; at the baseline of {baseline.SchoolingYears:0.#} years the worker share is {baseline.WorkerShare:0.000} and human capital per worker {baseline.HumanCapitalPerWorker:0.00}.",
                 source),
         };
+        charts.AddRange(AnalysisChartSet.Render(solved, source));
+        return charts;
     }
 
     public static string Sha256(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));

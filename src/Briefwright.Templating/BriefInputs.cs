@@ -1,4 +1,5 @@
 using Briefwright.Model.Results;
+using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 
 namespace Briefwright.Templating;
@@ -10,6 +11,7 @@ public sealed record FigureRef(string Id, string Caption);
 public sealed record BriefInputs(
     ScenarioDocument Scenario,
     BalancedGrowthResults Results,
+    AnalysisResults Analysis,
     IReadOnlyList<FigureRef> Figures,
     string InputHash,
     string ToolVersion,

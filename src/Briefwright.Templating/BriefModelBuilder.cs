@@ -41,8 +41,7 @@ public static class BriefModelBuilder
         model["production"] = Obj(("saving_rate", p.SavingRate), ("capital_share", p.CapitalShare), ("depreciation", p.Depreciation),
             ("technology_growth", p.TechnologyGrowth), ("output_per_effective_worker", r.SteadyState.OutputPerEffectiveWorker),
             ("effective_depreciation", r.SteadyState.EffectiveDepreciation));
-        model["dynamics_available"] = false;
-        model["sensitivity_available"] = false;
+        AnalysisModel.Add(model, s, r, b.Analysis);
         model["stamp"] = Obj(("input_hash", b.InputHash), ("tool_version", b.ToolVersion), ("template", b.TemplateName), ("template_hash", b.TemplateHash));
 
         var figureIds = b.Figures.Select(f => f.Id).ToHashSet();
@@ -51,13 +50,13 @@ public static class BriefModelBuilder
             : throw new InvalidOperationException($"Unknown figure '{id}'. Known figures: {string.Join(", ", figureIds.Order())}.")));
         model.Import("assumptions_table", new Func<string>(() => AssumptionsTable(s)));
         model.Import("results_table", new Func<string>(() => ResultsTable(r)));
-        model.Import("caveats", new Func<string>(() => Md.Bullets(Caveats.Fixed.Concat(Caveats.Generated(s, r)))));
+        model.Import("caveats", new Func<string>(() => Md.Bullets(Caveats.Fixed.Concat(Caveats.Generated(s, r, b.Analysis)))));
         model.Import("equations_annex", new Func<string>(() => Equations.Annex(s.Inputs, r)));
         model.Import("reproducibility", new Func<string>(() => Reproducibility(b)));
         return model;
     }
 
-    private static ScriptObject Obj(params (string Key, object? Value)[] pairs)
+    internal static ScriptObject Obj(params (string Key, object? Value)[] pairs)
     {
         var o = new ScriptObject();
         foreach (var (k, v) in pairs) o[k] = v;

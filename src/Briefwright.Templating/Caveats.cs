@@ -1,5 +1,6 @@
 using Briefwright.Model.Inputs;
 using Briefwright.Model.Results;
+using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 using static Briefwright.Templating.TemplateFunctions;
 
@@ -28,7 +29,7 @@ public static class Caveats
         ("return to a year of schooling", i => (i.HumanCapital.Returns as ConstantReturn)?.Rate, 0.04, 0.15, true),
     };
 
-    public static IReadOnlyList<string> Generated(ScenarioDocument scenario, BalancedGrowthResults results)
+    public static IReadOnlyList<string> Generated(ScenarioDocument scenario, BalancedGrowthResults results, AnalysisResults? analysis = null)
     {
         var list = new List<string>();
         var inputs = scenario.Inputs;
@@ -49,6 +50,25 @@ public static class Caveats
             string show(double x) => percent ? Pct(x) : Num(x, x == Math.Floor(x) ? 0 : 2);
             list.Add($"The {label} ({show(v)}) is outside the range usually assumed ({show(low)} to {show(high)}, common practice); check its source.");
         }
+        if (analysis is not null) list.AddRange(FromAnalysis(scenario, analysis));
         return list;
+    }
+
+    private static IEnumerable<string> FromAnalysis(ScenarioDocument scenario, AnalysisResults a)
+    {
+        string Label(string id) => scenario.Inputs.Options.First(o => o.Id == id).Label;
+        if (a.MonteCarlo is { } mc)
+            foreach (var o in mc.Options)
+            {
+                if (o.ProbabilityGain is >= 0.35 and <= 0.65)
+                    yield return $"For {Label(o.OptionId)} the chance of a long-run gain is close to even ({Pct(o.ProbabilityGain, 0)} of draws); the sign of the effect is not settled by the model.";
+                if (o.ProbabilityPositivePv is >= 0.35 and <= 0.65)
+                    yield return $"For {Label(o.OptionId)} the chance of a positive present value is close to even ({Pct(o.ProbabilityPositivePv, 0)} of draws).";
+            }
+        var headline = a.Reform.Options.FirstOrDefault(o => o.OptionId == a.HeadlineOptionId);
+        if (headline?.PresentValues[0] is { Total: null } pv)
+            yield return $"Present values are counted to year {a.Reform.ReformYear + a.Reform.HorizonYears} only: {pv.TailNote}.";
+        if (a.Reform.Optimum.SchoolingYears > 20)
+            yield return $"Even the discounted optimum ({Years(a.Reform.Optimum.SchoolingYears)}) is long, because the model still counts no cost of schooling other than lost working time.";
     }
 }

@@ -17,6 +17,9 @@ public static class Md
         return sb.ToString();
     }
 
+    /// <summary>Undoes <see cref="Escape"/>.</summary>
+    public static string Unescape(string text) => System.Text.RegularExpressions.Regex.Replace(text, @"\\(.)", "$1");
+
     /// <summary>A pipe table with a caption directive; <paramref name="rightAligned"/> marks numeric columns.</summary>
     public static string Table(string caption, string? source, IReadOnlyList<string> header, IEnumerable<IReadOnlyList<string>> rows, ISet<int> rightAligned)
     {

@@ -56,15 +56,24 @@ public class BriefPdfTests
     {
         var (pdf, text) = Open();
         using var _ = pdf;
+        string markdown = Demo.Build(Name).Markdown;
+        var tables = Regex.Matches(markdown, @"^\[\[table: ([^|\]]+)", RegexOptions.Multiline).Select(m => m.Groups[1].Value.Trim()).ToList();
+        int figures = Regex.Matches(markdown, @"^\[\[figure: ", RegexOptions.Multiline).Count;
+        Assert.Equal(6, tables.Count);
+        Assert.Equal(6, figures);
+        for (int i = 0; i < tables.Count; i++)
+            Assert.Contains(Squash($"Table {i + 1}. {Md.Unescape(tables[i])}"), Squash(text));
         foreach (var caption in new[]
         {
-            "Table 1. Assumptions",
-            "Table 2. Long-run output per person by option",
             "Figure 1. The two opposing forces",
             "Figure 2. Output per person against years of schooling",
+            "Figure 3. Output per person after the reform relative to no reform",
+            "Figure 4. Sensitivity of the long-run change",
+            "Figure 5. Output-maximising schooling E* (years) over",
+            "Figure 6. Distribution of the long-run change",
         })
             Assert.Contains(Squash(caption), Squash(text));
-        Assert.Equal(2, Regex.Matches(Squash(text), "Source:briefwrightmodel,scenario").Count);
+        Assert.Equal(figures, Regex.Matches(Squash(text), "Source:briefwrightmodel,scenario").Count);
     }
 
     [Fact]

@@ -1,0 +1,157 @@
+using System.Globalization;
+using Briefwright.Model.Dynamics;
+using Briefwright.Model.Uncertainty;
+using ScottPlot;
+
+namespace Briefwright.Charts;
+
+/// <summary>Charts of the reform over time, sensitivity and uncertainty.</summary>
+public static class AnalysisCharts
+{
+    private static string F(double v, string f = "0.0") => v.ToString(f, CultureInfo.InvariantCulture);
+
+    /// <summary>Output per person relative to no reform, by calendar year, one line per option; the headline option's
+    /// Monte Carlo band (5–95% and 25–75%), its dip and its break-even year are marked.</summary>
+    public static Plot ReformPath(AppraisalResults reform, string headlineId, IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null)
+    {
+        var plot = new Plot();
+        ChartRenderer.Style(plot, "Year", "Output per person vs no reform (%)");
+        int n = Math.Min(years ?? 80, reform.HorizonYears) + 1;
+        double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
+        if (mc is not null)
+        {
+            var outer = plot.Add.FillY(xs, mc.HeadlineFan.Take(n).Select(p => 100 * p.P5).ToArray(), mc.HeadlineFan.Take(n).Select(p => 100 * p.P95).ToArray());
+            outer.FillColor = Palette.Primary.WithAlpha(0.12);
+            outer.LineWidth = 0;
+            outer.LegendText = $"{labels[headlineId]}: 5–95% of draws";
+            var inner = plot.Add.FillY(xs, mc.HeadlineFan.Take(n).Select(p => 100 * p.P25).ToArray(), mc.HeadlineFan.Take(n).Select(p => 100 * p.P75).ToArray());
+            inner.FillColor = Palette.Primary.WithAlpha(0.22);
+            inner.LineWidth = 0;
+            inner.LegendText = "25–75% of draws";
+        }
+        var zero = plot.Add.HorizontalLine(0, 1, Palette.Ink);
+        zero.LinePattern = LinePattern.Solid;
+        int colour = 0;
+        foreach (var o in reform.Options)
+        {
+            bool headline = o.OptionId == headlineId;
+            var line = plot.Add.ScatterLine(xs, o.Path.Gain.Take(n).Select(g => 100 * g).ToArray());
+            line.Color = headline ? Palette.Primary : Palette.Series[1 + colour++ % (Palette.Series.Length - 1)];
+            line.LineWidth = headline ? 2.2f : 1.4f;
+            line.LinePattern = headline ? LinePattern.Solid : colour % 2 == 0 ? LinePattern.Dashed : LinePattern.DenselyDashed;
+            line.LegendText = labels[o.OptionId];
+            if (!headline) continue;
+            if (o.Path.DipYear is { } dy && o.Path.DipDepth is { } depth)
+            {
+                var dip = plot.Add.Marker(reform.ReformYear + dy, 100 * depth);
+                dip.MarkerShape = MarkerShape.FilledTriangleDown;
+                dip.MarkerSize = 9;
+                dip.Color = Palette.Contrast;
+                dip.LegendText = $"Deepest dip, {reform.ReformYear + dy}: {F(100 * depth, "0.00")}%";
+            }
+            if (o.PresentValues[0].BreakEvenYear is { } be && be < n)
+            {
+                var v = plot.Add.VerticalLine(reform.ReformYear + be);
+                v.Color = Palette.Contrast;
+                v.LinePattern = LinePattern.Dotted;
+                v.LineWidth = 1.2f;
+                v.LegendText = $"Break-even ({o.PresentValues[0].ScheduleLabel}): {reform.ReformYear + be}";
+            }
+        }
+        plot.Axes.SetLimitsX(xs[0], xs[^1]);
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = v => v.ToString("0", CultureInfo.InvariantCulture) };
+        plot.ShowLegend(Edge.Bottom);
+        return plot;
+    }
+
+    /// <summary>Tornado: the headline option's long-run change with each parameter at the low and high end of its range.</summary>
+    public static Plot Tornado(IReadOnlyList<TornadoRow> rows, int optionIndex, double central, string optionLabel)
+    {
+        var plot = new Plot();
+        ChartRenderer.Style(plot, $"Long-run change in output per person, {optionLabel} (%)", "");
+        var bars = new List<Bar>();
+        var ticks = new List<Tick>();
+        for (int i = 0; i < rows.Count; i++)
+        {
+            var r = rows[i];
+            double pos = rows.Count - 1 - i;
+            double lo = r.AtLow.LongRunChangePct[optionIndex], hi = r.AtHigh.LongRunChangePct[optionIndex];
+            bars.Add(new Bar { Position = pos, ValueBase = central, Value = lo, FillColor = Palette.Contrast, Size = 0.6, Orientation = Orientation.Horizontal });
+            bars.Add(new Bar { Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Primary, Size = 0.6, Orientation = Orientation.Horizontal });
+            ticks.Add(new Tick(pos, r.Label));
+        }
+        var plotBars = plot.Add.Bars(bars);
+        plotBars.Horizontal = true;
+        plot.Axes.Left.TickGenerator = new ScottPlot.TickGenerators.NumericManual(ticks.ToArray());
+        plot.Axes.Left.TickLabelStyle.FontSize = 8.5f;
+        var c = plot.Add.VerticalLine(central);
+        c.Color = Palette.Ink;
+        c.LineWidth = 1;
+        c.LegendText = $"Central assumptions: {F(central, "0.00")}%";
+        var lowKey = plot.Add.Marker(double.NaN, double.NaN);
+        lowKey.MarkerShape = MarkerShape.FilledSquare;
+        lowKey.Color = Palette.Contrast;
+        lowKey.LegendText = "Parameter at the low end of its range";
+        var highKey = plot.Add.Marker(double.NaN, double.NaN);
+        highKey.MarkerShape = MarkerShape.FilledSquare;
+        highKey.Color = Palette.Primary;
+        highKey.LegendText = "Parameter at the high end of its range";
+        plot.Axes.SetLimitsY(-0.7, rows.Count - 0.3);
+        plot.ShowLegend(Edge.Bottom);
+        return plot;
+    }
+
+    /// <summary>Heat map of a grid result (E* or the long-run change) over two parameters; cells that break a model rule are left blank.</summary>
+    public static Plot Heatmap(GridResult grid, string xLabel, string yLabel, string valueLabel, double xScale = 1, double yScale = 1)
+    {
+        var plot = new Plot();
+        ChartRenderer.Style(plot, xLabel, yLabel);
+        int nx = grid.X.Length, ny = grid.Y.Length;
+        var data = new double[ny, nx];
+        for (int i = 0; i < nx; i++)
+            for (int j = 0; j < ny; j++)
+                data[ny - 1 - j, i] = grid.Values[i][j] ?? double.NaN;
+        var hm = plot.Add.Heatmap(data);
+        hm.Colormap = new ScottPlot.Colormaps.CustomInterpolated(new[] { Color.FromHex("#F6EFD9"), Color.FromHex("#8FB8C9"), Palette.Primary });
+        double x0 = grid.X[0] * xScale, x1 = grid.X[^1] * xScale, y0 = grid.Y[0] * yScale, y1 = grid.Y[^1] * yScale;
+        double dx = (x1 - x0) / (nx - 1), dy = (y1 - y0) / (ny - 1);
+        hm.Extent = new CoordinateRect(x0 - dx / 2, x1 + dx / 2, y0 - dy / 2, y1 + dy / 2);
+        hm.NaNCellColor = Colors.White;
+        plot.Axes.SetLimits(x0 - dx / 2, x1 + dx / 2, y0 - dy / 2, y1 + dy / 2);
+        var bar = plot.Add.ColorBar(hm, Edge.Right);
+        bar.Label = valueLabel;
+        bar.LabelStyle.FontSize = 9;
+        return plot;
+    }
+
+    /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
+    public static Plot Distribution(MonteCarloResults mc, int optionIndex, string optionLabel)
+    {
+        var plot = new Plot();
+        ChartRenderer.Style(plot, $"Long-run change in output per person, {optionLabel} (%)", "Share of draws (%)");
+        var sample = mc.HeadlineChangeSample;
+        double lo = sample.Min(), hi = sample.Max();
+        const int bins = 30;
+        double width = (hi - lo) / bins;
+        if (width <= 0) width = 1e-6;
+        var counts = new double[bins];
+        foreach (var v in sample) counts[Math.Min(bins - 1, (int)((v - lo) / width))]++;
+        var bars = Enumerable.Range(0, bins).Select(b => new Bar
+        {
+            Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92, FillColor = Palette.Primary.WithAlpha(0.75),
+        }).ToList();
+        plot.Add.Bars(bars);
+        var p = mc.Options[optionIndex].LongRunChangePct;
+        foreach (var (x, name, pattern) in new[] { (p.P5, "5th percentile", LinePattern.Dashed), (p.P50, "Median", LinePattern.Solid), (p.P95, "95th percentile", LinePattern.Dashed) })
+        {
+            var v = plot.Add.VerticalLine(x);
+            v.Color = Palette.Contrast;
+            v.LinePattern = pattern;
+            v.LineWidth = 1.4f;
+            v.LegendText = $"{name}: {F(x, "0.00")}%";
+        }
+        plot.Axes.SetLimitsY(0, bars.Max(b => b.Value) * 1.15);
+        plot.ShowLegend(Edge.Bottom);
+        return plot;
+    }
+}

@@ -1,0 +1,115 @@
+using Briefwright.Model.Dynamics;
+using Briefwright.Model.Results;
+using Briefwright.Model.Uncertainty;
+using Briefwright.Scenario;
+using Scriban.Runtime;
+using static Briefwright.Templating.BriefModelBuilder;
+using static Briefwright.Templating.TemplateFunctions;
+
+namespace Briefwright.Templating;
+
+/// <summary>Template data and block placeholders for the reform over time, sensitivity and uncertainty.</summary>
+internal static class AnalysisModel
+{
+    public static void Add(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
+    {
+        string Label(string id) => s.Inputs.Options.First(o => o.Id == id).Label;
+        var reform = a.Reform;
+        ScriptObject OptionPath(OptionAppraisal o)
+        {
+            var headlinePv = o.PresentValues[0];
+            return Obj(("id", o.OptionId), ("label", Label(o.OptionId)), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
+                ("has_dip", o.Path.DipDepth is not null), ("first_positive_year", reform.ReformYear + o.Path.FirstPositiveYear),
+                ("long_run", o.Path.LongRunGain), ("balanced_growth", o.Path.BalancedGrowthGain), ("pv", headlinePv.ToHorizon),
+                ("break_even_year", reform.ReformYear + headlinePv.BreakEvenYear), ("schedule", headlinePv.ScheduleLabel));
+        }
+        var paths = reform.Options.Select(OptionPath).ToList();
+        var d = reform.Optimum;
+        model["reform"] = Obj(("year", reform.ReformYear), ("horizon", reform.HorizonYears), ("end_year", reform.ReformYear + reform.HorizonYears),
+            ("phase_in", reform.PhaseInCohorts), ("options", new ScriptArray(paths)), ("headline", paths.First(p => (string)p["id"]! == a.HeadlineOptionId)),
+            ("discounted_optimum", Obj(("years", d.SchoolingYears), ("pv", d.PresentValue), ("explanation", d.Explanation),
+                ("schedule", s.Analysis.Headline.Label), ("balanced_growth", d.BalancedGrowthOptimum))));
+        model["dynamics_available"] = true;
+
+        int k = reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
+        model["sensitivity_available"] = a.Tornado.Count > 0 || a.MonteCarlo is not null;
+        model["tornado"] = new ScriptArray(a.Tornado.Select(t => Obj(("parameter", t.Parameter), ("label", t.Label),
+            ("at_low", t.AtLow.LongRunChangePct[k]), ("at_high", t.AtHigh.LongRunChangePct[k]), ("swing", t.Swing),
+            ("optimum_low", t.AtLow.OptimumYears), ("optimum_high", t.AtHigh.OptimumYears))));
+        model["has_grid"] = a.Grids.Count > 0;
+        if (a.MonteCarlo is { } mc)
+        {
+            var o = mc.Options[k];
+            model["mc"] = Obj(("draws", mc.Draws), ("rejected", mc.Rejected), ("seed", mc.Seed.ToString()),
+                ("p5", o.LongRunChangePct.P5), ("p50", o.LongRunChangePct.P50), ("p95", o.LongRunChangePct.P95),
+                ("prob_gain", o.ProbabilityGain), ("prob_pv", o.ProbabilityPositivePv),
+                ("optimum_p5", mc.OptimumYears.P5), ("optimum_p50", mc.OptimumYears.P50), ("optimum_p95", mc.OptimumYears.P95));
+        }
+        else model["mc"] = null;
+        if (a.Sobol is { } sobol)
+        {
+            var idx = sobol.Indices[0];
+            int top = Enumerable.Range(0, idx.Inputs.Count).MaxBy(i => idx.Total[i]);
+            model["sobol"] = Obj(("top_parameter", Parameters.Find(idx.Inputs[top])!.Label), ("top_total", idx.Total[top]), ("samples", idx.Samples));
+        }
+        else model["sobol"] = null;
+
+        model.Import("reform_table", new Func<string>(() => ReformTable(a, Label)));
+        model.Import("appraisal_table", new Func<string>(() => AppraisalTable(a, Label)));
+        model.Import("uncertainty_table", new Func<string>(() => UncertaintyTable(a, Label)));
+        model.Import("sobol_table", new Func<string>(() => SobolTable(a)));
+    }
+
+    private static string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";
+
+    private static string ReformTable(AnalysisResults a, Func<string, string> label)
+    {
+        var r = a.Reform;
+        var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
+        {
+            label(o.OptionId), o.Path.DipDepth is { } dd ? Pct(dd, 2) : "none", Year(r.ReformYear, o.Path.DipYear),
+            Year(r.ReformYear, o.Path.FirstPositiveYear), Year(r.ReformYear, o.PresentValues[0].BreakEvenYear),
+            Pct(o.Path.LongRunGain, 2), Pct(o.Path.BalancedGrowthGain, 2),
+        });
+        return Md.Table($"The reform over time: output per person against no reform (reform from {r.ReformYear})", "briefwright cohort simulation",
+            new[] { "Option", "Deepest dip", "Year of dip", "Gain from", $"Break-even ({r.Options[0].PresentValues[0].ScheduleId})", $"Gain in {r.ReformYear + r.HorizonYears}", "Balanced growth" },
+            rows, new HashSet<int> { 1, 2, 3, 4, 5, 6 });
+    }
+
+    private static string AppraisalTable(AnalysisResults a, Func<string, string> label)
+    {
+        var schedules = a.Reform.Options[0].PresentValues;
+        var header = new List<string> { "Option" };
+        header.AddRange(schedules.Select(p => p.ScheduleLabel));
+        var rows = a.Reform.Options.Select(o => (IReadOnlyList<string>)o.PresentValues.Select(pv => Num(pv.ToHorizon, 2)).Prepend(label(o.OptionId)).ToList());
+        return Md.Table($"Present value of the gain to {a.Reform.ReformYear + a.Reform.HorizonYears}, in years of today's output per person", "briefwright cohort simulation; discount rates as named",
+            header, rows, Enumerable.Range(1, schedules.Count).ToHashSet());
+    }
+
+    private static string UncertaintyTable(AnalysisResults a, Func<string, string> label)
+    {
+        if (a.MonteCarlo is not { } mc) return "";
+        var rows = mc.Options.Select(o => (IReadOnlyList<string>)new[]
+        {
+            label(o.OptionId), Change(o.LongRunChangePct.P5, 2), Change(o.LongRunChangePct.P50, 2), Change(o.LongRunChangePct.P95, 2),
+            Pct(o.ProbabilityGain, 1), Pct(o.ProbabilityPositivePv, 1),
+        });
+        return Md.Table($"Uncertainty: long-run change in output per person over {Big(mc.Draws)} Monte Carlo draws (seed {mc.Seed})", "briefwright Monte Carlo",
+            new[] { "Option", "5th percentile", "Median", "95th percentile", "Probability of a gain", "Probability PV > 0" },
+            rows, new HashSet<int> { 1, 2, 3, 4, 5 });
+    }
+
+    private static string SobolTable(AnalysisResults a)
+    {
+        if (a.Sobol is not { } s) return "";
+        var idx = s.Indices;
+        string Show(double v) => Math.Abs(v) < 0.005 ? "0.00" : Num(Math.Max(0, v), 2);
+        var rows = Enumerable.Range(0, idx[0].Inputs.Count).OrderByDescending(i => idx[0].Total[i]).Select(i => (IReadOnlyList<string>)new[]
+        {
+            Parameters.Find(idx[0].Inputs[i])!.Label, Show(idx[0].FirstOrder[i]), Show(idx[0].Total[i]), Show(idx[1].Total[i]), Show(idx[2].Total[i]),
+        });
+        return Md.Table($"Which assumption matters most: Sobol indices ({Big(idx[0].Samples)} base samples; negative estimates shown as 0)", "briefwright, Saltelli sampling with Jansen estimators",
+            new[] { "Parameter", "First-order, headline change", "Total, headline change", "Total, E*", "Total, present value" },
+            rows, new HashSet<int> { 1, 2, 3, 4 });
+    }
+}
