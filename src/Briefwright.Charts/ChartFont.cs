@@ -17,8 +17,8 @@ public sealed class ChartFont : ScottPlot.IFontResolver
 
     private ChartFont(byte[] regularTtf, byte[] boldTtf)
     {
-        regular = SKTypeface.FromData(SKData.CreateCopy(regularTtf));
-        bold = SKTypeface.FromData(SKData.CreateCopy(boldTtf));
+        regular = SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(regularTtf, FontSubsetter.ChartCharacters)));
+        bold = SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(boldTtf, FontSubsetter.ChartCharacters)));
     }
 
     public static void Install(byte[] regularTtf, byte[] boldTtf)
