@@ -19,12 +19,16 @@ namespace Briefwright.Brief;
 /// </summary>
 public static class BriefBuilder
 {
-    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template)
+    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null)
     {
+        options ??= BuildOptions.Default;
         var solved = ScenarioSolver.Solve(scenario);
         var results = solved.BalancedGrowth;
-        var charts = RenderCharts(solved);
-        string markdown = FillTemplate(solved, charts, template);
+        var charts = RenderCharts(solved, options.ChartImages);
+        var resultsDocument = ResultsDocument.From(scenario, results, solved.Analysis);
+        string json = ResultsJson.Write(resultsDocument);
+        var changes = options.PreviousEdition is { } previous ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) : null;
+        string markdown = FillTemplate(solved, charts, template, changes);
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
         var info = scenario.Brief;
@@ -34,25 +38,26 @@ public static class BriefBuilder
                 "Schooling length, demography and long-run output per person",
                 "schooling; human capital; demography; balanced growth; output per person",
                 "en-GB", info.Date, $"Edition {info.Edition}" + (info.Status == "final" ? "" : $" ({info.Status})"),
-                $"{info.Organisation} · Model illustration, not a forecast"),
-            blocks);
+                options.Theme.Footer ?? $"{info.Organisation} · Model illustration, not a forecast") { Logo = options.Logo },
+            blocks) { Theme = options.PageTheme() };
         var pdf = DocumentComposer.WritePdf(document);
-        string json = ResultsJson.Write(ResultsDocument.From(scenario, results, solved.Analysis));
-        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount);
+        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, AnnexFiles.Build(solved, charts).Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList(), changes);
     }
 
     /// <summary>Output files are named from the scenario id and the brief's date: auroria-national-2026-11-30.</summary>
     public static string FileStem(ScenarioDocument scenario) => $"{scenario.Brief.Id}-{scenario.Brief.Date:yyyy-MM-dd}";
 
-    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<RenderedChart> charts, BriefTemplate template)
+    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<RenderedChart> charts, BriefTemplate template, EditionChanges? changes = null)
     {
         var scenario = solved.Scenario;
         var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(),
             scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), Sha256(template.Text));
-        return template.Render(BriefModelBuilder.Build(inputs));
+        var model = BriefModelBuilder.Build(inputs);
+        ChangesModel.Add(model, changes);
+        return template.Render(model);
     }
 
-    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved)
+    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false)
     {
         ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
         var scenario = solved.Scenario;
@@ -62,16 +67,16 @@ public static class BriefBuilder
         var opt = results.Optimum;
         var charts = new List<RenderedChart>
         {
-            new RenderedChart("output-curve", ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(results)), ChartRenderer.Width, ChartRenderer.Height,
+            RenderedChart.From("output-curve", SchoolingCharts.OutputCurve(results),
                 "Output per person against years of schooling, balanced growth path",
                 $"Line chart: output per person rises with schooling from zero, peaks at {opt.SchoolingYears:0.0} years and falls to zero at {opt.FeasibleMaxSchooling:0} years. The options sit on the rising part of the curve; the band within 1% of the maximum runs from {opt.Within1Pct[0]:0.0} to {opt.Within1Pct[1]:0.0} years.",
-                source),
-            new RenderedChart("opposing-forces", ChartRenderer.ToPdf(SchoolingCharts.OpposingForces(results)), ChartRenderer.Width, ChartRenderer.Height,
+                source, withImages),
+            RenderedChart.From("opposing-forces", SchoolingCharts.OpposingForces(results),
                 "The two opposing forces: worker share and human capital per worker against schooling",
                 $"Line chart with two axes: the worker share falls steadily with schooling while human capital per worker rises; at the baseline of {baseline.SchoolingYears:0.#} years the worker share is {baseline.WorkerShare:0.000} and human capital per worker {baseline.HumanCapitalPerWorker:0.00}.",
-                source),
+                source, withImages),
         };
-        charts.AddRange(AnalysisChartSet.Render(solved, source));
+        charts.AddRange(AnalysisChartSet.Render(solved, source, withImages));
         return charts;
     }
 

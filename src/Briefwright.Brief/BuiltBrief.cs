@@ -1,4 +1,6 @@
+using Briefwright.Brief.Annex;
+
 namespace Briefwright.Brief;
 
-/// <summary>A finished brief: the PDF, its results data, the filled template and the file stem they share.</summary>
-public sealed record BuiltBrief(string FileStem, byte[] Pdf, string ResultsJson, string Markdown, int PageCount);
+/// <summary>A finished brief: the PDF, its results data, the filled template, the annex files and what changed since the previous edition.</summary>
+public sealed record BuiltBrief(string FileStem, byte[] Pdf, string ResultsJson, string Markdown, int PageCount, IReadOnlyList<AnnexFile> Annex, EditionChanges? Changes);

@@ -6,7 +6,7 @@ namespace Briefwright.Cli;
 /// <summary>The command tree. Every command writes to the given writers and returns an exit code, so tests run it in process.</summary>
 public static class CliApp
 {
-    public static int Run(string[] args, TextWriter output, TextWriter error)
+    public static int Run(string[] args, TextWriter output, TextWriter error, bool interactive = false)
     {
         var root = new RootCommand(
             "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief (PDF) on " +
@@ -17,7 +17,9 @@ public static class CliApp
         {
             CheckCommand.Create(output, error),
             SolveCommand.Create(output, error),
-            BuildCommand.Create(output, error),
+            BuildCommand.Create(output, error, interactive),
+            DiffCommand.Create(output, error),
+            SchemaCommand.Create(output),
         };
         var config = new InvocationConfiguration { Output = output, Error = error };
         return root.Parse(args).Invoke(config);

@@ -2,5 +2,5 @@ namespace Briefwright.Cli;
 
 public static class Program
 {
-    public static int Main(string[] args) => CliApp.Run(args, Console.Out, Console.Error);
+    public static int Main(string[] args) => CliApp.Run(args, Console.Out, Console.Error, interactive: !Console.IsOutputRedirected);
 }

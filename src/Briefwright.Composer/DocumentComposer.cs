@@ -54,7 +54,12 @@ public sealed class DocumentComposer
         string pageText = $"Page {page + 1} of {pageCount}";
         string headerRight = $"{date} · {info.Edition}";
         surface.BeginArtifact();
-        surface.Text(info.ShortTitle, theme.MarginLeft, headerY, font, theme.Muted);
+        if (page == 0 && info.Logo is { } logo)
+        {
+            double h = 24, w = h * logo.Width / logo.Height;
+            surface.Image(logo.Png, new Box(theme.MarginLeft, headerY - 19, w, h));
+        }
+        else surface.Text(info.ShortTitle, theme.MarginLeft, headerY, font, theme.Muted);
         surface.Text(headerRight, right - measurer.Width(headerRight, font), headerY, font, theme.Muted);
         surface.Line(theme.MarginLeft, headerY + 5, right, headerY + 5, theme.Rule, 0.5);
         surface.Line(theme.MarginLeft, footerY - 10, right, footerY - 10, theme.Rule, 0.5);
@@ -66,7 +71,7 @@ public sealed class DocumentComposer
     /// <summary>The whole brief as PDF bytes; the same document gives the same bytes.</summary>
     public static ComposedPdf WritePdf(BriefDocument brief)
     {
-        var theme = Theme.For(brief.Paper);
+        var theme = brief.Theme ?? Theme.For(brief.Paper);
         var measurer = SharedMeasurer.Value;
         var pages = Layout(brief, theme, measurer);
 

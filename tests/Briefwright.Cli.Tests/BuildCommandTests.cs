@@ -27,14 +27,15 @@ public class BuildCommandTests
         var error = new StringWriter();
         int code = CliApp.Run(new[] { "build", CliAppTests.Demo(), "--out", dir }, output, error);
         Assert.True(code == 0, error.ToString());
-        var files = Directory.GetFiles(dir).Select(Path.GetFileName).Order().ToList();
-        Assert.Equal(new[]
+        var files = Directory.GetFiles(dir).Select(f => Path.GetFileName(f)).ToHashSet();
+        foreach (var id in new[] { "auroria-eastmark", "auroria-national", "auroria-northport", "auroria-silverdale" })
         {
-            "auroria-eastmark-2026-11-30.pdf", "auroria-eastmark-2026-11-30.results.json",
-            "auroria-national-2026-11-30.pdf", "auroria-national-2026-11-30.results.json",
-            "auroria-northport-2026-11-30.pdf", "auroria-northport-2026-11-30.results.json",
-            "auroria-silverdale-2026-11-30.pdf", "auroria-silverdale-2026-11-30.results.json",
-        }, files);
+            string stem = id + "-2026-11-30";
+            foreach (var suffix in new[] { ".pdf", ".results.json", ".assumptions.csv", ".options.csv", ".reform-path.csv", ".present-values.csv",
+                         ".sensitivity.csv", ".montecarlo.csv", ".brief.md", ".fig-output-curve.svg", ".fig-output-curve.png", ".fig-reform-path.svg", ".fig-distribution.png" })
+                Assert.Contains(stem + suffix, files);
+            Assert.Contains(id + ".manifest.json", files);
+        }
         Assert.All(Directory.GetFiles(dir, "*.pdf"), f => Assert.StartsWith("%PDF-", File.ReadAllText(f)[..5]));
     }
 
@@ -73,7 +74,7 @@ public class BuildCommandTests
         int code = CliApp.Run(new[] { "build", CliAppTests.Demo("auroria-national.yaml"), "-t", template, "-o", outDir }, new StringWriter(), error);
         Assert.Equal(2, code);
         Assert.Contains($"{template}:3:", error.ToString());
-        Assert.False(Directory.Exists(outDir) && Directory.EnumerateFiles(outDir).Any());
+        Assert.False(Directory.Exists(outDir) && Directory.EnumerateFiles(outDir).Any(f => !f.EndsWith("build-log.jsonl")));
     }
 
     [Fact]
@@ -86,6 +87,7 @@ public class BuildCommandTests
         int code = CliApp.Run(new[] { "build", bad, CliAppTests.Demo("auroria-national.yaml"), "-o", outDir, "-q" }, new StringWriter(), new StringWriter());
         Assert.Equal(2, code);
         Assert.True(File.Exists(Path.Combine(outDir, "auroria-national-2026-11-30.pdf")));
-        Assert.Equal(2, Directory.GetFiles(outDir).Length);
+        Assert.DoesNotContain(Directory.GetFiles(outDir), f => Path.GetFileName(f).StartsWith("bad"));
+        Assert.Contains("\"status\":\"invalid\"", File.ReadAllText(Path.Combine(outDir, "build-log.jsonl")));
     }
 }

@@ -13,18 +13,24 @@ public sealed record ResultsDocument(
     string Date,
     int Edition,
     string ToolVersion,
+    string InputHash,
+    IReadOnlyList<Assumption> Assumptions,
     SteadyState SteadyState,
     IReadOnlyList<OptionResult> Options,
     OptimumResult Optimum,
     IReadOnlyList<CurvePoint> SchoolingCurve,
     AnalysisResults Analysis)
 {
+    public static ResultsDocument From(SolvedScenario solved) => From(solved.Scenario, solved.BalancedGrowth, solved.Analysis);
+
     public static ResultsDocument From(ScenarioDocument scenario, BalancedGrowthResults results, AnalysisResults analysis) => new(
         scenario.Brief.Id,
         scenario.Brief.Title,
         scenario.Brief.Date.ToString("yyyy-MM-dd"),
         scenario.Brief.Edition,
         ToolInfo.Version,
+        scenario.InputHash,
+        scenario.Assumptions,
         results.SteadyState,
         results.Options,
         results.Optimum,

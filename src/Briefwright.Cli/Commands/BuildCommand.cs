@@ -1,117 +1,157 @@
 using System.CommandLine;
-using System.Diagnostics;
 using System.Globalization;
 using System.Text;
 using Briefwright.Brief;
-using Briefwright.Composer;
+using Briefwright.Cli.Batch;
 using Briefwright.Scenario;
 using Briefwright.Templating;
 
 namespace Briefwright.Cli.Commands;
 
-/// <summary><c>build PATH...</c>: scenario + template → dated PDF brief and its results data.</summary>
+/// <summary><c>build PATH...</c>: scenarios + template → dated PDF briefs with their data annex, in parallel, incrementally.</summary>
 public static class BuildCommand
 {
-    public static Command Create(TextWriter output, TextWriter error)
+    public static Command Create(TextWriter output, TextWriter error, bool interactive)
     {
-        var paths = new Argument<string[]>("paths")
-        {
-            Description = "Scenario files, or folders whose *.yaml files are all built.",
-            Arity = ArgumentArity.OneOrMore,
-        };
-        var template = new Option<string?>("--template", "-t")
-        {
-            Description = "Template file (Scriban producing CommonMark). Default: the standard brief; copy templates/standard-brief.md to start your own.",
-        };
-        var outDir = new Option<string?>("--out", "-o")
-        {
-            Description = "Folder for the briefs. Default: an 'out' folder beside each scenario. Files are named <id>-<date>.pdf and <id>-<date>.results.json.",
-        };
-        var date = new Option<string?>("--date")
-        {
-            Description = "Date of the brief (YYYY-MM-DD), replacing the scenario's brief.date. The clock is never used, so rebuilds are identical.",
-        };
+        var paths = new Argument<string[]>("paths") { Description = "Scenario files, or folders whose *.yaml files are all built.", Arity = ArgumentArity.OneOrMore };
+        var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing CommonMark). Default: the standard brief; copy templates/standard-brief.md to start your own." };
+        var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size, colours, footer text, logo. See docs/themes.md." };
+        var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: an 'out' folder beside each scenario." };
+        var date = new Option<string?>("--date") { Description = "Date of the brief (YYYY-MM-DD), replacing brief.date. The clock is never used, so rebuilds are identical." };
+        var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on has changed." };
+        var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job arrays: shards are disjoint and together cover the list." };
+        var jobs = new Option<int?>("--jobs", "-j") { Description = "Briefs built at once (default: one per core)." };
+        var noImages = new Option<bool>("--no-chart-images") { Description = "Skip the SVG and PNG copies of each chart in the data annex (faster)." };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print nothing but errors." };
-        var command = new Command("build", "Build PDF briefs from scenarios: the model, charts and template text composed into a dated, tagged PDF, with the results as JSON beside it.")
+        var command = new Command("build",
+            "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results JSON, CSV tables and " +
+            "chart images beside it. Unchanged briefs are skipped; a changed brief becomes a new edition and the previous one is archived.")
         {
-            paths, template, outDir, date, quiet,
+            paths, template, theme, outDir, date, force, shard, jobs, noImages, quiet,
         };
         command.SetAction(parse =>
         {
-            BriefTemplate tpl;
-            try
-            {
-                tpl = LoadTemplate(parse.GetValue(template));
-            }
-            catch (TemplateException ex)
-            {
-                foreach (var e in ex.Errors) error.WriteLine(e);
-                return ExitCodes.InvalidInput;
-            }
-            catch (IOException ex)
-            {
-                error.WriteLine($"{parse.GetValue(template)}: cannot read the template ({ex.Message}).");
-                return ExitCodes.InvalidInput;
-            }
-            DateOnly? dateOverride = null;
-            if (parse.GetValue(date) is { } d)
-            {
-                if (!DateOnly.TryParseExact(d, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var parsed))
-                {
-                    error.WriteLine($"--date: must be a date written YYYY-MM-DD. Got '{d}'.");
-                    return ExitCodes.InvalidInput;
-                }
-                dateOverride = parsed;
-            }
-            bool beQuiet = parse.GetValue(quiet);
-            int code = ExitCodes.Ok;
-            foreach (var file in ScenarioInputs.Expand(parse.GetValue(paths)!, error))
-            {
-                int one = BuildOne(file, tpl, parse.GetValue(outDir), dateOverride, beQuiet ? TextWriter.Null : output, error);
-                code = Math.Max(code, one == ExitCodes.Failed ? ExitCodes.Failed : one);
-            }
-            return code;
+            var setup = Setup(parse.GetValue(template), parse.GetValue(theme), parse.GetValue(date), parse.GetValue(shard), error);
+            if (setup is null) return ExitCodes.InvalidInput;
+            var (tpl, options, themeHash, day, shardSpec) = setup.Value;
+            var files = ScenarioInputs.Expand(parse.GetValue(paths)!, error);
+            if (shardSpec is { } s) files = Shards.Select(files, s.Index, s.Count);
+            var settings = new BatchSettings(tpl, options, themeHash, parse.GetValue(outDir), day, parse.GetValue(force), !parse.GetValue(noImages));
+            var progress = new Progress(parse.GetValue(quiet) ? TextWriter.Null : output, interactive && !parse.GetValue(quiet), files.Count);
+            var outcomes = Run(files, settings, parse.GetValue(jobs) ?? Environment.ProcessorCount, progress, error);
+            if (!parse.GetValue(quiet)) output.Write(Summary(outcomes));
+            if (outcomes.Any(o => o.Status == OutcomeStatus.Failed)) return ExitCodes.Failed;
+            return outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
         });
         return command;
     }
 
-    private static BriefTemplate LoadTemplate(string? path) =>
-        path is null ? StandardTemplate.Template : BriefTemplate.Parse(File.ReadAllText(path), path);
-
-    private static int BuildOne(string file, BriefTemplate template, string? outDir, DateOnly? date, TextWriter output, TextWriter error)
+    public static IReadOnlyList<BriefOutcome> Run(IReadOnlyList<string> files, BatchSettings settings, int jobs, Progress progress, TextWriter error)
     {
-        var watch = Stopwatch.StartNew();
-        var loaded = ScenarioInputs.Load(file, error);
-        if (!loaded.Ok) return ExitCodes.InvalidInput;
-        var scenario = loaded.Document!;
-        if (date is { } d) scenario = scenario with { Brief = scenario.Brief with { Date = d } };
+        var dirs = files.Select(f => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(f) ?? ".", "out")).Distinct().ToList();
+        foreach (var dir in dirs) AtomicFile.CleanStale(dir);
+        var outcomes = new BriefOutcome[files.Count];
+        Parallel.For(0, files.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, jobs) }, i =>
+        {
+            outcomes[i] = BatchBuilder.BuildOne(files[i], settings, error);
+            Log(outcomes[i], settings);
+            progress.Done(outcomes[i]);
+        });
+        progress.Finish();
+        foreach (var dir in dirs) AtomicFile.CleanStale(dir);
+        return outcomes;
+    }
+
+    private static readonly object LogGate = new();
+
+    /// <summary>One JSON line per brief, appended to build-log.jsonl in its output folder.</summary>
+    private static void Log(BriefOutcome o, BatchSettings settings)
+    {
+        string dir = settings.OutDir ?? Path.Combine(Path.GetDirectoryName(o.Scenario) ?? ".", "out");
         try
         {
-            var brief = BriefBuilder.Build(scenario, template);
-            string dir = outDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
-            Directory.CreateDirectory(dir);
-            string pdfPath = Path.Combine(dir, brief.FileStem + ".pdf");
-            AtomicFile.Write(Path.Combine(dir, brief.FileStem + ".results.json"), Encoding.UTF8.GetBytes(brief.ResultsJson));
-            AtomicFile.Write(pdfPath, brief.Pdf);
-            output.WriteLine($"{file}: built {pdfPath} ({brief.PageCount} pages, {brief.Pdf.Length / 1024} KB, {watch.ElapsedMilliseconds} ms)");
-            return ExitCodes.Ok;
+            lock (LogGate)
+            {
+                Directory.CreateDirectory(dir);
+                File.AppendAllText(Path.Combine(dir, "build-log.jsonl"), o.LogLine() + "\n");
+            }
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            // The outcome is still reported on the console and in the exit code.
+        }
+    }
+
+    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?)? Setup(string? templatePath, string? themePath, string? dateText, string? shardText, TextWriter error)
+    {
+        BriefTemplate tpl;
+        try
+        {
+            tpl = templatePath is null ? StandardTemplate.Template : BriefTemplate.Parse(File.ReadAllText(templatePath), templatePath);
         }
         catch (TemplateException ex)
         {
             foreach (var e in ex.Errors) error.WriteLine(e);
-            error.WriteLine($"{file}: template error; nothing written.");
-            return ExitCodes.InvalidInput;
-        }
-        catch (ComposeException ex)
-        {
-            error.WriteLine($"{template.Path}: {ex.Message}");
-            error.WriteLine($"{file}: the filled template cannot be laid out; nothing written.");
-            return ExitCodes.InvalidInput;
+            return null;
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            error.WriteLine($"{file}: cannot write the brief ({ex.Message}); previous files are untouched.");
-            return ExitCodes.Failed;
+            error.WriteLine($"{templatePath}: cannot read the template ({ex.Message}).");
+            return null;
         }
+        var options = BuildOptions.Default;
+        string themeHash = "standard";
+        if (themePath is not null)
+        {
+            var (spec, problems, sources) = ThemeLoader.Load(themePath, new FileSourceReader());
+            foreach (var p in problems) error.WriteLine(sources.Render(p));
+            if (spec is null) return null;
+            options = options with { Theme = spec };
+            themeHash = BriefBuilder.Sha256(File.ReadAllText(themePath));
+            if (spec.LogoPath is { } logo)
+            {
+                var png = Logo.Read(logo, error);
+                if (png is null) return null;
+                options = options with { Logo = png };
+                themeHash = BriefBuilder.Sha256(themeHash + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(png.Value.Png)));
+            }
+        }
+        DateOnly? day = null;
+        if (dateText is not null)
+        {
+            if (!DateOnly.TryParseExact(dateText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var parsed))
+            {
+                error.WriteLine($"--date: must be a date written YYYY-MM-DD. Got '{dateText}'.");
+                return null;
+            }
+            day = parsed;
+        }
+        (int, int)? shard = null;
+        if (shardText is not null)
+        {
+            if (!Shards.TryParse(shardText, out int k, out int n))
+            {
+                error.WriteLine($"--shard: must be K/N with 1 ≤ K ≤ N, such as 3/16. Got '{shardText}'.");
+                return null;
+            }
+            shard = (k, n);
+        }
+        return (tpl, options, themeHash, day, shard);
+    }
+
+    public static string Summary(IReadOnlyList<BriefOutcome> outcomes)
+    {
+        var sb = new StringBuilder();
+        sb.AppendLine();
+        var rows = outcomes.Select(o => new[]
+        {
+            o.Id ?? Path.GetFileName(o.Scenario), o.Status.ToString().ToLowerInvariant(), o.Edition?.ToString(CultureInfo.InvariantCulture) ?? "",
+            o.Pages > 0 ? o.Pages.ToString(CultureInfo.InvariantCulture) : "", o.Bytes > 0 ? $"{o.Bytes / 1024} KB" : "", $"{o.Milliseconds} ms",
+        }).Prepend(new[] { "brief", "status", "edition", "pages", "size", "time" }).ToList();
+        int[] w = Enumerable.Range(0, 6).Select(c => rows.Max(r => r[c].Length)).ToArray();
+        foreach (var r in rows) sb.AppendLine(string.Join("  ", r.Select((cell, c) => c == 0 ? cell.PadRight(w[c]) : cell.PadLeft(w[c]))).TrimEnd());
+        var counts = outcomes.GroupBy(o => o.Status).OrderBy(g => g.Key).Select(g => $"{g.Count()} {g.Key.ToString().ToLowerInvariant()}");
+        sb.AppendLine($"{outcomes.Count} brief(s): {string.Join(", ", counts)}.");
+        return sb.ToString();
     }
 }

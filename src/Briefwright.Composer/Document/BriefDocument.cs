@@ -16,6 +16,14 @@ public sealed record DocumentInfo(
     string Language,
     DateOnly Date,
     string Edition,
-    string FooterNote);
+    string FooterNote)
+{
+    /// <summary>A PNG logo drawn at the top right of the first page, with its pixel size.</summary>
+    public (byte[] Png, int Width, int Height)? Logo { get; init; }
+}
 
-public sealed record BriefDocument(DocumentInfo Info, IReadOnlyList<Block> Blocks, PaperSize Paper = PaperSize.A4);
+public sealed record BriefDocument(DocumentInfo Info, IReadOnlyList<Block> Blocks, PaperSize Paper = PaperSize.A4)
+{
+    /// <summary>The page theme; null means the standard one for the paper size.</summary>
+    public Layout.Theme? Theme { get; init; }
+}

@@ -54,6 +54,9 @@ public interface IDrawingSurface
 
     void Link(Box box, string url);
 
+    /// <summary>Places a PNG image (a logo) scaled into <paramref name="box"/>.</summary>
+    void Image(byte[] png, Box box);
+
     /// <summary>Records a heading for the document outline.</summary>
     void Outline(int level, string title, double y);
 }

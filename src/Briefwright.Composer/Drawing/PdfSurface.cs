@@ -105,6 +105,12 @@ public sealed class PdfSurface : IDrawingSurface
         page.AddWebLink(rect, url);
     }
 
+    public void Image(byte[] png, Box box)
+    {
+        using var image = XImage.FromStream(new MemoryStream(png));
+        G.DrawImage(image, box.X, box.Y, box.Width, box.Height);
+    }
+
     public void Outline(int level, string title, double y) => outline.Add((level, title, page!, y));
 
     /// <summary>Writes the collected headings as the document outline (bookmarks), nested by level.</summary>

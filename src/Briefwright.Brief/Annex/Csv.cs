@@ -1,0 +1,28 @@
+using System.Globalization;
+using System.Text;
+
+namespace Briefwright.Brief.Annex;
+
+/// <summary>RFC 4180 CSV: CRLF line ends, fields quoted when they hold a comma, quote or line break, quotes doubled.</summary>
+public static class Csv
+{
+    public static string Field(object? value) => value switch
+    {
+        null => "",
+        double d => double.IsFinite(d) ? d.ToString("R", CultureInfo.InvariantCulture) : "",
+        bool b => b ? "true" : "false",
+        IFormattable f => f.ToString(null, CultureInfo.InvariantCulture),
+        _ => Quote(value.ToString() ?? ""),
+    };
+
+    private static string Quote(string s) =>
+        s.IndexOfAny(new[] { ',', '"', '\r', '\n' }) >= 0 ? "\"" + s.Replace("\"", "\"\"") + "\"" : s;
+
+    public static byte[] Write(IReadOnlyList<string> header, IEnumerable<IReadOnlyList<object?>> rows)
+    {
+        var sb = new StringBuilder();
+        sb.Append(string.Join(",", header.Select(Quote))).Append("\r\n");
+        foreach (var row in rows) sb.Append(string.Join(",", row.Select(Field))).Append("\r\n");
+        return Encoding.UTF8.GetBytes(sb.ToString());
+    }
+}

@@ -1,0 +1,39 @@
+using Briefwright.Brief.Annex;
+using Briefwright.Composer.Document;
+using Briefwright.Composer.Layout;
+using Briefwright.Scenario;
+
+namespace Briefwright.Brief;
+
+/// <summary>How to build a brief beyond scenario and template: look, previous edition, annex images.</summary>
+public sealed record BuildOptions
+{
+    public ThemeSpec Theme { get; init; } = ThemeSpec.Default;
+
+    /// <summary>The theme's logo, read by the caller (the command line), with its pixel size.</summary>
+    public (byte[] Png, int Width, int Height)? Logo { get; init; }
+
+    /// <summary>The previous edition's results data, to write the "changes since the previous edition" section.</summary>
+    public EditionSnapshot? PreviousEdition { get; init; }
+
+    /// <summary>Also render each chart as SVG and PNG for the data annex.</summary>
+    public bool ChartImages { get; init; }
+
+    public static BuildOptions Default { get; } = new();
+
+    /// <summary>The page theme: paper size and colours from the theme file over the standard look.</summary>
+    public Theme PageTheme()
+    {
+        var t = Composer.Layout.Theme.For(Theme.Paper == "letter" ? PaperSize.Letter : PaperSize.A4);
+        Rgb? C(string key) => Theme.Colours.TryGetValue(key, out var hex) ? Rgb.Hex(hex) : null;
+        return t with
+        {
+            Accent = C("accent") ?? t.Accent,
+            Text = C("text") ?? t.Text,
+            Muted = C("muted") ?? t.Muted,
+            Rule = C("rule") ?? t.Rule,
+            BoxFill = C("box_fill") ?? t.BoxFill,
+            HeaderFill = C("header_fill") ?? t.HeaderFill,
+        };
+    }
+}

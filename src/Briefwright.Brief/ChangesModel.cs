@@ -1,0 +1,41 @@
+using Briefwright.Brief.Annex;
+using Briefwright.Templating;
+using Scriban.Runtime;
+
+namespace Briefwright.Brief;
+
+/// <summary>Template data for the "changes since the previous edition" section: <c>changes</c> and <c>changes_table</c>.</summary>
+public static class ChangesModel
+{
+    public static void Add(ScriptObject model, EditionChanges? changes)
+    {
+        if (changes is null)
+        {
+            model["changes"] = null;
+            model.Import("changes_table", new Func<string>(() => ""));
+            return;
+        }
+        model["changes"] = new ScriptObject
+        {
+            ["previous_edition"] = changes.PreviousEdition,
+            ["previous_date"] = changes.PreviousDate,
+            ["assumptions"] = changes.Assumptions.Count,
+            ["results"] = changes.Results.Count,
+        };
+        model.Import("changes_table", new Func<string>(() => Table(changes)));
+    }
+
+    public static string Table(EditionChanges changes)
+    {
+        var text = "";
+        if (changes.Assumptions.Count > 0)
+            text += Md.Table($"Assumptions changed since edition {changes.PreviousEdition} ({changes.PreviousDate})", null,
+                new[] { "Parameter", "Previous", "Now", "Source" },
+                changes.Assumptions.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "not given" }), new HashSet<int> { 1, 2 }) + "\n";
+        if (changes.Results.Count > 0)
+            text += Md.Table($"Headline results changed since edition {changes.PreviousEdition}", null,
+                new[] { "Result", "Previous", "Now", "Difference" },
+                changes.Results.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "" }), new HashSet<int> { 1, 2, 3 });
+        return text.Length > 0 ? text : "No assumption or headline result changed; only the presentation did.\n";
+    }
+}

@@ -1,0 +1,120 @@
+using System.Diagnostics;
+using System.Security.Cryptography;
+using System.Text;
+using Briefwright.Brief;
+using Briefwright.Brief.Annex;
+using Briefwright.Cli.Commands;
+using Briefwright.Composer;
+using Briefwright.Composer.Drawing;
+using Briefwright.Scenario;
+using Briefwright.Templating;
+
+namespace Briefwright.Cli.Batch;
+
+/// <summary>Settings of one <c>build</c> run.</summary>
+public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options, string ThemeHash, string? OutDir, DateOnly? Date, bool Force, bool AnnexImages);
+
+/// <summary>
+/// Builds one brief with editions and nothing lost: skips it when its manifest says nothing changed; otherwise
+/// raises the edition, keeps the previous edition in <c>archive/&lt;id&gt;/edition-N/</c>, adds the changes section, and
+/// writes every file atomically, the manifest last.
+/// </summary>
+public static class BatchBuilder
+{
+    private static readonly Lazy<string> FontsHash = new(() => Convert.ToHexStringLower(SHA256.HashData(
+        new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic }
+            .SelectMany(BundledFonts.Bytes).ToArray())));
+
+    public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error)
+    {
+        var watch = Stopwatch.StartNew();
+        var errors = new StringWriter();
+        var loaded = ScenarioInputs.Load(file, errors);
+        if (!loaded.Ok)
+        {
+            lock (error) error.Write(errors.ToString());
+            return new BriefOutcome(file, null, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, $"{loaded.Problems.Count} problem(s) in the scenario");
+        }
+        var scenario = loaded.Document!;
+        if (settings.Date is { } d) scenario = scenario with { Brief = scenario.Brief with { Date = d } };
+        string id = scenario.Brief.Id;
+        string dir = settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
+        try
+        {
+            Directory.CreateDirectory(dir);
+            var inputs = new SortedDictionary<string, string>(StringComparer.Ordinal)
+            {
+                ["scenario"] = scenario.InputHash,
+                ["template"] = BriefBuilder.Sha256(settings.Template.Text),
+                ["theme"] = settings.ThemeHash,
+                ["fonts"] = FontsHash.Value,
+                ["tool"] = ToolInfo.Version,
+                ["date"] = scenario.Brief.Date.ToString("yyyy-MM-dd"),
+                ["annex_images"] = settings.AnnexImages ? "yes" : "no",
+            };
+            string hash = BriefBuilder.Sha256(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")));
+            var previous = Manifest.Read(dir, id);
+            if (!settings.Force && previous is not null && previous.Hash == hash && previous.FilesPresent(dir))
+                return new BriefOutcome(file, id, OutcomeStatus.Skipped, previous.Edition, Path.Combine(dir, previous.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null);
+
+            bool newEdition = previous is not null && previous.Hash != hash && previous.FilesPresent(dir);
+            int edition = newEdition ? Math.Max(scenario.Brief.Edition, previous!.Edition + 1) : Math.Max(scenario.Brief.Edition, previous?.Edition ?? 0);
+            scenario = scenario with { Brief = scenario.Brief with { Edition = edition } };
+            EditionSnapshot? before = null;
+            string previousJson = previous is null ? "" : Path.Combine(dir, previous.Stem + ".results.json");
+            if (newEdition && File.Exists(previousJson)) before = EditionSnapshot.FromJson(File.ReadAllText(previousJson));
+
+            var brief = BriefBuilder.Build(scenario, settings.Template, settings.Options with { PreviousEdition = before, ChartImages = settings.AnnexImages });
+
+            // Nothing on disk has changed so far. Keep the previous edition first, then replace.
+            if (newEdition) Archive(dir, previous!);
+            var files = new List<string>();
+            void Put(string name, byte[] bytes)
+            {
+                AtomicFile.Write(Path.Combine(dir, name), bytes);
+                files.Add(name);
+            }
+            foreach (var a in brief.Annex) Put($"{brief.FileStem}.{a.Suffix}", a.Bytes);
+            Put(brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson));
+            Put(brief.FileStem + ".pdf", brief.Pdf);
+            AtomicFile.Write(Manifest.PathFor(dir, id), new Manifest(id, brief.FileStem, edition, hash, inputs, files).ToBytes());
+            if (previous is not null)
+                foreach (var old in previous.Files.Except(files))
+                    try { File.Delete(Path.Combine(dir, old)); } catch (IOException) { }
+            string pdf = Path.Combine(dir, brief.FileStem + ".pdf");
+            return new BriefOutcome(file, id, OutcomeStatus.Built, edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null);
+        }
+        catch (TemplateException ex)
+        {
+            lock (error) foreach (var e in ex.Errors) error.WriteLine(e);
+            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "template error");
+        }
+        catch (ComposeException ex)
+        {
+            lock (error) error.WriteLine($"{settings.Template.Path}: {ex.Message}");
+            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            lock (error) error.WriteLine($"{file}: cannot write the brief to {dir} ({ex.Message}); previous files are untouched.");
+            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
+        }
+        catch (Exception ex) when (ex is NonFiniteResultException or InvalidOperationException or ArgumentException)
+        {
+            lock (error) error.WriteLine($"{file}: {ex.Message}");
+            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
+        }
+    }
+
+    /// <summary>Copies the previous edition's files to archive/&lt;id&gt;/edition-N/ (atomically, before anything is replaced).</summary>
+    private static void Archive(string dir, Manifest previous)
+    {
+        string target = Path.Combine(dir, "archive", previous.Id, $"edition-{previous.Edition}");
+        Directory.CreateDirectory(target);
+        foreach (var f in previous.Files.Append(Path.GetFileName(Manifest.PathFor(dir, previous.Id))))
+        {
+            string source = Path.Combine(dir, f);
+            if (File.Exists(source)) AtomicFile.Write(Path.Combine(target, f), File.ReadAllBytes(source));
+        }
+    }
+}

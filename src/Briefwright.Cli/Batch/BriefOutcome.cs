@@ -1,0 +1,25 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+
+namespace Briefwright.Cli.Batch;
+
+public enum OutcomeStatus
+{
+    Built,
+    Skipped,
+    Invalid,
+    Failed,
+}
+
+/// <summary>What happened to one scenario in a batch; also its machine-readable log line.</summary>
+public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Status, int? Edition, string? Pdf, int Pages, long Bytes, long Milliseconds, string? Error)
+{
+    private static readonly JsonSerializerOptions Json = new()
+    {
+        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+        Converters = { new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower) },
+        DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
+    };
+
+    public string LogLine() => JsonSerializer.Serialize(this, Json);
+}

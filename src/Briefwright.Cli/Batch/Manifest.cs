@@ -1,0 +1,32 @@
+using System.Text.Json;
+
+namespace Briefwright.Cli.Batch;
+
+/// <summary>
+/// What a brief in an output folder was built from: the hashes of every input and the files written. Stored as
+/// <c>&lt;id&gt;.manifest.json</c>; an unchanged hash with all files present means the brief is up to date.
+/// </summary>
+public sealed record Manifest(string Id, string Stem, int Edition, string Hash, IReadOnlyDictionary<string, string> Inputs, IReadOnlyList<string> Files)
+{
+    private static readonly JsonSerializerOptions Json = new() { WriteIndented = true, PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower };
+
+    public static string PathFor(string outDir, string id) => Path.Combine(outDir, id + ".manifest.json");
+
+    public static Manifest? Read(string outDir, string id)
+    {
+        string path = PathFor(outDir, id);
+        if (!File.Exists(path)) return null;
+        try
+        {
+            return JsonSerializer.Deserialize<Manifest>(File.ReadAllText(path), Json);
+        }
+        catch (JsonException)
+        {
+            return null; // a damaged manifest only costs a rebuild
+        }
+    }
+
+    public byte[] ToBytes() => System.Text.Encoding.UTF8.GetBytes(JsonSerializer.Serialize(this, Json) + "\n");
+
+    public bool FilesPresent(string outDir) => Files.All(f => File.Exists(Path.Combine(outDir, f)));
+}

@@ -1,0 +1,66 @@
+using System.CommandLine;
+using System.Text;
+using Briefwright.Brief;
+using Briefwright.Brief.Annex;
+
+namespace Briefwright.Cli.Commands;
+
+/// <summary><c>diff OLD NEW</c>: changed assumptions and headline results between two scenarios or two results files.</summary>
+public static class DiffCommand
+{
+    public static Command Create(TextWriter output, TextWriter error)
+    {
+        var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file (.results.json)." };
+        var newPath = new Argument<string>("new") { Description = "Later scenario (.yaml) or results file (.results.json)." };
+        var command = new Command("diff", "Compare two scenarios or two results files: changed assumptions (old → new, with source) and changed headline results. Exit code 0 when nothing changed, 1 when something did, 2 on invalid input.")
+        {
+            oldPath, newPath,
+        };
+        command.SetAction(parse =>
+        {
+            var before = Snapshot(parse.GetValue(oldPath)!, error);
+            var after = Snapshot(parse.GetValue(newPath)!, error);
+            if (before is null || after is null) return ExitCodes.InvalidInput;
+            var changes = EditionSnapshot.Compare(before, after);
+            output.Write(Render(changes));
+            return changes.Any ? 1 : ExitCodes.Ok;
+        });
+        return command;
+    }
+
+    private static EditionSnapshot? Snapshot(string path, TextWriter error)
+    {
+        if (path.EndsWith(".json", StringComparison.OrdinalIgnoreCase))
+        {
+            try
+            {
+                return EditionSnapshot.FromJson(File.ReadAllText(path));
+            }
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException)
+            {
+                error.WriteLine($"{path}: not a briefwright results file ({ex.Message}).");
+                return null;
+            }
+        }
+        var loaded = ScenarioInputs.Load(path, error);
+        if (!loaded.Ok) return null;
+        return EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(ScenarioSolver.Solve(loaded.Document!))));
+    }
+
+    public static string Render(EditionChanges c)
+    {
+        var sb = new StringBuilder();
+        if (!c.Any) return "No assumption or headline result differs.\n";
+        if (c.Assumptions.Count > 0)
+        {
+            sb.AppendLine("Assumptions:");
+            foreach (var a in c.Assumptions) sb.AppendLine($"  {a.Label} ({a.Key}): {a.Old} → {a.New}{(a.Detail is null ? "" : $"  [source: {a.Detail}]")}");
+        }
+        if (c.Results.Count > 0)
+        {
+            sb.AppendLine("Headline results:");
+            foreach (var r in c.Results) sb.AppendLine($"  {r.Label}: {r.Old} → {r.New} ({r.Detail})");
+        }
+        return sb.ToString();
+    }
+}

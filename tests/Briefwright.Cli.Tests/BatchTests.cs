@@ -1,0 +1,130 @@
+using System.Text;
+using System.Text.Json;
+using Briefwright.Cli.Batch;
+
+namespace Briefwright.Cli.Tests;
+
+public class BatchTests
+{
+    private static Dictionary<string, byte[]> Files(string dir) =>
+        Directory.GetFiles(dir).Where(f => !f.EndsWith("build-log.jsonl")).ToDictionary(f => Path.GetFileName(f), File.ReadAllBytes);
+
+    [Fact]
+    public void Two_builds_of_the_same_inputs_give_identical_pdf_json_and_csv_bytes()
+    {
+        var w = new Workspace("auroria-silverdale");
+        Assert.Equal(0, w.Build("-o", Path.Combine(w.Dir, "a")).Code);
+        Assert.Equal(0, w.Build("-o", Path.Combine(w.Dir, "b")).Code);
+        var a = Files(Path.Combine(w.Dir, "a"));
+        var b = Files(Path.Combine(w.Dir, "b"));
+        Assert.Equal(a.Keys.Order(), b.Keys.Order());
+        Assert.Contains(a.Keys, k => k.EndsWith(".csv"));
+        foreach (var (name, bytes) in a) Assert.True(bytes.AsSpan().SequenceEqual(b[name]), $"{name} differs");
+    }
+
+    [Fact]
+    public void A_changed_assumption_rebuilds_only_its_brief_archives_the_previous_edition_and_lists_exactly_that_change()
+    {
+        var w = new Workspace("auroria-silverdale", "auroria-eastmark");
+        Assert.Equal(0, w.Build().Code);
+        var before = Files(w.Out);
+        w.Edit("auroria-silverdale.yaml", "value: -0.4%", "value: -0.6%");
+
+        var output = new StringWriter();
+        Assert.Equal(0, CliApp.Run(new[] { "build", w.Dir, "--no-chart-images" }, output, new StringWriter()));
+        Assert.Contains("3 brief(s): 1 built, 2 skipped.", output.ToString());
+
+        string archived = Path.Combine(w.Out, "archive", "auroria-silverdale", "edition-1", "auroria-silverdale-2026-11-30.pdf");
+        Assert.Equal(before["auroria-silverdale-2026-11-30.pdf"], File.ReadAllBytes(archived));
+        Assert.Equal(before["auroria-eastmark-2026-11-30.pdf"], File.ReadAllBytes(Path.Combine(w.Out, "auroria-eastmark-2026-11-30.pdf")));
+        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(w.Out, "auroria-silverdale-2026-11-30.results.json")));
+        Assert.Equal(2, json.RootElement.GetProperty("edition").GetInt32());
+
+        string md = File.ReadAllText(Path.Combine(w.Out, "auroria-silverdale-2026-11-30.brief.md"));
+        var changed = md.Split('\n').SkipWhile(l => !l.StartsWith("[[table: Assumptions changed")).Skip(4).TakeWhile(l => l.StartsWith('|')).ToList();
+        Assert.Equal("| Population growth rate | −0.40% | −0.60% | Silverdale provincial projection 2025 (invented) |", Assert.Single(changed));
+    }
+
+    [Fact]
+    public void A_change_to_the_national_scenario_rebuilds_every_region_that_extends_it()
+    {
+        var w = new Workspace("auroria-silverdale", "auroria-eastmark");
+        Assert.Equal(0, w.Build().Code);
+        w.Edit("auroria-national.yaml", "value: 3.5%", "value: 4%");
+        var output = new StringWriter();
+        CliApp.Run(new[] { "build", w.Dir, "--no-chart-images" }, output, new StringWriter());
+        Assert.Contains("3 brief(s): 3 built.", output.ToString());
+    }
+
+    [Fact]
+    public void Nothing_changed_means_nothing_rebuilt_and_force_rebuilds()
+    {
+        var w = new Workspace("auroria-silverdale");
+        Assert.Equal(0, w.Build().Code);
+        var output = new StringWriter();
+        CliApp.Run(new[] { "build", w.Dir, "--no-chart-images" }, output, new StringWriter());
+        Assert.Contains("2 brief(s): 2 skipped.", output.ToString());
+        output = new StringWriter();
+        CliApp.Run(new[] { "build", w.Dir, "--no-chart-images", "--force" }, output, new StringWriter());
+        Assert.Contains("2 brief(s): 2 built.", output.ToString());
+        Assert.False(Directory.Exists(Path.Combine(w.Out, "archive")), "a forced rebuild of unchanged inputs is the same edition");
+    }
+
+    [Theory]
+    [InlineData(700)]
+    [InlineData(1500)]
+    [InlineData(2600)]
+    public void A_build_killed_mid_way_leaves_every_previous_edition_intact_and_no_partial_files(int killAfterMs)
+    {
+        var w = new Workspace();
+        Assert.Equal(0, w.Build().Code);
+        var before = Files(w.Out);
+        w.Edit("auroria-national.yaml", "value: 22%", "value: 23%");
+
+        using var p = Workspace.Start("build", w.Dir, "-q");
+        Thread.Sleep(killAfterMs);
+        if (!p.HasExited) p.Kill(entireProcessTree: true);
+        p.WaitForExit();
+
+        foreach (var (name, bytes) in before.Where(kv => kv.Key.EndsWith(".pdf")))
+        {
+            string id = name[..^"-2026-11-30.pdf".Length];
+            string current = Path.Combine(w.Out, name), archived = Path.Combine(w.Out, "archive", id, "edition-1", name);
+            bool intact = (File.Exists(current) && File.ReadAllBytes(current).AsSpan().SequenceEqual(bytes))
+                       || (File.Exists(archived) && File.ReadAllBytes(archived).AsSpan().SequenceEqual(bytes));
+            Assert.True(intact, $"edition 1 of {id} was lost");
+        }
+        foreach (var pdf in Directory.GetFiles(w.Out, "*.pdf", SearchOption.AllDirectories))
+        {
+            string text = Encoding.Latin1.GetString(File.ReadAllBytes(pdf));
+            Assert.StartsWith("%PDF-", text);
+            Assert.Contains("%%EOF", text[^1024..]);
+        }
+        Assert.Empty(Directory.GetFiles(w.Out, "*.tmp", SearchOption.TopDirectoryOnly));
+
+        // The next build finishes the job and clears the interrupted run's temporary files.
+        Assert.Equal(0, w.Build().Code);
+        Assert.False(Directory.Exists(Path.Combine(w.Out, AtomicFile.TempFolder)));
+    }
+
+    [Fact]
+    public void Shards_are_disjoint_and_cover_the_list()
+    {
+        var files = Enumerable.Range(0, 1000).Select(i => $"regions/region-{i:0000}.yaml").ToList();
+        var shards = Enumerable.Range(1, 7).Select(k => Shards.Select(files, k, 7)).ToList();
+        Assert.Equal(files.Count, shards.Sum(s => s.Count));
+        Assert.Equal(files.Order(), shards.SelectMany(s => s).Order());
+        Assert.All(shards, s => Assert.InRange(s.Count, 100, 190)); // roughly even
+        Assert.Equal(Shards.Select(files, 3, 7), Shards.Select(files.AsEnumerable().Reverse().ToList(), 3, 7).AsEnumerable().Reverse());
+    }
+
+    [Fact]
+    public void Every_brief_gets_one_machine_readable_log_line()
+    {
+        var w = new Workspace("auroria-silverdale");
+        w.Build();
+        var lines = File.ReadAllLines(Path.Combine(w.Out, "build-log.jsonl"));
+        Assert.Equal(2, lines.Length);
+        Assert.All(lines, l => Assert.Equal("built", JsonDocument.Parse(l).RootElement.GetProperty("status").GetString()));
+    }
+}
