@@ -4,4 +4,4 @@
 set -euo pipefail
 cd "$(dirname "$0")"
 dotnet build src/Briefwright.Cli -c Release -v quiet -nologo >/dev/null
-dotnet src/Briefwright.Cli/bin/Release/net10.0/briefwright.dll build briefs-demo "$@"
+dotnet src/Briefwright.Cli/bin/Release/net10.0/briefwright.dll build briefs-demo --theme briefs-demo/auroria-institute.theme.yaml "$@"

@@ -86,3 +86,41 @@ public class CliAppTests
         Assert.Contains("solve", output);
     }
 }
+
+public class SchemaAndDiffTests
+{
+    private static (int Code, string Out, string Err) Run(params string[] args)
+    {
+        var output = new StringWriter();
+        var error = new StringWriter();
+        return (CliApp.Run(args, output, error), output.ToString(), error.ToString());
+    }
+
+    [Fact]
+    public void Published_schema_matches_the_schema_command_and_names_every_section()
+    {
+        var (code, output, _) = Run("schema");
+        Assert.Equal(0, code);
+        Assert.Equal(File.ReadAllText(Path.Combine(CliAppTests.RepoRoot(), "docs", "scenario.schema.json")), output);
+        using var doc = System.Text.Json.JsonDocument.Parse(output);
+        var sections = doc.RootElement.GetProperty("properties").EnumerateObject().Select(p => p.Name).Order();
+        Assert.Equal(Briefwright.Scenario.Binding.ScenarioBinder.TopLevelKeys.Order(), sections);
+    }
+
+    [Fact]
+    public void Diff_of_two_scenarios_lists_changed_assumptions_with_sources_and_exits_1()
+    {
+        var (code, output, _) = Run("diff", CliAppTests.Demo("auroria-national.yaml"), CliAppTests.Demo("auroria-eastmark.yaml"));
+        Assert.Equal(1, code);
+        Assert.Contains("Population growth rate (demography.population_growth): 0.90% → 1.60%  [source: Eastmark provincial projection 2025 (invented)]", output);
+        Assert.Contains("School-entry age (demography.school_entry_age): 6 → 5", output);
+    }
+
+    [Fact]
+    public void Diff_of_a_scenario_with_itself_finds_nothing_and_exits_0()
+    {
+        var (code, output, _) = Run("diff", CliAppTests.Demo("auroria-silverdale.yaml"), CliAppTests.Demo("auroria-silverdale.yaml"));
+        Assert.Equal(0, code);
+        Assert.Equal("No assumption or headline result differs.\n", output);
+    }
+}

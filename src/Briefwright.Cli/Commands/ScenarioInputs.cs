@@ -5,7 +5,8 @@ namespace Briefwright.Cli.Commands;
 /// <summary>Expands the paths given on the command line into scenario files and loads them, printing every problem.</summary>
 public static class ScenarioInputs
 {
-    /// <summary>Files as given; folders expand to their *.yaml and *.yml files (not recursive), sorted by name.</summary>
+    /// <summary>Files as given; folders expand to their *.yaml and *.yml files (not recursive, themes named *.theme.yaml
+    /// left out), sorted by name.</summary>
     public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error)
     {
         var files = new List<string>();
@@ -14,7 +15,8 @@ public static class ScenarioInputs
             if (Directory.Exists(p))
             {
                 var found = Directory.EnumerateFiles(p)
-                    .Where(f => f.EndsWith(".yaml", StringComparison.Ordinal) || f.EndsWith(".yml", StringComparison.Ordinal))
+                    .Where(f => (f.EndsWith(".yaml", StringComparison.Ordinal) || f.EndsWith(".yml", StringComparison.Ordinal))
+                             && !f.EndsWith(".theme.yaml", StringComparison.Ordinal))
                     .Order(StringComparer.Ordinal).ToList();
                 if (found.Count == 0) error.WriteLine($"{p}: folder holds no scenario files (*.yaml, *.yml).");
                 files.AddRange(found);
