@@ -2,5 +2,16 @@ namespace Briefwright.Cli;
 
 public static class Program
 {
-    public static int Main(string[] args) => CliApp.Run(args, Console.Out, Console.Error, interactive: !Console.IsOutputRedirected);
+    public static int Main(string[] args)
+    {
+        try
+        {
+            return CliApp.Run(args, Console.Out, Console.Error, interactive: !Console.IsOutputRedirected);
+        }
+        catch (Exception ex)
+        {
+            Console.Error.WriteLine($"briefwright: internal error, please report it: {ex.GetType().Name}: {ex.Message}");
+            return ExitCodes.Failed;
+        }
+    }
 }

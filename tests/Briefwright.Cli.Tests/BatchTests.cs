@@ -128,3 +128,31 @@ public class BatchTests
         Assert.All(lines, l => Assert.Equal("built", JsonDocument.Parse(l).RootElement.GetProperty("status").GetString()));
     }
 }
+
+public class FaultTests
+{
+    [Fact]
+    public void An_unwritable_output_folder_gives_a_clear_error_exit_1_and_loses_nothing()
+    {
+        var w = new Workspace("auroria-silverdale");
+        var error = new StringWriter();
+        // /proc refuses new folders even to root, so this fails like a read-only or full volume would.
+        int code = CliApp.Run(new[] { "build", Path.Combine(w.Dir, "auroria-silverdale.yaml"), "-o", "/proc/briefwright-out", "--no-chart-images", "-q" }, new StringWriter(), error);
+        Assert.Equal(1, code);
+        Assert.Contains("cannot write the brief to /proc/briefwright-out", error.ToString());
+        Assert.Contains("previous files are untouched", error.ToString());
+        Assert.DoesNotContain("   at ", error.ToString());
+    }
+
+    [Fact]
+    public void An_output_path_that_is_a_file_is_reported_not_overwritten()
+    {
+        var w = new Workspace("auroria-silverdale");
+        string notAFolder = Path.Combine(w.Dir, "precious.txt");
+        File.WriteAllText(notAFolder, "keep me");
+        var error = new StringWriter();
+        int code = CliApp.Run(new[] { "build", Path.Combine(w.Dir, "auroria-silverdale.yaml"), "-o", notAFolder, "--no-chart-images", "-q" }, new StringWriter(), error);
+        Assert.Equal(1, code);
+        Assert.Equal("keep me", File.ReadAllText(notAFolder));
+    }
+}

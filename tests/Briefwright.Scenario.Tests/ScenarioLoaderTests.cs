@@ -177,3 +177,14 @@ public class ScenarioLoaderTests
         }
     }
 }
+
+public class SizeLimitTests
+{
+    [Fact]
+    public void A_scenario_over_the_size_limit_is_refused_with_a_positioned_error()
+    {
+        string huge = MemoryReader.Valid + "\n# " + new string('x', 1_100_000) + "\n";
+        var r = MemoryReader.Load(huge);
+        Assert.Equal("s.yaml:1:1: file is larger than the 1024 KiB limit for a scenario. Got 1074 KiB.", Assert.Single(r.Problems).Message);
+    }
+}

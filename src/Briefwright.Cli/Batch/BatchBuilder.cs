@@ -91,7 +91,7 @@ public static class BatchBuilder
         }
         catch (ComposeException ex)
         {
-            lock (error) error.WriteLine($"{settings.Template.Path}: {ex.Message}");
+            lock (error) error.WriteLine($"{Position(settings.Template, ex)}: {ex.Message}");
             return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -99,11 +99,22 @@ public static class BatchBuilder
             lock (error) error.WriteLine($"{file}: cannot write the brief to {dir} ({ex.Message}); previous files are untouched.");
             return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
         }
-        catch (Exception ex) when (ex is NonFiniteResultException or InvalidOperationException or ArgumentException)
+        catch (Exception ex)
         {
-            lock (error) error.WriteLine($"{file}: {ex.Message}");
+            // Whatever went wrong, this brief fails alone: the others in the batch are still built, nothing is half-written.
+            lock (error) error.WriteLine($"{file}: {(ex is NonFiniteResultException ? "" : "internal error, please report it: ")}{ex.Message}");
             return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
         }
+    }
+
+    /// <summary>Where in the template the offending text was written: found by its text, else the line of the filled text.</summary>
+    private static string Position(BriefTemplate template, ComposeException ex)
+    {
+        var lines = template.Text.Split('\n');
+        if (ex.Snippet is { Length: > 0 } snippet)
+            for (int i = 0; i < lines.Length; i++)
+                if (lines[i].IndexOf(snippet, StringComparison.Ordinal) is int col and >= 0) return $"{template.Path}:{i + 1}:{col + 1}";
+        return $"{template.Path}:{Math.Max(1, ex.Line)}:1";
     }
 
     /// <summary>Copies the previous edition's files to archive/&lt;id&gt;/edition-N/ (atomically, before anything is replaced).</summary>

@@ -78,7 +78,7 @@ public static partial class MarkdownReader
             case ThematicBreakBlock:
                 break;
             default:
-                throw new ComposeException($"line {node.Line + 1}: the brief's text holds a {node.GetType().Name.Replace("Block", " block").ToLowerInvariant()}, which briefs do not support. Use paragraphs, lists, tables, headings or a quote.");
+                throw new ComposeException($"the brief's text holds a {node.GetType().Name.Replace("Block", " block").ToLowerInvariant()}, which briefs do not support; use paragraphs, lists, tables, headings or a quote.", node.Line + 1);
         }
     }
 
@@ -88,7 +88,7 @@ public static partial class MarkdownReader
         {
             case "figure":
                 if (!figures.TryGetValue(argument.Trim(), out var figure))
-                    throw new ComposeException($"line {line}: unknown figure '{argument.Trim()}'. Known figures: {string.Join(", ", figures.Keys.Order())}.");
+                    throw new ComposeException($"unknown figure '{argument.Trim()}'. Known figures: {string.Join(", ", figures.Keys.Order())}.", line, text);
                 blocks.Add(figure);
                 break;
             case "table":
@@ -99,7 +99,7 @@ public static partial class MarkdownReader
                 blocks.Add(new PageBreakBlock());
                 break;
             default:
-                throw new ComposeException($"line {line}: unknown directive [[{name}]]. Known: [[figure: id]], [[table: caption | source]], [[pagebreak]]. Got {text}.");
+                throw new ComposeException($"unknown directive [[{name}]]; known: [[figure: id]], [[table: caption | source]], [[pagebreak]]. Got {text}.", line, text);
         }
     }
 

@@ -11,6 +11,7 @@ namespace Briefwright.Scenario.Binding;
 public static class LifeTableReader
 {
     public const int MaxRows = 1000;
+    public const double MaxAge = 150;
 
     public static TabulatedSurvival? Read(string file, string text, string path, BindContext ctx)
     {
@@ -35,6 +36,7 @@ public static class LifeTableReader
             if (!ageOk) { ctx.Report(at, path, "age must be a number", $"'{cells[0].Trim()}'"); continue; }
             var lAt = at with { Column = cells[0].Length + 2 };
             if (!lOk) { ctx.Report(lAt, path, "survivors must be a number", $"'{cells[1].Trim()}'"); continue; }
+            if (age < 0 || age > MaxAge) { ctx.Report(at, path, $"ages must be from 0 to {MaxAge}", age.ToString(CultureInfo.InvariantCulture)); continue; }
             if (ages.Count == 0 && age != 0) ctx.Report(at, path, "the life table must start at age 0", age.ToString(CultureInfo.InvariantCulture));
             if (ages.Count > 0 && age <= ages[^1]) ctx.Report(at, path, $"ages must increase (previous row: {ages[^1].ToString(CultureInfo.InvariantCulture)})", age.ToString(CultureInfo.InvariantCulture));
             if (l < 0) ctx.Report(lAt, path, "survivors must not be negative", l.ToString(CultureInfo.InvariantCulture));
@@ -50,7 +52,7 @@ public static class LifeTableReader
         }
         if (ages.Count < 2)
         {
-            ctx.Report(new SourceSpan(file, 1, 1), path, "a life table needs at least two rows of age and survivors", $"{ages.Count} rows");
+            ctx.Report(new SourceSpan(file, 1, 1), path, "a life table needs at least two rows of age and survivors", ages.Count == 1 ? "1 row" : $"{ages.Count} rows");
             return null;
         }
         if (ctx.Problems.Count > before) return null;

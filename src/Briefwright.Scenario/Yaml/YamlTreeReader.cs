@@ -50,6 +50,12 @@ public static class YamlTreeReader
             problems.Add(ex.Diagnostic);
             return (null, problems);
         }
+        catch (InvalidOperationException)
+        {
+            // YamlDotNet's parser gives up this way when the text ends inside an open flow list or mapping.
+            problems.Add(new Diagnostic(state.LastSpan, "", "YAML syntax error: the file ends before a list or mapping opened here is closed", null));
+            return (null, problems);
+        }
     }
 
     private static string StripComments(string text) =>
@@ -67,6 +73,9 @@ public static class YamlTreeReader
 
         public IParser Parser => parser;
 
+        /// <summary>Where the most recent node started.</summary>
+        public SourceSpan LastSpan { get; private set; } = new(file, 1, 1);
+
         public SourceSpan Span(Mark m) => new(file, (int)Math.Max(1, m.Line), (int)Math.Max(1, m.Column));
 
         public void Expect<T>() where T : ParsingEvent
@@ -78,7 +87,8 @@ public static class YamlTreeReader
 
         public YNode ReadNode(int depth, string path)
         {
-            var ev = parser.Current!;
+            var ev = parser.Current ?? throw new InvalidOperationException("The text ended early.");
+            if (ev is MappingStart or SequenceStart) LastSpan = Span(ev.Start);
             if (depth > MaxDepth)
                 throw new LimitException(new Diagnostic(Span(ev.Start), "", $"nesting is deeper than the limit of {MaxDepth} levels", $"more than {MaxDepth}"));
             parser.MoveNext();
@@ -94,7 +104,7 @@ public static class YamlTreeReader
                 case SequenceStart ss:
                 {
                     var items = new List<YNode>();
-                    while (parser.Current is not SequenceEnd) items.Add(ReadNode(depth + 1, $"{path}[{items.Count}]"));
+                    while (parser.Current is not SequenceEnd and not null) items.Add(ReadNode(depth + 1, $"{path}[{items.Count}]"));
                     parser.MoveNext();
                     return Remember(ss.Anchor, new YSequence(items, Span(ss.Start)));
                 }
@@ -102,7 +112,7 @@ public static class YamlTreeReader
                 {
                     var entries = new List<KeyValuePair<YScalar, YNode>>();
                     var seen = new Dictionary<string, YScalar>(StringComparer.Ordinal);
-                    while (parser.Current is not MappingEnd)
+                    while (parser.Current is not MappingEnd and not null)
                     {
                         var keyNode = ReadNode(depth + 1, path);
                         string childPath = keyNode is YScalar k ? (path.Length == 0 ? k.Value : $"{path}.{k.Value}") : path;
