@@ -22,9 +22,15 @@ public static class BriefBuilder
     public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null)
     {
         options ??= BuildOptions.Default;
+        string? family = null;
+        if (options.Fonts is { } fonts)
+        {
+            family = BundledFonts.Register(fonts.Regular, fonts.Bold, fonts.Italic, fonts.BoldItalic);
+            ChartFont.Register(family, fonts.Regular, fonts.Bold);
+        }
         var solved = ScenarioSolver.Solve(scenario);
         var results = solved.BalancedGrowth;
-        var charts = RenderCharts(solved, options.ChartImages);
+        var charts = RenderCharts(solved, options.ChartImages, family);
         var resultsDocument = ResultsDocument.From(scenario, results, solved.Analysis);
         string json = ResultsJson.Write(resultsDocument);
         var changes = options.PreviousEdition is { } previous ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) : null;
@@ -39,7 +45,7 @@ public static class BriefBuilder
                 "schooling; human capital; demography; balanced growth; output per person",
                 "en-GB", info.Date, $"Edition {info.Edition}" + (info.Status == "final" ? "" : $" ({info.Status})"),
                 options.Theme.Footer ?? $"{info.Organisation} · Model illustration, not a forecast") { Logo = options.Logo },
-            blocks) { Theme = options.PageTheme() };
+            blocks) { Theme = options.PageTheme(), FontFamily = family };
         var pdf = DocumentComposer.WritePdf(document);
         return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, AnnexFiles.Build(solved, charts).Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList(), changes);
     }
@@ -57,9 +63,10 @@ public static class BriefBuilder
         return template.Render(model);
     }
 
-    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false)
+    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false, string? family = null)
     {
         ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
+        ChartFont.Use(family ?? ChartFont.Family);
         var scenario = solved.Scenario;
         var results = solved.BalancedGrowth;
         string source = $"briefwright model, scenario {scenario.Brief.Id}";

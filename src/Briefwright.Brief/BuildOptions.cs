@@ -13,6 +13,9 @@ public sealed record BuildOptions
     /// <summary>The theme's logo, read by the caller (the command line), with its pixel size.</summary>
     public (byte[] Png, int Width, int Height)? Logo { get; init; }
 
+    /// <summary>The theme's TrueType fonts (regular, bold, italic, bold italic), read by the caller; null for the bundled font.</summary>
+    public (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? Fonts { get; init; }
+
     /// <summary>The previous edition's results data, to write the "changes since the previous edition" section.</summary>
     public EditionSnapshot? PreviousEdition { get; init; }
 

@@ -11,30 +11,41 @@ public sealed class ChartFont : ScottPlot.IFontResolver
 {
     public const string Family = "Briefwright Chart Sans";
     private static readonly object Gate = new();
-    private static ChartFont? installed;
-    private readonly SKTypeface regular;
-    private readonly SKTypeface bold;
+    private static readonly ChartFont Resolver = new();
+    private static bool installed;
+    private readonly Dictionary<string, (SKTypeface Regular, SKTypeface Bold)> families = new();
 
-    private ChartFont(byte[] regularTtf, byte[] boldTtf)
-    {
-        regular = SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(regularTtf, FontSubsetter.ChartCharacters)));
-        bold = SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(boldTtf, FontSubsetter.ChartCharacters)));
-    }
+    /// <summary>The family charts are drawn in; a theme's fonts replace the bundled one for the whole run.</summary>
+    public static string Current { get; private set; } = Family;
 
-    public static void Install(byte[] regularTtf, byte[] boldTtf)
+    private static SKTypeface Typeface(byte[] ttf) => SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(ttf, FontSubsetter.ChartCharacters)));
+
+    public static void Install(byte[] regularTtf, byte[] boldTtf) => Register(Family, regularTtf, boldTtf);
+
+    /// <summary>Registers a family by name (once) and makes ScottPlot resolve it from these bytes.</summary>
+    public static void Register(string family, byte[] regularTtf, byte[] boldTtf)
     {
         lock (Gate)
         {
-            if (installed is not null) return;
-            installed = new ChartFont(regularTtf, boldTtf);
-            Fonts.FontResolvers.Insert(0, installed);
-            Fonts.Default = Family;
+            if (!installed)
+            {
+                Fonts.FontResolvers.Insert(0, Resolver);
+                Fonts.Default = Family;
+                installed = true;
+            }
+            if (!Resolver.families.ContainsKey(family)) Resolver.families[family] = (Typeface(regularTtf), Typeface(boldTtf));
         }
     }
 
+    /// <summary>Draws charts in <paramref name="family"/> (registered before) from now on.</summary>
+    public static void Use(string family)
+    {
+        lock (Gate) Current = family;
+    }
+
     public SKTypeface? CreateTypeface(string fontName, FontWeight weight, FontSlant slant, FontSpacing spacing) =>
-        fontName == Family ? (weight >= FontWeight.SemiBold ? bold : regular) : null;
+        families.TryGetValue(fontName, out var f) ? (weight >= FontWeight.SemiBold ? f.Bold : f.Regular) : null;
 
     public SKTypeface? CreateTypeface(string fontName, bool bold, bool italic) =>
-        fontName == Family ? (bold ? this.bold : regular) : null;
+        families.TryGetValue(fontName, out var f) ? (bold ? f.Bold : f.Regular) : null;
 }

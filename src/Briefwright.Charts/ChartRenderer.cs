@@ -11,7 +11,7 @@ public static class ChartRenderer
 
     public static void Style(Plot plot, string xLabel, string yLabel)
     {
-        plot.Font.Set(ChartFont.Family);
+        plot.Font.Set(ChartFont.Current);
         plot.XLabel(xLabel, 10);
         plot.YLabel(yLabel, 10);
         plot.Axes.Bottom.TickLabelStyle.FontSize = 9;

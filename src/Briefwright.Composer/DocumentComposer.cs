@@ -13,9 +13,12 @@ public sealed record ComposedPdf(byte[] Bytes, int PageCount);
 /// <summary>Lays out a brief and writes it as a tagged PDF with outline, metadata, running header and footer.</summary>
 public sealed class DocumentComposer
 {
-    private static readonly Lazy<PdfTextMeasurer> SharedMeasurer = new(() => new PdfTextMeasurer());
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, PdfTextMeasurer> Measurers = new();
 
-    public static ITextMeasurer Measurer => SharedMeasurer.Value;
+    /// <summary>One measurer per font family for the whole process: fonts are loaded and measured once.</summary>
+    public static PdfTextMeasurer MeasurerFor(string? family) => Measurers.GetOrAdd(family ?? BundledFonts.Family, f => new PdfTextMeasurer(f));
+
+    public static ITextMeasurer Measurer => MeasurerFor(null);
 
     /// <summary>Measure stage and pagination, without drawing: pages of placed atoms.</summary>
     public static IReadOnlyList<IReadOnlyList<Placement>> Layout(BriefDocument brief, Theme theme, ITextMeasurer measurer) =>
@@ -72,7 +75,7 @@ public sealed class DocumentComposer
     public static ComposedPdf WritePdf(BriefDocument brief)
     {
         var theme = brief.Theme ?? Theme.For(brief.Paper);
-        var measurer = SharedMeasurer.Value;
+        var measurer = MeasurerFor(brief.FontFamily);
         var pages = Layout(brief, theme, measurer);
 
         using var document = new PdfDocument();

@@ -156,3 +156,33 @@ public class FaultTests
         Assert.Equal("keep me", File.ReadAllText(notAFolder));
     }
 }
+
+public class ThemeTests
+{
+    [Fact]
+    public void Theme_fonts_from_files_are_used_for_the_text_and_the_charts()
+    {
+        var w = new Workspace("auroria-silverdale");
+        File.Copy(Path.Combine(CliAppTests.RepoRoot(), "fonts", "LiberationSans-Italic.ttf"), Path.Combine(w.Dir, "house.ttf"));
+        File.WriteAllText(Path.Combine(w.Dir, "house.theme.yaml"), "name: House style (invented)\npaper: letter\nfonts:\n  regular: house.ttf\n");
+        var (code, _, err) = w.Build("--theme", Path.Combine(w.Dir, "house.theme.yaml"));
+        Assert.True(code == 0, err);
+        string pdf = System.Text.Encoding.Latin1.GetString(File.ReadAllBytes(Path.Combine(w.Out, "auroria-silverdale-2026-11-30.pdf")));
+        Assert.Contains("Sans,Italic", pdf);                  // body text (PDF names escape the space)
+        Assert.Contains("LiberationSans-Italic", pdf);        // charts
+        Assert.DoesNotContain("Sans,Bold", pdf);              // bold falls back to the theme's regular face
+        Assert.Contains("/MediaBox[0 0 612 792]", pdf);       // US Letter
+    }
+
+    [Fact]
+    public void A_font_with_CFF_outlines_is_refused_with_the_reason()
+    {
+        var w = new Workspace("auroria-silverdale");
+        File.WriteAllBytes(Path.Combine(w.Dir, "house.ttf"), "OTTO"u8.ToArray().Concat(new byte[64]).ToArray());
+        File.WriteAllText(Path.Combine(w.Dir, "house.theme.yaml"), "name: House style (invented)\nfonts:\n  regular: house.ttf\n");
+        var (code, _, err) = w.Build("--theme", Path.Combine(w.Dir, "house.theme.yaml"));
+        Assert.Equal(2, code);
+        Assert.Contains("house.ttf: must be a TrueType font (glyf outlines). Got an OpenType font with CFF outlines", err);
+        Assert.False(Directory.Exists(w.Out));
+    }
+}

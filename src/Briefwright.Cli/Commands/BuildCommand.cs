@@ -108,6 +108,14 @@ public static class BuildCommand
             if (spec is null) return null;
             options = options with { Theme = spec };
             themeHash = BriefBuilder.Sha256(File.ReadAllText(themePath));
+            if (spec.FontPaths.Count > 0)
+            {
+                var fonts = ThemeFonts.Read(spec.FontPaths, error);
+                if (fonts is null) return null;
+                options = options with { Fonts = fonts };
+                themeHash = BriefBuilder.Sha256(themeHash + string.Concat(new[] { fonts.Value.Regular, fonts.Value.Bold, fonts.Value.Italic, fonts.Value.BoldItalic }
+                    .Select(b => Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(b)))));
+            }
             if (spec.LogoPath is { } logo)
             {
                 var png = Logo.Read(logo, error);

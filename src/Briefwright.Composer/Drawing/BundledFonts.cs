@@ -45,11 +45,27 @@ public sealed class BundledFonts : IFontResolver
         }
     }
 
+    private static readonly ConcurrentDictionary<string, byte[]> Registered = new();
+
+    /// <summary>
+    /// Registers a font family given as TrueType files (a theme's fonts) and returns its name, derived from the
+    /// bytes so that the same files give the same name in every run.
+    /// </summary>
+    public static string Register(byte[] regular, byte[] bold, byte[] italic, byte[] boldItalic)
+    {
+        string family = "Theme " + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(regular.Concat(bold).Concat(italic).Concat(boldItalic).ToArray()))[..12];
+        Registered.TryAdd($"{family}|{RunStyle.Regular}", regular);
+        Registered.TryAdd($"{family}|{RunStyle.Bold}", bold);
+        Registered.TryAdd($"{family}|{RunStyle.Italic}", italic);
+        Registered.TryAdd($"{family}|{RunStyle.BoldItalic}", boldItalic);
+        return family;
+    }
+
     public FontResolverInfo? ResolveTypeface(string familyName, bool bold, bool italic)
     {
         var style = (bold, italic) switch { (true, true) => RunStyle.BoldItalic, (true, _) => RunStyle.Bold, (_, true) => RunStyle.Italic, _ => RunStyle.Regular };
-        return new FontResolverInfo(FaceName(style));
+        return Registered.ContainsKey($"{familyName}|{style}") ? new FontResolverInfo($"{familyName}|{style}") : new FontResolverInfo(FaceName(style));
     }
 
-    public byte[]? GetFont(string faceName) => Load(faceName);
+    public byte[]? GetFont(string faceName) => Registered.TryGetValue(faceName, out var bytes) ? bytes : Load(faceName);
 }

@@ -13,13 +13,16 @@ public sealed class PdfTextMeasurer : ITextMeasurer
     private readonly XGraphics context;
     private readonly object gate = new();
 
-    public PdfTextMeasurer()
+    private readonly string family;
+
+    public PdfTextMeasurer(string family = BundledFonts.Family)
     {
+        this.family = family;
         BundledFonts.Install();
         context = XGraphics.CreateMeasureContext(new XSize(2000, 2000), XGraphicsUnit.Point, XPageDirection.Downwards);
     }
 
-    public XFont Font(FontSpec spec) => fonts.GetOrAdd(spec, s => new XFont(BundledFonts.Family, s.Size, s.Style switch
+    public XFont Font(FontSpec spec) => fonts.GetOrAdd(spec, s => new XFont(family, s.Size, s.Style switch
     {
         RunStyle.Bold => XFontStyleEx.Bold,
         RunStyle.Italic => XFontStyleEx.Italic,
