@@ -39,7 +39,7 @@ public sealed record PresentValue(
         double lastRate = schedule.Steps[^1].Rate;
         double q = Math.Exp(g) / (1 + lastRate);
         if (q >= 1)
-            return (null, $"beyond year {h} the gain is not counted: the long-run discount rate ({lastRate:P1}) does not exceed technology growth ({g:P1}), so the tail has no finite value");
+            return (null, $"beyond year {h} the gain is not counted: the long-run discount rate ({(lastRate * 100).ToString("0.0", System.Globalization.CultureInfo.InvariantCulture)}%) does not exceed technology growth ({(g * 100).ToString("0.0", System.Globalization.CultureInfo.InvariantCulture)}%), so the tail has no finite value");
         double sum = 0, factor = dH;
         int t = h;
         while (t + 1 < lastStart)
@@ -50,6 +50,6 @@ public sealed record PresentValue(
         }
         // From year t + 1 on the rate is the last one: Σ_{j≥1} factor·e^(gt)·q^j = factor·e^(gt)·q/(1 − q).
         sum += factor * Math.Exp(g * t) * longRunGain * q / (1 - q);
-        return (sum, $"beyond year {h} the gain is held at its balanced-growth value ({longRunGain:P2}) and discounted to infinity");
+        return (sum, $"beyond year {h} the gain is held at its balanced-growth value ({(longRunGain * 100).ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}%) and discounted to infinity");
     }
 }
