@@ -13,7 +13,7 @@ public static class BuildCommand
 {
     public static Command Create(TextWriter output, TextWriter error, bool interactive)
     {
-        var paths = new Argument<string[]>("paths") { Description = "Scenario files, or folders whose *.yaml files are all built.", Arity = ArgumentArity.OneOrMore };
+        var paths = ScenarioInputs.PathsArgument("built");
         var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing CommonMark). Default: the standard brief; copy templates/standard-brief.md to start your own." };
         var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size, colours, footer text, logo. See docs/themes.md." };
         var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: an 'out' folder beside each scenario." };

@@ -7,11 +7,7 @@ public static class CheckCommand
 {
     public static Command Create(TextWriter output, TextWriter error)
     {
-        var paths = new Argument<string[]>("paths")
-        {
-            Description = "Scenario files, or folders whose *.yaml files are all checked.",
-            Arity = ArgumentArity.OneOrMore,
-        };
+        var paths = ScenarioInputs.PathsArgument("checked");
         var command = new Command("check", "Validate scenario files and report every problem at once, as file:line:col: field: rule. Got value.") { paths };
         command.SetAction(parse =>
         {

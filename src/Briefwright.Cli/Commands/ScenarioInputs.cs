@@ -5,6 +5,13 @@ namespace Briefwright.Cli.Commands;
 /// <summary>Expands the paths given on the command line into scenario files and loads them, printing every problem.</summary>
 public static class ScenarioInputs
 {
+    /// <summary>The PATHS argument shared by check, solve and build.</summary>
+    public static System.CommandLine.Argument<string[]> PathsArgument(string verb) => new("paths")
+    {
+        Description = $"Scenario files, or folders whose *.yaml files are all {verb}.",
+        Arity = System.CommandLine.ArgumentArity.OneOrMore,
+    };
+
     /// <summary>Files as given; folders expand to their *.yaml and *.yml files (not recursive, themes named *.theme.yaml
     /// left out), sorted by name.</summary>
     public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error)

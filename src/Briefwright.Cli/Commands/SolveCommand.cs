@@ -10,11 +10,7 @@ public static class SolveCommand
 {
     public static Command Create(TextWriter output, TextWriter error)
     {
-        var paths = new Argument<string[]>("paths")
-        {
-            Description = "Scenario files, or folders whose *.yaml files are all solved.",
-            Arity = ArgumentArity.OneOrMore,
-        };
+        var paths = ScenarioInputs.PathsArgument("solved");
         var json = new Option<bool>("--json") { Description = "Print the results as JSON (one object per scenario; a list when there are several). Field names: docs/results-json.md." };
         var command = new Command("solve", "Solve scenarios: output per person for every option on the balanced growth path, and the output-maximising schooling length.") { paths, json };
         command.SetAction(parse =>
