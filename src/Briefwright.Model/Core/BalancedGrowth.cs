@@ -14,9 +14,9 @@ public static class BalancedGrowth
         Math.Pow(p.SavingRate / EffectiveDepreciation(d, p), p.CapitalShare / (1 - p.CapitalShare));
 
     /// <summary>Output per person of one option on the balanced growth path (technology level 1).</summary>
-    public static double OutputPerPerson(ModelInputs inputs, PolicyOption option, double? population = null)
+    public static double OutputPerPerson(ModelInputs inputs, PolicyOption option, double? population = null, bool fast = false)
     {
-        var cycle = new LifeCycle(inputs.DemographyFor(option), inputs.HumanCapital, population);
+        var cycle = new LifeCycle(inputs.DemographyFor(option), inputs.HumanCapital, population, fast);
         return OutputPerEffectiveWorker(inputs.Demography, inputs.Production) * cycle.Objective(option.SchoolingYears);
     }
 

@@ -12,11 +12,13 @@ public sealed class LifeCycle
     private readonly Demography demography;
     private readonly HumanCapital humanCapital;
     private readonly bool rectangular;
+    private readonly bool fast;
 
     /// <param name="population">The population integral if already known for this growth rate and survival curve
     /// (it does not depend on schooling, retirement or participation).</param>
-    public LifeCycle(Demography demography, HumanCapital humanCapital, double? population = null)
+    public LifeCycle(Demography demography, HumanCapital humanCapital, double? population = null, bool fast = false)
     {
+        this.fast = fast;
         this.demography = demography;
         this.humanCapital = humanCapital;
         rectangular = demography.Survival is RectangularSurvival;
@@ -43,7 +45,7 @@ public sealed class LifeCycle
             double n = demography.GrowthRate, length = to - from;
             return Math.Exp(-n * from) * length * Stable.RelativeExpm1(-n * length);
         }
-        return Quadrature.Integrate(Density, from, to, demography.Survival.Breakpoints);
+        return Quadrature.Integrate(Density, from, to, demography.Survival.Breakpoints, fast);
     }
 
     /// <summary>ω(E) = p·∫_{a₀+E}^{R} e^(−na) l(a) da / ∫₀^Ω e^(−na) l(a) da.</summary>
@@ -85,7 +87,7 @@ public sealed class LifeCycle
         {
             slopeTerm = Quadrature.Integrate(
                 a => Density(a) * Math.Exp(exp.LogPremium(a - start)) * (exp.Linear - 2 * exp.Quadratic * (a - start)),
-                start, WorkEnd, demography.Survival.Breakpoints);
+                start, WorkEnd, demography.Survival.Breakpoints, fast);
         }
         return humanCapital.Returns.MarginalReturn(schooling) - (Density(start) + slopeTerm) / num;
     }
@@ -94,6 +96,6 @@ public sealed class LifeCycle
     {
         double start = demography.EntryAge + schooling;
         if (humanCapital.Experience is not { } exp) return PersonYears(start, WorkEnd);
-        return Quadrature.Integrate(a => Density(a) * Math.Exp(exp.LogPremium(a - start)), start, WorkEnd, demography.Survival.Breakpoints);
+        return Quadrature.Integrate(a => Density(a) * Math.Exp(exp.LogPremium(a - start)), start, WorkEnd, demography.Survival.Breakpoints, fast);
     }
 }

@@ -59,9 +59,9 @@ public static class OptimumSearch
     /// change of d ln(h·ω)/dE, then bisection to 1e-6 years. Used where thousands of evaluations are needed
     /// (Monte Carlo, Sobol, grids), starting from the full search's optimum for the central scenario.
     /// </summary>
-    public static double LocalFrom(Demography demography, HumanCapital humanCapital, double guess, double? population = null)
+    public static double LocalFrom(Demography demography, HumanCapital humanCapital, double guess, double? population = null, bool fast = false)
     {
-        var cycle = new LifeCycle(demography, humanCapital, population);
+        var cycle = new LifeCycle(demography, humanCapital, population, fast);
         double eMax = cycle.MaxSchooling;
         double lo = Math.Clamp(guess, 0, eMax), hi = lo;
         double fLo = cycle.ObjectiveLogSlope(lo), fHi = fLo;

@@ -15,16 +15,19 @@ public sealed record PresentValue(
     int? BreakEvenYear,
     string TailNote)
 {
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<(DiscountSchedule Schedule, int Horizon), double[]> FactorCache = new();
+
     public static PresentValue Compute(ReformPath path, DiscountSchedule schedule, double technologyGrowth)
     {
         int h = path.Horizon;
-        var d = schedule.Factors(h);
+        var d = FactorCache.GetOrAdd((schedule, h), key => key.Schedule.Factors(key.Horizon));
         var cumulative = new double[h + 1];
-        double sum = 0;
+        double sum = 0, growth = 1, step = Math.Exp(technologyGrowth);
         for (int t = 0; t <= h; t++)
         {
-            sum += d[t] * Math.Exp(technologyGrowth * t) * path.Gain[t];
+            sum += d[t] * growth * path.Gain[t];
             cumulative[t] = sum;
+            growth *= step;
         }
         // Break-even: the first year from which the cumulative discounted gain stays positive to the horizon.
         int? breakEven = null;

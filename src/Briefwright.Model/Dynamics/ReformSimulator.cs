@@ -15,8 +15,11 @@ public static class ReformSimulator
     private sealed record Group(double EntryFrom, double EntryTo, CohortLabour Labour);
 
     /// <summary>Cohort labour tables of one set of inputs, shared by the options simulated for them.</summary>
-    public sealed class Cache
+    public sealed class Cache(bool fast = false)
     {
+        /// <summary>Use the three-point quadrature (Monte Carlo and Sobol runs).</summary>
+        public bool Fast { get; } = fast;
+
         private readonly Dictionary<string, double> outputs = new();
         private double? population;
 
@@ -24,13 +27,13 @@ public static class ReformSimulator
 
         /// <summary>The population integral (the same for every option of one set of inputs).</summary>
         public double Population(ModelInputs inputs) =>
-            population ??= new LifeCycle(inputs.Demography, inputs.HumanCapital).Population;
+            population ??= new LifeCycle(inputs.Demography, inputs.HumanCapital, fast: Fast).Population;
 
         /// <summary>Balanced-growth output per person of an option, computed once.</summary>
         public double OutputPerPerson(ModelInputs inputs, PolicyOption option)
         {
             if (!outputs.TryGetValue(option.Id, out double y))
-                outputs[option.Id] = y = BalancedGrowth.OutputPerPerson(inputs, option, Population(inputs));
+                outputs[option.Id] = y = BalancedGrowth.OutputPerPerson(inputs, option, Population(inputs), Fast);
             return y;
         }
     }

@@ -25,7 +25,9 @@ public static class Quadrature
 
     /// <summary>∫_a^b f. Panel edges fall on whole numbers and on <paramref name="breakpoints"/>,
     /// so integrands with kinks there (life tables, schooling brackets) are integrated piecewise-smoothly.</summary>
-    public static double Integrate(Func<double, double> f, double a, double b, IReadOnlyList<double>? breakpoints = null)
+    /// <param name="fast">Three-point rule per panel (exact to degree 5) instead of five: for the thousands of
+    /// evaluations of Monte Carlo and Sobol runs, where 1e-8 relative accuracy is plenty.</param>
+    public static double Integrate(Func<double, double> f, double a, double b, IReadOnlyList<double>? breakpoints = null, bool fast = false)
     {
         if (!(b > a)) return 0.0;
         double sum = 0.0;
@@ -39,7 +41,7 @@ public static class Quadrature
                 while (bp < breakpoints.Count && breakpoints[bp] <= left) bp++;
                 if (bp < breakpoints.Count && breakpoints[bp] < right) right = breakpoints[bp];
             }
-            sum += Panel(f, left, right);
+            sum += fast ? Panel3(f, left, right) : Panel(f, left, right);
             left = right;
         }
         return sum;

@@ -18,7 +18,7 @@ public static class KeyResultsEvaluator
     public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool keepHeadlinePath)
     {
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
-        var cache = new ReformSimulator.Cache();
+        var cache = new ReformSimulator.Cache(fast: true);
         double baseY = cache.OutputPerPerson(inputs, inputs.Baseline);
         var change = new double[alternatives.Count];
         var pv = new double[alternatives.Count];
@@ -30,7 +30,7 @@ public static class KeyResultsEvaluator
             pv[i] = PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth).ToHorizon;
             if (keepHeadlinePath && alternatives[i].Id == settings.HeadlineOptionId) headlinePath = path.Gain;
         }
-        double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess, cache.Population(inputs));
+        double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess, cache.Population(inputs), fast: true);
         return new KeyResults(alternatives.Select(o => o.Id).ToList(), change, pv, optimum, headlinePath);
     }
 }
