@@ -11,11 +11,12 @@ public static partial class FontSubsetter
     private const string Lib = "libHarfBuzzSharp";
     private const uint NoHinting = 0x1;
 
-    /// <summary>ASCII, Latin-1, general punctuation, Greek, sub- and superscript digits, minus and comparison signs.</summary>
+    /// <summary>What chart labels use: ASCII, the Latin-1 letters of names, dashes and quotes, minus, middle dot, ×, ≤ ≥.
+    /// Every glyph kept is embedded once per chart, so the set is kept small.</summary>
     public static readonly (int First, int Last)[] ChartCharacters =
     {
-        (0x20, 0x7E), (0xA0, 0xFF), (0x391, 0x3C9), (0x2010, 0x2027), (0x2030, 0x2044), (0x2070, 0x2089),
-        (0x2190, 0x2195), (0x2212, 0x2212), (0x2248, 0x2248), (0x2264, 0x2265),
+        (0x20, 0x7E), (0xB0, 0xB0), (0xB7, 0xB7), (0xC0, 0xFF), (0xD7, 0xD7), (0x2013, 0x2014), (0x2018, 0x201D), (0x2026, 0x2026),
+        (0x2212, 0x2212), (0x2264, 0x2265),
     };
 
     /// <summary>The subset font, or the input unchanged if the subsetter is unavailable or fails.</summary>

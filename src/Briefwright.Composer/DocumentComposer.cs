@@ -71,6 +71,25 @@ public sealed class DocumentComposer
         surface.EndArtifact();
     }
 
+    /// <summary>
+    /// Deflates the page content streams with .NET's zlib (PDFsharp's own compressor leaves them without their final
+    /// block when the document is tagged, which qpdf reports). Deterministic for the same content.
+    /// </summary>
+    private static void CompressContentStreams(PdfDocument document)
+    {
+        foreach (var page in document.Pages)
+            foreach (var item in page.Contents.Elements)
+            {
+                var dict = item is PdfSharp.Pdf.Advanced.PdfReference r ? r.Value as PdfDictionary : item as PdfDictionary;
+                if (dict?.Stream is null || dict.Elements.ContainsKey("/Filter")) continue;
+                using var packed = new MemoryStream();
+                using (var z = new System.IO.Compression.ZLibStream(packed, System.IO.Compression.CompressionLevel.SmallestSize, leaveOpen: true))
+                    z.Write(dict.Stream.Value);
+                dict.Stream.Value = packed.ToArray();
+                dict.Elements["/Filter"] = new PdfName("/FlateDecode");
+            }
+    }
+
     /// <summary>The whole brief as PDF bytes; the same document gives the same bytes.</summary>
     public static ComposedPdf WritePdf(BriefDocument brief)
     {
@@ -100,6 +119,7 @@ public sealed class DocumentComposer
         Draw(brief, theme, pages, surface, measurer);
         surface.WriteOutline();
 
+        CompressContentStreams(document);
         using var stream = new MemoryStream();
         document.Save(stream, false);
         return new ComposedPdf(ReproducibleBytes.Fix(stream.ToArray(), info.Date), pages.Count);
