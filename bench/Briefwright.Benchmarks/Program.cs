@@ -29,6 +29,9 @@ namespace Briefwright.Benchmarks
             var brief = new BriefBenchmarks();
             brief.Setup();
             Time("demo brief, in process (warm)", 10, () => brief.BuildDemoBrief());
+            Time("regional brief (200 draws), in process (warm)", 10, () => brief.BuildLightBrief());
+            Time("  its model runs only", 10, () => brief.SolveLight());
+            Time("  its model runs and six charts", 10, () => brief.ChartsLight());
         }
 
         private static void Time(string what, int runs, Action action)

@@ -11,7 +11,9 @@ public static class AtomicFile
 {
     public const string TempFolder = ".briefwright-tmp";
 
-    public static void Write(string path, byte[] bytes)
+    /// <param name="durable">Flush to the disk before the rename (the brief, its results and the manifest), so a power
+    /// cut cannot leave an empty file under the real name; annex files skip it for speed.</param>
+    public static void Write(string path, byte[] bytes, bool durable = true)
     {
         string dir = Path.GetDirectoryName(Path.GetFullPath(path))!;
         string tempDir = Path.Combine(dir, TempFolder);
@@ -22,7 +24,7 @@ public static class AtomicFile
             using (var stream = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None))
             {
                 stream.Write(bytes);
-                stream.Flush(flushToDisk: true);
+                stream.Flush(flushToDisk: durable);
             }
             File.Move(temp, path, overwrite: true);
         }

@@ -69,12 +69,12 @@ public static class BatchBuilder
             // Nothing on disk has changed so far. Keep the previous edition first, then replace.
             if (newEdition) Archive(dir, previous!);
             var files = new List<string>();
-            void Put(string name, byte[] bytes)
+            void Put(string name, byte[] bytes, bool durable = true)
             {
-                AtomicFile.Write(Path.Combine(dir, name), bytes);
+                AtomicFile.Write(Path.Combine(dir, name), bytes, durable);
                 files.Add(name);
             }
-            foreach (var a in brief.Annex) Put($"{brief.FileStem}.{a.Suffix}", a.Bytes);
+            foreach (var a in brief.Annex) Put($"{brief.FileStem}.{a.Suffix}", a.Bytes, durable: false);
             Put(brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson));
             Put(brief.FileStem + ".pdf", brief.Pdf);
             AtomicFile.Write(Manifest.PathFor(dir, id), new Manifest(id, brief.FileStem, edition, hash, inputs, files).ToBytes());
