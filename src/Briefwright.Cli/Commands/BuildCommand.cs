@@ -15,7 +15,7 @@ public static class BuildCommand
     {
         var paths = ScenarioInputs.PathsArgument("built");
         var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing CommonMark). Default: the standard brief; copy templates/standard-brief.md to start your own." };
-        var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size, colours, footer text, logo. See docs/themes.md." };
+        var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size (A4 or US Letter), colours, footer text, logo, fonts. See docs/themes.md." };
         var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: an 'out' folder beside each scenario." };
         var date = new Option<string?>("--date") { Description = "Date of the brief (YYYY-MM-DD), replacing brief.date. The clock is never used, so rebuilds are identical." };
         var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on has changed." };
