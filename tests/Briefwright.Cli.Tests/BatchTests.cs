@@ -186,3 +186,16 @@ public class ThemeTests
         Assert.False(Directory.Exists(w.Out));
     }
 }
+
+public class NoSyncTests
+{
+    [Fact]
+    public void No_sync_builds_the_same_bytes()
+    {
+        var w = new Workspace("auroria-silverdale");
+        Assert.Equal(0, w.Build("-o", Path.Combine(w.Dir, "a")).Code);
+        Assert.Equal(0, w.Build("-o", Path.Combine(w.Dir, "b"), "--no-sync").Code);
+        string pdf = "auroria-silverdale-2026-11-30.pdf";
+        Assert.Equal(File.ReadAllBytes(Path.Combine(w.Dir, "a", pdf)), File.ReadAllBytes(Path.Combine(w.Dir, "b", pdf)));
+    }
+}

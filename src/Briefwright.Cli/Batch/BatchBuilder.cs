@@ -12,7 +12,11 @@ using Briefwright.Templating;
 namespace Briefwright.Cli.Batch;
 
 /// <summary>Settings of one <c>build</c> run.</summary>
-public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options, string ThemeHash, string? OutDir, DateOnly? Date, bool Force, bool AnnexImages);
+public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options, string ThemeHash, string? OutDir, DateOnly? Date, bool Force, bool AnnexImages)
+{
+    /// <summary>Flush the brief, its results and its manifest to the disk before renaming them into place.</summary>
+    public bool Durable { get; init; } = true;
+}
 
 /// <summary>
 /// Builds one brief with editions and nothing lost: skips it when its manifest says nothing changed; otherwise
@@ -71,13 +75,13 @@ public static class BatchBuilder
             var files = new List<string>();
             void Put(string name, byte[] bytes, bool durable = true)
             {
-                AtomicFile.Write(Path.Combine(dir, name), bytes, durable);
+                AtomicFile.Write(Path.Combine(dir, name), bytes, durable && settings.Durable);
                 files.Add(name);
             }
             foreach (var a in brief.Annex) Put($"{brief.FileStem}.{a.Suffix}", a.Bytes, durable: false);
             Put(brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson));
             Put(brief.FileStem + ".pdf", brief.Pdf);
-            AtomicFile.Write(Manifest.PathFor(dir, id), new Manifest(id, brief.FileStem, edition, hash, inputs, files).ToBytes());
+            AtomicFile.Write(Manifest.PathFor(dir, id), new Manifest(id, brief.FileStem, edition, hash, inputs, files).ToBytes(), settings.Durable);
             if (previous is not null)
                 foreach (var old in previous.Files.Except(files))
                     try { File.Delete(Path.Combine(dir, old)); } catch (IOException) { }
