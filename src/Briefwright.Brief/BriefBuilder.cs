@@ -57,7 +57,7 @@ public static class BriefBuilder
     {
         var scenario = solved.Scenario;
         var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(),
-            scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), Sha256(template.Text));
+            scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), template.Hash);
         var model = BriefModelBuilder.Build(inputs);
         ChangesModel.Add(model, changes);
         return template.Render(model);

@@ -22,10 +22,14 @@ public sealed class BriefTemplate
         this.template = template;
         Path = path;
         Text = text;
+        Hash = Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(text)));
     }
 
     public string Path { get; }
     public string Text { get; }
+
+    /// <summary>SHA-256 of the template text (hex), computed once: it goes into every brief's stamp and manifest.</summary>
+    public string Hash { get; } = "";
 
     public static BriefTemplate Parse(string text, string path)
     {

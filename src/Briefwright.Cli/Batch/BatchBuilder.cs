@@ -49,7 +49,7 @@ public static class BatchBuilder
             var inputs = new SortedDictionary<string, string>(StringComparer.Ordinal)
             {
                 ["scenario"] = scenario.InputHash,
-                ["template"] = BriefBuilder.Sha256(settings.Template.Text),
+                ["template"] = settings.Template.Hash,
                 ["theme"] = settings.ThemeHash,
                 ["fonts"] = FontsHash.Value,
                 ["tool"] = ToolInfo.Version,

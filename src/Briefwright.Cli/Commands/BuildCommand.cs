@@ -111,7 +111,7 @@ public static class BuildCommand
             foreach (var p in problems) error.WriteLine(sources.Render(p));
             if (spec is null) return null;
             options = options with { Theme = spec };
-            themeHash = BriefBuilder.Sha256(File.ReadAllText(themePath));
+            themeHash = sources.Hash(); // the theme text as read by the loader; no second read
             if (spec.FontPaths.Count > 0)
             {
                 var fonts = ThemeFonts.Read(spec.FontPaths, error);

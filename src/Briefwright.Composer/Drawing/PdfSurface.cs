@@ -12,6 +12,7 @@ public sealed class PdfSurface : IDrawingSurface
     private readonly PdfTextMeasurer measurer;
     private readonly StructureBuilder structure;
     private readonly Dictionary<string, XPdfForm> forms = new();
+    private readonly Dictionary<Rgb, XSolidBrush> brushes = new();
     private readonly List<(int Level, string Title, PdfPage Page, double Y)> outline = new();
     private PdfPage? page;
     private XGraphics? gfx;
@@ -80,10 +81,16 @@ public sealed class PdfSurface : IDrawingSurface
     public void EndArtifact() => structure.End();
 
     public void Text(string text, double x, double baseline, FontSpec font, Rgb color) =>
-        G.DrawString(text, measurer.Font(font), new XSolidBrush(XColor.FromArgb(color.R, color.G, color.B)), x, baseline, XStringFormats.BaseLineLeft);
+        G.DrawString(text, measurer.Font(font), Brush(color), x, baseline, XStringFormats.BaseLineLeft);
+
+    private XSolidBrush Brush(Rgb c)
+    {
+        if (!brushes.TryGetValue(c, out var brush)) brushes[c] = brush = new XSolidBrush(XColor.FromArgb(c.R, c.G, c.B));
+        return brush;
+    }
 
     public void FillRect(Box box, Rgb color) =>
-        G.DrawRectangle(new XSolidBrush(XColor.FromArgb(color.R, color.G, color.B)), box.X, box.Y, box.Width, box.Height);
+        G.DrawRectangle(Brush(color), box.X, box.Y, box.Width, box.Height);
 
     public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) =>
         G.DrawLine(new XPen(XColor.FromArgb(color.R, color.G, color.B), width), x1, y1, x2, y2);

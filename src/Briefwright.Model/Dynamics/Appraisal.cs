@@ -19,17 +19,20 @@ public static class Appraisal
     public static AppraisalResults Run(ModelInputs inputs, ReformSettings reform, IReadOnlyList<DiscountSchedule> schedules, double balancedGrowthOptimum)
     {
         double g = inputs.Production.TechnologyGrowth;
+        var cache = new ReformSimulator.Cache();
         var options = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o =>
         {
-            var path = ReformSimulator.Simulate(inputs, o, reform);
+            var path = ReformSimulator.Simulate(inputs, o, reform, cache);
             return new OptionAppraisal(o.Id, path, schedules.Select(s => PresentValue.Compute(path, s, g)).ToList());
         }).ToList();
-        return new AppraisalResults(reform.Year, reform.HorizonYears, reform.PhaseInCohorts, options, FindDiscountedOptimum(inputs, reform, schedules[0], balancedGrowthOptimum));
+        return new AppraisalResults(reform.Year, reform.HorizonYears, reform.PhaseInCohorts, options, FindDiscountedOptimum(inputs, reform, schedules[0], balancedGrowthOptimum, cache));
     }
 
     /// <summary>Grid over E₁ from the baseline to the balanced-growth E* (half-year steps), then golden-section refinement.</summary>
-    public static DiscountedOptimum FindDiscountedOptimum(ModelInputs inputs, ReformSettings reform, DiscountSchedule schedule, double bgpOptimum)
+    public static DiscountedOptimum FindDiscountedOptimum(ModelInputs inputs, ReformSettings reform, DiscountSchedule schedule, double bgpOptimum, ReformSimulator.Cache? cache = null)
     {
+        // One cache for every candidate: the population and the baseline cohorts' table are computed once.
+        cache ??= new ReformSimulator.Cache();
         var baseline = inputs.Baseline;
         double g = inputs.Production.TechnologyGrowth;
         double maxE = Math.Min(Math.Max(bgpOptimum, baseline.SchoolingYears), inputs.DemographyFor(baseline).RetirementAge - inputs.Demography.EntryAge - 1);
@@ -37,7 +40,7 @@ public static class Appraisal
         {
             var option = baseline with { Id = "__candidate", SchoolingYears = e };
             var trial = inputs with { Options = inputs.Options.Append(option).ToList() };
-            return e == baseline.SchoolingYears ? 0 : PresentValue.Compute(ReformSimulator.Simulate(trial, option, reform), schedule, g).ToHorizon;
+            return e == baseline.SchoolingYears ? 0 : PresentValue.Compute(ReformSimulator.Simulate(trial, option, reform, cache), schedule, g).ToHorizon;
         }
         double bestE = baseline.SchoolingYears, bestPv = 0;
         for (double e = baseline.SchoolingYears + 0.5; e <= maxE + 1e-9; e += 0.5)

@@ -20,7 +20,8 @@ public static class ReformSimulator
         /// <summary>Use the three-point quadrature (Monte Carlo and Sobol runs).</summary>
         public bool Fast { get; } = fast;
 
-        private readonly Dictionary<string, double> outputs = new();
+        // Keyed by the whole option (record equality), so trial options that share an id never share a result.
+        private readonly Dictionary<PolicyOption, double> outputs = new();
         private double? population;
 
         internal Dictionary<(double Schooling, double LastAge), CohortLabour> Tables { get; } = new();
@@ -32,8 +33,8 @@ public static class ReformSimulator
         /// <summary>Balanced-growth output per person of an option, computed once.</summary>
         public double OutputPerPerson(ModelInputs inputs, PolicyOption option)
         {
-            if (!outputs.TryGetValue(option.Id, out double y))
-                outputs[option.Id] = y = BalancedGrowth.OutputPerPerson(inputs, option, Population(inputs), Fast);
+            if (!outputs.TryGetValue(option, out double y))
+                outputs[option] = y = BalancedGrowth.OutputPerPerson(inputs, option, Population(inputs), Fast);
             return y;
         }
     }
