@@ -9,7 +9,7 @@ public static class AnalysisChartSet
 {
     private static string F(double v, string f = "0.0") => v.ToString(f, CultureInfo.InvariantCulture);
 
-    public static IEnumerable<RenderedChart> Render(SolvedScenario solved, string source, bool withImages)
+    public static IEnumerable<ChartSpec> Specs(SolvedScenario solved, string source)
     {
         var a = solved.Analysis;
         var inputs = solved.Scenario.Inputs;
@@ -19,31 +19,31 @@ public static class AnalysisChartSet
         var path = a.Reform.Options[k].Path;
         double central = solved.BalancedGrowth.Options.First(o => o.Id == a.HeadlineOptionId).ChangeVsBaselinePct;
 
-        yield return RenderedChart.From("reform-path", AnalysisCharts.ReformPath(a.Reform, a.HeadlineOptionId, labels, a.MonteCarlo),
+        yield return new ChartSpec("reform-path", AnalysisCharts.ReformPath(a.Reform, a.HeadlineOptionId, labels, a.MonteCarlo),
             $"Output per person after the reform relative to no reform, {a.Reform.ReformYear}–{a.Reform.ReformYear + 80}",
             $"Line chart over years: {headline} " + (path.DipDepth is { } dip ? $"first lowers output per person, by up to {F(-100 * dip, "0.00")}% in {a.Reform.ReformYear + path.DipYear}, " : "") +
             $"then raises it towards {F(100 * path.BalancedGrowthGain, "0.0")}% in the long run." + (a.MonteCarlo is null ? "" : " A shaded band shows the 5–95% range of the Monte Carlo draws."),
-            source, withImages);
+            source);
         if (a.Tornado.Count > 0)
-            yield return RenderedChart.From("tornado", AnalysisCharts.Tornado(a.Tornado, k, central, headline),
+            yield return new ChartSpec("tornado", AnalysisCharts.Tornado(a.Tornado, k, central, headline),
                 $"Sensitivity of the long-run change for {headline} to each assumption",
                 $"Tornado chart: {a.Tornado[0].Label} moves the long-run change most, from {F(a.Tornado[0].AtLow.LongRunChangePct[k], "0.00")}% to {F(a.Tornado[0].AtHigh.LongRunChangePct[k], "0.00")}% across its range; the central value is {F(central, "0.00")}%.",
-                source, withImages);
+                source);
         foreach (var (grid, i) in a.Grids.Select((g, i) => (g, i)))
         {
             string what = grid.Spec.Output == "optimum" ? "Output-maximising schooling E* (years)" : $"Long-run change, {headline} (%)";
             string x = Parameters.Find(grid.Spec.X)!.Label, y = Parameters.Find(grid.Spec.Y)!.Label;
             var values = grid.Values.SelectMany(v => v).Where(v => v is not null).Select(v => v!.Value).ToList();
-            yield return RenderedChart.From(i == 0 ? "heatmap" : $"heatmap-{i + 1}", AnalysisCharts.Heatmap(grid, Axis(grid.Spec.X, x), Axis(grid.Spec.Y, y), what, Scale(grid.Spec.X), Scale(grid.Spec.Y)),
+            yield return new ChartSpec(i == 0 ? "heatmap" : $"heatmap-{i + 1}", AnalysisCharts.Heatmap(grid, Axis(grid.Spec.X, x), Axis(grid.Spec.Y, y), what, Scale(grid.Spec.X), Scale(grid.Spec.Y)),
                 $"{what} over {x.ToLowerInvariant()} and {y.ToLowerInvariant()}",
                 $"Heat map: {what.ToLowerInvariant()} ranges from {F(values.Min())} to {F(values.Max())} over the grid" + (grid.Invalid > 0 ? $"; {grid.Invalid} cells break a model rule and are blank." : "."),
-                source, withImages);
+                source);
         }
         if (a.MonteCarlo is { } mc)
-            yield return RenderedChart.From("distribution", AnalysisCharts.Distribution(mc, k, headline),
+            yield return new ChartSpec("distribution", AnalysisCharts.Distribution(mc, k, headline),
                 $"Distribution of the long-run change for {headline} over {mc.Draws:N0} Monte Carlo draws",
                 $"Histogram: the long-run change lies between {F(mc.Options[k].LongRunChangePct.P5, "0.00")}% and {F(mc.Options[k].LongRunChangePct.P95, "0.00")}% in 90% of draws, median {F(mc.Options[k].LongRunChangePct.P50, "0.00")}%.",
-                source, withImages);
+                source);
     }
 
     private static string Axis(string parameter, string label) => Parameters.Find(parameter)!.IsRate ? label + " (%)" : label;

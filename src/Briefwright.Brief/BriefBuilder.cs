@@ -35,7 +35,7 @@ public static class BriefBuilder
         string json = ResultsJson.Write(resultsDocument);
         var changes = options.PreviousEdition is { } previous ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) : null;
         string markdown = FillTemplate(solved, charts, template, changes);
-        var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
+        var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
         var info = scenario.Brief;
         var document = new BriefDocument(
@@ -72,19 +72,19 @@ public static class BriefBuilder
         string source = $"briefwright model, scenario {scenario.Brief.Id}";
         var baseline = results.Options.First(o => o.IsBaseline);
         var opt = results.Optimum;
-        var charts = new List<RenderedChart>
+        var charts = new List<ChartSpec>
         {
-            RenderedChart.From("output-curve", SchoolingCharts.OutputCurve(results),
+            new ChartSpec("output-curve", SchoolingCharts.OutputCurve(results),
                 "Output per person against years of schooling, balanced growth path",
                 $"Line chart: output per person rises with schooling from zero, peaks at {opt.SchoolingYears:0.0} years and falls to zero at {opt.FeasibleMaxSchooling:0} years. The options sit on the rising part of the curve; the band within 1% of the maximum runs from {opt.Within1Pct[0]:0.0} to {opt.Within1Pct[1]:0.0} years.",
-                source, withImages),
-            RenderedChart.From("opposing-forces", SchoolingCharts.OpposingForces(results),
+                source),
+            new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(results),
                 "The two opposing forces: worker share and human capital per worker against schooling",
                 $"Line chart with two axes: the worker share falls steadily with schooling while human capital per worker rises; at the baseline of {baseline.SchoolingYears:0.#} years the worker share is {baseline.WorkerShare:0.000} and human capital per worker {baseline.HumanCapitalPerWorker:0.00}.",
-                source, withImages),
+                source),
         };
-        charts.AddRange(AnalysisChartSet.Render(solved, source, withImages));
-        return charts;
+        charts.AddRange(AnalysisChartSet.Specs(solved, source));
+        return ChartSpec.RenderAll(charts, withImages);
     }
 
     public static string Sha256(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));

@@ -3,7 +3,7 @@ using SkiaSharp;
 
 namespace Briefwright.Charts;
 
-/// <summary>Applies the house style to a plot and renders it as a one-page vector PDF.</summary>
+/// <summary>Applies the house style to a plot and renders it as vector PDF.</summary>
 public static class ChartRenderer
 {
     public const int Width = 470;
@@ -25,7 +25,10 @@ public static class ChartRenderer
         plot.Legend.OutlineColor = Palette.Grid;
     }
 
-    public static byte[] ToPdf(Plot plot, int width = Width, int height = Height)
+    public static byte[] ToPdf(Plot plot, int width = Width, int height = Height) => ToPdf(new[] { plot }, width, height);
+
+    /// <summary>One page per plot, in order. Skia embeds each font once per document, so charts share it.</summary>
+    public static byte[] ToPdf(IReadOnlyList<Plot> plots, int width = Width, int height = Height)
     {
         using var output = new MemoryStream();
         using (var stream = new SKManagedWStream(output))
@@ -35,9 +38,12 @@ public static class ChartRenderer
             metadata.Creator = "briefwright";
             metadata.Producer = "briefwright";
             using var document = SKDocument.CreatePdf(stream, metadata);
-            var canvas = document.BeginPage(width, height);
-            plot.Render(canvas, width, height);
-            document.EndPage();
+            foreach (var plot in plots)
+            {
+                var canvas = document.BeginPage(width, height);
+                plot.Render(canvas, width, height);
+                document.EndPage();
+            }
             document.Close();
         }
         return output.ToArray();

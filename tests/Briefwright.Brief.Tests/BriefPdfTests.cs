@@ -132,4 +132,16 @@ public class BriefPdfTests
         Assert.All(rows, row => Assert.Matches(@"\s+yes\s+(yes|no)\s+(yes|no)\s+\d+\s+\d+\s*$", row));
         Assert.All(rows, row => Assert.Matches(@"^\S+\s.*\s+yes\s+\S+\s+\S+\s+\d+", row));
     }
+
+    [Fact]
+    public void Charts_share_one_embedded_font()
+    {
+        // Six charts drawn from one multi-page chart document: pdffonts lists each font object once, so the chart
+        // font (Skia's face name has no space) must appear once, not once per chart.
+        var (code, output) = ExternalTool.Run("pdffonts", "", Demo.Build(Name).Pdf);
+        Assert.Equal(0, code);
+        var names = output.Split('\n').Skip(2).Where(l => l.Trim().Length > 0).Select(l => l.Split(' ')[0]).ToList();
+        Assert.Single(names, n => n.EndsWith("+LiberationSans", StringComparison.Ordinal));
+        Assert.Equal(names.Count, names.Distinct().Count());
+    }
 }

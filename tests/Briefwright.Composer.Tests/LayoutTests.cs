@@ -93,7 +93,7 @@ public class LayoutTests
     [Fact]
     public void A_figure_that_does_not_fit_moves_to_the_next_page_with_its_caption()
     {
-        var figure = new FigureBlock("chart", Array.Empty<byte>(), 400, 200, "A chart", "Model", "Alt text");
+        var figure = new FigureBlock("chart", Array.Empty<byte>(), 1, 400, 200, "A chart", "Model", "Alt text");
         var s = Draw(Words(300), figure);
         var fig = Assert.Single(s.Ops, o => o.Kind == "figure");
         Assert.Equal(1, fig.Page);

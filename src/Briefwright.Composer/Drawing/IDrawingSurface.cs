@@ -49,8 +49,8 @@ public interface IDrawingSurface
 
     void Line(double x1, double y1, double x2, double y2, Rgb color, double width);
 
-    /// <summary>Places a one-page vector PDF scaled into <paramref name="box"/>.</summary>
-    void Figure(string id, byte[] pdf, Box box);
+    /// <summary>Places page <paramref name="page"/> (1-based) of a vector PDF scaled into <paramref name="box"/>.</summary>
+    void Figure(string id, byte[] pdf, int page, Box box);
 
     void Link(Box box, string url);
 

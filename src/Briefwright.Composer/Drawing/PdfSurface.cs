@@ -11,7 +11,7 @@ public sealed class PdfSurface : IDrawingSurface
     private readonly PdfDocument document;
     private readonly PdfTextMeasurer measurer;
     private readonly StructureBuilder structure;
-    private readonly Dictionary<string, XPdfForm> forms = new();
+    private readonly Dictionary<byte[], XPdfForm> forms = new(ReferenceEqualityComparer.Instance);
     private readonly Dictionary<Rgb, XSolidBrush> brushes = new();
     private readonly List<(int Level, string Title, PdfPage Page, double Y)> outline = new();
     private PdfPage? page;
@@ -95,13 +95,18 @@ public sealed class PdfSurface : IDrawingSurface
     public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) =>
         G.DrawLine(new XPen(XColor.FromArgb(color.R, color.G, color.B), width), x1, y1, x2, y2);
 
-    public void Figure(string id, byte[] pdf, Box box)
+    /// <summary>
+    /// One form per source PDF, its page chosen per figure: PDFsharp then imports the objects the pages share
+    /// (the chart font) once.
+    /// </summary>
+    public void Figure(string id, byte[] pdf, int page, Box box)
     {
-        if (!forms.TryGetValue(id, out var form))
+        if (!forms.TryGetValue(pdf, out var form))
         {
             form = XPdfForm.FromStream(new MemoryStream(pdf));
-            forms[id] = form;
+            forms[pdf] = form;
         }
+        form.PageNumber = page;
         G.DrawImage(form, box.X, box.Y, box.Width, box.Height);
     }
 

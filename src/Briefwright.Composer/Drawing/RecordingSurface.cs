@@ -41,7 +41,7 @@ public sealed class RecordingSurface : IDrawingSurface
 
     public void FillRect(Box box, Rgb color) => ops.Add(new Op(page, "rect", "", box.X, box.Y, box.Width, box.Height));
     public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) => ops.Add(new Op(page, "line", "", x1, y1, x2 - x1, y2 - y1));
-    public void Figure(string id, byte[] pdf, Box box) => ops.Add(new Op(page, "figure", id, box.X, box.Y, box.Width, box.Height));
+    public void Figure(string id, byte[] pdf, int page, Box box) => ops.Add(new Op(page, "figure", id, box.X, box.Y, box.Width, box.Height));
     public void Link(Box box, string url) => ops.Add(new Op(page, "link", url, box.X, box.Y, box.Width, box.Height));
     public void Image(byte[] png, Box box) => ops.Add(new Op(page, "image", "", box.X, box.Y, box.Width, box.Height));
     public void Outline(int level, string title, double y) => ops.Add(new Op(page, "outline", title, level, y));

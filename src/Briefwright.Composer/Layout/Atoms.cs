@@ -122,6 +122,7 @@ public sealed class FigureAtom : Atom
 {
     public required string Id { get; init; }
     public required byte[] Pdf { get; init; }
+    public int Page { get; init; } = 1;
     public required double Width { get; init; }
     public required string AltText { get; init; }
 
@@ -129,7 +130,7 @@ public sealed class FigureAtom : Atom
     {
         var box = new Box(x + (theme.ContentWidth - Width) / 2, y, Width, Height);
         surface.BeginTag(StructTag.Figure, AltText, box);
-        surface.Figure(Id, Pdf, box);
+        surface.Figure(Id, Pdf, Page, box);
         surface.EndTag();
     }
 }

@@ -141,7 +141,7 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         double h = f.HeightPt * w / f.WidthPt;
         double maxH = theme.ContentHeight * 0.6;
         if (h > maxH) { w *= maxH / h; h = maxH; }
-        atoms.Add(new FigureAtom { Id = f.Id, Pdf = f.Pdf, Width = w, Height = h, SpaceBefore = 4, AltText = f.AltText, KeepWithNext = f.Source is not null });
+        atoms.Add(new FigureAtom { Id = f.Id, Pdf = f.Pdf, Page = f.Page, Width = w, Height = h, SpaceBefore = 4, AltText = f.AltText, KeepWithNext = f.Source is not null });
         if (f.Source is not null) atoms.AddRange(SourceLine(f.Source, width));
         return atoms;
     }
