@@ -9,6 +9,8 @@ public class BriefBenchmarks
 {
     private ScenarioDocument scenario = null!;
 
+    public ScenarioDocument Scenario => scenario;
+
     [GlobalSetup]
     public void Setup()
     {

@@ -28,7 +28,7 @@ public static class BriefBuilder
             family = BundledFonts.Register(fonts.Regular, fonts.Bold, fonts.Italic, fonts.BoldItalic);
             ChartFont.Register(family, fonts.Regular, fonts.Bold);
         }
-        var solved = ScenarioSolver.Solve(scenario);
+        var solved = ScenarioSolver.Solve(scenario, options.ModelThreads);
         var results = solved.BalancedGrowth;
         var charts = RenderCharts(solved, options.ChartImages, family);
         var resultsDocument = ResultsDocument.From(scenario, results, solved.Analysis);

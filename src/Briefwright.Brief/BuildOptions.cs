@@ -22,6 +22,9 @@ public sealed record BuildOptions
     /// <summary>Also render each chart as SVG and PNG for the data annex.</summary>
     public bool ChartImages { get; init; }
 
+    /// <summary>Threads the model's uncertainty loops may use; a batch building one brief per core passes 1.</summary>
+    public int ModelThreads { get; init; } = Model.Uncertainty.ModelThreads.AllCores;
+
     public static BuildOptions Default { get; } = new();
 
     /// <summary>The page theme: paper size and colours from the theme file over the standard look.</summary>

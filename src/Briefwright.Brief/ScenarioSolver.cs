@@ -11,11 +11,12 @@ public sealed record SolvedScenario(ScenarioDocument Scenario, BalancedGrowthRes
 /// <summary>The one place that runs the model for a scenario: balanced growth, then the reform path and uncertainty.</summary>
 public static class ScenarioSolver
 {
-    public static SolvedScenario Solve(ScenarioDocument scenario)
+    /// <param name="maxThreads">Threads the model's uncertainty loops may use (<see cref="ModelThreads"/>); results do not depend on it.</param>
+    public static SolvedScenario Solve(ScenarioDocument scenario, int maxThreads = ModelThreads.AllCores)
     {
         var bgp = BalancedGrowth.Solve(scenario.Inputs);
         ResultsGuard.EnsureFinite(bgp);
-        var analysis = AnalysisRunner.Run(scenario.Inputs, scenario.Analysis, bgp);
+        var analysis = AnalysisRunner.Run(scenario.Inputs, scenario.Analysis, bgp, maxThreads);
         ResultsGuard.EnsureFinite(analysis);
         return new SolvedScenario(scenario, bgp, analysis);
     }

@@ -55,6 +55,8 @@ public static class BuildCommand
         var dirs = files.Select(f => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(f) ?? ".", "out")).Distinct().ToList();
         foreach (var dir in dirs) AtomicFile.CleanStale(dir);
         var outcomes = new BriefOutcome[files.Count];
+        // Several briefs at once already keep the cores busy; the model's own loops then stay on their brief's thread.
+        if (jobs > 1 && files.Count > 1) settings = settings with { Options = settings.Options with { ModelThreads = 1 } };
         Parallel.For(0, files.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, jobs) }, i =>
         {
             outcomes[i] = BatchBuilder.BuildOne(files[i], settings, error);

@@ -20,33 +20,34 @@ public static class AnalysisRunner
 {
     public static readonly string[] SobolOutputs = { "headline_long_run_change_pct", "optimum_schooling_years", "headline_present_value" };
 
-    public static AnalysisResults Run(ModelInputs inputs, AnalysisSettings settings, BalancedGrowthResults bgp)
+    /// <param name="maxThreads">Threads the Monte Carlo, Sobol and sensitivity loops may use (<see cref="ModelThreads"/>).</param>
+    public static AnalysisResults Run(ModelInputs inputs, AnalysisSettings settings, BalancedGrowthResults bgp, int maxThreads = ModelThreads.AllCores)
     {
         double guess = bgp.Optimum.SchoolingYears;
         var reform = Appraisal.Run(inputs, settings.Reform, settings.Discounts, guess);
-        var tornado = Sensitivity.Tornado(inputs, settings, guess);
-        var grids = settings.Grids.Select(g => Sensitivity.Grid(inputs, settings, g, guess)).ToList();
+        var tornado = Sensitivity.Tornado(inputs, settings, guess, maxThreads);
+        var grids = settings.Grids.Select(g => Sensitivity.Grid(inputs, settings, g, guess, maxThreads)).ToList();
         MonteCarloResults? mc = null;
         GlobalSensitivity? sobol = null;
         if (settings.MonteCarlo is { } spec)
         {
-            mc = MonteCarlo.Run(inputs, settings, guess);
-            if (spec.SobolSamples > 0) sobol = Sobol(inputs, settings, spec, guess);
+            mc = MonteCarlo.Run(inputs, settings, guess, maxThreads);
+            if (spec.SobolSamples > 0) sobol = Sobol(inputs, settings, spec, guess, maxThreads);
         }
         return new AnalysisResults(settings.HeadlineOptionId, reform, tornado, grids, mc, sobol);
     }
 
-    private static GlobalSensitivity Sobol(ModelInputs inputs, AnalysisSettings settings, MonteCarloSpec spec, double guess)
+    private static GlobalSensitivity Sobol(ModelInputs inputs, AnalysisSettings settings, MonteCarloSpec spec, double guess, int maxThreads)
     {
-        int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);
         var names = spec.Parameters.Select(p => p.Parameter).ToList();
         var indices = Uncertainty.Sobol.Estimate(spec.Parameters.Count, spec.SobolSamples, spec.Seed ^ 0x5AB0_1D5EUL, names, u =>
         {
             var trial = MonteCarlo.Apply(inputs, spec.Parameters, u);
             if (Parameters.Violation(trial) is not null) return null;
-            var k = KeyResultsEvaluator.Evaluate(trial, settings, guess, keepHeadlinePath: false);
-            return new[] { k.LongRunChangePct[headline], k.OptimumYears, k.PresentValue[headline] };
-        });
+            // Only the headline option's results are used, so only its reform path is simulated.
+            var k = KeyResultsEvaluator.Evaluate(trial, settings, guess, keepHeadlinePath: false, headlineOnly: true);
+            return new[] { k.LongRunChangePct[0], k.OptimumYears, k.PresentValue[0] };
+        }, maxThreads);
         return new GlobalSensitivity(SobolOutputs, indices);
     }
 }

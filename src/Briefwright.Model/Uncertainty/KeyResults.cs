@@ -15,9 +15,10 @@ public sealed record KeyResults(
 /// <summary>Evaluates the key results quickly enough to repeat thousands of times.</summary>
 public static class KeyResultsEvaluator
 {
-    public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool keepHeadlinePath)
+    /// <param name="headlineOnly">Evaluate the headline option alone (the result lists then hold just it).</param>
+    public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool keepHeadlinePath, bool headlineOnly = false)
     {
-        var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
+        var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId && (!headlineOnly || o.Id == settings.HeadlineOptionId)).ToList();
         var cache = new ReformSimulator.Cache(fast: true);
         double baseY = cache.OutputPerPerson(inputs, inputs.Baseline);
         var change = new double[alternatives.Count];

@@ -49,13 +49,13 @@ public static class MonteCarlo
     /// over threads. A draw whose inputs break a model rule is rejected, counted and replaced by the next attempt of
     /// the same stream.
     /// </summary>
-    public static MonteCarloResults Run(ModelInputs inputs, AnalysisSettings settings, double optimumGuess)
+    public static MonteCarloResults Run(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, int maxThreads = ModelThreads.AllCores)
     {
         var spec = settings.MonteCarlo ?? throw new ArgumentException("No Monte Carlo settings.");
         int d = spec.Parameters.Count;
         var results = new KeyResults?[spec.Draws];
         var rejected = new int[spec.Draws];
-        Parallel.For(0, spec.Draws, i =>
+        Parallel.For(0, spec.Draws, ModelThreads.Options(maxThreads), i =>
         {
             var rng = SplitMix64.ForStream(spec.Seed, (ulong)i);
             Span<double> u = stackalloc double[d];
@@ -79,7 +79,7 @@ public static class MonteCarlo
             accepted.Count(r => r.LongRunChangePct[k] > 0) / (double)accepted.Count,
             accepted.Count(r => r.PresentValue[k] > 0) / (double)accepted.Count)).ToList();
         int horizon = settings.Reform.HorizonYears;
-        var fan = Enumerable.Range(0, horizon + 1).AsParallel().AsOrdered()
+        var fan = Enumerable.Range(0, horizon + 1).AsParallel().AsOrdered().Limit(maxThreads)
             .Select(t => Percentiles.Of(accepted.Select(r => r.HeadlinePath![t]).ToArray())).ToList();
         int headline = ids.ToList().IndexOf(settings.HeadlineOptionId);
         return new MonteCarloResults(accepted.Count, rejected.Sum(), spec.Seed, options,

@@ -12,10 +12,10 @@ public sealed record GridResult(GridSpec Spec, double[] X, double[] Y, double?[]
 public static class Sensitivity
 {
     /// <summary>One-at-a-time ranges, sorted by the swing in the headline option's long-run change (largest first).</summary>
-    public static IReadOnlyList<TornadoRow> Tornado(ModelInputs inputs, AnalysisSettings settings, double optimumGuess)
+    public static IReadOnlyList<TornadoRow> Tornado(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, int maxThreads = ModelThreads.AllCores)
     {
         int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);
-        var rows = settings.Ranges.AsParallel().AsOrdered().Select(range =>
+        var rows = settings.Ranges.AsParallel().AsOrdered().Limit(maxThreads).Select(range =>
         {
             var def = Parameters.Find(range.Parameter) ?? throw new ArgumentException($"Unknown parameter {range.Parameter}.");
             var low = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.Low), settings, optimumGuess, false);
@@ -25,7 +25,7 @@ public static class Sensitivity
         return rows.OrderByDescending(r => r.Swing).ThenBy(r => r.Parameter, StringComparer.Ordinal).ToList();
     }
 
-    public static GridResult Grid(ModelInputs inputs, AnalysisSettings settings, GridSpec spec, double optimumGuess)
+    public static GridResult Grid(ModelInputs inputs, AnalysisSettings settings, GridSpec spec, double optimumGuess, int maxThreads = ModelThreads.AllCores)
     {
         var dx = Parameters.Find(spec.X)!;
         var dy = Parameters.Find(spec.Y)!;
@@ -34,7 +34,7 @@ public static class Sensitivity
         var ys = Axis(spec.YLow, spec.YHigh);
         int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);
         int invalid = 0;
-        var values = xs.AsParallel().AsOrdered().Select(x => ys.Select(double? (y) =>
+        var values = xs.AsParallel().AsOrdered().Limit(maxThreads).Select(x => ys.Select(double? (y) =>
         {
             var trial = dy.Set(dx.Set(inputs, x), y);
             if (Parameters.Violation(trial) is not null) { Interlocked.Increment(ref invalid); return null; }

@@ -11,7 +11,7 @@ public sealed record SobolIndices(IReadOnlyList<string> Inputs, double[] FirstOr
 public static class Sobol
 {
     /// <param name="f">The model on the unit cube: d uniforms in (0,1) to several outputs.</param>
-    public static IReadOnlyList<SobolIndices> Estimate(int d, int n, ulong seed, IReadOnlyList<string> inputNames, Func<double[], double[]?> f)
+    public static IReadOnlyList<SobolIndices> Estimate(int d, int n, ulong seed, IReadOnlyList<string> inputNames, Func<double[], double[]?> f, int maxThreads = ModelThreads.AllCores)
     {
         var a = new double[n][];
         var b = new double[n][];
@@ -26,7 +26,7 @@ public static class Sobol
         var fa = new double[]?[n];
         var fb = new double[]?[n];
         var fab = new double[]?[d, n];
-        Parallel.For(0, n, r =>
+        Parallel.For(0, n, ModelThreads.Options(maxThreads), r =>
         {
             fa[r] = f(a[r]);
             fb[r] = f(b[r]);
