@@ -38,6 +38,12 @@ public sealed record ResultsDocument(
         analysis);
 }
 
+/// <summary>Serialisation code generated at build time: no reflection when a process writes its first brief.</summary>
+[JsonSourceGenerationOptions(PropertyNamingPolicy = JsonKnownNamingPolicy.SnakeCaseLower, WriteIndented = true)]
+[JsonSerializable(typeof(ResultsDocument))]
+[JsonSerializable(typeof(List<ResultsDocument>))]
+internal sealed partial class ResultsJsonContext : JsonSerializerContext;
+
 public static class ResultsJson
 {
     public static readonly JsonSerializerOptions Options = new()
@@ -45,6 +51,7 @@ public static class ResultsJson
         PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
         WriteIndented = true,
         Converters = { new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower) },
+        TypeInfoResolver = ResultsJsonContext.Default,
     };
 
     public static string Write(ResultsDocument document) => JsonSerializer.Serialize(document, Options) + "\n";

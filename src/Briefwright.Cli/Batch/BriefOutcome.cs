@@ -19,6 +19,7 @@ public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Sta
         PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
         Converters = { new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower) },
         DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
+        TypeInfoResolver = BatchJsonContext.Default,
     };
 
     public string LogLine() => JsonSerializer.Serialize(this, Json);

@@ -8,7 +8,12 @@ namespace Briefwright.Cli.Batch;
 /// </summary>
 public sealed record Manifest(string Id, string Stem, int Edition, string Hash, IReadOnlyDictionary<string, string> Inputs, IReadOnlyList<string> Files)
 {
-    private static readonly JsonSerializerOptions Json = new() { WriteIndented = true, PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower };
+    private static readonly JsonSerializerOptions Json = new()
+    {
+        WriteIndented = true,
+        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
+        TypeInfoResolver = BatchJsonContext.Default,
+    };
 
     public static string PathFor(string outDir, string id) => Path.Combine(outDir, id + ".manifest.json");
 
@@ -30,3 +35,8 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
 
     public bool FilesPresent(string outDir) => Files.All(f => File.Exists(Path.Combine(outDir, f)));
 }
+
+/// <summary>Serialisation code for the manifest and the build log, generated at build time.</summary>
+[System.Text.Json.Serialization.JsonSerializable(typeof(Manifest))]
+[System.Text.Json.Serialization.JsonSerializable(typeof(BriefOutcome))]
+internal sealed partial class BatchJsonContext : System.Text.Json.Serialization.JsonSerializerContext;
