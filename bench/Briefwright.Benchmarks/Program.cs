@@ -16,6 +16,19 @@ if (args.Length > 0 && args[0] == "profile-model")
     Console.WriteLine($"{watch.Elapsed.TotalMilliseconds / n:0.0} ms, {(GC.GetTotalAllocatedBytes(true) - bytes) / n / 1e6:0.0} MB allocated and {(GC.CollectionCount(0) - gcs) / (double)n:0.0} gen-0 collections per solve; GC pause {GC.GetTotalPauseDuration().TotalMilliseconds / n:0.0} ms");
     return;
 }
+if (args.Length > 0 && args[0] == "profile-paths")
+{
+    var b = new BriefBenchmarks();
+    b.Setup();
+    var inputs = b.Scenario.Inputs;
+    var alts = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
+    for (int r = 0; r < 100_000; r++)
+    {
+        var c = new Briefwright.Model.Dynamics.ReformSimulator.Cache(true);
+        foreach (var o in alts) Briefwright.Model.Dynamics.ReformSimulator.Simulate(inputs, o, b.Scenario.Analysis.Reform, c);
+    }
+    return;
+}
 if (args.Length > 0 && args[0] == "dynamic")
 {
     var b = new BriefBenchmarks();
@@ -36,14 +49,17 @@ if (args.Length > 0 && args[0] == "draw")
     double guess = Briefwright.Model.Core.BalancedGrowth.Solve(inputs).Optimum.SchoolingYears;
     var alts = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
     double[] u = { 0.3, 0.6, 0.4, 0.55, 0.45 };
-    Harness.Time("apply draw", 2000, () => Briefwright.Model.Uncertainty.MonteCarlo.Apply(inputs, spec.Parameters, u));
-    Harness.Time("population", 2000, () => new Briefwright.Model.Dynamics.ReformSimulator.Cache(true).Population(inputs));
-    Harness.Time("population+4 outputs", 2000, () => { var c = new Briefwright.Model.Dynamics.ReformSimulator.Cache(true); foreach (var o in inputs.Options) c.OutputPerPerson(inputs, o); });
-    Harness.Time("3 paths (cache with outputs)", 2000, () => { var c = new Briefwright.Model.Dynamics.ReformSimulator.Cache(true); foreach (var o in inputs.Options) c.OutputPerPerson(inputs, o); foreach (var o in alts) Briefwright.Model.Dynamics.ReformSimulator.Simulate(inputs, o, settings.Reform, c); });
+    var kernel = Briefwright.Model.Numerics.TiltedKernel.For(inputs.Demography.Survival, 0)!;
+    Harness.Time("kernel integral 0-110 (3-point)", 50, () => kernel.Integrate(0, 110, -0.01, inputs.Demography.Survival.Breakpoints, true));
+    Harness.Time("kernel lookup", 50, () => Briefwright.Model.Numerics.TiltedKernel.For(inputs.Demography.Survival, 0));
+    Harness.Time("apply draw", 50, () => Briefwright.Model.Uncertainty.MonteCarlo.Apply(inputs, spec.Parameters, u));
+    Harness.Time("population", 50, () => new Briefwright.Model.Dynamics.ReformSimulator.Cache(true).Population(inputs));
+    Harness.Time("population+4 outputs", 50, () => { var c = new Briefwright.Model.Dynamics.ReformSimulator.Cache(true); foreach (var o in inputs.Options) c.OutputPerPerson(inputs, o); });
+    Harness.Time("3 paths (cache with outputs)", 50, () => { var c = new Briefwright.Model.Dynamics.ReformSimulator.Cache(true); foreach (var o in inputs.Options) c.OutputPerPerson(inputs, o); foreach (var o in alts) Briefwright.Model.Dynamics.ReformSimulator.Simulate(inputs, o, settings.Reform, c); });
     var path = Briefwright.Model.Dynamics.ReformSimulator.Simulate(inputs, alts[0], settings.Reform);
-    Harness.Time("1 PV", 2000, () => Briefwright.Model.Dynamics.PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
-    Harness.Time("local optimum (fast)", 2000, () => Briefwright.Model.Core.OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, guess, new Briefwright.Model.Dynamics.ReformSimulator.Cache(true).Population(inputs), fast: true));
-    Harness.Time("evaluate", 2000, () => Briefwright.Model.Uncertainty.KeyResultsEvaluator.Evaluate(inputs, settings, guess, true));
+    Harness.Time("1 PV", 50, () => Briefwright.Model.Dynamics.PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
+    Harness.Time("local optimum (fast)", 50, () => Briefwright.Model.Core.OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, guess, new Briefwright.Model.Dynamics.ReformSimulator.Cache(true).Population(inputs), fast: true));
+    Harness.Time("evaluate", 50, () => Briefwright.Model.Uncertainty.KeyResultsEvaluator.Evaluate(inputs, settings, guess, true));
     return;
 }
 if (args.Length > 0 && args[0] == "quick")
@@ -112,13 +128,18 @@ namespace Briefwright.Benchmarks
 
         public static void Time(string what, int runs, Action action)
         {
-            action();
+            // Warm up long enough for tiered compilation to replace the first, unoptimised code (it waits ~100 ms).
+            var warm = Stopwatch.StartNew();
+            int calls = 0;
+            for (; calls < 2000 && (calls < 2 || warm.ElapsedMilliseconds < 400); calls++) action();
+            // Time batches of at least ~2 ms: reading the clock costs microseconds on some virtual machines.
+            int batch = Math.Max(1, (int)Math.Ceiling(2.0 / Math.Max(1e-6, warm.Elapsed.TotalMilliseconds / calls)));
             var times = new List<double>();
             for (int i = 0; i < runs; i++)
             {
                 var sw = Stopwatch.StartNew();
-                action();
-                times.Add(sw.Elapsed.TotalMilliseconds);
+                for (int k = 0; k < batch; k++) action();
+                times.Add(sw.Elapsed.TotalMilliseconds / batch);
             }
             times.Sort();
             string unit = times[0] < 1 ? "µs" : "ms";

@@ -40,6 +40,24 @@ public class ReformSimulatorTests
         Assert.All(path.Gain, g => Assert.True(Math.Abs(g) < 1e-12, g.ToString()));
     }
 
+    [Theory]
+    [InlineData(1, 0.01)]
+    [InlineData(5, 0.0)]
+    [InlineData(3, -0.005)]
+    public void Labour_is_evaluated_once_after_the_last_reform_cohort_reaches_retirement_without_changing_the_path(int phaseIn, double n)
+    {
+        // Once every cohort of working age entered school after the phase-in, x(t) is constant; the simulator reuses
+        // it there. The path must be identical, digit for digit, to evaluating x(t) at every step.
+        var inputs = Inputs(n: n, experience: new ExperienceProfile(0.05, 0.0007));
+        var settings = new ReformSettings(2027, phaseIn, 150);
+        foreach (var option in inputs.Options.Where(o => o.Id != "base"))
+        {
+            var quick = ReformSimulator.Simulate(inputs, option, settings, null, settledShortcut: true);
+            var full = ReformSimulator.Simulate(inputs, option, settings, null, settledShortcut: false);
+            Assert.Equal(full.Gain, quick.Gain);
+        }
+    }
+
     [Fact]
     public void Longer_schooling_dips_first_then_turns_positive()
     {

@@ -120,6 +120,26 @@ public class UncertaintyTests
         }
 
         [Fact]
+        public void Tornado_rows_that_do_not_move_the_result_tie_and_are_ordered_by_name()
+        {
+            // The long-run change is a ratio of outputs per person, so ŷ* cancels: saving rate, depreciation and the
+            // capital share leave it unchanged (their swings are zero up to rounding). They must come after the
+            // parameter that matters, alphabetically, whatever the last digits.
+            var inputs = ReformSimulatorTests.Inputs();
+            var settings = Settings() with
+            {
+                Ranges = new[]
+                {
+                    new SensitivityRange("saving_rate", 0.18, 0.26), new SensitivityRange("depreciation", 0.02, 0.05),
+                    new SensitivityRange("population_growth", 0.0, 0.02), new SensitivityRange("capital_share", 0.28, 0.38),
+                },
+            };
+            var rows = Sensitivity.Tornado(inputs, settings, 34);
+            Assert.Equal(new[] { "population_growth", "capital_share", "depreciation", "saving_rate" }, rows.Select(r => r.Parameter));
+            Assert.All(rows.Skip(1), r => Assert.True(r.Swing < 1e-9));
+        }
+
+        [Fact]
         public void Headline_only_evaluation_matches_the_headline_entry_of_the_full_one()
         {
             // Sobol runs evaluate the headline option alone; its numbers must be those of the full evaluation.

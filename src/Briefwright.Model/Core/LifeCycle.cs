@@ -45,6 +45,8 @@ public sealed class LifeCycle
             double n = demography.GrowthRate, length = to - from;
             return Math.Exp(-n * from) * length * Stable.RelativeExpm1(-n * length);
         }
+        if (TiltedKernel.Safe(demography.GrowthRate, to) && TiltedKernel.For(demography.Survival, 0) is { } kernel)
+            return kernel.Integrate(from, to, -demography.GrowthRate, demography.Survival.Breakpoints, fast);
         return Quadrature.Integrate(Density, from, to, demography.Survival.Breakpoints, fast);
     }
 
@@ -83,10 +85,16 @@ public sealed class LifeCycle
         double num = ExperienceWeightedYears(schooling);
         if (!(num > 0)) return double.NegativeInfinity;
         double slopeTerm = 0.0;
-        if (humanCapital.Experience is { } exp)
+        if (humanCapital.Experience is { } exp && TiltedKernel.ForCohort(demography, exp, start, WorkEnd) is { } t)
+        {
+            // (β₁ − 2β₂x) = (β₁ + 2β₂s) − 2β₂a, the same factor as below written as c₀ + c₁a.
+            slopeTerm = Math.Exp(t.LogScale) * t.Kernel.Integrate(start, WorkEnd, t.Lambda, demography.Survival.Breakpoints, fast,
+                exp.Linear + 2 * exp.Quadratic * start, -2 * exp.Quadratic);
+        }
+        else if (humanCapital.Experience is { } direct)
         {
             slopeTerm = Quadrature.Integrate(
-                a => Density(a) * Math.Exp(exp.LogPremium(a - start)) * (exp.Linear - 2 * exp.Quadratic * (a - start)),
+                a => Density(a) * Math.Exp(direct.LogPremium(a - start)) * (direct.Linear - 2 * direct.Quadratic * (a - start)),
                 start, WorkEnd, demography.Survival.Breakpoints, fast);
         }
         return humanCapital.Returns.MarginalReturn(schooling) - (Density(start) + slopeTerm) / num;
@@ -96,6 +104,8 @@ public sealed class LifeCycle
     {
         double start = demography.EntryAge + schooling;
         if (humanCapital.Experience is not { } exp) return PersonYears(start, WorkEnd);
+        if (TiltedKernel.ForCohort(demography, exp, start, WorkEnd) is { } t)
+            return Math.Exp(t.LogScale) * t.Kernel.Integrate(start, WorkEnd, t.Lambda, demography.Survival.Breakpoints, fast);
         return Quadrature.Integrate(a => Density(a) * Math.Exp(exp.LogPremium(a - start)), start, WorkEnd, demography.Survival.Breakpoints, fast);
     }
 }

@@ -28,6 +28,18 @@ internal sealed class CohortLabour
         int count = end > start ? (int)Math.Ceiling((end - start) / Step) + 1 : 1;
         values = new double[count];
         slopes = new double[count];
+        if (TiltedKernel.ForCohort(d, experience, start, end) is { } t)
+        {
+            t.Kernel.YearlyPieces(start, end, t.Lambda, d.Survival.Breakpoints, fast: true, values, slopes);
+            double scale = Math.Exp(t.LogScale);
+            slopes[0] *= scale;
+            for (int i = 1; i < count; i++)
+            {
+                values[i] = values[i - 1] + scale * values[i];
+                slopes[i] *= scale;
+            }
+            return;
+        }
         slopes[0] = Integrand(start);
         for (int i = 1; i < count; i++)
         {

@@ -39,7 +39,11 @@ public static class ReformSimulator
         }
     }
 
-    public static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache = null)
+    public static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache = null) =>
+        Simulate(inputs, reform, settings, cache, settledShortcut: true);
+
+    /// <param name="settledShortcut">Reuse x(t) once every working cohort is a reform cohort; off only to test that it changes nothing.</param>
+    internal static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache, bool settledShortcut)
     {
         var baseline = inputs.Baseline;
         if (reform.Id == baseline.Id) return ReformPath.Flat(reform.Id, settings.HorizonYears);
@@ -96,13 +100,18 @@ public static class ReformSimulator
         int horizon = settings.HorizonYears;
         var gain = new double[horizon + 1];
         int stepsPerYear = (int)Math.Round(1 / h);
+        // From R − a₀ + k years on, every cohort of working age entered school after the phase-in, so x(t) no longer
+        // changes: it is evaluated once there instead of at every step (the same numbers, fewer table look-ups).
+        double settled = settledShortcut ? after.RetirementAge - after.EntryAge + k : double.PositiveInfinity;
+        double xSettled = settledShortcut ? X(settled) : double.NaN;
         double xNow = X(0), fNow = Forcing(xNow);
         gain[0] = Output(z, xNow) / y0 - 1;
         for (int year = 0; year < horizon; year++)
         {
             for (int step = 0; step < stepsPerYear; step++)
             {
-                double xNext = X(year + (step + 1) * h), fNext = Forcing(xNext);
+                double t = year + (step + 1) * h;
+                double xNext = t >= settled ? xSettled : X(t), fNext = t >= settled && xNow == xSettled ? fNow : Forcing(xNext);
                 z = z * decay + beta * (w0 * fNow + w1 * fNext);
                 xNow = xNext;
                 fNow = fNext;

@@ -3,18 +3,18 @@ namespace Briefwright.Model.Numerics;
 /// <summary>Composite 5-point Gauss–Legendre quadrature on panels at most one unit wide.</summary>
 public static class Quadrature
 {
-    private static readonly double[] Nodes =
+    internal static readonly double[] Nodes5 =
     {
         -0.9061798459386640, -0.5384693101056831, 0.0, 0.5384693101056831, 0.9061798459386640,
     };
 
-    private static readonly double[] Weights =
+    internal static readonly double[] Weights5 =
     {
         0.2369268850561891, 0.4786286704993665, 0.5688888888888889, 0.4786286704993665, 0.2369268850561891,
     };
 
-    private static readonly double[] Nodes3 = { -0.7745966692414834, 0.0, 0.7745966692414834 };
-    private static readonly double[] Weights3 = { 0.5555555555555556, 0.8888888888888888, 0.5555555555555556 };
+    internal static readonly double[] Nodes3 = { -0.7745966692414834, 0.0, 0.7745966692414834 };
+    internal static readonly double[] Weights3 = { 0.5555555555555556, 0.8888888888888888, 0.5555555555555556 };
 
     /// <summary>Three-point Gauss–Legendre on one panel (exact for polynomials of degree 5): for tables built thousands of times.</summary>
     public static double Panel3(Func<double, double> f, double a, double b)
@@ -50,7 +50,7 @@ public static class Quadrature
     private static double Panel(Func<double, double> f, double a, double b)
     {
         double half = 0.5 * (b - a), mid = 0.5 * (a + b), s = 0.0;
-        for (int i = 0; i < Nodes.Length; i++) s += Weights[i] * f(mid + half * Nodes[i]);
+        for (int i = 0; i < Nodes5.Length; i++) s += Weights5[i] * f(mid + half * Nodes5[i]);
         return s * half;
     }
 }

@@ -22,7 +22,9 @@ public static class Sensitivity
             var high = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.High), settings, optimumGuess, false);
             return new TornadoRow(range.Parameter, def.Label, range.Low, range.High, low, high, Math.Abs(high.LongRunChangePct[headline] - low.LongRunChangePct[headline]));
         }).ToList();
-        return rows.OrderByDescending(r => r.Swing).ThenBy(r => r.Parameter, StringComparer.Ordinal).ToList();
+        // Swings equal to rounding (parameters that do not move the long-run change) tie and are ordered by name, so
+        // the order does not flip on a last-digit difference.
+        return rows.OrderByDescending(r => Math.Round(r.Swing, 9)).ThenBy(r => r.Parameter, StringComparer.Ordinal).ToList();
     }
 
     public static GridResult Grid(ModelInputs inputs, AnalysisSettings settings, GridSpec spec, double optimumGuess, int maxThreads = ModelThreads.AllCores)
