@@ -61,6 +61,7 @@ public static class BatchBuilder
             if (!settings.Force && previous is not null && previous.Hash == hash && previous.FilesPresent(dir))
                 return new BriefOutcome(file, id, OutcomeStatus.Skipped, previous.Edition, Path.Combine(dir, previous.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null);
 
+            WarmUp.Start(); // this brief will be built: let the output libraries start up while its model runs
             bool newEdition = previous is not null && previous.Hash != hash && previous.FilesPresent(dir);
             int edition = newEdition ? Math.Max(scenario.Brief.Edition, previous!.Edition + 1) : Math.Max(scenario.Brief.Edition, previous?.Edition ?? 0);
             scenario = scenario with { Brief = scenario.Brief with { Edition = edition } };
