@@ -33,18 +33,6 @@ public class ModelBenchmarks
     [Benchmark]
     public object KeyResultsOneDraw() => KeyResultsEvaluator.Evaluate(scenario.Inputs, tenThousand, guess + 1.3, true);
 
-    public double Outputs()
-    {
-        var cache = new ReformSimulator.Cache();
-        return scenario.Inputs.Options.Sum(o => cache.OutputPerPerson(scenario.Inputs, o));
-    }
-
-    public double ThreePaths()
-    {
-        var cache = new ReformSimulator.Cache();
-        return scenario.Inputs.Options.Skip(1).Sum(o => ReformSimulator.Simulate(scenario.Inputs, o, scenario.Analysis.Reform, cache).LongRunGain);
-    }
-
     [Benchmark]
     public object MonteCarlo10k() => MonteCarlo.Run(scenario.Inputs, tenThousand, guess);
 }

@@ -19,16 +19,20 @@ namespace Briefwright.Brief;
 /// </summary>
 public static class BriefBuilder
 {
-    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null)
+    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null) =>
+        Compose(ScenarioSolver.Solve(scenario, (options ?? BuildOptions.Default).ModelThreads), template, options);
+
+    /// <summary>Everything after the model: charts, results data, filled template, layout and PDF.</summary>
+    public static BuiltBrief Compose(SolvedScenario solved, BriefTemplate template, BuildOptions? options = null)
     {
         options ??= BuildOptions.Default;
+        var scenario = solved.Scenario;
         string? family = null;
         if (options.Fonts is { } fonts)
         {
             family = BundledFonts.Register(fonts.Regular, fonts.Bold, fonts.Italic, fonts.BoldItalic);
             ChartFont.Register(family, fonts.Regular, fonts.Bold);
         }
-        var solved = ScenarioSolver.Solve(scenario, options.ModelThreads);
         var results = solved.BalancedGrowth;
         var charts = RenderCharts(solved, options.ChartImages, family);
         var resultsDocument = ResultsDocument.From(scenario, results, solved.Analysis);

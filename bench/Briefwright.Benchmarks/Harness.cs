@@ -1,0 +1,124 @@
+using System.Diagnostics;
+using Briefwright.Brief;
+using Briefwright.Brief.Annex;
+using Briefwright.Composer;
+using Briefwright.Composer.Document;
+using Briefwright.Composer.Markdown;
+using Briefwright.Model.Core;
+using Briefwright.Model.Dynamics;
+using Briefwright.Model.Uncertainty;
+
+namespace Briefwright.Benchmarks;
+
+/// <summary>A stopwatch harness: warm up until tiered compilation has settled, then report the best and median of timed batches.</summary>
+public static class Harness
+{
+    public static void Run()
+    {
+        var m = new ModelBenchmarks();
+        m.Setup();
+        Console.WriteLine("model");
+        Time("  solve a scenario (balanced growth + optimum)", 20, () => m.SolveBalancedGrowth());
+        Time("  reform path (150 years)", 50, () => m.ReformPath());
+        Time("  Monte Carlo, 10,000 draws with reform paths", 3, () => m.MonteCarlo10k());
+        var b = new BriefBenchmarks();
+        b.Setup();
+        Console.WriteLine("briefs, in process (warm)");
+        Time("  demo brief: lay out and write (model solved)", 10, () => b.ComposeDemoBrief());
+        Time("  demo brief: model and composition", 10, () => b.BuildDemoBrief());
+        Time("  regional brief (200 draws): model and composition", 10, () => b.BuildLightBrief());
+        Stages(b);
+    }
+
+    /// <summary>Each stage of the demo brief on its own, to see where the time goes.</summary>
+    private static void Stages(BriefBenchmarks b)
+    {
+        var scenario = b.Scenario;
+        var inputs = scenario.Inputs;
+        var settings = scenario.Analysis;
+        double guess = BalancedGrowth.Solve(inputs).Optimum.SchoolingYears;
+        Console.WriteLine("demo brief by stage");
+        Time("  balanced growth + optimum", 10, () => BalancedGrowth.Solve(inputs));
+        Time("  reform paths + appraisal", 10, () => Appraisal.Run(inputs, settings.Reform, settings.Discounts, guess));
+        Time("  tornado", 10, () => Sensitivity.Tornado(inputs, settings, guess));
+        Time("  grids", 10, () => settings.Grids.Select(g => Sensitivity.Grid(inputs, settings, g, guess)).ToList());
+        Time("  Monte Carlo (2,000 draws)", 5, () => MonteCarlo.Run(inputs, settings, guess));
+        Time("  whole model (with Sobol indices)", 5, () => ScenarioSolver.Solve(scenario));
+        var solved = ScenarioSolver.Solve(scenario);
+        Time("  six charts", 10, () => BriefBuilder.RenderCharts(solved));
+        var charts = BriefBuilder.RenderCharts(solved);
+        Time("  results JSON", 10, () => ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis)));
+        Time("  fill template", 10, () => BriefBuilder.FillTemplate(solved, charts, StandardTemplate.Template));
+        string markdown = BriefBuilder.FillTemplate(solved, charts, StandardTemplate.Template);
+        var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
+        Time("  read Markdown", 10, () => MarkdownReader.Read(markdown, figures));
+        var info = new DocumentInfo("t", "t", "a", "s", "k", "en-GB", scenario.Brief.Date, "Edition 1", "footer");
+        var doc = new BriefDocument(info, MarkdownReader.Read(markdown, figures));
+        Time("  layout", 10, () => DocumentComposer.Layout(doc, Composer.Layout.Theme.For(doc.Paper), DocumentComposer.Measurer));
+        Time("  layout + write PDF", 10, () => DocumentComposer.WritePdf(doc));
+        Time("  annex files", 10, () => AnnexFiles.Build(solved, charts));
+    }
+
+    /// <summary>One Monte Carlo draw of the demo, piece by piece.</summary>
+    public static void Draw()
+    {
+        var b = new BriefBenchmarks();
+        b.Setup();
+        var inputs = b.Scenario.Inputs;
+        var settings = b.Scenario.Analysis;
+        double guess = BalancedGrowth.Solve(inputs).Optimum.SchoolingYears;
+        var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
+        double[] u = { 0.3, 0.6, 0.4, 0.55, 0.45 };
+        Time("apply a draw to the inputs", 50, () => MonteCarlo.Apply(inputs, settings.MonteCarlo!.Parameters, u));
+        Time("population integral", 50, () => new ReformSimulator.Cache(true).Population(inputs));
+        Time("population + four options' outputs", 50, () =>
+        {
+            var c = new ReformSimulator.Cache(true);
+            foreach (var o in inputs.Options) c.OutputPerPerson(inputs, o);
+        });
+        Time("the same + three reform paths", 50, () =>
+        {
+            var c = new ReformSimulator.Cache(true);
+            foreach (var o in inputs.Options) c.OutputPerPerson(inputs, o);
+            foreach (var o in alternatives) ReformSimulator.Simulate(inputs, o, settings.Reform, c);
+        });
+        var path = ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform);
+        Time("one present value", 50, () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
+        Time("local optimum search", 50, () => OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, guess, new ReformSimulator.Cache(true).Population(inputs), fast: true));
+        Time("whole draw (key results)", 50, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, true));
+    }
+
+    /// <summary>The demo's whole model, repeated, with allocation and collection counts.</summary>
+    public static void ProfileModel(int n)
+    {
+        var b = new BriefBenchmarks();
+        b.Setup();
+        long bytes = GC.GetTotalAllocatedBytes(true);
+        int gcs = GC.CollectionCount(0);
+        var watch = Stopwatch.StartNew();
+        for (int i = 0; i < n; i++) ScenarioSolver.Solve(b.Scenario);
+        Console.WriteLine($"{watch.Elapsed.TotalMilliseconds / n:0.0} ms, {(GC.GetTotalAllocatedBytes(true) - bytes) / n / 1e6:0.0} MB allocated and {(GC.CollectionCount(0) - gcs) / (double)n:0.0} gen-0 collections per solve");
+    }
+
+    public static void Time(string what, int runs, Action action)
+    {
+        // Warm up long enough for tiered compilation to replace the first, unoptimised code (it waits ~100 ms).
+        var warm = Stopwatch.StartNew();
+        int calls = 0;
+        for (; calls < 2000 && (calls < 3 || warm.ElapsedMilliseconds < 500); calls++) action();
+        // Time batches of at least ~2 ms: reading the clock costs microseconds on some virtual machines.
+        int batch = Math.Max(1, (int)Math.Ceiling(2.0 / Math.Max(1e-6, warm.Elapsed.TotalMilliseconds / calls)));
+        var times = new List<double>();
+        for (int i = 0; i < runs; i++)
+        {
+            var sw = Stopwatch.StartNew();
+            for (int k = 0; k < batch; k++) action();
+            times.Add(sw.Elapsed.TotalMilliseconds / batch);
+        }
+        times.Sort();
+        bool micro = times[0] < 1;
+        double scale = micro ? 1000 : 1;
+        string unit = micro ? "µs" : "ms";
+        Console.WriteLine($"{what,-56} best {times[0] * scale,8:0.0} {unit}   median {times[times.Count / 2] * scale,8:0.0} {unit}   ({runs} runs)");
+    }
+}
