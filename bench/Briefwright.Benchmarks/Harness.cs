@@ -47,6 +47,10 @@ public static class Harness
         var solved = ScenarioSolver.Solve(scenario);
         Time("  six charts", 10, () => BriefBuilder.RenderCharts(solved));
         var charts = BriefBuilder.RenderCharts(solved);
+        Time("  six charts with SVG and PNG copies (annex)", 5, () => BriefBuilder.RenderCharts(solved, withImages: true));
+        var plot = Charts.SchoolingCharts.OutputCurve(solved.BalancedGrowth);
+        Time("    one chart as PNG", 5, () => Charts.ChartRenderer.ToPng(plot));
+        Time("    one chart as SVG", 5, () => Charts.ChartRenderer.ToSvg(plot));
         Time("  results JSON", 10, () => ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis)));
         Time("  fill template", 10, () => BriefBuilder.FillTemplate(solved, charts, StandardTemplate.Template));
         string markdown = BriefBuilder.FillTemplate(solved, charts, StandardTemplate.Template);

@@ -69,7 +69,7 @@ public static class BriefBuilder
 
     public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false, string? family = null)
     {
-        ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
+        InstallChartFont();
         ChartFont.Use(family ?? ChartFont.Family);
         var scenario = solved.Scenario;
         var results = solved.BalancedGrowth;
@@ -90,6 +90,9 @@ public static class BriefBuilder
         charts.AddRange(AnalysisChartSet.Specs(solved, source));
         return ChartSpec.RenderAll(charts, withImages);
     }
+
+    /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>
+    public static void InstallChartFont() => ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
 
     public static string Sha256(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
 }

@@ -26,7 +26,7 @@ public static class WarmUp
     {
         try
         {
-            ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
+            BriefBuilder.InstallChartFont();
             var plot = new ScottPlot.Plot();
             plot.Add.Scatter(new double[] { 0, 1, 2 }, new double[] { 1, 3, 2 });
             plot.XLabel("x");

@@ -60,7 +60,7 @@ public static class AnalysisCharts
         }
         plot.Axes.SetLimitsX(xs[0], xs[^1]);
         plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = v => v.ToString("0", CultureInfo.InvariantCulture) };
-        plot.ShowLegend(Edge.Bottom);
+        ChartRenderer.LegendBelow(plot);
         return plot;
     }
 
@@ -97,7 +97,7 @@ public static class AnalysisCharts
         highKey.Color = Palette.Primary;
         highKey.LegendText = "Parameter at the high end of its range";
         plot.Axes.SetLimitsY(-0.7, rows.Count - 0.3);
-        plot.ShowLegend(Edge.Bottom);
+        ChartRenderer.LegendBelow(plot);
         return plot;
     }
 
@@ -151,7 +151,7 @@ public static class AnalysisCharts
             v.LegendText = $"{name}: {F(x, "0.00")}%";
         }
         plot.Axes.SetLimitsY(0, bars.Max(b => b.Value) * 1.15);
-        plot.ShowLegend(Edge.Bottom);
+        ChartRenderer.LegendBelow(plot);
         return plot;
     }
 }

@@ -22,6 +22,12 @@ public sealed class ChartFont : ScottPlot.IFontResolver
 
     public static void Install(byte[] regularTtf, byte[] boldTtf) => Register(Family, regularTtf, boldTtf);
 
+    /// <summary>Whether <see cref="Install"/> has run in this process.</summary>
+    public static bool IsInstalled
+    {
+        get { lock (Gate) return installed; }
+    }
+
     /// <summary>Registers a family by name (once) and makes ScottPlot resolve it from these bytes.</summary>
     public static void Register(string family, byte[] regularTtf, byte[] boldTtf)
     {

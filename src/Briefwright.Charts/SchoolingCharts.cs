@@ -43,7 +43,7 @@ public static class SchoolingCharts
         }
         plot.Axes.SetLimitsY(0, ys.Max() * 1.08);
         plot.Axes.SetLimitsX(0, xs[^1]);
-        plot.ShowLegend(Edge.Bottom);
+        ChartRenderer.LegendBelow(plot);
         return plot;
     }
 
@@ -75,7 +75,7 @@ public static class SchoolingCharts
         plot.Axes.SetLimitsX(0, xs[^1]);
         plot.Axes.SetLimitsY(0, results.SchoolingCurve.Max(p => p.WorkerShare) * 1.1, plot.Axes.Left);
         plot.Axes.SetLimitsY(0, results.SchoolingCurve.Max(p => p.HumanCapitalPerWorker) * 1.1, plot.Axes.Right);
-        plot.ShowLegend(Edge.Bottom);
+        ChartRenderer.LegendBelow(plot);
         return plot;
     }
 }

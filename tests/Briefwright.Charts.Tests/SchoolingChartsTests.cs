@@ -61,4 +61,17 @@ public class SchoolingChartsTests
         Assert.Contains("LiberationSans", pdf);
         Assert.DoesNotContain("DejaVu", pdf);
     }
+
+    [Fact]
+    public void Png_copy_is_the_brief_chart_at_twice_its_size_and_the_same_every_time()
+    {
+        var a = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()));
+        var b = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()));
+        // PNG signature, then the IHDR chunk: width and height as big-endian 32-bit integers (PNG specification, 11.2.2).
+        Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A }, a[..8]);
+        Assert.Equal("IHDR", System.Text.Encoding.ASCII.GetString(a, 12, 4));
+        Assert.Equal(2 * ChartRenderer.Width, System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(a.AsSpan(16)));
+        Assert.Equal(2 * ChartRenderer.Height, System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(a.AsSpan(20)));
+        Assert.Equal(a, b);
+    }
 }
