@@ -49,6 +49,7 @@ rm "$work/regions/national-light.yaml.bak" 2>/dev/null || true
 measure "demo: 4 briefs (whole process, cold)" $BW build briefs-demo -o "$work/demo" -q
 measure "demo: national brief only (whole process)" $BW build briefs-demo/auroria-national.yaml -o "$work/one" -q --force
 measure "demo: one regional brief, no chart images (whole process)" $BW build briefs-demo/auroria-silverdale.yaml -o "$work/one" -q --force --no-chart-images
+measure "one generated regional brief (200 draws), whole process" $BW build "$work/regions/region-001.yaml" -o "$work/one" -q --force --no-chart-images
 measure "200 regional briefs + national (light MC, no chart images)" $BW build "$work/regions" -o "$work/out" -q --no-chart-images
 measure "no-op rebuild of the same 201 briefs" $BW build "$work/regions" -o "$work/out" -q --no-chart-images
 measure "200 regional briefs + national, --no-sync" $BW build "$work/regions" -o "$work/out3" -q --no-chart-images --no-sync

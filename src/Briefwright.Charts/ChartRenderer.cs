@@ -4,7 +4,7 @@ using SkiaSharp;
 namespace Briefwright.Charts;
 
 /// <summary>Applies the house style to a plot and renders it as vector PDF.</summary>
-public static class ChartRenderer
+public static partial class ChartRenderer
 {
     public const int Width = 470;
     public const int Height = 290;
@@ -101,5 +101,21 @@ public static class ChartRenderer
         return data.ToArray();
     }
 
-    public static string ToSvg(Plot plot, int width = Width, int height = Height) => plot.GetSvgXml(width, height);
+    /// <summary>
+    /// The chart as SVG. Skia numbers clip paths and images from a counter shared by the whole process, so the same
+    /// chart would get other ids after other charts; ids are renumbered in order of appearance to keep files identical.
+    /// </summary>
+    public static string ToSvg(Plot plot, int width = Width, int height = Height)
+    {
+        var ids = new Dictionary<string, string>(StringComparer.Ordinal);
+        return SvgId().Replace(plot.GetSvgXml(width, height), m =>
+        {
+            if (!ids.TryGetValue(m.Value, out var id))
+                ids[m.Value] = id = $"{m.Groups[1].Value}_{ids.Count(kv => kv.Key.StartsWith(m.Groups[1].Value + "_", StringComparison.Ordinal)) + 1}";
+            return id;
+        });
+    }
+
+    [System.Text.RegularExpressions.GeneratedRegex(@"\b(cl|img)_([0-9a-f]+)\b")]
+    private static partial System.Text.RegularExpressions.Regex SvgId();
 }

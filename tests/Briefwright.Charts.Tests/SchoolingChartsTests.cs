@@ -74,4 +74,14 @@ public class SchoolingChartsTests
         Assert.Equal(2 * ChartRenderer.Height, System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(a.AsSpan(20)));
         Assert.Equal(a, b);
     }
+
+    [Fact]
+    public void Svg_copy_is_the_same_however_many_charts_the_process_drew_before()
+    {
+        string first = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Results()));
+        ChartRenderer.ToSvg(SchoolingCharts.OpposingForces(Results()));
+        string again = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Results()));
+        Assert.Contains("clip-path=\"url(#cl_1)\"", first);
+        Assert.Equal(first, again);
+    }
 }

@@ -23,6 +23,21 @@ public class BatchTests
     }
 
     [Fact]
+    public void Chart_copies_in_the_annex_are_identical_in_a_second_build_of_the_same_process()
+    {
+        // Skia numbers SVG clip paths from a process-wide counter; the second build must still write the same bytes.
+        var w = new Workspace("auroria-silverdale");
+        foreach (var dir in new[] { "a", "b" })
+            Assert.Equal(0, CliApp.Run(new[] { "build", w.Dir, "-q", "-o", Path.Combine(w.Dir, dir) }, new StringWriter(), new StringWriter()));
+        var a = Files(Path.Combine(w.Dir, "a"));
+        var b = Files(Path.Combine(w.Dir, "b"));
+        Assert.Contains(a.Keys, k => k.EndsWith(".svg"));
+        Assert.Contains(a.Keys, k => k.EndsWith(".png"));
+        foreach (var (name, bytes) in a.Where(kv => kv.Key.EndsWith(".svg") || kv.Key.EndsWith(".png")))
+            Assert.True(bytes.AsSpan().SequenceEqual(b[name]), $"{name} differs");
+    }
+
+    [Fact]
     public void A_changed_assumption_rebuilds_only_its_brief_archives_the_previous_edition_and_lists_exactly_that_change()
     {
         var w = new Workspace("auroria-silverdale", "auroria-eastmark");
