@@ -5,9 +5,13 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 work=$(mktemp -d)
-# ReadyToRun (precompiled) publish: what a scheduled job should run; JIT start-up alone costs about 0.7 s.
-dotnet publish src/Briefwright.Cli -c Release -r linux-x64 --self-contained false -p:PublishReadyToRun=true -o "$work/bin" -v quiet -nologo >/dev/null
-BW="dotnet $work/bin/briefwright.dll"
+# Self-contained, precompiled as one composite image with the runtime (README, "Installing for scheduled jobs"):
+# what a scheduled job should run. Publishing takes a minute or two.
+# Precompiled images are made afresh: one left over from an earlier publish once made the tool abort at start.
+rm -rf src/*/obj/Release/net10.0/linux-x64
+dotnet publish src/Briefwright.Cli -c Release -r linux-x64 --self-contained true -p:PublishReadyToRun=true \
+  -p:PublishReadyToRunComposite=true -o "$work/bin" -v quiet -nologo >/dev/null
+BW="$work/bin/briefwright"
 trap 'rm -rf "$work"' EXIT
 
 measure() { # label, command...

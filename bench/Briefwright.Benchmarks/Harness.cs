@@ -86,6 +86,9 @@ public static class Harness
             foreach (var o in inputs.Options) c.OutputPerPerson(inputs, o);
             foreach (var o in alternatives) ReformSimulator.Simulate(inputs, o, settings.Reform, c);
         });
+        var shared = new ReformSimulator.Cache(true);
+        foreach (var o in alternatives) ReformSimulator.Simulate(inputs, o, settings.Reform, shared);
+        Time("one reform path, tables and outputs already cached", 50, () => ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform, shared));
         var path = ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform);
         Time("one present value", 50, () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
         Time("local optimum search", 50, () => OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, guess, new ReformSimulator.Cache(true).Population(inputs), fast: true));
