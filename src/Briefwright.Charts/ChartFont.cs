@@ -15,8 +15,13 @@ public sealed class ChartFont : ScottPlot.IFontResolver
     private static bool installed;
     private readonly Dictionary<string, (SKTypeface Regular, SKTypeface Bold)> families = new();
 
-    /// <summary>The family charts are drawn in; a theme's fonts replace the bundled one for the whole run.</summary>
-    public static string Current { get; private set; } = Family;
+    private static readonly AsyncLocal<string?> CurrentFamily = new();
+
+    /// <summary>
+    /// The family charts are drawn in on this thread of work (a theme's fonts replace the bundled one); other
+    /// threads, such as a warm-up running beside a real brief, keep their own.
+    /// </summary>
+    public static string Current => CurrentFamily.Value ?? Family;
 
     private static SKTypeface Typeface(byte[] ttf) => SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(ttf, FontSubsetter.ChartCharacters)));
 
@@ -43,11 +48,8 @@ public sealed class ChartFont : ScottPlot.IFontResolver
         }
     }
 
-    /// <summary>Draws charts in <paramref name="family"/> (registered before) from now on.</summary>
-    public static void Use(string family)
-    {
-        lock (Gate) Current = family;
-    }
+    /// <summary>Draws this thread of work's charts in <paramref name="family"/> (registered before) from now on.</summary>
+    public static void Use(string family) => CurrentFamily.Value = family;
 
     public SKTypeface? CreateTypeface(string fontName, FontWeight weight, FontSlant slant, FontSpacing spacing) =>
         families.TryGetValue(fontName, out var f) ? (weight >= FontWeight.SemiBold ? f.Bold : f.Regular) : null;
