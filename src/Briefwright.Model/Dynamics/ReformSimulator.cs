@@ -91,11 +91,12 @@ public static class ReformSimulator
         double decay = Math.Exp(-mu * h);
         // ∫₀^h e^(−μ(h−τ))·(1 − τ/h) dτ and ∫₀^h e^(−μ(h−τ))·τ/h dτ.
         double w1 = (1 - (1 - decay) / (mu * h)) / mu, w0 = (1 - decay) / mu - w1;
-        double Forcing(double x) => s * Math.Exp(beta * Math.Log(x));
+        // Forcing and output are written in ln x, which is computed once per step and shared by both.
+        double Forcing(double lnX) => s * Math.Exp(beta * lnX);
         double x0 = X(-1);
         double z = s * Math.Exp(beta * Math.Log(x0)) / lambda;
-        double Output(double zz, double x) => Math.Exp(alpha / beta * Math.Log(zz) + beta * Math.Log(x));
-        double y0 = Output(z, x0);
+        double Output(double zz, double lnX) => Math.Exp(alpha / beta * Math.Log(zz) + beta * lnX);
+        double y0 = Output(z, Math.Log(x0));
 
         int horizon = settings.HorizonYears;
         var gain = new double[horizon + 1];
@@ -103,20 +104,31 @@ public static class ReformSimulator
         // From R − a₀ + k years on, every cohort of working age entered school after the phase-in, so x(t) no longer
         // changes: it is evaluated once there instead of at every step (the same numbers, fewer table look-ups).
         double settled = settledShortcut ? after.RetirementAge - after.EntryAge + k : double.PositiveInfinity;
-        double xSettled = settledShortcut ? X(settled) : double.NaN;
-        double xNow = X(0), fNow = Forcing(xNow);
-        gain[0] = Output(z, xNow) / y0 - 1;
+        double xSettled = settledShortcut ? X(settled) : double.NaN, lnSettled = Math.Log(xSettled);
+        double xNow = X(0), lnNow = Math.Log(xNow), fNow = Forcing(lnNow);
+        gain[0] = Output(z, lnNow) / y0 - 1;
         for (int year = 0; year < horizon; year++)
         {
             for (int step = 0; step < stepsPerYear; step++)
             {
                 double t = year + (step + 1) * h;
-                double xNext = t >= settled ? xSettled : X(t), fNext = t >= settled && xNow == xSettled ? fNow : Forcing(xNext);
+                double fNext;
+                if (t >= settled)
+                {
+                    fNext = xNow == xSettled ? fNow : Forcing(lnSettled);
+                    xNow = xSettled;
+                    lnNow = lnSettled;
+                }
+                else
+                {
+                    xNow = X(t);
+                    lnNow = Math.Log(xNow);
+                    fNext = Forcing(lnNow);
+                }
                 z = z * decay + beta * (w0 * fNow + w1 * fNext);
-                xNow = xNext;
                 fNow = fNext;
             }
-            gain[year + 1] = Output(z, xNow) / y0 - 1;
+            gain[year + 1] = Output(z, lnNow) / y0 - 1;
         }
 
         double bgpGain = cache.OutputPerPerson(inputs, reform) / cache.OutputPerPerson(inputs, baseline) - 1;
