@@ -107,8 +107,21 @@ public static partial class ChartRenderer
     /// </summary>
     public static string ToSvg(Plot plot, int width = Width, int height = Height)
     {
+        // Skia's SVG backend has no dashes: it draws dashed lines solid and prints a warning on the console for
+        // each. Drawing them solid on purpose gives the same SVG without the noise; PDF and PNG keep the dashes.
+        var dashed = plot.GetPlottables().OfType<IHasLine>().Where(p => p.LineStyle.Pattern.Intervals is { Length: > 0 }).Select(p => (Plottable: p, p.LineStyle.Pattern)).ToList();
+        string svg;
+        try
+        {
+            foreach (var d in dashed) d.Plottable.LineStyle.Pattern = LinePattern.Solid;
+            svg = plot.GetSvgXml(width, height);
+        }
+        finally
+        {
+            foreach (var d in dashed) d.Plottable.LineStyle.Pattern = d.Pattern;
+        }
         var ids = new Dictionary<string, string>(StringComparer.Ordinal);
-        return SvgId().Replace(plot.GetSvgXml(width, height), m =>
+        return SvgId().Replace(svg, m =>
         {
             if (!ids.TryGetValue(m.Value, out var id))
                 ids[m.Value] = id = $"{m.Groups[1].Value}_{ids.Count(kv => kv.Key.StartsWith(m.Groups[1].Value + "_", StringComparison.Ordinal)) + 1}";

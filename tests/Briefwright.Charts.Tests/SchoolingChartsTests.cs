@@ -84,4 +84,17 @@ public class SchoolingChartsTests
         Assert.Contains("clip-path=\"url(#cl_1)\"", first);
         Assert.Equal(first, again);
     }
+
+    [Fact]
+    public void Svg_copy_leaves_the_dashed_lines_of_the_chart_dashed()
+    {
+        // Dashed lines are drawn solid for the SVG copy only (Skia's SVG backend has no dashes and would print a
+        // warning per line); the plot must come back with its dashes for any later PDF or PNG drawing.
+        var plot = SchoolingCharts.OutputCurve(Results());
+        float[][] Patterns() => plot.GetPlottables().OfType<IHasLine>().Select(p => p.LineStyle.Pattern.Intervals ?? Array.Empty<float>()).ToArray();
+        var before = Patterns();
+        Assert.Contains(before, i => i.Length > 0);
+        ChartRenderer.ToSvg(plot);
+        Assert.Equal(before, Patterns());
+    }
 }
