@@ -79,8 +79,7 @@ public static class MonteCarlo
             accepted.Count(r => r.LongRunChangePct[k] > 0) / (double)accepted.Count,
             accepted.Count(r => r.PresentValue[k] > 0) / (double)accepted.Count)).ToList();
         int horizon = settings.Reform.HorizonYears;
-        var fan = Enumerable.Range(0, horizon + 1).AsParallel().AsOrdered().Limit(maxThreads)
-            .Select(t => Percentiles.Of(accepted.Select(r => r.HeadlinePath![t]).ToArray())).ToList();
+        var fan = ModelThreads.Map(horizon + 1, maxThreads, t => Percentiles.Of(accepted.Select(r => r.HeadlinePath![t]).ToArray()));
         int headline = ids.ToList().IndexOf(settings.HeadlineOptionId);
         return new MonteCarloResults(accepted.Count, rejected.Sum(), spec.Seed, options,
             Percentiles.Of(accepted.Select(r => r.OptimumYears).ToList()), fan,

@@ -15,13 +15,14 @@ public static class Sensitivity
     public static IReadOnlyList<TornadoRow> Tornado(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, int maxThreads = ModelThreads.AllCores)
     {
         int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);
-        var rows = settings.Ranges.AsParallel().AsOrdered().Limit(maxThreads).Select(range =>
+        var rows = ModelThreads.Map(settings.Ranges.Count, maxThreads, r =>
         {
+            var range = settings.Ranges[r];
             var def = Parameters.Find(range.Parameter) ?? throw new ArgumentException($"Unknown parameter {range.Parameter}.");
             var low = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.Low), settings, optimumGuess, false);
             var high = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.High), settings, optimumGuess, false);
             return new TornadoRow(range.Parameter, def.Label, range.Low, range.High, low, high, Math.Abs(high.LongRunChangePct[headline] - low.LongRunChangePct[headline]));
-        }).ToList();
+        });
         // Swings equal to rounding (parameters that do not move the long-run change) tie and are ordered by name, so
         // the order does not flip on a last-digit difference.
         return rows.OrderByDescending(r => Math.Round(r.Swing, 9)).ThenBy(r => r.Parameter, StringComparer.Ordinal).ToList();
@@ -36,15 +37,15 @@ public static class Sensitivity
         var ys = Axis(spec.YLow, spec.YHigh);
         int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);
         int invalid = 0;
-        var values = xs.AsParallel().AsOrdered().Limit(maxThreads).Select(x => ys.Select(double? (y) =>
+        var values = ModelThreads.Map(xs.Length, maxThreads, i => ys.Select(double? (y) =>
         {
-            var trial = dy.Set(dx.Set(inputs, x), y);
+            var trial = dy.Set(dx.Set(inputs, xs[i]), y);
             if (Parameters.Violation(trial) is not null) { Interlocked.Increment(ref invalid); return null; }
             if (spec.Output == "optimum")
                 return Core.OptimumSearch.LocalFrom(trial.DemographyFor(trial.Baseline), trial.HumanCapital, optimumGuess);
             double baseY = Core.BalancedGrowth.OutputPerPerson(trial, trial.Baseline);
             return 100 * (Core.BalancedGrowth.OutputPerPerson(trial, trial.Options.First(o => o.Id == settings.HeadlineOptionId)) / baseY - 1);
-        }).ToArray()).ToArray();
+        }).ToArray());
         return new GridResult(spec, xs, ys, values, invalid);
     }
 }
