@@ -47,9 +47,10 @@ public static partial class ChartRenderer
     /// </summary>
     private static void FitLegend(Legend legend, int width)
     {
-        using var surface = SKSurface.Create(new SKImageInfo(width, 400));
+        // Laid out and "drawn" on a canvas without pixels: only the measurement it leaves behind is wanted.
+        using var canvas = new SKNoDrawCanvas(width, 400);
         using var paint = Paint.NewDisposablePaint();
-        legend.Render(surface.Canvas, paint, new PixelRect(0, width - 90, 0, 400), Alignment.UpperCenter);
+        legend.Render(canvas, paint, new PixelRect(0, width - 90, 0, 400), Alignment.UpperCenter);
     }
 
     public static byte[] ToPdf(Plot plot, int width = Width, int height = Height) => ToPdf(new[] { plot }, width, height);
@@ -121,10 +122,15 @@ public static partial class ChartRenderer
             foreach (var d in dashed) d.Plottable.LineStyle.Pattern = d.Pattern;
         }
         var ids = new Dictionary<string, string>(StringComparer.Ordinal);
+        var counts = new Dictionary<string, int>(StringComparer.Ordinal);
         return SvgId().Replace(svg, m =>
         {
             if (!ids.TryGetValue(m.Value, out var id))
-                ids[m.Value] = id = $"{m.Groups[1].Value}_{ids.Count(kv => kv.Key.StartsWith(m.Groups[1].Value + "_", StringComparison.Ordinal)) + 1}";
+            {
+                string kind = m.Groups[1].Value;
+                counts[kind] = counts.GetValueOrDefault(kind) + 1;
+                ids[m.Value] = id = $"{kind}_{counts[kind]}";
+            }
             return id;
         });
     }

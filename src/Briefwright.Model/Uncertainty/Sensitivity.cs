@@ -35,7 +35,6 @@ public static class Sensitivity
         double[] Axis(double lo, double hi) => Enumerable.Range(0, spec.Steps).Select(i => lo + (hi - lo) * i / (spec.Steps - 1)).ToArray();
         var xs = Axis(spec.XLow, spec.XHigh);
         var ys = Axis(spec.YLow, spec.YHigh);
-        int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);
         int invalid = 0;
         var values = ModelThreads.Map(xs.Length, maxThreads, i => ys.Select(double? (y) =>
         {
