@@ -123,9 +123,13 @@ public static class Harness
             times.Add(sw.Elapsed.TotalMilliseconds / batch);
         }
         times.Sort();
+        // Bytes allocated by one call on this thread (work a call hands to other threads is not counted).
+        long before = GC.GetAllocatedBytesForCurrentThread();
+        action();
+        long bytes = GC.GetAllocatedBytesForCurrentThread() - before;
         bool micro = times[0] < 1;
         double scale = micro ? 1000 : 1;
         string unit = micro ? "µs" : "ms";
-        Console.WriteLine($"{what,-56} best {times[0] * scale,8:0.0} {unit}   median {times[times.Count / 2] * scale,8:0.0} {unit}   ({runs} runs)");
+        Console.WriteLine($"{what,-56} best {times[0] * scale,8:0.0} {unit}   median {times[times.Count / 2] * scale,8:0.0} {unit}   {bytes / 1024.0,8:0.0} KB allocated   ({runs} runs)");
     }
 }

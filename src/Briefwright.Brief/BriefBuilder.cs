@@ -33,12 +33,22 @@ public static class BriefBuilder
             family = BundledFonts.Register(fonts.Regular, fonts.Bold, fonts.Italic, fonts.BoldItalic);
             ChartFont.Register(family, fonts.Regular, fonts.Bold);
         }
-        var results = solved.BalancedGrowth;
-        var charts = RenderCharts(solved, options.ChartImages, family);
-        var resultsDocument = ResultsDocument.From(scenario, results, solved.Analysis);
-        string json = ResultsJson.Write(resultsDocument);
-        var changes = options.PreviousEdition is { } previous ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) : null;
-        string markdown = FillTemplate(solved, charts, template, changes);
+        var specs = ChartSpecs(solved, family);
+        var figureRefs = specs.Select(c => new FigureRef(c.Id, c.Caption)).ToList();
+        // The results data and the filled template need the charts' ids and captions, not their drawings; the data annex
+        // needs the drawn charts, not the brief. When the brief may use more than one thread, both are made on a spare
+        // core while the charts and the brief are laid out.
+        bool spare = options.ModelThreads != 1;
+        Task<T> Start<T>(Func<T> work) => spare ? Task.Run(work) : Task.FromResult(work());
+        var text = Start(() =>
+        {
+            string json = ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis));
+            var changes = options.PreviousEdition is { } previous ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) : null;
+            return (Json: json, Changes: changes, Markdown: FillTemplate(solved, figureRefs, template, changes));
+        });
+        var charts = ChartSpec.RenderPdf(specs);
+        var annex = Start(() => AnnexFiles.Build(solved, options.ChartImages ? ChartSpec.AddImages(charts, specs, spare ? Environment.ProcessorCount : 1) : charts));
+        var (json, changes, markdown) = text.GetAwaiter().GetResult();
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
         var info = scenario.Brief;
@@ -51,23 +61,32 @@ public static class BriefBuilder
                 options.Theme.Footer ?? $"{info.Organisation} · Model illustration, not a forecast") { Logo = options.Logo },
             blocks) { Theme = options.PageTheme(), FontFamily = family };
         var pdf = DocumentComposer.WritePdf(document);
-        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, AnnexFiles.Build(solved, charts).Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList(), changes);
+        var annexFiles = annex.GetAwaiter().GetResult().Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
+        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes);
     }
 
     /// <summary>Output files are named from the scenario id and the brief's date: auroria-national-2026-11-30.</summary>
     public static string FileStem(ScenarioDocument scenario) => $"{scenario.Brief.Id}-{scenario.Brief.Date:yyyy-MM-dd}";
 
-    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<RenderedChart> charts, BriefTemplate template, EditionChanges? changes = null)
+    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<RenderedChart> charts, BriefTemplate template, EditionChanges? changes = null) =>
+        FillTemplate(solved, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(), template, changes);
+
+    /// <summary>Fills the template; the figures are given by id and caption.</summary>
+    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<FigureRef> figures, BriefTemplate template, EditionChanges? changes = null)
     {
         var scenario = solved.Scenario;
-        var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(),
+        var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, figures,
             scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), template.Hash);
         var model = BriefModelBuilder.Build(inputs);
         ChangesModel.Add(model, changes);
         return template.Render(model);
     }
 
-    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false, string? family = null)
+    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false, string? family = null) =>
+        ChartSpec.RenderAll(ChartSpecs(solved, family), withImages);
+
+    /// <summary>The brief's charts, built but not yet drawn, in the bundled font or the theme's <paramref name="family"/>.</summary>
+    public static IReadOnlyList<ChartSpec> ChartSpecs(SolvedScenario solved, string? family = null)
     {
         InstallChartFont();
         ChartFont.Use(family ?? ChartFont.Family);
@@ -88,7 +107,7 @@ public static class BriefBuilder
                 source),
         };
         charts.AddRange(AnalysisChartSet.Specs(solved, source));
-        return ChartSpec.RenderAll(charts, withImages);
+        return charts;
     }
 
     /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>

@@ -22,7 +22,10 @@ public sealed record BuildOptions
     /// <summary>Also render each chart as SVG and PNG for the data annex.</summary>
     public bool ChartImages { get; init; }
 
-    /// <summary>Threads the model's uncertainty loops may use; a batch building one brief per core passes 1.</summary>
+    /// <summary>
+    /// Threads one brief may use: the model's uncertainty loops, and (above 1) the results data, filled template and
+    /// chart copies made beside the layout. A batch building one brief per core passes 1. Output does not depend on it.
+    /// </summary>
     public int ModelThreads { get; init; } = Model.Uncertainty.ModelThreads.AllCores;
 
     public static BuildOptions Default { get; } = new();

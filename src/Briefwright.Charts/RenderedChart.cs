@@ -14,14 +14,29 @@ public sealed record RenderedChart(string Id, byte[] Pdf, int Page, double Width
 /// <summary>A chart before rendering: the plot and the texts that go with it.</summary>
 public sealed record ChartSpec(string Id, ScottPlot.Plot Plot, string Caption, string AltText, string Source)
 {
-    /// <summary>Renders all charts into one multi-page PDF (one embedded font for all of them).</summary>
+    /// <summary>Renders all charts into one multi-page PDF (one embedded font for all of them), and SVG and PNG copies if asked.</summary>
     public static IReadOnlyList<RenderedChart> RenderAll(IReadOnlyList<ChartSpec> specs, bool withImages)
     {
+        var charts = RenderPdf(specs);
+        return withImages ? AddImages(charts, specs) : charts;
+    }
+
+    /// <summary>Renders all charts into one multi-page PDF (one embedded font for all of them).</summary>
+    public static IReadOnlyList<RenderedChart> RenderPdf(IReadOnlyList<ChartSpec> specs)
+    {
         byte[] pdf = ChartRenderer.ToPdf(specs.Select(s => s.Plot).ToList());
-        return specs.Select((s, i) => new RenderedChart(s.Id, pdf, i + 1, ChartRenderer.Width, ChartRenderer.Height, s.Caption, s.AltText, s.Source)
-        {
-            Svg = withImages ? ChartRenderer.ToSvg(s.Plot) : null,
-            Png = withImages ? ChartRenderer.ToPng(s.Plot) : null,
-        }).ToList();
+        return specs.Select((s, i) => new RenderedChart(s.Id, pdf, i + 1, ChartRenderer.Width, ChartRenderer.Height, s.Caption, s.AltText, s.Source)).ToList();
+    }
+
+    /// <summary>
+    /// The same charts with their SVG and PNG copies, drawn from <paramref name="specs"/> (in the same order), on up to
+    /// <paramref name="threads"/> threads: each chart is drawn by one thread, so the copies do not depend on the count.
+    /// </summary>
+    public static IReadOnlyList<RenderedChart> AddImages(IReadOnlyList<RenderedChart> charts, IReadOnlyList<ChartSpec> specs, int threads = 1)
+    {
+        var copies = new RenderedChart[charts.Count];
+        Parallel.For(0, charts.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, threads) },
+            i => copies[i] = charts[i] with { Svg = ChartRenderer.ToSvg(specs[i].Plot), Png = ChartRenderer.ToPng(specs[i].Plot) });
+        return copies;
     }
 }

@@ -142,6 +142,31 @@ public class BatchTests
         Assert.Equal(2, lines.Length);
         Assert.All(lines, l => Assert.Equal("built", JsonDocument.Parse(l).RootElement.GetProperty("status").GetString()));
     }
+
+    [Fact]
+    public void The_bundled_fonts_input_is_the_sha256_of_the_four_font_files_in_order()
+    {
+        // Every manifest records this value; it must not change when the way it is computed does (else every brief
+        // would rebuild as a new edition). Reference: the one-shot SHA-256 of System.Security.Cryptography over the
+        // four files joined, as earlier releases computed it.
+        var styles = new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic };
+        var joined = styles.SelectMany(Composer.Drawing.BundledFonts.Bytes).ToArray();
+        Assert.True(joined.Length > 100_000);
+        Assert.Equal(Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(joined)), BatchBuilder.FontsHash.Value);
+    }
+
+    [Fact]
+    public void A_head_start_with_a_template_that_does_not_exist_changes_nothing()
+    {
+        // The head start reads the standard template unless one is named; a named template that cannot be read is
+        // reported by the build itself, as before.
+        var w = new Workspace("auroria-silverdale");
+        Commands.BuildCommand.HeadStart(new[] { "build", w.Dir, "--template", "no-such-template.md" });
+        var (code, _, err) = w.Build("--template", "no-such-template.md");
+        Assert.Equal(ExitCodes.InvalidInput, code);
+        Assert.Contains("no-such-template.md: cannot read the template", err);
+        Assert.False(Directory.Exists(w.Out));
+    }
 }
 
 public class FaultTests

@@ -1,4 +1,5 @@
 using Briefwright.Model.Dynamics;
+using Briefwright.Model.Inputs;
 
 namespace Briefwright.Model.Tests;
 
@@ -60,5 +61,20 @@ public class PresentValueTests
         var pv = PresentValue.Compute(new ReformPath("x", gain, 0.02, 0.02, -0.01, 0, 10), DiscountSchedule.Constant("zero", "0%", 0.0), 0.0);
         // Cumulative: −0.10 after year 9, then +0.03 a year: −0.07, −0.04, −0.01, +0.02 at year 13.
         Assert.Equal(13, pv.BreakEvenYear);
+    }
+
+    [Fact]
+    public void The_value_to_the_horizon_alone_is_the_same_number_as_the_full_computation()
+    {
+        // Monte Carlo and Sobol runs ask only for the value to the horizon; it must be the very number the brief's
+        // present-value table shows (same sum, same order), for every schedule and for paths with a dip.
+        var inputs = ReformSimulatorTests.Inputs(experience: new ExperienceProfile(0.081, 0.0012));
+        var schedules = new[] { DiscountSchedule.GreenBook, DiscountSchedule.Omb3, DiscountSchedule.Omb7, DiscountSchedule.Constant("zero", "0%", 0.0) };
+        foreach (var option in inputs.Options.Where(o => o.Id != "base"))
+        {
+            var path = ReformSimulator.Simulate(inputs, option, new ReformSettings(2027, 2, 150));
+            foreach (var schedule in schedules)
+                Assert.Equal(PresentValue.Compute(path, schedule, 0.015).ToHorizon, PresentValue.ToHorizonOnly(path, schedule, 0.015));
+        }
     }
 }

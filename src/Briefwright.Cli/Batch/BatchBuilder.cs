@@ -25,9 +25,14 @@ public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options,
 /// </summary>
 public static class BatchBuilder
 {
-    private static readonly Lazy<string> FontsHash = new(() => Convert.ToHexStringLower(SHA256.HashData(
-        new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic }
-            .SelectMany(BundledFonts.Bytes).ToArray())));
+    /// <summary>SHA-256 of the four bundled font files, one after the other (an input of every brief).</summary>
+    internal static readonly Lazy<string> FontsHash = new(() =>
+    {
+        using var sha = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
+        foreach (var style in new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic })
+            sha.AppendData(BundledFonts.Bytes(style));
+        return Convert.ToHexStringLower(sha.GetHashAndReset());
+    });
 
     public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error)
     {

@@ -20,10 +20,15 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
     public static Manifest? Read(string outDir, string id)
     {
         string path = PathFor(outDir, id);
-        if (!File.Exists(path)) return null;
+        return File.Exists(path) ? Parse(File.ReadAllText(path)) : null;
+    }
+
+    /// <summary>Reads a manifest from text; null if it is not one.</summary>
+    public static Manifest? Parse(string json)
+    {
         try
         {
-            return JsonSerializer.Deserialize<Manifest>(File.ReadAllText(path), Json);
+            return JsonSerializer.Deserialize<Manifest>(json, Json);
         }
         catch (JsonException)
         {

@@ -29,9 +29,10 @@ public sealed class BundledFonts : IFontResolver
     {
         using var stream = typeof(BundledFonts).Assembly.GetManifestResourceStream($"fonts.{name}.ttf")
             ?? throw new InvalidOperationException($"Bundled font {name} is missing from the build.");
-        using var ms = new MemoryStream();
-        stream.CopyTo(ms);
-        return ms.ToArray();
+        // Read at its exact size: a growing copy of a font (hundreds of KB) would churn the large-object heap.
+        var bytes = new byte[stream.Length];
+        stream.ReadExactly(bytes);
+        return bytes;
     });
 
     /// <summary>Registers the resolver with PDFsharp once; PDFsharp allows a single global resolver.</summary>

@@ -20,20 +20,33 @@ public sealed record PresentValue(
     public static PresentValue Compute(ReformPath path, DiscountSchedule schedule, double technologyGrowth)
     {
         int h = path.Horizon;
-        var d = FactorCache.GetOrAdd((schedule, h), key => key.Schedule.Factors(key.Horizon));
+        var d = Factors(schedule, h);
         var cumulative = new double[h + 1];
-        double sum = 0, growth = 1, step = Math.Exp(technologyGrowth);
-        for (int t = 0; t <= h; t++)
-        {
-            sum += d[t] * growth * path.Gain[t];
-            cumulative[t] = sum;
-            growth *= step;
-        }
+        double sum = Sum(path, d, technologyGrowth, cumulative);
         // Break-even: the first year from which the cumulative discounted gain stays positive to the horizon.
         int? breakEven = null;
         for (int t = h; t >= 0 && cumulative[t] > 0; t--) breakEven = t;
         var (tail, note) = TailValue(schedule, d[h], h, technologyGrowth, path.BalancedGrowthGain);
         return new PresentValue(schedule.Id, schedule.Label, sum, tail, tail is null ? null : sum + tail, breakEven, note);
+    }
+
+    /// <summary>The present value to the horizon alone, the same sum as <see cref="Compute"/>'s <see cref="ToHorizon"/>; allocates nothing (Monte Carlo and Sobol runs).</summary>
+    public static double ToHorizonOnly(ReformPath path, DiscountSchedule schedule, double technologyGrowth) =>
+        Sum(path, Factors(schedule, path.Horizon), technologyGrowth, default);
+
+    private static double[] Factors(DiscountSchedule schedule, int horizon) => FactorCache.GetOrAdd((schedule, horizon), key => key.Schedule.Factors(key.Horizon));
+
+    /// <summary>Σ_{t=0..H} D(t)·e^(gt)·gain(t), with the running sums written to <paramref name="cumulative"/> when it is not empty.</summary>
+    private static double Sum(ReformPath path, double[] d, double technologyGrowth, Span<double> cumulative)
+    {
+        double sum = 0, growth = 1, step = Math.Exp(technologyGrowth);
+        for (int t = 0; t <= path.Horizon; t++)
+        {
+            sum += d[t] * growth * path.Gain[t];
+            if (!cumulative.IsEmpty) cumulative[t] = sum;
+            growth *= step;
+        }
+        return sum;
     }
 
     private static (double? Tail, string Note) TailValue(DiscountSchedule schedule, double dH, int h, double g, double longRunGain)

@@ -28,7 +28,7 @@ public static class KeyResultsEvaluator
         {
             change[i] = 100 * (cache.OutputPerPerson(inputs, alternatives[i]) / baseY - 1);
             var path = ReformSimulator.Simulate(inputs, alternatives[i], settings.Reform, cache);
-            pv[i] = PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth).ToHorizon;
+            pv[i] = PresentValue.ToHorizonOnly(path, settings.Headline, inputs.Production.TechnologyGrowth);
             if (keepHeadlinePath && alternatives[i].Id == settings.HeadlineOptionId) headlinePath = path.Gain;
         }
         double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess, cache.Population(inputs), fast: true);
