@@ -95,6 +95,18 @@ public static class Harness
         Time("whole draw (key results)", 50, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, true));
     }
 
+    /// <summary>What one Monte Carlo draw and the demo's whole Monte Carlo allocate, by type (sampled).</summary>
+    public static void Allocations()
+    {
+        var b = new BriefBenchmarks();
+        b.Setup();
+        var inputs = b.Scenario.Inputs;
+        var settings = b.Scenario.Analysis;
+        double guess = BalancedGrowth.Solve(inputs).Optimum.SchoolingYears;
+        AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, true));
+        AllocationSampler.Report("Monte Carlo (2,000 draws, one thread)", 10, () => MonteCarlo.Run(inputs, settings, guess, 1));
+    }
+
     /// <summary>The demo's whole model, repeated, with allocation and collection counts.</summary>
     public static void ProfileModel(int n)
     {
@@ -131,5 +143,41 @@ public static class Harness
         double scale = micro ? 1000 : 1;
         string unit = micro ? "µs" : "ms";
         Console.WriteLine($"{what,-56} best {times[0] * scale,8:0.0} {unit}   median {times[times.Count / 2] * scale,8:0.0} {unit}   {bytes / 1024.0,8:0.0} KB allocated   ({runs} runs)");
+    }
+}
+
+/// <summary>Samples what a piece of work allocates (the runtime reports a type about every 100 KB allocated).</summary>
+public sealed class AllocationSampler : System.Diagnostics.Tracing.EventListener
+{
+    private readonly System.Collections.Concurrent.ConcurrentDictionary<string, long> bytes = new();
+
+    protected override void OnEventSourceCreated(System.Diagnostics.Tracing.EventSource source)
+    {
+        if (source.Name == "Microsoft-Windows-DotNETRuntime")
+            EnableEvents(source, System.Diagnostics.Tracing.EventLevel.Verbose, (System.Diagnostics.Tracing.EventKeywords)0x1);
+    }
+
+    protected override void OnEventWritten(System.Diagnostics.Tracing.EventWrittenEventArgs e)
+    {
+        if (e.EventName is null || !e.EventName.StartsWith("GCAllocationTick", StringComparison.Ordinal) || e.Payload is null) return;
+        int typeName = e.PayloadNames!.IndexOf("TypeName");
+        int amount = e.PayloadNames.IndexOf("AllocationAmount64");
+        if (typeName < 0 || amount < 0) return;
+        bytes.AddOrUpdate((string)e.Payload[typeName]!, Convert.ToInt64(e.Payload[amount]), (_, b) => b + Convert.ToInt64(e.Payload[amount]));
+    }
+
+    /// <summary>Runs <paramref name="work"/> <paramref name="times"/> times and prints the sampled types, largest first.</summary>
+    public static void Report(string what, int times, Action work)
+    {
+        work();
+        using var sampler = new AllocationSampler();
+        long before = GC.GetTotalAllocatedBytes(true);
+        for (int i = 0; i < times; i++) work();
+        long total = GC.GetTotalAllocatedBytes(true) - before;
+        Thread.Sleep(500); // events arrive on a dispatcher thread
+        Console.WriteLine($"{what}: {total / (double)times / 1024:0.0} KB allocated per run; sampled types:");
+        long sampled = sampler.bytes.Values.Sum();
+        foreach (var (type, b) in sampler.bytes.OrderByDescending(kv => kv.Value).Take(25))
+            Console.WriteLine($"  {100.0 * b / sampled,5:0.0}%  {type}");
     }
 }

@@ -52,7 +52,8 @@ public static class ReformSimulator
         var hc = inputs.HumanCapital;
         var p = inputs.Production;
         // Tables run to the latest retirement age of any option, so options share them.
-        double lastAge = inputs.Options.Max(o => inputs.DemographyFor(o).RetirementAge);
+        double lastAge = double.NegativeInfinity;
+        foreach (var o in inputs.Options) lastAge = Math.Max(lastAge, o.RetirementAge ?? inputs.Demography.RetirementAge);
         cache ??= new Cache();
         double population = cache.Population(inputs);
 

@@ -55,6 +55,10 @@ public static class MonteCarlo
         int d = spec.Parameters.Count;
         var results = new KeyResults?[spec.Draws];
         var rejected = new int[spec.Draws];
+        // The headline paths of all draws, row by row, in one block allocated once: kept per draw they would be
+        // copied by every collection while the draws run.
+        int width = settings.Reform.HorizonYears + 1;
+        var paths = new double[spec.Draws * width];
         Parallel.For(0, spec.Draws, ModelThreads.Options(maxThreads), i =>
         {
             var rng = SplitMix64.ForStream(spec.Seed, (ulong)i);
@@ -64,11 +68,14 @@ public static class MonteCarlo
                 for (int j = 0; j < d; j++) u[j] = rng.NextOpenUnit();
                 var trial = Apply(inputs, spec.Parameters, u);
                 if (Parameters.Violation(trial) is not null) { rejected[i]++; continue; }
-                results[i] = KeyResultsEvaluator.Evaluate(trial, settings, optimumGuess, keepHeadlinePath: true);
+                var k = KeyResultsEvaluator.Evaluate(trial, settings, optimumGuess, keepHeadlinePath: true);
+                k.HeadlinePath!.CopyTo(paths, i * width);
+                results[i] = k with { HeadlinePath = null };
                 return;
             }
         });
-        var accepted = results.Where(r => r is not null).Select(r => r!).ToList();
+        var acceptedDraws = Enumerable.Range(0, spec.Draws).Where(i => results[i] is not null).ToArray();
+        var accepted = acceptedDraws.Select(i => results[i]!).ToList();
         if (accepted.Count < spec.Draws / 2)
             throw new InvalidOperationException($"Monte Carlo: {rejected.Sum()} draws broke a model rule and only {accepted.Count} of {spec.Draws} were accepted; narrow the distributions.");
         var ids = accepted[0].OptionIds;
@@ -78,8 +85,12 @@ public static class MonteCarlo
             Percentiles.Of(accepted.Select(r => r.PresentValue[k]).ToList()),
             accepted.Count(r => r.LongRunChangePct[k] > 0) / (double)accepted.Count,
             accepted.Count(r => r.PresentValue[k] > 0) / (double)accepted.Count)).ToList();
-        int horizon = settings.Reform.HorizonYears;
-        var fan = ModelThreads.Map(horizon + 1, maxThreads, t => Percentiles.Of(accepted.Select(r => r.HeadlinePath![t]).ToArray()));
+        var fan = ModelThreads.Map(width, maxThreads, t =>
+        {
+            var atT = new double[acceptedDraws.Length];
+            for (int j = 0; j < atT.Length; j++) atT[j] = paths[acceptedDraws[j] * width + t];
+            return Percentiles.Of(atT);
+        });
         int headline = ids.ToList().IndexOf(settings.HeadlineOptionId);
         return new MonteCarloResults(accepted.Count, rejected.Sum(), spec.Seed, options,
             Percentiles.Of(accepted.Select(r => r.OptimumYears).ToList()), fan,
