@@ -5,12 +5,10 @@
 set -euo pipefail
 cd "$(dirname "$0")/.."
 work=$(mktemp -d)
-# Self-contained, precompiled as one composite image with the runtime (README, "Installing for scheduled jobs"):
-# what a scheduled job should run. Publishing takes a minute or two.
-# Precompiled images are made afresh: one left over from an earlier publish once made the tool abort at start.
-rm -rf src/*/obj/Release/net10.0/linux-x64
-dotnet publish src/Briefwright.Cli -c Release -r linux-x64 --self-contained true -p:PublishReadyToRun=true \
-  -p:PublishReadyToRunComposite=true -o "$work/bin" -v quiet -nologo >/dev/null
+# The native executable (README, "Installing for scheduled jobs"): what a scheduled job should run. Publishing takes
+# a minute or two. bench/check-native.sh checks that it writes the same bytes as the managed build.
+rid=$(dotnet --info | awk '/^ *RID:/ { print $2; exit }')
+dotnet publish src/Briefwright.Cli -c Release -r "$rid" -o "$work/bin" -v quiet -nologo >/dev/null
 BW="$work/bin/briefwright"
 trap 'rm -rf "$work"' EXIT
 

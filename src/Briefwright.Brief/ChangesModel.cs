@@ -12,7 +12,7 @@ public static class ChangesModel
         if (changes is null)
         {
             model["changes"] = null;
-            model.Import("changes_table", new Func<string>(() => ""));
+            model.AddFunction("changes_table", new Func<string>(() => ""));
             return;
         }
         model["changes"] = new ScriptObject
@@ -22,7 +22,7 @@ public static class ChangesModel
             ["assumptions"] = changes.Assumptions.Count,
             ["results"] = changes.Results.Count,
         };
-        model.Import("changes_table", new Func<string>(() => Table(changes)));
+        model.AddFunction("changes_table", new Func<string>(() => Table(changes)));
     }
 
     public static string Table(EditionChanges changes)

@@ -54,10 +54,10 @@ internal static class AnalysisModel
         }
         else model["sobol"] = null;
 
-        model.Import("reform_table", new Func<string>(() => ReformTable(a, Label)));
-        model.Import("appraisal_table", new Func<string>(() => AppraisalTable(a, Label)));
-        model.Import("uncertainty_table", new Func<string>(() => UncertaintyTable(a, Label)));
-        model.Import("sobol_table", new Func<string>(() => SobolTable(a)));
+        model.AddFunction("reform_table", new Func<string>(() => ReformTable(a, Label)));
+        model.AddFunction("appraisal_table", new Func<string>(() => AppraisalTable(a, Label)));
+        model.AddFunction("uncertainty_table", new Func<string>(() => UncertaintyTable(a, Label)));
+        model.AddFunction("sobol_table", new Func<string>(() => SobolTable(a)));
     }
 
     private static string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";

@@ -13,7 +13,7 @@ public static class BriefModelBuilder
     public static ScriptObject Build(BriefInputs b)
     {
         var model = new ScriptObject();
-        model.Import(typeof(TemplateFunctions));
+        model.AddFunctions(typeof(TemplateFunctions));
         var s = b.Scenario;
         var r = b.Results;
 
@@ -45,14 +45,14 @@ public static class BriefModelBuilder
         model["stamp"] = Obj(("input_hash", b.InputHash), ("tool_version", b.ToolVersion), ("template", b.TemplateName), ("template_hash", b.TemplateHash));
 
         var figureIds = b.Figures.Select(f => f.Id).ToHashSet();
-        model.Import("figure", new Func<string, string>(id => figureIds.Contains(id)
+        model.AddFunction("figure", new Func<string, string>(id => figureIds.Contains(id)
             ? $"[[figure: {id}]]"
             : throw new InvalidOperationException($"Unknown figure '{id}'. Known figures: {string.Join(", ", figureIds.Order())}.")));
-        model.Import("assumptions_table", new Func<string>(() => AssumptionsTable(s)));
-        model.Import("results_table", new Func<string>(() => ResultsTable(r)));
-        model.Import("caveats", new Func<string>(() => Md.Bullets(Caveats.Fixed.Concat(Caveats.Generated(s, r, b.Analysis)))));
-        model.Import("equations_annex", new Func<string>(() => Equations.Annex(s.Inputs, r)));
-        model.Import("reproducibility", new Func<string>(() => Reproducibility(b)));
+        model.AddFunction("assumptions_table", new Func<string>(() => AssumptionsTable(s)));
+        model.AddFunction("results_table", new Func<string>(() => ResultsTable(r)));
+        model.AddFunction("caveats", new Func<string>(() => Md.Bullets(Caveats.Fixed.Concat(Caveats.Generated(s, r, b.Analysis)))));
+        model.AddFunction("equations_annex", new Func<string>(() => Equations.Annex(s.Inputs, r)));
+        model.AddFunction("reproducibility", new Func<string>(() => Reproducibility(b)));
         return model;
     }
 

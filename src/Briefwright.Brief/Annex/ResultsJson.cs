@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using System.Text.Json.Serialization.Metadata;
 using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
@@ -50,9 +51,21 @@ public static class ResultsJson
     {
         PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
         WriteIndented = true,
-        Converters = { new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower) },
+        // One converter per enum in the results (not the reflection-based factory), so that the native publish needs no
+        // code generation at run time.
+        Converters =
+        {
+            new JsonStringEnumConverter<Scenario.ValueUnit>(JsonNamingPolicy.SnakeCaseLower),
+            new JsonStringEnumConverter<Model.Results.OptimumMethod>(JsonNamingPolicy.SnakeCaseLower),
+        },
         TypeInfoResolver = ResultsJsonContext.Default,
     };
 
-    public static string Write(ResultsDocument document) => JsonSerializer.Serialize(document, Options) + "\n";
+    /// <summary>The generated serialisation code for <typeparamref name="T"/> with these options.</summary>
+    public static JsonTypeInfo<T> Info<T>() => (JsonTypeInfo<T>)Options.GetTypeInfo(typeof(T));
+
+    public static string Write(ResultsDocument document) => JsonSerializer.Serialize(document, Info<ResultsDocument>()) + "\n";
+
+    /// <summary>Several results documents as one JSON array (<c>solve --json</c> with several scenarios).</summary>
+    public static string Write(List<ResultsDocument> documents) => JsonSerializer.Serialize(documents, Info<List<ResultsDocument>>()) + "\n";
 }

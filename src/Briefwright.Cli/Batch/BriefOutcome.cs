@@ -17,10 +17,10 @@ public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Sta
     private static readonly JsonSerializerOptions Json = new()
     {
         PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
-        Converters = { new JsonStringEnumConverter(JsonNamingPolicy.SnakeCaseLower) },
+        Converters = { new JsonStringEnumConverter<OutcomeStatus>(JsonNamingPolicy.SnakeCaseLower) },
         DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
         TypeInfoResolver = BatchJsonContext.Default,
     };
 
-    public string LogLine() => JsonSerializer.Serialize(this, Json);
+    public string LogLine() => JsonSerializer.Serialize(this, (System.Text.Json.Serialization.Metadata.JsonTypeInfo<BriefOutcome>)Json.GetTypeInfo(typeof(BriefOutcome)));
 }

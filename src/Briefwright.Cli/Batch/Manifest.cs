@@ -15,6 +15,8 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
         TypeInfoResolver = BatchJsonContext.Default,
     };
 
+    private static System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest> Info => (System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest>)Json.GetTypeInfo(typeof(Manifest));
+
     public static string PathFor(string outDir, string id) => Path.Combine(outDir, id + ".manifest.json");
 
     public static Manifest? Read(string outDir, string id)
@@ -28,7 +30,7 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
     {
         try
         {
-            return JsonSerializer.Deserialize<Manifest>(json, Json);
+            return JsonSerializer.Deserialize(json, Info);
         }
         catch (JsonException)
         {
@@ -36,7 +38,7 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
         }
     }
 
-    public byte[] ToBytes() => System.Text.Encoding.UTF8.GetBytes(JsonSerializer.Serialize(this, Json) + "\n");
+    public byte[] ToBytes() => System.Text.Encoding.UTF8.GetBytes(JsonSerializer.Serialize(this, Info) + "\n");
 
     public bool FilesPresent(string outDir) => Files.All(f => File.Exists(Path.Combine(outDir, f)));
 }

@@ -40,7 +40,7 @@ public static class SolveCommand
                 }
             }
             if (asJson && documents.Count == 1) output.Write(ResultsJson.Write(documents[0]));
-            else if (asJson && documents.Count > 1) output.Write(System.Text.Json.JsonSerializer.Serialize(documents, ResultsJson.Options) + "\n");
+            else if (asJson && documents.Count > 1) output.Write(ResultsJson.Write(documents));
             return code;
         });
         return command;

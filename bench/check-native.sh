@@ -1,0 +1,38 @@
+#!/usr/bin/env bash
+# Publishes the native executable (README, "Installing for scheduled jobs") and checks that it writes the same bytes
+# as the managed build: every file of the demo briefs (with theme, chart copies and annex), and the output of
+# check, solve --json, diff and schema. Run by CI after the tests. Usage: bench/check-native.sh [output folder]
+set -euo pipefail
+cd "$(dirname "$0")/.."
+work=$(mktemp -d)
+trap 'rm -rf "$work"' EXIT
+native=${1:-$work/native}
+rid=$(dotnet --info | awk '/^ *RID:/ { print $2; exit }')
+echo "publishing the native executable for $rid ..."
+dotnet publish src/Briefwright.Cli -c Release -r "$rid" -o "$native" -v quiet -nologo >/dev/null
+dotnet build src/Briefwright.Cli -c Release -v quiet -nologo >/dev/null
+managed=(dotnet src/Briefwright.Cli/bin/Release/net10.0/briefwright.dll)
+failed=0
+same() { # label, file a, file b
+  if ! cmp -s "$2" "$3"; then echo "DIFFERENT: $1"; failed=1; fi
+}
+for who in managed native; do
+  if [ $who = managed ]; then run=("${managed[@]}"); else run=("$native/briefwright"); fi
+  mkdir -p "$work/$who"
+  "${run[@]}" build briefs-demo --theme briefs-demo/auroria-institute.theme.yaml -o "$work/$who/briefs" -q
+  "${run[@]}" check briefs-demo > "$work/$who/check.txt"
+  "${run[@]}" solve briefs-demo/auroria-national.yaml briefs-demo/auroria-northport.yaml --json > "$work/$who/solve.json"
+  "${run[@]}" solve briefs-demo/auroria-silverdale.yaml > "$work/$who/solve.txt"
+  "${run[@]}" diff briefs-demo/auroria-national.yaml briefs-demo/auroria-eastmark.yaml > "$work/$who/diff.txt" || true
+  "${run[@]}" schema > "$work/$who/schema.json"
+done
+count=0
+for f in "$work/managed/briefs"/*.* "$work/managed"/*.*; do
+  name=${f#"$work/managed/"}
+  [ "$(basename "$f")" = build-log.jsonl ] && continue # holds build times
+  same "$name" "$f" "$work/native/$name"
+  count=$((count + 1))
+done
+[ "$(ls "$work/managed/briefs" | wc -l)" = "$(ls "$work/native/briefs" | wc -l)" ] || { echo "DIFFERENT: number of files"; failed=1; }
+if [ $failed = 0 ]; then echo "native executable: $count files and outputs identical to the managed build"; fi
+exit $failed
