@@ -63,14 +63,19 @@ public static class Harness
         Time("  annex files", 10, () => AnnexFiles.Build(solved, charts));
     }
 
-    /// <summary>One Monte Carlo draw of the demo, piece by piece.</summary>
-    public static void Draw()
+    /// <summary>The demo scenario's model inputs and analysis settings, with the optimum that starts each draw's search.</summary>
+    private static (BriefBenchmarks Demo, Model.Inputs.ModelInputs Inputs, AnalysisSettings Settings, double Guess) DemoModel()
     {
         var b = new BriefBenchmarks();
         b.Setup();
         var inputs = b.Scenario.Inputs;
-        var settings = b.Scenario.Analysis;
-        double guess = BalancedGrowth.Solve(inputs).Optimum.SchoolingYears;
+        return (b, inputs, b.Scenario.Analysis, BalancedGrowth.Solve(inputs).Optimum.SchoolingYears);
+    }
+
+    /// <summary>One Monte Carlo draw of the demo, piece by piece.</summary>
+    public static void Draw()
+    {
+        var (_, inputs, settings, guess) = DemoModel();
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
         double[] u = { 0.3, 0.6, 0.4, 0.55, 0.45 };
         Time("apply a draw to the inputs", 50, () => MonteCarlo.Apply(inputs, settings.MonteCarlo!.Parameters, u));
@@ -98,11 +103,7 @@ public static class Harness
     /// <summary>What one Monte Carlo draw and the demo's whole Monte Carlo allocate, by type (sampled).</summary>
     public static void Allocations()
     {
-        var b = new BriefBenchmarks();
-        b.Setup();
-        var inputs = b.Scenario.Inputs;
-        var settings = b.Scenario.Analysis;
-        double guess = BalancedGrowth.Solve(inputs).Optimum.SchoolingYears;
+        var (_, inputs, settings, guess) = DemoModel();
         AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, true));
         AllocationSampler.Report("Monte Carlo (2,000 draws, one thread)", 10, () => MonteCarlo.Run(inputs, settings, guess, 1));
     }
