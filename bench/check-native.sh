@@ -7,6 +7,13 @@ cd "$(dirname "$0")/.."
 work=$(mktemp -d)
 trap 'rm -rf "$work"' EXIT
 native=${1:-$work/native}
+# Native compilation links with the platform's C toolchain (clang or gcc, and objcopy); install it if missing.
+if ! command -v clang >/dev/null && ! command -v gcc >/dev/null || ! command -v objcopy >/dev/null; then
+  SUDO=$([ "$(id -u)" = 0 ] || echo sudo)
+  if command -v apt-get >/dev/null; then
+    ($SUDO apt-get update -qq && $SUDO apt-get install -y -qq clang binutils) >/dev/null 2>&1 || echo "warning: could not install clang" >&2
+  fi
+fi
 rid=$(dotnet --info | awk '/^ *RID:/ { print $2; exit }')
 echo "publishing the native executable for $rid ..."
 dotnet publish src/Briefwright.Cli -c Release -r "$rid" -o "$native" -v quiet -nologo >/dev/null
