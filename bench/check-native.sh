@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # Publishes the native executable (README, "Installing for scheduled jobs") and checks that it writes the same bytes
-# as the managed build: every file of the demo briefs (with theme, chart copies and annex), and the output of
-# check, solve --json, diff and schema. Run by CI after the tests. Usage: bench/check-native.sh [output folder]
+# as the managed build: every file of the demo briefs (with theme, chart copies and annex), the output of check,
+# solve --json, diff and schema, and the messages and exit code of check on every bad input of tests/corpus. Run by CI after the tests. Usage: bench/check-native.sh [output folder]
 set -euo pipefail
 cd "$(dirname "$0")/.."
 work=$(mktemp -d)
@@ -32,6 +32,11 @@ for who in managed native; do
   "${run[@]}" solve briefs-demo/auroria-silverdale.yaml > "$work/$who/solve.txt"
   "${run[@]}" diff briefs-demo/auroria-national.yaml briefs-demo/auroria-eastmark.yaml > "$work/$who/diff.txt" || true
   "${run[@]}" schema > "$work/$who/schema.json"
+  # Every bad input of the test corpus: the same messages and exit codes.
+  for f in tests/corpus/*; do
+    code=0; "${run[@]}" check "$f" > "$work/$who/corpus-$(basename "$f").txt" 2>&1 || code=$?
+    echo "exit $code" >> "$work/$who/corpus-$(basename "$f").txt"
+  done
 done
 count=0
 for f in "$work/managed/briefs"/*.* "$work/managed"/*.*; do
