@@ -97,14 +97,14 @@ public static class Harness
         var path = ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform);
         Time("one present value", 50, () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
         Time("local optimum search", 50, () => OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, guess, new ReformSimulator.Cache(true).Population(inputs), fast: true));
-        Time("whole draw (key results)", 50, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, true));
+        Time("whole draw (key results)", 50, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
     }
 
     /// <summary>What one Monte Carlo draw and the demo's whole Monte Carlo allocate, by type (sampled).</summary>
     public static void Allocations()
     {
         var (_, inputs, settings, guess) = DemoModel();
-        AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, true));
+        AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
         AllocationSampler.Report("Monte Carlo (2,000 draws, one thread)", 10, () => MonteCarlo.Run(inputs, settings, guess, 1));
     }
 

@@ -31,7 +31,7 @@ public class ModelBenchmarks
     public double LocalOptimum() => OptimumSearch.LocalFrom(scenario.Inputs.DemographyFor(scenario.Inputs.Baseline), scenario.Inputs.HumanCapital, guess + 1.3);
 
     [Benchmark]
-    public object KeyResultsOneDraw() => KeyResultsEvaluator.Evaluate(scenario.Inputs, tenThousand, guess + 1.3, true);
+    public object KeyResultsOneDraw() => KeyResultsEvaluator.Evaluate(scenario.Inputs, tenThousand, guess + 1.3, headlinePath: new double[tenThousand.Reform.HorizonYears + 1]);
 
     [Benchmark]
     public object MonteCarlo10k() => MonteCarlo.Run(scenario.Inputs, tenThousand, guess);

@@ -29,7 +29,7 @@ public sealed class BriefTemplate
     public string Text { get; }
 
     /// <summary>SHA-256 of the template text (hex), computed once: it goes into every brief's stamp and manifest.</summary>
-    public string Hash { get; } = "";
+    public string Hash { get; }
 
     public static BriefTemplate Parse(string text, string path)
     {

@@ -145,8 +145,8 @@ public class UncertaintyTests
             // Sobol runs evaluate the headline option alone; its numbers must be those of the full evaluation.
             var inputs = ReformSimulatorTests.Inputs();
             var settings = Settings();
-            var full = KeyResultsEvaluator.Evaluate(inputs, settings, 34, keepHeadlinePath: false);
-            var alone = KeyResultsEvaluator.Evaluate(inputs, settings, 34, keepHeadlinePath: false, headlineOnly: true);
+            var full = KeyResultsEvaluator.Evaluate(inputs, settings, 34);
+            var alone = KeyResultsEvaluator.Evaluate(inputs, settings, 34, headlineOnly: true);
             int k = full.OptionIds.ToList().IndexOf("plus1");
             Assert.Equal(new[] { "plus1" }, alone.OptionIds);
             Assert.Equal(full.LongRunChangePct[k], alone.LongRunChangePct[0]);

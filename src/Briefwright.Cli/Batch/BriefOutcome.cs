@@ -22,7 +22,7 @@ public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Sta
         TypeInfoResolver = BatchJsonContext.Default,
     };
 
-    private static System.Text.Json.Serialization.Metadata.JsonTypeInfo<BriefOutcome> Info => (System.Text.Json.Serialization.Metadata.JsonTypeInfo<BriefOutcome>)Json.GetTypeInfo(typeof(BriefOutcome));
+    private static readonly System.Text.Json.Serialization.Metadata.JsonTypeInfo<BriefOutcome> Info = (System.Text.Json.Serialization.Metadata.JsonTypeInfo<BriefOutcome>)Json.GetTypeInfo(typeof(BriefOutcome));
 
     public string LogLine() => JsonSerializer.Serialize(this, Info);
 }

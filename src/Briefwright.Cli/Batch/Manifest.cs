@@ -15,7 +15,7 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
         TypeInfoResolver = BatchJsonContext.Default,
     };
 
-    private static System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest> Info => (System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest>)Json.GetTypeInfo(typeof(Manifest));
+    private static readonly System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest> Info = (System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest>)Json.GetTypeInfo(typeof(Manifest));
 
     public static string PathFor(string outDir, string id) => Path.Combine(outDir, id + ".manifest.json");
 

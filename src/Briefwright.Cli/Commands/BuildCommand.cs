@@ -51,19 +51,19 @@ public static class BuildCommand
     }
 
     /// <summary>
-    /// On a spare core, while the command line and the first scenario are read: parses the standard template (unless
-    /// another is named), hashes the bundled fonts and reads a sample manifest, so that a single brief built by a fresh
-    /// process finishes sooner. The template and the hash are computed once per process either way; a failure here
-    /// surfaces, with its message, where the value is first used.
+    /// On a spare core, while the command line and the first scenario are read: parses the standard template, hashes
+    /// the bundled fonts and reads a sample manifest, so that a single brief built by a fresh process finishes sooner.
+    /// The template and the hash are computed once per process either way (the template is parsed even when another is
+    /// named: reading the options here would repeat the command-line parser); a failure here surfaces, with its
+    /// message, where the value is first used.
     /// </summary>
-    public static void HeadStart(IReadOnlyList<string> args)
+    public static void HeadStart()
     {
-        bool ownTemplate = args.Any(a => a is "-t" or "--template" || a.StartsWith("--template", StringComparison.Ordinal) || a.StartsWith("-t:", StringComparison.Ordinal) || a.StartsWith("-t=", StringComparison.Ordinal));
         Task.Run(() =>
         {
             try
             {
-                if (!ownTemplate) _ = StandardTemplate.Template;
+                _ = StandardTemplate.Template;
                 _ = BatchBuilder.FontsHash.Value;
                 Manifest.Parse("""{"id":"a","stem":"a-2000-01-01","edition":1,"hash":"0","inputs":{"tool":"0"},"files":["a.pdf"]}""");
             }

@@ -45,7 +45,7 @@ public static class AnalysisRunner
             var trial = MonteCarlo.Apply(inputs, spec.Parameters, u);
             if (Parameters.Violation(trial) is not null) return null;
             // Only the headline option's results are used, so only its reform path is simulated.
-            var k = KeyResultsEvaluator.Evaluate(trial, settings, guess, keepHeadlinePath: false, headlineOnly: true);
+            var k = KeyResultsEvaluator.Evaluate(trial, settings, guess, headlineOnly: true);
             return new[] { k.LongRunChangePct[0], k.OptimumYears, k.PresentValue[0] };
         }, maxThreads);
         return new GlobalSensitivity(SobolOutputs, indices);

@@ -9,29 +9,28 @@ public sealed record KeyResults(
     IReadOnlyList<string> OptionIds,
     double[] LongRunChangePct,
     double[] PresentValue,
-    double OptimumYears,
-    [property: System.Text.Json.Serialization.JsonIgnore] double[]? HeadlinePath);
+    double OptimumYears);
 
 /// <summary>Evaluates the key results quickly enough to repeat thousands of times.</summary>
 public static class KeyResultsEvaluator
 {
     /// <param name="headlineOnly">Evaluate the headline option alone (the result lists then hold just it).</param>
-    public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool keepHeadlinePath, bool headlineOnly = false)
+    /// <param name="headlinePath">Where to copy the headline option's reform path (horizon + 1 values); empty to skip.</param>
+    public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool headlineOnly = false, Span<double> headlinePath = default)
     {
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId && (!headlineOnly || o.Id == settings.HeadlineOptionId)).ToList();
         var cache = new ReformSimulator.Cache(fast: true);
         double baseY = cache.OutputPerPerson(inputs, inputs.Baseline);
         var change = new double[alternatives.Count];
         var pv = new double[alternatives.Count];
-        double[]? headlinePath = null;
         for (int i = 0; i < alternatives.Count; i++)
         {
             change[i] = 100 * (cache.OutputPerPerson(inputs, alternatives[i]) / baseY - 1);
             var path = ReformSimulator.Simulate(inputs, alternatives[i], settings.Reform, cache);
             pv[i] = PresentValue.ToHorizonOnly(path, settings.Headline, inputs.Production.TechnologyGrowth);
-            if (keepHeadlinePath && alternatives[i].Id == settings.HeadlineOptionId) headlinePath = path.Gain;
+            if (!headlinePath.IsEmpty && alternatives[i].Id == settings.HeadlineOptionId) path.Gain.CopyTo(headlinePath);
         }
         double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess, cache.Population(inputs), fast: true);
-        return new KeyResults(alternatives.Select(o => o.Id).ToList(), change, pv, optimum, headlinePath);
+        return new KeyResults(alternatives.Select(o => o.Id).ToList(), change, pv, optimum);
     }
 }

@@ -5,9 +5,9 @@ namespace Briefwright.Model.Uncertainty;
 /// <summary>Percentiles 5, 25, 50, 75, 95 of one result over the accepted draws.</summary>
 public sealed record Percentiles(double P5, double P25, double P50, double P75, double P95, double Mean)
 {
-    public static Percentiles Of(IReadOnlyList<double> values)
+    /// <summary>The percentiles of <paramref name="sorted"/>, which is sorted in place (callers pass an array of their own).</summary>
+    public static Percentiles Of(double[] sorted)
     {
-        var sorted = values.ToArray();
         Array.Sort(sorted);
         double Q(double p)
         {
@@ -55,8 +55,8 @@ public static class MonteCarlo
         int d = spec.Parameters.Count;
         var results = new KeyResults?[spec.Draws];
         var rejected = new int[spec.Draws];
-        // The headline paths of all draws, row by row, in one block allocated once: kept per draw they would be
-        // copied by every collection while the draws run.
+        // The headline paths of all draws, row by row, in one block allocated once: kept as an array per draw they
+        // would be copied by every collection while the draws run.
         int width = settings.Reform.HorizonYears + 1;
         var paths = new double[spec.Draws * width];
         Parallel.For(0, spec.Draws, ModelThreads.Options(maxThreads), i =>
@@ -68,9 +68,7 @@ public static class MonteCarlo
                 for (int j = 0; j < d; j++) u[j] = rng.NextOpenUnit();
                 var trial = Apply(inputs, spec.Parameters, u);
                 if (Parameters.Violation(trial) is not null) { rejected[i]++; continue; }
-                var k = KeyResultsEvaluator.Evaluate(trial, settings, optimumGuess, keepHeadlinePath: true);
-                k.HeadlinePath!.CopyTo(paths, i * width);
-                results[i] = k with { HeadlinePath = null };
+                results[i] = KeyResultsEvaluator.Evaluate(trial, settings, optimumGuess, headlinePath: paths.AsSpan(i * width, width));
                 return;
             }
         });
@@ -81,8 +79,8 @@ public static class MonteCarlo
         var ids = accepted[0].OptionIds;
         var options = ids.Select((id, k) => new OptionUncertainty(
             id,
-            Percentiles.Of(accepted.Select(r => r.LongRunChangePct[k]).ToList()),
-            Percentiles.Of(accepted.Select(r => r.PresentValue[k]).ToList()),
+            Percentiles.Of(accepted.Select(r => r.LongRunChangePct[k]).ToArray()),
+            Percentiles.Of(accepted.Select(r => r.PresentValue[k]).ToArray()),
             accepted.Count(r => r.LongRunChangePct[k] > 0) / (double)accepted.Count,
             accepted.Count(r => r.PresentValue[k] > 0) / (double)accepted.Count)).ToList();
         var fan = ModelThreads.Map(width, maxThreads, t =>
@@ -93,7 +91,7 @@ public static class MonteCarlo
         });
         int headline = ids.ToList().IndexOf(settings.HeadlineOptionId);
         return new MonteCarloResults(accepted.Count, rejected.Sum(), spec.Seed, options,
-            Percentiles.Of(accepted.Select(r => r.OptimumYears).ToList()), fan,
+            Percentiles.Of(accepted.Select(r => r.OptimumYears).ToArray()), fan,
             accepted.Select(r => r.LongRunChangePct[headline]).ToArray());
     }
 }

@@ -19,8 +19,8 @@ public static class Sensitivity
         {
             var range = settings.Ranges[r];
             var def = Parameters.Find(range.Parameter) ?? throw new ArgumentException($"Unknown parameter {range.Parameter}.");
-            var low = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.Low), settings, optimumGuess, false);
-            var high = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.High), settings, optimumGuess, false);
+            var low = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.Low), settings, optimumGuess);
+            var high = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.High), settings, optimumGuess);
             return new TornadoRow(range.Parameter, def.Label, range.Low, range.High, low, high, Math.Abs(high.LongRunChangePct[headline] - low.LongRunChangePct[headline]));
         });
         // Swings equal to rounding (parameters that do not move the long-run change) tie and are ordered by name, so
