@@ -24,16 +24,31 @@ public sealed class DocumentComposer
     public static IReadOnlyList<IReadOnlyList<Placement>> Layout(BriefDocument brief, Theme theme, ITextMeasurer measurer) =>
         Paginator.Paginate(new Planner(theme, measurer).Plan(brief.Blocks), theme.ContentHeight);
 
-    /// <summary>Draws laid-out pages on any surface, with running header and footer as artifacts.</summary>
+    /// <summary>
+    /// Draws laid-out pages on any surface, with running header and footer as artifacts. A paragraph, list or table
+    /// that runs over a page stays one structure element; a table's header row repeated on the continued page is
+    /// drawn as an artifact, so the structure holds it once.
+    /// </summary>
     public static void Draw(BriefDocument brief, Theme theme, IReadOnlyList<IReadOnlyList<Placement>> pages, IDrawingSurface surface, ITextMeasurer measurer)
     {
+        object? group = null;
+        var drawn = new HashSet<Atom>(ReferenceEqualityComparer.Instance);
         for (int p = 0; p < pages.Count; p++)
         {
             surface.BeginPage(p, theme.PageWidth, theme.PageHeight);
             DrawRunningParts(brief.Info, theme, p, pages.Count, surface, measurer);
-            object? group = null;
-            foreach (var (atom, y) in pages[p])
+            var placed = pages[p];
+            for (int k = 0; k < placed.Count; k++)
             {
+                var (atom, y) = placed[k];
+                if (!drawn.Add(atom))
+                {
+                    // Drawn before: a table's header row repeated where the table continues.
+                    surface.BeginArtifact();
+                    atom.Draw(new ArtifactSurface(surface), theme, theme.MarginLeft, theme.MarginTop + y);
+                    surface.EndArtifact();
+                    continue;
+                }
                 if (atom.Group != group)
                 {
                     if (group is not null) surface.EndTag();
@@ -42,10 +57,18 @@ public sealed class DocumentComposer
                 }
                 atom.Draw(surface, theme, theme.MarginLeft, theme.MarginTop + y);
             }
-            if (group is not null) surface.EndTag();
+            if (group is not null && (p + 1 == pages.Count || FirstContent(pages[p + 1], drawn)?.Group != group))
+            {
+                surface.EndTag();
+                group = null;
+            }
             surface.EndPage();
         }
     }
+
+    /// <summary>The first atom of a page that is not a repeat of one drawn before.</summary>
+    private static Atom? FirstContent(IReadOnlyList<Placement> placed, HashSet<Atom> drawn) =>
+        placed.Select(x => x.Atom).FirstOrDefault(a => !drawn.Contains(a));
 
     private static void DrawRunningParts(DocumentInfo info, Theme theme, int page, int pageCount, IDrawingSurface surface, ITextMeasurer measurer)
     {

@@ -15,9 +15,14 @@ public enum StructTag
     LBody,
     Table,
     TR,
+    /// <summary>A column header cell (in a header row).</summary>
     TH,
+    /// <summary>A row header cell (first cell of a body row in a table with row headers).</summary>
+    THRow,
     TD,
     Figure,
+    /// <summary>A typeset equation; like a figure it needs alternative text and a bounding box.</summary>
+    Formula,
     Caption,
     Div,
 }
@@ -52,7 +57,13 @@ public interface IDrawingSurface
     /// <summary>Places page <paramref name="page"/> (1-based) of a vector PDF scaled into <paramref name="box"/>.</summary>
     void Figure(string id, byte[] pdf, int page, Box box);
 
-    void Link(Box box, string url);
+    /// <summary>
+    /// Opens a link over <paramref name="box"/>: the text drawn until <see cref="EndLink"/> is the link's content;
+    /// <paramref name="text"/> is its visible wording, used for the annotation's text alternative.
+    /// </summary>
+    void BeginLink(Box box, string url, string text);
+
+    void EndLink();
 
     /// <summary>Places a PNG image (a logo) scaled into <paramref name="box"/>.</summary>
     void Image(byte[] png, Box box);

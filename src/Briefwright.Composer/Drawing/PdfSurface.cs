@@ -5,7 +5,11 @@ using PdfSharp.UniversalAccessibility;
 
 namespace Briefwright.Composer.Drawing;
 
-/// <summary>Draws into a tagged PDF with PDFsharp: structure elements, artifacts, outline entries and links.</summary>
+/// <summary>
+/// Draws into a tagged PDF (PDF/UA-1) with PDFsharp: structure elements, artifacts, outline entries and links.
+/// Header cells carry their scope, figures their alternative text and a bounding box in page space, and each link
+/// annotation sits in a Link structure element beside the text it covers, with a text alternative.
+/// </summary>
 public sealed class PdfSurface : IDrawingSurface
 {
     private readonly PdfDocument document;
@@ -36,6 +40,9 @@ public sealed class PdfSurface : IDrawingSurface
 
     public void EndPage()
     {
+        // A structure element may continue on the next page (a table or paragraph that runs over), but its marked
+        // content must be closed in this page's content stream.
+        structure.EndMarkedContentsWithId();
         gfx?.Dispose();
         gfx = null;
     }
@@ -45,8 +52,14 @@ public sealed class PdfSurface : IDrawingSurface
         switch (tag)
         {
             case StructTag.Figure:
+            case StructTag.Formula:
+                // PDFsharp writes the rectangle as given; the layout attribute BBox is in page space (y up).
                 var b = bounds ?? new Box(0, 0, 0, 0);
-                structure.BeginElement(PdfIllustrationElementTag.Figure, altText ?? "", new XRect(b.X, b.Y, b.Width, b.Height));
+                double pageHeight = page!.Height.Point;
+                structure.BeginElement(
+                    tag == StructTag.Figure ? PdfIllustrationElementTag.Figure : PdfIllustrationElementTag.Formula,
+                    altText ?? "",
+                    new XRect(b.X, pageHeight - b.Y - b.Height, b.Width, b.Height));
                 break;
             case StructTag.Caption:
                 structure.BeginElement(PdfGroupingElementTag.Caption);
@@ -66,10 +79,16 @@ public sealed class PdfSurface : IDrawingSurface
                     StructTag.LBody => PdfBlockLevelElementTag.ListBody,
                     StructTag.Table => PdfBlockLevelElementTag.Table,
                     StructTag.TR => PdfBlockLevelElementTag.TableRow,
-                    StructTag.TH => PdfBlockLevelElementTag.TableHeaderCell,
+                    StructTag.TH or StructTag.THRow => PdfBlockLevelElementTag.TableHeaderCell,
                     StructTag.TD => PdfBlockLevelElementTag.TableDataCell,
                     _ => PdfBlockLevelElementTag.Paragraph,
                 });
+                if (tag is StructTag.TH or StructTag.THRow)
+                {
+                    // Table attributes: a header cell applies to its column (header row) or its row (first column).
+                    var attributes = structure.CurrentStructureElement.TableAttributes;
+                    attributes.Elements.SetName("/Scope", tag == StructTag.TH ? "/Column" : "/Row");
+                }
                 break;
         }
     }
@@ -110,11 +129,29 @@ public sealed class PdfSurface : IDrawingSurface
         G.DrawImage(form, box.X, box.Y, box.Width, box.Height);
     }
 
-    public void Link(Box box, string url)
+    /// <summary>
+    /// Opens a Link structure element holding the annotation (by object reference) and, until
+    /// <see cref="EndLink"/>, the text drawn over it. The annotation's Contents is its text alternative. PDFsharp adds
+    /// the annotation to the page and sets the page's tab order to the structure order.
+    /// </summary>
+    public void BeginLink(Box box, string url, string text)
     {
         double h = page!.Height.Point;
         var rect = new PdfRectangle(new XPoint(box.X, h - box.Y - box.Height), new XPoint(box.X + box.Width, h - box.Y));
-        page.AddWebLink(rect, url);
+        var link = PdfSharp.Pdf.Annotations.PdfLinkAnnotation.CreateWebLink(rect, url);
+        // Optional entries PDFsharp fills from the clock and a random GUID: left out, so the bytes depend on content only.
+        link.Elements.Remove("/NM");
+        link.Elements.Remove("/M");
+        structure.BeginElement(link, LinkAlternative(text, url));
+    }
+
+    public void EndLink() => structure.End();
+
+    /// <summary>What a screen reader announces for a link: its words and where it leads.</summary>
+    public static string LinkAlternative(string text, string url)
+    {
+        string words = text.Trim();
+        return words.Length == 0 || words == url ? $"Link to {url}" : $"{words} (link to {url})";
     }
 
     public void Image(byte[] png, Box box)

@@ -10,6 +10,7 @@ public sealed class RecordingSurface : IDrawingSurface
     private readonly List<Op> ops = new();
     private int page = -1;
     private int depth;
+    private int artifacts;
 
     public IReadOnlyList<Op> Ops => ops;
     public int PageCount => page + 1;
@@ -23,7 +24,8 @@ public sealed class RecordingSurface : IDrawingSurface
 
     public void EndPage()
     {
-        if (depth != 0) throw new InvalidOperationException($"Structure tags must be closed at the end of a page. Got {depth} open.");
+        // A structure element may continue on the next page; an artifact may not.
+        if (artifacts != 0) throw new InvalidOperationException($"Artifacts must be closed at the end of a page. Got {artifacts} open.");
     }
 
     public void BeginTag(StructTag tag, string? altText = null, Box? bounds = null)
@@ -33,8 +35,11 @@ public sealed class RecordingSurface : IDrawingSurface
     }
 
     public void EndTag() => depth--;
-    public void BeginArtifact() => depth++;
-    public void EndArtifact() => depth--;
+    public void BeginArtifact() => artifacts++;
+    public void EndArtifact() => artifacts--;
+
+    /// <summary>Structure elements still open (0 once the document is drawn).</summary>
+    public int OpenTags => depth;
 
     public void Text(string text, double x, double baseline, FontSpec font, Rgb color) =>
         ops.Add(new Op(page, "text", text, x, baseline, 0, font.Size));
@@ -42,7 +47,13 @@ public sealed class RecordingSurface : IDrawingSurface
     public void FillRect(Box box, Rgb color) => ops.Add(new Op(page, "rect", "", box.X, box.Y, box.Width, box.Height));
     public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) => ops.Add(new Op(page, "line", "", x1, y1, x2 - x1, y2 - y1));
     public void Figure(string id, byte[] pdf, int page, Box box) => ops.Add(new Op(page, "figure", id, box.X, box.Y, box.Width, box.Height));
-    public void Link(Box box, string url) => ops.Add(new Op(page, "link", url, box.X, box.Y, box.Width, box.Height));
+    public void BeginLink(Box box, string url, string text)
+    {
+        depth++;
+        ops.Add(new Op(page, "link", url, box.X, box.Y, box.Width, box.Height));
+    }
+
+    public void EndLink() => depth--;
     public void Image(byte[] png, Box box) => ops.Add(new Op(page, "image", "", box.X, box.Y, box.Width, box.Height));
     public void Outline(int level, string title, double y) => ops.Add(new Op(page, "outline", title, level, y));
 }

@@ -37,10 +37,16 @@ public sealed class LinesAtom : Atom
             double baseline = y + i * lineHeight + ascent;
             foreach (var span in lines[i].Spans)
             {
-                surface.Text(span.Text, x + span.X, baseline, span.Font, span.Link is null ? color : theme.Accent);
-                if (span.Link is not null)
+                if (span.Link is null)
                 {
-                    surface.Link(new Box(x + span.X, y + i * lineHeight, span.Width, lineHeight), span.Link);
+                    surface.Text(span.Text, x + span.X, baseline, span.Font, color);
+                }
+                else
+                {
+                    // The link's text goes inside its Link structure element, with the annotation.
+                    surface.BeginLink(new Box(x + span.X, y + i * lineHeight, span.Width, lineHeight), span.Link, span.Text);
+                    surface.Text(span.Text, x + span.X, baseline, span.Font, theme.Accent);
+                    surface.EndLink();
                     surface.BeginArtifact();
                     surface.Line(x + span.X, baseline + 1.2, x + span.X + span.Width, baseline + 1.2, theme.Accent, 0.4);
                     surface.EndArtifact();
