@@ -62,7 +62,9 @@ public sealed class PdfSurface : IDrawingSurface
                     new XRect(b.X, pageHeight - b.Y - b.Height, b.Width, b.Height));
                 break;
             case StructTag.Caption:
-                structure.BeginElement(PdfGroupingElementTag.Caption);
+                // PDFsharp files Caption among grouping elements, which mark no content: text drawn in one would be
+                // neither tagged nor an artifact. A caption holds its text directly, so it is opened as block-level.
+                structure.BeginBlockLevelElement("Caption");
                 break;
             case StructTag.Div:
                 structure.BeginElement(PdfGroupingElementTag.Division);
