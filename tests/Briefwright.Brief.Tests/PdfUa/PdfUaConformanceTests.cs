@@ -91,6 +91,7 @@ public class PdfUaConformanceTests
     [Fact]
     public void An_untagged_pdf_fails_01_005_and_the_metadata_checks()
     {
+        BundledFonts.Install();
         using var doc = new PdfSharp.Pdf.PdfDocument();
         var page = doc.AddPage();
         using (var g = PdfSharp.Drawing.XGraphics.FromPdfPage(page))
