@@ -51,7 +51,18 @@ public static class ScenarioSchema
         const string any = "(\\.[0-9]*)?", zero = "(\\.0*)?", nonZero = "\\.[0-9]*[1-9][0-9]*";
         var positive = new List<string>();
         var negative = new List<string>();
-        string Ints(int from, int to) => string.Join("|", Enumerable.Range(from, Math.Max(0, to - from + 1)).Select(i => i.ToString(CultureInfo.InvariantCulture)));
+        // Whole numbers from..to, grouped by tens: 0..99 is [0-9]|1[0-9]|…|9[0-9].
+        string Ints(int from, int to)
+        {
+            var parts = new List<string>();
+            for (int tens = from / 10; tens <= to / 10; tens++)
+            {
+                int lo = Math.Max(from, tens * 10) % 10, hi = Math.Min(to, tens * 10 + 9) % 10;
+                string prefix = tens == 0 ? "" : tens.ToString(CultureInfo.InvariantCulture);
+                parts.Add(prefix + (lo == hi ? $"{lo}" : $"[{lo}-{hi}]"));
+            }
+            return string.Join("|", parts);
+        }
         void Add(List<string> into, int from, int to, string fraction)
         {
             if (to >= from) into.Add($"0*({Ints(from, to)}){fraction}");
@@ -149,7 +160,7 @@ public static class ScenarioSchema
         var returns = Variants("Returns to schooling", "form", strict,
             ("constant", Obj(("rate", Num("Return to a year of schooling", Bounds.Open(0, 1), rate: true))), ["rate"]),
             ("power", Obj(("theta", Num("Power-form scale θ", Bounds.Open(0, 2))), ("psi", Num("Power-form curvature ψ", Bounds.ClosedOpen(0, 1)))), ["theta", "psi"]),
-            ("brackets", Obj(("brackets", Obj(("type", "array"), ("items", bracket))), ("source", Str("Source")), ("note", Str("Note", 1000))), []));
+            ("brackets", Obj(("brackets", Obj(("type", "array"), ("minItems", 1), ("items", bracket))), ("source", Str("Source")), ("note", Str("Note", 1000))), []));
         var experience = Section("Mincer experience profile", Obj(("linear", Num("β1", Bounds.Closed(0, 0.5))), ("quadratic", Num("β2", Bounds.OpenClosed(0, 0.05)))),
             strict, "linear", "quadratic");
         var humanCapital = Section("Human capital", Obj(("returns", returns), ("experience", experience)), strict);
