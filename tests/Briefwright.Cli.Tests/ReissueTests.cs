@@ -298,12 +298,13 @@ public class ReissueTests
         [Fact]
         public async Task All_shards_of_a_folder_run_at_once_into_one_output_folder_build_every_brief_exactly_once()
         {
-            // Given the four demo briefs, and three shard jobs started at the same time, each naming the folder its own way
+            // Given the four demo briefs, and both shard jobs of two started at the same time, each naming the folder
+            // its own way (two shards, so that neither is empty)
             var w = new Workspace();
             string outDir = Path.Combine(w.Dir, "shared-out");
-            var spellings = new[] { w.Dir, w.Dir + "/", w.Dir + "/." };
-            var runs = Enumerable.Range(1, 3).Select(k => Task.Run(() =>
-                Run(A("build", spellings[k - 1], "-o", outDir, "-q", "--no-chart-images", "--jobs", "1", "--shard", $"{k}/3")))).ToArray();
+            var spellings = new[] { w.Dir + "/", w.Dir + "/./" };
+            var runs = Enumerable.Range(1, 2).Select(k => Task.Run(() =>
+                Run(A("build", spellings[k - 1], "-o", outDir, "-q", "--no-chart-images", "--jobs", "1", "--shard", $"{k}/2")))).ToArray();
             await Task.WhenAll(runs);
 
             // Then every job succeeds and every brief was built once, by one shard
@@ -311,6 +312,7 @@ public class ReissueTests
             var built = LogLines(outDir).Where(l => l.GetProperty("status").GetString() == "built").Select(l => l.GetProperty("id").GetString()).ToList();
             Assert.Equal(new[] { "auroria-eastmark", "auroria-national", "auroria-northport", "auroria-silverdale" }, built.Order());
             Assert.Equal(4, Directory.GetFiles(outDir, "*.pdf").Length);
+            Assert.Equal(2, LogLines(outDir).Select(l => l.GetProperty("shard").GetString()).Distinct().Count());
         }
     }
 
