@@ -54,6 +54,6 @@ measure "demo: one regional brief, no chart images (whole process)" $BW build br
 measure "one generated regional brief (200 draws), whole process" $BW build "$work/regions/region-001.yaml" -o "$work/one" -q --force --no-chart-images
 measure "200 regional briefs + national (light MC, no chart images)" $BW build "$work/regions" -o "$work/out" -q --no-chart-images
 measure "no-op rebuild of the same 201 briefs" $BW build "$work/regions" -o "$work/out" -q --no-chart-images
-measure "200 regional briefs + national, --no-sync" $BW build "$work/regions" -o "$work/out3" -q --no-chart-images --no-sync
+measure "200 regional briefs + national, --skip-flush" $BW build "$work/regions" -o "$work/out3" -q --no-chart-images --skip-flush
 measure "200 regional briefs + national (light MC, with chart images)" $BW build "$work/regions" -o "$work/out2" -q
 ls "$work/out"/*.pdf | head -1 | xargs -I{} sh -c 'printf "%-58s %8s KB\n" "size of one regional brief" $(( $(stat -c %s {}) / 1024 ))'

@@ -3,26 +3,45 @@ using Briefwright.Cli.Commands;
 
 namespace Briefwright.Cli;
 
+/// <summary>What a command may touch besides files: the console's three streams, whether it is a terminal, and the
+/// clock (read only for the build log's time stamps). Tests pass their own.</summary>
+public sealed record CliIo(TextWriter Out, TextWriter Err, TextReader In, bool Interactive, TimeProvider Clock);
+
 /// <summary>The command tree. Every command writes to the given writers and returns an exit code, so tests run it in process.</summary>
 public static class CliApp
 {
-    public static int Run(string[] args, TextWriter output, TextWriter error, bool interactive = false)
+    public static int Run(string[] args, TextWriter output, TextWriter error, bool interactive = false, TextReader? input = null, TimeProvider? clock = null) =>
+        Run(args, new CliIo(output, error, input ?? TextReader.Null, interactive, clock ?? TimeProvider.System));
+
+    public static int Run(string[] args, CliIo io)
     {
         if (args is ["build", ..]) BuildCommand.HeadStart();
         var root = new RootCommand(
             "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief (PDF) on " +
             "schooling length, demography and long-run output per person, with its numbers also written as data.\n\n" +
-            "Start with:  briefwright check briefs-demo,  briefwright solve briefs-demo/auroria-national.yaml,\n" +
+            "Start with:  briefwright init my-briefs,  briefwright check briefs-demo,\n" +
+            "             briefwright solve briefs-demo/auroria-national.yaml,\n" +
             "             briefwright build briefs-demo   (writes briefs-demo/out/<id>-<date>.pdf)\n" +
-            "Exit codes: 0 success, 1 a brief or run failed, 2 invalid input (nothing written).")
+            "A path '-' reads one scenario from standard input (check, solve, diff).\n" +
+            "Exit codes: 0 success, 1 a brief or run failed, 2 invalid input or usage (nothing written).")
         {
-            CheckCommand.Create(output, error),
-            SolveCommand.Create(output, error),
-            BuildCommand.Create(output, error, interactive),
-            DiffCommand.Create(output, error),
-            SchemaCommand.Create(output),
+            CheckCommand.Create(io),
+            SolveCommand.Create(io),
+            BuildCommand.Create(io),
+            DiffCommand.Create(io.Out, io.Err, io.In),
+            SchemaCommand.Create(io.Out, io.Err),
+            InitCommand.Create(io.Out, io.Err),
         };
-        var config = new InvocationConfiguration { Output = output, Error = error };
-        return root.Parse(args).Invoke(config);
+        var parsed = root.Parse(args);
+        var usage = Usage.Check(root, args, parsed);
+        if (usage is not null)
+        {
+            io.Err.WriteLine(usage.Message);
+            io.Err.WriteLine(usage.Hint);
+            if (usage.Command == "build") BuildCommand.LogUsageError(args, usage.Message, io);
+            return ExitCodes.InvalidInput;
+        }
+        var config = new InvocationConfiguration { Output = io.Out, Error = io.Err };
+        return parsed.Invoke(config);
     }
 }

@@ -6,7 +6,7 @@ public static class Program
     {
         try
         {
-            return CliApp.Run(args, Console.Out, Console.Error, interactive: !Console.IsOutputRedirected);
+            return CliApp.Run(args, Console.Out, Console.Error, interactive: !Console.IsOutputRedirected, input: Console.In);
         }
         catch (Exception ex)
         {

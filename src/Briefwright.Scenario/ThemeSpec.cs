@@ -35,9 +35,9 @@ public static partial class ThemeLoader
         var ctx = new BindContext();
         if (root is not YMapping top) { ctx.Report(root.At, "", "a theme must be a mapping", root.Kind); return (null, ctx.Problems, sources); }
         ctx.CheckKeys(top, "", "name", "paper", "colours", "footer", "logo", "fonts");
-        string? name = ctx.Text(top, "name", "", required: true, maxLength: 120);
+        string? name = ctx.Text(top, "name", "", required: true, maxLength: ThemeSchema.MaxName);
         string paper = ctx.Choice(top, "paper", "", required: false, "a4", "letter") ?? "a4";
-        string? footer = ctx.Text(top, "footer", "", required: false, maxLength: 160);
+        string? footer = ctx.Text(top, "footer", "", required: false, maxLength: ThemeSchema.MaxFooter);
         string? logo = ctx.Text(top, "logo", "", required: false);
         var colours = new Dictionary<string, string>();
         if (ctx.Mapping(top, "colours", "", required: false) is { } c)

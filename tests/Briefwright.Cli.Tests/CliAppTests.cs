@@ -29,7 +29,7 @@ public class CliAppTests
             var (code, output, error) = Run("check", Demo());
             Assert.Equal(0, code);
             Assert.Equal("", error);
-            Assert.Equal(4, output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length);
+            Assert.Equal(5, output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length); // four scenarios and the theme
         }
 
         [Fact]
@@ -54,7 +54,7 @@ public class CliAppTests
             var (code, output, _) = Run("solve", "--json", Demo("auroria-national.yaml"));
             Assert.Equal(0, code);
             using var doc = JsonDocument.Parse(output);
-            var root = doc.RootElement;
+            var root = Assert.Single(doc.RootElement.EnumerateArray());
             Assert.Equal("auroria-national", root.GetProperty("scenario_id").GetString());
             var option = root.GetProperty("options")[1];
             foreach (var name in new[] { "id", "schooling_years", "worker_share", "human_capital_per_worker", "output_per_person", "change_vs_baseline_pct" })
@@ -103,7 +103,7 @@ public class SchemaAndDiffTests
         Assert.Equal(0, code);
         Assert.Equal(File.ReadAllText(Path.Combine(CliAppTests.RepoRoot(), "docs", "scenario.schema.json")), output);
         using var doc = System.Text.Json.JsonDocument.Parse(output);
-        var sections = doc.RootElement.GetProperty("properties").EnumerateObject().Select(p => p.Name).Order();
+        var sections = doc.RootElement.GetProperty("$defs").GetProperty("complete").GetProperty("properties").EnumerateObject().Select(p => p.Name).Order();
         Assert.Equal(Briefwright.Scenario.Binding.ScenarioBinder.TopLevelKeys.Order(), sections);
     }
 

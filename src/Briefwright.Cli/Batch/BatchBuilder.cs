@@ -16,6 +16,9 @@ public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options,
 {
     /// <summary>Flush the brief, its results and its manifest to the disk before renaming them into place.</summary>
     public bool Durable { get; init; } = true;
+
+    /// <summary>Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs read "–", "β₁" and "δ" right.</summary>
+    public bool CsvByteOrderMark { get; init; }
 }
 
 /// <summary>
@@ -34,20 +37,26 @@ public static class BatchBuilder
         return Convert.ToHexStringLower(sha.GetHashAndReset());
     });
 
-    public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error)
+    /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when null.</param>
+    public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error, LoadResult? loadedBefore = null)
     {
         var watch = Stopwatch.StartNew();
-        var errors = new StringWriter();
-        var loaded = ScenarioInputs.Load(file, errors);
+        var loaded = loadedBefore ?? new ScenarioLoader(new FileSourceReader()).Load(file);
         if (!loaded.Ok)
         {
+            var errors = new StringWriter();
+            ScenarioInputs.Report(file, loaded, errors);
             lock (error) error.Write(errors.ToString());
-            return new BriefOutcome(file, null, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, $"{loaded.Problems.Count} problem(s) in the scenario");
+            return new BriefOutcome(file, null, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, $"{loaded.Problems.Count} problem(s) in the scenario")
+            {
+                Messages = loaded.Problems.Select(p => p.Message).ToList(),
+            };
         }
         var scenario = loaded.Document!;
         if (settings.Date is { } d) scenario = scenario with { Brief = scenario.Brief with { Date = d } };
         string id = scenario.Brief.Id;
         string dir = settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
+        string? hash = null;
         try
         {
             Directory.CreateDirectory(dir);
@@ -61,10 +70,11 @@ public static class BatchBuilder
                 ["date"] = scenario.Brief.Date.ToString("yyyy-MM-dd"),
                 ["annex_images"] = settings.AnnexImages ? "yes" : "no",
             };
-            string hash = BriefBuilder.Sha256(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")));
+            if (settings.CsvByteOrderMark) inputs["csv_bom"] = "yes";
+            hash = BriefBuilder.Sha256(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")));
             var previous = Manifest.Read(dir, id);
             if (!settings.Force && previous is not null && previous.Hash == hash && previous.FilesPresent(dir))
-                return new BriefOutcome(file, id, OutcomeStatus.Skipped, previous.Edition, Path.Combine(dir, previous.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null);
+                return new BriefOutcome(file, id, OutcomeStatus.Skipped, previous.Edition, Path.Combine(dir, previous.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { InputHash = hash };
 
             WarmUp.Start(); // this brief will be built: let the output libraries start up while its model runs
             bool newEdition = previous is not null && previous.Hash != hash && previous.FilesPresent(dir);
@@ -84,7 +94,8 @@ public static class BatchBuilder
                 AtomicFile.Write(Path.Combine(dir, name), bytes, durable && settings.Durable);
                 files.Add(name);
             }
-            foreach (var a in brief.Annex) Put($"{brief.FileStem}.{a.Suffix}", a.Bytes, durable: false);
+            foreach (var a in brief.Annex)
+                Put($"{brief.FileStem}.{a.Suffix}", settings.CsvByteOrderMark && a.Suffix.EndsWith(".csv", StringComparison.Ordinal) ? [0xEF, 0xBB, 0xBF, .. a.Bytes] : a.Bytes, durable: false);
             Put(brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson));
             Put(brief.FileStem + ".pdf", brief.Pdf);
             AtomicFile.Write(Manifest.PathFor(dir, id), new Manifest(id, brief.FileStem, edition, hash, inputs, files).ToBytes(), settings.Durable);
@@ -92,28 +103,34 @@ public static class BatchBuilder
                 foreach (var old in previous.Files.Except(files))
                     try { File.Delete(Path.Combine(dir, old)); } catch (IOException) { }
             string pdf = Path.Combine(dir, brief.FileStem + ".pdf");
-            return new BriefOutcome(file, id, OutcomeStatus.Built, edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null);
+            return new BriefOutcome(file, id, OutcomeStatus.Built, edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null) { InputHash = hash };
         }
         catch (TemplateException ex)
         {
             lock (error) foreach (var e in ex.Errors) error.WriteLine(e);
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "template error");
+            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "template error")
+            {
+                InputHash = hash, Messages = ex.Errors.Select(e => e.ToString().Split('\n')[0]).ToList(),
+            };
         }
         catch (ComposeException ex)
         {
-            lock (error) error.WriteLine($"{Position(settings.Template, ex)}: {ex.Message}");
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
+            string message = $"{Position(settings.Template, ex)}: {ex.Message}";
+            lock (error) error.WriteLine(message);
+            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            lock (error) error.WriteLine($"{file}: cannot write the brief to {dir} ({ex.Message}); previous files are untouched.");
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
+            string message = $"{file}: cannot write the brief to {dir} ({ex.Message}); previous files are untouched.";
+            lock (error) error.WriteLine(message);
+            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
         }
         catch (Exception ex)
         {
             // Whatever went wrong, this brief fails alone: the others in the batch are still built, nothing is half-written.
-            lock (error) error.WriteLine($"{file}: {(ex is NonFiniteResultException ? "" : "internal error, please report it: ")}{ex.Message}");
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
+            string message = $"{file}: {(ex is NonFiniteResultException ? "" : "internal error, please report it: ")}{ex.Message}";
+            lock (error) error.WriteLine(message);
+            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
         }
     }
 

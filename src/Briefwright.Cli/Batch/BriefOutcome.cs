@@ -1,6 +1,3 @@
-using System.Text.Json;
-using System.Text.Json.Serialization;
-
 namespace Briefwright.Cli.Batch;
 
 public enum OutcomeStatus
@@ -11,18 +8,12 @@ public enum OutcomeStatus
     Failed,
 }
 
-/// <summary>What happened to one scenario in a batch; also its machine-readable log line.</summary>
+/// <summary>What happened to one scenario in a batch (its build-log line adds the time, tool version and shard).</summary>
 public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Status, int? Edition, string? Pdf, int Pages, long Bytes, long Milliseconds, string? Error)
 {
-    private static readonly JsonSerializerOptions Json = new()
-    {
-        PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,
-        Converters = { new JsonStringEnumConverter<OutcomeStatus>(JsonNamingPolicy.SnakeCaseLower) },
-        DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull,
-        TypeInfoResolver = BatchJsonContext.Default,
-    };
+    /// <summary>The hash over everything the brief depends on (the manifest's), once the scenario was read and valid.</summary>
+    public string? InputHash { get; init; }
 
-    private static readonly System.Text.Json.Serialization.Metadata.JsonTypeInfo<BriefOutcome> Info = (System.Text.Json.Serialization.Metadata.JsonTypeInfo<BriefOutcome>)Json.GetTypeInfo(typeof(BriefOutcome));
-
-    public string LogLine() => JsonSerializer.Serialize(this, Info);
+    /// <summary>Every positioned message of a failed attempt (file:line:col: field: rule. Got value.).</summary>
+    public IReadOnlyList<string>? Messages { get; init; }
 }

@@ -45,5 +45,5 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
 
 /// <summary>Serialisation code for the manifest and the build log, generated at build time.</summary>
 [System.Text.Json.Serialization.JsonSerializable(typeof(Manifest))]
-[System.Text.Json.Serialization.JsonSerializable(typeof(BriefOutcome))]
+[System.Text.Json.Serialization.JsonSerializable(typeof(BuildLogEntry))]
 internal sealed partial class BatchJsonContext : System.Text.Json.Serialization.JsonSerializerContext;

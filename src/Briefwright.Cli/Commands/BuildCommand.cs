@@ -3,6 +3,7 @@ using System.Globalization;
 using System.Text;
 using Briefwright.Brief;
 using Briefwright.Cli.Batch;
+using Briefwright.Cli.Project;
 using Briefwright.Scenario;
 using Briefwright.Templating;
 
@@ -11,43 +12,131 @@ namespace Briefwright.Cli.Commands;
 /// <summary><c>build PATH...</c>: scenarios + template → dated PDF briefs with their data annex, in parallel, incrementally.</summary>
 public static class BuildCommand
 {
-    public static Command Create(TextWriter output, TextWriter error, bool interactive)
+    public static Command Create(CliIo io)
     {
-        var paths = ScenarioInputs.PathsArgument("built");
-        var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing CommonMark). Default: the standard brief; copy templates/standard-brief.md to start your own." };
+        var paths = ScenarioInputs.PathsArgument("built", stdin: false);
+        var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing CommonMark). Default: the project's, else the standard brief; copy templates/standard-brief.md to start your own." };
         var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size (A4 or US Letter), colours, footer text, logo, fonts. See docs/themes.md." };
-        var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: an 'out' folder beside each scenario." };
+        var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: the project's, else an 'out' folder beside each scenario." };
         var date = new Option<string?>("--date") { Description = "Date of the brief (YYYY-MM-DD), replacing brief.date. The clock is never used, so rebuilds are identical." };
         var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on has changed." };
-        var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job arrays: shards are disjoint and together cover the list." };
-        var jobs = new Option<int?>("--jobs", "-j") { Description = "Briefs built at once (default: one per core)." };
+        var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job arrays: shards are disjoint and together cover the list, whatever the spelling of the folder." };
+        var jobs = new Option<string?>("--jobs", "-j") { Description = "Briefs built at once, at least 1 (default: the project's, else one per core)." };
         var noImages = new Option<bool>("--no-chart-images") { Description = "Skip the SVG and PNG copies of each chart in the data annex (faster)." };
-        var noSync = new Option<bool>("--no-sync") { Description = "Do not flush each brief to the disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a power cut might leave an empty one." };
+        var csvBom = new Option<bool>("--csv-bom") { Description = "Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs show '–', 'β₁' and 'δ' correctly." };
+        var skipFlush = new Option<bool>("--skip-flush") { Description = "Do not wait for each brief to reach the disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a power cut might leave an empty one." };
+        var settingsFile = new Option<string?>("--settings") { Description = $"Project settings file. Default: the nearest {ProjectSettings.FileName} in the scenarios' folder or a folder above it." };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print nothing but errors." };
         var command = new Command("build",
             "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results JSON, CSV tables and " +
-            "chart images beside it. Unchanged briefs are skipped; a changed brief becomes a new edition and the previous one is archived.")
+            "chart images beside it. Unchanged briefs are skipped; a changed brief becomes a new edition and the previous one is archived. " +
+            $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
-            paths, template, theme, outDir, date, force, shard, jobs, noImages, noSync, quiet,
+            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet,
         };
         command.SetAction(parse =>
         {
-            var setup = Setup(parse.GetValue(template), parse.GetValue(theme), parse.GetValue(date), parse.GetValue(shard), error);
-            if (setup is null) return ExitCodes.InvalidInput;
-            var (tpl, options, themeHash, day, shardSpec) = setup.Value;
-            var files = ScenarioInputs.Expand(parse.GetValue(paths)!, error);
-            if (shardSpec is { } s) files = Shards.Select(files, s.Index, s.Count);
-            var settings = new BatchSettings(tpl, options, themeHash, parse.GetValue(outDir), day, parse.GetValue(force), !parse.GetValue(noImages))
+            var error = io.Err;
+            var given = parse.GetValue(paths)!;
+            string? shardText = parse.GetValue(shard);
+            var log = new BuildLog(io.Clock, shardText);
+            string? cliOut = parse.GetValue(outDir);
+            if (given.Contains("-"))
+                return Refuse(log, "usage", LogDirs(given, cliOut, null), error,
+                    "briefwright build: '-' (standard input) is for check, solve and diff; build names its files after each scenario, so give the scenario's path.");
+
+            // Project settings: named, or the nearest above each path; every path must belong to the same project.
+            string? settingsPath = parse.GetValue(settingsFile);
+            if (settingsPath is null)
             {
-                Durable = !parse.GetValue(noSync),
+                var found = given.Select(ProjectSettings.Find).Distinct().ToList();
+                if (found.Count > 1)
+                    return Refuse(log, "settings", LogDirs(given, cliOut, null), error,
+                        $"briefwright build: the paths belong to different projects ({string.Join(", ", found.Select(f => f ?? "none"))}); build each project on its own or name one with --settings.");
+                settingsPath = found[0];
+            }
+            ProjectSettings? project = null;
+            if (settingsPath is not null)
+            {
+                var loaded = ProjectSettings.Load(settingsPath, new FileSourceReader());
+                if (loaded.Settings is null)
+                {
+                    foreach (var p in loaded.Problems) error.WriteLine(loaded.Sources.Render(p));
+                    return Refuse(log, "settings", LogDirs(given, cliOut, null), TextWriter.Null, loaded.Problems.Select(p => p.Message).ToArray());
+                }
+                project = loaded.Settings;
+            }
+            string? effectiveOut = cliOut ?? project?.Out;
+
+            var files = ScenarioInputs.Expand(given, error);
+            var setupErrors = new StringWriter();
+            var setup = Setup(parse.GetValue(template) ?? project?.Template, parse.GetValue(theme) ?? project?.Theme,
+                parse.GetValue(date) ?? project?.Date?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture), shardText, parse.GetValue(jobs), project?.Jobs,
+                setupErrors, out string stage);
+            if (setup is null)
+            {
+                error.Write(setupErrors.ToString());
+                var messages = setupErrors.ToString().Split('\n').Select(l => l.TrimEnd('\r')).Where(l => l.Length > 0 && !l.StartsWith("    ", StringComparison.Ordinal)).ToArray();
+                return Refuse(log, stage, LogDirs(files, effectiveOut, null, expanded: true), TextWriter.Null, messages);
+            }
+            var (tpl, options, themeHash, day, shardSpec, jobCount) = setup.Value;
+            if (shardSpec is { } s) files = Shards.Select(files, s.Index, s.Count, project?.Folder);
+            bool images = !parse.GetValue(noImages) && (project?.ChartCopies ?? true);
+            var settings = new BatchSettings(tpl, options, themeHash, effectiveOut, day, parse.GetValue(force), images)
+            {
+                Durable = !parse.GetValue(skipFlush),
+                CsvByteOrderMark = parse.GetValue(csvBom) || (project?.CsvByteOrderMark ?? false),
             };
-            var progress = new Progress(parse.GetValue(quiet) ? TextWriter.Null : output, interactive && !parse.GetValue(quiet), files.Count);
-            var outcomes = Run(files, settings, parse.GetValue(jobs) ?? Environment.ProcessorCount, progress, error);
-            if (!parse.GetValue(quiet)) output.Write(Summary(outcomes));
+            bool beQuiet = parse.GetValue(quiet);
+            var progress = new Progress(beQuiet ? TextWriter.Null : io.Out, io.Interactive && !beQuiet, files.Count);
+            var outcomes = Run(files, settings, jobCount, progress, error, log);
+            if (!beQuiet) io.Out.Write(Summary(outcomes));
             if (outcomes.Any(o => o.Status == OutcomeStatus.Failed)) return ExitCodes.Failed;
             return outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
         });
         return command;
+    }
+
+    /// <summary>Stops the run before any brief: prints the messages, logs them (one run line per output folder), exit 2.</summary>
+    private static int Refuse(BuildLog log, string stage, IEnumerable<string> logDirs, TextWriter error, params string[] messages)
+    {
+        foreach (var m in messages) error.WriteLine(m);
+        var entry = log.RunEntry(stage, messages);
+        foreach (var dir in logDirs.Distinct()) BuildLog.Append(dir, entry);
+        return ExitCodes.InvalidInput;
+    }
+
+    /// <summary>Where a run's log lines go: the output folder, else an 'out' folder beside each scenario (or in each folder named).</summary>
+    private static IEnumerable<string> LogDirs(IEnumerable<string> paths, string? outDir, ProjectSettings? project, bool expanded = false)
+    {
+        if ((outDir ?? project?.Out) is { } o) return [o];
+        return paths.Where(p => p != "-" && p != ScenarioInputs.StdinName)
+            .Select(p => !expanded && Directory.Exists(p) ? Path.Combine(p, "out") : File.Exists(p) ? Path.Combine(Path.GetDirectoryName(p) ?? ".", "out") : null)
+            .OfType<string>().Distinct().ToList();
+    }
+
+    /// <summary>A usage error of <c>build</c> is logged too, where its output folder can be told from the words given.</summary>
+    public static void LogUsageError(string[] args, string message, CliIo io)
+    {
+        string? outDir = null, shardText = null;
+        var paths = new List<string>();
+        for (int i = 1; i < args.Length; i++)
+        {
+            string a = args[i];
+            if ((a is "-o" or "--out" or "--shard") && i + 1 < args.Length)
+            {
+                if (a == "--shard") shardText = args[++i];
+                else outDir = args[++i];
+            }
+            else if (a.StartsWith("--out=", StringComparison.Ordinal)) outDir = a["--out=".Length..];
+            else if (!a.StartsWith('-') && (Directory.Exists(a) || File.Exists(a))) paths.Add(a);
+        }
+        ProjectSettings? project = null;
+        if (outDir is null && paths.Count > 0 && ProjectSettings.Find(paths[0]) is { } found)
+            project = ProjectSettings.Load(found, new FileSourceReader()).Settings;
+        var log = new BuildLog(io.Clock, shardText);
+        var entry = log.RunEntry("usage", [message]);
+        foreach (var dir in LogDirs(paths, outDir, project)) BuildLog.Append(dir, entry);
     }
 
     /// <summary>
@@ -74,17 +163,28 @@ public static class BuildCommand
         });
     }
 
-    public static IReadOnlyList<BriefOutcome> Run(IReadOnlyList<string> files, BatchSettings settings, int jobs, Progress progress, TextWriter error)
+    public static IReadOnlyList<BriefOutcome> Run(IReadOnlyList<string> files, BatchSettings settings, int jobs, Progress progress, TextWriter error, BuildLog? log = null)
     {
-        var dirs = files.Select(f => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(f) ?? ".", "out")).Distinct().ToList();
+        log ??= new BuildLog(TimeProvider.System, null);
+        string DirOf(string f) => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(f) ?? ".", "out");
+        var dirs = files.Select(DirOf).Distinct().ToList();
         foreach (var dir in dirs) AtomicFile.CleanStale(dir);
         var outcomes = new BriefOutcome[files.Count];
+        var parallel = new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, jobs) };
+        // Every scenario is read first: ids must be unique within the batch before anything is written.
+        var loaded = new LoadResult?[files.Count];
+        var reader = new FileSourceReader();
+        Parallel.For(0, files.Count, parallel, i => loaded[i] = new ScenarioLoader(reader).Load(files[i]));
+        var duplicates = ScenarioInputs.DuplicateIds(files.Select((f, i) => (f, loaded[i]!)).ToList(), reader);
         // Several briefs at once already keep the cores busy; the model's own loops then stay on their brief's thread.
         if (jobs > 1 && files.Count > 1) settings = settings with { Options = settings.Options with { ModelThreads = 1 } };
-        Parallel.For(0, files.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, jobs) }, i =>
+        Parallel.For(0, files.Count, parallel, i =>
         {
-            outcomes[i] = BatchBuilder.BuildOne(files[i], settings, error);
-            Log(outcomes[i], settings);
+            outcomes[i] = duplicates.TryGetValue(files[i], out var duplicate)
+                ? Duplicate(files[i], loaded[i]!, duplicate, error)
+                : BatchBuilder.BuildOne(files[i], settings, error, loaded[i]);
+            loaded[i] = null; // a batch of thousands keeps only the scenarios still to build
+            log.Append(DirOf(files[i]), outcomes[i]);
             progress.Done(outcomes[i]);
         });
         progress.Finish();
@@ -92,28 +192,34 @@ public static class BuildCommand
         return outcomes;
     }
 
-    private static readonly object LogGate = new();
-
-    /// <summary>One JSON line per brief, appended to build-log.jsonl in its output folder.</summary>
-    private static void Log(BriefOutcome o, BatchSettings settings)
+    private static BriefOutcome Duplicate(string file, LoadResult loaded, Scenario.Diagnostics.Diagnostic problem, TextWriter error)
     {
-        string dir = settings.OutDir ?? Path.Combine(Path.GetDirectoryName(o.Scenario) ?? ".", "out");
-        try
+        lock (error)
         {
-            lock (LogGate)
-            {
-                Directory.CreateDirectory(dir);
-                File.AppendAllText(Path.Combine(dir, "build-log.jsonl"), o.LogLine() + "\n");
-            }
+            error.WriteLine(loaded.Sources.Render(problem));
+            error.WriteLine($"{file}: 1 problem; nothing written.");
         }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        return new BriefOutcome(file, loaded.Document!.Brief.Id, OutcomeStatus.Invalid, null, null, 0, 0, 0, "brief.id is not unique within the batch")
         {
-            // The outcome is still reported on the console and in the exit code.
-        }
+            Messages = [problem.Message],
+        };
     }
 
-    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?)? Setup(string? templatePath, string? themePath, string? dateText, string? shardText, TextWriter error)
+    /// <summary>Reads the template and theme and checks the options; on failure, <paramref name="stage"/> says which was wrong.</summary>
+    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?, int)? Setup(string? templatePath, string? themePath, string? dateText,
+        string? shardText, string? jobsText, int? projectJobs, TextWriter error, out string stage)
     {
+        stage = "options";
+        int jobs = projectJobs ?? Environment.ProcessorCount;
+        if (jobsText is not null)
+        {
+            if (!int.TryParse(jobsText, NumberStyles.None, CultureInfo.InvariantCulture, out jobs) || jobs < 1)
+            {
+                error.WriteLine($"--jobs: must be a whole number of at least 1 (briefs built at once). Got '{jobsText}'.");
+                return null;
+            }
+        }
+        stage = "template";
         BriefTemplate tpl;
         try
         {
@@ -129,6 +235,7 @@ public static class BuildCommand
             error.WriteLine($"{templatePath}: cannot read the template ({ex.Message}).");
             return null;
         }
+        stage = "theme";
         var options = BuildOptions.Default;
         string themeHash = "standard";
         if (themePath is not null)
@@ -154,6 +261,7 @@ public static class BuildCommand
                 themeHash = BriefBuilder.Sha256(themeHash + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(png.Value.Png)));
             }
         }
+        stage = "options";
         DateOnly? day = null;
         if (dateText is not null)
         {
@@ -174,7 +282,7 @@ public static class BuildCommand
             }
             shard = (k, n);
         }
-        return (tpl, options, themeHash, day, shard);
+        return (tpl, options, themeHash, day, shard, jobs);
     }
 
     public static string Summary(IReadOnlyList<BriefOutcome> outcomes)

@@ -8,9 +8,10 @@ namespace Briefwright.Cli.Commands;
 /// <summary><c>diff OLD NEW</c>: changed assumptions and headline results between two scenarios or two results files.</summary>
 public static class DiffCommand
 {
-    public static Command Create(TextWriter output, TextWriter error)
+    public static Command Create(TextWriter output, TextWriter error, TextReader input)
     {
-        var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file (.results.json)." };
+        var reader = new InputReader(input);
+        var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file (.results.json); '-' reads a scenario from standard input." };
         var newPath = new Argument<string>("new") { Description = "Later scenario (.yaml) or results file (.results.json)." };
         var command = new Command("diff", "Compare two scenarios or two results files: changed assumptions (old → new, with source) and changed headline results. Exit code 0 when nothing changed, 1 when something did, 2 on invalid input.")
         {
@@ -18,8 +19,8 @@ public static class DiffCommand
         };
         command.SetAction(parse =>
         {
-            var before = Snapshot(parse.GetValue(oldPath)!, error);
-            var after = Snapshot(parse.GetValue(newPath)!, error);
+            var before = Snapshot(parse.GetValue(oldPath)!, error, reader);
+            var after = Snapshot(parse.GetValue(newPath)!, error, reader);
             if (before is null || after is null) return ExitCodes.InvalidInput;
             var changes = EditionSnapshot.Compare(before, after);
             output.Write(Render(changes));
@@ -28,8 +29,9 @@ public static class DiffCommand
         return command;
     }
 
-    private static EditionSnapshot? Snapshot(string path, TextWriter error)
+    private static EditionSnapshot? Snapshot(string path, TextWriter error, InputReader reader)
     {
+        if (path == "-") path = ScenarioInputs.StdinName;
         if (path.EndsWith(".json", StringComparison.OrdinalIgnoreCase))
         {
             try
@@ -42,7 +44,7 @@ public static class DiffCommand
                 return null;
             }
         }
-        var loaded = ScenarioInputs.Load(path, error);
+        var loaded = ScenarioInputs.Load(path, error, reader);
         if (!loaded.Ok) return null;
         return EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(ScenarioSolver.Solve(loaded.Document!))));
     }

@@ -1,44 +1,127 @@
+using Briefwright.Cli.Project;
 using Briefwright.Scenario;
+using Briefwright.Scenario.Diagnostics;
+using Briefwright.Scenario.Yaml;
 
 namespace Briefwright.Cli.Commands;
 
 /// <summary>Expands the paths given on the command line into scenario files and loads them, printing every problem.</summary>
 public static class ScenarioInputs
 {
+    /// <summary>The name a scenario read from standard input (the path <c>-</c>) goes by in messages.</summary>
+    public const string StdinName = "<stdin>";
+
     /// <summary>The PATHS argument shared by check, solve and build.</summary>
-    public static System.CommandLine.Argument<string[]> PathsArgument(string verb) => new("paths")
+    public static System.CommandLine.Argument<string[]> PathsArgument(string verb, bool stdin = true) => new("paths")
     {
-        Description = $"Scenario files, or folders whose *.yaml files are all {verb}.",
+        Description = $"Scenario files, or folders whose *.yaml files are all {verb}." + (stdin ? " '-' reads one scenario from standard input." : ""),
         Arity = System.CommandLine.ArgumentArity.OneOrMore,
     };
 
-    /// <summary>Files as given; folders expand to their *.yaml and *.yml files (not recursive, themes named *.theme.yaml
-    /// left out), sorted by name.</summary>
+    /// <summary>Whether a file in a folder is a scenario: *.yaml or *.yml, except themes (*.theme.yaml) and the project settings file.</summary>
+    public static bool IsScenarioFile(string path)
+    {
+        string name = Path.GetFileName(path);
+        return (name.EndsWith(".yaml", StringComparison.Ordinal) || name.EndsWith(".yml", StringComparison.Ordinal))
+               && !name.EndsWith(".theme.yaml", StringComparison.Ordinal) && name != ProjectSettings.FileName;
+    }
+
+    /// <summary>Files as given (and <c>-</c> for standard input); folders expand to their scenario files (not recursive),
+    /// sorted by name.</summary>
     public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error)
     {
         var files = new List<string>();
         foreach (var p in paths)
         {
-            if (Directory.Exists(p))
+            if (p != "-" && Directory.Exists(p))
             {
-                var found = Directory.EnumerateFiles(p)
-                    .Where(f => (f.EndsWith(".yaml", StringComparison.Ordinal) || f.EndsWith(".yml", StringComparison.Ordinal))
-                             && !f.EndsWith(".theme.yaml", StringComparison.Ordinal))
-                    .Order(StringComparer.Ordinal).ToList();
+                var found = Directory.EnumerateFiles(p).Where(IsScenarioFile).Order(StringComparer.Ordinal).ToList();
                 if (found.Count == 0) error.WriteLine($"{p}: folder holds no scenario files (*.yaml, *.yml).");
                 files.AddRange(found);
             }
-            else files.Add(p);
+            else files.Add(p == "-" ? StdinName : p);
         }
         return files;
     }
 
-    public static LoadResult Load(string path, TextWriter error)
+    public static LoadResult Load(string path, TextWriter error, ISourceReader? reader = null)
     {
-        var result = new ScenarioLoader(new FileSourceReader()).Load(path);
+        var result = new ScenarioLoader(reader ?? new FileSourceReader()).Load(path);
+        Report(path, result, error);
+        return result;
+    }
+
+    /// <summary>Prints every problem of a loaded scenario with its line and caret, then how many there were.</summary>
+    public static void Report(string path, LoadResult result, TextWriter error)
+    {
         foreach (var d in result.Problems) error.WriteLine(result.Sources.Render(d));
         if (result.Problems.Count > 0)
             error.WriteLine($"{path}: {result.Problems.Count} problem{(result.Problems.Count == 1 ? "" : "s")}; nothing written.");
-        return result;
+    }
+
+    /// <summary>
+    /// Two scenarios of one batch with the same <c>brief.id</c> would write the same files and take turns making new
+    /// editions of each other. Returns, for each such file, the positioned problem: at its own <c>brief.id</c>, or at its
+    /// <c>extends</c> when the id is inherited.
+    /// </summary>
+    public static IReadOnlyDictionary<string, Diagnostic> DuplicateIds(IReadOnlyList<(string File, LoadResult Loaded)> batch, ISourceReader reader)
+    {
+        var found = new Dictionary<string, Diagnostic>(StringComparer.Ordinal);
+        foreach (var group in batch.Where(b => b.Loaded.Ok).GroupBy(b => b.Loaded.Document!.Brief.Id, StringComparer.Ordinal).Where(g => g.Count() > 1))
+        {
+            var members = group.Select(g => g.File).ToList();
+            foreach (var file in members)
+            {
+                string others = string.Join(", ", members.Where(m => m != file).Select(m => $"'{m}'"));
+                var (at, inherited) = IdPosition(file, reader);
+                string rule = inherited
+                    ? $"must be unique within the batch; this scenario keeps the id of the scenario it extends, which {others} also use{(members.Count > 2 ? "" : "s")}: give it its own brief.id"
+                    : $"must be unique within the batch; {others} also use{(members.Count > 2 ? "" : "s")} it, and their briefs would overwrite each other";
+                found[file] = new Diagnostic(at, "brief.id", rule, $"'{group.Key}'");
+            }
+        }
+        return found;
+    }
+
+    /// <summary>Where a scenario file sets its id: its own <c>brief.id</c>, else its <c>extends</c> (inherited), else line 1.</summary>
+    private static (SourceSpan At, bool Inherited) IdPosition(string file, ISourceReader reader)
+    {
+        if (reader.TryRead(file, out string text, out _) && YamlTreeReader.Read(file, text).Root is YMapping map)
+        {
+            if (map["brief"] is YMapping brief && brief.KeyNode("id") is { } id && brief["id"] is { } value) return (value.At, false);
+            if (map.KeyNode("extends") is { } ext) return (map["extends"]?.At ?? ext.At, true);
+        }
+        return (new SourceSpan(file, 1, 1), false);
+    }
+}
+
+/// <summary>Reads <see cref="ScenarioInputs.StdinName"/> from standard input (once) and everything else from disk.</summary>
+public sealed class InputReader(TextReader stdin) : ISourceReader
+{
+    private readonly FileSourceReader files = new();
+    private string? stdinText;
+
+    public bool TryRead(string path, out string text, out string error)
+    {
+        if (path != ScenarioInputs.StdinName) return files.TryRead(path, out text, out error);
+        lock (files)
+        {
+            if (stdinText is null)
+            {
+                var buffer = new char[FileSourceReader.MaxBytes + 1];
+                int total = 0, read;
+                while (total < buffer.Length && (read = stdin.Read(buffer, total, buffer.Length - total)) > 0) total += read;
+                if (total > FileSourceReader.MaxBytes)
+                {
+                    text = "";
+                    error = $"standard input is over the {FileSourceReader.MaxBytes / 1024} KiB limit";
+                    return false;
+                }
+                stdinText = new string(buffer, 0, total);
+            }
+        }
+        text = stdinText;
+        error = "";
+        return true;
     }
 }

@@ -8,10 +8,12 @@ namespace Briefwright.Cli.Commands;
 /// <summary><c>solve PATH... [--json]</c>: the balanced-growth results and the optimum, as a table or JSON.</summary>
 public static class SolveCommand
 {
-    public static Command Create(TextWriter output, TextWriter error)
+    public static Command Create(CliIo io)
     {
+        var (output, error) = (io.Out, io.Err);
+        var reader = new InputReader(io.In);
         var paths = ScenarioInputs.PathsArgument("solved");
-        var json = new Option<bool>("--json") { Description = "Print the results as JSON (one object per scenario; a list when there are several). Field names: docs/results-json.md." };
+        var json = new Option<bool>("--json") { Description = "Print the results as JSON: always a list with one object per scenario solved, in the order given (a list of one for one file). Field names: docs/results-json.md." };
         var command = new Command("solve", "Solve scenarios: output per person for every option on the balanced growth path, and the output-maximising schooling length.") { paths, json };
         command.SetAction(parse =>
         {
@@ -21,7 +23,7 @@ public static class SolveCommand
             var documents = new List<ResultsDocument>();
             foreach (var file in files)
             {
-                var loaded = ScenarioInputs.Load(file, error);
+                var loaded = ScenarioInputs.Load(file, error, reader);
                 if (!loaded.Ok)
                 {
                     code = ExitCodes.InvalidInput;
@@ -39,8 +41,8 @@ public static class SolveCommand
                     if (files.Count > 1) output.WriteLine();
                 }
             }
-            if (asJson && documents.Count == 1) output.Write(ResultsJson.Write(documents[0]));
-            else if (asJson && documents.Count > 1) output.Write(ResultsJson.Write(documents));
+            // One shape whatever the number of files, so a script reads it the same way for one region or fifty.
+            if (asJson) output.Write(ResultsJson.Write(documents));
             return code;
         });
         return command;
