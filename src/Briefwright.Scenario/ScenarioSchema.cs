@@ -77,7 +77,8 @@ public static class ScenarioSchema
         var reform = Section("Reform simulation", Obj(("year", Num("Reform year", false, 1900, 2300)), ("phase_in_cohorts", Num("Cohorts to phase in", false, 1, 40)),
             ("horizon_years", Num("Years simulated", false, 20, 400)), ("headline_option", Str("Option for charts and indices"))));
         var discount = Obj(("anyOf", new JsonArray(Obj(("enum", Arr("green_book", "omb_3", "omb_7"))), Obj(("type", "object"), ("required", Arr("id", "label"))))));
-        var appraisal = Section("Discounting", Obj(("discount_rates", Obj(("type", "array"), ("items", discount)))));
+        var appraisal = Section("Discounting", Obj(("discount_rates", Obj(("type", "array"), ("items", discount))),
+            ("valuation_year", Num("Calendar year present values are valued at (default: the brief's year); not after the reform year", false, 1900, 2300))));
         var grid = Obj(("type", "object"), ("required", Arr("x", "x_range", "y", "y_range")), ("properties", Obj(
             ("x", Obj(("enum", parameterNames.DeepClone()))), ("x_range", range.DeepClone()), ("y", Obj(("enum", parameterNames.DeepClone()))),
             ("y_range", range.DeepClone()), ("steps", Num("Steps per axis", false, 2, 41)), ("output", Obj(("enum", Arr("optimum", "change")))))));
