@@ -200,13 +200,18 @@ public class DiscountedOptimumTests
         var schedule = new DiscountSchedule("d", "4% then 3%", new[] { new DiscountStep(1, 0.04), new DiscountStep(41, 0.03) });
         var inputs = ReformSimulatorTests.Inputs();
         var reform = new ReformSettings(2028, 1, 80, ValuationYear: 2026);
-        var opt = Appraisal.FindDiscountedOptimum(inputs, reform, schedule, 34);
+        double eStar = Core.BalancedGrowth.Solve(inputs).Optimum.SchoolingYears;
+        var opt = Appraisal.FindDiscountedOptimum(inputs, reform, schedule, eStar);
         Assert.True(opt.TailIncluded);
         double at = Counted(inputs, reform, schedule, opt.SchoolingYears);
         Assert.Equal(at, opt.PresentValue, 12);
-        // Independent check of optimality: the value with the tail is lower half a year either side.
+        // Independent check of optimality: an exhaustive one-year grid from the baseline to E* finds nothing higher,
+        // and half a year either side (inside the range) is lower.
+        for (double e = 12; e <= eStar; e += 1)
+            Assert.True(at >= Counted(inputs, reform, schedule, e), $"{e} years beats the optimum {opt.SchoolingYears}");
         Assert.True(at >= Counted(inputs, reform, schedule, opt.SchoolingYears - 0.5), "lower half a year below");
-        Assert.True(at >= Counted(inputs, reform, schedule, opt.SchoolingYears + 0.5), "lower half a year above");
+        if (opt.SchoolingYears + 0.5 <= eStar)
+            Assert.True(at >= Counted(inputs, reform, schedule, opt.SchoolingYears + 0.5), "lower half a year above");
         // The tail counts gains the cut-off value ignores, so the optimum with the tail is at least as long.
         var cut = opt.ByHorizon.Single(x => x.HorizonYears == 80);
         Assert.True(opt.SchoolingYears >= cut.SchoolingYears - 0.01, $"{opt.SchoolingYears} with the tail, {cut.SchoolingYears} without");

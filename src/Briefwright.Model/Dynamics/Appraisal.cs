@@ -93,7 +93,7 @@ public static class Appraisal
         var byHorizon = cuts.Select((c, k) => new HorizonOptimum(c, found[k + 1].E, found[k + 1].Value)).ToList();
         string cut = tailFinite
             ? $"The value maximised includes the gain beyond the horizon ({h} years), held at its balanced-growth level and discounted to infinity."
-            : $"The long-run discount rate does not exceed technology growth, so the gain beyond the horizon has no finite value: the value maximised is cut at {h} years after the reform, and the optimum moves with that cut ({string.Join(", ", byHorizon.Select(x => $"{F(x.SchoolingYears)} years at {x.HorizonYears}"))}).";
+            : $"The long-run discount rate does not exceed technology growth, so the gain beyond the horizon has no finite value: the value maximised is cut at {h} years after the reform, and the optimum moves with that cut ({string.Join(", ", byHorizon.Select((x, i) => $"{F(x.SchoolingYears)} years {(i == 0 ? "when the value is cut " : "at ")}{x.HorizonYears}{(i == 0 ? " years after the reform" : "")}"))}).";
         string why = bestE <= baseline.SchoolingYears
             ? "No longer schooling has a positive present value at this discount rate: the early loss of workers outweighs the discounted later gain. " + cut
             : $"Discounting at {schedule.Label} weighs the early dip (fewer workers while the longer-schooled cohorts are still studying) against gains that arrive only as those cohorts replace older workers over decades; the balanced-growth optimum counts a gain fifty years away the same as one today. " + cut;

@@ -77,7 +77,7 @@ public sealed record PresentValue(
         double lastRate = schedule.Steps[^1].Rate;
         double q = Math.Exp(g) / (1 + lastRate);
         if (q >= 1)
-            return (null, $"beyond the horizon the gain is not counted: the long-run discount rate ({(lastRate * 100).ToString("0.0", CultureInfo.InvariantCulture)}%) does not exceed technology growth ({(g * 100).ToString("0.0", CultureInfo.InvariantCulture)}%), so the tail has no finite value");
+            return (null, $"the long-run discount rate ({(lastRate * 100).ToString("0.0", CultureInfo.InvariantCulture)}%) does not exceed technology growth ({(g * 100).ToString("0.0", CultureInfo.InvariantCulture)}%), so the gain beyond the horizon has no finite value and is not counted");
         double sum = 0, factor = dH;
         int t = h;
         while (t + 1 < lastStart)
