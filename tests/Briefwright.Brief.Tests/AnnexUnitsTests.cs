@@ -70,7 +70,7 @@ public class AnnexUnitsTests
         }
     }
 
-    private static readonly Regex UnitSuffix = new(@"(_pct|_fraction|_share|_years|_year|_years_after_reform|_index|_years_of_output|_draws|^draws|^base_samples|^resamples|^discount_factor_to_reform)$");
+    private static readonly Regex UnitSuffix = new(@"(_pct|_fraction|_share|_years|_year|_years_after_reform|_index|_years_of_output|_draws|^draws|^base_samples|^resamples|^discount_factor_to_reform|^years_after_reform)$");
 
     [Fact]
     public void Every_numeric_CSV_column_says_its_unit_and_numbers_are_written_in_their_shortest_round_trip_form()
