@@ -45,9 +45,9 @@ internal static class AnalysisModel
             model["mc"] = Obj(("draws", mc.Draws), ("rejected", mc.Rejected), ("seed", mc.Seed.ToString()),
                 ("p5", o.LongRunChangePct.P5), ("p50", o.LongRunChangePct.P50), ("p95", o.LongRunChangePct.P95),
                 ("prob_gain", o.ProbabilityGain.Estimate), ("prob_gain_low", o.ProbabilityGain.Low), ("prob_gain_high", o.ProbabilityGain.High),
-                ("prob_gain_text", ProbabilityText(o.ProbabilityGain)),
+                ("prob_gain_text", ProbabilityWords.Sentence(o.ProbabilityGain)),
                 ("prob_pv", o.ProbabilityPositivePv.Estimate), ("prob_pv_low", o.ProbabilityPositivePv.Low), ("prob_pv_high", o.ProbabilityPositivePv.High),
-                ("prob_pv_text", ProbabilityText(o.ProbabilityPositivePv)),
+                ("prob_pv_text", ProbabilityWords.Sentence(o.ProbabilityPositivePv)),
                 ("optimum_p5", mc.OptimumYears.P5), ("optimum_p50", mc.OptimumYears.P50), ("optimum_p95", mc.OptimumYears.P95));
         }
         else model["mc"] = null;
@@ -67,15 +67,6 @@ internal static class AnalysisModel
         model.AddFunction("uncertainty_table", new Func<string>(() => UncertaintyTable(a, Label)));
         model.AddFunction("sobol_table", new Func<string>(() => SobolTable(a)));
     }
-
-    /// <summary>A Monte Carlo probability in words, never as a certainty: all or none of the draws give the bound of the 95% interval.</summary>
-    internal static string ProbabilityText(Probability p) =>
-        p.Count == p.Draws ? $"{Pct(p.Low, 1)} or more (all {Big(p.Draws)} draws; 95% interval)"
-        : p.Count == 0 ? $"{Pct(p.High, 1)} or less (none of {Big(p.Draws)} draws; 95% interval)"
-        : $"{Pct(p.Estimate, 1)} (95% interval {Pct(p.Low, 1)} to {Pct(p.High, 1)})";
-
-    private static string ProbabilityCell(Probability p) =>
-        p.Count == p.Draws ? $"{Pct(p.Low, 1)} or more" : p.Count == 0 ? $"{Pct(p.High, 1)} or less" : $"{Pct(p.Estimate, 1)} ({Pct(p.Low, 1)} to {Pct(p.High, 1)})";
 
     private static string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";
 
@@ -109,7 +100,7 @@ internal static class AnalysisModel
         var rows = mc.Options.Select(o => (IReadOnlyList<string>)new[]
         {
             label(o.OptionId), Change(o.LongRunChangePct.P5, 2), Change(o.LongRunChangePct.P50, 2), Change(o.LongRunChangePct.P95, 2),
-            ProbabilityCell(o.ProbabilityGain), ProbabilityCell(o.ProbabilityPositivePv),
+            ProbabilityWords.Cell(o.ProbabilityGain), ProbabilityWords.Cell(o.ProbabilityPositivePv),
         });
         return Md.Table($"Uncertainty: long-run change in output per person over {Big(mc.Draws)} Monte Carlo draws (seed {mc.Seed}); probabilities with 95% intervals", "briefwright Monte Carlo; Wilson score intervals",
             new[] { "Option", "5th percentile", "Median", "95th percentile", "Probability of a gain", "Probability PV > 0" },
@@ -121,7 +112,7 @@ internal static class AnalysisModel
         if (a.Sobol is not { } s) return "";
         var idx = s.Indices;
         string Show(double v) => v is > -0.005 and < 0.005 ? "0.00" : Num(v, 2);
-        string Cell(double v, double lo, double hi) => $"{Show(v)} ({Show(lo)} to {Show(hi)})";
+        string Cell(double v, double lo, double hi) => $"{Show(v)} ({Show(lo)}–{Show(hi)})";
         var rows = Enumerable.Range(0, idx[0].Inputs.Count).OrderByDescending(i => idx[0].Total[i]).Select(i => (IReadOnlyList<string>)new[]
         {
             Parameters.Find(idx[0].Inputs[i])!.Label, Cell(idx[0].FirstOrder[i], idx[0].FirstOrderLow[i], idx[0].FirstOrderHigh[i]),
