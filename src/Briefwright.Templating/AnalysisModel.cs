@@ -120,7 +120,7 @@ internal static class AnalysisModel
             Cell(idx[2].Total[i], idx[2].TotalLow[i], idx[2].TotalHigh[i]),
         });
         return Md.Table($"Which assumption matters most: Sobol indices ({Big(idx[0].Samples)} base samples; {Num(100 * idx[0].Level, 0)}% bootstrap intervals in brackets)", "briefwright, Saltelli sampling and estimators, bootstrap over the base samples",
-            new[] { "Parameter", "First-order, headline change", "Total, headline change", "Total, E*", "Total, present value" },
+            new[] { "Parameter", "First-order, headline change", "Total, headline change", "Total, optimum E*", "Total, present value" },
             rows, new HashSet<int> { 1, 2, 3, 4 });
     }
 }
