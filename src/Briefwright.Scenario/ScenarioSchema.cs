@@ -183,7 +183,9 @@ public static class ScenarioSchema
                 ("id", Str("Id")), ("label", Str("Label", 120)), ("rate", Num("Constant rate", rate, rate: true)),
                 ("schedule", Obj(("type", "array"), ("minItems", 1), ("items", step))), ("source", Str("Source")))));
         var discount = Obj(("anyOf", new JsonArray(Obj(("enum", Arr("green_book", "omb_3", "omb_7"))), customRate)));
-        var appraisal = Section("Discounting", Obj(("discount_rates", Obj(("type", "array"), ("minItems", 1), ("items", discount)))), strict);
+        var appraisal = Section("Discounting", Obj(("discount_rates", Obj(("type", "array"), ("minItems", 1), ("items", discount))),
+            ("valuation_year", Num("Calendar year present values are valued at (default: the brief's year); not after the reform year",
+                Bounds.Closed(1900, 2300), integer: true))), strict);
         var range = Obj(("type", "array"), ("minItems", 2), ("maxItems", 2), ("items", AnyNum("End of the range")));
         var grid = Section("A two-way grid", Obj(
             ("x", Obj(("enum", parameterNames.DeepClone()))), ("x_range", range.DeepClone()), ("y", Obj(("enum", parameterNames.DeepClone()))),
@@ -201,7 +203,7 @@ public static class ScenarioSchema
             ("lognormal", Obj(("median", AnyNum("Median", positive: true)), ("sigma_log", Num("Standard deviation of the log", Bounds.OpenClosed(0, 5)))), ["median", "sigma_log"]));
         var uncertainty = Section("Monte Carlo and Sobol", Obj(
             ("draws", Num("Accepted draws (default 2000)", Bounds.Closed(10, AnalysisBinder.MaxDraws))), ("seed", Num("Random seed", Bounds.Closed(0, 9_007_199_254_740_991))),
-            ("sobol_samples", Num("Sobol base samples (default 256)", Bounds.Closed(0, AnalysisBinder.MaxSobolSamples))),
+            ("sobol_samples", Num("Sobol base samples (default 2,560)", Bounds.Closed(0, AnalysisBinder.MaxSobolSamples))),
             ("parameters", Obj(("type", "object"), ("minProperties", 1), ("propertyNames", Obj(("enum", parameterNames.DeepClone()))), ("additionalProperties", distribution)))),
             strict, "seed", "parameters");
         var scenario = Obj(

@@ -20,15 +20,17 @@ internal static class AnalysisModel
             var headlinePv = o.PresentValues[0];
             return Obj(("id", o.OptionId), ("label", Label(o.OptionId)), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
                 ("has_dip", o.Path.DipDepth is not null), ("first_positive_year", reform.ReformYear + o.Path.FirstPositiveYear),
-                ("long_run", o.Path.LongRunGain), ("balanced_growth", o.Path.BalancedGrowthGain), ("pv", headlinePv.ToHorizon),
+                ("long_run", o.Path.LongRunGain), ("balanced_growth", o.Path.BalancedGrowthGain), ("pv", headlinePv.ToHorizon), ("pv_total", headlinePv.Total),
                 ("break_even_year", reform.ReformYear + headlinePv.BreakEvenYear), ("schedule", headlinePv.ScheduleLabel));
         }
         var paths = reform.Options.Select(OptionPath).ToList();
         var d = reform.Optimum;
         model["reform"] = Obj(("year", reform.ReformYear), ("horizon", reform.HorizonYears), ("end_year", reform.ReformYear + reform.HorizonYears),
+            ("valuation_year", reform.ValuationYear), ("price_base", reform.PriceBase),
             ("phase_in", reform.PhaseInCohorts), ("options", new ScriptArray(paths)), ("headline", paths.First(p => (string)p["id"]! == a.HeadlineOptionId)),
             ("discounted_optimum", Obj(("years", d.SchoolingYears), ("pv", d.PresentValue), ("explanation", d.Explanation),
-                ("schedule", s.Analysis.Headline.Label), ("balanced_growth", d.BalancedGrowthOptimum))));
+                ("schedule", s.Analysis.Headline.Label), ("balanced_growth", d.BalancedGrowthOptimum), ("tail_included", d.TailIncluded),
+                ("by_horizon", new ScriptArray(d.ByHorizon.Select(x => Obj(("horizon", x.HorizonYears), ("years", x.SchoolingYears), ("pv", x.PresentValue))))))));
         model["dynamics_available"] = true;
 
         int k = reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
@@ -42,7 +44,10 @@ internal static class AnalysisModel
             var o = mc.Options[k];
             model["mc"] = Obj(("draws", mc.Draws), ("rejected", mc.Rejected), ("seed", mc.Seed.ToString()),
                 ("p5", o.LongRunChangePct.P5), ("p50", o.LongRunChangePct.P50), ("p95", o.LongRunChangePct.P95),
-                ("prob_gain", o.ProbabilityGain), ("prob_pv", o.ProbabilityPositivePv),
+                ("prob_gain", o.ProbabilityGain.Estimate), ("prob_gain_low", o.ProbabilityGain.Low), ("prob_gain_high", o.ProbabilityGain.High),
+                ("prob_gain_text", ProbabilityWords.Sentence(o.ProbabilityGain)),
+                ("prob_pv", o.ProbabilityPositivePv.Estimate), ("prob_pv_low", o.ProbabilityPositivePv.Low), ("prob_pv_high", o.ProbabilityPositivePv.High),
+                ("prob_pv_text", ProbabilityWords.Sentence(o.ProbabilityPositivePv)),
                 ("optimum_p5", mc.OptimumYears.P5), ("optimum_p50", mc.OptimumYears.P50), ("optimum_p95", mc.OptimumYears.P95));
         }
         else model["mc"] = null;
@@ -50,7 +55,10 @@ internal static class AnalysisModel
         {
             var idx = sobol.Indices[0];
             int top = Enumerable.Range(0, idx.Inputs.Count).MaxBy(i => idx.Total[i]);
-            model["sobol"] = Obj(("top_parameter", Parameters.Find(idx.Inputs[top])!.Label), ("top_total", idx.Total[top]), ("samples", idx.Samples));
+            model["sobol"] = Obj(("top_parameter", Parameters.Find(idx.Inputs[top])!.Label), ("top_total", idx.Total[top]),
+                ("top_total_low", idx.TotalLow[top]), ("top_total_high", idx.TotalHigh[top]), ("top_first", idx.FirstOrder[top]),
+                ("top_first_low", idx.FirstOrderLow[top]), ("top_first_high", idx.FirstOrderHigh[top]),
+                ("samples", idx.Samples), ("resamples", idx.Resamples), ("level", idx.Level));
         }
         else model["sobol"] = null;
 
@@ -82,7 +90,7 @@ internal static class AnalysisModel
         var header = new List<string> { "Option" };
         header.AddRange(schedules.Select(p => p.ScheduleLabel));
         var rows = a.Reform.Options.Select(o => (IReadOnlyList<string>)o.PresentValues.Select(pv => Num(pv.ToHorizon, 2)).Prepend(label(o.OptionId)).ToList());
-        return Md.Table($"Present value of the gain to {a.Reform.ReformYear + a.Reform.HorizonYears}, in years of today's output per person", "briefwright cohort simulation; discount rates as named",
+        return Md.Table($"Present value of the gain to {a.Reform.ReformYear + a.Reform.HorizonYears}, valued at {a.Reform.ValuationYear}, in years of {a.Reform.ValuationYear} output per person", "briefwright cohort simulation; discount rates as named, counted from " + a.Reform.ValuationYear,
             header, rows, Enumerable.Range(1, schedules.Count).ToHashSet());
     }
 
@@ -92,9 +100,9 @@ internal static class AnalysisModel
         var rows = mc.Options.Select(o => (IReadOnlyList<string>)new[]
         {
             label(o.OptionId), Change(o.LongRunChangePct.P5, 2), Change(o.LongRunChangePct.P50, 2), Change(o.LongRunChangePct.P95, 2),
-            Pct(o.ProbabilityGain, 1), Pct(o.ProbabilityPositivePv, 1),
+            ProbabilityWords.Cell(o.ProbabilityGain), ProbabilityWords.Cell(o.ProbabilityPositivePv),
         });
-        return Md.Table($"Uncertainty: long-run change in output per person over {Big(mc.Draws)} Monte Carlo draws (seed {mc.Seed})", "briefwright Monte Carlo",
+        return Md.Table($"Uncertainty: long-run change in output per person over {Big(mc.Draws)} Monte Carlo draws (seed {mc.Seed}); probabilities with 95% intervals", "briefwright Monte Carlo; Wilson score intervals",
             new[] { "Option", "5th percentile", "Median", "95th percentile", "Probability of a gain", "Probability PV > 0" },
             rows, new HashSet<int> { 1, 2, 3, 4, 5 });
     }
@@ -103,13 +111,16 @@ internal static class AnalysisModel
     {
         if (a.Sobol is not { } s) return "";
         var idx = s.Indices;
-        string Show(double v) => Math.Abs(v) < 0.005 ? "0.00" : Num(Math.Max(0, v), 2);
+        string Show(double v) => v is > -0.005 and < 0.005 ? "0.00" : Num(v, 2);
+        string Cell(double v, double lo, double hi) => $"{Show(v)} ({Show(lo)}–{Show(hi)})";
         var rows = Enumerable.Range(0, idx[0].Inputs.Count).OrderByDescending(i => idx[0].Total[i]).Select(i => (IReadOnlyList<string>)new[]
         {
-            Parameters.Find(idx[0].Inputs[i])!.Label, Show(idx[0].FirstOrder[i]), Show(idx[0].Total[i]), Show(idx[1].Total[i]), Show(idx[2].Total[i]),
+            Parameters.Find(idx[0].Inputs[i])!.Label, Cell(idx[0].FirstOrder[i], idx[0].FirstOrderLow[i], idx[0].FirstOrderHigh[i]),
+            Cell(idx[0].Total[i], idx[0].TotalLow[i], idx[0].TotalHigh[i]), Cell(idx[1].Total[i], idx[1].TotalLow[i], idx[1].TotalHigh[i]),
+            Cell(idx[2].Total[i], idx[2].TotalLow[i], idx[2].TotalHigh[i]),
         });
-        return Md.Table($"Which assumption matters most: Sobol indices ({Big(idx[0].Samples)} base samples; negative estimates shown as 0)", "briefwright, Saltelli sampling with Jansen estimators",
-            new[] { "Parameter", "First-order, headline change", "Total, headline change", "Total, E*", "Total, present value" },
+        return Md.Table($"Which assumption matters most: Sobol indices ({Big(idx[0].Samples)} base samples; {Num(100 * idx[0].Level, 0)}% bootstrap intervals in brackets)", "briefwright, Saltelli sampling and estimators, bootstrap over the base samples",
+            new[] { "Parameter", "First-order, headline change", "Total, headline change", "Total, optimum E*", "Total, present value" },
             rows, new HashSet<int> { 1, 2, 3, 4 });
     }
 }

@@ -60,14 +60,14 @@ public static class Caveats
         if (a.MonteCarlo is { } mc)
             foreach (var o in mc.Options)
             {
-                if (o.ProbabilityGain is >= 0.35 and <= 0.65)
-                    yield return $"For {Label(o.OptionId)} the chance of a long-run gain is close to even ({Pct(o.ProbabilityGain, 0)} of draws); the sign of the effect is not settled by the model.";
-                if (o.ProbabilityPositivePv is >= 0.35 and <= 0.65)
-                    yield return $"For {Label(o.OptionId)} the chance of a positive present value is close to even ({Pct(o.ProbabilityPositivePv, 0)} of draws).";
+                if (o.ProbabilityGain.Estimate is >= 0.35 and <= 0.65)
+                    yield return $"For {Label(o.OptionId)} the chance of a long-run gain is close to even ({Pct(o.ProbabilityGain.Estimate, 0)} of draws); the sign of the effect is not settled by the model.";
+                if (o.ProbabilityPositivePv.Estimate is >= 0.35 and <= 0.65)
+                    yield return $"For {Label(o.OptionId)} the chance of a positive present value is close to even ({Pct(o.ProbabilityPositivePv.Estimate, 0)} of draws).";
             }
         var headline = a.Reform.Options.FirstOrDefault(o => o.OptionId == a.HeadlineOptionId);
         if (headline?.PresentValues[0] is { Total: null } pv)
-            yield return $"Present values are counted to year {a.Reform.ReformYear + a.Reform.HorizonYears} only: {pv.TailNote}.";
+            yield return $"Present values are counted to {a.Reform.ReformYear + a.Reform.HorizonYears} only: {pv.TailNote}. The discounted optimum therefore depends on where the count stops.";
         if (a.Reform.Optimum.SchoolingYears > 20)
             yield return $"Even the discounted optimum ({Years(a.Reform.Optimum.SchoolingYears)}) is long, because the model still counts no cost of schooling other than lost working time.";
     }

@@ -62,6 +62,19 @@ public class LifeCycleTests
 
     public class HumanCapitalPerWorker
     {
+        [Theory]
+        // Hall & Jones (1999), QJE 114(1), rates after Psacharopoulos (1994): 13.4% for years 0–4, 10.1% for 4–8,
+        // 6.8% beyond. Brackets of unequal use, so the order of the rates matters:
+        // φ(6) = 4×0.134 + 2×0.101 = 0.738, φ(10) = 4×0.134 + 4×0.101 + 2×0.068 = 1.076, φ(3) = 3×0.134 = 0.402.
+        [InlineData(3.0, 1.4948)]
+        [InlineData(6.0, 2.0917)]
+        [InlineData(10.0, 2.9329)]
+        public void Hall_Jones_schedule_applies_each_rate_to_its_own_bracket(double years, double expected)
+        {
+            var cycle = new LifeCycle(Fixtures.Classic(60, 0.01), new HumanCapital(BracketReturns.HallJones, null));
+            Assert.Equal(expected, cycle.HumanCapitalPerWorker(years), 4);
+        }
+
         [Fact]
         public void Hall_Jones_schedule_gives_3_3602_at_twelve_years()
         {

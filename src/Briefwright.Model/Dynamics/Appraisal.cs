@@ -5,65 +5,125 @@ namespace Briefwright.Model.Dynamics;
 /// <summary>One option's path over time and its present values under every discount schedule.</summary>
 public sealed record OptionAppraisal(string OptionId, ReformPath Path, IReadOnlyList<PresentValue> PresentValues);
 
-/// <summary>
-/// The schooling length that maximises the present value of the reform (headline schedule, to the horizon),
-/// beside the balanced-growth E*. Discounting weighs the early dip and the decades before the gain arrives, so the
-/// discounted optimum is far shorter.
-/// </summary>
-public sealed record DiscountedOptimum(string ScheduleId, double SchoolingYears, double PresentValue, double BalancedGrowthOptimum, string Explanation);
+/// <summary>The discounted optimum when value is counted only to <see cref="HorizonYears"/> after the reform (no tail).</summary>
+public sealed record HorizonOptimum(int HorizonYears, double SchoolingYears, double PresentValue);
 
-public sealed record AppraisalResults(int ReformYear, int HorizonYears, int PhaseInCohorts, IReadOnlyList<OptionAppraisal> Options, DiscountedOptimum Optimum);
+/// <summary>
+/// The schooling length that maximises the present value of the reform at the headline schedule, beside the
+/// balanced-growth E*. The value maximised includes the tail beyond the horizon when it is finite
+/// (<see cref="TailIncluded"/>); otherwise it is cut at the horizon, and <see cref="ByHorizon"/> shows how the
+/// optimum moves when the cut moves (half and twice the horizon; always reported). Discounting weighs the early dip and
+/// the decades before the gain arrives, so the discounted optimum is far shorter than E*.
+/// </summary>
+public sealed record DiscountedOptimum(
+    string ScheduleId,
+    double SchoolingYears,
+    double PresentValue,
+    bool TailIncluded,
+    double BalancedGrowthOptimum,
+    IReadOnlyList<HorizonOptimum> ByHorizon,
+    string Explanation);
+
+/// <param name="ValuationYear">Calendar year present values are valued at: technology level 1 and discount factor 1 there.</param>
+/// <param name="PriceBase">What one unit of a present value is.</param>
+public sealed record AppraisalResults(
+    int ReformYear,
+    int ValuationYear,
+    string PriceBase,
+    int HorizonYears,
+    int PhaseInCohorts,
+    IReadOnlyList<OptionAppraisal> Options,
+    DiscountedOptimum Optimum);
 
 public static class Appraisal
 {
     public static AppraisalResults Run(ModelInputs inputs, ReformSettings reform, IReadOnlyList<DiscountSchedule> schedules, double balancedGrowthOptimum)
     {
         double g = inputs.Production.TechnologyGrowth;
+        int o = reform.ValuationOffset;
         var cache = new ReformSimulator.Cache();
-        var options = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o =>
+        var options = inputs.Options.Where(x => x.Id != inputs.BaselineId).Select(x =>
         {
-            var path = ReformSimulator.Simulate(inputs, o, reform, cache);
-            return new OptionAppraisal(o.Id, path, schedules.Select(s => PresentValue.Compute(path, s, g)).ToList());
+            var path = ReformSimulator.Simulate(inputs, x, reform, cache);
+            return new OptionAppraisal(x.Id, path, schedules.Select(s => PresentValue.Compute(path, s, g, o)).ToList());
         }).ToList();
-        return new AppraisalResults(reform.Year, reform.HorizonYears, reform.PhaseInCohorts, options, FindDiscountedOptimum(inputs, reform, schedules[0], balancedGrowthOptimum, cache));
+        return new AppraisalResults(reform.Year, reform.ValuedAt, PriceBase(reform.ValuedAt), reform.HorizonYears, reform.PhaseInCohorts, options,
+            FindDiscountedOptimum(inputs, reform, schedules[0], balancedGrowthOptimum, cache));
     }
 
-    /// <summary>Grid over E₁ from the baseline to the balanced-growth E* (half-year steps), then golden-section refinement.</summary>
+    public static string PriceBase(int valuationYear) =>
+        $"years of {valuationYear} output per person: real terms, technology level and discount factor 1 in {valuationYear}; flows of calendar year c are discounted by D(c − {valuationYear})";
+
+    /// <summary>
+    /// Grid over E₁ from the baseline to the balanced-growth E* (half-year steps), then golden-section refinement,
+    /// for the headline objective (value with its tail when finite, else to the horizon) and for the value cut at half,
+    /// one and twice the horizon. Each candidate is simulated once, to twice the horizon; shorter cuts use its first years.
+    /// </summary>
     public static DiscountedOptimum FindDiscountedOptimum(ModelInputs inputs, ReformSettings reform, DiscountSchedule schedule, double bgpOptimum, ReformSimulator.Cache? cache = null)
     {
         // One cache for every candidate: the population and the baseline cohorts' table are computed once.
         cache ??= new ReformSimulator.Cache();
         var baseline = inputs.Baseline;
         double g = inputs.Production.TechnologyGrowth;
+        int o = reform.ValuationOffset, h = reform.HorizonYears;
+        int[] cuts = { Math.Max(1, h / 2), h, 2 * h };
+        var longRun = reform with { HorizonYears = cuts[^1] };
         double maxE = Math.Min(Math.Max(bgpOptimum, baseline.SchoolingYears), inputs.DemographyFor(baseline).RetirementAge - inputs.Demography.EntryAge - 1);
-        double Pv(double e)
+        var simulated = new Dictionary<double, ReformPath>();
+        ReformPath Path(double e)
         {
+            if (simulated.TryGetValue(e, out var p)) return p;
             var option = baseline with { Id = "__candidate", SchoolingYears = e };
             var trial = inputs with { Options = inputs.Options.Append(option).ToList() };
-            return e == baseline.SchoolingYears ? 0 : PresentValue.Compute(ReformSimulator.Simulate(trial, option, reform, cache), schedule, g).ToHorizon;
+            return simulated[e] = ReformSimulator.Simulate(trial, option, longRun, cache);
         }
-        double bestE = baseline.SchoolingYears, bestPv = 0;
-        for (double e = baseline.SchoolingYears + 0.5; e <= maxE + 1e-9; e += 0.5)
+        static ReformPath Cut(ReformPath p, int years) => p with { Gain = p.Gain[..(years + 1)] };
+        // Objective 0: the headline value (with its tail when finite); 1…: the value cut at each horizon.
+        bool tailFinite = true;
+        double Value(double e, int objective)
         {
-            double v = Pv(e);
+            if (e == baseline.SchoolingYears) return 0;
+            if (objective > 0) return PresentValue.ToHorizonOnly(Cut(Path(e), cuts[objective - 1]), schedule, g, o);
+            var pv = PresentValue.Compute(Cut(Path(e), h), schedule, g, o);
+            tailFinite = pv.Total is not null;
+            return pv.Counted;
+        }
+        var found = Enumerable.Range(0, cuts.Length + 1).Select(k => Maximise(e => Value(e, k), baseline.SchoolingYears, maxE)).ToList();
+        var (bestE, bestPv) = found[0];
+        var byHorizon = cuts.Select((c, k) => new HorizonOptimum(c, found[k + 1].E, found[k + 1].Value)).ToList();
+        string cut = tailFinite
+            ? $"The value maximised includes the gain beyond the horizon ({h} years), held at its balanced-growth level and discounted to infinity."
+            : $"The long-run discount rate does not exceed technology growth, so the gain beyond the horizon has no finite value: the value maximised is cut at {h} years after the reform, and the optimum moves with that cut ({string.Join(", ", byHorizon.Select((x, i) => $"{F(x.SchoolingYears)} years {(i == 0 ? "when the value is cut " : "at ")}{x.HorizonYears}{(i == 0 ? " years after the reform" : "")}"))}).";
+        string why = bestE <= baseline.SchoolingYears
+            ? "No longer schooling has a positive present value at this discount rate: the early loss of workers outweighs the discounted later gain. " + cut
+            : $"Discounting at {schedule.Label} weighs the early dip (fewer workers while the longer-schooled cohorts are still studying) against gains that arrive only as those cohorts replace older workers over decades; the balanced-growth optimum counts a gain fifty years away the same as one today. " + cut;
+        return new DiscountedOptimum(schedule.Id, bestE, bestPv, tailFinite, bgpOptimum, byHorizon, why);
+    }
+
+    private static string F(double v) => v.ToString("0.0", System.Globalization.CultureInfo.InvariantCulture);
+
+    /// <summary>The best of a half-year grid above <paramref name="lo"/> (f(lo) = 0), refined by golden section to 0.01 years.</summary>
+    private static (double E, double Value) Maximise(Func<double, double> f, double lo0, double maxE)
+    {
+        double bestE = lo0, bestPv = 0;
+        for (double e = lo0 + 0.5; e <= maxE + 1e-9; e += 0.5)
+        {
+            double v = f(e);
             if (v > bestPv) { bestPv = v; bestE = e; }
         }
-        if (bestE > baseline.SchoolingYears)
+        if (bestE > lo0)
         {
-            double lo = Math.Max(baseline.SchoolingYears, bestE - 0.5), hi = Math.Min(maxE, bestE + 0.5);
+            double lo = Math.Max(lo0, bestE - 0.5), hi = Math.Min(maxE, bestE + 0.5);
             double phi = (Math.Sqrt(5) - 1) / 2;
-            double x1 = hi - phi * (hi - lo), x2 = lo + phi * (hi - lo), f1 = Pv(x1), f2 = Pv(x2);
+            double x1 = hi - phi * (hi - lo), x2 = lo + phi * (hi - lo), f1 = f(x1), f2 = f(x2);
             while (hi - lo > 0.01)
             {
-                if (f1 < f2) { lo = x1; x1 = x2; f1 = f2; x2 = lo + phi * (hi - lo); f2 = Pv(x2); }
-                else { hi = x2; x2 = x1; f2 = f1; x1 = hi - phi * (hi - lo); f1 = Pv(x1); }
+                if (f1 < f2) { lo = x1; x1 = x2; f1 = f2; x2 = lo + phi * (hi - lo); f2 = f(x2); }
+                else { hi = x2; x2 = x1; f2 = f1; x1 = hi - phi * (hi - lo); f1 = f(x1); }
             }
-            double e = 0.5 * (lo + hi), v = Pv(e);
+            double e = 0.5 * (lo + hi), v = f(e);
             if (v > bestPv) { bestE = e; bestPv = v; }
         }
-        string why = bestE <= baseline.SchoolingYears
-            ? "No longer schooling has a positive present value at this discount rate: the early loss of workers outweighs the discounted later gain."
-            : $"Discounting at {schedule.Label} weighs the early dip (fewer workers while the longer-schooled cohorts are still studying) against gains that arrive only as those cohorts replace older workers over decades; the balanced-growth optimum counts a gain fifty years away the same as one today.";
-        return new DiscountedOptimum(schedule.Id, bestE, bestPv, bgpOptimum, why);
+        return (bestE, bestPv);
     }
 }

@@ -1,61 +1,83 @@
+using System.Globalization;
+using System.Text.Json.Serialization;
+
 namespace Briefwright.Model.Dynamics;
 
 /// <summary>
-/// Present value of a reform's gain in output per person, in multiples of today's annual output per person:
-/// PV = Σ_{t=0..H} D(t)·e^(gt)·gain(t). Beyond the horizon H the gain is taken at its balanced-growth value and
-/// the tail is summed exactly (explicitly to the schedule's last step, then as a geometric series); when the last
-/// discount rate does not exceed growth the tail has no finite value, and only the value to the horizon is given.
+/// Present value of a reform's gain in output per person, valued at a stated calendar year V (the valuation date,
+/// where technology is 1 and the discount factor is 1), in years of output per person at V. The reform starts o = R − V
+/// years later; the gain of year t after the reform is a flow at time o + t:
+/// PV = Σ_{t=0..H} D(o+t)·e^(g(o+t))·gain(t), with D counted from the valuation date (so a declining schedule steps
+/// down 30, 75, … years after V, not after the reform). Beyond the horizon H the gain is taken at its balanced-growth
+/// value and the tail is summed exactly (explicitly to the schedule's last step, then as a geometric series); when the
+/// last discount rate does not exceed growth the tail has no finite value, and only the value to the horizon is given.
 /// </summary>
 public sealed record PresentValue(
     string ScheduleId,
     string ScheduleLabel,
+    int ValuationYear,
+    double DiscountFactorToReform,
     double ToHorizon,
     double? Tail,
     double? Total,
-    int? BreakEvenYear,
+    [property: JsonPropertyName("break_even_years_after_reform")] int? BreakEvenYear,
+    int? BreakEvenCalendarYear,
     string TailNote)
 {
     private static readonly System.Collections.Concurrent.ConcurrentDictionary<(DiscountSchedule Schedule, int Horizon), double[]> FactorCache = new();
 
-    public static PresentValue Compute(ReformPath path, DiscountSchedule schedule, double technologyGrowth)
+    /// <summary>The value to the horizon plus the tail where it is finite, else the value to the horizon.</summary>
+    [JsonIgnore]
+    public double Counted => Total ?? ToHorizon;
+
+    /// <param name="valuationOffset">Years from the valuation date to the reform year (0: valued at the reform year).</param>
+    public static PresentValue Compute(ReformPath path, DiscountSchedule schedule, double technologyGrowth, int valuationOffset = 0)
     {
-        int h = path.Horizon;
-        var d = Factors(schedule, h);
+        int h = path.Horizon, o = CheckOffset(valuationOffset);
+        var d = Factors(schedule, o + h);
         var cumulative = new double[h + 1];
-        double sum = Sum(path, d, technologyGrowth, cumulative);
+        double sum = Sum(path, d, technologyGrowth, o, cumulative);
         // Break-even: the first year from which the cumulative discounted gain stays positive to the horizon.
         int? breakEven = null;
         for (int t = h; t >= 0 && cumulative[t] > 0; t--) breakEven = t;
-        var (tail, note) = TailValue(schedule, d[h], h, technologyGrowth, path.BalancedGrowthGain);
-        return new PresentValue(schedule.Id, schedule.Label, sum, tail, tail is null ? null : sum + tail, breakEven, note);
+        var (tail, note) = TailValue(schedule, d[o + h], o + h, technologyGrowth, path.BalancedGrowthGain);
+        return new PresentValue(schedule.Id, schedule.Label, path.ReformYear - o, d[o], sum, tail, tail is null ? null : sum + tail,
+            breakEven, path.ReformYear + breakEven, note);
     }
 
     /// <summary>The present value to the horizon alone, the same sum as <see cref="Compute"/>'s <see cref="ToHorizon"/>; allocates nothing (Monte Carlo and Sobol runs).</summary>
-    public static double ToHorizonOnly(ReformPath path, DiscountSchedule schedule, double technologyGrowth) =>
-        Sum(path, Factors(schedule, path.Horizon), technologyGrowth, default);
+    public static double ToHorizonOnly(ReformPath path, DiscountSchedule schedule, double technologyGrowth, int valuationOffset = 0)
+    {
+        int o = CheckOffset(valuationOffset);
+        return Sum(path, Factors(schedule, o + path.Horizon), technologyGrowth, o, default);
+    }
+
+    private static int CheckOffset(int offset) =>
+        offset >= 0 ? offset : throw new ArgumentOutOfRangeException(nameof(offset), offset, "The valuation date must not follow the reform year.");
 
     private static double[] Factors(DiscountSchedule schedule, int horizon) => FactorCache.GetOrAdd((schedule, horizon), key => key.Schedule.Factors(key.Horizon));
 
-    /// <summary>Σ_{t=0..H} D(t)·e^(gt)·gain(t), with the running sums written to <paramref name="cumulative"/> when it is not empty.</summary>
-    private static double Sum(ReformPath path, double[] d, double technologyGrowth, Span<double> cumulative)
+    /// <summary>Σ_{t=0..H} D(o+t)·e^(g(o+t))·gain(t), with the running sums written to <paramref name="cumulative"/> when it is not empty.</summary>
+    private static double Sum(ReformPath path, double[] d, double technologyGrowth, int offset, Span<double> cumulative)
     {
-        double sum = 0, growth = 1, step = Math.Exp(technologyGrowth);
+        double sum = 0, growth = offset == 0 ? 1 : Math.Exp(technologyGrowth * offset), step = Math.Exp(technologyGrowth);
         for (int t = 0; t <= path.Horizon; t++)
         {
-            sum += d[t] * growth * path.Gain[t];
+            sum += d[offset + t] * growth * path.Gain[t];
             if (!cumulative.IsEmpty) cumulative[t] = sum;
             growth *= step;
         }
         return sum;
     }
 
+    /// <param name="dH">D at the horizon, <paramref name="h"/> years after the valuation date.</param>
     private static (double? Tail, string Note) TailValue(DiscountSchedule schedule, double dH, int h, double g, double longRunGain)
     {
         int lastStart = schedule.Steps[^1].FromYear;
         double lastRate = schedule.Steps[^1].Rate;
         double q = Math.Exp(g) / (1 + lastRate);
         if (q >= 1)
-            return (null, $"beyond year {h} the gain is not counted: the long-run discount rate ({(lastRate * 100).ToString("0.0", System.Globalization.CultureInfo.InvariantCulture)}%) does not exceed technology growth ({(g * 100).ToString("0.0", System.Globalization.CultureInfo.InvariantCulture)}%), so the tail has no finite value");
+            return (null, $"the long-run discount rate ({(lastRate * 100).ToString("0.0", CultureInfo.InvariantCulture)}%) does not exceed technology growth ({(g * 100).ToString("0.0", CultureInfo.InvariantCulture)}%), so the gain beyond the horizon has no finite value and is not counted");
         double sum = 0, factor = dH;
         int t = h;
         while (t + 1 < lastStart)
@@ -66,6 +88,6 @@ public sealed record PresentValue(
         }
         // From year t + 1 on the rate is the last one: Σ_{j≥1} factor·e^(gt)·q^j = factor·e^(gt)·q/(1 − q).
         sum += factor * Math.Exp(g * t) * longRunGain * q / (1 - q);
-        return (sum, $"beyond year {h} the gain is held at its balanced-growth value ({(longRunGain * 100).ToString("0.00", System.Globalization.CultureInfo.InvariantCulture)}%) and discounted to infinity");
+        return (sum, $"beyond the horizon the gain is held at its balanced-growth value ({(longRunGain * 100).ToString("0.00", CultureInfo.InvariantCulture)}%) and discounted to infinity");
     }
 }

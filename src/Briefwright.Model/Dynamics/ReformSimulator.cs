@@ -46,7 +46,7 @@ public static class ReformSimulator
     internal static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache, bool settledShortcut)
     {
         var baseline = inputs.Baseline;
-        if (reform.Id == baseline.Id) return ReformPath.Flat(reform.Id, settings.HorizonYears);
+        if (reform.Id == baseline.Id) return ReformPath.Flat(reform.Id, settings.HorizonYears) with { ReformYear = settings.Year };
         var before = inputs.DemographyFor(baseline);
         var after = inputs.DemographyFor(reform);
         var hc = inputs.HumanCapital;
@@ -133,10 +133,10 @@ public static class ReformSimulator
         }
 
         double bgpGain = cache.OutputPerPerson(inputs, reform) / cache.OutputPerPerson(inputs, baseline) - 1;
-        return Landmarks(reform.Id, gain, bgpGain);
+        return Landmarks(reform.Id, gain, bgpGain, settings.Year);
     }
 
-    private static ReformPath Landmarks(string id, double[] gain, double bgpGain)
+    private static ReformPath Landmarks(string id, double[] gain, double bgpGain, int reformYear)
     {
         int dipYear = 0;
         for (int t = 1; t < gain.Length; t++) if (gain[t] < gain[dipYear]) dipYear = t;
@@ -144,6 +144,6 @@ public static class ReformSimulator
         int? firstPositive = null;
         for (int t = dip ? dipYear : 0; t < gain.Length; t++)
             if (gain[t] > 0) { firstPositive = t; break; }
-        return new ReformPath(id, gain, gain[^1], bgpGain, dip ? gain[dipYear] : null, dip ? dipYear : null, firstPositive);
+        return new ReformPath(id, gain, gain[^1], bgpGain, dip ? gain[dipYear] : null, dip ? dipYear : null, firstPositive) { ReformYear = reformYear };
     }
 }

@@ -27,7 +27,7 @@ public static class KeyResultsEvaluator
         {
             change[i] = 100 * (cache.OutputPerPerson(inputs, alternatives[i]) / baseY - 1);
             var path = ReformSimulator.Simulate(inputs, alternatives[i], settings.Reform, cache);
-            pv[i] = PresentValue.ToHorizonOnly(path, settings.Headline, inputs.Production.TechnologyGrowth);
+            pv[i] = PresentValue.ToHorizonOnly(path, settings.Headline, inputs.Production.TechnologyGrowth, settings.Reform.ValuationOffset);
             if (!headlinePath.IsEmpty && alternatives[i].Id == settings.HeadlineOptionId) path.Gain.CopyTo(headlinePath);
         }
         double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess, cache.Population(inputs), fast: true);

@@ -2,7 +2,7 @@ using Briefwright.Model.Inputs;
 
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>Percentiles 5, 25, 50, 75, 95 of one result over the accepted draws.</summary>
+/// <summary>Percentiles 5, 25, 50, 75, 95 and the mean of one result over the accepted draws (the fan chart's data; summaries add their precision, <see cref="PercentileSummary"/>).</summary>
 public sealed record Percentiles(double P5, double P25, double P50, double P75, double P95, double Mean)
 {
     /// <summary>The percentiles of <paramref name="sorted"/>, which is sorted in place (callers pass an array of their own).</summary>
@@ -20,7 +20,8 @@ public sealed record Percentiles(double P5, double P25, double P50, double P75, 
     }
 }
 
-public sealed record OptionUncertainty(string OptionId, Percentiles LongRunChangePct, Percentiles PresentValue, double ProbabilityGain, double ProbabilityPositivePv);
+/// <summary>One option's Monte Carlo results: the long-run change (percent) and the present value to the horizon (years of output per person at the valuation date), and the probabilities of a gain and of a positive present value.</summary>
+public sealed record OptionUncertainty(string OptionId, PercentileSummary LongRunChangePct, PercentileSummary PresentValue, Probability ProbabilityGain, Probability ProbabilityPositivePv);
 
 /// <summary>Monte Carlo results: distributions of the key results, probabilities, and a fan of the headline path.</summary>
 public sealed record MonteCarloResults(
@@ -28,7 +29,7 @@ public sealed record MonteCarloResults(
     int Rejected,
     ulong Seed,
     IReadOnlyList<OptionUncertainty> Options,
-    Percentiles OptimumYears,
+    PercentileSummary OptimumYears,
     IReadOnlyList<Percentiles> HeadlineFan,
     [property: System.Text.Json.Serialization.JsonIgnore] double[] HeadlineChangeSample);
 
@@ -79,10 +80,10 @@ public static class MonteCarlo
         var ids = accepted[0].OptionIds;
         var options = ids.Select((id, k) => new OptionUncertainty(
             id,
-            Percentiles.Of(accepted.Select(r => r.LongRunChangePct[k]).ToArray()),
-            Percentiles.Of(accepted.Select(r => r.PresentValue[k]).ToArray()),
-            accepted.Count(r => r.LongRunChangePct[k] > 0) / (double)accepted.Count,
-            accepted.Count(r => r.PresentValue[k] > 0) / (double)accepted.Count)).ToList();
+            PercentileSummary.Of(accepted.Select(r => r.LongRunChangePct[k]).ToArray()),
+            PercentileSummary.Of(accepted.Select(r => r.PresentValue[k]).ToArray()),
+            Probability.Of(accepted.Count(r => r.LongRunChangePct[k] > 0), accepted.Count),
+            Probability.Of(accepted.Count(r => r.PresentValue[k] > 0), accepted.Count))).ToList();
         var fan = ModelThreads.Map(width, maxThreads, t =>
         {
             var atT = new double[acceptedDraws.Length];
@@ -91,7 +92,7 @@ public static class MonteCarlo
         });
         int headline = ids.ToList().IndexOf(settings.HeadlineOptionId);
         return new MonteCarloResults(accepted.Count, rejected.Sum(), spec.Seed, options,
-            Percentiles.Of(accepted.Select(r => r.OptimumYears).ToArray()), fan,
+            PercentileSummary.Of(accepted.Select(r => r.OptimumYears).ToArray()), fan,
             accepted.Select(r => r.LongRunChangePct[headline]).ToArray());
     }
 }

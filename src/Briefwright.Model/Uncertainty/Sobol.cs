@@ -1,17 +1,50 @@
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>First-order and total Sobol indices of one output for each input.</summary>
-public sealed record SobolIndices(IReadOnlyList<string> Inputs, double[] FirstOrder, double[] Total, double Variance, int Samples);
+/// <summary>
+/// First-order and total Sobol indices of one output for each input, each with a bootstrap confidence interval
+/// (<see cref="Level"/>, percentile method over <see cref="Resamples"/> resamples of the base rows). Estimates are
+/// reported as computed: a small negative estimate is noise around zero, and its interval says how much.
+/// </summary>
+public sealed record SobolIndices(
+    IReadOnlyList<string> Inputs,
+    double[] FirstOrder,
+    double[] FirstOrderLow,
+    double[] FirstOrderHigh,
+    double[] Total,
+    double[] TotalLow,
+    double[] TotalHigh,
+    double Variance,
+    int Samples,
+    int Resamples,
+    double Level)
+{
+    /// <summary>The widest half-width of any interval, first-order or total.</summary>
+    public double WidestHalfWidth()
+    {
+        double w = 0;
+        for (int i = 0; i < Inputs.Count; i++)
+            w = Math.Max(w, Math.Max(FirstOrderHigh[i] - FirstOrderLow[i], TotalHigh[i] - TotalLow[i]) / 2);
+        return w;
+    }
+}
 
 /// <summary>
-/// Variance-based sensitivity: Saltelli's sampling scheme (matrices A, B and, for each input i, A with column i
-/// taken from B) and Jansen's estimators: V_i = V − ½·mean[(f(B) − f(A_B^i))²], V_Ti = ½·mean[(f(A) − f(A_B^i))²].
-/// Costs (d + 2)·N evaluations of f.
+/// Variance-based sensitivity: Saltelli's sampling scheme (matrices A, B and, for each input i, A with column i taken
+/// from B, written A_B^i) with the estimators recommended by Saltelli et al. (2010, Comput. Phys. Commun. 181,
+/// 259–270, Table 2): first order V_i = mean[(f(B) − f̄)·(f(A_B^i) − f(A))], total V_Ti = ½·mean[(f(A) − f(A_B^i))²]
+/// (Jansen 1999). f(B) is centred on the mean f̄ of the A and B outputs: uncentred, the first-order estimator's
+/// error grows with the output's mean (a 3% change with a spread of 0.3 points gave intervals ±0.6 wide at N = 512).
+/// Both are exactly 0 for an input that has no effect. Costs (d + 2)·N evaluations of f; the
+/// bootstrap resamples the N rows (Efron &amp; Tibshirani 1993, percentile intervals) and costs no evaluations.
 /// </summary>
 public static class Sobol
 {
+    public const int DefaultResamples = 1000;
+    public const double DefaultLevel = 0.95;
+
     /// <param name="f">The model on the unit cube: d uniforms in (0,1) to several outputs.</param>
-    public static IReadOnlyList<SobolIndices> Estimate(int d, int n, ulong seed, IReadOnlyList<string> inputNames, Func<double[], double[]?> f, int maxThreads = ModelThreads.AllCores)
+    public static IReadOnlyList<SobolIndices> Estimate(int d, int n, ulong seed, IReadOnlyList<string> inputNames, Func<double[], double[]?> f,
+        int maxThreads = ModelThreads.AllCores, int resamples = DefaultResamples, double level = DefaultLevel)
     {
         var a = new double[n][];
         var b = new double[n][];
@@ -38,30 +71,78 @@ public static class Sobol
             }
         });
         // Rows where any evaluation broke a model rule are dropped from every estimator alike.
-        var rows = Enumerable.Range(0, n).Where(r => fa[r] is not null && fb[r] is not null && Enumerable.Range(0, d).All(i => fab[i, r] is not null)).ToList();
+        var rows = Enumerable.Range(0, n).Where(r => fa[r] is not null && fb[r] is not null && Enumerable.Range(0, d).All(i => fab[i, r] is not null)).ToArray();
+        int m = rows.Length;
         int outputs = fa[rows[0]]!.Length;
-        var result = new List<SobolIndices>();
-        for (int k = 0; k < outputs; k++)
+        // Resample s draws its rows from its own stream, so every output sees the same resamples and threads change nothing.
+        ulong bootSeed = seed ^ 0xB007_57A9_0000_0001UL;
+        return ModelThreads.Map(outputs, maxThreads, k =>
         {
-            var all = rows.Select(r => fa[r]![k]).Concat(rows.Select(r => fb[r]![k])).ToList();
-            double mean = all.Average();
-            double variance = all.Sum(v => (v - mean) * (v - mean)) / (all.Count - 1);
-            var first = new double[d];
-            var total = new double[d];
+            // Column-major copies of this output: yA[j], yB[j], yAB[i][j] for the accepted rows.
+            var yA = rows.Select(r => fa[r]![k]).ToArray();
+            var yB = rows.Select(r => fb[r]![k]).ToArray();
+            var yAB = Enumerable.Range(0, d).Select(i => rows.Select(r => fab[i, r]![k]).ToArray()).ToArray();
+            var all = Enumerable.Range(0, m).ToArray();
+            var (first, total, variance) = Indices(yA, yB, yAB, all);
+            var bootFirst = new double[d][];
+            var bootTotal = new double[d][];
+            for (int i = 0; i < d; i++) { bootFirst[i] = new double[resamples]; bootTotal[i] = new double[resamples]; }
+            var pick = new int[m];
+            for (int s = 0; s < resamples; s++)
+            {
+                var rng = SplitMix64.ForStream(bootSeed, (ulong)s);
+                for (int j = 0; j < m; j++) pick[j] = (int)(rng.NextUInt64() % (ulong)m);
+                var (bf, bt, _) = Indices(yA, yB, yAB, pick);
+                for (int i = 0; i < d; i++) { bootFirst[i][s] = bf[i]; bootTotal[i][s] = bt[i]; }
+            }
+            double lowP = (1 - level) / 2, highP = 1 - lowP;
+            var fLow = new double[d]; var fHigh = new double[d]; var tLow = new double[d]; var tHigh = new double[d];
             for (int i = 0; i < d; i++)
             {
-                double sFirst = 0, sTotal = 0;
-                foreach (int r in rows)
-                {
-                    double ab = fab[i, r]![k];
-                    sFirst += (fb[r]![k] - ab) * (fb[r]![k] - ab);
-                    sTotal += (fa[r]![k] - ab) * (fa[r]![k] - ab);
-                }
-                first[i] = variance > 0 ? (variance - sFirst / (2.0 * rows.Count)) / variance : 0;
-                total[i] = variance > 0 ? sTotal / (2.0 * rows.Count) / variance : 0;
+                Array.Sort(bootFirst[i]);
+                Array.Sort(bootTotal[i]);
+                fLow[i] = Quantile(bootFirst[i], lowP); fHigh[i] = Quantile(bootFirst[i], highP);
+                tLow[i] = Quantile(bootTotal[i], lowP); tHigh[i] = Quantile(bootTotal[i], highP);
             }
-            result.Add(new SobolIndices(inputNames, first, total, variance, rows.Count));
+            return new SobolIndices(inputNames, first, fLow, fHigh, total, tLow, tHigh, variance, m, resamples, level);
+        });
+    }
+
+    /// <summary>The estimators over the rows listed in <paramref name="pick"/> (all rows, or a bootstrap resample).</summary>
+    private static (double[] First, double[] Total, double Variance) Indices(double[] yA, double[] yB, double[][] yAB, int[] pick)
+    {
+        int d = yAB.Length, m = pick.Length;
+        // Variance of the output over the A and B rows together (2m values).
+        double mean = 0;
+        foreach (int j in pick) mean += yA[j] + yB[j];
+        mean /= 2.0 * m;
+        double variance = 0;
+        foreach (int j in pick) variance += (yA[j] - mean) * (yA[j] - mean) + (yB[j] - mean) * (yB[j] - mean);
+        variance /= 2.0 * m - 1;
+        var first = new double[d];
+        var total = new double[d];
+        if (!(variance > 0)) return (first, total, 0);
+        for (int i = 0; i < d; i++)
+        {
+            var ab = yAB[i];
+            double sFirst = 0, sTotal = 0;
+            foreach (int j in pick)
+            {
+                double diff = ab[j] - yA[j];
+                sFirst += (yB[j] - mean) * diff;
+                sTotal += diff * diff;
+            }
+            first[i] = sFirst / m / variance;
+            total[i] = sTotal / (2.0 * m) / variance;
         }
-        return result;
+        return (first, total, variance);
+    }
+
+    /// <summary>Type-7 quantile of a sorted sample.</summary>
+    private static double Quantile(double[] sorted, double p)
+    {
+        double h = (sorted.Length - 1) * p;
+        int i = (int)Math.Floor(h);
+        return i + 1 < sorted.Length ? sorted[i] + (h - i) * (sorted[i + 1] - sorted[i]) : sorted[i];
     }
 }

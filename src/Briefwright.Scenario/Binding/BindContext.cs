@@ -188,6 +188,15 @@ public sealed class BindContext
             Report(s.At, path, "must be a finite number", Show(s));
             return null;
         }
-        return percent ? v / 100.0 : v;
+        return percent ? FromPercent(text, v) : v;
     }
+
+    /// <summary>
+    /// A percentage as the double nearest to its decimal value over 100 ("0.9" → 0.009, not 0.9/100.0 =
+    /// 0.009000000000000001): the decimal point is moved in decimal arithmetic and the result parsed once.
+    /// </summary>
+    private static double FromPercent(string text, double parsed) =>
+        decimal.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out decimal d) && (d != 0 || parsed == 0)
+            ? double.Parse((d / 100m).ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture)
+            : parsed / 100.0;
 }
