@@ -23,6 +23,14 @@ public static class CliApp
             SchemaCommand.Create(output),
         };
         var config = new InvocationConfiguration { Output = output, Error = error };
-        return root.Parse(args).Invoke(config);
+        var parsed = root.Parse(args);
+        if (parsed.Errors.Count > 0 && !args.Any(a => a is "-h" or "--help" or "-?" or "--version"))
+        {
+            // A usage mistake (unknown option, missing path, stray argument) is invalid input: exit code 2, in words.
+            foreach (var e in parsed.Errors.Take(10)) error.WriteLine($"briefwright: {e.Message}");
+            error.WriteLine("Run 'briefwright --help' (or 'briefwright COMMAND --help') for the commands and their options.");
+            return ExitCodes.InvalidInput;
+        }
+        return parsed.Invoke(config);
     }
 }

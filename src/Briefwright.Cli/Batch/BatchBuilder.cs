@@ -16,6 +16,9 @@ public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options,
 {
     /// <summary>Flush the brief, its results and its manifest to the disk before renaming them into place.</summary>
     public bool Durable { get; init; } = true;
+
+    /// <summary>The project folder (--root) that files named by scenarios must stay inside; null: each scenario's folder.</summary>
+    public string? Root { get; init; }
 }
 
 /// <summary>
@@ -38,7 +41,7 @@ public static class BatchBuilder
     {
         var watch = Stopwatch.StartNew();
         var errors = new StringWriter();
-        var loaded = ScenarioInputs.Load(file, errors);
+        var loaded = ScenarioInputs.Load(file, errors, settings.Root);
         if (!loaded.Ok)
         {
             lock (error) error.Write(errors.ToString());
@@ -98,6 +101,11 @@ public static class BatchBuilder
         {
             lock (error) foreach (var e in ex.Errors) error.WriteLine(e);
             return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "template error");
+        }
+        catch (UnsolvableScenarioException ex)
+        {
+            lock (error) error.WriteLine(ScenarioInputs.Unsolvable(file, ex));
+            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
         }
         catch (ComposeException ex)
         {

@@ -20,7 +20,8 @@ public static class BuildCommand
         var date = new Option<string?>("--date") { Description = "Date of the brief (YYYY-MM-DD), replacing brief.date. The clock is never used, so rebuilds are identical." };
         var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on has changed." };
         var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job arrays: shards are disjoint and together cover the list." };
-        var jobs = new Option<int?>("--jobs", "-j") { Description = "Briefs built at once (default: one per core)." };
+        var jobs = new Option<string?>("--jobs", "-j") { Description = $"Briefs built at once, 1 to {MaxJobs} (default: one per core)." };
+        var root = ScenarioInputs.RootOption();
         var noImages = new Option<bool>("--no-chart-images") { Description = "Skip the SVG and PNG copies of each chart in the data annex (faster)." };
         var noSync = new Option<bool>("--no-sync") { Description = "Do not flush each brief to the disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a power cut might leave an empty one." };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print nothing but errors." };
@@ -28,27 +29,45 @@ public static class BuildCommand
             "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results JSON, CSV tables and " +
             "chart images beside it. Unchanged briefs are skipped; a changed brief becomes a new edition and the previous one is archived.")
         {
-            paths, template, theme, outDir, date, force, shard, jobs, noImages, noSync, quiet,
+            paths, template, theme, outDir, date, force, shard, jobs, noImages, noSync, quiet, root,
         };
         command.SetAction(parse =>
         {
-            var setup = Setup(parse.GetValue(template), parse.GetValue(theme), parse.GetValue(date), parse.GetValue(shard), error);
+            if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;
+            if (ParseJobs(parse.GetValue(jobs), error) is not { } jobCount) return ExitCodes.InvalidInput;
+            var setup = Setup(parse.GetValue(template), parse.GetValue(theme), parse.GetValue(date), parse.GetValue(shard), parse.GetValue(root), error);
             if (setup is null) return ExitCodes.InvalidInput;
             var (tpl, options, themeHash, day, shardSpec) = setup.Value;
-            var files = ScenarioInputs.Expand(parse.GetValue(paths)!, error);
+            var files = ScenarioInputs.Expand(parse.GetValue(paths)!, error, out bool emptyFolder);
+            if (files.Count == 0) return ExitCodes.InvalidInput;
             if (shardSpec is { } s) files = Shards.Select(files, s.Index, s.Count);
             var settings = new BatchSettings(tpl, options, themeHash, parse.GetValue(outDir), day, parse.GetValue(force), !parse.GetValue(noImages))
             {
                 Durable = !parse.GetValue(noSync),
+                Root = parse.GetValue(root),
             };
             var progress = new Progress(parse.GetValue(quiet) ? TextWriter.Null : output, interactive && !parse.GetValue(quiet), files.Count);
-            var outcomes = Run(files, settings, parse.GetValue(jobs) ?? Environment.ProcessorCount, progress, error);
+            var outcomes = Run(files, settings, jobCount, progress, error);
             if (!parse.GetValue(quiet)) output.Write(Summary(outcomes));
             if (outcomes.Any(o => o.Status == OutcomeStatus.Failed)) return ExitCodes.Failed;
-            return outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
+            return emptyFolder || outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
         });
         return command;
     }
+
+    public const int MaxJobs = 256;
+
+    /// <summary>The --jobs value: a whole number from 1 to <see cref="MaxJobs"/>, or one per core when not given.</summary>
+    public static int? ParseJobs(string? text, TextWriter error)
+    {
+        if (text is null) return Environment.ProcessorCount;
+        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n is >= 1 and <= MaxJobs) return n;
+        error.WriteLine($"--jobs: must be a whole number from 1 to {MaxJobs}. Got '{Scenario.Binding.BindContext.Printable(text)}'.");
+        return null;
+    }
+
+    /// <summary>Templates are read up to this size.</summary>
+    public const long MaxTemplateBytes = 1 << 20;
 
     /// <summary>
     /// On a spare core, while the command line and the first scenario are read: parses the standard template, hashes
@@ -112,46 +131,45 @@ public static class BuildCommand
         }
     }
 
-    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?)? Setup(string? templatePath, string? themePath, string? dateText, string? shardText, TextWriter error)
+    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?)? Setup(string? templatePath, string? themePath, string? dateText, string? shardText, string? root, TextWriter error)
     {
         BriefTemplate tpl;
         try
         {
-            tpl = templatePath is null ? StandardTemplate.Template : BriefTemplate.Parse(File.ReadAllText(templatePath), templatePath);
+            if (templatePath is null) tpl = StandardTemplate.Template;
+            else if (!SafeFile.TryReadBytes(templatePath, null, MaxTemplateBytes, out byte[] bytes, out string why))
+            {
+                error.WriteLine($"{templatePath}:1:1: cannot read the template ({why}).");
+                return null;
+            }
+            else tpl = BriefTemplate.Parse(SafeFile.Decode(bytes), templatePath);
         }
         catch (TemplateException ex)
         {
-            foreach (var e in ex.Errors) error.WriteLine(e);
-            return null;
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            error.WriteLine($"{templatePath}: cannot read the template ({ex.Message}).");
+            foreach (var e in ex.Errors.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(e);
             return null;
         }
         var options = BuildOptions.Default;
         string themeHash = "standard";
         if (themePath is not null)
         {
-            var (spec, problems, sources) = ThemeLoader.Load(themePath, new FileSourceReader());
-            foreach (var p in problems) error.WriteLine(sources.Render(p));
+            var (spec, problems, sources) = ThemeLoader.Load(themePath, new FileSourceReader(), root);
+            ScenarioInputs.Print(problems, sources, error);
             if (spec is null) return null;
             options = options with { Theme = spec };
             themeHash = sources.Hash(); // the theme text as read by the loader; no second read
-            if (spec.FontPaths.Count > 0)
+            if (spec.FontFiles.TryGetValue("regular", out byte[]? regular))
             {
-                var fonts = ThemeFonts.Read(spec.FontPaths, error);
-                if (fonts is null) return null;
+                byte[] bold = spec.FontFiles.GetValueOrDefault("bold", regular);
+                var fonts = (regular, bold, spec.FontFiles.GetValueOrDefault("italic", regular), spec.FontFiles.GetValueOrDefault("bold_italic", bold));
                 options = options with { Fonts = fonts };
-                themeHash = BriefBuilder.Sha256(themeHash + string.Concat(new[] { fonts.Value.Regular, fonts.Value.Bold, fonts.Value.Italic, fonts.Value.BoldItalic }
+                themeHash = BriefBuilder.Sha256(themeHash + string.Concat(new[] { fonts.regular, fonts.bold, fonts.Item3, fonts.Item4 }
                     .Select(b => Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(b)))));
             }
-            if (spec.LogoPath is { } logo)
+            if (spec.Logo is { } png)
             {
-                var png = Logo.Read(logo, error);
-                if (png is null) return null;
                 options = options with { Logo = png };
-                themeHash = BriefBuilder.Sha256(themeHash + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(png.Value.Png)));
+                themeHash = BriefBuilder.Sha256(themeHash + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(png.Png)));
             }
         }
         DateOnly? day = null;

@@ -12,14 +12,16 @@ public static class DiffCommand
     {
         var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file (.results.json)." };
         var newPath = new Argument<string>("new") { Description = "Later scenario (.yaml) or results file (.results.json)." };
+        var root = ScenarioInputs.RootOption();
         var command = new Command("diff", "Compare two scenarios or two results files: changed assumptions (old → new, with source) and changed headline results. Exit code 0 when nothing changed, 1 when something did, 2 on invalid input.")
         {
-            oldPath, newPath,
+            oldPath, newPath, root,
         };
         command.SetAction(parse =>
         {
-            var before = Snapshot(parse.GetValue(oldPath)!, error);
-            var after = Snapshot(parse.GetValue(newPath)!, error);
+            if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;
+            var before = Snapshot(parse.GetValue(oldPath)!, parse.GetValue(root), error);
+            var after = Snapshot(parse.GetValue(newPath)!, parse.GetValue(root), error);
             if (before is null || after is null) return ExitCodes.InvalidInput;
             var changes = EditionSnapshot.Compare(before, after);
             output.Write(Render(changes));
@@ -28,13 +30,21 @@ public static class DiffCommand
         return command;
     }
 
-    private static EditionSnapshot? Snapshot(string path, TextWriter error)
+    /// <summary>Results files read by diff are at most this long.</summary>
+    public const long MaxResultsBytes = 64L << 20;
+
+    private static EditionSnapshot? Snapshot(string path, string? root, TextWriter error)
     {
         if (path.EndsWith(".json", StringComparison.OrdinalIgnoreCase))
         {
+            if (!SafeFile.TryReadBytes(path, null, MaxResultsBytes, out byte[] bytes, out string why))
+            {
+                error.WriteLine($"{path}: cannot read the results file ({why}).");
+                return null;
+            }
             try
             {
-                return EditionSnapshot.FromJson(File.ReadAllText(path));
+                return EditionSnapshot.FromJson(SafeFile.Decode(bytes));
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException)
             {
@@ -42,9 +52,10 @@ public static class DiffCommand
                 return null;
             }
         }
-        var loaded = ScenarioInputs.Load(path, error);
+        var loaded = ScenarioInputs.Load(path, error, root);
         if (!loaded.Ok) return null;
-        return EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(ScenarioSolver.Solve(loaded.Document!))));
+        if (ScenarioInputs.Solve(path, loaded.Document!, error) is not { } solved) return null;
+        return EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(solved)));
     }
 
     public static string Render(EditionChanges c)
