@@ -97,15 +97,28 @@ public sealed class BriefTemplate
     {
         private readonly long deadline = System.Diagnostics.Stopwatch.GetTimestamp() + (long)(TimeLimit.TotalSeconds * System.Diagnostics.Stopwatch.Frequency);
         private int steps;
+        private SourceSpan? statement;
+        private int openStatements;
 
         public override object? Evaluate(ScriptNode? scriptNode, bool aliasReturnedFunction)
         {
             var at = scriptNode?.Span ?? CurrentSpan;
-            if (++steps > StepLimit)
-                throw new ScriptRuntimeException(at, $"The template took more than {StepLimit:N0} steps, the limit for one brief (an endless or exploding recursion?)");
-            if ((steps & 255) == 0 && System.Diagnostics.Stopwatch.GetTimestamp() > deadline)
-                throw new ScriptRuntimeException(at, $"The template ran for more than {TimeLimit.TotalSeconds:0.#} s, the limit for one brief");
-            var result = base.Evaluate(scriptNode, aliasReturnedFunction);
+            // The step and time budgets are reported at the outermost statement that was running, so the message and
+            // its position do not depend on which budget ran out first or on the machine's speed.
+            bool outermost = openStatements == 0 && scriptNode is ScriptStatement and not ScriptBlockStatement;
+            if (outermost) statement = at;
+            if (++steps > StepLimit || ((steps & 255) == 0 && System.Diagnostics.Stopwatch.GetTimestamp() > deadline))
+                throw new ScriptRuntimeException(statement ?? at, $"This statement ran past the budget for one brief ({StepLimit:N0} steps or {TimeLimit.TotalSeconds:0.#} s), as an endless or exploding loop or recursion would");
+            object? result;
+            if (outermost) openStatements++;
+            try
+            {
+                result = base.Evaluate(scriptNode, aliasReturnedFunction);
+            }
+            finally
+            {
+                if (outermost) openStatements--;
+            }
             switch (result)
             {
                 case string text when text.Length > OutputLimit:

@@ -15,6 +15,25 @@ public sealed class AnalysisBinder(BindContext ctx)
 
     private static readonly Bounds YearBounds = Bounds.Closed(1900, 2300);
 
+    /// <summary>
+    /// The most simulated years one brief's uncertainty analysis may ask for: (draws + Sobol samples × (parameters + 2))
+    /// × horizon years. Each unit is one year of one simulated reform path, so this bounds the run's time and memory
+    /// whatever the combination of limits (at 150 years: 20,000 draws, or 2,000 draws and 1,000 Sobol samples of 9
+    /// parameters).
+    /// </summary>
+    public const long MaxSimulatedYears = 3_000_000;
+
+    private void CheckWork(YMapping top, ReformSettings reform, MonteCarloSpec mc)
+    {
+        long paths = mc.Draws + (long)mc.SobolSamples * (mc.Parameters.Count + 2);
+        long years = paths * reform.HorizonYears;
+        if (years <= MaxSimulatedYears) return;
+        var u = (YMapping)top["uncertainty"]!;
+        var at = u["draws"] ?? u["sobol_samples"] ?? (YNode)u;
+        ctx.Report(at.At, "uncertainty", $"asks for {years.ToString("N0", CultureInfo.InvariantCulture)} simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × {reform.HorizonYears}); the limit for one brief is {MaxSimulatedYears.ToString("N0", CultureInfo.InvariantCulture)}; lower draws, sobol_samples or reform.horizon_years",
+            years.ToString("N0", CultureInfo.InvariantCulture));
+    }
+
     /// <summary>Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a model rule.</summary>
     public const int PilotDraws = 500;
 
@@ -27,6 +46,7 @@ public sealed class AnalysisBinder(BindContext ctx)
         var discounts = BindDiscounts(top);
         var (ranges, grids) = BindSensitivity(top, inputs);
         var monteCarlo = BindUncertainty(top, inputs);
+        if (reform is not null && monteCarlo is not null) CheckWork(top, reform, monteCarlo);
         if (ctx.Problems.Count > before || reform is null || discounts is null) return null;
         return new AnalysisSettings(reform, headline, discounts, ranges, grids, monteCarlo);
     }
@@ -221,7 +241,12 @@ public sealed class AnalysisBinder(BindContext ctx)
                 if (BindDistribution(dm, path, def) is { } dist) parameters.Add(new UncertainParameter(def.Name, dist));
             }
         if (draws is null || seed is null || sobol is null) return null;
-        if (parameters.Count == 0) { ctx.Report(m.At, p + ".parameters", "must give at least one parameter a distribution", null); return null; }
+        if (parameters.Count == 0)
+        {
+            // Only when none was given: a parameter that failed to bind has already been reported where it was written.
+            if (m["parameters"] is not YMapping { Entries.Count: > 0 }) ctx.Report(m.At, p + ".parameters", "must give at least one parameter a distribution", null);
+            return null;
+        }
         var spec = new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);
         return Pilot(inputs, spec, m["parameters"]!) ? spec : null;
     }

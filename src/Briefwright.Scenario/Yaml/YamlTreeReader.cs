@@ -21,9 +21,9 @@ public static class YamlTreeReader
     {
         var problems = new List<Diagnostic>();
         var start = new SourceSpan(file, 1, 1);
-        long bytes = text.Length > MaxBytes ? text.Length : System.Text.Encoding.UTF8.GetByteCount(text);
+        long bytes = System.Text.Encoding.UTF8.GetByteCount(text);
         if (bytes > MaxBytes)
-            return (null, new[] { new Diagnostic(start, "", $"file is larger than the limit for a {what} of 1 MiB ({MaxBytes.ToString("N0", CultureInfo.InvariantCulture)} bytes)", $"{(text.Length > MaxBytes ? "more than " : "")}{bytes.ToString("N0", CultureInfo.InvariantCulture)} bytes") });
+            return (null, new[] { new Diagnostic(start, "", $"file is larger than the limit for a {what} of 1 MiB ({MaxBytes.ToString("N0", CultureInfo.InvariantCulture)} bytes)", $"{bytes.ToString("N0", CultureInfo.InvariantCulture)} bytes") });
         if (text.Contains('\0'))
             return (null, new[] { new Diagnostic(start, "", "file is binary, not YAML text", "a NUL byte") });
         if (string.IsNullOrWhiteSpace(StripComments(text)))
