@@ -18,7 +18,7 @@ public sealed class BriefTemplate
     public const int RecursiveLimit = 50;
     public const int OutputLimit = 2_000_000;
 
-    /// <summary>Expressions and statements evaluated for one brief (the standard brief needs about 20,000).</summary>
+    /// <summary>Expressions and statements evaluated for one brief: the deterministic budget, far above what a brief needs.</summary>
     public const int StepLimit = 1_000_000;
 
     /// <summary>Items in a list or range made while filling the template.</summary>
@@ -27,8 +27,11 @@ public sealed class BriefTemplate
     /// <summary>Largest whole number a function or operator may receive (a width, an index, a repeat count).</summary>
     public const int IntegerLimit = 100_000;
 
-    /// <summary>Wall-clock time for filling one brief's template.</summary>
-    public static readonly TimeSpan TimeLimit = TimeSpan.FromSeconds(1);
+    /// <summary>
+    /// Wall-clock time for filling one brief's template: a backstop for a single slow step (the step budget stops loops
+    /// and recursion first), generous enough that a busy machine never stops a sound template.
+    /// </summary>
+    public static readonly TimeSpan TimeLimit = TimeSpan.FromSeconds(5);
 
     private readonly Template template;
 

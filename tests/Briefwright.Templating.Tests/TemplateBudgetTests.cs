@@ -48,7 +48,7 @@ public class TemplateBudgetTests
     public void A_doubly_recursive_function_under_the_depth_limit_is_stopped_by_the_step_or_time_budget()
     {
         var e = Error("# T\n{{ func f(n); if n > 0; f(n - 1); f(n - 1); end; end; f 40 }}");
-        Assert.Equal("t.md:2:55: This statement ran past the budget for one brief (1,000,000 steps or 1 s), as an endless or exploding loop or recursion would.", e.ToString());
+        Assert.Equal("t.md:2:55: This statement ran past the budget for one brief (1,000,000 steps or 5 s), as an endless or exploding loop or recursion would.", e.ToString());
     }
 
     [Fact]
