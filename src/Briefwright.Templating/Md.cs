@@ -15,16 +15,19 @@ public static class Md
     {
         if (string.IsNullOrEmpty(text)) return "";
         var sb = new StringBuilder(text.Length + 8);
-        foreach (char raw in text.TrimStart())
+        string trimmed = text.TrimStart();
+        for (int i = 0; i < trimmed.Length; i++)
         {
-            char c = raw is '\n' or '\r' or '\t' ? ' ' : raw;
+            char c = trimmed[i] is '\n' or '\r' or '\t' ? ' ' : trimmed[i];
             if (char.IsControl(c)) continue;
-            if ("\\`*_[]<>|#!&~".Contains(c)) sb.Append('\\');
+            // '!' only makes an image before '[', which is escaped; '&' only starts an entity before a letter or '#'.
+            bool entity = c == '&' && i + 1 < trimmed.Length && (char.IsAsciiLetter(trimmed[i + 1]) || trimmed[i + 1] == '#');
+            if ("\\`*_[]<>|#".Contains(c) || entity) sb.Append('\\');
             sb.Append(c);
         }
-        // Block starts: a quote (>), a list item (- x, + x, 1. x, 1) x), a rule or heading underline (---, ===).
+        // Block starts: a quote (>), a list item (- x, + x, 1. x, 1) x), a rule or heading underline (---, ===), a fence (~~~).
         bool SpaceOrEnd(int i) => i >= sb.Length || sb[i] == ' ';
-        if (sb.Length > 0 && (sb[0] == '>' || (sb[0] is '-' or '+' or '=' && (SpaceOrEnd(1) || sb[1] == sb[0])))) sb.Insert(0, '\\');
+        if (sb.Length > 0 && (sb[0] is '>' or '~' || (sb[0] is '-' or '+' or '=' && (SpaceOrEnd(1) || sb[1] == sb[0])))) sb.Insert(0, '\\');
         int digits = 0;
         while (digits < sb.Length && char.IsAsciiDigit(sb[digits])) digits++;
         if (digits is > 0 and < 10 && digits < sb.Length && sb[digits] is '.' or ')' && SpaceOrEnd(digits + 1)) sb.Insert(digits, '\\');
