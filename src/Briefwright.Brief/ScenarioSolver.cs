@@ -12,12 +12,24 @@ public sealed record SolvedScenario(ScenarioDocument Scenario, BalancedGrowthRes
 public static class ScenarioSolver
 {
     /// <param name="maxThreads">Threads the model's uncertainty loops may use (<see cref="ModelThreads"/>); results do not depend on it.</param>
+    /// <exception cref="UnsolvableScenarioException">The model cannot solve these inputs (the reason is in the message).</exception>
     public static SolvedScenario Solve(ScenarioDocument scenario, int maxThreads = ModelThreads.AllCores)
     {
-        var bgp = BalancedGrowth.Solve(scenario.Inputs);
-        ResultsGuard.EnsureFinite(bgp);
-        var analysis = AnalysisRunner.Run(scenario.Inputs, scenario.Analysis, bgp, maxThreads);
-        ResultsGuard.EnsureFinite(analysis);
-        return new SolvedScenario(scenario, bgp, analysis);
+        try
+        {
+            var bgp = BalancedGrowth.Solve(scenario.Inputs);
+            ResultsGuard.EnsureFinite(bgp);
+            var analysis = AnalysisRunner.Run(scenario.Inputs, scenario.Analysis, bgp, maxThreads);
+            ResultsGuard.EnsureFinite(analysis);
+            return new SolvedScenario(scenario, bgp, analysis);
+        }
+        catch (Exception ex) when (ex is ArithmeticException or ArgumentException or InvalidOperationException)
+        {
+            throw new UnsolvableScenarioException(ex.Message, ex);
+        }
+        catch (AggregateException ex) when (ex.InnerExceptions.All(e => e is ArithmeticException or ArgumentException or InvalidOperationException))
+        {
+            throw new UnsolvableScenarioException(ex.InnerExceptions[0].Message, ex);
+        }
     }
 }

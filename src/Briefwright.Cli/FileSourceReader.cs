@@ -1,36 +1,26 @@
 using Briefwright.Scenario;
+using Briefwright.Scenario.Yaml;
 
 namespace Briefwright.Cli;
 
-/// <summary>Reads inputs from disk, refusing files over the scenario size limit before loading them.</summary>
+/// <summary>Reads inputs from disk through <see cref="SafeFile"/>: regular files only, at most the scenario size limit
+/// (1 MiB) of text, and files that an input names only inside its project folder.</summary>
 public sealed class FileSourceReader : ISourceReader
 {
-    public const long MaxBytes = 4L << 20;
+    public const long MaxBytes = YamlTreeReader.MaxBytes;
 
-    public bool TryRead(string path, out string text, out string error)
+    public bool TryRead(string path, out string text, out string error) => Read(path, null, out text, out error);
+
+    public bool TryReadInside(string path, string root, out string text, out string error) => Read(path, root, out text, out error);
+
+    public bool TryReadBytes(string path, string root, long maxBytes, out byte[] bytes, out string error) =>
+        SafeFile.TryReadBytes(path, root, maxBytes, out bytes, out error);
+
+    private static bool Read(string path, string? root, out string text, out string error)
     {
         text = "";
-        try
-        {
-            var info = new FileInfo(path);
-            if (!info.Exists)
-            {
-                error = Directory.Exists(path) ? "it is a folder, not a file" : "no such file";
-                return false;
-            }
-            if (info.Length > MaxBytes)
-            {
-                error = $"the file is {info.Length / 1024} KiB, over the {MaxBytes / 1024} KiB limit";
-                return false;
-            }
-            text = File.ReadAllText(path);
-            error = "";
-            return true;
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            error = ex.Message;
-            return false;
-        }
+        if (!SafeFile.TryReadBytes(path, root, MaxBytes, out byte[] bytes, out error)) return false;
+        text = SafeFile.Decode(bytes);
+        return true;
     }
 }

@@ -13,9 +13,11 @@ public sealed record LoadResult(ScenarioDocument? Document, IReadOnlyList<Diagno
 
 /// <summary>
 /// Loads a scenario file: reads YAML with positions, follows <c>extends</c> (deep merge, child wins, paths relative
-/// to the file that names them, cycles reported), reads life tables, then binds and validates.
+/// to the file that names them, cycles reported), reads life tables, then binds and validates. Every file a scenario
+/// names must lie inside the project folder (<see cref="ProjectRoot"/>): the scenario's own folder, or
+/// <paramref name="root"/> when given.
 /// </summary>
-public sealed class ScenarioLoader(ISourceReader reader)
+public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
 {
     public const int MaxExtendsDepth = 16;
 
@@ -24,21 +26,36 @@ public sealed class ScenarioLoader(ISourceReader reader)
         var sources = new SourceSet();
         var problems = new List<Diagnostic>();
         var files = new List<string>();
-        var root = LoadTree(path, new List<string>(), sources, problems, files, null);
-        if (root is null || problems.Count > 0) return new LoadResult(null, problems, sources);
+        string project = ProjectRoot.For(path, root);
+        var tree = LoadTree(path, project, new List<string>(), sources, problems, files, null);
+        if (tree is null || problems.Count > 0) return new LoadResult(null, problems, sources);
 
         var ctx = new BindContext();
-        var binder = new ScenarioBinder(ctx, (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, ctx, sources, files));
-        var document = binder.Bind(root, files);
+        var binder = new ScenarioBinder(ctx, (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, project, ctx, sources, files));
+        var document = binder.Bind(tree, files);
         return new LoadResult(document is null ? null : document with { InputHash = sources.Hash() }, ctx.Problems, sources);
     }
 
-    private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, BindContext ctx, SourceSet sources, List<string> files)
+    private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, string project, BindContext ctx, SourceSet sources, List<string> files)
     {
-        string full = Resolve(at.File, file);
-        if (!reader.TryRead(full, out string text, out string error))
+        if (!file.EndsWith(".csv", StringComparison.OrdinalIgnoreCase))
+        {
+            ctx.Report(at, fieldPath, "must name a life table file (.csv)", BindContext.Quote(file));
+            return null;
+        }
+        if (ProjectRoot.Resolve(at.File, file, project, out string rule) is not { } full)
+        {
+            ctx.Report(at, fieldPath, rule, BindContext.Quote(file));
+            return null;
+        }
+        if (!reader.TryReadInside(full, project, out string text, out string error))
         {
             ctx.Report(at, fieldPath, $"cannot read the life table ({error})", $"'{file}'");
+            return null;
+        }
+        if (text.Contains('\0'))
+        {
+            ctx.Report(at, fieldPath, "the life table is binary, not CSV text", "a NUL byte");
             return null;
         }
         sources.Add(full, text);
@@ -46,7 +63,7 @@ public sealed class ScenarioLoader(ISourceReader reader)
         return LifeTableReader.Read(full, text, fieldPath, ctx);
     }
 
-    private YMapping? LoadTree(string path, List<string> chain, SourceSet sources, List<Diagnostic> problems, List<string> files, (SourceSpan At, string Value)? namedBy)
+    private YMapping? LoadTree(string path, string project, List<string> chain, SourceSet sources, List<Diagnostic> problems, List<string> files, (SourceSpan At, string Value)? namedBy)
     {
         string key = Path.GetFullPath(path);
         if (chain.Contains(key))
@@ -60,15 +77,17 @@ public sealed class ScenarioLoader(ISourceReader reader)
             problems.Add(new Diagnostic(namedBy!.Value.At, "extends", $"more than {MaxExtendsDepth} levels of extends", $"'{namedBy.Value.Value}'"));
             return null;
         }
-        if (!reader.TryRead(path, out string text, out string error))
+        string text, error;
+        if (namedBy is null ? !reader.TryRead(path, out text, out error) : !reader.TryReadInside(path, project, out text, out error))
         {
             if (namedBy is { } by) problems.Add(new Diagnostic(by.At, "extends", $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
             else problems.Add(new Diagnostic(new SourceSpan(path, 1, 1), "", $"cannot read the scenario ({error})", null));
             return null;
         }
-        sources.Add(path, text);
+        // A binary file is not shown: its first line could be anything (a key, the environment of /proc/self/environ).
+        if (!text.Contains('\0')) sources.Add(path, text);
         files.Add(path);
-        var (node, readProblems) = YamlTreeReader.Read(path, text);
+        var (node, readProblems) = YamlTreeReader.Read(path, text, "scenario");
         problems.AddRange(readProblems);
         if (node is null) return null;
         if (node is not YMapping map)
@@ -82,25 +101,37 @@ public sealed class ScenarioLoader(ISourceReader reader)
             problems.Add(new Diagnostic(ext.At, "extends", "must be the path of another scenario file", ext.Kind));
             return null;
         }
-        string parentPath = Resolve(path, parentName.Value);
+        if (!parentName.Value.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase) && !parentName.Value.EndsWith(".yml", StringComparison.OrdinalIgnoreCase))
+        {
+            problems.Add(new Diagnostic(parentName.At, "extends", "must name a scenario file (.yaml or .yml)", BindContext.Quote(parentName.Value)));
+            return null;
+        }
+        if (ProjectRoot.Resolve(path, parentName.Value, project, out string rule) is not { } parentPath)
+        {
+            problems.Add(new Diagnostic(parentName.At, "extends", rule, BindContext.Quote(parentName.Value)));
+            return null;
+        }
         chain.Add(key);
-        var parent = LoadTree(parentPath, chain, sources, problems, files, (parentName.At, parentName.Value));
+        var parent = LoadTree(parentPath, project, chain, sources, problems, files, (parentName.At, parentName.Value));
         chain.RemoveAt(chain.Count - 1);
         return parent is null ? null : Merge(parent, map);
     }
 
-    /// <summary>A path named inside <paramref name="from"/>, relative to that file's folder, with "." and ".." folded away.</summary>
-    public static string Resolve(string from, string relative)
+    /// <summary>A full path as messages show it: relative to the current folder when it lies below it, else in full.</summary>
+    public static string Display(string full)
     {
-        string combined = Path.Combine(Path.GetDirectoryName(from) ?? "", relative);
-        if (Path.IsPathRooted(combined)) return Path.GetFullPath(combined);
         string cwd = Directory.GetCurrentDirectory();
-        return Path.GetRelativePath(cwd, Path.GetFullPath(combined, cwd));
+        return ProjectRoot.IsInside(full, cwd) && full != cwd ? Path.GetRelativePath(cwd, full) : full;
     }
 
-    /// <summary>A section that switches its <c>form</c> (say, from gompertz_makeham to life_table) is replaced, not merged.</summary>
+    /// <summary>A section that switches its <c>form</c> (say, from gompertz_makeham to life_table) or a parameter that
+    /// switches its <c>distribution</c> (say, from uniform to normal) is replaced, not merged: the parent's parameters of
+    /// the old form never stick to the child's.</summary>
     private static bool FormChanges(YMapping parent, YMapping child) =>
-        child["form"] is YScalar c && (parent["form"] is not YScalar p || p.Value != c.Value);
+        KindChanges(parent, child, "form") || KindChanges(parent, child, "distribution");
+
+    private static bool KindChanges(YMapping parent, YMapping child, string key) =>
+        child[key] is YScalar c && (parent[key] is not YScalar p || p.Value != c.Value);
 
     /// <summary>Deep merge: mappings merge key by key, the child's value winning; lists and scalars are replaced whole,
     /// and so is a mapping whose <c>form</c> changes and a parameter given as <c>{ value, source, note }</c> (so a

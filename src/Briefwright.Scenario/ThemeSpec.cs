@@ -16,21 +16,30 @@ public sealed record ThemeSpec(string Name, string Paper, IReadOnlyDictionary<st
     public static readonly string[] ColourKeys = { "accent", "text", "muted", "rule", "box_fill", "header_fill" };
 
     public static ThemeSpec Default { get; } = new("briefwright standard", "a4", new Dictionary<string, string>(), null, null);
+
+    /// <summary>The logo as read and checked by <see cref="ThemeLoader"/>: PNG bytes and size in pixels.</summary>
+    public (byte[] Png, int Width, int Height)? Logo { get; init; }
+
+    /// <summary>The font files as read and checked by <see cref="ThemeLoader"/>, by style.</summary>
+    public IReadOnlyDictionary<string, byte[]> FontFiles { get; init; } = new Dictionary<string, byte[]>();
 }
 
-/// <summary>Reads a theme file (YAML) with the same positioned errors as scenarios.</summary>
+/// <summary>Reads a theme file (YAML) with the same positioned errors as scenarios, and its logo and fonts, which must
+/// lie inside the project folder (<see cref="ProjectRoot"/>: the theme's folder, or <c>root</c>) and are checked
+/// whole (<see cref="ThemeAssets"/>) before anything uses them.</summary>
 public static partial class ThemeLoader
 {
-    [GeneratedRegex("^#[0-9A-Fa-f]{6}$")]
+    [GeneratedRegex(@"^#[0-9A-Fa-f]{6}\z")]
     private static partial Regex Hex();
 
-    public static (ThemeSpec? Theme, IReadOnlyList<Diagnostic> Problems, SourceSet Sources) Load(string path, ISourceReader reader)
+    public static (ThemeSpec? Theme, IReadOnlyList<Diagnostic> Problems, SourceSet Sources) Load(string path, ISourceReader reader, string? projectRoot = null)
     {
         var sources = new SourceSet();
         if (!reader.TryRead(path, out string text, out string error))
             return (null, new[] { new Diagnostic(new SourceSpan(path, 1, 1), "", $"cannot read the theme ({error})", null) }, sources);
-        sources.Add(path, text);
-        var (root, problems) = YamlTreeReader.Read(path, text);
+        if (!text.Contains('\0')) sources.Add(path, text);
+        string project = ProjectRoot.For(path, projectRoot);
+        var (root, problems) = YamlTreeReader.Read(path, text, "theme");
         if (root is null) return (null, problems, sources);
         var ctx = new BindContext();
         if (root is not YMapping top) { ctx.Report(root.At, "", "a theme must be a mapping", root.Kind); return (null, ctx.Problems, sources); }
@@ -51,6 +60,7 @@ public static partial class ThemeLoader
             }
         }
         var fonts = new Dictionary<string, string>();
+        var fontFiles = new Dictionary<string, byte[]>();
         if (ctx.Mapping(top, "fonts", "", required: false) is { } f)
         {
             ctx.CheckKeys(f, "fonts", ThemeSpec.FontKeys);
@@ -58,15 +68,53 @@ public static partial class ThemeLoader
             {
                 string? file = ctx.Text(f, key, "fonts", required: key == "regular");
                 if (file is null) continue;
+                var at = f[key]!.At;
                 if (!file.EndsWith(".ttf", StringComparison.OrdinalIgnoreCase))
-                    ctx.Report(f[key]!.At, $"fonts.{key}", "must be a TrueType font file (.ttf)", $"'{file}'");
-                else fonts[key] = ScenarioLoader.Resolve(path, file);
+                    ctx.Report(at, $"fonts.{key}", "must be a TrueType font file (.ttf)", BindContext.Quote(file));
+                else if (ReadAsset(reader, ctx, path, file, project, at, $"fonts.{key}", ThemeAssets.MaxFontBytes, "font") is { } bytes)
+                {
+                    if (ThemeAssets.CheckTrueType(bytes) is { } rule) ctx.Report(at, $"fonts.{key}", rule, BindContext.Quote(file));
+                    else
+                    {
+                        fonts[key] = ProjectRoot.Resolve(path, file, project, out _)!;
+                        fontFiles[key] = bytes;
+                    }
+                }
             }
         }
-        if (logo is not null && !logo.EndsWith(".png", StringComparison.OrdinalIgnoreCase))
-            ctx.Report(top["logo"]!.At, "logo", "must be a PNG file (.png)", $"'{logo}'");
+        (byte[], int, int)? logoImage = null;
+        string? logoPath = null;
+        if (logo is not null)
+        {
+            var at = top["logo"]!.At;
+            if (!logo.EndsWith(".png", StringComparison.OrdinalIgnoreCase))
+                ctx.Report(at, "logo", "must be a PNG file (.png)", BindContext.Quote(logo));
+            else if (ReadAsset(reader, ctx, path, logo, project, at, "logo", ThemeAssets.MaxLogoBytes, "logo") is { } png)
+            {
+                if (ThemeAssets.CheckPng(png, out int w, out int h) is { } rule) ctx.Report(at, "logo", rule, BindContext.Quote(logo));
+                else
+                {
+                    logoImage = (png, w, h);
+                    logoPath = ProjectRoot.Resolve(path, logo, project, out _);
+                }
+            }
+        }
         if (ctx.Problems.Count > 0 || name is null) return (null, ctx.Problems, sources);
-        string? logoPath = logo is null ? null : ScenarioLoader.Resolve(path, logo);
-        return (new ThemeSpec(name, paper, colours, footer, logoPath) { FontPaths = fonts }, ctx.Problems, sources);
+        return (new ThemeSpec(name, paper, colours, footer, logoPath) { FontPaths = fonts, FontFiles = fontFiles, Logo = logoImage }, ctx.Problems, sources);
+    }
+
+    private static byte[]? ReadAsset(ISourceReader reader, BindContext ctx, string theme, string file, string project, SourceSpan at, string field, long maxBytes, string what)
+    {
+        if (ProjectRoot.Resolve(theme, file, project, out string rule) is not { } full)
+        {
+            ctx.Report(at, field, rule, BindContext.Quote(file));
+            return null;
+        }
+        if (!reader.TryReadBytes(full, project, maxBytes, out byte[] bytes, out string error))
+        {
+            ctx.Report(at, field, $"cannot read the {what} ({error})", BindContext.Quote(file));
+            return null;
+        }
+        return bytes;
     }
 }

@@ -18,10 +18,10 @@ internal static class AnalysisModel
         ScriptObject OptionPath(OptionAppraisal o)
         {
             var headlinePv = o.PresentValues[0];
-            return Obj(("id", o.OptionId), ("label", Label(o.OptionId)), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
+            return Obj(("id", o.OptionId), ("label", Md.Escape(Label(o.OptionId))), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
                 ("has_dip", o.Path.DipDepth is not null), ("first_positive_year", reform.ReformYear + o.Path.FirstPositiveYear),
                 ("long_run", o.Path.LongRunGain), ("balanced_growth", o.Path.BalancedGrowthGain), ("pv", headlinePv.ToHorizon), ("pv_total", headlinePv.Total),
-                ("break_even_year", reform.ReformYear + headlinePv.BreakEvenYear), ("schedule", headlinePv.ScheduleLabel));
+                ("break_even_year", reform.ReformYear + headlinePv.BreakEvenYear), ("schedule", Md.Escape(headlinePv.ScheduleLabel)));
         }
         var paths = reform.Options.Select(OptionPath).ToList();
         var d = reform.Optimum;
@@ -29,7 +29,7 @@ internal static class AnalysisModel
             ("valuation_year", reform.ValuationYear), ("price_base", reform.PriceBase),
             ("phase_in", reform.PhaseInCohorts), ("options", new ScriptArray(paths)), ("headline", paths.First(p => (string)p["id"]! == a.HeadlineOptionId)),
             ("discounted_optimum", Obj(("years", d.SchoolingYears), ("pv", d.PresentValue), ("explanation", d.Explanation),
-                ("schedule", s.Analysis.Headline.Label), ("balanced_growth", d.BalancedGrowthOptimum), ("tail_included", d.TailIncluded),
+                ("schedule", Md.Escape(s.Analysis.Headline.Label)), ("balanced_growth", d.BalancedGrowthOptimum), ("tail_included", d.TailIncluded),
                 ("by_horizon", new ScriptArray(d.ByHorizon.Select(x => Obj(("horizon", x.HorizonYears), ("years", x.SchoolingYears), ("pv", x.PresentValue))))))));
         model["dynamics_available"] = true;
 

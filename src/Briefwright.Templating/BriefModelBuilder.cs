@@ -17,10 +17,12 @@ public static class BriefModelBuilder
         var s = b.Scenario;
         var r = b.Results;
 
+        // Text written in the scenario is text: escaped here, where it meets the template's markup, so it can never make
+        // a link, a heading, a list, HTML or a [[directive]] (Md.Escape).
         model["brief"] = Obj(
-            ("id", s.Brief.Id), ("title", s.Brief.Title), ("short_title", s.Brief.ShortTitle), ("organisation", s.Brief.Organisation),
-            ("author", s.Brief.Author), ("date", s.Brief.Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)), ("status", s.Brief.Status),
-            ("edition", s.Brief.Edition), ("question", s.Brief.Question));
+            ("id", s.Brief.Id), ("title", Md.Text(s.Brief.Title)), ("short_title", Md.Text(s.Brief.ShortTitle)), ("organisation", Md.Text(s.Brief.Organisation)),
+            ("author", Md.Text(s.Brief.Author)), ("date", s.Brief.Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)), ("status", s.Brief.Status),
+            ("edition", s.Brief.Edition), ("question", Md.Text(s.Brief.Question)));
         var options = r.Options.Select(OptionObject).ToList();
         model["options"] = new ScriptArray(options);
         model["baseline"] = options.First(o => (bool)o["is_baseline"]!);
@@ -64,7 +66,7 @@ public static class BriefModelBuilder
     }
 
     private static ScriptObject OptionObject(OptionResult o) => Obj(
-        ("id", o.Id), ("label", o.Label), ("is_baseline", o.IsBaseline), ("schooling_years", o.SchoolingYears),
+        ("id", o.Id), ("label", Md.Text(o.Label)), ("is_baseline", o.IsBaseline), ("schooling_years", o.SchoolingYears),
         ("worker_share", o.WorkerShare), ("human_capital", o.HumanCapitalPerWorker), ("output_per_person", o.OutputPerPerson),
         ("change_pct", o.ChangeVsBaselinePct));
 

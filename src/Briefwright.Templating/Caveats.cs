@@ -56,7 +56,7 @@ public static class Caveats
 
     private static IEnumerable<string> FromAnalysis(ScenarioDocument scenario, AnalysisResults a)
     {
-        string Label(string id) => scenario.Inputs.Options.First(o => o.Id == id).Label;
+        string Label(string id) => Md.Escape(scenario.Inputs.Options.First(o => o.Id == id).Label);
         if (a.MonteCarlo is { } mc)
             foreach (var o in mc.Options)
             {

@@ -32,7 +32,7 @@ public static class TemplateFunctions
     }
 
     /// <summary>Large numbers with thousands separators: 1234567 → "1,234,567".</summary>
-    public static string Big(double value, int digits = 0) => (value < 0 ? "−" : "") + Math.Abs(value).ToString("N" + digits, Invariant);
+    public static string Big(double value, int digits = 0) => (value < 0 ? "−" : "") + Math.Abs(value).ToString("N" + Math.Clamp(digits, 0, 15), Invariant);
 
     /// <summary>Years: 34.51 → "34.5 years"; 1 → "1 year".</summary>
     public static string Years(double value, int digits = 1)

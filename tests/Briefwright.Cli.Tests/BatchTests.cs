@@ -164,7 +164,7 @@ public class BatchTests
         Commands.BuildCommand.HeadStart();
         var (code, _, err) = w.Build("--template", "no-such-template.md");
         Assert.Equal(ExitCodes.InvalidInput, code);
-        Assert.Contains("no-such-template.md: cannot read the template", err);
+        Assert.Contains("no-such-template.md:1:1: cannot read the template (no such file).", err);
         Assert.Equal(new[] { BuildLog.FileName }, Directory.GetFiles(w.Out).Select(Path.GetFileName)); // only the attempt is logged
     }
 }
@@ -222,7 +222,7 @@ public class ThemeTests
         File.WriteAllText(Path.Combine(w.Dir, "house.theme.yaml"), "name: House style (invented)\nfonts:\n  regular: house.ttf\n");
         var (code, _, err) = w.Build("--theme", Path.Combine(w.Dir, "house.theme.yaml"));
         Assert.Equal(2, code);
-        Assert.Contains("house.ttf: must be a TrueType font (glyf outlines). Got an OpenType font with CFF outlines", err);
+        Assert.Contains("house.theme.yaml:3:12: fonts.regular: must be a TrueType font (glyf outlines); the file is an OpenType font with CFF outlines", err);
         Assert.Equal(new[] { BuildLog.FileName }, Directory.GetFiles(w.Out).Select(Path.GetFileName)); // only the attempt is logged
     }
 }

@@ -40,7 +40,7 @@ public class CliAppTests
             File.WriteAllText(bad, File.ReadAllText(Demo("auroria-national.yaml")).Replace("value: 22%", "value: 122%"));
             var (code, _, error) = Run("check", bad);
             Assert.Equal(2, code);
-            Assert.Contains($"{bad}:52:12: production.saving_rate.value: must be greater than 0% and less than 100%. Got '122%'.", error);
+            Assert.Contains($"{bad}:52:12: production.saving_rate.value: must be at least 0.1% and less than 100%. Got '122%'.", error);
             Assert.Contains("^", error);
             Assert.DoesNotContain("   at ", error); // no stack trace
         }

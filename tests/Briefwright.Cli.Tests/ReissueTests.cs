@@ -114,7 +114,7 @@ public class ReissueTests
             var w = new Workspace("auroria-silverdale");
             var (code, _, error) = w.Build("--jobs", jobs);
             Assert.Equal(2, code);
-            Assert.Contains($"--jobs: must be a whole number of at least 1 (briefs built at once). Got '{jobs}'.", error);
+            Assert.Contains($"--jobs: must be a whole number from 1 to {BuildCommand.MaxJobs}. Got '{jobs}'.", error);
             Assert.DoesNotContain("System.", error);
             Assert.DoesNotContain(Directory.GetFiles(w.Out), f => !f.EndsWith(BuildLog.FileName));
         }

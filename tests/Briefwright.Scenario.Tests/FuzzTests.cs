@@ -4,7 +4,7 @@ using CsCheck;
 namespace Briefwright.Scenario.Tests;
 
 /// <summary>
-/// Seeded fuzzing: 10,000 random mutations of the demo scenarios (CsCheck generators driven by a fixed PCG seed,
+/// Seeded fuzzing: 10,000 random mutations of the demo scenarios, some aiming extends and life tables outside the project folder (CsCheck generators driven by a fixed PCG seed,
 /// so every run tries the same cases). No mutation may crash the loader; every failure must be a positioned error;
 /// every mutant that loads must solve to finite numbers.
 /// </summary>
@@ -17,12 +17,18 @@ public class FuzzTests
         ["region.yaml"] = File.ReadAllText(Path.Combine(Root, "briefs-demo", "auroria-silverdale.yaml")).Replace("auroria-national.yaml", "national.yaml"),
         ["life.yaml"] = File.ReadAllText(Path.Combine(Root, "briefs-demo", "auroria-northport.yaml")).Replace("auroria-national.yaml", "national.yaml").Replace("northport-life-table.csv", "table.csv"),
         ["table.csv"] = File.ReadAllText(Path.Combine(Root, "briefs-demo", "northport-life-table.csv")),
+        // Outside the project folder (the current folder): path mutations aim at these, which must never be read or quoted.
+        ["../secret.yaml"] = "password: hunter2\n",
+        ["../secret.csv"] = "age,survivors\n0,hunter2\n",
     };
 
     private static readonly string[] Tokens =
     {
         "NaN", "-", "%", "[", "]", "{", "}", ":", "&a ", "*a", "\t", "  ", "1e999", "-1", "0", "\"", "'", "#", "---", "\n", "- ",
         "extends: region.yaml\n", "extends: national.yaml\n", "999999999999999999999999999999999", "é", "\0", "...", "!!int ", "? ", ",",
+        // paths out of the project folder, of the wrong kind, and tags
+        "extends: ../secret.yaml\n", "extends: /etc/passwd\n", "extends: /proc/self/environ\n", "file: ../secret.csv\n", "file: /dev/zero.csv\n",
+        "../", "/", "!!str ", "!custom ", "!!binary ",
     };
 
     private static string FindRoot()
@@ -78,6 +84,7 @@ public class FuzzTests
             {
                 rejected++;
                 Assert.NotEmpty(result.Problems);
+                Assert.DoesNotContain("hunter2", string.Join("\n", result.Problems.Select(result.Sources.Render)));
                 foreach (var p in result.Problems)
                 {
                     Assert.True(p.At.Line >= 1 && p.At.Column >= 1 && files.ContainsKey(p.At.File), $"case {i}: unpositioned problem {p.Message}");
@@ -87,8 +94,9 @@ public class FuzzTests
                 continue;
             }
             loaded++;
+            Assert.DoesNotContain(result.Document!.Files, f => f.Contains("secret", StringComparison.Ordinal));
             var solved = BalancedGrowth.Solve(result.Document!.Inputs, gridPoints: 40);
-            Assert.All(solved.Options, o => Assert.True(double.IsFinite(o.OutputPerPerson) && o.OutputPerPerson > 0, $"case {i}: output {o.OutputPerPerson}"));
+            Assert.All(solved.Options, o => Assert.True(double.IsFinite(o.OutputPerPerson) && o.OutputPerPerson > 0 && double.IsFinite(o.ChangeVsBaselinePct), $"case {i}: output {o.OutputPerPerson}"));
             Assert.True(double.IsFinite(solved.Optimum.SchoolingYears));
         }
         Assert.True(loaded > 500 && rejected > 500, $"{loaded} loaded, {rejected} rejected: the mutations should exercise both paths");

@@ -37,9 +37,10 @@ public class ScenarioLoaderTests
         [Fact]
         public void Extends_a_parent_with_deep_merge_and_a_path_relative_to_the_child()
         {
+            // The parent lies above the child's folder, so the project folder (--root) is given as the current one.
             var child = "extends: ../national.yaml\nbrief:\n  id: region\ndemography:\n  population_growth: -0.5%\n";
             var files = new Dictionary<string, string> { ["regions/r.yaml"] = child, ["national.yaml"] = MemoryReader.Valid };
-            var r = new ScenarioLoader(new MemoryReader(files)).Load("regions/r.yaml");
+            var r = new ScenarioLoader(new MemoryReader(files), root: ".").Load("regions/r.yaml");
             Assert.True(r.Ok, string.Join("\n", r.Problems));
             Assert.Equal("region", r.Document!.Brief.Id);
             Assert.Equal("Test brief", r.Document.Brief.Title);
@@ -72,8 +73,8 @@ public class ScenarioLoaderTests
     {
         [Theory]
         [InlineData("population_growth: 1%", "population_growth: 12%", "s.yaml:7:22: demography.population_growth: must be at least -10% and at most 10%. Got '12%'.")]
-        [InlineData("saving_rate: 0.2", "saving_rate: 1.2", "s.yaml:14:16: production.saving_rate: must be greater than 0 and less than 1. Got '1.2'.")]
-        [InlineData("capital_share: 0.33", "capital_share: 0", "s.yaml:15:18: production.capital_share: must be greater than 0 and less than 1. Got '0'.")]
+        [InlineData("saving_rate: 0.2", "saving_rate: 1.2", "s.yaml:14:16: production.saving_rate: must be at least 0.001 and less than 1. Got '1.2'.")]
+        [InlineData("capital_share: 0.33", "capital_share: 0", "s.yaml:15:18: production.capital_share: must be greater than 0 and less than 0.9. Got '0'.")]
         [InlineData("saving_rate: 0.2", "saving_rate: abc", "s.yaml:14:16: production.saving_rate: must be a number or a percentage. Got 'abc'.")]
         [InlineData("saving_rate: 0.2", "saving_rate: .nan", "s.yaml:14:16: production.saving_rate: must be a number or a percentage. Got '.nan'.")]
         [InlineData("saving_rate: 0.2", "saving_rate: NaN", "s.yaml:14:16: production.saving_rate: must be a finite number. Got 'NaN'.")]
@@ -84,7 +85,7 @@ public class ScenarioLoaderTests
         [InlineData("form: rectangular", "form: rectangle", "s.yaml:11:11: demography.survival.form: must be one of rectangular, gompertz_makeham, life_table (did you mean 'rectangular'?). Got 'rectangle'.")]
         [InlineData("max_age: 80", "max_age: 60", "s.yaml:9:19: demography.retirement_age: must not exceed the survival curve's maximum age (60). Got 65.")]
         [InlineData("schooling_years: 12", "schooling_years: 12\n    retirement_age: 18", "s.yaml:24:22: options[1].schooling_years: school-entry age plus schooling must be below the retirement age (6 + 12 = 18, retirement at 18). Got 12.")]
-        [InlineData("depreciation: 3%\n  technology_growth: 2%", "depreciation: 0%\n  technology_growth: -2%", "s.yaml:16:17: production.depreciation: population growth + technology growth + depreciation must be positive (1% + -2% + 0% = -1%). Got 0%.")]
+        [InlineData("depreciation: 3%\n  technology_growth: 2%", "depreciation: 0%\n  technology_growth: -2%", "s.yaml:16:17: production.depreciation: population growth + technology growth + depreciation must be at least 0.1%, or the model's results are not finite (1% + -2% + 0% = -1%). Got 0%.")]
         [InlineData("id: more", "id: base", "s.yaml:22:9: options[1].id: option ids must be unique (also used by options[0]). Got 'base'.")]
         [InlineData("  organisation: Test Institute (invented)\n", "", "s.yaml:2:3: brief.organisation: required field is missing.")]
         public void Are_reported_with_position_field_rule_and_value(string find, string replace, string expected)
@@ -185,6 +186,7 @@ public class SizeLimitTests
     {
         string huge = MemoryReader.Valid + "\n# " + new string('x', 1_100_000) + "\n";
         var r = MemoryReader.Load(huge);
-        Assert.Equal("s.yaml:1:1: file is larger than the 1024 KiB limit for a scenario. Got 1074 KiB.", Assert.Single(r.Problems).Message);
+        int bytes = System.Text.Encoding.UTF8.GetByteCount(huge);
+        Assert.Equal($"s.yaml:1:1: file is larger than the limit for a scenario of 1 MiB (1,048,576 bytes). Got {bytes:N0} bytes.", Assert.Single(r.Problems).Message);
     }
 }

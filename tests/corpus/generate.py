@@ -193,6 +193,37 @@ sub("reform-horizon-too-long", "options:\n", "reform:\n  horizon_years: 1000\nop
 sub("appraisal-unknown-schedule", "options:\n", "appraisal:\n  discount_rates: [green_paper]\noptions:\n")
 sub("appraisal-schedule-not-from-one", "options:\n", "appraisal:\n  discount_rates:\n    - { id: x, label: X, schedule: [ { from_year: 5, rate: 3% } ] }\noptions:\n")
 
+# --- files outside the project folder, of the wrong kind, or not scenarios (never read, never quoted)
+cases["extends-absolute"] = "extends: /etc/shadow.yaml\nbrief:\n  id: child\n"
+cases["extends-proc"] = "extends: /proc/self/environ\n"
+cases["extends-dotdot"] = "extends: ../../outside.yaml\n"
+cases["extends-not-a-scenario"] = "extends: generate.py\n"
+cases["lifetable-absolute"] = BASE.replace("    form: rectangular\n    max_age: 80", "    form: life_table\n    file: /etc/table.csv")
+cases["lifetable-dotdot"] = BASE.replace("    form: rectangular\n    max_age: 80", "    form: life_table\n    file: ../table.csv")
+cases["lifetable-not-csv"] = BASE.replace("    form: rectangular\n    max_age: 80", "    form: life_table\n    file: expected.tsv")
+# --- what the model cannot solve, caught by check
+cases["lifetable-everyone-dies-at-one"] = BASE.replace("    form: rectangular\n    max_age: 80", "    form: life_table\n    file: lifetable-everyone-dies-at-one.csv")
+open("lifetable-everyone-dies-at-one.csv", "w").write("age,survivors\n0,1000\n1,0\n100,0\n")
+sub("saving-tiny-capital-share-high", "  saving_rate: 20%\n  capital_share: 0.33", "  saving_rate: 1e-300\n  capital_share: 0.99")
+sub("capital-share-near-one", "  capital_share: 0.33", "  capital_share: 0.9999999")
+cases["dilution-tiny"] = BASE.replace("  population_growth: 1%", "  population_growth: -5%").replace("  technology_growth: 2%", "  technology_growth: 5%").replace("  depreciation: 3%", "  depreciation: 1e-300")
+sub("sensitivity-entry-age-outside", "options:\n", "sensitivity:\n  ranges:\n    school_entry_age: [0, 64]\noptions:\n")
+sub("sensitivity-range-breaks-rule", "options:\n", "sensitivity:\n  ranges:\n    population_growth: [-10%, 1%]\noptions:\n")
+sub("sensitivity-depreciation-full", "options:\n", "sensitivity:\n  ranges:\n    depreciation: [0, 100%]\noptions:\n")
+sub("grid-corner-breaks-rule", "options:\n", "sensitivity:\n  grids:\n    - { x: population_growth, x_range: [-2%, 1%], y: technology_growth, y_range: [-2%, 2%] }\noptions:\n")
+sub("uncertainty-sd-huge", "options:\n", "uncertainty:\n  seed: 1\n  parameters:\n    saving_rate: { distribution: normal, mean: 20%, sd: 1000 }\noptions:\n")
+sub("uncertainty-uniform-outside-rule", "options:\n", "uncertainty:\n  seed: 1\n  parameters:\n    capital_share: { distribution: uniform, low: 0.2, high: 0.99 }\noptions:\n")
+sub("uncertainty-work-too-large", "options:\n", "reform:\n  horizon_years: 400\nuncertainty:\n  seed: 1\n  draws: 200000\n  sobol_samples: 8192\n  parameters:\n    saving_rate: { distribution: uniform, low: 10%, high: 30% }\noptions:\n")
+sub("reform-default-year-out-of-range", "  date: 2026-11-30", "  date: 2300-06-30")
+# --- ids, tags, floods
+sub("id-with-newline", "  id: corpus-base", '  id: "corpus\\n"')
+sub("tagged-string-number", "  saving_rate: 20%", "  saving_rate: !!str 0.2")
+sub("tagged-unknown", "  saving_rate: 20%", "  saving_rate: !custom 0.2")
+cases["unknown-keys-flood"] = BASE + "".join(f"k{i}: 1\n" for i in range(20000))
+# --- extends: a child that switches a distribution replaces the parent's (the parent is .yml: not a case of its own)
+open("uncertainty-parent.yml", "w").write(BASE.replace("options:\n", "uncertainty:\n  seed: 1\n  parameters:\n    saving_rate: { distribution: uniform, low: 10%, high: 30% }\noptions:\n"))
+cases["extends-child-switches-distribution"] = "extends: uncertainty-parent.yml\nuncertainty:\n  parameters:\n    saving_rate: { distribution: normal, mean: 20% }\n"
+
 os.makedirs(".", exist_ok=True)
 for name, text in cases.items():
     if text is None: continue
@@ -214,6 +245,12 @@ templates = {
     "template-unknown-figure": "# Title\n\n{{ figure \"pie-chart\" }}\n",
     "template-unclosed-block": "# Title\n\n{{ for o in options }}\n{{ o.label }}\n",
     "template-unknown-directive": "# Title\n\n[[chart: something]]\n",
+    "template-big-number": "# Title\n\n{{ big 1 999999999 | string.size }}\n",
+    "template-double-recursion": "# Title\n\n{{ func f(n); if n > 0; f(n - 1); f(n - 1); end; end; f 40 }}\n",
+    "template-text-doubling": "# Title\n\n{{ x = 'abcdefgh'; for i in 1..40; x = x + x; end; x | string.size }}\n",
+    "template-huge-range": "# Title\n\n{{ (1..1000000000) | array.size }}\n",
+    "template-huge-padding": "# Title\n\n{{ 'x' | string.pad_left 1000000000 }}\n",
+    "template-file-link": "# Title\n\nSee [the memo](file:///etc/passwd).\n",
 }
 for name, text in templates.items(): open(f"{name}.md", "w").write(text)
 themes = {
@@ -223,6 +260,26 @@ themes = {
     "theme-bad-paper": "name: T\npaper: a3\n",
     "theme-logo-not-png": "name: T\nlogo: logo.jpg\n",
     "theme-unknown-colour": "name: T\ncolours:\n  background: \"#FFFFFF\"\n",
+    "theme-empty": "",
+    "theme-logo-absolute": "name: T\nlogo: /etc/logo.png\n",
+    "theme-logo-dotdot": "name: T\nlogo: ../logo.png\n",
+    "theme-logo-truncated": "name: T\nlogo: theme-truncated.png\n",
+    "theme-logo-16-bit": "name: T\nlogo: theme-16-bit.png\n",
+    "theme-logo-huge": "name: T\nlogo: theme-huge.png\n",
+    "theme-font-truncated": "name: T\nfonts:\n  regular: theme-truncated.ttf\n",
+    "theme-font-cff": "name: T\nfonts:\n  regular: theme-cff.ttf\n",
 }
+import struct, zlib
+def chunk(t, d): return struct.pack(">I", len(d)) + t + d + struct.pack(">I", zlib.crc32(t + d) & 0xffffffff)
+def png(w, h, depth=8, rows=None):
+    raw = rows if rows is not None else (b"\0" + b"\x80" * (w * 4 * depth // 8)) * h
+    return b"\x89PNG\r\n\x1a\n" + chunk(b"IHDR", struct.pack(">IIBBBBB", w, h, depth, 6, 0, 0, 0)) + chunk(b"IDAT", zlib.compress(raw)) + chunk(b"IEND", b"")
+whole = png(40, 20)
+open("theme-truncated.png", "wb").write(whole[:len(whole) // 2])
+open("theme-16-bit.png", "wb").write(png(40, 20, depth=16))
+open("theme-huge.png", "wb").write(png(30000, 30000, rows=b""))
+ttf = open("../../fonts/LiberationSans-Regular.ttf", "rb").read()
+open("theme-truncated.ttf", "wb").write(ttf[:2048])
+open("theme-cff.ttf", "wb").write(b"OTTO" + bytes(60))
 for name, text in themes.items(): open(f"{name}.theme.yaml", "w").write(text)
 print(len([c for c in cases.values() if c is not None]) + 2 + len(templates) + len(themes), "corpus files")

@@ -19,6 +19,9 @@ public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options,
 
     /// <summary>Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs read "–", "β₁" and "δ" right.</summary>
     public bool CsvByteOrderMark { get; init; }
+
+    /// <summary>The project folder (--root) that files named by scenarios must stay inside; null: each scenario's folder.</summary>
+    public string? Root { get; init; }
 }
 
 /// <summary>
@@ -41,7 +44,7 @@ public static class BatchBuilder
     public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error, LoadResult? loadedBefore = null)
     {
         var watch = Stopwatch.StartNew();
-        var loaded = loadedBefore ?? new ScenarioLoader(new FileSourceReader()).Load(file);
+        var loaded = loadedBefore ?? new ScenarioLoader(new FileSourceReader(), settings.Root).Load(file);
         if (!loaded.Ok)
         {
             var errors = new StringWriter();
@@ -112,6 +115,11 @@ public static class BatchBuilder
             {
                 InputHash = hash, Messages = ex.Errors.Select(e => e.ToString().Split('\n')[0]).ToList(),
             };
+        }
+        catch (UnsolvableScenarioException ex)
+        {
+            lock (error) error.WriteLine(ScenarioInputs.Unsolvable(file, ex));
+            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
         }
         catch (ComposeException ex)
         {

@@ -22,6 +22,7 @@ public static class BuildCommand
         var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on has changed." };
         var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job arrays: shards are disjoint and together cover the list, whatever the spelling of the folder." };
         var jobs = new Option<string?>("--jobs", "-j") { Description = "Briefs built at once, at least 1 (default: the project's, else one per core)." };
+        var root = ScenarioInputs.RootOption();
         var noImages = new Option<bool>("--no-chart-images") { Description = "Skip the SVG and PNG copies of each chart in the data annex (faster)." };
         var csvBom = new Option<bool>("--csv-bom") { Description = "Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs show '–', 'β₁' and 'δ' correctly." };
         var skipFlush = new Option<bool>("--skip-flush") { Description = "Do not wait for each brief to reach the disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a power cut might leave an empty one." };
@@ -32,12 +33,13 @@ public static class BuildCommand
             "chart images beside it. Unchanged briefs are skipped; a changed brief becomes a new edition and the previous one is archived. " +
             $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
-            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet,
+            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root,
         };
         command.SetAction(parse =>
         {
             var error = io.Err;
             var given = parse.GetValue(paths)!;
+            if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;
             string? shardText = parse.GetValue(shard);
             var log = new BuildLog(io.Clock, shardText);
             string? cliOut = parse.GetValue(outDir);
@@ -68,11 +70,12 @@ public static class BuildCommand
             }
             string? effectiveOut = cliOut ?? project?.Out;
 
-            var files = ScenarioInputs.Expand(given, error);
+            var files = ScenarioInputs.Expand(given, error, out bool emptyFolder);
+            if (files.Count == 0) return ExitCodes.InvalidInput;
             var setupErrors = new StringWriter();
             var setup = Setup(parse.GetValue(template) ?? project?.Template, parse.GetValue(theme) ?? project?.Theme,
                 parse.GetValue(date) ?? project?.Date?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture), shardText, parse.GetValue(jobs), project?.Jobs,
-                setupErrors, out string stage);
+                parse.GetValue(root), setupErrors, out string stage);
             if (setup is null)
             {
                 error.Write(setupErrors.ToString());
@@ -86,13 +89,14 @@ public static class BuildCommand
             {
                 Durable = !parse.GetValue(skipFlush),
                 CsvByteOrderMark = parse.GetValue(csvBom) || (project?.CsvByteOrderMark ?? false),
+                Root = parse.GetValue(root),
             };
             bool beQuiet = parse.GetValue(quiet);
             var progress = new Progress(beQuiet ? TextWriter.Null : io.Out, io.Interactive && !beQuiet, files.Count);
             var outcomes = Run(files, settings, jobCount, progress, error, log);
             if (!beQuiet) io.Out.Write(Summary(outcomes));
             if (outcomes.Any(o => o.Status == OutcomeStatus.Failed)) return ExitCodes.Failed;
-            return outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
+            return emptyFolder || outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
         });
         return command;
     }
@@ -139,6 +143,20 @@ public static class BuildCommand
         foreach (var dir in LogDirs(paths, outDir, project)) BuildLog.Append(dir, entry);
     }
 
+    public const int MaxJobs = 256;
+
+    /// <summary>The --jobs value: a whole number from 1 to <see cref="MaxJobs"/>, or one per core when not given.</summary>
+    public static int? ParseJobs(string? text, TextWriter error)
+    {
+        if (text is null) return Environment.ProcessorCount;
+        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n is >= 1 and <= MaxJobs) return n;
+        error.WriteLine($"--jobs: must be a whole number from 1 to {MaxJobs}. Got '{Scenario.Binding.BindContext.Printable(text)}'.");
+        return null;
+    }
+
+    /// <summary>Templates are read up to this size.</summary>
+    public const long MaxTemplateBytes = 1 << 20;
+
     /// <summary>
     /// On a spare core, while the command line and the first scenario are read: parses the standard template, hashes
     /// the bundled fonts and reads a sample manifest, so that a single brief built by a fresh process finishes sooner.
@@ -174,7 +192,7 @@ public static class BuildCommand
         // Every scenario is read first: ids must be unique within the batch before anything is written.
         var loaded = new LoadResult?[files.Count];
         var reader = new FileSourceReader();
-        Parallel.For(0, files.Count, parallel, i => loaded[i] = new ScenarioLoader(reader).Load(files[i]));
+        Parallel.For(0, files.Count, parallel, i => loaded[i] = new ScenarioLoader(reader, settings.Root).Load(files[i]));
         var duplicates = ScenarioInputs.DuplicateIds(files.Select((f, i) => (f, loaded[i]!)).ToList(), reader);
         // Several briefs at once already keep the cores busy; the model's own loops then stay on their brief's thread.
         if (jobs > 1 && files.Count > 1) settings = settings with { Options = settings.Options with { ModelThreads = 1 } };
@@ -207,32 +225,30 @@ public static class BuildCommand
 
     /// <summary>Reads the template and theme and checks the options; on failure, <paramref name="stage"/> says which was wrong.</summary>
     private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?, int)? Setup(string? templatePath, string? themePath, string? dateText,
-        string? shardText, string? jobsText, int? projectJobs, TextWriter error, out string stage)
+        string? shardText, string? jobsText, int? projectJobs, string? root, TextWriter error, out string stage)
     {
         stage = "options";
         int jobs = projectJobs ?? Environment.ProcessorCount;
         if (jobsText is not null)
         {
-            if (!int.TryParse(jobsText, NumberStyles.None, CultureInfo.InvariantCulture, out jobs) || jobs < 1)
-            {
-                error.WriteLine($"--jobs: must be a whole number of at least 1 (briefs built at once). Got '{jobsText}'.");
-                return null;
-            }
+            if (ParseJobs(jobsText, error) is not { } given) return null;
+            jobs = given;
         }
         stage = "template";
         BriefTemplate tpl;
         try
         {
-            tpl = templatePath is null ? StandardTemplate.Template : BriefTemplate.Parse(File.ReadAllText(templatePath), templatePath);
+            if (templatePath is null) tpl = StandardTemplate.Template;
+            else if (!SafeFile.TryReadBytes(templatePath, null, MaxTemplateBytes, out byte[] bytes, out string why))
+            {
+                error.WriteLine($"{templatePath}:1:1: cannot read the template ({why}).");
+                return null;
+            }
+            else tpl = BriefTemplate.Parse(SafeFile.Decode(bytes), templatePath);
         }
         catch (TemplateException ex)
         {
-            foreach (var e in ex.Errors) error.WriteLine(e);
-            return null;
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            error.WriteLine($"{templatePath}: cannot read the template ({ex.Message}).");
+            foreach (var e in ex.Errors.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(e);
             return null;
         }
         stage = "theme";
@@ -240,25 +256,23 @@ public static class BuildCommand
         string themeHash = "standard";
         if (themePath is not null)
         {
-            var (spec, problems, sources) = ThemeLoader.Load(themePath, new FileSourceReader());
-            foreach (var p in problems) error.WriteLine(sources.Render(p));
+            var (spec, problems, sources) = ThemeLoader.Load(themePath, new FileSourceReader(), root);
+            ScenarioInputs.Print(problems, sources, error);
             if (spec is null) return null;
             options = options with { Theme = spec };
             themeHash = sources.Hash(); // the theme text as read by the loader; no second read
-            if (spec.FontPaths.Count > 0)
+            if (spec.FontFiles.TryGetValue("regular", out byte[]? regular))
             {
-                var fonts = ThemeFonts.Read(spec.FontPaths, error);
-                if (fonts is null) return null;
+                byte[] bold = spec.FontFiles.GetValueOrDefault("bold", regular);
+                var fonts = (regular, bold, spec.FontFiles.GetValueOrDefault("italic", regular), spec.FontFiles.GetValueOrDefault("bold_italic", bold));
                 options = options with { Fonts = fonts };
-                themeHash = BriefBuilder.Sha256(themeHash + string.Concat(new[] { fonts.Value.Regular, fonts.Value.Bold, fonts.Value.Italic, fonts.Value.BoldItalic }
+                themeHash = BriefBuilder.Sha256(themeHash + string.Concat(new[] { fonts.regular, fonts.bold, fonts.Item3, fonts.Item4 }
                     .Select(b => Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(b)))));
             }
-            if (spec.LogoPath is { } logo)
+            if (spec.Logo is { } png)
             {
-                var png = Logo.Read(logo, error);
-                if (png is null) return null;
                 options = options with { Logo = png };
-                themeHash = BriefBuilder.Sha256(themeHash + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(png.Value.Png)));
+                themeHash = BriefBuilder.Sha256(themeHash + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(png.Png)));
             }
         }
         stage = "options";

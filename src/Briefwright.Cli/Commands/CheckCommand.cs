@@ -11,12 +11,14 @@ public static class CheckCommand
     {
         var paths = ScenarioInputs.PathsArgument("checked");
         paths.Description += " Themes (*.theme.yaml) and the project settings file (" + ProjectSettings.FileName + ") are checked as what they are; a folder's are checked too.";
+        var root = ScenarioInputs.RootOption();
         var command = new Command("check", "Validate scenario files, themes and project settings and report every problem at once, as file:line:col: field: rule. Got value. " +
-                                           "Scenarios of one check that share a brief.id are reported too.") { paths };
+                                           "Scenarios of one check that share a brief.id are reported too.") { paths, root };
         command.SetAction(parse =>
         {
             var (output, error) = (io.Out, io.Err);
-            int code = ExitCodes.Ok;
+            if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;
+            string? rootDir = parse.GetValue(root);
             var given = parse.GetValue(paths)!;
             // Themes and settings: named directly, or found in a named folder.
             var others = given.Where(p => p != "-" && !Directory.Exists(p) && !ScenarioInputs.IsScenarioFile(p) && (p.EndsWith(".yaml") || p.EndsWith(".yml")))
@@ -24,12 +26,13 @@ public static class CheckCommand
                     .Where(f => f.EndsWith(".theme.yaml", StringComparison.Ordinal) || Path.GetFileName(f) == ProjectSettings.FileName).Order(StringComparer.Ordinal)))
                 .ToList();
             var reader = new InputReader(io.In);
-            var scenarios = ScenarioInputs.Expand(given.Where(p => !others.Contains(p)), error);
-            var loaded = scenarios.Select(f => (File: f, Loaded: new ScenarioLoader(reader).Load(f))).ToList();
+            var scenarios = ScenarioInputs.Expand(given.Where(p => !others.Contains(p)), error, out bool invalid);
+            int code = invalid ? ExitCodes.InvalidInput : ExitCodes.Ok;
+            var loaded = scenarios.Select(f => (File: f, Loaded: new ScenarioLoader(reader, rootDir).Load(f))).ToList();
             var duplicates = ScenarioInputs.DuplicateIds(loaded, reader);
             foreach (var (file, result) in loaded)
             {
-                foreach (var d in result.Problems) error.WriteLine(result.Sources.Render(d));
+                ScenarioInputs.Print(result.Problems, result.Sources, error);
                 if (duplicates.TryGetValue(file, out var dup)) error.WriteLine(result.Sources.Render(dup));
                 int count = result.Problems.Count + (duplicates.ContainsKey(file) ? 1 : 0);
                 if (count > 0)
@@ -51,12 +54,10 @@ public static class CheckCommand
                 }
                 else
                 {
-                    var (spec, problems, sources) = ThemeLoader.Load(file, new FileSourceReader());
-                    foreach (var d in problems) error.WriteLine(sources.Render(d));
-                    // The files a theme names must exist and be what they claim; the build reads them the same way.
-                    ok = spec is not null && problems.Count == 0
-                         && (spec.FontPaths.Count == 0 || Batch.ThemeFonts.Read(spec.FontPaths, error) is not null)
-                         && (spec.LogoPath is null || Batch.Logo.Read(spec.LogoPath, error) is not null);
+                    // The loader reads and checks the logo and fonts a theme names, as the build does.
+                    var (spec, problems, sources) = ThemeLoader.Load(file, new FileSourceReader(), rootDir);
+                    ScenarioInputs.Print(problems, sources, error);
+                    ok = spec is not null && problems.Count == 0;
                     what = spec is null ? "" : $"theme '{spec.Name}', paper {spec.Paper}";
                 }
                 if (ok) output.WriteLine($"{file}: ok ({what})");

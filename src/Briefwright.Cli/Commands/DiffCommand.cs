@@ -13,14 +13,16 @@ public static class DiffCommand
         var reader = new InputReader(input);
         var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file (.results.json); '-' reads a scenario from standard input." };
         var newPath = new Argument<string>("new") { Description = "Later scenario (.yaml) or results file (.results.json)." };
+        var root = ScenarioInputs.RootOption();
         var command = new Command("diff", "Compare two scenarios or two results files: changed assumptions (old → new, with source) and changed headline results. Exit code 0 when nothing changed, 1 when something did, 2 on invalid input.")
         {
-            oldPath, newPath,
+            oldPath, newPath, root,
         };
         command.SetAction(parse =>
         {
-            var before = Snapshot(parse.GetValue(oldPath)!, error, reader);
-            var after = Snapshot(parse.GetValue(newPath)!, error, reader);
+            if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;
+            var before = Snapshot(parse.GetValue(oldPath)!, parse.GetValue(root), error, reader);
+            var after = Snapshot(parse.GetValue(newPath)!, parse.GetValue(root), error, reader);
             if (before is null || after is null) return ExitCodes.InvalidInput;
             var changes = EditionSnapshot.Compare(before, after);
             output.Write(Render(changes));
@@ -29,14 +31,22 @@ public static class DiffCommand
         return command;
     }
 
-    private static EditionSnapshot? Snapshot(string path, TextWriter error, InputReader reader)
+    /// <summary>Results files read by diff are at most this long.</summary>
+    public const long MaxResultsBytes = 64L << 20;
+
+    private static EditionSnapshot? Snapshot(string path, string? root, TextWriter error, InputReader reader)
     {
         if (path == "-") path = ScenarioInputs.StdinName;
         if (path.EndsWith(".json", StringComparison.OrdinalIgnoreCase))
         {
+            if (!SafeFile.TryReadBytes(path, null, MaxResultsBytes, out byte[] bytes, out string why))
+            {
+                error.WriteLine($"{path}: cannot read the results file ({why}).");
+                return null;
+            }
             try
             {
-                return EditionSnapshot.FromJson(File.ReadAllText(path));
+                return EditionSnapshot.FromJson(SafeFile.Decode(bytes));
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException)
             {
@@ -44,9 +54,10 @@ public static class DiffCommand
                 return null;
             }
         }
-        var loaded = ScenarioInputs.Load(path, error, reader);
+        var loaded = ScenarioInputs.Load(path, error, reader, root);
         if (!loaded.Ok) return null;
-        return EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(ScenarioSolver.Solve(loaded.Document!))));
+        if (ScenarioInputs.Solve(path, loaded.Document!, error) is not { } solved) return null;
+        return EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(solved)));
     }
 
     public static string Render(EditionChanges c)

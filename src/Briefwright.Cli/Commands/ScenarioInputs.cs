@@ -1,3 +1,5 @@
+using System.CommandLine;
+using Briefwright.Brief;
 using Briefwright.Cli.Project;
 using Briefwright.Scenario;
 using Briefwright.Scenario.Diagnostics;
@@ -11,11 +13,21 @@ public static class ScenarioInputs
     /// <summary>The name a scenario read from standard input (the path <c>-</c>) goes by in messages.</summary>
     public const string StdinName = "<stdin>";
 
+    /// <summary>Problems printed for one file before the rest are only counted.</summary>
+    public const int MaxPrinted = 100;
+
     /// <summary>The PATHS argument shared by check, solve and build.</summary>
-    public static System.CommandLine.Argument<string[]> PathsArgument(string verb, bool stdin = true) => new("paths")
+    public static Argument<string[]> PathsArgument(string verb, bool stdin = true) => new("paths")
     {
         Description = $"Scenario files, or folders whose *.yaml files are all {verb}." + (stdin ? " '-' reads one scenario from standard input." : ""),
-        Arity = System.CommandLine.ArgumentArity.OneOrMore,
+        Arity = ArgumentArity.OneOrMore,
+    };
+
+    /// <summary>The --root option shared by the commands that read scenarios.</summary>
+    public static Option<string?> RootOption() => new("--root")
+    {
+        Description = "Project folder: every file a scenario or theme names (extends, life tables, logo, fonts) must lie inside it. " +
+                      "Default: the folder of each scenario (and of the theme) given on the command line.",
     };
 
     /// <summary>Whether a file in a folder is a scenario: *.yaml or *.yml, except themes (*.theme.yaml) and the project settings file.</summary>
@@ -27,16 +39,21 @@ public static class ScenarioInputs
     }
 
     /// <summary>Files as given (and <c>-</c> for standard input); folders expand to their scenario files (not recursive),
-    /// sorted by name.</summary>
-    public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error)
+    /// sorted by name. A folder without scenario files is reported and sets <paramref name="invalid"/>.</summary>
+    public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error, out bool invalid)
     {
+        invalid = false;
         var files = new List<string>();
         foreach (var p in paths)
         {
             if (p != "-" && Directory.Exists(p))
             {
                 var found = Directory.EnumerateFiles(p).Where(IsScenarioFile).Order(StringComparer.Ordinal).ToList();
-                if (found.Count == 0) error.WriteLine($"{p}: folder holds no scenario files (*.yaml, *.yml).");
+                if (found.Count == 0)
+                {
+                    error.WriteLine($"{p}: the folder holds no scenario files (*.yaml, *.yml); nothing to do for it.");
+                    invalid = true;
+                }
                 files.AddRange(found);
             }
             else files.Add(p == "-" ? StdinName : p);
@@ -44,17 +61,29 @@ public static class ScenarioInputs
         return files;
     }
 
-    public static LoadResult Load(string path, TextWriter error, ISourceReader? reader = null)
+    /// <summary><see cref="Expand(IEnumerable{string}, TextWriter, out bool)"/> for commands that stop when there is nothing to do.</summary>
+    public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error) => Expand(paths, error, out _);
+
+    /// <summary>Checks the --root folder; false (after printing why) when it is not a folder.</summary>
+    public static bool RootIsValid(string? root, TextWriter error)
     {
-        var result = new ScenarioLoader(reader ?? new FileSourceReader()).Load(path);
+        if (root is null || Directory.Exists(root)) return true;
+        error.WriteLine($"--root: must be an existing folder. Got '{Binding(root)}'.");
+        return false;
+    }
+
+    public static LoadResult Load(string path, TextWriter error, ISourceReader? reader = null, string? root = null)
+    {
+        var result = new ScenarioLoader(reader ?? new FileSourceReader(), root).Load(path);
         Report(path, result, error);
         return result;
     }
 
-    /// <summary>Prints every problem of a loaded scenario with its line and caret, then how many there were.</summary>
+    /// <summary>Prints the problems of a loaded scenario with their lines and carets (the first
+    /// <see cref="MaxPrinted"/>), then how many there were.</summary>
     public static void Report(string path, LoadResult result, TextWriter error)
     {
-        foreach (var d in result.Problems) error.WriteLine(result.Sources.Render(d));
+        Print(result.Problems, result.Sources, error);
         if (result.Problems.Count > 0)
             error.WriteLine($"{path}: {result.Problems.Count} problem{(result.Problems.Count == 1 ? "" : "s")}; nothing written.");
     }
@@ -93,6 +122,33 @@ public static class ScenarioInputs
         }
         return (new SourceSpan(file, 1, 1), false);
     }
+
+    /// <summary>The first <see cref="MaxPrinted"/> problems with their lines and carets, then how many more there are.</summary>
+    public static void Print(IReadOnlyList<Diagnostic> problems, SourceSet sources, TextWriter error)
+    {
+        foreach (var d in problems.Take(MaxPrinted)) error.WriteLine(sources.Render(d));
+        if (problems.Count > MaxPrinted)
+            error.WriteLine($"… and {(problems.Count - MaxPrinted).ToString("N0", System.Globalization.CultureInfo.InvariantCulture)} more problem{(problems.Count - MaxPrinted == 1 ? "" : "s")} not shown (fix these first).");
+    }
+
+    /// <summary>Solves a loaded scenario; null (after printing the reason, with the scenario's name) when the model cannot.</summary>
+    public static SolvedScenario? Solve(string path, ScenarioDocument scenario, TextWriter error)
+    {
+        try
+        {
+            return ScenarioSolver.Solve(scenario);
+        }
+        catch (UnsolvableScenarioException ex)
+        {
+            error.WriteLine(Unsolvable(path, ex));
+            return null;
+        }
+    }
+
+    public static string Unsolvable(string path, UnsolvableScenarioException ex) =>
+        $"{path}: the model cannot solve this scenario: {ex.Message.TrimEnd('.')}. Change the inputs named in the reason; nothing written.";
+
+    private static string Binding(string s) => Scenario.Binding.BindContext.Printable(s);
 }
 
 /// <summary>Reads <see cref="ScenarioInputs.StdinName"/> from standard input (once) and everything else from disk.</summary>
@@ -101,6 +157,12 @@ public sealed class InputReader(TextReader stdin) : ISourceReader
     private readonly FileSourceReader files = new();
     private string? stdinText;
 
+    // Files named inside a scenario are always read from disk under the confinement rules, never from standard input.
+    public bool TryReadInside(string path, string root, out string text, out string error) => files.TryReadInside(path, root, out text, out error);
+
+    public bool TryReadBytes(string path, string root, long maxBytes, out byte[] bytes, out string error) =>
+        files.TryReadBytes(path, root, maxBytes, out bytes, out error);
+
     public bool TryRead(string path, out string text, out string error)
     {
         if (path != ScenarioInputs.StdinName) return files.TryRead(path, out text, out error);
@@ -108,7 +170,7 @@ public sealed class InputReader(TextReader stdin) : ISourceReader
         {
             if (stdinText is null)
             {
-                var buffer = new char[FileSourceReader.MaxBytes + 1];
+                var buffer = new char[(int)FileSourceReader.MaxBytes + 1];
                 int total = 0, read;
                 while (total < buffer.Length && (read = stdin.Read(buffer, total, buffer.Length - total)) > 0) total += read;
                 if (total > FileSourceReader.MaxBytes)

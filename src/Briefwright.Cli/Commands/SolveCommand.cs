@@ -14,23 +14,29 @@ public static class SolveCommand
         var reader = new InputReader(io.In);
         var paths = ScenarioInputs.PathsArgument("solved");
         var json = new Option<bool>("--json") { Description = "Print the results as JSON: always a list with one object per scenario solved, in the order given (a list of one for one file). Field names: docs/results-json.md." };
-        var command = new Command("solve", "Solve scenarios: output per person for every option on the balanced growth path, and the output-maximising schooling length.") { paths, json };
+        var root = ScenarioInputs.RootOption();
+        var command = new Command("solve", "Solve scenarios: output per person for every option on the balanced growth path, and the output-maximising schooling length.") { paths, json, root };
         command.SetAction(parse =>
         {
-            var files = ScenarioInputs.Expand(parse.GetValue(paths)!, error);
+            if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;
+            var files = ScenarioInputs.Expand(parse.GetValue(paths)!, error, out bool invalid);
             bool asJson = parse.GetValue(json);
-            int code = ExitCodes.Ok;
+            int code = invalid ? ExitCodes.InvalidInput : ExitCodes.Ok;
             var documents = new List<ResultsDocument>();
             foreach (var file in files)
             {
-                var loaded = ScenarioInputs.Load(file, error, reader);
+                var loaded = ScenarioInputs.Load(file, error, reader, parse.GetValue(root));
                 if (!loaded.Ok)
                 {
                     code = ExitCodes.InvalidInput;
                     continue;
                 }
                 var scenario = loaded.Document!;
-                var solved = ScenarioSolver.Solve(scenario);
+                if (ScenarioInputs.Solve(file, scenario, error) is not { } solved)
+                {
+                    code = ExitCodes.InvalidInput;
+                    continue;
+                }
                 var results = solved.BalancedGrowth;
                 if (asJson) documents.Add(ResultsDocument.From(scenario, results, solved.Analysis));
                 else

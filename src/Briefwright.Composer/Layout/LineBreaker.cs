@@ -31,23 +31,43 @@ public static class LineBreaker
                 lineHasWord = false;
             }
             string text = word;
-            while (w > width && text.Length > 1)
-            {
-                int fit = text.Length - 1;
-                while (fit > 1 && measurer.Width(text[..fit], font) > width - x) fit--;
-                spans.Add(new LineSpan(text[..fit], x, measurer.Width(text[..fit], font), font, run.Link));
-                lines.Add(new TextLine(spans, x + measurer.Width(text[..fit], font)));
-                spans = new List<LineSpan>();
-                x = 0;
-                text = text[fit..];
-                w = measurer.Width(text, font);
-            }
+            if (w > width && text.Length > 1) (text, w) = BreakLongWord(text, width, font, run.Link, lines, ref spans, measurer);
             spans.Add(new LineSpan(text, x + space, w, font, run.Link));
             x += space + w;
             lineHasWord = true;
         }
         if (spans.Count > 0 || lines.Count == 0) lines.Add(new TextLine(spans, x));
         return Merge(lines);
+    }
+
+    /// <summary>
+    /// A word wider than the line, broken at the margin: one pass over its characters, each measured once, and each
+    /// piece measured once, so the time is linear in the word's length (re-measuring ever shorter prefixes made a
+    /// 20,000-character word take tens of seconds). Surrogate pairs stay whole. Returns the last piece, which starts a line.
+    /// </summary>
+    private static (string Last, double Width) BreakLongWord(string word, double width, FontSpec font, string? link, List<TextLine> lines, ref List<LineSpan> spans, ITextMeasurer measurer)
+    {
+        int start = 0;
+        double acc = 0;
+        for (int k = 0; k < word.Length;)
+        {
+            int len = char.IsHighSurrogate(word[k]) && k + 1 < word.Length ? 2 : 1;
+            double cw = measurer.Width(word.Substring(k, len), font);
+            if (acc + cw > width && k > start)
+            {
+                string piece = word[start..k];
+                double pw = measurer.Width(piece, font);
+                spans.Add(new LineSpan(piece, 0, pw, font, link));
+                lines.Add(new TextLine(spans, pw));
+                spans = new List<LineSpan>();
+                start = k;
+                acc = 0;
+            }
+            acc += cw;
+            k += len;
+        }
+        string rest = word[start..];
+        return (rest, measurer.Width(rest, font));
     }
 
     private static IEnumerable<(string Word, TextRun Run, bool SpaceBefore)> Words(IReadOnlyList<TextRun> runs)

@@ -32,11 +32,23 @@ public static partial class MarkdownReader
         var doc = Markdig.Markdown.Parse(markdown, Pipeline);
         var blocks = new List<Block>();
         (string Caption, string? Source)? pendingCaption = null;
-        foreach (var node in doc) Convert(node, blocks, figures, ref pendingCaption);
+        foreach (var node in doc) Convert(markdown, node, blocks, figures, ref pendingCaption);
         return blocks;
     }
 
-    private static void Convert(Markdig.Syntax.Block node, List<Block> blocks, IReadOnlyDictionary<string, FigureBlock> figures, ref (string Caption, string? Source)? caption)
+    /// <summary>Schemes a link in a brief may use; anything else (file:, javascript:, a relative path) is refused.</summary>
+    public static readonly string[] LinkSchemes = { "http", "https", "mailto" };
+
+    private static string CheckedLink(string? url, int line)
+    {
+        string u = (url ?? "").Trim();
+        int colon = u.IndexOf(':', StringComparison.Ordinal);
+        string scheme = colon > 0 ? u[..colon] : "";
+        if (LinkSchemes.Contains(scheme, StringComparer.OrdinalIgnoreCase)) return u;
+        throw new ComposeException($"links in a brief must start with http:, https: or mailto:. Got '{(u.Length > 60 ? u[..60] + "…" : u)}'.", line, u.Length > 0 ? u : null);
+    }
+
+    private static void Convert(string markdown, Markdig.Syntax.Block node, List<Block> blocks, IReadOnlyDictionary<string, FigureBlock> figures, ref (string Caption, string? Source)? caption)
     {
         switch (node)
         {
@@ -46,7 +58,10 @@ public static partial class MarkdownReader
             case ParagraphBlock p:
                 var runs = Runs(p.Inline);
                 string plain = string.Concat(runs.Select(r => r.Text)).Trim();
-                var m = Directive().Match(plain);
+                // A directive is written as [[...]] in the template itself; escaped brackets (\[\[, as text from a
+                // scenario is written) read back as the same characters but are text, never a directive.
+                bool written = p.Span.Start >= 0 && p.Span.End < markdown.Length && markdown.AsSpan(p.Span.Start, p.Span.Length).TrimStart().StartsWith("[[", StringComparison.Ordinal);
+                var m = Directive().Match(written ? plain : "");
                 if (m.Success)
                 {
                     Apply(m.Groups[1].Value, m.Groups[2].Value, plain, p.Line + 1, blocks, figures, ref caption);
@@ -66,7 +81,7 @@ public static partial class MarkdownReader
             case QuoteBlock q:
                 var inner = new List<Block>();
                 (string, string?)? none = null;
-                foreach (var child in q) Convert(child, inner, figures, ref none);
+                foreach (var child in q) Convert(markdown, child, inner, figures, ref none);
                 string? title = null;
                 if (inner.FirstOrDefault() is Document.ParagraphBlock first && first.Runs.All(r => r.Style == RunStyle.Bold))
                 {
@@ -148,7 +163,10 @@ public static partial class MarkdownReader
                     runs.AddRange(Runs(em, next, link));
                     break;
                 case LinkInline l when !l.IsImage:
-                    runs.AddRange(Runs(l, style, l.Url));
+                    runs.AddRange(Runs(l, style, CheckedLink(l.Url, l.Line + 1)));
+                    break;
+                case AutolinkInline a:
+                    runs.Add(new TextRun(a.Url, style, CheckedLink(a.IsEmail ? "mailto:" + a.Url : a.Url, a.Line + 1)));
                     break;
                 case CodeInline code:
                     runs.Add(new TextRun(code.Content, style, link));

@@ -38,15 +38,28 @@ public static class Parameters
     {
         var d = i.Demography;
         var p = i.Production;
-        if (!(p.SavingRate > 0 && p.SavingRate < 1)) return "saving rate outside (0, 1)";
-        if (!(p.CapitalShare > 0 && p.CapitalShare < 1)) return "capital share outside (0, 1)";
-        if (!(p.Depreciation >= 0)) return "negative depreciation";
-        if (!(d.GrowthRate + p.TechnologyGrowth + p.Depreciation > 0)) return "n + g + δ not positive";
+        if (!(p.SavingRate >= ModelLimits.MinSavingRate && p.SavingRate < 1)) return "saving rate outside [0.1%, 100%)";
+        if (!(p.CapitalShare > 0 && p.CapitalShare < ModelLimits.MaxCapitalShare)) return "capital share outside (0, 0.9)";
+        if (!(p.Depreciation >= 0 && p.Depreciation < 1)) return "depreciation outside [0, 100%)";
+        if (!(d.GrowthRate + p.TechnologyGrowth + p.Depreciation >= ModelLimits.MinEffectiveDepreciation)) return "n + g + δ below 0.1%";
         if (!(d.Participation > 0 && d.Participation <= 1)) return "participation outside (0, 1]";
         if (!(d.EntryAge >= 0)) return "negative school-entry age";
+        if (!(d.RetirementAge > 0)) return "retirement age not positive";
+        if (!ReturnsBelowOne(i.HumanCapital.Returns)) return "a return to schooling of 100% or more";
         if (!(d.RetirementAge <= d.Survival.MaxAge)) return "retirement after the maximum age";
         foreach (var o in i.Options)
+        {
             if (!(d.EntryAge + o.SchoolingYears < (o.RetirementAge ?? d.RetirementAge))) return $"schooling of option {o.Id} reaches retirement";
+            if (!(ModelLimits.SurvivorsAtWork(i, o) >= ModelLimits.MinSurvivorsAtWork)) return $"nobody survives to the working age of option {o.Id}";
+        }
         return null;
     }
+
+    private static bool ReturnsBelowOne(ReturnSchedule r) => r switch
+    {
+        ConstantReturn c => c.Rate > 0 && c.Rate < 1,
+        BracketReturns b => b.Brackets.All(x => x.Rate >= 0 && x.Rate < 1),
+        PowerReturn p => p.Theta > 0 && p.Theta < 2,
+        _ => true,
+    };
 }

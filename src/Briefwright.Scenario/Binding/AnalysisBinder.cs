@@ -20,6 +20,30 @@ public sealed class AnalysisBinder(BindContext ctx)
     /// </summary>
     public const int DefaultSobolSamples = 2560;
 
+    private static readonly Bounds YearBounds = Bounds.Closed(1900, 2300);
+
+    /// <summary>
+    /// The most simulated years one brief's uncertainty analysis may ask for: (draws + Sobol samples × (parameters + 2))
+    /// × horizon years. Each unit is one year of one simulated reform path, so this bounds the run's time and memory
+    /// whatever the combination of limits (at 150 years: 66,000 draws, or 2,000 draws and the default 2,560 Sobol samples of 9 parameters
+    /// with room to spare).
+    /// </summary>
+    public const long MaxSimulatedYears = 10_000_000;
+
+    private void CheckWork(YMapping top, ReformSettings reform, MonteCarloSpec mc)
+    {
+        long paths = mc.Draws + (long)mc.SobolSamples * (mc.Parameters.Count + 2);
+        long years = paths * reform.HorizonYears;
+        if (years <= MaxSimulatedYears) return;
+        var u = (YMapping)top["uncertainty"]!;
+        var at = u["draws"] ?? u["sobol_samples"] ?? (YNode)u;
+        ctx.Report(at.At, "uncertainty", $"asks for {years.ToString("N0", CultureInfo.InvariantCulture)} simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × {reform.HorizonYears}); the limit for one brief is {MaxSimulatedYears.ToString("N0", CultureInfo.InvariantCulture)}; lower draws, sobol_samples or reform.horizon_years",
+            years.ToString("N0", CultureInfo.InvariantCulture));
+    }
+
+    /// <summary>Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a model rule.</summary>
+    public const int PilotDraws = 500;
+
     private static string Names => string.Join(", ", Parameters.All.Select(p => p.Name));
 
     public AnalysisSettings? Bind(YMapping top, ModelInputs inputs, BriefInfo brief)
@@ -28,8 +52,9 @@ public sealed class AnalysisBinder(BindContext ctx)
         var reform = BindReform(top, inputs, brief, out string headline);
         var discounts = BindDiscounts(top);
         int? valuation = BindValuationYear(top, brief, reform);
-        var (ranges, grids) = BindSensitivity(top);
-        var monteCarlo = BindUncertainty(top);
+        var (ranges, grids) = BindSensitivity(top, inputs);
+        var monteCarlo = BindUncertainty(top, inputs);
+        if (reform is not null && monteCarlo is not null) CheckWork(top, reform, monteCarlo);
         if (ctx.Problems.Count > before || reform is null || discounts is null || valuation is null) return null;
         reform = reform with { ValuationYear = valuation };
         return new AnalysisSettings(reform, headline, discounts, ranges, grids, monteCarlo);
@@ -40,10 +65,16 @@ public sealed class AnalysisBinder(BindContext ctx)
         headline = inputs.Options.First(o => o.Id != inputs.BaselineId).Id;
         var m = ctx.Mapping(top, "reform", "", required: false);
         int defaultYear = brief.Date.Year + 1;
+        if ((m is null || m["year"] is null) && !YearBounds.Contains(defaultYear))
+        {
+            var date = ((YMapping)top["brief"]!)["date"]!;
+            ctx.Report(date.At, "brief.date", $"the reform starts the year after the brief's date unless reform.year is given, and must start from {YearBounds.Min} to {YearBounds.Max}; give reform.year", BindContext.Show(date));
+            return null;
+        }
         if (m is null) return new ReformSettings(defaultYear);
         const string p = "reform";
         ctx.CheckKeys(m, p, "year", "phase_in_cohorts", "horizon_years", "headline_option");
-        double? year = ctx.Number(m, "year", p, ValueUnit.Number, Bounds.Closed(1900, 2300), fallback: defaultYear);
+        double? year = ctx.Number(m, "year", p, ValueUnit.Number, YearBounds, fallback: defaultYear);
         double? phase = ctx.Number(m, "phase_in_cohorts", p, ValueUnit.Number, Bounds.Closed(1, 40), fallback: 1);
         double? horizon = ctx.Number(m, "horizon_years", p, ValueUnit.Years, Bounds.Closed(20, MaxHorizon), fallback: 150);
         foreach (var (key, v) in new[] { ("year", year), ("phase_in_cohorts", phase), ("horizon_years", horizon) })
@@ -155,7 +186,7 @@ public sealed class AnalysisBinder(BindContext ctx)
         return def;
     }
 
-    private (double Low, double High)? Pair(YNode node, string path, Parameters.Definition def)
+    private (double Low, double High)? Pair(YNode node, string path, Parameters.Definition def, ModelInputs inputs)
     {
         if (node is not YSequence { Items.Count: 2 } seq || seq.Items.Any(i => i is not YScalar))
         {
@@ -164,14 +195,31 @@ public sealed class AnalysisBinder(BindContext ctx)
         }
         var wrapper = new YMapping(new[] { new KeyValuePair<YScalar, YNode>(new YScalar("low", false, seq.At), seq.Items[0]), new(new YScalar("high", false, seq.At), seq.Items[1]) }, seq.At);
         var unit = def.IsRate ? ValueUnit.Rate : ValueUnit.Number;
-        double? lo = ctx.Number(wrapper, "low", path + "[0]", unit, Bounds.Closed(-1000, 1000));
-        double? hi = ctx.Number(wrapper, "high", path + "[1]", unit, Bounds.Closed(-1000, 1000));
+        var bounds = ParameterBounds.For(def.Name);
+        double? lo = ctx.Number(wrapper, "low", path + "[0]", unit, bounds);
+        double? hi = ctx.Number(wrapper, "high", path + "[1]", unit, bounds);
         if (lo is null || hi is null) return null;
         if (!(hi > lo)) { ctx.Report(seq.Items[1].At, path + "[1]", $"the high end must be above the low end ({lo.Value.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(seq.Items[1])); return null; }
+        if (!Solvable(inputs, def, lo.Value, seq.Items[0], path + "[0]") || !Solvable(inputs, def, hi.Value, seq.Items[1], path + "[1]")) return null;
         return (lo.Value, hi.Value);
     }
 
-    private (IReadOnlyList<SensitivityRange>, IReadOnlyList<GridSpec>) BindSensitivity(YMapping top)
+    /// <summary>Whether the scenario with <paramref name="def"/> set to <paramref name="value"/> still meets every model
+    /// rule (the rules Monte Carlo draws are held to); reports the broken rule at <paramref name="node"/> when not.</summary>
+    private bool Solvable(ModelInputs inputs, Parameters.Definition def, double value, YNode node, string path, (Parameters.Definition Def, double Value)? other = null)
+    {
+        var trial = def.Set(inputs, value);
+        if (other is { } o) trial = o.Def.Set(trial, o.Value);
+        if (Parameters.Violation(trial) is not { } why) return true;
+        string with = other is { } w ? $" and {w.Def.Name} at {Format(w.Def, w.Value)}" : "";
+        ctx.Report(node.At, path, $"with {def.Name} at {Format(def, value)}{with} the scenario breaks a model rule ({why})", BindContext.Show(node));
+        return false;
+    }
+
+    private static string Format(Parameters.Definition def, double v) =>
+        def.IsRate ? (v * 100).ToString("0.###", CultureInfo.InvariantCulture) + "%" : v.ToString("0.####", CultureInfo.InvariantCulture);
+
+    private (IReadOnlyList<SensitivityRange>, IReadOnlyList<GridSpec>) BindSensitivity(YMapping top, ModelInputs inputs)
     {
         var ranges = new List<SensitivityRange>();
         var grids = new List<GridSpec>();
@@ -182,7 +230,7 @@ public sealed class AnalysisBinder(BindContext ctx)
             foreach (var (key, value) in r.Entries)
             {
                 string path = $"sensitivity.ranges.{key.Value}";
-                if (Parameter(key, path) is { } def && Pair(value, path, def) is { } pair) ranges.Add(new SensitivityRange(def.Name, pair.Low, pair.High));
+                if (Parameter(key, path) is { } def && Pair(value, path, def, inputs) is { } pair) ranges.Add(new SensitivityRange(def.Name, pair.Low, pair.High));
             }
         if (ctx.Sequence(m, "grids", "sensitivity", required: false) is { } g)
             for (int i = 0; i < g.Items.Count; i++)
@@ -199,15 +247,21 @@ public sealed class AnalysisBinder(BindContext ctx)
                 string output = ctx.Choice(item, "output", ip, required: false, "optimum", "change") ?? "optimum";
                 if (dx is null || dy is null || steps is null) continue;
                 if (dx == dy) { ctx.Report(y.At, ip + ".y", "must differ from x", $"'{y.Value}'"); continue; }
-                var xr = item["x_range"] is { } xn ? Pair(xn, ip + ".x_range", dx) : null;
-                var yr = item["y_range"] is { } yn ? Pair(yn, ip + ".y_range", dy) : null;
+                var xr = item["x_range"] is { } xn ? Pair(xn, ip + ".x_range", dx, inputs) : null;
+                var yr = item["y_range"] is { } yn ? Pair(yn, ip + ".y_range", dy, inputs) : null;
                 if (xr is null || yr is null) { if (item["x_range"] is null || item["y_range"] is null) ctx.Report(item.At, ip, "needs x_range and y_range", null); continue; }
+                // Every rule is linear or monotone in each parameter, so the grid's four corners stand for all its points.
+                bool cornersOk = true;
+                foreach (double xv in new[] { xr.Value.Low, xr.Value.High })
+                    foreach (double yv in new[] { yr.Value.Low, yr.Value.High })
+                        if (cornersOk) cornersOk = Solvable(inputs, dx, xv, item["x_range"]!, ip + ".x_range", (dy, yv));
+                if (!cornersOk) continue;
                 grids.Add(new GridSpec(dx.Name, xr.Value.Low, xr.Value.High, dy.Name, yr.Value.Low, yr.Value.High, (int)steps.Value, output));
             }
         return (ranges, grids);
     }
 
-    private MonteCarloSpec? BindUncertainty(YMapping top)
+    private MonteCarloSpec? BindUncertainty(YMapping top, ModelInputs inputs)
     {
         var m = ctx.Mapping(top, "uncertainty", "", required: false);
         if (m is null) return null;
@@ -226,8 +280,45 @@ public sealed class AnalysisBinder(BindContext ctx)
                 if (BindDistribution(dm, path, def) is { } dist) parameters.Add(new UncertainParameter(def.Name, dist));
             }
         if (draws is null || seed is null || sobol is null) return null;
-        if (parameters.Count == 0) { ctx.Report(m.At, p + ".parameters", "must give at least one parameter a distribution", null); return null; }
-        return new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);
+        if (parameters.Count == 0)
+        {
+            // Only when none was given: a parameter that failed to bind has already been reported where it was written.
+            if (m["parameters"] is not YMapping { Entries.Count: > 0 }) ctx.Report(m.At, p + ".parameters", "must give at least one parameter a distribution", null);
+            return null;
+        }
+        var spec = new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);
+        return Pilot(inputs, spec, m["parameters"]!) ? spec : null;
+    }
+
+    /// <summary>
+    /// Draws the first <see cref="PilotDraws"/> Monte Carlo draws as the model will (same streams, same rejection rule)
+    /// without solving them: when more than a third of those draws fail every attempt, the run would stop, so the
+    /// distributions are reported now. Cheap: a draw here is only a few additions and comparisons.
+    /// </summary>
+    private bool Pilot(ModelInputs inputs, MonteCarloSpec spec, YNode at)
+    {
+        int n = Math.Min(spec.Draws, PilotDraws), failed = 0;
+        string? why = null;
+        var u = new double[spec.Parameters.Count];
+        for (int i = 0; i < n; i++)
+        {
+            var rng = SplitMix64.ForStream(spec.Seed, (ulong)i);
+            bool accepted = false;
+            for (int attempt = 0; attempt < MonteCarlo.MaxAttemptsPerDraw && !accepted; attempt++)
+            {
+                for (int j = 0; j < u.Length; j++) u[j] = rng.NextOpenUnit();
+                var trial = MonteCarlo.Apply(inputs, spec.Parameters, u);
+                string? violation = Parameters.Violation(trial);
+                accepted = violation is null;
+                why ??= violation;
+            }
+            if (!accepted) failed++;
+        }
+        if (failed * 3 <= n) return true;
+        ctx.Report(at.At, "uncertainty.parameters",
+            $"the distributions break a model rule too often: {failed} of the first {n} draws failed all {MonteCarlo.MaxAttemptsPerDraw} attempts (for example: {why}); narrow the distributions",
+            $"{failed} of {n}");
+        return false;
     }
 
     private Distribution? BindDistribution(YMapping m, string path, Parameters.Definition def)
@@ -235,6 +326,8 @@ public sealed class AnalysisBinder(BindContext ctx)
         var unit = def.IsRate ? ValueUnit.Rate : ValueUnit.Number;
         var any = Bounds.Closed(-1000, 1000);
         var positive = Bounds.OpenClosed(0, 1000);
+        // The ends of a bounded distribution are values the parameter takes, so they follow the parameter's own rules.
+        var ends = ParameterBounds.For(def.Name);
         string? kind = ctx.Choice(m, "distribution", path, required: true, "normal", "truncated_normal", "uniform", "triangular", "lognormal");
         switch (kind)
         {
@@ -248,7 +341,7 @@ public sealed class AnalysisBinder(BindContext ctx)
             {
                 ctx.CheckKeys(m, path, "distribution", "mean", "sd", "low", "high");
                 double? mean = ctx.Number(m, "mean", path, unit, any), sd = ctx.Number(m, "sd", path, unit, positive);
-                double? lo = ctx.Number(m, "low", path, unit, any), hi = ctx.Number(m, "high", path, unit, any);
+                double? lo = ctx.Number(m, "low", path, unit, ends), hi = ctx.Number(m, "high", path, unit, ends);
                 if (mean is null || sd is null || lo is null || hi is null) return null;
                 if (!(hi > lo)) { ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!)); return null; }
                 return new TruncatedNormalDistribution(mean.Value, sd.Value, lo.Value, hi.Value);
@@ -256,7 +349,7 @@ public sealed class AnalysisBinder(BindContext ctx)
             case "uniform":
             {
                 ctx.CheckKeys(m, path, "distribution", "low", "high");
-                double? lo = ctx.Number(m, "low", path, unit, any), hi = ctx.Number(m, "high", path, unit, any);
+                double? lo = ctx.Number(m, "low", path, unit, ends), hi = ctx.Number(m, "high", path, unit, ends);
                 if (lo is null || hi is null) return null;
                 if (!(hi > lo)) { ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!)); return null; }
                 return new UniformDistribution(lo.Value, hi.Value);
@@ -264,7 +357,7 @@ public sealed class AnalysisBinder(BindContext ctx)
             case "triangular":
             {
                 ctx.CheckKeys(m, path, "distribution", "low", "mode", "high");
-                double? lo = ctx.Number(m, "low", path, unit, any), mode = ctx.Number(m, "mode", path, unit, any), hi = ctx.Number(m, "high", path, unit, any);
+                double? lo = ctx.Number(m, "low", path, unit, ends), mode = ctx.Number(m, "mode", path, unit, ends), hi = ctx.Number(m, "high", path, unit, ends);
                 if (lo is null || mode is null || hi is null) return null;
                 if (!(lo <= mode && mode <= hi && hi > lo)) { ctx.Report(m["mode"]!.At, path + ".mode", "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!)); return null; }
                 return new TriangularDistribution(lo.Value, mode.Value, hi.Value);

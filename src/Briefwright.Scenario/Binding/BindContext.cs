@@ -27,9 +27,29 @@ public sealed class BindContext
     public static string Show(YNode node) => node switch
     {
         YScalar s when s.IsNull => "nothing",
-        YScalar s => s.Value.Length > 40 ? $"'{s.Value[..40]}…'" : $"'{s.Value}'",
+        YScalar s => s.Value.Length > 40 ? $"'{Printable(s.Value[..40])}…'" : $"'{Printable(s.Value)}'",
         _ => node.Kind,
     };
+
+    /// <summary>Text as a message quotes it: at most 80 characters, control characters written as escapes.</summary>
+    public static string Quote(string value) => value.Length > 80 ? $"'{Printable(value[..80])}…'" : $"'{Printable(value)}'";
+
+    /// <summary>Control characters (a newline in an id, say) as escapes, so a message stays on one line.</summary>
+    public static string Printable(string value)
+    {
+        if (!value.Any(char.IsControl)) return value;
+        var sb = new System.Text.StringBuilder(value.Length + 8);
+        foreach (char c in value)
+            sb.Append(c switch
+            {
+                '\n' => "\\n",
+                '\r' => "\\r",
+                '\t' => "\\t",
+                _ when char.IsControl(c) => $"\\u{(int)c:X4}",
+                _ => c.ToString(),
+            });
+        return sb.ToString();
+    }
 
     /// <summary>Reports every key not in <paramref name="known"/>, with the closest known key as a suggestion.</summary>
     public void CheckKeys(YMapping map, string path, params string[] known)

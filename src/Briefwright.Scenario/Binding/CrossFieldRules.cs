@@ -41,12 +41,26 @@ public static class CrossFieldRules
         }
 
         double effective = BalancedGrowth.EffectiveDepreciation(d, inputs.Production);
-        if (!(effective > 0))
+        if (!(effective >= ModelLimits.MinEffectiveDepreciation))
         {
             var production = (YMapping)top["production"]!;
             ctx.Report(production["depreciation"]!.At, "production.depreciation",
-                $"population growth + technology growth + depreciation must be positive ({Pct(d.GrowthRate)} + {Pct(inputs.Production.TechnologyGrowth)} + {Pct(inputs.Production.Depreciation)} = {Pct(effective)})",
+                $"population growth + technology growth + depreciation must be at least {Pct(ModelLimits.MinEffectiveDepreciation)}, or the model's results are not finite ({Pct(d.GrowthRate)} + {Pct(inputs.Production.TechnologyGrowth)} + {Pct(inputs.Production.Depreciation)} = {Pct(effective)})",
                 Pct(inputs.Production.Depreciation));
+        }
+
+        // Survival must leave workers: a cohort must still be alive when its schooling ends.
+        var survival = (YMapping)demography["survival"]!;
+        for (int i = 0; i < inputs.Options.Count; i++)
+        {
+            var o = inputs.Options[i];
+            double alive = ModelLimits.SurvivorsAtWork(inputs, o);
+            if (alive >= ModelLimits.MinSurvivorsAtWork) continue;
+            var at = survival["file"] ?? survival["max_age"] ?? (YNode)survival;
+            ctx.Report(at.At, "demography.survival",
+                $"the survival curve must leave workers: almost nobody is alive at {F(d.EntryAge + o.SchoolingYears)}, when schooling ends under options[{i}] ({o.Id}); at least {ModelLimits.MinSurvivorsAtWork:0.######} of a cohort must be",
+                alive.ToString("0.########", CultureInfo.InvariantCulture));
+            break;
         }
     }
 }

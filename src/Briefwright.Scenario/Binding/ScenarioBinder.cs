@@ -11,7 +11,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
 {
     public static readonly string[] TopLevelKeys = { "extends", "brief", "demography", "human_capital", "production", "options", "reform", "appraisal", "sensitivity", "uncertainty" };
 
-    [GeneratedRegex("^[a-z0-9][a-z0-9_-]{0,63}$")]
+    [GeneratedRegex(@"^[a-z0-9][a-z0-9_-]{0,63}\z")]
     private static partial Regex IdPattern();
 
     public ScenarioDocument? Bind(YNode root, IReadOnlyList<string> files)
@@ -44,7 +44,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         string? id = ctx.Text(m, "id", p, required: true);
         if (id is not null && !IdPattern().IsMatch(id))
         {
-            ctx.Report(m["id"]!.At, "brief.id", "must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit (it names the output files)", $"'{id}'");
+            ctx.Report(m["id"]!.At, "brief.id", "must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit (it names the output files)", BindContext.Quote(id));
             id = null;
         }
         string? title = ctx.Text(m, "title", p, required: true, maxLength: 200);
@@ -76,10 +76,10 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         if (m is null) return null;
         const string p = "demography";
         ctx.CheckKeys(m, p, "population_growth", "school_entry_age", "retirement_age", "participation", "survival");
-        double? n = ctx.Number(m, "population_growth", p, ValueUnit.Rate, Bounds.Closed(-0.1, 0.1), "Population growth rate");
-        double? entry = ctx.Number(m, "school_entry_age", p, ValueUnit.Age, Bounds.Closed(0, 30), "School-entry age");
-        double? retire = ctx.Number(m, "retirement_age", p, ValueUnit.Age, Bounds.OpenClosed(0, 150), "Retirement age");
-        double? part = ctx.Number(m, "participation", p, ValueUnit.Rate, Bounds.OpenClosed(0, 1), "Labour-force participation", fallback: 1.0);
+        double? n = ctx.Number(m, "population_growth", p, ValueUnit.Rate, ParameterBounds.PopulationGrowth, "Population growth rate");
+        double? entry = ctx.Number(m, "school_entry_age", p, ValueUnit.Age, ParameterBounds.SchoolEntryAge, "School-entry age");
+        double? retire = ctx.Number(m, "retirement_age", p, ValueUnit.Age, ParameterBounds.RetirementAge, "Retirement age");
+        double? part = ctx.Number(m, "participation", p, ValueUnit.Rate, ParameterBounds.Participation, "Labour-force participation", fallback: 1.0);
         var survival = BindSurvival(m, p);
         if (n is null || entry is null || retire is null || part is null || survival is null) return null;
         return new Demography(n.Value, entry.Value, retire.Value, survival, part.Value);
@@ -238,10 +238,10 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         if (m is null) return null;
         const string p = "production";
         ctx.CheckKeys(m, p, "saving_rate", "capital_share", "depreciation", "technology_growth");
-        double? s = ctx.Number(m, "saving_rate", p, ValueUnit.Rate, Bounds.Open(0, 1), "Saving (investment) rate");
-        double? alpha = ctx.Number(m, "capital_share", p, ValueUnit.Rate, Bounds.Open(0, 1), "Capital share of income α");
-        double? delta = ctx.Number(m, "depreciation", p, ValueUnit.Rate, Bounds.ClosedOpen(0, 1), "Depreciation rate δ");
-        double? g = ctx.Number(m, "technology_growth", p, ValueUnit.Rate, Bounds.Closed(-0.1, 0.1), "Technology growth g");
+        double? s = ctx.Number(m, "saving_rate", p, ValueUnit.Rate, ParameterBounds.SavingRate, "Saving (investment) rate");
+        double? alpha = ctx.Number(m, "capital_share", p, ValueUnit.Rate, ParameterBounds.CapitalShare, "Capital share of income α");
+        double? delta = ctx.Number(m, "depreciation", p, ValueUnit.Rate, ParameterBounds.Depreciation, "Depreciation rate δ");
+        double? g = ctx.Number(m, "technology_growth", p, ValueUnit.Rate, ParameterBounds.TechnologyGrowth, "Technology growth g");
         if (s is null || alpha is null || delta is null || g is null) return null;
         return new Production(s.Value, alpha.Value, delta.Value, g.Value);
     }
@@ -273,7 +273,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             string? id = ctx.Text(item, "id", ip, required: true);
             if (id is not null && !IdPattern().IsMatch(id))
             {
-                ctx.Report(item["id"]!.At, ip + ".id", "must be 1–64 lower-case letters, digits, '-' or '_'", $"'{id}'");
+                ctx.Report(item["id"]!.At, ip + ".id", "must be 1–64 lower-case letters, digits, '-' or '_'", BindContext.Quote(id));
                 id = null;
             }
             if (id is not null && ids.TryGetValue(id, out int first))

@@ -1,3 +1,4 @@
+using System.Globalization;
 using Briefwright.Scenario.Diagnostics;
 using YamlDotNet.Core;
 using YamlDotNet.Core.Events;
@@ -15,16 +16,18 @@ public static class YamlTreeReader
     public const int MaxDepth = 32;
     public const int MaxAliases = 256;
 
-    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(string file, string text)
+    /// <summary>Reads <paramref name="text"/>; <paramref name="what"/> ("scenario", "theme") names the kind of file in messages.</summary>
+    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(string file, string text, string what = "scenario")
     {
         var problems = new List<Diagnostic>();
         var start = new SourceSpan(file, 1, 1);
-        if (text.Length > MaxBytes)
-            return (null, new[] { new Diagnostic(start, "", $"file is larger than the {MaxBytes / 1024} KiB limit for a scenario", $"{text.Length / 1024} KiB") });
+        long bytes = System.Text.Encoding.UTF8.GetByteCount(text);
+        if (bytes > MaxBytes)
+            return (null, new[] { new Diagnostic(start, "", $"file is larger than the limit for a {what} of 1 MiB ({MaxBytes.ToString("N0", CultureInfo.InvariantCulture)} bytes)", $"{bytes.ToString("N0", CultureInfo.InvariantCulture)} bytes") });
         if (text.Contains('\0'))
             return (null, new[] { new Diagnostic(start, "", "file is binary, not YAML text", "a NUL byte") });
         if (string.IsNullOrWhiteSpace(StripComments(text)))
-            return (null, new[] { new Diagnostic(start, "", "file is empty; a scenario needs at least the brief, demography and options sections", "nothing") });
+            return (null, new[] { new Diagnostic(start, "", what == "scenario" ? "file is empty; a scenario needs at least the brief, demography and options sections" : $"file is empty; a {what} needs at least a name", "nothing") });
 
         var state = new State(file, new Parser(new StringReader(text)), problems);
         try
@@ -95,7 +98,27 @@ public static class YamlTreeReader
             switch (ev)
             {
                 case Scalar s:
-                    return Remember(s.Anchor, new YScalar(s.Value, s.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted or ScalarStyle.Literal or ScalarStyle.Folded, Span(s.Start)));
+                {
+                    // A tag says how to read the scalar: !!str (and the non-specific !) make it text even when it looks
+                    // like a number; !!int, !!float, !!bool and !!null make it a plain value; any other tag is refused.
+                    bool quoted = s.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted or ScalarStyle.Literal or ScalarStyle.Folded;
+                    string tag = s.Tag.IsEmpty ? "" : s.Tag.Value;
+                    switch (tag)
+                    {
+                        case "" or "?":
+                            break;
+                        case "!" or "tag:yaml.org,2002:str":
+                            quoted = true;
+                            break;
+                        case "tag:yaml.org,2002:int" or "tag:yaml.org,2002:float" or "tag:yaml.org,2002:bool" or "tag:yaml.org,2002:null":
+                            quoted = false;
+                            break;
+                        default:
+                            problems.Add(new Diagnostic(Span(s.Start), path, "unsupported YAML tag; only !!str, !!int, !!float, !!bool and !!null are read", $"'{BindingText(tag)}'"));
+                            break;
+                    }
+                    return Remember(s.Anchor, new YScalar(s.Value, quoted, Span(s.Start)));
+                }
                 case AnchorAlias a:
                     if (++aliases > MaxAliases)
                         throw new LimitException(new Diagnostic(Span(a.Start), "", $"more than {MaxAliases} aliases", $"*{a.Value}"));
@@ -103,6 +126,7 @@ public static class YamlTreeReader
                     throw new LimitException(new Diagnostic(Span(a.Start), "", "alias refers to an anchor that is not defined before it", $"*{a.Value}"));
                 case SequenceStart ss:
                 {
+                    CheckTag(ss.Tag, "tag:yaml.org,2002:seq", ss.Start, path);
                     var items = new List<YNode>();
                     while (parser.Current is not SequenceEnd and not null) items.Add(ReadNode(depth + 1, $"{path}[{items.Count}]"));
                     parser.MoveNext();
@@ -110,6 +134,7 @@ public static class YamlTreeReader
                 }
                 case MappingStart ms:
                 {
+                    CheckTag(ms.Tag, "tag:yaml.org,2002:map", ms.Start, path);
                     var entries = new List<KeyValuePair<YScalar, YNode>>();
                     var seen = new Dictionary<string, YScalar>(StringComparer.Ordinal);
                     while (parser.Current is not MappingEnd and not null)
@@ -137,6 +162,15 @@ public static class YamlTreeReader
                     throw new YamlException(ev.Start, ev.End, $"unexpected {ev.GetType().Name}");
             }
         }
+
+        private void CheckTag(TagName tag, string allowed, Mark at, string path)
+        {
+            if (tag.IsEmpty || tag.Value is "?" or "!" || tag.Value == allowed) return;
+            problems.Add(new Diagnostic(Span(at), path, "unsupported YAML tag on a list or mapping", $"'{BindingText(tag.Value)}'"));
+        }
+
+        private static string BindingText(string tag) =>
+            Briefwright.Scenario.Binding.BindContext.Printable(tag.StartsWith("tag:yaml.org,2002:", StringComparison.Ordinal) ? "!!" + tag["tag:yaml.org,2002:".Length..] : tag);
 
         private YNode Remember(AnchorName anchor, YNode node)
         {
