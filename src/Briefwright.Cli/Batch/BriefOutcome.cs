@@ -9,11 +9,18 @@ public enum OutcomeStatus
     Skipped,
     Invalid,
     Failed,
+    Stopped,
 }
 
 /// <summary>What happened to one scenario in a batch; also its machine-readable log line.</summary>
 public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Status, int? Edition, string? Pdf, int Pages, long Bytes, long Milliseconds, string? Error)
 {
+    /// <summary>What this build found left by an interrupted one and put right, if anything.</summary>
+    public string? Recovered { get; init; }
+
+    /// <summary>Where the previous edition was kept (relative to the output folder), when this build archived it.</summary>
+    public string? Archived { get; init; }
+
     private static readonly JsonSerializerOptions Json = new()
     {
         PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower,

@@ -44,7 +44,7 @@ public static class BuildCommand
             var progress = new Progress(parse.GetValue(quiet) ? TextWriter.Null : output, interactive && !parse.GetValue(quiet), files.Count);
             var outcomes = Run(files, settings, parse.GetValue(jobs) ?? Environment.ProcessorCount, progress, error);
             if (!parse.GetValue(quiet)) output.Write(Summary(outcomes));
-            if (outcomes.Any(o => o.Status == OutcomeStatus.Failed)) return ExitCodes.Failed;
+            if (outcomes.Any(o => o.Status is OutcomeStatus.Failed or OutcomeStatus.Stopped)) return ExitCodes.Failed;
             return outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
         });
         return command;
@@ -76,19 +76,19 @@ public static class BuildCommand
 
     public static IReadOnlyList<BriefOutcome> Run(IReadOnlyList<string> files, BatchSettings settings, int jobs, Progress progress, TextWriter error)
     {
-        var dirs = files.Select(f => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(f) ?? ".", "out")).Distinct().ToList();
-        foreach (var dir in dirs) AtomicFile.CleanStale(dir);
         var outcomes = new BriefOutcome[files.Count];
         // Several briefs at once already keep the cores busy; the model's own loops then stay on their brief's thread.
         if (jobs > 1 && files.Count > 1) settings = settings with { Options = settings.Options with { ModelThreads = 1 } };
         Parallel.For(0, files.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, jobs) }, i =>
         {
-            outcomes[i] = BatchBuilder.BuildOne(files[i], settings, error);
+            // A signal stops the build between briefs: those in progress finish, the others are not started.
+            outcomes[i] = StopSignal.Token.IsCancellationRequested
+                ? new BriefOutcome(files[i], null, OutcomeStatus.Stopped, null, null, 0, 0, 0, "not started: the build was stopped by a signal")
+                : BatchBuilder.BuildOne(files[i], settings, error, StopSignal.Token);
             Log(outcomes[i], settings);
             progress.Done(outcomes[i]);
         });
         progress.Finish();
-        foreach (var dir in dirs) AtomicFile.CleanStale(dir);
         return outcomes;
     }
 
