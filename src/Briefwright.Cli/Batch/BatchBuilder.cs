@@ -66,9 +66,14 @@ public static class BatchBuilder
             string hash = BriefBuilder.Sha256(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")));
             var folder = new EditionFolder(dir, id);
             var request = new EditionRequest(hash, scenario.Brief.Edition, settings.Force);
-            // Unchanged briefs are skipped without taking the lock: only reads, and the manifest is switched last.
-            if (!settings.Force && !File.Exists(folder.JournalPath) && EditionPlanner.Plan(request, folder.Read(full: false).State) is EditionPlan.Skip quick)
-                return new BriefOutcome(file, id, OutcomeStatus.Skipped, quick.Edition, Path.Combine(dir, folder.Read(false).Manifest!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null);
+            // Unchanged briefs are skipped without taking the lock (only reads; the manifest is switched last), unless the
+            // temporary folder exists: then a build is running or was interrupted, and the locked path sees to it.
+            if (!settings.Force && !Directory.Exists(folder.TempDir))
+            {
+                var (known, quick) = folder.Read(full: false);
+                if (EditionPlanner.Plan(request, quick) is EditionPlan.Skip unchanged)
+                    return new BriefOutcome(file, id, OutcomeStatus.Skipped, unchanged.Edition, Path.Combine(dir, known!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null);
+            }
 
             using var held = BriefLock.Acquire(folder.TempDir, id, message => { lock (error) error.WriteLine($"{file}: {message}"); }, stop);
             FaultSeam.After(id, "locked");

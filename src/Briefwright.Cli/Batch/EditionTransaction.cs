@@ -8,7 +8,8 @@ namespace Briefwright.Cli.Batch;
 /// The record of a switch in progress, written (atomically, flushed) once the new edition is staged and the previous
 /// one archived, and removed when the switch is done. The files named in <see cref="Old"/> are moved from the folder
 /// into the staging folder's <c>old/</c> (the manifest first), then those in <see cref="New"/> from its <c>new/</c> into
-/// the folder (the manifest last). Each move is a rename, so every file is at any instant in exactly one place, and a
+/// the folder (the manifest last). Each move is one rename(2) (a move that may replace its target: .NET's no-replace
+/// move links and unlinks, which can leave a file in two places), so every file is at any instant in exactly one place, and a
 /// build that finds the journal can finish the switch or undo it.
 /// </summary>
 public sealed record Journal(string Id, string Token, int Edition, IReadOnlyList<string> Old, IReadOnlyList<string> New, IReadOnlyDictionary<string, string> NewSha256, string? Archive);
@@ -107,6 +108,7 @@ public static class EditionTransaction
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
             TryDelete(staging);
+            TryDelete(Path.Combine(folder.ArchiveRoot, ".partial-" + token));
             throw new EditionWriteException($"{ex.Message}; nothing was replaced: the previous files are untouched" +
                 (archived is null ? "" : $" (and kept in {Relative(folder, archived)})"), ex);
         }
@@ -131,9 +133,9 @@ public static class EditionTransaction
             TryDelete(staging);
             throw new EditionWriteException($"{ex.Message}; nothing was replaced: the previous files are untouched", ex);
         }
-        FaultSeam.After(id, "journal");
         try
         {
+            FaultSeam.After(id, "journal");
             Forward(folder, journal);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -153,11 +155,19 @@ public static class EditionTransaction
             throw new EditionWriteException($"{ex.Message}; the switch was undone: the previous files are back in place" +
                 (archived is null ? "" : $" (and kept in {Relative(folder, archived)})"), ex);
         }
-        FaultSeam.After(id, "switched");
-        File.Delete(folder.JournalPath);
-        FaultSeam.After(id, "committed");
-        TryDelete(staging);
-        FaultSeam.After(id, "cleaned");
+        // Switched: from here nothing can make this build fail. A journal left behind finds nothing to do next time.
+        try
+        {
+            FaultSeam.After(id, "switched");
+            File.Delete(folder.JournalPath);
+            FaultSeam.After(id, "committed");
+            TryDelete(staging);
+            FaultSeam.After(id, "cleaned");
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            // the next holder of the lock removes what is left
+        }
         return archived;
     }
 
@@ -178,7 +188,7 @@ public static class EditionTransaction
                 k++;
                 string here = Path.Combine(folder.Dir, o), aside = Path.Combine(stagedOld, o);
                 if (!File.Exists(here)) continue; // moved already
-                File.Move(here, aside, overwrite: false);
+                File.Move(here, aside, overwrite: true);
                 FaultSeam.After(folder.Id, $"switch.aside.{k}");
             }
         }
@@ -188,7 +198,7 @@ public static class EditionTransaction
             i++;
             string staged = Path.Combine(stagedNew, n);
             if (!File.Exists(staged)) continue; // moved in already
-            File.Move(staged, Path.Combine(folder.Dir, n), overwrite: false);
+            File.Move(staged, Path.Combine(folder.Dir, n), overwrite: true);
             FaultSeam.After(folder.Id, $"switch.in.{i}");
         }
     }
@@ -200,12 +210,12 @@ public static class EditionTransaction
         foreach (var n in journal.New.Reverse())
         {
             string here = Path.Combine(folder.Dir, n), staged = Path.Combine(stagedNew, n);
-            if (!File.Exists(staged) && File.Exists(here)) File.Move(here, staged, overwrite: false);
+            if (!File.Exists(staged) && File.Exists(here)) File.Move(here, staged, overwrite: true);
         }
         foreach (var o in journal.Old.Reverse())
         {
             string aside = Path.Combine(stagedOld, o);
-            if (File.Exists(aside)) File.Move(aside, Path.Combine(folder.Dir, o), overwrite: false);
+            if (File.Exists(aside)) File.Move(aside, Path.Combine(folder.Dir, o), overwrite: true);
         }
     }
 
@@ -281,7 +291,7 @@ public static class EditionTransaction
     {
         string temp = $"{path}.{token}.tmp";
         WriteNew(temp, bytes, durable: true);
-        File.Move(temp, path, overwrite: false);
+        File.Move(temp, path, overwrite: true);
     }
 
     private static string Relative(EditionFolder folder, string path) => Path.GetRelativePath(folder.Dir, path);
