@@ -46,7 +46,13 @@ public static class EditionTransaction
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
             {
-                Back(folder, journal);
+                try { Back(folder, journal); }
+                catch (Exception again) when (again is IOException or UnauthorizedAccessException)
+                {
+                    throw new EditionWriteException($"an interrupted switch to edition {journal.Edition} could be neither finished ({ex.Message}) nor undone " +
+                        $"({again.Message}); {folder.JournalPath} still records it, the previous files are in {Path.Combine(folder.Staging(journal.Token), "old")}" +
+                        (journal.Archive is null ? "" : $" and {journal.Archive}") + "; put right what stops it and build again", again);
+                }
                 notes.Add($"undid the switch to edition {journal.Edition} that an interrupted build had begun ({ex.Message}); the previous edition is in place");
             }
             File.Delete(folder.JournalPath);

@@ -47,7 +47,9 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
         if (m is null || m.Id is null || m.Stem is null || m.Hash is null || m.Files is null || m.Inputs is null) return null;
         if (!m.Files.All(Confined) || !Confined(m.Stem + ".pdf")) return null;
         if (m.Check is { } check && !check.Equals(SelfHash(json.Replace(CheckText(check), CheckText(""))), StringComparison.Ordinal)) return null;
-        if (m.Check is not null && (m.Sizes is null || m.Sha256 is null || !m.Files.All(f => m.Sizes.ContainsKey(f) && m.Sha256.ContainsKey(f)))) return null;
+        if (m.Sizes is { } sizes && !m.Files.All(sizes.ContainsKey)) return null;
+        if (m.Sha256 is { } hashes && !m.Files.All(hashes.ContainsKey)) return null;
+        if (m.Check is not null && (m.Sizes is null || m.Sha256 is null)) return null;
         return m;
     }
 
