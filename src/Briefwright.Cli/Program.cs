@@ -6,6 +6,7 @@ public static class Program
     {
         try
         {
+            if (args is ["build", ..]) Batch.StopSignal.Install(Console.Error);
             return CliApp.Run(args, Console.Out, Console.Error, interactive: !Console.IsOutputRedirected, input: Console.In);
         }
         catch (Exception ex)

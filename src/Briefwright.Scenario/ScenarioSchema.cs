@@ -165,7 +165,7 @@ public static class ScenarioSchema
             strict, "linear", "quadratic");
         var humanCapital = Section("Human capital", Obj(("returns", returns), ("experience", experience)), strict);
         var production = Section("Production", Obj(
-            ("saving_rate", Num("Saving rate s", Bounds.Open(0, 1), rate: true)), ("capital_share", Num("Capital share α", Bounds.Open(0, 1), rate: true)),
+            ("saving_rate", Num("Saving rate s", Binding.ParameterBounds.SavingRate, rate: true)), ("capital_share", Num("Capital share α", Binding.ParameterBounds.CapitalShare, rate: true)),
             ("depreciation", Num("Depreciation δ", Bounds.ClosedOpen(0, 1), rate: true)), ("technology_growth", Num("Technology growth g", Bounds.Closed(-0.1, 0.1), rate: true))),
             strict, "saving_rate", "capital_share", "depreciation", "technology_growth");
         var option = Section("A policy option", Obj(

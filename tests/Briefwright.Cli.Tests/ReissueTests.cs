@@ -137,7 +137,7 @@ public class ReissueTests
 
             var bad = Run(A("check", "-"), national.Replace("value: 22%", "value: 122%"));
             Assert.Equal(2, bad.Code);
-            Assert.Contains("<stdin>:52:12: production.saving_rate.value: must be greater than 0% and less than 100%. Got '122%'.", bad.Err);
+            Assert.Contains("<stdin>:52:12: production.saving_rate.value: must be at least 0.1% and less than 100%. Got '122%'.", bad.Err);
         }
 
         [Fact]
@@ -257,7 +257,7 @@ public class ReissueTests
             var failed = lines.Single(l => l.GetProperty("status").GetString() == "invalid");
             var messages = failed.GetProperty("messages").EnumerateArray().Select(m => m.GetString()!).ToList();
             Assert.Equal(2, messages.Count);
-            Assert.Contains(messages, m => m.StartsWith(Path.Combine(w.Dir, "auroria-silverdale.yaml") + ":") && m.Contains("production.saving_rate: must be greater than 0% and less than 100%. Got '122%'."));
+            Assert.Contains(messages, m => m.StartsWith(Path.Combine(w.Dir, "auroria-silverdale.yaml") + ":") && m.Contains("production.saving_rate: must be at least 0.1% and less than 100%. Got '122%'."));
             Assert.Contains(messages, m => m.Contains("production.depreciation: must be at least 0% and less than 100%. Got '-1%'."));
 
             // And nothing else the build writes carries a clock time

@@ -40,6 +40,12 @@ public class SchemaVerdictTests
         "survival curve's maximum age",             // retirement within the survival curve
         "below the retirement age",                 // school entry and schooling before retirement
         "aliases", "nesting", "KiB",                // reading the text itself
+        "project folder", "must name a scenario file", "must name a life table file", // where named files may be
+        "TrueType", "PNG", "bits per channel", "pixels", // the contents of a theme's font and logo files
+        "breaks a model rule", "must leave workers", "give reform.year", // the model's rules across fields and files
+        "required field is missing",                // a distribution whose form an extends child switches
+        "it names the output files",                // a trailing newline, which '$' in a schema pattern lets through
+        "sensitivity.ranges",                       // each parameter's own bounds on its sensitivity range
     ];
 
     /// <summary>Files whose difference lies in the YAML text itself, of which JSON keeps no trace: quoting (a quoted

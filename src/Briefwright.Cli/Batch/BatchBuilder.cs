@@ -3,6 +3,7 @@ using System.Security.Cryptography;
 using System.Text;
 using Briefwright.Brief;
 using Briefwright.Brief.Annex;
+using Briefwright.Brief.Editions;
 using Briefwright.Cli.Commands;
 using Briefwright.Composer;
 using Briefwright.Composer.Drawing;
@@ -25,9 +26,9 @@ public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options,
 }
 
 /// <summary>
-/// Builds one brief with editions and nothing lost: skips it when its manifest says nothing changed; otherwise
-/// raises the edition, keeps the previous edition in <c>archive/&lt;id&gt;/edition-N/</c>, adds the changes section, and
-/// writes every file atomically, the manifest last.
+/// Builds one brief with editions and nothing lost: the planner (<see cref="EditionPlanner"/>) decides from the inputs'
+/// fingerprint and what the folder holds whether to skip it, rebuild the same edition or start a new one; under the
+/// brief's lock, <see cref="EditionTransaction"/> stages the new edition, archives the previous one and switches.
 /// </summary>
 public static class BatchBuilder
 {
@@ -41,8 +42,9 @@ public static class BatchBuilder
     });
 
     /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when null.</param>
-    public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error, LoadResult? loadedBefore = null)
+    public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error, LoadResult? loadedBefore = null, CancellationToken stop = default)
     {
+        string? recovered = null;
         var watch = Stopwatch.StartNew();
         var loaded = loadedBefore ?? new ScenarioLoader(new FileSourceReader(), settings.Root).Load(file);
         if (!loaded.Ok)
@@ -75,38 +77,50 @@ public static class BatchBuilder
             };
             if (settings.CsvByteOrderMark) inputs["csv_bom"] = "yes";
             hash = BriefBuilder.Sha256(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")));
-            var previous = Manifest.Read(dir, id);
-            if (!settings.Force && previous is not null && previous.Hash == hash && previous.FilesPresent(dir))
-                return new BriefOutcome(file, id, OutcomeStatus.Skipped, previous.Edition, Path.Combine(dir, previous.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { InputHash = hash };
+            var folder = new EditionFolder(dir, id);
+            var request = new EditionRequest(hash, scenario.Brief.Edition, settings.Force);
+            // Unchanged briefs are skipped without taking the lock (only reads; the manifest is switched last), unless the
+            // temporary folder exists: then a build is running or was interrupted, and the locked path sees to it.
+            if (!settings.Force && !Directory.Exists(folder.TempDir))
+            {
+                var (known, quick) = folder.Read(full: false);
+                if (EditionPlanner.Plan(request, quick) is EditionPlan.Skip unchanged)
+                    return new BriefOutcome(file, id, OutcomeStatus.Skipped, unchanged.Edition, Path.Combine(dir, known!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { InputHash = hash };
+            }
+
+            using var held = BriefLock.Acquire(folder.TempDir, id, message => { lock (error) error.WriteLine($"{file}: {message}"); }, stop);
+            FaultSeam.After(id, "locked");
+            recovered = EditionTransaction.Recover(folder, held);
+            var (current, state) = folder.Read(full: true);
+            var plan = EditionPlanner.Plan(request, state);
+            if (plan is EditionPlan.Skip skip)
+                return new BriefOutcome(file, id, OutcomeStatus.Skipped, skip.Edition, Path.Combine(dir, current!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { Recovered = recovered, InputHash = hash };
+            var build = (EditionPlan.Build)plan;
 
             WarmUp.Start(); // this brief will be built: let the output libraries start up while its model runs
-            bool newEdition = previous is not null && previous.Hash != hash && previous.FilesPresent(dir);
-            int edition = newEdition ? Math.Max(scenario.Brief.Edition, previous!.Edition + 1) : Math.Max(scenario.Brief.Edition, previous?.Edition ?? 0);
-            scenario = scenario with { Brief = scenario.Brief with { Edition = edition } };
+            scenario = scenario with { Brief = scenario.Brief with { Edition = build.Edition } };
             EditionSnapshot? before = null;
-            string previousJson = previous is null ? "" : Path.Combine(dir, previous.Stem + ".results.json");
-            if (newEdition && File.Exists(previousJson)) before = EditionSnapshot.FromJson(File.ReadAllText(previousJson));
+            if (build.NewEdition && build.CompareWith is { } previousJson)
+                try { before = EditionSnapshot.FromJson(File.ReadAllText(Path.Combine(dir, previousJson))); }
+                catch (Exception ex) when (ex is System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException) { } // no comparison from a damaged file
 
             var brief = BriefBuilder.Build(scenario, settings.Template, settings.Options with { PreviousEdition = before, ChartImages = settings.AnnexImages });
-
-            // Nothing on disk has changed so far. Keep the previous edition first, then replace.
-            if (newEdition) Archive(dir, previous!);
-            var files = new List<string>();
-            void Put(string name, byte[] bytes, bool durable = true)
+            var files = brief.Annex.Select(a => ($"{brief.FileStem}.{a.Suffix}",
+                    settings.CsvByteOrderMark && a.Suffix.EndsWith(".csv", StringComparison.Ordinal) ? [0xEF, 0xBB, 0xBF, .. a.Bytes] : a.Bytes))
+                .Append((brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson)))
+                .Append((brief.FileStem + ".pdf", brief.Pdf)).ToList();
+            var manifest = new Manifest(id, brief.FileStem, build.Edition, hash, inputs, files.Select(f => f.Item1).ToList())
             {
-                AtomicFile.Write(Path.Combine(dir, name), bytes, durable && settings.Durable);
-                files.Add(name);
-            }
-            foreach (var a in brief.Annex)
-                Put($"{brief.FileStem}.{a.Suffix}", settings.CsvByteOrderMark && a.Suffix.EndsWith(".csv", StringComparison.Ordinal) ? [0xEF, 0xBB, 0xBF, .. a.Bytes] : a.Bytes, durable: false);
-            Put(brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson));
-            Put(brief.FileStem + ".pdf", brief.Pdf);
-            AtomicFile.Write(Manifest.PathFor(dir, id), new Manifest(id, brief.FileStem, edition, hash, inputs, files).ToBytes(), settings.Durable);
-            if (previous is not null)
-                foreach (var old in previous.Files.Except(files))
-                    try { File.Delete(Path.Combine(dir, old)); } catch (IOException) { }
+                Sizes = files.ToDictionary(f => f.Item1, f => (long)f.Item2.Length),
+                Sha256 = files.ToDictionary(f => f.Item1, f => EditionFolder.Sha256(f.Item2)),
+            };
+            string? archived = EditionTransaction.Execute(folder, held, build, current, state, files, manifest, settings.Durable);
             string pdf = Path.Combine(dir, brief.FileStem + ".pdf");
-            return new BriefOutcome(file, id, OutcomeStatus.Built, edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null) { InputHash = hash };
+            return new BriefOutcome(file, id, OutcomeStatus.Built, build.Edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null)
+            {
+                Recovered = recovered, InputHash = hash,
+                Archived = archived is null ? null : Path.GetRelativePath(dir, archived),
+            };
         }
         catch (TemplateException ex)
         {
@@ -127,11 +141,21 @@ public static class BatchBuilder
             lock (error) error.WriteLine(message);
             return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
         }
+        catch (OperationCanceledException) when (stop.IsCancellationRequested)
+        {
+            return new BriefOutcome(file, id, OutcomeStatus.Stopped, null, null, 0, 0, watch.ElapsedMilliseconds, "stopped by a signal before it was started; nothing was replaced") { Recovered = recovered };
+        }
+        catch (EditionWriteException ex)
+        {
+            lock (error) error.WriteLine($"{file}: cannot write the brief to {dir}: {ex.Message}.");
+            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { Recovered = recovered };
+        }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
-            string message = $"{file}: cannot write the brief to {dir} ({ex.Message}); previous files are untouched.";
+            // Failed before any staging: the lock, the recovery or the folder itself (a file, read-only, full).
+            string message = $"{file}: cannot write the brief to {dir} ({ex.Message}); nothing was replaced: the previous files are untouched.";
             lock (error) error.WriteLine(message);
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
+            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { Recovered = recovered, InputHash = hash, Messages = [message] };
         }
         catch (Exception ex)
         {
@@ -152,15 +176,4 @@ public static class BatchBuilder
         return $"{template.Path}:{Math.Max(1, ex.Line)}:1";
     }
 
-    /// <summary>Copies the previous edition's files to archive/&lt;id&gt;/edition-N/ (atomically, before anything is replaced).</summary>
-    private static void Archive(string dir, Manifest previous)
-    {
-        string target = Path.Combine(dir, "archive", previous.Id, $"edition-{previous.Edition}");
-        Directory.CreateDirectory(target);
-        foreach (var f in previous.Files.Append(Path.GetFileName(Manifest.PathFor(dir, previous.Id))))
-        {
-            string source = Path.Combine(dir, f);
-            if (File.Exists(source)) AtomicFile.Write(Path.Combine(target, f), File.ReadAllBytes(source));
-        }
-    }
 }

@@ -6,6 +6,7 @@ public enum OutcomeStatus
     Skipped,
     Invalid,
     Failed,
+    Stopped,
 }
 
 /// <summary>What happened to one scenario in a batch (its build-log line adds the time, tool version and shard).</summary>
@@ -13,6 +14,12 @@ public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Sta
 {
     /// <summary>The hash over everything the brief depends on (the manifest's), once the scenario was read and valid.</summary>
     public string? InputHash { get; init; }
+
+    /// <summary>What this build found left by an interrupted one and put right, if anything.</summary>
+    public string? Recovered { get; init; }
+
+    /// <summary>Where the previous edition was kept (relative to the output folder), when this build archived it.</summary>
+    public string? Archived { get; init; }
 
     /// <summary>Every positioned message of a failed attempt (file:line:col: field: rule. Got value.).</summary>
     public IReadOnlyList<string>? Messages { get; init; }

@@ -16,8 +16,11 @@ public sealed class Progress(TextWriter output, bool interactive, int total)
                 OutcomeStatus.Built => $"built {o.Pdf} (edition {o.Edition}, {o.Pages} pages, {o.Bytes / 1024} KB, {o.Milliseconds} ms)",
                 OutcomeStatus.Skipped => $"up to date, skipped ({o.Pdf})",
                 OutcomeStatus.Invalid => "invalid input; nothing written",
+                OutcomeStatus.Stopped => $"stopped: {o.Error}",
                 _ => $"FAILED: {o.Error}",
             };
+            if (o.Archived is not null) what += $"; previous edition kept in {o.Archived}";
+            if (o.Recovered is not null) what += $"; recovered: {o.Recovered}";
             if (interactive) output.Write($"\r\u001b[2K[{done}/{total}] {o.Scenario}: {what}");
             else output.WriteLine($"[{done}/{total}] {o.Scenario}: {what}");
         }

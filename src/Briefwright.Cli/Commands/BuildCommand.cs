@@ -95,7 +95,7 @@ public static class BuildCommand
             var progress = new Progress(beQuiet ? TextWriter.Null : io.Out, io.Interactive && !beQuiet, files.Count);
             var outcomes = Run(files, settings, jobCount, progress, error, log);
             if (!beQuiet) io.Out.Write(Summary(outcomes));
-            if (outcomes.Any(o => o.Status == OutcomeStatus.Failed)) return ExitCodes.Failed;
+            if (outcomes.Any(o => o.Status is OutcomeStatus.Failed or OutcomeStatus.Stopped)) return ExitCodes.Failed;
             return emptyFolder || outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
         });
         return command;
@@ -185,8 +185,6 @@ public static class BuildCommand
     {
         log ??= new BuildLog(TimeProvider.System, null);
         string DirOf(string f) => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(f) ?? ".", "out");
-        var dirs = files.Select(DirOf).Distinct().ToList();
-        foreach (var dir in dirs) AtomicFile.CleanStale(dir);
         var outcomes = new BriefOutcome[files.Count];
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, jobs) };
         // Every scenario is read first: ids must be unique within the batch before anything is written.
@@ -198,15 +196,17 @@ public static class BuildCommand
         if (jobs > 1 && files.Count > 1) settings = settings with { Options = settings.Options with { ModelThreads = 1 } };
         Parallel.For(0, files.Count, parallel, i =>
         {
-            outcomes[i] = duplicates.TryGetValue(files[i], out var duplicate)
-                ? Duplicate(files[i], loaded[i]!, duplicate, error)
-                : BatchBuilder.BuildOne(files[i], settings, error, loaded[i]);
+            // A signal stops the build between briefs: those in progress finish, the others are not started.
+            outcomes[i] = StopSignal.Token.IsCancellationRequested
+                ? new BriefOutcome(files[i], loaded[i]?.Document?.Brief.Id, OutcomeStatus.Stopped, null, null, 0, 0, 0, "not started: the build was stopped by a signal")
+                : duplicates.TryGetValue(files[i], out var duplicate)
+                    ? Duplicate(files[i], loaded[i]!, duplicate, error)
+                    : BatchBuilder.BuildOne(files[i], settings, error, loaded[i], StopSignal.Token);
             loaded[i] = null; // a batch of thousands keeps only the scenarios still to build
             log.Append(DirOf(files[i]), outcomes[i]);
             progress.Done(outcomes[i]);
         });
         progress.Finish();
-        foreach (var dir in dirs) AtomicFile.CleanStale(dir);
         return outcomes;
     }
 

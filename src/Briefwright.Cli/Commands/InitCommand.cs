@@ -123,7 +123,9 @@ public static class InitCommand
                 {
                     string full = Path.Combine(dir, path);
                     Directory.CreateDirectory(Path.GetDirectoryName(Path.GetFullPath(full))!);
-                    AtomicFile.Write(full, System.Text.Encoding.UTF8.GetBytes(text));
+                    // A new file only (FileMode.CreateNew): init never replaces anything, even one made meanwhile.
+                    using (var stream = new FileStream(full, FileMode.CreateNew, FileAccess.Write))
+                        stream.Write(System.Text.Encoding.UTF8.GetBytes(text));
                     output.WriteLine($"wrote {full}");
                 }
             }
