@@ -15,10 +15,12 @@ internal static class AnalysisModel
     {
         string Label(string id) => s.Inputs.Options.First(o => o.Id == id).Label;
         var reform = a.Reform;
+        model["headline"] = Headline(model, s, r, a);
         ScriptObject OptionPath(OptionAppraisal o)
         {
             var headlinePv = o.PresentValues[0];
-            return Obj(("id", o.OptionId), ("label", Label(o.OptionId)), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
+            return Obj(("id", o.OptionId), ("label", Label(o.OptionId)), ("name", s.OptionName(o.OptionId)), ("schedule_name", s.RuleName(headlinePv.ScheduleId)),
+                ("lengthens_schooling", s.Inputs.Options.First(x => x.Id == o.OptionId).SchoolingYears > s.Inputs.Baseline.SchoolingYears), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
                 ("has_dip", o.Path.DipDepth is not null), ("first_positive_year", reform.ReformYear + o.Path.FirstPositiveYear),
                 ("long_run", o.Path.LongRunGain), ("balanced_growth", o.Path.BalancedGrowthGain), ("pv", headlinePv.ToHorizon),
                 ("break_even_year", reform.ReformYear + headlinePv.BreakEvenYear), ("schedule", headlinePv.ScheduleLabel));
@@ -36,13 +38,16 @@ internal static class AnalysisModel
         model["tornado"] = new ScriptArray(a.Tornado.Select(t => Obj(("parameter", t.Parameter), ("label", t.Label),
             ("at_low", t.AtLow.LongRunChangePct[k]), ("at_high", t.AtHigh.LongRunChangePct[k]), ("swing", t.Swing),
             ("optimum_low", t.AtLow.OptimumYears), ("optimum_high", t.AtHigh.OptimumYears))));
+        // Parameters whose whole range moves the headline change by less than 0.05 points: named, not assumed.
+        var still = a.Tornado.Where(t => Math.Abs(t.AtHigh.LongRunChangePct[k] - t.AtLow.LongRunChangePct[k]) < 0.05).Select(t => t.Label.ToLowerInvariant()).ToList();
+        model["tornado_still"] = still.Count == 0 ? null : Wording.List(still);
         model["has_grid"] = a.Grids.Count > 0;
         if (a.MonteCarlo is { } mc)
         {
             var o = mc.Options[k];
             model["mc"] = Obj(("draws", mc.Draws), ("rejected", mc.Rejected), ("seed", mc.Seed.ToString()),
                 ("p5", o.LongRunChangePct.P5), ("p50", o.LongRunChangePct.P50), ("p95", o.LongRunChangePct.P95),
-                ("prob_gain", o.ProbabilityGain), ("prob_pv", o.ProbabilityPositivePv),
+                ("prob_gain", o.ProbabilityGain), ("prob_pv", o.ProbabilityPositivePv), ("prob_gain_text", Prob(o.ProbabilityGain)),
                 ("optimum_p5", mc.OptimumYears.P5), ("optimum_p50", mc.OptimumYears.P50), ("optimum_p95", mc.OptimumYears.P95));
         }
         else model["mc"] = null;
@@ -50,7 +55,8 @@ internal static class AnalysisModel
         {
             var idx = sobol.Indices[0];
             int top = Enumerable.Range(0, idx.Inputs.Count).MaxBy(i => idx.Total[i]);
-            model["sobol"] = Obj(("top_parameter", Parameters.Find(idx.Inputs[top])!.Label), ("top_total", idx.Total[top]), ("samples", idx.Samples));
+            model["sobol"] = Obj(("top_parameter", Parameters.Find(idx.Inputs[top])!.Label), ("top_total", idx.Total[top]), ("samples", idx.Samples),
+                ("top_share", idx.Total[top] > 0.5 ? "most" : "the largest share"));
         }
         else model["sobol"] = null;
 
@@ -60,6 +66,32 @@ internal static class AnalysisModel
         model.AddFunction("sobol_table", new Func<string>(() => SobolTable(a)));
     }
 
+    /// <summary>The headline option: its facts and the sentences page 1 is made of, each chosen from those facts.</summary>
+    private static ScriptObject Headline(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
+    {
+        var h = HeadlineFacts.From(r, a);
+        var option = ((ScriptArray)model["options"]!).Cast<ScriptObject>().First(o => (string)o["id"]! == h.OptionId);
+        var baseline = (ScriptObject)model["baseline"]!;
+        string rule = s.RuleName(h.ScheduleId);
+        int y0 = a.Reform.ReformYear;
+        string lead = $"{Wording.Capitalise(s.OptionName(h.OptionId))} {Wording.Effect(h.LongRunChangePct)} against {baseline["name"]!}, once the economy has fully adjusted.";
+        var decomposition = r.Levers.FirstOrDefault(l => l.OptionId == h.OptionId);
+        string? split = decomposition is { IsCombined: true } ? $"By lever: {DecompositionText(decomposition)} (each lever's average effect over the orders in which the levers could be switched)." : null;
+        var others = ((ScriptArray)model["alternatives"]!).Cast<ScriptObject>().Where(o => (string)o["id"]! != h.OptionId).Select(o =>
+        {
+            string line = $"{o["label"]}: {Wording.Effect((double)o["change_pct"]!)}";
+            if (o["decomposition_text"] is string d) line += $" ({d})";
+            return (object)Obj(("id", o["id"]), ("label", o["label"]), ("line", line + "."));
+        });
+        return Obj(("id", h.OptionId), ("label", option["label"]), ("name", option["name"]), ("change_pct", h.LongRunChangePct),
+            ("direction", Wording.DirectionWord(h.LongRunChangePct)), ("effect", Wording.Effect(h.LongRunChangePct)),
+            ("lead", lead), ("split", split), ("range", Wording.Range(h)), ("arrival", Wording.Arrival(h, y0)), ("payback", Wording.Payback(h, rule, y0)),
+            ("has_range", h.RangeLowPct is not null), ("range_low", h.RangeLowPct), ("range_high", h.RangeHighPct), ("prob_gain", h.ProbabilityGain),
+            ("dip_pct", h.DeepestDipPct), ("dip_year", h.DipYear), ("first_year_above", h.FirstYearAbove), ("first_year_below", h.FirstYearBelow),
+            ("break_even_year", h.BreakEvenYear), ("pays_back", h.BreakEvenYear is not null), ("rule", rule), ("horizon_end_year", h.HorizonEndYear),
+            ("present_value", h.PresentValue), ("is_combined", decomposition?.IsCombined ?? false), ("others", new ScriptArray(others)));
+    }
+
     private static string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";
 
     private static string ReformTable(AnalysisResults a, Func<string, string> label)
@@ -67,12 +99,12 @@ internal static class AnalysisModel
         var r = a.Reform;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
         {
-            label(o.OptionId), o.Path.DipDepth is { } dd ? Pct(dd, 2) : "none", Year(r.ReformYear, o.Path.DipYear),
-            Year(r.ReformYear, o.Path.FirstPositiveYear), Year(r.ReformYear, o.PresentValues[0].BreakEvenYear),
-            Pct(o.Path.LongRunGain, 2), Pct(o.Path.BalancedGrowthGain, 2),
+            label(o.OptionId), o.Path.DipDepth is { } dd ? Change(100 * dd) : "none", Year(r.ReformYear, o.Path.DipYear),
+            Year(r.ReformYear, o.Path.FirstPositiveYear), o.PresentValues[0].BreakEvenYear is null ? "not by " + (r.ReformYear + r.HorizonYears) : Year(r.ReformYear, o.PresentValues[0].BreakEvenYear),
+            Change(100 * o.Path.LongRunGain), Change(100 * o.Path.BalancedGrowthGain),
         });
         return Md.Table($"The reform over time: output per person against no reform (reform from {r.ReformYear})", "briefwright cohort simulation",
-            new[] { "Option", "Deepest dip", "Year of dip", "Gain from", $"Break-even ({r.Options[0].PresentValues[0].ScheduleId})", $"Gain in {r.ReformYear + r.HorizonYears}", "Balanced growth" },
+            new[] { "Option", "Deepest dip", "Year of dip", "Above no reform from", $"Pays back ({r.Options[0].PresentValues[0].ScheduleLabel})", $"Change in {r.ReformYear + r.HorizonYears}", "Once adjusted" },
             rows, new HashSet<int> { 1, 2, 3, 4, 5, 6 });
     }
 
@@ -81,7 +113,7 @@ internal static class AnalysisModel
         var schedules = a.Reform.Options[0].PresentValues;
         var header = new List<string> { "Option" };
         header.AddRange(schedules.Select(p => p.ScheduleLabel));
-        var rows = a.Reform.Options.Select(o => (IReadOnlyList<string>)o.PresentValues.Select(pv => Num(pv.ToHorizon, 2)).Prepend(label(o.OptionId)).ToList());
+        var rows = a.Reform.Options.Select(o => (IReadOnlyList<string>)o.PresentValues.Select(pv => Pv(pv.ToHorizon)).Prepend(label(o.OptionId)).ToList());
         return Md.Table($"Present value of the gain to {a.Reform.ReformYear + a.Reform.HorizonYears}, in years of today's output per person", "briefwright cohort simulation; discount rates as named",
             header, rows, Enumerable.Range(1, schedules.Count).ToHashSet());
     }
@@ -91,8 +123,8 @@ internal static class AnalysisModel
         if (a.MonteCarlo is not { } mc) return "";
         var rows = mc.Options.Select(o => (IReadOnlyList<string>)new[]
         {
-            label(o.OptionId), Change(o.LongRunChangePct.P5, 2), Change(o.LongRunChangePct.P50, 2), Change(o.LongRunChangePct.P95, 2),
-            Pct(o.ProbabilityGain, 1), Pct(o.ProbabilityPositivePv, 1),
+            label(o.OptionId), Change(o.LongRunChangePct.P5), Change(o.LongRunChangePct.P50), Change(o.LongRunChangePct.P95),
+            Prob(o.ProbabilityGain), Prob(o.ProbabilityPositivePv),
         });
         return Md.Table($"Uncertainty: long-run change in output per person over {Big(mc.Draws)} Monte Carlo draws (seed {mc.Seed})", "briefwright Monte Carlo",
             new[] { "Option", "5th percentile", "Median", "95th percentile", "Probability of a gain", "Probability PV > 0" },
