@@ -1,6 +1,7 @@
 using System.Globalization;
 using Briefwright.Charts;
 using Briefwright.Model.Uncertainty;
+using Briefwright.Templating;
 
 namespace Briefwright.Brief;
 
@@ -8,6 +9,20 @@ namespace Briefwright.Brief;
 public static class AnalysisChartSet
 {
     private static string F(double v, string f = "0.0") => v.ToString(f, CultureInfo.InvariantCulture);
+
+    /// <summary>Page 1's chart: the headline option's path over time with its Monte Carlo band, described from its facts.</summary>
+    public static ChartSpec HeadlinePath(SolvedScenario solved, string source)
+    {
+        var a = solved.Analysis;
+        var scenario = solved.Scenario;
+        var facts = HeadlineFacts.From(solved.BalancedGrowth, a);
+        string label = scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
+        int years = Math.Min(HeadlinePathChart.Years, a.Reform.HorizonYears);
+        return new ChartSpec("headline-path", HeadlinePathChart.Build(a.Reform, a.HeadlineOptionId, label, a.MonteCarlo),
+            $"{label}: change in output per person against no reform, {a.Reform.ReformYear}–{a.Reform.ReformYear + years}" + (a.MonteCarlo is null ? "" : ", with the range of 90% of model runs"),
+            $"Line chart over years. {Wording.Arrival(facts, a.Reform.ReformYear)}" + (a.MonteCarlo is null ? "" : " A shaded band shows where 90% of the model runs with uncertain assumptions lie."),
+            source);
+    }
 
     public static IEnumerable<ChartSpec> Specs(SolvedScenario solved, string source)
     {
@@ -21,13 +36,12 @@ public static class AnalysisChartSet
 
         yield return new ChartSpec("reform-path", AnalysisCharts.ReformPath(a.Reform, a.HeadlineOptionId, labels, a.MonteCarlo),
             $"Output per person after the reform relative to no reform, {a.Reform.ReformYear}–{a.Reform.ReformYear + 80}",
-            $"Line chart over years: {headline} " + (path.DipDepth is { } dip ? $"first lowers output per person, by up to {F(-100 * dip, "0.00")}% in {a.Reform.ReformYear + path.DipYear}, " : "") +
-            $"then raises it towards {F(100 * path.BalancedGrowthGain, "0.0")}% in the long run." + (a.MonteCarlo is null ? "" : " A shaded band shows the 5–95% range of the Monte Carlo draws."),
+            $"Line chart over years, one line per option. For {solved.Scenario.OptionName(a.HeadlineOptionId)}: {Wording.Arrival(HeadlineFacts.From(solved.BalancedGrowth, a), a.Reform.ReformYear)} Once the economy has adjusted the change is {TemplateFunctions.Change(100 * path.BalancedGrowthGain)}." + (a.MonteCarlo is null ? "" : " A shaded band shows the 5–95% range of the Monte Carlo draws."),
             source);
         if (a.Tornado.Count > 0)
             yield return new ChartSpec("tornado", AnalysisCharts.Tornado(a.Tornado, k, central, headline),
                 $"Sensitivity of the long-run change for {headline} to each assumption",
-                $"Tornado chart: {a.Tornado[0].Label} moves the long-run change most, from {F(a.Tornado[0].AtLow.LongRunChangePct[k], "0.00")}% to {F(a.Tornado[0].AtHigh.LongRunChangePct[k], "0.00")}% across its range; the central value is {F(central, "0.00")}%.",
+                $"Tornado chart: {a.Tornado[0].Label} moves the long-run change most, from {TemplateFunctions.Change(a.Tornado[0].AtLow.LongRunChangePct[k])} to {TemplateFunctions.Change(a.Tornado[0].AtHigh.LongRunChangePct[k])} across its range; the central value is {TemplateFunctions.Change(central)}.",
                 source);
         foreach (var (grid, i) in a.Grids.Select((g, i) => (g, i)))
         {
@@ -42,7 +56,7 @@ public static class AnalysisChartSet
         if (a.MonteCarlo is { } mc)
             yield return new ChartSpec("distribution", AnalysisCharts.Distribution(mc, k, headline),
                 $"Distribution of the long-run change for {headline} over {mc.Draws:N0} Monte Carlo draws",
-                $"Histogram: the long-run change lies between {F(mc.Options[k].LongRunChangePct.P5, "0.00")}% and {F(mc.Options[k].LongRunChangePct.P95, "0.00")}% in 90% of draws, median {F(mc.Options[k].LongRunChangePct.P50, "0.00")}%.",
+                $"Histogram: the long-run change lies between {TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P5)} and {TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P95)} in 90% of draws, median {TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P50)}.",
                 source);
     }
 

@@ -58,7 +58,11 @@ public static class BriefBuilder
                 "Schooling length, demography and long-run output per person",
                 "schooling; human capital; demography; balanced growth; output per person",
                 "en-GB", info.Date, $"Edition {info.Edition}" + (info.Status == "final" ? "" : $" ({info.Status})"),
-                options.Theme.Footer ?? $"{info.Organisation} · Model illustration, not a forecast") { Logo = options.Logo },
+                options.Theme.Footer ?? $"{info.Organisation} · Model illustration, not a forecast")
+            {
+                Logo = options.Logo,
+                Marker = info.Status switch { "final" => null, "consultation" => "CONSULTATION DRAFT", _ => "DRAFT" },
+            },
             blocks) { Theme = options.PageTheme(), FontFamily = family };
         var pdf = DocumentComposer.WritePdf(document);
         var annexFiles = annex.GetAwaiter().GetResult().Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
@@ -93,21 +97,35 @@ public static class BriefBuilder
         var scenario = solved.Scenario;
         var results = solved.BalancedGrowth;
         string source = $"briefwright model, scenario {scenario.Brief.Id}";
+        var charts = new List<ChartSpec> { AnalysisChartSet.HeadlinePath(solved, source) };
+        charts.Add(new ChartSpec("output-curve", SchoolingCharts.OutputCurve(results),
+            "Output per person against years of schooling, once the economy has adjusted (balanced growth path)",
+            CurveAltText(results), source));
+        var curve = results.SchoolingCurve;
         var baseline = results.Options.First(o => o.IsBaseline);
-        var opt = results.Optimum;
-        var charts = new List<ChartSpec>
-        {
-            new ChartSpec("output-curve", SchoolingCharts.OutputCurve(results),
-                "Output per person against years of schooling, balanced growth path",
-                $"Line chart: output per person rises with schooling from zero, peaks at {opt.SchoolingYears:0.0} years and falls to zero at {opt.FeasibleMaxSchooling:0} years. The options sit on the rising part of the curve; the band within 1% of the maximum runs from {opt.Within1Pct[0]:0.0} to {opt.Within1Pct[1]:0.0} years.",
-                source),
-            new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(results),
-                "The two opposing forces: worker share and human capital per worker against schooling",
-                $"Line chart with two axes: the worker share falls steadily with schooling while human capital per worker rises; at the baseline of {baseline.SchoolingYears:0.#} years the worker share is {baseline.WorkerShare:0.000} and human capital per worker {baseline.HumanCapitalPerWorker:0.00}.",
-                source),
-        };
+        charts.Add(new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(results),
+            "The two opposing forces: workers per person and human capital per worker against schooling",
+            $"Line chart with two axes: as schooling lengthens, the worker share (workers per person) {Wording.Trend(curve.Select(c => c.WorkerShare).ToList())} and human capital per worker {Wording.Trend(curve.Select(c => c.HumanCapitalPerWorker).ToList())}; at the baseline of {TemplateFunctions.Years(baseline.SchoolingYears)} the worker share is {TemplateFunctions.Num(baseline.WorkerShare, 3)} and human capital per worker {TemplateFunctions.Num(baseline.HumanCapitalPerWorker, 2)}.",
+            source));
         charts.AddRange(AnalysisChartSet.Specs(solved, source));
         return charts;
+    }
+
+    /// <summary>The output curve described from its computed shape: its trend, where it is highest, and where the options sit.</summary>
+    public static string CurveAltText(BalancedGrowthResults results)
+    {
+        var opt = results.Optimum;
+        var curve = results.SchoolingCurve;
+        string trend = Wording.Trend(curve.Select(c => c.OutputPerPerson).ToList());
+        string where = opt.AtBoundary
+            ? $"It is highest at the edge of the range, at {TemplateFunctions.Years(opt.SchoolingYears)}."
+            : $"It is highest at {TemplateFunctions.Years(opt.SchoolingYears)}; lengths from {TemplateFunctions.Years(opt.Within1Pct[0])} to {TemplateFunctions.Years(opt.Within1Pct[1])} come within 1% of that.";
+        var sides = results.Options.Select(o => Math.Sign(Math.Round(o.SchoolingYears - opt.SchoolingYears, 1))).Distinct().ToList();
+        string options = sides.Count == 1 && sides[0] < 0 ? "Every option lies below the output-maximising length."
+            : sides.Count == 1 && sides[0] > 0 ? "Every option lies above the output-maximising length."
+            : sides.Count == 1 ? "Every option lies at the output-maximising length."
+            : "The options lie on both sides of the output-maximising length.";
+        return $"Line chart of output per person against years of schooling from 0 to {TemplateFunctions.Years(opt.FeasibleMaxSchooling)}: as schooling lengthens, output per person {trend}. {where} {options}";
     }
 
     /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>

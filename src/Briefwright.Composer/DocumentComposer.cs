@@ -87,6 +87,12 @@ public sealed class DocumentComposer
         }
         else surface.Text(info.ShortTitle, theme.MarginLeft, headerY, font, theme.Muted);
         surface.Text(headerRight, right - measurer.Width(headerRight, font), headerY, font, theme.Muted);
+        if (info.Marker is { } marker)
+        {
+            var bold = new FontSpec(RunStyle.Bold, 9);
+            // Above the running header, centred, so that it never runs into a long short title.
+            surface.Text(marker, (theme.MarginLeft + right - measurer.Width(marker, bold)) / 2, headerY - 14, bold, new Rgb(0xB0, 0x2A, 0x1E));
+        }
         surface.Line(theme.MarginLeft, headerY + 5, right, headerY + 5, theme.Rule, 0.5);
         surface.Line(theme.MarginLeft, footerY - 10, right, footerY - 10, theme.Rule, 0.5);
         surface.Text(info.FooterNote, theme.MarginLeft, footerY, font, theme.Muted);

@@ -38,4 +38,41 @@ public sealed record ScenarioDocument(
 
     /// <summary>Reform path, appraisal, sensitivity and uncertainty settings (defaults when the scenario gives none).</summary>
     public Model.Uncertainty.AnalysisSettings Analysis { get; init; } = null!;
+
+    /// <summary>How each option reads inside a sentence, by option id ("raising compulsory schooling to 12 years").</summary>
+    public IReadOnlyDictionary<string, string> OptionNames { get; init; } = new Dictionary<string, string>();
+
+    /// <summary>How each appraisal rule reads inside a sentence, by schedule id ("the Green Book's declining discount rate").</summary>
+    public IReadOnlyDictionary<string, string> RuleNames { get; init; } = new Dictionary<string, string>();
+
+    /// <summary>The in-sentence name of option <paramref name="id"/> (its label, first letter lower-cased, when none is given).</summary>
+    public string OptionName(string id) => OptionNames.TryGetValue(id, out var n) ? n : InSentence.FromLabel(Inputs.Options.First(o => o.Id == id).Label);
+
+    /// <summary>The in-sentence name of the appraisal rule <paramref name="id"/>.</summary>
+    public string RuleName(string id) => RuleNames.TryGetValue(id, out var n) ? n : Analysis.Discounts.First(d => d.Id == id).Label;
+}
+
+/// <summary>Default in-sentence names for options and appraisal rules.</summary>
+public static class InSentence
+{
+    /// <summary>A label as it reads inside a sentence: first letter lower-cased unless the first word looks like a name or an acronym.</summary>
+    public static string FromLabel(string label)
+    {
+        if (label.Length < 2 || !char.IsUpper(label[0])) return label;
+        int end = label.IndexOfAny(new[] { ' ', ',', ':', '(' });
+        string first = end < 0 ? label : label[..end];
+        return first.Skip(1).Any(char.IsUpper) ? label : char.ToLowerInvariant(label[0]) + label[1..];
+    }
+
+    /// <summary>The published rules by schedule id, and a description from the rates for any other.</summary>
+    public static string ForRule(Model.Dynamics.DiscountSchedule schedule) => schedule.Id switch
+    {
+        "green-book" => "the UK Green Book's declining discount rate (3.5% at first)",
+        "omb-3" => "the 3% discount rate of US OMB Circular A-4",
+        "omb-7" => "the 7% discount rate of US OMB Circular A-4",
+        _ when schedule.Steps.Count == 1 => $"a constant discount rate of {Percent(schedule.Steps[0].Rate)}",
+        _ => $"a discount rate stepping from {Percent(schedule.Steps[0].Rate)} to {Percent(schedule.Steps[^1].Rate)}",
+    };
+
+    private static string Percent(double rate) => (rate * 100).ToString("0.0##", System.Globalization.CultureInfo.InvariantCulture) + "%";
 }

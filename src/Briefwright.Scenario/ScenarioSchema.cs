@@ -169,7 +169,7 @@ public static class ScenarioSchema
             ("depreciation", Num("Depreciation δ", Bounds.ClosedOpen(0, 1), rate: true)), ("technology_growth", Num("Technology growth g", Bounds.Closed(-0.1, 0.1), rate: true))),
             strict, "saving_rate", "capital_share", "depreciation", "technology_growth");
         var option = Section("A policy option", Obj(
-            ("id", id.DeepClone()), ("label", Str("Label", 120)), ("schooling_years", Num("Years of schooling", Bounds.Closed(0, 40))),
+            ("id", id.DeepClone()), ("label", Str("Label", 120)), ("in_sentence", Str("How the option reads inside a sentence (default: the label, first letter lower-cased)", 120)), ("schooling_years", Num("Years of schooling", Bounds.Closed(0, 40))),
             ("retirement_age", Num("Own retirement age", age)), ("participation", Num("Own participation", Bounds.OpenClosed(0, 1), rate: true)),
             ("baseline", Obj(("type", "boolean"))), ("source", Str("Source")), ("note", Str("Note", 1000))), true, "id", "label", "schooling_years");
         var reform = Section("Reform simulation", Obj(("year", Num("Reform year", Bounds.Closed(1900, 2300), integer: true)),
@@ -180,7 +180,7 @@ public static class ScenarioSchema
             true, "from_year", "rate");
         var customRate = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr("id", "label")),
             ("anyOf", new JsonArray(Obj(("required", Arr("rate"))), Obj(("required", Arr("schedule"))))), ("properties", Obj(
-                ("id", Str("Id")), ("label", Str("Label", 120)), ("rate", Num("Constant rate", rate, rate: true)),
+                ("id", Str("Id")), ("label", Str("Label", 120)), ("in_sentence", Str("How the rule reads inside a sentence (default: described from its rates)", 120)), ("rate", Num("Constant rate", rate, rate: true)),
                 ("schedule", Obj(("type", "array"), ("minItems", 1), ("items", step))), ("source", Str("Source")))));
         var discount = Obj(("anyOf", new JsonArray(Obj(("enum", Arr("green_book", "omb_3", "omb_7"))), customRate)));
         var appraisal = Section("Discounting", Obj(("discount_rates", Obj(("type", "array"), ("minItems", 1), ("items", discount))),

@@ -15,10 +15,12 @@ internal static class AnalysisModel
     {
         string Label(string id) => s.Inputs.Options.First(o => o.Id == id).Label;
         var reform = a.Reform;
+        model["headline"] = Headline(model, s, r, a);
         ScriptObject OptionPath(OptionAppraisal o)
         {
             var headlinePv = o.PresentValues[0];
-            return Obj(("id", o.OptionId), ("label", Md.Escape(Label(o.OptionId))), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
+            return Obj(("id", o.OptionId), ("label", Md.Escape(Label(o.OptionId))), ("name", Md.Escape(s.OptionName(o.OptionId))), ("schedule_name", Md.Escape(s.RuleName(headlinePv.ScheduleId))),
+                ("lengthens_schooling", s.Inputs.Options.First(x => x.Id == o.OptionId).SchoolingYears > s.Inputs.Baseline.SchoolingYears), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
                 ("has_dip", o.Path.DipDepth is not null), ("first_positive_year", reform.ReformYear + o.Path.FirstPositiveYear),
                 ("long_run", o.Path.LongRunGain), ("balanced_growth", o.Path.BalancedGrowthGain), ("pv", headlinePv.ToHorizon), ("pv_total", headlinePv.Total),
                 ("break_even_year", reform.ReformYear + headlinePv.BreakEvenYear), ("schedule", Md.Escape(headlinePv.ScheduleLabel)));
@@ -30,7 +32,8 @@ internal static class AnalysisModel
             ("phase_in", reform.PhaseInCohorts), ("options", new ScriptArray(paths)), ("headline", paths.First(p => (string)p["id"]! == a.HeadlineOptionId)),
             ("discounted_optimum", Obj(("years", d.SchoolingYears), ("pv", d.PresentValue), ("explanation", d.Explanation),
                 ("schedule", Md.Escape(s.Analysis.Headline.Label)), ("balanced_growth", d.BalancedGrowthOptimum), ("tail_included", d.TailIncluded),
-                ("by_horizon", new ScriptArray(d.ByHorizon.Select(x => Obj(("horizon", x.HorizonYears), ("years", x.SchoolingYears), ("pv", x.PresentValue))))))));
+                ("by_horizon", new ScriptArray(d.ByHorizon.Select(x => Obj(("horizon", x.HorizonYears), ("years", x.SchoolingYears), ("pv", x.PresentValue))))),
+                ("tail_text", TailText(d, reform.HorizonYears)))));
         model["dynamics_available"] = true;
 
         int k = reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
@@ -38,6 +41,9 @@ internal static class AnalysisModel
         model["tornado"] = new ScriptArray(a.Tornado.Select(t => Obj(("parameter", t.Parameter), ("label", t.Label),
             ("at_low", t.AtLow.LongRunChangePct[k]), ("at_high", t.AtHigh.LongRunChangePct[k]), ("swing", t.Swing),
             ("optimum_low", t.AtLow.OptimumYears), ("optimum_high", t.AtHigh.OptimumYears))));
+        // Parameters whose whole range moves the headline change by less than 0.05 points: named, not assumed.
+        var still = a.Tornado.Where(t => Math.Abs(t.AtHigh.LongRunChangePct[k] - t.AtLow.LongRunChangePct[k]) < 0.05).Select(t => t.Label.ToLowerInvariant()).ToList();
+        model["tornado_still"] = still.Count == 0 ? null : Wording.List(still);
         model["has_grid"] = a.Grids.Count > 0;
         if (a.MonteCarlo is { } mc)
         {
@@ -58,7 +64,8 @@ internal static class AnalysisModel
             model["sobol"] = Obj(("top_parameter", Parameters.Find(idx.Inputs[top])!.Label), ("top_total", idx.Total[top]),
                 ("top_total_low", idx.TotalLow[top]), ("top_total_high", idx.TotalHigh[top]), ("top_first", idx.FirstOrder[top]),
                 ("top_first_low", idx.FirstOrderLow[top]), ("top_first_high", idx.FirstOrderHigh[top]),
-                ("samples", idx.Samples), ("resamples", idx.Resamples), ("level", idx.Level));
+                ("samples", idx.Samples), ("resamples", idx.Resamples), ("level", idx.Level),
+                ("top_share", idx.Total[top] > 0.5 ? "most" : "the largest share"));
         }
         else model["sobol"] = null;
 
@@ -68,6 +75,32 @@ internal static class AnalysisModel
         model.AddFunction("sobol_table", new Func<string>(() => SobolTable(a)));
     }
 
+    /// <summary>The headline option: its facts and the sentences page 1 is made of, each chosen from those facts.</summary>
+    private static ScriptObject Headline(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
+    {
+        var h = HeadlineFacts.From(r, a);
+        var option = ((ScriptArray)model["options"]!).Cast<ScriptObject>().First(o => (string)o["id"]! == h.OptionId);
+        var baseline = (ScriptObject)model["baseline"]!;
+        string rule = s.RuleName(h.ScheduleId);
+        int y0 = a.Reform.ReformYear;
+        string lead = $"{Wording.Capitalise(s.OptionName(h.OptionId))} {Wording.Effect(h.LongRunChangePct)} against {baseline["name"]!}, once the economy has fully adjusted.";
+        var decomposition = r.Levers.FirstOrDefault(l => l.OptionId == h.OptionId);
+        string? split = decomposition is { IsCombined: true } ? $"By lever: {DecompositionText(decomposition)} (each lever's average effect over the orders in which the levers could be switched)." : null;
+        var others = ((ScriptArray)model["alternatives"]!).Cast<ScriptObject>().Where(o => (string)o["id"]! != h.OptionId).Select(o =>
+        {
+            string line = $"{o["label"]}: {Wording.Effect((double)o["change_pct"]!)}";
+            if (o["decomposition_text"] is string d) line += $" ({d})";
+            return (object)Obj(("id", o["id"]), ("label", o["label"]), ("line", line + "."));
+        });
+        return Obj(("id", h.OptionId), ("label", option["label"]), ("name", option["name"]), ("change_pct", h.LongRunChangePct),
+            ("direction", Wording.DirectionWord(h.LongRunChangePct)), ("effect", Wording.Effect(h.LongRunChangePct)),
+            ("lead", lead), ("split", split), ("range", Wording.Range(h)), ("arrival", Wording.Arrival(h, y0)), ("payback", Wording.Payback(h, rule, y0)),
+            ("has_range", h.RangeLowPct is not null), ("range_low", h.RangeLowPct), ("range_high", h.RangeHighPct), ("prob_gain", h.ProbabilityGain),
+            ("dip_pct", h.DeepestDipPct), ("dip_year", h.DipYear), ("first_year_above", h.FirstYearAbove), ("first_year_below", h.FirstYearBelow),
+            ("break_even_year", h.BreakEvenYear), ("pays_back", h.BreakEvenYear is not null), ("rule", rule), ("horizon_end_year", h.HorizonEndYear),
+            ("present_value", h.PresentValue), ("is_combined", decomposition?.IsCombined ?? false), ("others", new ScriptArray(others)));
+    }
+
     private static string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";
 
     private static string ReformTable(AnalysisResults a, Func<string, string> label)
@@ -75,12 +108,12 @@ internal static class AnalysisModel
         var r = a.Reform;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
         {
-            label(o.OptionId), o.Path.DipDepth is { } dd ? Pct(dd, 2) : "none", Year(r.ReformYear, o.Path.DipYear),
-            Year(r.ReformYear, o.Path.FirstPositiveYear), Year(r.ReformYear, o.PresentValues[0].BreakEvenYear),
-            Pct(o.Path.LongRunGain, 2), Pct(o.Path.BalancedGrowthGain, 2),
+            label(o.OptionId), o.Path.DipDepth is { } dd ? Change(100 * dd) : "none", Year(r.ReformYear, o.Path.DipYear),
+            Year(r.ReformYear, o.Path.FirstPositiveYear), o.PresentValues[0].BreakEvenYear is null ? "not by " + (r.ReformYear + r.HorizonYears) : Year(r.ReformYear, o.PresentValues[0].BreakEvenYear),
+            Change(100 * o.Path.LongRunGain), Change(100 * o.Path.BalancedGrowthGain),
         });
         return Md.Table($"The reform over time: output per person against no reform (reform from {r.ReformYear})", "briefwright cohort simulation",
-            new[] { "Option", "Deepest dip", "Year of dip", "Gain from", $"Break-even ({r.Options[0].PresentValues[0].ScheduleId})", $"Gain in {r.ReformYear + r.HorizonYears}", "Balanced growth" },
+            new[] { "Option", "Deepest dip", "Year of dip", "Above no reform from", $"Pays back ({r.Options[0].PresentValues[0].ScheduleLabel})", $"Change in {r.ReformYear + r.HorizonYears}", "Once adjusted" },
             rows, new HashSet<int> { 1, 2, 3, 4, 5, 6 });
     }
 
@@ -89,7 +122,7 @@ internal static class AnalysisModel
         var schedules = a.Reform.Options[0].PresentValues;
         var header = new List<string> { "Option" };
         header.AddRange(schedules.Select(p => p.ScheduleLabel));
-        var rows = a.Reform.Options.Select(o => (IReadOnlyList<string>)o.PresentValues.Select(pv => Num(pv.ToHorizon, 2)).Prepend(label(o.OptionId)).ToList());
+        var rows = a.Reform.Options.Select(o => (IReadOnlyList<string>)o.PresentValues.Select(pv => Pv(pv.ToHorizon)).Prepend(label(o.OptionId)).ToList());
         return Md.Table($"Present value of the gain to {a.Reform.ReformYear + a.Reform.HorizonYears}, valued at {a.Reform.ValuationYear}, in years of {a.Reform.ValuationYear} output per person", "briefwright cohort simulation; discount rates as named, counted from " + a.Reform.ValuationYear,
             header, rows, Enumerable.Range(1, schedules.Count).ToHashSet());
     }
@@ -99,7 +132,7 @@ internal static class AnalysisModel
         if (a.MonteCarlo is not { } mc) return "";
         var rows = mc.Options.Select(o => (IReadOnlyList<string>)new[]
         {
-            label(o.OptionId), Change(o.LongRunChangePct.P5, 2), Change(o.LongRunChangePct.P50, 2), Change(o.LongRunChangePct.P95, 2),
+            label(o.OptionId), Change(o.LongRunChangePct.P5), Change(o.LongRunChangePct.P50), Change(o.LongRunChangePct.P95),
             ProbabilityWords.Cell(o.ProbabilityGain), ProbabilityWords.Cell(o.ProbabilityPositivePv),
         });
         return Md.Table($"Uncertainty: long-run change in output per person over {Big(mc.Draws)} Monte Carlo draws (seed {mc.Seed}); probabilities with 95% intervals", "briefwright Monte Carlo; Wilson score intervals",
@@ -122,5 +155,14 @@ internal static class AnalysisModel
         return Md.Table($"Which assumption matters most: Sobol indices ({Big(idx[0].Samples)} base samples; {Num(100 * idx[0].Level, 0)}% bootstrap intervals in brackets)", "briefwright, Saltelli sampling and estimators, bootstrap over the base samples",
             new[] { "Parameter", "First-order, headline change", "Total, headline change", "Total, optimum E*", "Total, present value" },
             rows, new HashSet<int> { 1, 2, 3, 4 });
+    }
+
+    /// <summary>How the discounted optimum treats the value beyond the horizon, in words chosen from the result.</summary>
+    private static string TailText(Model.Dynamics.DiscountedOptimum d, int horizon)
+    {
+        if (d.TailIncluded)
+            return $"The value it maximises includes the gain beyond the {horizon}-year horizon, held at its balanced-growth level and discounted to infinity.";
+        var cuts = string.Join(", ", d.ByHorizon.Select(x => $"{Years(x.SchoolingYears)} if cut at {x.HorizonYears} years"));
+        return $"The long-run discount rate does not exceed technology growth, so the gain beyond the horizon has no finite value; the value maximised is cut {horizon} years after the reform, and the optimum moves with the cut ({cuts}).";
     }
 }

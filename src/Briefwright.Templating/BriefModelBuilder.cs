@@ -1,6 +1,7 @@
 using System.Globalization;
 using Briefwright.Model.Inputs;
 using Briefwright.Model.Results;
+using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 using Scriban.Runtime;
 using static Briefwright.Templating.TemplateFunctions;
@@ -23,22 +24,22 @@ public static class BriefModelBuilder
             ("id", s.Brief.Id), ("title", Md.Text(s.Brief.Title)), ("short_title", Md.Text(s.Brief.ShortTitle)), ("organisation", Md.Text(s.Brief.Organisation)),
             ("author", Md.Text(s.Brief.Author)), ("date", s.Brief.Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)), ("status", s.Brief.Status),
             ("edition", s.Brief.Edition), ("question", Md.Text(s.Brief.Question)));
-        var options = r.Options.Select(OptionObject).ToList();
+        var baseResult = r.Options.First(o => o.IsBaseline);
+        var levers = r.Levers.ToDictionary(l => l.OptionId);
+        var options = r.Options.Select(o => OptionObject(s, o, baseResult, levers.GetValueOrDefault(o.Id))).ToList();
         model["options"] = new ScriptArray(options);
         model["baseline"] = options.First(o => (bool)o["is_baseline"]!);
         var alternatives = options.Where(o => !(bool)o["is_baseline"]!).ToList();
         model["alternatives"] = new ScriptArray(alternatives);
         model["best"] = alternatives.MaxBy(o => (double)o["change_pct"]!)!;
         model["worst"] = alternatives.MinBy(o => (double)o["change_pct"]!)!;
-        var opt = r.Optimum;
-        model["optimum"] = Obj(
-            ("schooling_years", opt.SchoolingYears), ("low", opt.Within1Pct[0]), ("high", opt.Within1Pct[1]),
-            ("method", opt.Method == OptimumMethod.ClosedForm ? "closed form" : "numerical search"), ("at_boundary", opt.AtBoundary),
-            ("output_per_person", opt.OutputPerPerson), ("closed_form_reason", opt.ClosedFormNotApplicable), ("local_maxima", opt.LocalMaxima.Count),
-            ("gain_vs_baseline_pct", 100 * (opt.OutputPerPerson / r.Options.First(o => o.IsBaseline).OutputPerPerson - 1)));
+        model["has_combined"] = r.Levers.Any(l => l.IsCombined);
+        model["results_summary"] = ResultsSummary(s, r);
+        model["optimum"] = OptimumModel.Build(s, r, b.Analysis);
         var d = s.Inputs.Demography;
         model["demography"] = Obj(("growth", d.GrowthRate), ("entry_age", d.EntryAge), ("retirement_age", d.RetirementAge),
-            ("participation", d.Participation), ("survival", SurvivalText(d.Survival)));
+            ("participation", d.Participation), ("survival", SurvivalText(d.Survival)),
+            ("growth_text", Math.Round(d.GrowthRate * 100, 1) > 0 ? $"growing by {Pct(d.GrowthRate)} a year" : Math.Round(d.GrowthRate * 100, 1) < 0 ? $"shrinking by {Pct(-d.GrowthRate)} a year" : "that neither grows nor shrinks"));
         var p = s.Inputs.Production;
         model["production"] = Obj(("saving_rate", p.SavingRate), ("capital_share", p.CapitalShare), ("depreciation", p.Depreciation),
             ("technology_growth", p.TechnologyGrowth), ("output_per_effective_worker", r.SteadyState.OutputPerEffectiveWorker),
@@ -51,7 +52,9 @@ public static class BriefModelBuilder
             ? $"[[figure: {id}]]"
             : throw new InvalidOperationException($"Unknown figure '{id}'. Known figures: {string.Join(", ", figureIds.Order())}.")));
         model.AddFunction("assumptions_table", new Func<string>(() => AssumptionsTable(s)));
-        model.AddFunction("results_table", new Func<string>(() => ResultsTable(r)));
+        model.AddFunction("key_assumptions_table", new Func<string>(() => KeyAssumptions.Table(s, b.Analysis)));
+        model.AddFunction("levers_table", new Func<string>(() => LeversTable(s, r)));
+        model.AddFunction("results_table", new Func<string>(() => ResultsTable(r, s)));
         model.AddFunction("caveats", new Func<string>(() => Md.Bullets(Caveats.Fixed.Concat(Caveats.Generated(s, r, b.Analysis)))));
         model.AddFunction("equations_annex", new Func<string>(() => Equations.Annex(s.Inputs, r)));
         model.AddFunction("reproducibility", new Func<string>(() => Reproducibility(b)));
@@ -65,10 +68,69 @@ public static class BriefModelBuilder
         return o;
     }
 
-    private static ScriptObject OptionObject(OptionResult o) => Obj(
-        ("id", o.Id), ("label", Md.Text(o.Label)), ("is_baseline", o.IsBaseline), ("schooling_years", o.SchoolingYears),
-        ("worker_share", o.WorkerShare), ("human_capital", o.HumanCapitalPerWorker), ("output_per_person", o.OutputPerPerson),
-        ("change_pct", o.ChangeVsBaselinePct));
+    private static ScriptObject OptionObject(ScenarioDocument s, OptionResult o, OptionResult baseline, Model.Core.LeverDecomposition? levers)
+    {
+        var decomposition = levers?.Levers ?? [];
+        double delta = o.SchoolingYears - baseline.SchoolingYears;
+        return Obj(
+            ("id", o.Id), ("label", Md.Text(o.Label)), ("name", Md.Text(s.OptionName(o.Id))), ("is_baseline", o.IsBaseline), ("schooling_years", o.SchoolingYears),
+            ("worker_share", o.WorkerShare), ("human_capital", o.HumanCapitalPerWorker), ("output_per_person", o.OutputPerPerson),
+            ("relative", 100 * o.OutputPerPerson / baseline.OutputPerPerson),
+            ("change_pct", o.ChangeVsBaselinePct), ("direction", Wording.DirectionWord(o.ChangeVsBaselinePct)), ("effect", Wording.Effect(o.ChangeVsBaselinePct)),
+            ("schooling_direction", delta > 0 ? "longer" : delta < 0 ? "shorter" : "same"), ("schooling_change_years", delta),
+            ("levers", new ScriptArray(decomposition.Select(l => Wording.LeverName(l.Lever)))), ("is_combined", levers?.IsCombined ?? false),
+            ("decomposition", new ScriptArray(decomposition.Select(l => Obj(("lever", l.Lever), ("name", Wording.LeverName(l.Lever)), ("points", l.ChangePct))))),
+            ("decomposition_text", levers is { IsCombined: true } ? DecompositionText(levers) : null));
+    }
+
+    /// <summary>"schooling +8.2 points and the retirement age +4.0 points".</summary>
+    public static string DecompositionText(Model.Core.LeverDecomposition d) =>
+        Wording.List(d.Levers.Select(l => $"{Wording.LeverName(l.Lever)} {Wording.Points(l.ChangePct)}").ToList());
+
+    /// <summary>What the options that change schooling alone show about the two opposing forces, chosen from their signs.</summary>
+    private static string ResultsSummary(ScenarioDocument s, BalancedGrowthResults r)
+    {
+        var alone = r.Levers.Where(l => l.Levers.Count == 1 && l.Levers[0].Lever == Model.Core.Levers.Schooling).ToList();
+        var baseYears = r.Options.First(o => o.IsBaseline).SchoolingYears;
+        var parts = new List<string>();
+        foreach (bool longer in new[] { true, false })
+        {
+            var set = alone.Where(l => (r.Options.First(o => o.Id == l.OptionId).SchoolingYears > baseYears) == longer).ToList();
+            if (set.Count == 0) continue;
+            var dirs = set.Select(l => HeadlineFacts.Of(l.TotalChangePct)).Distinct().ToList();
+            string which = set.Count == 1 ? $"In the option that {(longer ? "lengthens" : "shortens")} schooling and changes nothing else" : $"In every option that {(longer ? "lengthens" : "shortens")} schooling and changes nothing else";
+            string gainSide = longer ? "the gain in human capital per worker" : "the gain in workers per person";
+            string lossSide = longer ? "the loss of workers per person" : "the loss of human capital per worker";
+            if (dirs.Count > 1)
+                parts.Add($"Among the options that {(longer ? "lengthen" : "shorten")} schooling alone, output per person rises in some and falls in others: the balance of the two forces depends on how far schooling moves.");
+            else parts.Add(dirs[0] switch
+            {
+                Direction.Rise => $"{which}, {gainSide} outweighs {lossSide}: output per person rises.",
+                Direction.Fall => $"{which}, {lossSide} outweighs {gainSide}: output per person falls.",
+                _ => $"{which}, the two forces almost cancel: output per person changes by less than 0.05%.",
+            });
+        }
+        return string.Join(" ", parts);
+    }
+
+    public static string LeversTable(ScenarioDocument s, BalancedGrowthResults r)
+    {
+        var combined = r.Levers.Where(l => l.IsCombined).ToList();
+        if (combined.Count == 0) return "";
+        var names = Model.Core.Levers.All.Where(lever => combined.Any(c => c.Levers.Any(l => l.Lever == lever))).ToList();
+        var header = new List<string> { "Option" };
+        header.AddRange(names.Select(n => Wording.Capitalise(Wording.LeverName(n).Replace("the ", ""))));
+        header.Add("Total change");
+        var rows = combined.Select(c =>
+        {
+            var row = new List<string> { Md.Escape(r.Options.First(o => o.Id == c.OptionId).Label) };
+            row.AddRange(names.Select(n => c.Levers.FirstOrDefault(l => l.Lever == n) is { } l ? Wording.Points(l.ChangePct) : "–"));
+            row.Add(Change(c.TotalChangePct));
+            return (IReadOnlyList<string>)row;
+        });
+        return Md.Table("What each lever contributes to the long-run change in output per person (percentage points; average over the orders in which the levers can be switched)",
+            "briefwright model results", header, rows, Enumerable.Range(1, names.Count + 1).ToHashSet());
+    }
 
     public static string SurvivalText(Survival s) => s switch
     {
@@ -84,35 +146,34 @@ public static class BriefModelBuilder
     {
         var rows = s.Assumptions.Select(a => (IReadOnlyList<string>)new[]
         {
-            a.Label, a.Text ?? FormatValue(a), UnitText(a.Unit), a.Source ?? "not given", a.Note ?? "",
+            a.Label, a.Text ?? FormatValue(a), SourceText(a), a.Note ?? "",
         });
-        return Md.Table("Assumptions", $"scenario {s.Brief.Id}", new[] { "Parameter", "Value", "Unit", "Source", "Note" }, rows, RightOfFirst);
+        return Md.Table("Assumptions: every value in the scenario, with its source", $"scenario {s.Brief.Id}", new[] { "Parameter", "Value", "Source", "Note" }, rows, RightOfFirst);
     }
 
-    private static string FormatValue(Assumption a) => a.Value is not { } v ? "" : a.Unit switch
+    /// <summary>The source column: an option without a source of its own is defined in the scenario.</summary>
+    public static string SourceText(Assumption a) => a.Source ?? (a.Path.StartsWith("options[", StringComparison.Ordinal)
+        ? "defined in this scenario" : "no source given in the scenario");
+
+    /// <summary>A value with its unit, once: rates as percentages, years with "years", ages bare.</summary>
+    public static string FormatValue(Assumption a) => a.Value is not { } v ? "" : a.Unit switch
     {
         ValueUnit.Rate => Pct(v, Math.Abs(v * 100 - Math.Round(v * 100, 1)) < 1e-9 ? 1 : 2),
-        ValueUnit.Years or ValueUnit.Age => Num(v, v == Math.Floor(v) ? 0 : 1),
+        ValueUnit.Years => Years(v),
+        ValueUnit.Age => Num(v, v == Math.Floor(v) ? 0 : 1),
         _ => Sig(v, 4),
     };
 
-    private static string UnitText(ValueUnit unit) => unit switch
+    public static string ResultsTable(BalancedGrowthResults r, ScenarioDocument? s = null)
     {
-        ValueUnit.Rate => "%",
-        ValueUnit.Years => "years",
-        ValueUnit.Age => "age",
-        _ => "",
-    };
-
-    public static string ResultsTable(BalancedGrowthResults r)
-    {
+        var baseY = r.Options.First(o => o.IsBaseline).OutputPerPerson;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
         {
             o.Label + (o.IsBaseline ? " (baseline)" : ""), Num(o.SchoolingYears, 1), Num(o.WorkerShare, 3), Num(o.HumanCapitalPerWorker, 2),
-            Num(o.OutputPerPerson, 3), o.IsBaseline ? "–" : Change(o.ChangeVsBaselinePct, 1),
+            Num(100 * o.OutputPerPerson / baseY, 1), o.IsBaseline ? "–" : Change(o.ChangeVsBaselinePct, 1),
         });
-        return Md.Table("Long-run output per person by option (balanced growth path)", "briefwright model results",
-            new[] { "Option", "Schooling (years)", "Worker share", "Human capital per worker", "Output per person", "Change vs baseline" },
+        return Md.Table("Long-run output per person by option, once the economy has adjusted (balanced growth path; output per person as an index, baseline = 100)", "briefwright model results",
+            new[] { "Option", "Schooling (years)", "Workers per person", "Human capital per worker", "Output per person (baseline = 100)", "Change vs baseline" },
             rows, new HashSet<int> { 1, 2, 3, 4, 5 });
     }
 

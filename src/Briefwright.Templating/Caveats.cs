@@ -20,7 +20,7 @@ public static class Caveats
     private static readonly (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
     {
         ("saving rate", i => i.Production.SavingRate, 0.10, 0.40, true),
-        ("capital share", i => i.Production.CapitalShare, 0.25, 0.45, false),
+        ("capital share", i => i.Production.CapitalShare, 0.25, 0.45, true),
         ("depreciation rate", i => i.Production.Depreciation, 0.02, 0.10, true),
         ("technology growth", i => i.Production.TechnologyGrowth, 0.0, 0.03, true),
         ("labour-force participation", i => i.Demography.Participation, 0.5, 0.9, true),
@@ -41,7 +41,7 @@ public static class Caveats
         if (inputs.Demography.GrowthRate < 0)
             list.Add($"Population growth is negative ({Pct(inputs.Demography.GrowthRate)} a year). A shrinking population raises the weight of older cohorts; the stable-population assumption is less reliable when decline is recent or driven by migration.");
         if (opt.ClosedFormNotApplicable is { } why)
-            list.Add($"The closed-form optimum does not apply because {why}; the optimum was found by numerical search ({opt.Diagnostics.GridPoints} grid points, refined to {opt.Diagnostics.Tolerance:0e0} years{(opt.Diagnostics.Converged ? "" : "; the search did not converge")}).");
+            list.Add($"The closed-form optimum does not apply because {why}; the optimum was found by numerical search ({opt.Diagnostics.GridPoints} grid points, refined to {Small(opt.Diagnostics.Tolerance)} of a year{(opt.Diagnostics.Converged ? "" : "; the search did not converge")}).");
         if (opt.LocalMaxima.Count > 1)
             list.Add($"Output per person has {opt.LocalMaxima.Count} local maxima over schooling length; the brief reports the highest.");
         foreach (var (label, get, low, high, percent) in UsualRanges)
@@ -56,7 +56,7 @@ public static class Caveats
 
     private static IEnumerable<string> FromAnalysis(ScenarioDocument scenario, AnalysisResults a)
     {
-        string Label(string id) => Md.Escape(scenario.Inputs.Options.First(o => o.Id == id).Label);
+        string Label(string id) => Md.Escape(scenario.OptionName(id));
         if (a.MonteCarlo is { } mc)
             foreach (var o in mc.Options)
             {

@@ -27,7 +27,7 @@ public static class Equations
             : "Population integrals use composite five-point Gauss–Legendre quadrature on panels of at most one year. ");
         sb.Append(r.Optimum.Method == OptimumMethod.ClosedForm
             ? "E* comes from the closed form and was checked against the numerical search. "
-            : $"E* comes from a search over {r.Optimum.Diagnostics.GridPoints} grid points, each local maximum refined by {r.Optimum.Diagnostics.Refinement} to {r.Optimum.Diagnostics.Tolerance:0e0} years ({(r.Optimum.Diagnostics.Converged ? "converged" : "did not converge")}). ");
+            : $"E* comes from a search over {r.Optimum.Diagnostics.GridPoints} grid points, each local maximum refined by {r.Optimum.Diagnostics.Refinement} to {Small(r.Optimum.Diagnostics.Tolerance)} of a year ({(r.Optimum.Diagnostics.Converged ? "converged" : "did not converge")}). ");
         sb.Append($"The band within 1% of the maximum is {Years(r.Optimum.Within1Pct[0])} to {Years(r.Optimum.Within1Pct[1])}.\n");
         return sb.ToString();
     }

@@ -2,7 +2,12 @@ using System.Globalization;
 
 namespace Briefwright.Templating;
 
-/// <summary>Number and date formatting for templates: <c>pct</c>, <c>change</c>, <c>num</c>, <c>sig</c>, <c>big</c>, <c>years</c>, <c>date</c>.</summary>
+/// <summary>
+/// Number and date formatting for templates (<c>pct</c>, <c>change</c>, <c>num</c>, <c>sig</c>, <c>big</c>, <c>years</c>,
+/// <c>pv</c>, <c>prob</c>, <c>date</c>), applying one policy written in docs/templates.md: changes in percent to one
+/// decimal, years to one decimal, present values to two significant figures, probabilities from a sample never as
+/// 0% or 100%, no exponent notation.
+/// </summary>
 public static class TemplateFunctions
 {
     private static readonly CultureInfo Invariant = CultureInfo.InvariantCulture;
@@ -34,12 +39,41 @@ public static class TemplateFunctions
     /// <summary>Large numbers with thousands separators: 1234567 → "1,234,567".</summary>
     public static string Big(double value, int digits = 0) => (value < 0 ? "−" : "") + Math.Abs(value).ToString("N" + Math.Clamp(digits, 0, 15), Invariant);
 
-    /// <summary>Years: 34.51 → "34.5 years"; 1 → "1 year".</summary>
-    public static string Years(double value, int digits = 1)
+    /// <summary>Years, always to one decimal (the same precision beside each other): 34.51 → "34.5 years"; 28 → "28.0 years".</summary>
+    public static string Years(double value, int digits = 1) => Fixed(value, digits) + " years";
+
+    /// <summary>A present value to two significant figures: 0.8213 → "0.82", 3.449 → "3.4", 0.002 → "&lt; 0.01", −0.004 → "&gt; −0.01".</summary>
+    public static string Pv(double value)
     {
-        string s = Fixed(value, Math.Round(value, digits) == Math.Round(value) ? 0 : digits);
-        return s + (s == "1" ? " year" : " years");
+        if (value == 0) return "0";
+        if (Math.Abs(value) < 0.01) return value > 0 ? "< 0.01" : "> −0.01";
+        int magnitude = (int)Math.Floor(Math.Log10(Math.Abs(value)));
+        int decimals = Math.Max(0, 1 - magnitude);
+        double rounded = Math.Round(value, decimals);
+        if (Math.Abs(rounded) >= 10) { decimals = 0; rounded = Math.Round(value / Math.Pow(10, magnitude - 1)) * Math.Pow(10, magnitude - 1); }
+        return Fixed(rounded, decimals);
     }
+
+    /// <summary>
+    /// A probability estimated from a sample: one decimal, but never "0.0%" or "100.0%", which a finite sample cannot
+    /// show: 1 → "&gt; 99.9%", 0 → "&lt; 0.1%".
+    /// </summary>
+    public static string Prob(double fraction)
+    {
+        double pct = Math.Round(fraction * 100, 1);
+        if (pct >= 100) return "> 99.9%";
+        if (pct <= 0) return "< 0.1%";
+        return Fixed(pct, 1) + "%";
+    }
+
+    /// <summary>A small tolerance in words, without exponent notation: 1e-10 → "less than a billionth".</summary>
+    public static string Small(double value) => value switch
+    {
+        <= 1e-9 => "less than a billionth",
+        <= 1e-6 => "less than a millionth",
+        <= 1e-3 => "less than a thousandth",
+        _ => Sig(value, 2),
+    };
 
     /// <summary>A date as "30 November 2026"; accepts a date or YYYY-MM-DD text.</summary>
     public static string Date(object value) => value switch

@@ -34,7 +34,7 @@ internal static class Demo
         return dir?.FullName ?? throw new InvalidOperationException("Repository root not found.");
     }
 
-    private sealed class DiskReader : ISourceReader
+    internal sealed class DiskReader : ISourceReader
     {
         public bool TryRead(string path, out string text, out string error)
         {

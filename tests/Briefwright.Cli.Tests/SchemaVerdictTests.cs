@@ -45,7 +45,10 @@ public class SchemaVerdictTests
         "breaks a model rule", "must leave workers", "give reform.year", // the model's rules across fields and files
         "required field is missing",                // a distribution whose form an extends child switches
         "it names the output files",                // a trailing newline, which '$' in a schema pattern lets through
-        "sensitivity.ranges",                       // each parameter's own bounds on its sensitivity range
+        "must be at least 0% and less than 100%", "must be at least 0 and at most", // a range's or a
+        "must be greater than 0 and less than 0.9",  // distribution's end, held to its parameter's own bounds
+        "break a model rule too often",             // the pilot draw
+        "simulated years",                          // the uncertainty work limit, across three fields
     ];
 
     /// <summary>Files whose difference lies in the YAML text itself, of which JSON keeps no trace: quoting (a quoted

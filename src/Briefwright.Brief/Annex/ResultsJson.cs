@@ -20,7 +20,9 @@ public sealed record ResultsDocument(
     IReadOnlyList<OptionResult> Options,
     OptimumResult Optimum,
     IReadOnlyList<CurvePoint> SchoolingCurve,
-    AnalysisResults Analysis)
+    AnalysisResults Analysis,
+    IReadOnlyList<Model.Core.LeverDecomposition> LeverDecomposition,
+    HeadlineFacts Headline)
 {
     public static ResultsDocument From(SolvedScenario solved) => From(solved.Scenario, solved.BalancedGrowth, solved.Analysis);
 
@@ -36,7 +38,9 @@ public sealed record ResultsDocument(
         results.Options,
         results.Optimum,
         results.SchoolingCurve,
-        analysis);
+        analysis,
+        results.Levers,
+        HeadlineFacts.From(results, analysis));
 }
 
 /// <summary>Serialisation code generated at build time: no reflection when a process writes its first brief.</summary>
@@ -57,6 +61,7 @@ public static class ResultsJson
         {
             new JsonStringEnumConverter<Scenario.ValueUnit>(JsonNamingPolicy.SnakeCaseLower),
             new JsonStringEnumConverter<Model.Results.OptimumMethod>(JsonNamingPolicy.SnakeCaseLower),
+            new JsonStringEnumConverter<Direction>(JsonNamingPolicy.SnakeCaseLower),
         },
         TypeInfoResolver = ResultsJsonContext.Default,
     };

@@ -26,7 +26,14 @@ public sealed record BuildLogEntry(
     long? Bytes,
     long? Milliseconds,
     string? Error,
-    IReadOnlyList<string>? Messages);
+    IReadOnlyList<string>? Messages)
+{
+    /// <summary>What this attempt found left by an interrupted build and put right.</summary>
+    public string? Recovered { get; init; }
+
+    /// <summary>Where the previous edition was kept (relative to the output folder), when this attempt archived it.</summary>
+    public string? Archived { get; init; }
+}
 
 /// <summary>Appends build-log lines; the clock is passed in so tests fix the time.</summary>
 public sealed class BuildLog(TimeProvider clock, string? shard)
@@ -52,7 +59,7 @@ public sealed class BuildLog(TimeProvider clock, string? shard)
 
     public BuildLogEntry Entry(BriefOutcome o) => new(Now(), ToolInfo.Version, "brief", o.Status.ToString().ToLowerInvariant(), null, o.Scenario, o.Id, shard,
         o.InputHash, o.Edition, o.Pdf, o.Status == OutcomeStatus.Built ? o.Pages : null, o.Status == OutcomeStatus.Built ? o.Bytes : null, o.Milliseconds, o.Error,
-        o.Messages is { Count: > 0 } m ? m : null);
+        o.Messages is { Count: > 0 } m ? m : null) { Recovered = o.Recovered, Archived = o.Archived };
 
     /// <summary>A run stopped before building: usage, settings, theme, template or option errors.</summary>
     public BuildLogEntry RunEntry(string stage, IReadOnlyList<string> messages) =>

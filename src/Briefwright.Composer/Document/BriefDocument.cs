@@ -20,6 +20,9 @@ public sealed record DocumentInfo(
 {
     /// <summary>A PNG logo drawn at the top right of the first page, with its pixel size.</summary>
     public (byte[] Png, int Width, int Height)? Logo { get; init; }
+
+    /// <summary>A marker such as "DRAFT" drawn at the top of every page (as page furniture, not content); null for none.</summary>
+    public string? Marker { get; init; }
 }
 
 public sealed record BriefDocument(DocumentInfo Info, IReadOnlyList<Block> Blocks, PaperSize Paper = PaperSize.A4)

@@ -42,7 +42,7 @@ public static class BalancedGrowth
         var baseDemography = inputs.DemographyFor(inputs.Baseline);
         var optimum = OptimumSearch.Find(baseDemography, inputs.HumanCapital, yHat, gridPoints);
         return new BalancedGrowthResults(new SteadyState(yHat, kHat, EffectiveDepreciation(d, p)), options, optimum,
-            Curve(new LifeCycle(baseDemography, inputs.HumanCapital), yHat, CurvePoints));
+            Curve(new LifeCycle(baseDemography, inputs.HumanCapital), yHat, CurvePoints)) { Levers = Core.Levers.Decompose(inputs) };
     }
 
     public const int CurvePoints = 121;

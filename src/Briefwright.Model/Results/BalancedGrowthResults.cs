@@ -48,4 +48,8 @@ public sealed record BalancedGrowthResults(
     SteadyState SteadyState,
     IReadOnlyList<OptionResult> Options,
     OptimumResult Optimum,
-    IReadOnlyList<CurvePoint> SchoolingCurve);
+    IReadOnlyList<CurvePoint> SchoolingCurve)
+{
+    /// <summary>Every alternative's change split by lever (schooling, retirement age, participation), independent of order.</summary>
+    public IReadOnlyList<Core.LeverDecomposition> Levers { get; init; } = [];
+}

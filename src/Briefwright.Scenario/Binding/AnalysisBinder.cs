@@ -44,6 +44,9 @@ public sealed class AnalysisBinder(BindContext ctx)
     /// <summary>Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a model rule.</summary>
     public const int PilotDraws = 500;
 
+    /// <summary>In-sentence names of the appraisal rules, by schedule id (filled by <see cref="Bind"/>).</summary>
+    public Dictionary<string, string> RuleNames { get; } = new(StringComparer.Ordinal);
+
     private static string Names => string.Join(", ", Parameters.All.Select(p => p.Name));
 
     public AnalysisSettings? Bind(YMapping top, ModelInputs inputs, BriefInfo brief)
@@ -57,12 +60,16 @@ public sealed class AnalysisBinder(BindContext ctx)
         if (reform is not null && monteCarlo is not null) CheckWork(top, reform, monteCarlo);
         if (ctx.Problems.Count > before || reform is null || discounts is null || valuation is null) return null;
         reform = reform with { ValuationYear = valuation };
+        foreach (var d in discounts) RuleNames.TryAdd(d.Id, InSentence.ForRule(d));
         return new AnalysisSettings(reform, headline, discounts, ranges, grids, monteCarlo);
     }
 
     private ReformSettings? BindReform(YMapping top, ModelInputs inputs, BriefInfo brief, out string headline)
     {
-        headline = inputs.Options.First(o => o.Id != inputs.BaselineId).Id;
+        // The headline option: the one the scenario names, else the first that differs from the baseline.
+        var b = inputs.Baseline;
+        var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
+        headline = (alternatives.FirstOrDefault(o => inputs.DemographyFor(o) != inputs.DemographyFor(b) || o.SchoolingYears != b.SchoolingYears) ?? alternatives[0]).Id;
         var m = ctx.Mapping(top, "reform", "", required: false);
         int defaultYear = brief.Date.Year + 1;
         if ((m is null || m["year"] is null) && !YearBounds.Contains(defaultYear))
@@ -152,9 +159,10 @@ public sealed class AnalysisBinder(BindContext ctx)
 
     private DiscountSchedule? BindSchedule(YMapping item, string ip)
     {
-        ctx.CheckKeys(item, ip, "id", "label", "rate", "schedule", "source");
+        ctx.CheckKeys(item, ip, "id", "label", "in_sentence", "rate", "schedule", "source");
         string? id = ctx.Text(item, "id", ip, required: true);
         string? label = ctx.Text(item, "label", ip, required: true, maxLength: 120);
+        if (id is not null && ctx.Text(item, "in_sentence", ip, required: false, maxLength: 120) is { } name) RuleNames[id] = name;
         if (item["rate"] is not null)
         {
             double? rate = ctx.Number(item, "rate", ip, ValueUnit.Rate, Bounds.Closed(-0.05, 0.5));

@@ -26,13 +26,17 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         var demography = BindDemography(top);
         var humanCapital = BindHumanCapital(top);
         var production = BindProduction(top);
-        var options = BindOptions(top, out string? baselineId);
+        var options = BindOptions(top, out string? baselineId, out var optionNames);
         if (brief is null || demography is null || humanCapital is null || production is null || options is null || baselineId is null || ctx.Problems.Count > 0)
             return null;
         var inputs = new ModelInputs(demography, humanCapital, production, options, baselineId);
         CrossFieldRules.Check(top, inputs, ctx);
-        var analysis = new AnalysisBinder(ctx).Bind(top, inputs, brief);
-        return ctx.Problems.Count > 0 || analysis is null ? null : new ScenarioDocument(brief, inputs, ctx.Assumptions, files) { Analysis = analysis };
+        var analysisBinder = new AnalysisBinder(ctx);
+        var analysis = analysisBinder.Bind(top, inputs, brief);
+        return ctx.Problems.Count > 0 || analysis is null ? null : new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
+        {
+            Analysis = analysis, OptionNames = optionNames!, RuleNames = analysisBinder.RuleNames,
+        };
     }
 
     private BriefInfo? BindBrief(YMapping top)
@@ -246,9 +250,10 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         return new Production(s.Value, alpha.Value, delta.Value, g.Value);
     }
 
-    private IReadOnlyList<PolicyOption>? BindOptions(YMapping top, out string? baselineId)
+    private IReadOnlyList<PolicyOption>? BindOptions(YMapping top, out string? baselineId, out Dictionary<string, string>? names)
     {
         baselineId = null;
+        names = null;
         var list = ctx.Sequence(top, "options", "", required: true);
         if (list is null) return null;
         if (list.Items.Count < 2)
@@ -257,6 +262,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             return null;
         }
         var options = new List<PolicyOption>();
+        var optionNames = new Dictionary<string, string>(StringComparer.Ordinal);
         var ids = new Dictionary<string, int>(StringComparer.Ordinal);
         var baselines = new List<string>();
         bool ok = true;
@@ -269,7 +275,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
                 ok = false;
                 continue;
             }
-            ctx.CheckKeys(item, ip, "id", "label", "schooling_years", "retirement_age", "participation", "baseline", "source", "note");
+            ctx.CheckKeys(item, ip, "id", "label", "in_sentence", "schooling_years", "retirement_age", "participation", "baseline", "source", "note");
             string? id = ctx.Text(item, "id", ip, required: true);
             if (id is not null && !IdPattern().IsMatch(id))
             {
@@ -283,6 +289,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             }
             if (id is not null) ids[id] = i;
             string? label = ctx.Text(item, "label", ip, required: true, maxLength: 120);
+            string? inSentence = ctx.Text(item, "in_sentence", ip, required: false, maxLength: 120);
             double? years = ctx.Number(item, "schooling_years", ip, ValueUnit.Years, Bounds.Closed(0, 40));
             double? retire = item["retirement_age"] is null ? null : ctx.Number(item, "retirement_age", ip, ValueUnit.Age, Bounds.OpenClosed(0, 150));
             double? part = item["participation"] is null ? null : ctx.Number(item, "participation", ip, ValueUnit.Rate, Bounds.OpenClosed(0, 1));
@@ -294,6 +301,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             }
             if (isBaseline) baselines.Add(id);
             options.Add(new PolicyOption(id, label, years.Value, retire, part));
+            optionNames[id] = inSentence ?? InSentence.FromLabel(label);
             ctx.Add(new Assumption(ip + ".schooling_years", $"Schooling: {label}", years.Value, null, ValueUnit.Years,
                 ctx.Text(item, "source", ip, false), ctx.Text(item, "note", ip, false, 1000)));
         }
@@ -304,6 +312,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         }
         if (!ok) return null;
         baselineId = baselines.Count == 1 ? baselines[0] : options[0].Id;
+        names = optionNames;
         return options;
     }
 }

@@ -1,0 +1,42 @@
+using System.Globalization;
+using Briefwright.Model.Dynamics;
+using Briefwright.Model.Uncertainty;
+using ScottPlot;
+
+namespace Briefwright.Charts;
+
+/// <summary>
+/// Page 1's chart: the headline option's output per person against no reform, year by year, with the 5–95% band of
+/// the Monte Carlo draws when there are any. One line and one band, so that it reads at a glance.
+/// </summary>
+public static class HeadlinePathChart
+{
+    /// <summary>Years shown: the first 80 after the reform, or the whole horizon if shorter.</summary>
+    public const int Years = 80;
+
+    public static Plot Build(AppraisalResults reform, string headlineId, string label, MonteCarloResults? mc)
+    {
+        var plot = new Plot();
+        ChartRenderer.Style(plot, "Year", "Change in output per person vs no reform (%)");
+        int n = Math.Min(Years, reform.HorizonYears) + 1;
+        double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
+        if (mc is not null)
+        {
+            var band = plot.Add.FillY(xs, mc.HeadlineFan.Take(n).Select(p => 100 * p.P5).ToArray(), mc.HeadlineFan.Take(n).Select(p => 100 * p.P95).ToArray());
+            band.FillColor = Palette.Primary.WithAlpha(0.16);
+            band.LineWidth = 0;
+            band.LegendText = "90% of model runs with uncertain assumptions";
+        }
+        var zero = plot.Add.HorizontalLine(0, 1, Palette.Ink);
+        zero.LinePattern = LinePattern.Solid;
+        var path = reform.Options.First(o => o.OptionId == headlineId).Path;
+        var line = plot.Add.ScatterLine(xs, path.Gain.Take(n).Select(g => 100 * g).ToArray());
+        line.Color = Palette.Primary;
+        line.LineWidth = 2.2f;
+        line.LegendText = label;
+        plot.Axes.SetLimitsX(xs[0], xs[^1]);
+        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = v => v.ToString("0", CultureInfo.InvariantCulture) };
+        ChartRenderer.LegendBelow(plot);
+        return plot;
+    }
+}

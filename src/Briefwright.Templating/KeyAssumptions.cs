@@ -1,0 +1,54 @@
+using Briefwright.Model.Uncertainty;
+using Briefwright.Scenario;
+using static Briefwright.Templating.TemplateFunctions;
+
+namespace Briefwright.Templating;
+
+/// <summary>The short assumptions table for the body: the assumptions that move the headline most, ranked by the tornado.</summary>
+public static class KeyAssumptions
+{
+    public const int MaxRows = 8;
+
+    private static readonly Dictionary<string, string> Paths = new()
+    {
+        ["population_growth"] = "demography.population_growth", ["school_entry_age"] = "demography.school_entry_age",
+        ["retirement_age"] = "demography.retirement_age", ["participation"] = "demography.participation",
+        ["saving_rate"] = "production.saving_rate", ["capital_share"] = "production.capital_share",
+        ["depreciation"] = "production.depreciation", ["technology_growth"] = "production.technology_growth",
+        ["return_scale"] = "human_capital.returns",
+    };
+
+    /// <summary>Shown when the scenario gives no sensitivity ranges: the assumptions the model's answer rests on, unranked.</summary>
+    private static readonly string[] Core = { "human_capital.returns", "demography.population_growth", "demography.retirement_age", "demography.participation", "production.saving_rate", "production.capital_share" };
+
+    private static Assumption? Find(ScenarioDocument s, string path) =>
+        s.Assumptions.FirstOrDefault(a => a.Path == path) ?? s.Assumptions.FirstOrDefault(a => a.Path.StartsWith(path + ".", StringComparison.Ordinal));
+
+    public static string Table(ScenarioDocument s, AnalysisResults a)
+    {
+        string headline = s.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
+        if (a.Tornado.Count > 0)
+        {
+            int k = a.Tornado[0].AtLow.OptionIds.ToList().IndexOf(a.HeadlineOptionId);
+            var rows = a.Tornado.Take(MaxRows).Select(t =>
+            {
+                var def = Parameters.Find(t.Parameter)!;
+                var row = Find(s, Paths.GetValueOrDefault(t.Parameter, ""));
+                string value = t.Parameter == "return_scale" ? "×1 (returns as in the annex)" : row is null ? (def.IsRate ? Pct(def.Get(s.Inputs)) : Sig(def.Get(s.Inputs), 3)) : row.Text ?? BriefModelBuilder.FormatValue(row);
+                string range = t.Parameter == "return_scale" ? $"×{Sig(t.Low, 3)} to ×{Sig(t.High, 3)}" : def.IsRate ? $"{Pct(t.Low)} to {Pct(t.High)}" : $"{Sig(t.Low, 3)} to {Sig(t.High, 3)}";
+                return (IReadOnlyList<string>)new[]
+                {
+                    t.Label, value, range, $"{Change(t.AtLow.LongRunChangePct[k])} to {Change(t.AtHigh.LongRunChangePct[k])}",
+                };
+            });
+            return Md.Table($"The assumptions that move the result most, ranked by how far each moves the long-run change for {headline}", $"scenario {s.Brief.Id}; every assumption with its source is in the annex",
+                new[] { "Assumption", "Value", "Range tested", $"Long-run change across that range" }, rows, new HashSet<int> { 1, 2, 3 });
+        }
+        var core = Core.Select(p => Find(s, p)).Where(r => r is not null).Select(r => (IReadOnlyList<string>)new[]
+        {
+            r!.Label, r.Text ?? BriefModelBuilder.FormatValue(r), BriefModelBuilder.SourceText(r),
+        });
+        return Md.Table("The assumptions the result rests on (no sensitivity ranges were given, so they are not ranked)", $"scenario {s.Brief.Id}; every assumption with its source is in the annex",
+            new[] { "Assumption", "Value", "Source" }, core, new HashSet<int> { 1 });
+    }
+}
