@@ -47,6 +47,8 @@ public class ArchitectureTests
             // JSON names on result records: the results writer should own them (issue 16, point 4 moves them out).
             ["Briefwright.Model.Results.OptimumResult"] = "[JsonPropertyName(\"within_1pct\")] on a result field",
             ["Briefwright.Model.Uncertainty.MonteCarloResults"] = "[JsonIgnore] on the raw headline sample",
+            ["Briefwright.Model.Dynamics.ReformPath"] = "[JsonPropertyName] on the dip and first-positive years",
+            ["Briefwright.Model.Dynamics.PresentValue"] = "[JsonPropertyName] on the break-even year, [JsonIgnore]",
         };
         Assert.Empty(Offenders("Briefwright.Model",
             ["SkiaSharp", "ScottPlot", "PdfSharp", "YamlDotNet", "System.Text.Json"], allowed));
