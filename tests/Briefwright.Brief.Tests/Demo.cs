@@ -5,7 +5,7 @@ namespace Briefwright.Brief.Tests;
 /// <summary>Loads the invented demo scenarios from the repository and builds each brief once per test run.</summary>
 internal static class Demo
 {
-    public static string Root { get; } = FindRoot();
+    public static string Root => RepositoryRoot.Path;
 
     private static readonly Dictionary<string, BuiltBrief> Built = new();
     private static readonly object Gate = new();
@@ -25,13 +25,6 @@ internal static class Demo
                 Built[name] = brief = BriefBuilder.Build(Load(name), StandardTemplate.Template);
             return brief;
         }
-    }
-
-    private static string FindRoot()
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "ReportBuilder.sln"))) dir = dir.Parent;
-        return dir?.FullName ?? throw new InvalidOperationException("Repository root not found.");
     }
 
     internal sealed class DiskReader : ISourceReader

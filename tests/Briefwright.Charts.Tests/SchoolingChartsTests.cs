@@ -16,9 +16,7 @@ public class SchoolingChartsTests
 
     static SchoolingChartsTests()
     {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (!File.Exists(Path.Combine(dir!.FullName, "ReportBuilder.sln"))) dir = dir.Parent;
-        string fonts = Path.Combine(dir.FullName, "fonts");
+        string fonts = Path.Combine(RepositoryRoot.Path, "fonts");
         ChartFont.Install(File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Regular.ttf")), File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Bold.ttf")));
     }
 

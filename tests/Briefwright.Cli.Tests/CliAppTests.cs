@@ -14,12 +14,7 @@ public class CliAppTests
 
     internal static string Demo(string file = "") => Path.Combine(RepoRoot(), "briefs-demo", file);
 
-    internal static string RepoRoot()
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "ReportBuilder.sln"))) dir = dir.Parent;
-        return dir?.FullName ?? throw new InvalidOperationException("Repository root not found.");
-    }
+    internal static string RepoRoot() => RepositoryRoot.Path;
 
     public class Check
     {

@@ -10,7 +10,7 @@ namespace Briefwright.Scenario.Tests;
 /// </summary>
 public class FuzzTests
 {
-    private static readonly string Root = FindRoot();
+    private static readonly string Root = RepositoryRoot.Path;
     private static readonly Dictionary<string, string> Demo = new()
     {
         ["national.yaml"] = File.ReadAllText(Path.Combine(Root, "briefs-demo", "auroria-national.yaml")),
@@ -30,13 +30,6 @@ public class FuzzTests
         "extends: ../secret.yaml\n", "extends: /etc/passwd\n", "extends: /proc/self/environ\n", "file: ../secret.csv\n", "file: /dev/zero.csv\n",
         "../", "/", "!!str ", "!custom ", "!!binary ",
     };
-
-    private static string FindRoot()
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (!File.Exists(Path.Combine(dir!.FullName, "ReportBuilder.sln"))) dir = dir.Parent;
-        return dir.FullName;
-    }
 
     private static string Mutate(string text, int op, int position, int token, int other)
     {

@@ -10,14 +10,7 @@ namespace Briefwright.Scenario.Tests;
 /// </summary>
 public class ThemeAssetsTests
 {
-    private static readonly string Root = FindRoot();
-
-    private static string FindRoot()
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (!File.Exists(Path.Combine(dir!.FullName, "ReportBuilder.sln"))) dir = dir.Parent;
-        return dir.FullName;
-    }
+    private static readonly string Root = RepositoryRoot.Path;
 
     private static byte[] Chunk(string type, byte[] data)
     {

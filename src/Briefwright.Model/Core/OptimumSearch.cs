@@ -128,17 +128,8 @@ public static class OptimumSearch
 
     private static (double E, int Iterations, bool Converged, string How) GoldenSection(LifeCycle cycle, double lo, double hi)
     {
-        double phi = (Math.Sqrt(5) - 1) / 2;
-        double x1 = hi - phi * (hi - lo), x2 = lo + phi * (hi - lo);
-        double f1 = cycle.Objective(x1), f2 = cycle.Objective(x2);
-        int it = 0;
-        while (hi - lo > 1e-8 && it < 200)
-        {
-            if (f1 < f2) { lo = x1; x1 = x2; f1 = f2; x2 = lo + phi * (hi - lo); f2 = cycle.Objective(x2); }
-            else { hi = x2; x2 = x1; f2 = f1; x1 = hi - phi * (hi - lo); f1 = cycle.Objective(x1); }
-            it++;
-        }
-        return (0.5 * (lo + hi), it, hi - lo <= 1e-8, "golden section");
+        var (a, b, it) = Numerics.GoldenSection.Maximise(cycle.Objective, lo, hi, 1e-8);
+        return (0.5 * (a + b), it, b - a <= 1e-8, "golden section");
     }
 
     /// <summary>[low, high]: the connected range around E* where h·ω stays at or above the threshold.</summary>

@@ -1,4 +1,5 @@
 using Briefwright.Model.Inputs;
+using Briefwright.Model.Numerics;
 
 namespace Briefwright.Model.Dynamics;
 
@@ -114,13 +115,7 @@ public static class Appraisal
         if (bestE > lo0)
         {
             double lo = Math.Max(lo0, bestE - 0.5), hi = Math.Min(maxE, bestE + 0.5);
-            double phi = (Math.Sqrt(5) - 1) / 2;
-            double x1 = hi - phi * (hi - lo), x2 = lo + phi * (hi - lo), f1 = f(x1), f2 = f(x2);
-            while (hi - lo > 0.01)
-            {
-                if (f1 < f2) { lo = x1; x1 = x2; f1 = f2; x2 = lo + phi * (hi - lo); f2 = f(x2); }
-                else { hi = x2; x2 = x1; f2 = f1; x1 = hi - phi * (hi - lo); f1 = f(x1); }
-            }
+            (lo, hi, _) = GoldenSection.Maximise(f, lo, hi, 0.01);
             double e = 0.5 * (lo + hi), v = f(e);
             if (v > bestPv) { bestE = e; bestPv = v; }
         }

@@ -1,0 +1,159 @@
+using System.Reflection;
+using System.Text.RegularExpressions;
+using NetArchTest.Rules;
+
+namespace Briefwright.Cli.Tests;
+
+/// <summary>
+/// Rules of the project's structure (DEVELOPERS.md): the model is pure numbers (no files, clocks, JSON, drawing,
+/// PDF or YAML), drawing libraries stay in Charts, the PDF library stays in Composer, and only the command line
+/// touches files. Compiled-code rules use NetArchTest over every assembly built from src/; clock and file rules are
+/// also checked on the source text, since a call such as DateTime.Now is not a type dependency.
+/// Each allow-list below names what exists today and why; new entries need the same justification.
+/// </summary>
+public class ArchitectureTests
+{
+    private static readonly string Src = Path.Combine(RepositoryRoot.Path, "src");
+    private static readonly Dictionary<string, string> None = new();
+
+    /// <summary>Every project under src/ (one assembly each, all referenced by the command line).</summary>
+    private static readonly string[] Projects = Directory.GetDirectories(Src)
+        .Select(d => Path.GetFileName(d)!)
+        .Where(n => n.StartsWith("Briefwright.", StringComparison.Ordinal))
+        .Order(StringComparer.Ordinal)
+        .ToArray();
+
+    [Fact]
+    public void Every_project_under_src_is_covered()
+    {
+        Assert.Equal(
+            ["Briefwright.Brief", "Briefwright.Charts", "Briefwright.Cli", "Briefwright.Composer", "Briefwright.Model",
+             "Briefwright.Scenario", "Briefwright.Templating"],
+            Projects);
+        foreach (var p in Projects) Assert.NotNull(Load(p));
+    }
+
+    [Fact]
+    public void Model_depends_on_nothing_in_System_IO()
+    {
+        Assert.Empty(Offenders("Briefwright.Model", ["System.IO"], allowed: None));
+    }
+
+    [Fact]
+    public void Model_depends_on_no_drawing_pdf_yaml_or_json_library()
+    {
+        var allowed = new Dictionary<string, string>
+        {
+            // JSON names on result records: the results writer should own them (issue 16, point 4 moves them out).
+            ["Briefwright.Model.Results.OptimumResult"] = "[JsonPropertyName(\"within_1pct\")] on a result field",
+            ["Briefwright.Model.Uncertainty.MonteCarloResults"] = "[JsonIgnore] on the raw headline sample",
+            ["Briefwright.Model.Dynamics.ReformPath"] = "[JsonPropertyName] on the dip and first-positive years",
+            ["Briefwright.Model.Dynamics.PresentValue"] = "[JsonPropertyName] on the break-even year, [JsonIgnore]",
+        };
+        Assert.Empty(Offenders("Briefwright.Model",
+            ["SkiaSharp", "ScottPlot", "PdfSharp", "YamlDotNet", "System.Text.Json"], allowed));
+    }
+
+    [Fact]
+    public void Model_source_reads_no_clock_and_no_unseeded_randomness()
+    {
+        var clock = new Regex(
+            @"\bDateTime(Offset)?\.(Now|UtcNow|Today)\b|\bStopwatch\b|\bRandom\.Shared\b|\bnew\s+Random\s*\(" +
+            @"|\bEnvironment\.TickCount|\bTimeProvider\.System\b");
+        Assert.Empty(SourceMatches(clock, f => f.StartsWith("src/Briefwright.Model/", StringComparison.Ordinal),
+            allowed: None));
+    }
+
+    [Fact]
+    public void Skia_and_ScottPlot_are_used_only_in_Charts()
+    {
+        var allowed = new Dictionary<string, string>
+        {
+            // Start-up warm-up draws a throw-away plot to load ScottPlot early; issue 16 (point 2/3) moves the speed
+            // scheduling into the command line and the chart library.
+            ["Briefwright.Brief.WarmUp"] = "throw-away plot that pays ScottPlot's start-up on a spare core",
+        };
+        var offenders = Projects.Where(p => p != "Briefwright.Charts")
+            .SelectMany(p => Offenders(p, ["SkiaSharp", "ScottPlot"], allowed));
+        Assert.Empty(offenders);
+    }
+
+    [Fact]
+    public void PdfSharp_is_used_only_in_Composer()
+    {
+        var offenders = Projects.Where(p => p != "Briefwright.Composer")
+            .SelectMany(p => Offenders(p, ["PdfSharp"], allowed: None));
+        Assert.Empty(offenders);
+    }
+
+    private static readonly Dictionary<string, string> FileAccessAllowed = new()
+    {
+        // Reads the process's working folder (no file is opened) to print scenario paths relative to it.
+        ["Briefwright.Scenario.ScenarioLoader"] = "Directory.GetCurrentDirectory to make `extends` paths relative",
+    };
+
+    [Fact]
+    public void Only_the_command_line_uses_file_types()
+    {
+        string[] fileTypes =
+            ["System.IO.File", "System.IO.Directory", "System.IO.FileStream", "System.IO.FileInfo",
+             "System.IO.DirectoryInfo", "System.IO.FileSystemInfo", "System.IO.FileSystemWatcher"];
+        var offenders = Projects.Where(p => p != "Briefwright.Cli")
+            .SelectMany(p => Offenders(p, fileTypes, FileAccessAllowed));
+        Assert.Empty(offenders);
+    }
+
+    [Fact]
+    public void Only_the_command_line_source_touches_files()
+    {
+        var allowed = new Dictionary<string, string>
+        {
+            // Same entry as FileAccessAllowed: reads the working folder's name only, to print relative paths.
+            ["src/Briefwright.Scenario/ScenarioLoader.cs: Directory.GetCurrentDirectory"] =
+                "makes `extends` paths relative to the working folder; opens no file",
+        };
+        var files = new Regex(@"\b(File|Directory)\.[A-Z]\w*|\b(FileStream|FileInfo|DirectoryInfo)\b");
+        Assert.Empty(SourceMatches(files,
+            f => !f.StartsWith("src/Briefwright.Cli/", StringComparison.Ordinal), allowed));
+    }
+
+    /// <summary>The assembly built from a project under src/ (the command line's is named after the program).</summary>
+    private static Assembly Load(string project) =>
+        project == "Briefwright.Cli" ? typeof(Batch.BatchBuilder).Assembly : Assembly.Load(project);
+
+    /// <summary>Types of <paramref name="assembly"/> that depend on any of <paramref name="forbidden"/> (namespaces or
+    /// types), minus the allowed ones (compiler-generated nested types count as their declaring type).</summary>
+    private static IEnumerable<string> Offenders(string assembly, string[] forbidden,
+        IReadOnlyDictionary<string, string> allowed)
+    {
+        var result = Types.InAssembly(Load(assembly)).Should().NotHaveDependencyOnAny(forbidden).GetResult();
+        if (result.IsSuccessful) return [];
+        return result.FailingTypes
+            .Select(t => t.FullName)
+            .Where(n => !allowed.Keys.Any(a => n == a || n.StartsWith(a + "/", StringComparison.Ordinal)
+                                               || n.StartsWith(a + "+", StringComparison.Ordinal)))
+            .Select(n => $"{assembly}: {n} depends on one of {string.Join(", ", forbidden)}")
+            .ToList();
+    }
+
+    /// <summary>"file:line: match" for every match in the C# sources under src/ (comment lines skipped) whose
+    /// repository-relative path passes <paramref name="include"/>, minus "file: match" entries allowed.</summary>
+    private static List<string> SourceMatches(Regex pattern, Func<string, bool> include,
+        IReadOnlyDictionary<string, string> allowed)
+    {
+        var hits = new List<string>();
+        foreach (var path in Directory.EnumerateFiles(Src, "*.cs", SearchOption.AllDirectories))
+        {
+            string rel = Path.GetRelativePath(RepositoryRoot.Path, path).Replace('\\', '/');
+            if (rel.Contains("/obj/") || rel.Contains("/bin/") || !include(rel)) continue;
+            var lines = File.ReadAllLines(path);
+            for (int i = 0; i < lines.Length; i++)
+            {
+                if (lines[i].TrimStart().StartsWith("//", StringComparison.Ordinal)) continue;
+                foreach (Match m in pattern.Matches(lines[i]))
+                    if (!allowed.ContainsKey($"{rel}: {m.Value}")) hits.Add($"{rel}:{i + 1}: {m.Value}");
+            }
+        }
+        return hits;
+    }
+}
