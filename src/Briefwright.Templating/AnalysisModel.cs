@@ -96,8 +96,8 @@ internal static class AnalysisModel
             ("direction", Wording.DirectionWord(h.LongRunChangePct)), ("effect", Wording.Effect(h.LongRunChangePct)),
             ("lead", lead), ("split", split), ("range", Wording.Range(h)), ("arrival", Wording.Arrival(h, y0)), ("payback", Wording.Payback(h, rule, y0)),
             ("has_range", h.RangeLowPct is not null), ("range_low", h.RangeLowPct), ("range_high", h.RangeHighPct), ("prob_gain", h.ProbabilityGain),
-            ("dip_pct", h.DeepestDipPct), ("dip_year", h.DipYear), ("first_year_above", h.FirstYearAbove), ("first_year_below", h.FirstYearBelow),
-            ("break_even_year", h.BreakEvenYear), ("pays_back", h.BreakEvenYear is not null), ("rule", rule), ("horizon_end_year", h.HorizonEndYear),
+            ("dip_pct", h.DeepestDipPct), ("dip_year", h.DipCalendarYear), ("first_year_above", h.FirstYearAbove), ("first_year_below", h.FirstYearBelow),
+            ("break_even_year", h.BreakEvenCalendarYear), ("pays_back", h.BreakEvenCalendarYear is not null), ("rule", rule), ("horizon_end_year", h.HorizonEndYear),
             ("present_value", h.PresentValue), ("is_combined", decomposition?.IsCombined ?? false), ("others", new ScriptArray(others)));
     }
 

@@ -85,10 +85,10 @@ public static class Wording
     public static string Arrival(HeadlineFacts h, int reformYear)
     {
         string end = h.HorizonEndYear.ToString();
-        bool dipFirst = h.DeepestDipPct is not null && (h.PeakYear is null || h.DipYear < h.PeakYear);
+        bool dipFirst = h.DeepestDipPct is not null && (h.PeakYear is null || h.DipCalendarYear < h.PeakYear);
         if (dipFirst)
         {
-            string first = $"Output per person first falls below the path without the reform, {UpTo(h.DeepestDipPct!.Value)} in {h.DipYear}";
+            string first = $"Output per person first falls below the path without the reform, {UpTo(h.DeepestDipPct!.Value)} in {h.DipCalendarYear}";
             if (h.FirstYearAbove is { } above) return $"{first}, and is above it from {above}.";
             return h.FirstYearBelow is not null ? $"{first}, and is still below it in {end}." : $"{first}.";
         }
@@ -108,7 +108,7 @@ public static class Wording
     {
         string end = h.HorizonEndYear.ToString();
         bool lossesFirst = h.DeepestDipPct is not null;
-        if (h.BreakEvenYear is { } be)
+        if (h.BreakEvenCalendarYear is { } be)
         {
             if (lossesFirst && be > reformYear)
                 return $"Discounted at {rule}, the later gains make up for the early losses in {be}: the reform pays back then.";

@@ -23,13 +23,13 @@ public sealed record HeadlineFacts(
     double? RangeHighPct,
     double? ProbabilityGain,
     double? DeepestDipPct,
-    int? DipYear,
+    int? DipCalendarYear,
     double? PeakGainPct,
     int? PeakYear,
     int? FirstYearAbove,
     int? FirstYearBelow,
     string ScheduleId,
-    int? BreakEvenYear,
+    int? BreakEvenCalendarYear,
     double PresentValue,
     int HorizonEndYear)
 {
