@@ -40,6 +40,14 @@ public class StressScenarioTests
         return (built.Item1, built.Item2, JsonDocument.Parse(built.Item1.ResultsJson).RootElement.Clone(), pages);
     }
 
+    [Theory]
+    [MemberData(nameof(Scenarios))]
+    public void Every_stress_brief_passes_the_PDF_UA_machine_checks(string name)
+    {
+        var findings = PdfUa.PdfUaChecker.Check(Build(name).Brief.Pdf);
+        Assert.True(findings.Count == 0, string.Join("\n", findings));
+    }
+
     [Fact]
     public void There_is_a_stress_scenario_for_every_branch_the_issue_names() =>
         Assert.True(Directory.GetFiles(Path.Combine(Demo.Root, "tests", "stress"), "*.yaml").Length >= 12);
