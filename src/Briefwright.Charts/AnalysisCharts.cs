@@ -8,6 +8,17 @@ namespace Briefwright.Charts;
 /// <summary>Charts of the reform over time, sensitivity and uncertainty.</summary>
 public static class AnalysisCharts
 {
+    /// <summary>A shaded band of the headline path between two percentiles of the draws (in percent), in the first
+    /// <paramref name="n"/> years.</summary>
+    internal static void FanBand(Plot plot, double[] xs, IReadOnlyList<Percentiles> fan, int n, Func<Percentiles, double> low,
+        Func<Percentiles, double> high, double alpha, string legend)
+    {
+        var band = plot.Add.FillY(xs, fan.Take(n).Select(p => 100 * low(p)).ToArray(), fan.Take(n).Select(p => 100 * high(p)).ToArray());
+        band.FillColor = Palette.Primary.WithAlpha(alpha);
+        band.LineWidth = 0;
+        band.LegendText = legend;
+    }
+
     private static string F(double v, string f = "0.0") => v.ToString(f, CultureInfo.InvariantCulture);
 
     /// <summary>Output per person relative to no reform, by calendar year, one line per option; the headline option's
@@ -20,14 +31,8 @@ public static class AnalysisCharts
         double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
         if (mc is not null)
         {
-            var outer = plot.Add.FillY(xs, mc.HeadlineFan.Take(n).Select(p => 100 * p.P5).ToArray(), mc.HeadlineFan.Take(n).Select(p => 100 * p.P95).ToArray());
-            outer.FillColor = Palette.Primary.WithAlpha(0.12);
-            outer.LineWidth = 0;
-            outer.LegendText = $"{labels[headlineId]}: 5–95% of draws";
-            var inner = plot.Add.FillY(xs, mc.HeadlineFan.Take(n).Select(p => 100 * p.P25).ToArray(), mc.HeadlineFan.Take(n).Select(p => 100 * p.P75).ToArray());
-            inner.FillColor = Palette.Primary.WithAlpha(0.22);
-            inner.LineWidth = 0;
-            inner.LegendText = "25–75% of draws";
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.12, $"{labels[headlineId]}: 5–95% of draws");
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.22, "25–75% of draws");
         }
         var zero = plot.Add.HorizontalLine(0, 1, Palette.Ink);
         zero.LinePattern = LinePattern.Solid;

@@ -21,12 +21,7 @@ public static class HeadlinePathChart
         int n = Math.Min(Years, reform.HorizonYears) + 1;
         double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
         if (mc is not null)
-        {
-            var band = plot.Add.FillY(xs, mc.HeadlineFan.Take(n).Select(p => 100 * p.P5).ToArray(), mc.HeadlineFan.Take(n).Select(p => 100 * p.P95).ToArray());
-            band.FillColor = Palette.Primary.WithAlpha(0.16);
-            band.LineWidth = 0;
-            band.LegendText = "90% of model runs with uncertain assumptions";
-        }
+            AnalysisCharts.FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, "90% of model runs with uncertain assumptions");
         var zero = plot.Add.HorizontalLine(0, 1, Palette.Ink);
         zero.LinePattern = LinePattern.Solid;
         var path = reform.Options.First(o => o.OptionId == headlineId).Path;
