@@ -38,7 +38,7 @@ public static class CliApp
         {
             io.Err.WriteLine(usage.Message);
             io.Err.WriteLine(usage.Hint);
-            if (usage.Command == "build") BuildCommand.LogUsageError(args, usage.Message, io);
+            if (usage.Command == "build" && !args.Contains("--plan")) BuildCommand.LogUsageError(args, usage.Message, io); // a plan writes nothing
             return ExitCodes.InvalidInput;
         }
         var config = new InvocationConfiguration { Output = io.Out, Error = io.Err };

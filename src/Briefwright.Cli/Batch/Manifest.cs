@@ -89,4 +89,5 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
 [System.Text.Json.Serialization.JsonSerializable(typeof(BuildLogEntry))]
 [System.Text.Json.Serialization.JsonSerializable(typeof(Journal))]
 [System.Text.Json.Serialization.JsonSerializable(typeof(LockInfo))]
+[System.Text.Json.Serialization.JsonSerializable(typeof(IReadOnlyList<PlannedBrief>))]
 internal sealed partial class BatchJsonContext : System.Text.Json.Serialization.JsonSerializerContext;
