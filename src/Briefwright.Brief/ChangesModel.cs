@@ -57,7 +57,7 @@ public static class ChangesModel
                 case "template":
                     words.Add("a change of the template (the brief's wording and layout)");
                     break;
-                case "content" or "scenario" when changes.Assumptions.Count == 0:
+                case "content" when changes.Assumptions.Count == 0:
                     words.Add("a change of the scenario's other content (such as its title, question, options' wording or notes)");
                     break;
                 case "brief.edition":

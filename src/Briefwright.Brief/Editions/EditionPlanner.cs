@@ -23,7 +23,8 @@ public static class EditionInput
     /// <summary>What the scenario says apart from its date and edition number (a change starts a new edition).</summary>
     public const string Content = "content";
 
-    /// <summary>The scenario's files as text (comments and layout too; used as the content when a manifest has no <see cref="Content"/>).</summary>
+    /// <summary>The scenario's files as text (comments and layout too; used as the content when a manifest has no
+    /// <see cref="Content"/>). Listed as changed only when the content is not: a change of comments, layout, date or edition number.</summary>
     public const string ScenarioText = "scenario";
 
     /// <summary>The template (a change starts a new edition).</summary>
@@ -236,9 +237,12 @@ public static class EditionPlanner
             if (request.Inputs.GetValueOrDefault(key) == current.Inputs.GetValueOrDefault(key)) continue;
             switch (key)
             {
-                case EditionInput.Content or EditionInput.Template:
-                case EditionInput.ScenarioText when !content:
+                case EditionInput.Template:
                     d.Edition.Add(key);
+                    break;
+                case EditionInput.Content:
+                case EditionInput.ScenarioText when !content: // the text stands in for the content a manifest did not record
+                    if (!d.Edition.Contains(EditionInput.Content)) d.Edition.Add(EditionInput.Content);
                     break;
                 case EditionInput.Date:
                     d.Date = true;
@@ -252,6 +256,8 @@ public static class EditionPlanner
                     break;
             }
         }
+        // A content change says all the text change could (the text also holds the date and edition number).
+        if (d.Edition.Contains(EditionInput.Content)) d.Presentation.Remove(EditionInput.ScenarioText);
         var before = current.Outputs ?? new Dictionary<string, string>();
         foreach (var key in request.Outputs.Keys.Union(before.Keys).Order(StringComparer.Ordinal))
             if (request.Outputs.GetValueOrDefault(key) != before.GetValueOrDefault(key)) d.Outputs.Add(key);

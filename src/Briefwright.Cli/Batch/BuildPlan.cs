@@ -145,8 +145,7 @@ public static class BuildPlan
             "force" => "--force",
             "inputs" => "its inputs (recorded by an earlier release)",
             EditionInput.Content => "the scenario's content",
-            EditionInput.ScenarioText => state.Inputs?.ContainsKey(EditionInput.Content) == true && request.Inputs.ContainsKey(EditionInput.Content)
-                ? "the scenario file's text, not its content" : "the scenario",
+            EditionInput.ScenarioText => "the scenario file's text, not its content",
             EditionInput.Template => "the template",
             EditionInput.Date => $"the date ({Was(EditionInput.Date)} → {Now(EditionInput.Date)})",
             EditionInput.Tool => $"the tool version ({Was(EditionInput.Tool)} → {Now(EditionInput.Tool)})",
@@ -161,6 +160,8 @@ public static class BuildPlan
         string meaning = build.NewEdition ? $"a new edition {build.Edition} after edition {state.Edition?.ToString(CultureInfo.InvariantCulture) ?? "?"}"
             : build.Redated ? $"edition {build.Edition} re-dated (no change of content, template or results)"
             : build.ResultsDecide ? $"edition {build.Edition} rewritten; it becomes a new edition if the results move"
+            : build.Archive is null && build.Changed.All(c => c.StartsWith(EditionInput.OutputPrefix, StringComparison.Ordinal))
+                ? $"edition {build.Edition} kept; only which files are written changes (the PDF and results data stay the same bytes)"
             : $"edition {build.Edition} rewritten";
         return $"{changed}: {meaning}";
     }
