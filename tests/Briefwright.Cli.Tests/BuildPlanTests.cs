@@ -81,7 +81,7 @@ public class BuildPlanTests
         var m = Snapshot.AssertWhole(w.Out);
         var inputs = m.Inputs.ToDictionary();
         inputs["tool"] = "0.1.0";
-        File.WriteAllBytes(Manifest.PathFor(w.Out, m.Id), (m with { Inputs = inputs }).ToBytes());
+        File.WriteAllBytes(Manifest.PathFor(w.Out, m.Id), (m with { Inputs = inputs, Hash = "fingerprint-of-an-earlier-release" }).ToBytes());
 
         var plan = Json(PlanWritingNothing(w, "--no-chart-images", "--json").Out)[0];
         Assert.Equal("rewrite", plan.GetProperty("action").GetString());

@@ -140,7 +140,9 @@ public class EditionRuleTests
         var edition1 = Snapshot.Of(w.Out);
         string theme = Path.Combine(w.Dir, "auroria-institute.theme.yaml");
         File.Copy(CliAppTests.Demo("auroria-institute.theme.yaml"), theme);
-        Assert.Equal(0, w.Build("--theme", theme).Code);
+        File.Copy(CliAppTests.Demo("auroria-institute-logo.png"), Path.Combine(w.Dir, "auroria-institute-logo.png"), overwrite: true); // the workspace copies text only
+        var (code, _, err) = w.Build("--theme", theme);
+        Assert.True(code == 0, err);
         Assert.Equal((1, Stem1), (Current(w).Edition, Current(w).Stem));
         Assert.NotEqual(edition1[Stem1 + ".pdf"], Snapshot.Of(w.Out)[Stem1 + ".pdf"]);
         Assert.Equal(edition1, Snapshot.Of(Path.Combine(w.Out, "archive", Id, "edition-1")));
