@@ -256,6 +256,21 @@ public class EditionPlannerTests
         }
 
         [Fact]
+        public void An_output_switch_that_drops_or_changes_a_file_keeps_the_current_edition_whole_first()
+        {
+            var plan = Build(Ask(outputs: new() { ["chart_copies"] = "no" }));
+            var hashes = Files3.ToDictionary(f => f, f => "hash-of-" + f);
+            // Every current file comes back byte for byte (a file only added): no copy.
+            Assert.Null(EditionPlanner.KeepReplaced(plan, Current(), hashes, hashes.Append(new("b.fig-x.svg", "s")).ToDictionary()).Archive);
+            // One dropped, or one changed: the whole edition is kept first, verified.
+            Assert.Equal("edition-3", EditionPlanner.KeepReplaced(plan, Current(), hashes, hashes.Skip(1).ToDictionary()).Archive!.Folder);
+            var changed = hashes.ToDictionary(kv => kv.Key, kv => kv.Value + "-with-a-byte-order-mark");
+            Assert.False(EditionPlanner.KeepReplaced(plan, Current(), hashes, changed).Archive!.Recovered);
+            // No hashes recorded: nothing can be shown to come back.
+            Assert.NotNull(EditionPlanner.KeepReplaced(plan, Current(), null, hashes).Archive);
+        }
+
+        [Fact]
         public void A_new_tool_keeps_the_edition_unless_the_results_move()
         {
             var request = Ask(inputs: new() { ["tool"] = "0.3.0" });

@@ -126,11 +126,13 @@ public class EditionRuleTests
         Assert.Contains(with.Keys, k => k.EndsWith(".svg", StringComparison.Ordinal));
         foreach (var (name, hash) in plain.Where(kv => !kv.Key.EndsWith(".manifest.json", StringComparison.Ordinal)))
             Assert.Equal(hash, with[name]); // PDF, results, CSV, filled template: the same bytes
+        Assert.False(Directory.Exists(Path.Combine(w.Out, "archive"))); // files only added: nothing to keep
         Assert.Equal(0, w.Build().Code); // off again
         Assert.Equal(plain, Snapshot.Of(w.Out));
         Assert.Equal(1, Current(w).Edition);
-        Assert.False(Directory.Exists(Path.Combine(w.Out, "archive")));
         Assert.Null(ChangesSection(Md(w)));
+        // The chart copies dropped are not lost: edition 1 with them is kept whole.
+        Assert.Equal(with, Snapshot.Of(Path.Combine(w.Out, "archive", Id, "edition-1")));
     }
 
     [Fact]

@@ -135,12 +135,12 @@ public abstract record EditionPlan
 /// headline result changes, or when <c>brief.edition</c> asks for a higher number than the current one. A new date
 /// alone re-dates the current edition: same number, new file names, the previous dated files archived. A new theme,
 /// fonts, tool version or scenario layout re-issues the same edition (archived first); an output switch (chart copies,
-/// byte order mark, further formats) rewrites the same edition and archives nothing, as the files it drops or changes
-/// are made again by switching back. <c>brief.edition</c> below an edition already issued is refused, unless it is the
+/// byte order mark, further formats) rewrites the same edition, archived first only when it drops or changes a file
+/// (<see cref="KeepReplaced"/>). <c>brief.edition</c> below an edition already issued is refused, unless it is the
 /// value the current edition was built with (a request already met).</para>
 /// <para>The rule that matters for files: the current edition's files are never replaced unless they are archived first,
-/// completely and verified, or as found and marked recovered; the exceptions are rebuilds whose shared files come out
-/// the same bytes (nothing changed, or only output switches).</para>
+/// completely and verified, or as found and marked recovered; the exception is a rebuild in which every present file
+/// comes out the same bytes.</para>
 /// </summary>
 public static class EditionPlanner
 {
@@ -199,6 +199,23 @@ public static class EditionPlanner
         bool intact = current.MissingFiles.Count == 0 && current.ChangedFiles.Count == 0;
         var next = NewEdition(current, Math.Max(1, request.RequestedEdition), intact, plan.CompareWith, plan.Changed.Append(EditionInput.Results).ToList());
         return next with { Archive = plan.Archive ?? next.Archive };
+    }
+
+    /// <summary>
+    /// Once the new files are made: a plan that keeps no copy (nothing changed but output switches, or files to restore)
+    /// keeps the current edition whole first after all when a present file would not come back byte for byte, such as
+    /// chart copies switched off or a byte order mark switched on. Files only added need no copy.
+    /// </summary>
+    /// <param name="currentSha256">The manifest's SHA-256 of each current file (null: not recorded, so nothing can be shown to come back).</param>
+    /// <param name="newSha256">The SHA-256 of each file the build made.</param>
+    public static EditionPlan.Build KeepReplaced(EditionPlan.Build plan, CurrentEdition current, IReadOnlyDictionary<string, string>? currentSha256, IReadOnlyDictionary<string, string> newSha256)
+    {
+        if (plan.Archive is not null || current.Manifest != ManifestCondition.Valid) return plan;
+        var present = current.Files.Except(current.MissingFiles).ToList();
+        if (present.Count == 0) return plan;
+        if (currentSha256 is not null && present.All(f => newSha256.TryGetValue(f, out var h) && currentSha256.TryGetValue(f, out var was) && h == was)) return plan;
+        int edition = current.Edition ?? 0;
+        return plan with { Archive = current.MissingFiles.Count == 0 && current.ChangedFiles.Count == 0 ? Verified(current, edition) : Recovered(current, edition) };
     }
 
     private static EditionPlan.Build NewEdition(CurrentEdition current, int requested, bool intact, string? compareWith, IReadOnlyList<string> changed)

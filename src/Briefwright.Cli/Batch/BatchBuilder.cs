@@ -118,6 +118,7 @@ public static class BatchBuilder
                 Sizes = files.ToDictionary(f => f.Item1, f => (long)f.Item2.Length),
                 Sha256 = files.ToDictionary(f => f.Item1, f => EditionFolder.Sha256(f.Item2)),
             };
+            build = EditionPlanner.KeepReplaced(build, state, current?.Sha256, manifest.Sha256!);
             string? archived = EditionTransaction.Execute(folder, held, build, current, state, files, manifest, settings.Durable);
             string pdf = Path.Combine(dir, brief.FileStem + ".pdf");
             return new BriefOutcome(file, id, OutcomeStatus.Built, build.Edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null)

@@ -161,7 +161,8 @@ public static class BuildPlan
             : build.Redated ? $"edition {build.Edition} re-dated (no change of content, template or results)"
             : build.ResultsDecide ? $"edition {build.Edition} rewritten; it becomes a new edition if the results move"
             : build.Archive is null && build.Changed.All(c => c.StartsWith(EditionInput.OutputPrefix, StringComparison.Ordinal))
-                ? $"edition {build.Edition} kept; only which files are written changes (the PDF and results data stay the same bytes)"
+                ? $"edition {build.Edition} kept; only which files are written changes (the PDF and results data stay the same bytes; " +
+                  "the current files are kept first in the archive if a file would be dropped or changed)"
             : $"edition {build.Edition} rewritten";
         return $"{changed}: {meaning}";
     }
