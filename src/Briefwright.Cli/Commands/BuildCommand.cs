@@ -248,7 +248,7 @@ public static class BuildCommand
         }
         catch (TemplateException ex)
         {
-            foreach (var e in ex.Errors.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(e);
+            foreach (var line in StageErrors.Describe(ex, templatePath ?? "template").Lines.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(line);
             return null;
         }
         stage = "theme";

@@ -140,13 +140,10 @@ public static class ScenarioInputs
         }
         catch (UnsolvableScenarioException ex)
         {
-            error.WriteLine(Unsolvable(path, ex));
+            foreach (var line in StageErrors.Describe(ex, path).Lines) error.WriteLine(line);
             return null;
         }
     }
-
-    public static string Unsolvable(string path, UnsolvableScenarioException ex) =>
-        $"{path}: the model cannot solve this scenario: {ex.Message.TrimEnd('.')}. Change the inputs named in the reason; nothing written.";
 
     private static string Binding(string s) => Scenario.Binding.BindContext.Printable(s);
 }

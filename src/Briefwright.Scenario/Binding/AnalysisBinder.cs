@@ -301,7 +301,7 @@ public sealed class AnalysisBinder(BindContext ctx)
             return null;
         }
         var spec = new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);
-        return Pilot(inputs, spec, m["parameters"]!) ? spec : null;
+        return Pilot(inputs, spec, m["parameters"]!) && SobolPilot(inputs, spec, m) ? spec : null;
     }
 
     /// <summary>
@@ -332,6 +332,46 @@ public sealed class AnalysisBinder(BindContext ctx)
         ctx.Report(at.At, "uncertainty.parameters",
             $"the distributions break a model rule too often: {failed} of the first {n} draws failed all {MonteCarlo.MaxAttemptsPerDraw} attempts (for example: {why}); narrow the distributions",
             $"{failed} of {n}");
+        return false;
+    }
+
+    /// <summary>
+    /// The Sobol samples' counterpart of <see cref="Pilot"/>: the first <see cref="PilotDraws"/> base samples as the
+    /// model draws them (same seed, same rows), each with its d + 2 runs checked against the model's rules without
+    /// solving. A sample is used only when all its runs meet them and is not redrawn, so distributions that Monte Carlo
+    /// survives by redrawing can leave the indices nothing; the model needs <see cref="Sobol.MinRows"/> of them.
+    /// </summary>
+    private bool SobolPilot(ModelInputs inputs, MonteCarloSpec spec, YMapping at)
+    {
+        if (spec.SobolSamples == 0) return true;
+        int n = Math.Min(spec.SobolSamples, PilotDraws), d = spec.Parameters.Count, accepted = 0;
+        string? why = null;
+        var a = new double[d];
+        var b = new double[d];
+        var mixed = new double[d];
+        bool Meets(double[] u)
+        {
+            string? violation = Parameters.Violation(MonteCarlo.Apply(inputs, spec.Parameters, u));
+            why ??= violation;
+            return violation is null;
+        }
+        for (int r = 0; r < n; r++)
+        {
+            Sobol.BaseRow(AnalysisRunner.SobolSeed(spec), r, a, b);
+            bool ok = Meets(a) && Meets(b);
+            for (int i = 0; i < d && ok; i++)
+            {
+                a.CopyTo(mixed, 0);
+                mixed[i] = b[i];
+                ok = Meets(mixed);
+            }
+            if (ok) accepted++;
+        }
+        if (accepted >= Sobol.MinRows(n)) return true;
+        var node = at["sobol_samples"] ?? at["parameters"]!;
+        ctx.Report(node.At, node == at["sobol_samples"] ? "uncertainty.sobol_samples" : "uncertainty.parameters",
+            $"the distributions break a model rule too often for the Sobol indices: only {accepted} of the first {n} base samples met every rule in all {d + 2} of their runs (at least {Sobol.MinRows(n)} must; for example: {why}); narrow the distributions, or set sobol_samples to 0",
+            $"{accepted} of {n}");
         return false;
     }
 
