@@ -292,9 +292,8 @@ public static class ScenarioFields
     public static string[] Keys(string path, string? variant = null) =>
         Children(path, variant).Select(f => f.Key).Distinct().ToArray();
 
-    private static string Number(double x, bool percent) => percent
-        ? (x * 100).ToString("0.###", CultureInfo.InvariantCulture).Replace('-', '−') + "%"
-        : x.ToString(Math.Abs(x) >= 1e15 ? "R" : "0.########", CultureInfo.InvariantCulture).Replace('-', '−');
+    private static string Number(double x, bool percent) =>
+        (percent ? Numbers.Percent(x) : Math.Abs(x) >= 1e15 ? Numbers.Exact(x) : Numbers.Plain(x, 8)).Replace('-', '−');
 
     /// <summary>An interval as the reference writes it: [a, b] holds both ends, (a, b) neither.</summary>
     public static string Interval(Bounds b, bool percent) =>

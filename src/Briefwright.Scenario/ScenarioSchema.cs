@@ -30,8 +30,6 @@ public static class ScenarioSchema
 
     private static JsonObject Str(string description, int maxLength = 400) => Obj(("type", "string"), ("maxLength", maxLength), ("description", description));
 
-    private static string F(double x) => x.ToString("R", CultureInfo.InvariantCulture);
-
     /// <summary>A bare number within <paramref name="b"/>.</summary>
     private static JsonObject Bare(Bounds b, bool integer)
     {

@@ -1,5 +1,4 @@
 using System.Diagnostics;
-using System.Security.Cryptography;
 using System.Text;
 using Briefwright.Brief;
 using Briefwright.Brief.Annex;
@@ -35,10 +34,8 @@ public static class BatchBuilder
     /// <summary>SHA-256 of the four bundled font files, one after the other (an input of every brief).</summary>
     internal static readonly Lazy<string> FontsHash = new(() =>
     {
-        using var sha = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
-        foreach (var style in new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic })
-            sha.AppendData(BundledFonts.Bytes(style));
-        return Convert.ToHexStringLower(sha.GetHashAndReset());
+        var styles = new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic };
+        return Sha256Hex.OfAll(styles.Select(BundledFonts.Bytes));
     });
 
     /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when null.</param>
@@ -76,7 +73,7 @@ public static class BatchBuilder
                 ["annex_images"] = settings.AnnexImages ? "yes" : "no",
             };
             if (settings.CsvByteOrderMark) inputs["csv_bom"] = "yes";
-            hash = BriefBuilder.Sha256(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")));
+            hash = Sha256Hex.Of(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")));
             var folder = new EditionFolder(dir, id);
             var request = new EditionRequest(hash, scenario.Brief.Edition, settings.Force);
             // Unchanged briefs are skipped without taking the lock (only reads; the manifest is switched last), unless the

@@ -128,7 +128,7 @@ public static class ScenarioInputs
     {
         foreach (var d in problems.Take(MaxPrinted)) error.WriteLine(sources.Render(d));
         if (problems.Count > MaxPrinted)
-            error.WriteLine($"… and {(problems.Count - MaxPrinted).ToString("N0", System.Globalization.CultureInfo.InvariantCulture)} more problem{(problems.Count - MaxPrinted == 1 ? "" : "s")} not shown (fix these first).");
+            error.WriteLine($"… and {Numbers.Count(problems.Count - MaxPrinted)} more problem{(problems.Count - MaxPrinted == 1 ? "" : "s")} not shown (fix these first).");
     }
 
     /// <summary>Solves a loaded scenario; null (after printing the reason, with the scenario's name) when the model cannot.</summary>

@@ -90,36 +90,41 @@ public static class Sobol
         int outputs = fa[rows[0]]!.Length;
         // Resample s draws its rows from its own stream, so every output sees the same resamples and threads change nothing.
         ulong bootSeed = seed ^ 0xB007_57A9_0000_0001UL;
-        return ModelThreads.Map(outputs, maxThreads, k =>
+        return ModelThreads.Map(outputs, maxThreads, k => Output(k, d, rows, fa, fb, fab, inputNames, bootSeed, resamples, level));
+    }
+
+    /// <summary>The indices of output <paramref name="k"/> over the accepted rows, with bootstrap intervals.</summary>
+    private static SobolIndices Output(int k, int d, int[] rows, double[]?[] fa, double[]?[] fb, double[]?[,] fab,
+        IReadOnlyList<string> inputNames, ulong bootSeed, int resamples, double level)
+    {
+        int m = rows.Length;
+        // Column-major copies of this output: yA[j], yB[j], yAB[i][j] for the accepted rows.
+        var yA = rows.Select(r => fa[r]![k]).ToArray();
+        var yB = rows.Select(r => fb[r]![k]).ToArray();
+        var yAB = Enumerable.Range(0, d).Select(i => rows.Select(r => fab[i, r]![k]).ToArray()).ToArray();
+        var all = Enumerable.Range(0, m).ToArray();
+        var (first, total, variance) = Indices(yA, yB, yAB, all);
+        var bootFirst = new double[d][];
+        var bootTotal = new double[d][];
+        for (int i = 0; i < d; i++) { bootFirst[i] = new double[resamples]; bootTotal[i] = new double[resamples]; }
+        var pick = new int[m];
+        for (int s = 0; s < resamples; s++)
         {
-            // Column-major copies of this output: yA[j], yB[j], yAB[i][j] for the accepted rows.
-            var yA = rows.Select(r => fa[r]![k]).ToArray();
-            var yB = rows.Select(r => fb[r]![k]).ToArray();
-            var yAB = Enumerable.Range(0, d).Select(i => rows.Select(r => fab[i, r]![k]).ToArray()).ToArray();
-            var all = Enumerable.Range(0, m).ToArray();
-            var (first, total, variance) = Indices(yA, yB, yAB, all);
-            var bootFirst = new double[d][];
-            var bootTotal = new double[d][];
-            for (int i = 0; i < d; i++) { bootFirst[i] = new double[resamples]; bootTotal[i] = new double[resamples]; }
-            var pick = new int[m];
-            for (int s = 0; s < resamples; s++)
-            {
-                var rng = SplitMix64.ForStream(bootSeed, (ulong)s);
-                for (int j = 0; j < m; j++) pick[j] = (int)(rng.NextUInt64() % (ulong)m);
-                var (bf, bt, _) = Indices(yA, yB, yAB, pick);
-                for (int i = 0; i < d; i++) { bootFirst[i][s] = bf[i]; bootTotal[i][s] = bt[i]; }
-            }
-            double lowP = (1 - level) / 2, highP = 1 - lowP;
-            var fLow = new double[d]; var fHigh = new double[d]; var tLow = new double[d]; var tHigh = new double[d];
-            for (int i = 0; i < d; i++)
-            {
-                Array.Sort(bootFirst[i]);
-                Array.Sort(bootTotal[i]);
-                fLow[i] = Quantile(bootFirst[i], lowP); fHigh[i] = Quantile(bootFirst[i], highP);
-                tLow[i] = Quantile(bootTotal[i], lowP); tHigh[i] = Quantile(bootTotal[i], highP);
-            }
-            return new SobolIndices(inputNames, first, fLow, fHigh, total, tLow, tHigh, variance, m, resamples, level);
-        });
+            var rng = SplitMix64.ForStream(bootSeed, (ulong)s);
+            for (int j = 0; j < m; j++) pick[j] = (int)(rng.NextUInt64() % (ulong)m);
+            var (bf, bt, _) = Indices(yA, yB, yAB, pick);
+            for (int i = 0; i < d; i++) { bootFirst[i][s] = bf[i]; bootTotal[i][s] = bt[i]; }
+        }
+        double lowP = (1 - level) / 2, highP = 1 - lowP;
+        var fLow = new double[d]; var fHigh = new double[d]; var tLow = new double[d]; var tHigh = new double[d];
+        for (int i = 0; i < d; i++)
+        {
+            Array.Sort(bootFirst[i]);
+            Array.Sort(bootTotal[i]);
+            fLow[i] = Quantile(bootFirst[i], lowP); fHigh[i] = Quantile(bootFirst[i], highP);
+            tLow[i] = Quantile(bootTotal[i], lowP); tHigh[i] = Quantile(bootTotal[i], highP);
+        }
+        return new SobolIndices(inputNames, first, fLow, fHigh, total, tLow, tHigh, variance, m, resamples, level);
     }
 
     /// <summary>The estimators over the rows listed in <paramref name="pick"/> (all rows, or a bootstrap resample).</summary>

@@ -39,8 +39,8 @@ public sealed class AnalysisBinder(BindContext ctx)
         if (years <= MaxSimulatedYears) return;
         var u = (YMapping)top["uncertainty"]!;
         var at = u["draws"] ?? u["sobol_samples"] ?? (YNode)u;
-        ctx.Report(at.At, "uncertainty", $"asks for {years.ToString("N0", CultureInfo.InvariantCulture)} simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × {reform.HorizonYears}); the limit for one brief is {MaxSimulatedYears.ToString("N0", CultureInfo.InvariantCulture)}; lower draws, sobol_samples or reform.horizon_years",
-            years.ToString("N0", CultureInfo.InvariantCulture));
+        ctx.Report(at.At, "uncertainty", $"asks for {Numbers.Count(years)} simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × {reform.HorizonYears}); the limit for one brief is {Numbers.Count(MaxSimulatedYears)}; lower draws, sobol_samples or reform.horizon_years",
+            Numbers.Count(years));
     }
 
     /// <summary>Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a model rule.</summary>
@@ -230,7 +230,7 @@ public sealed class AnalysisBinder(BindContext ctx)
     }
 
     private static string Format(Parameters.Definition def, double v) =>
-        def.IsRate ? (v * 100).ToString("0.###", CultureInfo.InvariantCulture) + "%" : v.ToString("0.####", CultureInfo.InvariantCulture);
+        def.IsRate ? Numbers.Percent(v) : Numbers.Plain(v);
 
     private (IReadOnlyList<SensitivityRange>, IReadOnlyList<GridSpec>) BindSensitivity(YMapping top, ModelInputs inputs)
     {

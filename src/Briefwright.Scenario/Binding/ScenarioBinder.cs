@@ -231,7 +231,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         }
         if (!ok) return null;
         string text = string.Join("; ", brackets.Select((b, i) =>
-            $"{(b.Rate * 100).ToString("0.0##", CultureInfo.InvariantCulture)}% from year {b.FromYear.ToString(CultureInfo.InvariantCulture)}"));
+            $"{Numbers.Percent(b.Rate, minDecimals: 1)} from year {b.FromYear.ToString(CultureInfo.InvariantCulture)}"));
         ctx.Add(new Assumption(p, F(parent).Label, null, text, ValueUnit.Text,
             ctx.Text(returns, F(parent + ".source"), parent), ctx.Text(returns, F(parent + ".note"), parent)));
         return new BracketReturns(brackets);
@@ -269,43 +269,14 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         bool ok = true;
         for (int i = 0; i < list.Items.Count; i++)
         {
-            string ip = $"options[{i}]";
-            if (list.Items[i] is not YMapping item)
-            {
-                ctx.Report(list.Items[i].At, ip, "each option must be a mapping with id, label and schooling_years", list.Items[i].Kind);
-                ok = false;
-                continue;
-            }
-            const string o = "options[]";
-            ctx.CheckFields(item, ip, F(o));
-            string? id = ctx.Text(item, F(o + ".id"), ip);
-            if (id is not null && !IdPattern().IsMatch(id))
-            {
-                ctx.Report(item["id"]!.At, ip + ".id", "must be 1–64 lower-case letters, digits, '-' or '_'", BindContext.Quote(id));
-                id = null;
-            }
-            if (id is not null && ids.TryGetValue(id, out int first))
-            {
-                ctx.Report(item["id"]!.At, ip + ".id", $"option ids must be unique (also used by options[{first}])", $"'{id}'");
-                id = null;
-            }
-            if (id is not null) ids[id] = i;
-            string? label = ctx.Text(item, F(o + ".label"), ip);
-            string? inSentence = ctx.Text(item, F(o + ".in_sentence"), ip);
-            double? years = ctx.Number(item, F(o + ".schooling_years"), ip);
-            double? retire = item["retirement_age"] is null ? null : ctx.Number(item, F(o + ".retirement_age"), ip);
-            double? part = item["participation"] is null ? null : ctx.Number(item, F(o + ".participation"), ip);
-            bool isBaseline = ctx.Flag(item, F(o + ".baseline"), ip) ?? false;
-            if (id is null || label is null || years is null || (item["retirement_age"] is not null && retire is null) || (item["participation"] is not null && part is null))
+            if (BindOption(list.Items[i], i, ids) is not var (option, inSentence, isBaseline))
             {
                 ok = false;
                 continue;
             }
-            if (isBaseline) baselines.Add(id);
-            options.Add(new PolicyOption(id, label, years.Value, retire, part));
-            optionNames[id] = inSentence ?? InSentence.FromLabel(label);
-            ctx.Add(new Assumption(ip + ".schooling_years", $"Schooling: {label}", years.Value, null, ValueUnit.Years,
-                ctx.Text(item, F(o + ".source"), ip), ctx.Text(item, F(o + ".note"), ip)));
+            if (isBaseline) baselines.Add(option.Id);
+            options.Add(option);
+            optionNames[option.Id] = inSentence ?? InSentence.FromLabel(option.Label);
         }
         if (baselines.Count > 1)
         {
@@ -316,5 +287,43 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         baselineId = baselines.Count == 1 ? baselines[0] : options[0].Id;
         names = optionNames;
         return options;
+    }
+
+    /// <summary>One option (its id checked against <paramref name="ids"/>, the ids seen before it); null when it has a
+    /// problem, which is reported.</summary>
+    private (PolicyOption Option, string? InSentence, bool IsBaseline)? BindOption(YNode node, int i, Dictionary<string, int> ids)
+    {
+        string ip = $"options[{i}]";
+        if (node is not YMapping item)
+        {
+            ctx.Report(node.At, ip, "each option must be a mapping with id, label and schooling_years", node.Kind);
+            return null;
+        }
+        const string o = "options[]";
+        ctx.CheckFields(item, ip, F(o));
+        string? id = ctx.Text(item, F(o + ".id"), ip);
+        if (id is not null && !IdPattern().IsMatch(id))
+        {
+            ctx.Report(item["id"]!.At, ip + ".id", "must be 1–64 lower-case letters, digits, '-' or '_'", BindContext.Quote(id));
+            id = null;
+        }
+        if (id is not null && ids.TryGetValue(id, out int first))
+        {
+            ctx.Report(item["id"]!.At, ip + ".id", $"option ids must be unique (also used by options[{first}])", $"'{id}'");
+            id = null;
+        }
+        if (id is not null) ids[id] = i;
+        string? label = ctx.Text(item, F(o + ".label"), ip);
+        string? inSentence = ctx.Text(item, F(o + ".in_sentence"), ip);
+        double? years = ctx.Number(item, F(o + ".schooling_years"), ip);
+        double? retire = item["retirement_age"] is null ? null : ctx.Number(item, F(o + ".retirement_age"), ip);
+        double? part = item["participation"] is null ? null : ctx.Number(item, F(o + ".participation"), ip);
+        bool isBaseline = ctx.Flag(item, F(o + ".baseline"), ip) ?? false;
+        if (id is null || label is null || years is null || (item["retirement_age"] is not null && retire is null)
+            || (item["participation"] is not null && part is null))
+            return null;
+        ctx.Add(new Assumption(ip + ".schooling_years", $"Schooling: {label}", years.Value, null, ValueUnit.Years,
+            ctx.Text(item, F(o + ".source"), ip), ctx.Text(item, F(o + ".note"), ip)));
+        return (new PolicyOption(id, label, years.Value, retire, part), inSentence, isBaseline);
     }
 }
