@@ -38,7 +38,7 @@ public static class CliApp
         {
             io.Err.WriteLine(usage.Message);
             io.Err.WriteLine(usage.Hint);
-            if (usage.Command == "build") BuildCommand.LogUsageError(args, usage.Message, io);
+            if (usage.Command == "build" && !args.Contains("--plan")) BuildCommand.LogUsageError(args, usage.Message, io); // a plan writes nothing
             return ExitCodes.InvalidInput;
         }
         // Each command reports its stages' failures (StageErrors); what escapes one is a fault of the tool, reported in

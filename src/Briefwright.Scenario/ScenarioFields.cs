@@ -127,7 +127,12 @@ public static class ScenarioFields
         new("brief.date", FieldKind.Date, "Date of the brief, YYYY-MM-DD") { Required = true, Help = "never taken from the clock" },
         C("brief.status", "Status", "draft", "consultation", "final") with
             { DefaultText = "draft", Help = "a draft or consultation brief carries a DRAFT marker on every page" },
-        N("brief.edition", "Edition", ValueUnit.Number, Bounds.Closed(1, 9999)) with { Whole = true, Default = 1 },
+        N("brief.edition", "Edition", ValueUnit.Number, Bounds.Closed(1, 9999)) with
+        {
+            Whole = true, Default = 1,
+            Help = "a minimum: a new edition takes the next number or this one, whichever is higher; below an edition "
+                + "already issued it is an error (README, \"Rebuilds, editions and the data annex\")",
+        },
         T("brief.question", "The policy question", 2000),
 
         N("demography.population_growth", "Population growth rate", ValueUnit.Rate, Bounds.Closed(-0.1, 0.1), true)
