@@ -1,4 +1,3 @@
-using System.Security.Cryptography;
 using System.Text;
 using Briefwright.Brief.Annex;
 using Briefwright.Charts;
@@ -144,5 +143,4 @@ public static class BriefBuilder
     /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>
     public static void InstallChartFont() => ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
 
-    public static string Sha256(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
 }

@@ -18,7 +18,7 @@ public static class ScenarioContent
         var text = new StringBuilder();
         Write(tree, "", text);
         foreach (var t in lifeTables) text.Append("\ntable ").Append(t.Length).Append(' ').Append(t);
-        return Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text.ToString())));
+        return Sha256Hex.Of(text.ToString());
     }
 
     /// <summary>Where <c>brief.edition</c> is written (after <c>extends</c>), if it is.</summary>

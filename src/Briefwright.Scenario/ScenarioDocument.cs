@@ -80,5 +80,5 @@ public static class InSentence
         _ => $"a discount rate stepping from {Percent(schedule.Steps[0].Rate)} to {Percent(schedule.Steps[^1].Rate)}",
     };
 
-    private static string Percent(double rate) => (rate * 100).ToString("0.0##", System.Globalization.CultureInfo.InvariantCulture) + "%";
+    private static string Percent(double rate) => Numbers.Percent(rate, minDecimals: 1);
 }

@@ -1,5 +1,4 @@
 using System.Diagnostics;
-using System.Security.Cryptography;
 using System.Text;
 using Briefwright.Brief;
 using Briefwright.Brief.Annex;
@@ -35,10 +34,8 @@ public static class BatchBuilder
     /// <summary>SHA-256 of the four bundled font files, one after the other (an input of every brief).</summary>
     internal static readonly Lazy<string> FontsHash = new(() =>
     {
-        using var sha = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
-        foreach (var style in new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic })
-            sha.AppendData(BundledFonts.Bytes(style));
-        return Convert.ToHexStringLower(sha.GetHashAndReset());
+        var styles = new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic };
+        return Sha256Hex.OfAll(styles.Select(BundledFonts.Bytes));
     });
 
     /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when null.</param>
@@ -127,47 +124,19 @@ public static class BatchBuilder
                 Archived = archived is null ? null : Path.GetRelativePath(dir, archived),
             };
         }
-        catch (TemplateException ex)
-        {
-            lock (error) foreach (var e in ex.Errors) error.WriteLine(e);
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "template error")
-            {
-                InputHash = hash, Messages = ex.Errors.Select(e => e.ToString().Split('\n')[0]).ToList(),
-            };
-        }
-        catch (UnsolvableScenarioException ex)
-        {
-            lock (error) error.WriteLine(ScenarioInputs.Unsolvable(file, ex));
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
-        }
-        catch (ComposeException ex)
-        {
-            string message = $"{Position(settings.Template, ex)}: {ex.Message}";
-            lock (error) error.WriteLine(message);
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
-        }
         catch (OperationCanceledException) when (stop.IsCancellationRequested)
         {
             return new BriefOutcome(file, id, OutcomeStatus.Stopped, null, null, 0, 0, watch.ElapsedMilliseconds, "stopped by a signal before it was started; nothing was replaced") { Recovered = recovered };
         }
-        catch (EditionWriteException ex)
-        {
-            lock (error) error.WriteLine($"{file}: cannot write the brief to {dir}: {ex.Message}.");
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { Recovered = recovered };
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            // Failed before any staging: the lock, the recovery or the folder itself (a file, read-only, full).
-            string message = $"{file}: cannot write the brief to {dir} ({ex.Message}); nothing was replaced: the previous files are untouched.";
-            lock (error) error.WriteLine(message);
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { Recovered = recovered, InputHash = hash, Messages = [message] };
-        }
         catch (Exception ex)
         {
             // Whatever went wrong, this brief fails alone: the others in the batch are still built, nothing is half-written.
-            string message = $"{file}: {(ex is NonFiniteResultException ? "" : "internal error, please report it: ")}{ex.Message}";
-            lock (error) error.WriteLine(message);
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
+            var failure = StageErrors.Describe(ex, file, dir, settings.Template);
+            lock (error) foreach (var line in failure.Lines) error.WriteLine(line);
+            return new BriefOutcome(file, id, failure.Status, null, null, 0, 0, watch.ElapsedMilliseconds, failure.Summary)
+            {
+                Recovered = recovered, InputHash = hash, Messages = failure.FirstLines,
+            };
         }
     }
 
@@ -196,7 +165,7 @@ public static class BatchBuilder
             ["chart_copies"] = settings.AnnexImages ? "yes" : "no",
             ["csv_byte_order_mark"] = settings.CsvByteOrderMark ? "yes" : "no",
         };
-        string hash = BriefBuilder.Sha256(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")
+        string hash = Sha256Hex.Of(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")
             .Concat(outputs.Select(kv => $"{EditionInput.OutputPrefix}{kv.Key}={kv.Value}"))));
         return (inputs, outputs, new EditionRequest(hash, scenario.Brief.Edition, settings.Force) { Inputs = inputs, Outputs = outputs });
     }
@@ -229,15 +198,4 @@ public static class BatchBuilder
         new(scenario.EditionAt ?? new Scenario.Diagnostics.SourceSpan(file, 1, 1), "brief.edition",
             $"must not be below edition {refuse.Issued}, already issued in {dir}; remove it, or give at least {refuse.Issued + 1} to start a new edition",
             $"'{refuse.Requested}'");
-
-    /// <summary>Where in the template the offending text was written: found by its text, else the line of the filled text.</summary>
-    private static string Position(BriefTemplate template, ComposeException ex)
-    {
-        var lines = template.Text.Split('\n');
-        if (ex.Snippet is { Length: > 0 } snippet)
-            for (int i = 0; i < lines.Length; i++)
-                if (lines[i].IndexOf(snippet, StringComparison.Ordinal) is int col and >= 0) return $"{template.Path}:{i + 1}:{col + 1}";
-        return $"{template.Path}:{Math.Max(1, ex.Line)}:1";
-    }
-
 }

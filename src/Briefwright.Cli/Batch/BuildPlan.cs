@@ -4,6 +4,7 @@ using System.Text.Json;
 using System.Text.Json.Serialization;
 using Briefwright.Brief;
 using Briefwright.Brief.Editions;
+using Briefwright.Model;
 using Briefwright.Cli.Commands;
 using Briefwright.Scenario;
 using Briefwright.Templating;
@@ -82,9 +83,10 @@ public static class BuildPlan
                 string json = File.ReadAllText(Path.Combine(dir, build.CompareWith!));
                 build = EditionPlanner.Settle(build, request, state, BriefBuilder.ResultsDiffer(solved, json));
             }
-            catch (UnsolvableScenarioException ex)
+            catch (Exception ex) when (ex is UnsolvableScenarioException or ModelRuleException)
             {
-                return new PlannedBrief(file, id, "invalid", null, state.Edition, null, before, [], ex.Message) { Messages = [ScenarioInputs.Unsolvable(file, ex)], Out = dir };
+                var failure = StageErrors.Describe(ex, file);
+                return new PlannedBrief(file, id, "invalid", null, state.Edition, null, before, [], failure.Summary) { Messages = failure.Lines, Out = dir };
             }
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or JsonException or KeyNotFoundException or InvalidOperationException)
             {

@@ -1,4 +1,3 @@
-using System.Security.Cryptography;
 using System.Text.Json;
 using System.Text.RegularExpressions;
 using Briefwright.Brief.Editions;
@@ -23,12 +22,12 @@ public sealed class EditionFolder(string dir, string id)
     public string ArchiveRoot => Path.Combine(Dir, "archive", Id);
     public string Staging(string token) => Path.Combine(TempDir, $"{Id}.{token}");
 
-    public static string Sha256(byte[] bytes) => Convert.ToHexStringLower(SHA256.HashData(bytes));
+    public static string Sha256(byte[] bytes) => Sha256Hex.Of(bytes);
 
     public static string Sha256(string path)
     {
         using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
-        return Convert.ToHexStringLower(SHA256.HashData(stream));
+        return Sha256Hex.Of(stream);
     }
 
     /// <summary>

@@ -1,4 +1,3 @@
-using System.Security.Cryptography;
 using System.Text;
 using System.Text.Json;
 
@@ -76,7 +75,7 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
 
     private static string CheckText(string value) => $"\"check\": \"{value}\"";
 
-    private static string SelfHash(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
+    private static string SelfHash(string text) => Sha256Hex.Of(text);
 
     /// <summary>Every file exists with the size the manifest recorded (the check a skipped build relies on).</summary>
     public bool FilesPresent(string outDir) => Files.All(f => Sizes is null

@@ -266,7 +266,7 @@ public static class BuildCommand
         }
         catch (TemplateException ex)
         {
-            foreach (var e in ex.Errors.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(e);
+            foreach (var line in StageErrors.Describe(ex, templatePath ?? "template").Lines.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(line);
             return null;
         }
         stage = "theme";
@@ -284,13 +284,13 @@ public static class BuildCommand
                 byte[] bold = spec.FontFiles.GetValueOrDefault("bold", regular);
                 var fonts = (regular, bold, spec.FontFiles.GetValueOrDefault("italic", regular), spec.FontFiles.GetValueOrDefault("bold_italic", bold));
                 options = options with { Fonts = fonts };
-                themeHash = BriefBuilder.Sha256(themeHash + string.Concat(new[] { fonts.regular, fonts.bold, fonts.Item3, fonts.Item4 }
-                    .Select(b => Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(b)))));
+                themeHash = Sha256Hex.Of(themeHash + string.Concat(new[] { fonts.regular, fonts.bold, fonts.Item3, fonts.Item4 }
+                    .Select(b => Sha256Hex.Upper(b))));
             }
             if (spec.Logo is { } png)
             {
                 options = options with { Logo = png };
-                themeHash = BriefBuilder.Sha256(themeHash + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(png.Png)));
+                themeHash = Sha256Hex.Of(themeHash + Sha256Hex.Upper(png.Png));
             }
         }
         stage = "options";
