@@ -94,7 +94,7 @@ public static class BatchBuilder
                 return new BriefOutcome(file, id, OutcomeStatus.Skipped, skip.Edition, Path.Combine(dir, current!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { Recovered = recovered, InputHash = hash };
             var build = (EditionPlan.Build)plan;
 
-            WarmUp.Start(); // this brief will be built: let the output libraries start up while its model runs
+            Speed.WarmUp(); // this brief will be built: let the output libraries start up while its model runs
             scenario = scenario with { Brief = scenario.Brief with { Edition = build.Edition } };
             EditionSnapshot? before = null;
             if (build.NewEdition && build.CompareWith is { } previousJson)
