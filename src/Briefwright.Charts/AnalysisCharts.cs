@@ -19,7 +19,7 @@ public static class AnalysisCharts
         band.LegendText = legend;
     }
 
-    private static string F(double v, string f = "0.0") => v.ToString(f, CultureInfo.InvariantCulture);
+    private static string F(double v, string f = "0.0") => ChartRenderer.Number(v, f);
 
     /// <summary>Output per person relative to no reform, by calendar year, one line per option; the headline option's
     /// Monte Carlo band (5–95% and 25–75%), its dip and its break-even year are marked.</summary>
@@ -75,7 +75,7 @@ public static class AnalysisCharts
     {
         // Not options: the two ends of each range are drawn in the neutral tones.
         var plot = new Plot();
-        ChartRenderer.Style(plot, $"Long-run change in output per person, {optionLabel} (%)", "");
+        ChartRenderer.Style(plot, "Long-run change in output per person (%)", "");
         var bars = new List<Bar>();
         var ticks = new List<Tick>();
         for (int i = 0; i < rows.Count; i++)
@@ -93,7 +93,7 @@ public static class AnalysisCharts
         var c = plot.Add.VerticalLine(central);
         c.Color = Palette.Ink;
         c.LineWidth = 1;
-        c.LegendText = $"Central assumptions: {F(central, "0.00")}%";
+        c.LegendText = $"{optionLabel}, central assumptions: {F(central, "0.00")}%";
         var lowKey = plot.Add.Marker(double.NaN, double.NaN);
         lowKey.MarkerShape = MarkerShape.FilledSquare;
         lowKey.Color = Palette.NeutralLight;
@@ -152,7 +152,7 @@ public static class AnalysisCharts
     {
         var colour = style?.Color ?? Palette.Options[0];
         var plot = new Plot();
-        ChartRenderer.Style(plot, $"Long-run change in output per person, {optionLabel} (%)", "Share of draws (%)");
+        ChartRenderer.Style(plot, "Long-run change in output per person (%)", "Share of draws (%)");
         var sample = mc.HeadlineChangeSample;
         double lo = sample.Min(), hi = sample.Max();
         const int bins = 30;
@@ -164,7 +164,8 @@ public static class AnalysisCharts
         {
             Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92, FillColor = colour.WithAlpha(0.7),
         }).ToList();
-        plot.Add.Bars(bars);
+        var histogram = plot.Add.Bars(bars);
+        histogram.LegendText = $"{optionLabel}: share of draws";
         var p = mc.Options[optionIndex].LongRunChangePct;
         foreach (var (x, name, pattern) in new[] { (p.P5, "5th percentile", LinePattern.Dashed), (p.P50, "Median", LinePattern.Solid), (p.P95, "95th percentile", LinePattern.Dashed) })
         {

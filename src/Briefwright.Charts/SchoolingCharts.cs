@@ -7,7 +7,7 @@ namespace Briefwright.Charts;
 /// <summary>Charts of the balanced-growth comparison over schooling length.</summary>
 public static class SchoolingCharts
 {
-    private static string F(double v, string f = "0.0") => v.ToString(f, CultureInfo.InvariantCulture);
+    private static string F(double v, string f = "0.0") => ChartRenderer.Number(v, f);
 
     /// <summary>Output per person against years of schooling, with each option, E* and the band within 1% of the maximum.</summary>
     public static Plot OutputCurve(BalancedGrowthResults results, OptionStyles? styles = null)
