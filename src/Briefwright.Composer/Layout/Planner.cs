@@ -27,6 +27,7 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         FigureBlock f => Figure(f, width),
         BoxBlock b => new[] { Box(b, width) },
         PageBreakBlock => new Atom[] { new BreakAtom { BreakBefore = true } },
+        MathBlock m => new[] { Equation(m, width) },
         _ => Array.Empty<Atom>(),
     };
 
@@ -220,6 +221,16 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         if (spare <= 0) return min.Select(m => m * width / min.Sum()).ToArray();
         double extraWant = want.Zip(min, (w, m) => w - m).Sum();
         return min.Select((m, c) => m + spare * (want[c] - m) / extraWant).ToArray();
+    }
+
+    /// <summary>Display equations are set a little larger than body text, centred, and kept with the line before them.</summary>
+    private Atom Equation(MathBlock m, double width)
+    {
+        var node = MathNotation.Parse(m.Source, m.Line);
+        var box = MathBox.Layout(node, theme.BodySize * 1.1, measurer);
+        if (box.Width > width)
+            throw new ComposeException($"the equation '{(m.Source.Length <= 40 ? m.Source : m.Source[..40] + "…")}' is {box.Width:0} pt wide and does not fit the {width:0} pt line: split it.", m.Line, m.Source);
+        return new MathAtom { Box = box, AltText = MathNotation.Spoken(node), Source = m.Source, Height = box.Ascent + box.Descent + 6, SpaceBefore = theme.ParagraphGap };
     }
 
     private Atom Box(BoxBlock b, double width)
