@@ -17,7 +17,7 @@ public static class Equations
         sb.Append("**Worker share**, the share of the population at work:\n\n")
           .Append("$$\\omega(E) = p \\cdot \\frac{\\int_{a_0+E}^{R} e^{-na}\\, l(a)\\, da}{\\int_{0}^{\\Omega} e^{-na}\\, l(a)\\, da}$$\n\n");
         sb.Append("**Human capital per worker**, with " + ScheduleText(inputs.HumanCapital) + ":\n\n")
-          .Append("$$h(E) = e^{\\phi(E)}$$\n\n");
+          .Append(inputs.HumanCapital.Experience is null ? "$$h(E) = e^{\\phi(E)}$$\n\n" : "$$h(E) = e^{\\phi(E)}, \\quad m(x) = e^{\\beta_1 x - \\beta_2 x^2}$$\n\n");
         sb.Append("**Production**, with human capital H = h·L; on the balanced growth path output per effective worker is ŷ* = " + Num(r.SteadyState.OutputPerEffectiveWorker, 4) + ":\n\n")
           .Append("$$Y = K^{\\alpha} (A H)^{1-\\alpha}, \\quad \\ln \\hat{y}^{*} = \\frac{\\alpha}{1-\\alpha} \\ln \\frac{s}{n+g+\\delta}$$\n\n");
         sb.Append("**Output per person**, with technology A = 1 at the brief's date:\n\n")
@@ -45,7 +45,7 @@ public static class Equations
             _ => "φ as given",
         };
         return hc.Experience is { } e
-            ? $"{schooling}, times the average over working ages of the experience premium e^(β₁x − β₂x²) with β₁ = {Sig(e.Linear, 3)}, β₂ = {Sig(e.Quadratic, 3)} (x = years of work)"
+            ? $"{schooling}, times the average over working ages of the experience premium m(x) below with β₁ = {Sig(e.Linear, 3)}, β₂ = {Sig(e.Quadratic, 3)} (x = years of work)"
             : schooling;
     }
 }
