@@ -86,4 +86,16 @@ public class ChartConsistencyTests
             foreach (var plot in spec.Plot.Plots.Where(p => p.Legend.IsVisible))
                 Assert.DoesNotContain(plot.Axes.GetPanels(), p => p is ScottPlot.Panels.LegendPanel);
     }
+
+    [Fact]
+    public void The_theme_palette_reaches_the_charts()
+    {
+        var solved = ScenarioSolver.Solve(Demo.Load("auroria-national"));
+        var colours = new[] { "#112233", "#445566", "#778899", "#AA5500" };
+        var specs = BriefBuilder.ChartSpecs(solved, chartColours: colours);
+        var headline = specs.Single(s => s.Id == "headline-path").Plot.Plots[0].GetPlottables<ScottPlot.Plottables.Scatter>().Single();
+        Assert.Equal(Color.FromHex("#112233"), headline.Color);
+        var markers = specs.Single(s => s.Id == "output-curve").Plot.Plots[0].GetPlottables<ScottPlot.Plottables.Marker>().Select(m => m.Color).ToHashSet();
+        Assert.Equal(colours.Select(Color.FromHex).ToHashSet(), markers);
+    }
 }
