@@ -1,5 +1,6 @@
 using System.Text;
 using Briefwright.Brief.Annex;
+using Briefwright.Brief.ChartSet;
 using Briefwright.Charts;
 using Briefwright.Composer;
 using Briefwright.Composer.Document;
@@ -32,7 +33,7 @@ public static class BriefBuilder
             family = BundledFonts.Register(fonts.Regular, fonts.Bold, fonts.Italic, fonts.BoldItalic);
             ChartFont.Register(family, fonts.Regular, fonts.Bold);
         }
-        var specs = ChartSpecs(solved, family);
+        var specs = ChartSpecs(solved, family, options.Theme.ChartColours);
         var figureRefs = specs.Select(c => new FigureRef(c.Id, c.Caption)).ToList();
         // The results data and the filled template need the charts' ids and captions, not their drawings; the data annex
         // needs the drawn charts, not the brief. The caller's runner decides where they are made (in order here, or on
@@ -100,43 +101,17 @@ public static class BriefBuilder
     public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false, string? family = null) =>
         ChartSpec.RenderAll(ChartSpecs(solved, family), withImages);
 
-    /// <summary>The brief's charts, built but not yet drawn, in the bundled font or the theme's <paramref name="family"/>.</summary>
-    public static IReadOnlyList<ChartSpec> ChartSpecs(SolvedScenario solved, string? family = null)
+    /// <summary>
+    /// The brief's charts (<see cref="ChartCatalogue"/>), built but not yet drawn, in the bundled font or the theme's
+    /// <paramref name="family"/>, each option in its style for this brief (from the theme's <paramref name="chartColours"/>
+    /// when given).
+    /// </summary>
+    public static IReadOnlyList<ChartSpec> ChartSpecs(SolvedScenario solved, string? family = null, IReadOnlyList<string>? chartColours = null)
     {
         InstallChartFont();
         ChartFont.Use(family ?? ChartFont.Family);
-        var scenario = solved.Scenario;
-        var results = solved.BalancedGrowth;
-        string source = $"briefwright model, scenario {scenario.Brief.Id}";
-        var charts = new List<ChartSpec> { AnalysisChartSet.HeadlinePath(solved, source) };
-        charts.Add(new ChartSpec("output-curve", SchoolingCharts.OutputCurve(results),
-            "Output per person against years of schooling, once the economy has adjusted (balanced growth path)",
-            CurveAltText(results), source));
-        var curve = results.SchoolingCurve;
-        var baseline = results.Options.First(o => o.IsBaseline);
-        charts.Add(new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(results),
-            "The two opposing forces: workers per person and human capital per worker against schooling",
-            $"Line chart with two axes: as schooling lengthens, the worker share (workers per person) {Wording.Trend(curve.Select(c => c.WorkerShare).ToList())} and human capital per worker {Wording.Trend(curve.Select(c => c.HumanCapitalPerWorker).ToList())}; at the baseline of {TemplateFunctions.Years(baseline.SchoolingYears)} the worker share is {TemplateFunctions.Num(baseline.WorkerShare, 3)} and human capital per worker {TemplateFunctions.Num(baseline.HumanCapitalPerWorker, 2)}.",
-            source));
-        charts.AddRange(AnalysisChartSet.Specs(solved, source));
-        return charts;
-    }
-
-    /// <summary>The output curve described from its computed shape: its trend, where it is highest, and where the options sit.</summary>
-    public static string CurveAltText(BalancedGrowthResults results)
-    {
-        var opt = results.Optimum;
-        var curve = results.SchoolingCurve;
-        string trend = Wording.Trend(curve.Select(c => c.OutputPerPerson).ToList());
-        string where = opt.AtBoundary
-            ? $"It is highest at the edge of the range, at {TemplateFunctions.Years(opt.SchoolingYears)}."
-            : $"It is highest at {TemplateFunctions.Years(opt.SchoolingYears)}; lengths from {TemplateFunctions.Years(opt.Within1Pct[0])} to {TemplateFunctions.Years(opt.Within1Pct[1])} come within 1% of that.";
-        var sides = results.Options.Select(o => Math.Sign(Math.Round(o.SchoolingYears - opt.SchoolingYears, 1))).Distinct().ToList();
-        string options = sides.Count == 1 && sides[0] < 0 ? "Every option lies below the output-maximising length."
-            : sides.Count == 1 && sides[0] > 0 ? "Every option lies above the output-maximising length."
-            : sides.Count == 1 ? "Every option lies at the output-maximising length."
-            : "The options lie on both sides of the output-maximising length.";
-        return $"Line chart of output per person against years of schooling from 0 to {TemplateFunctions.Years(opt.FeasibleMaxSchooling)}: as schooling lengthens, output per person {trend}. {where} {options}";
+        string source = $"briefwright model, scenario {solved.Scenario.Brief.Id}";
+        return ChartCatalogue.Build(new ChartContext(solved, ChartCatalogue.Styles(solved, chartColours), source));
     }
 
     /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>

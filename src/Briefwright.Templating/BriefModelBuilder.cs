@@ -178,5 +178,5 @@ public static class BriefModelBuilder
     }
 
     private static string Reproducibility(BriefInputs b) =>
-        $"Inputs (scenario and every file it reads), SHA-256: `{b.InputHash}`. Template `{Md.Escape(b.TemplateName)}`, SHA-256: `{b.TemplateHash[..16]}`. Tool: briefwright {b.ToolVersion}. The brief's date comes from the scenario, so the same inputs give a byte-identical PDF.";
+        $"Inputs (scenario and every file it reads), SHA-256: `{b.InputHash}`. Template `{Md.Escape(b.TemplateName)}`, SHA-256: `{b.TemplateHash}`. Tool: briefwright {b.ToolVersion}. The brief's date comes from the scenario, so the same inputs give a byte-identical PDF.";
 }

@@ -13,15 +13,18 @@ public static class Equations
         var sb = new StringBuilder();
         sb.Append("People enter school at age a₀, study E years, then work until the retirement age R with participation p. ")
           .Append("The population is stable, growing at rate n, with survival l(a) up to the oldest age Ω.\n\n");
-        sb.Append(Md.Bullets(new[]
-        {
-            "Worker share: ω(E) = p · ∫ from a₀+E to R of e^(−na) l(a) da ÷ ∫ from 0 to Ω of e^(−na) l(a) da.",
-            "Human capital per worker: h(E) = e^φ(E), " + ScheduleText(inputs.HumanCapital) + ".",
-            "Production: Y = K^α (A·H)^(1−α) with H = h·L; on the balanced growth path output per effective worker is ŷ* = (s ÷ (n+g+δ))^(α/(1−α)) = " + Num(r.SteadyState.OutputPerEffectiveWorker, 4) + ".",
-            "Output per person: y = ŷ* · A · h(E) · ω(E), with technology A = 1 at the brief's date.",
-            "Output-maximising schooling: E* maximises h(E)·ω(E) over 0 ≤ E ≤ R − a₀. With a constant return r > n and rectangular survival, working years at the optimum are W* = −ln(1 − n/r) ÷ n (1/r when n = 0) and E* = R − a₀ − W*.",
-        }));
-        sb.Append("\n**Method notes.** ");
+        // Display equations in the math notation the composer typesets (docs/templates.md): $$ … $$ on their own.
+        sb.Append("**Worker share**, the share of the population at work:\n\n")
+          .Append("$$\\omega(E) = p \\cdot \\frac{\\int_{a_0+E}^{R} e^{-na}\\, l(a)\\, da}{\\int_{0}^{\\Omega} e^{-na}\\, l(a)\\, da}$$\n\n");
+        sb.Append("**Human capital per worker**, with " + ScheduleText(inputs.HumanCapital) + ":\n\n")
+          .Append(inputs.HumanCapital.Experience is null ? "$$h(E) = e^{\\phi(E)}$$\n\n" : "$$h(E) = e^{\\phi(E)}, \\quad m(x) = e^{\\beta_1 x - \\beta_2 x^2}$$\n\n");
+        sb.Append("**Production**, with human capital H = h·L; on the balanced growth path output per effective worker is ŷ* = " + Num(r.SteadyState.OutputPerEffectiveWorker, 4) + ":\n\n")
+          .Append("$$Y = K^{\\alpha} (A H)^{1-\\alpha}, \\quad \\ln \\hat{y}^{*} = \\frac{\\alpha}{1-\\alpha} \\ln \\frac{s}{n+g+\\delta}$$\n\n");
+        sb.Append("**Output per person**, with technology A = 1 at the brief's date:\n\n")
+          .Append("$$y = \\hat{y}^{*} \\cdot A \\cdot h(E) \\cdot \\omega(E)$$\n\n");
+        sb.Append("**Output-maximising schooling** E* maximises h(E)·ω(E) over 0 ≤ E ≤ R − a₀. With a constant return r > n and rectangular survival, working years at the optimum are (1/r when n = 0):\n\n")
+          .Append("$$W^{*} = \\frac{-\\ln(1 - n/r)}{n}, \\quad E^{*} = R - a_0 - W^{*}$$\n\n");
+        sb.Append("**Method notes.** ");
         sb.Append(inputs.Demography.Survival is RectangularSurvival
             ? "Survival is rectangular, so the population integrals are in closed form, written to stay accurate at and near zero growth. "
             : "Population integrals use composite five-point Gauss–Legendre quadrature on panels of at most one year. ");
@@ -42,7 +45,7 @@ public static class Equations
             _ => "φ as given",
         };
         return hc.Experience is { } e
-            ? $"{schooling}, times the average over working ages of the experience premium e^(β₁x − β₂x²) with β₁ = {Sig(e.Linear, 3)}, β₂ = {Sig(e.Quadratic, 3)} (x = years of work)"
+            ? $"{schooling}, times the average over working ages of the experience premium m(x) below with β₁ = {Sig(e.Linear, 3)}, β₂ = {Sig(e.Quadratic, 3)} (x = years of work)"
             : schooling;
     }
 }
