@@ -4,6 +4,7 @@ using System.Text;
 using Briefwright.Brief;
 using Briefwright.Brief.Annex;
 using Briefwright.Brief.Editions;
+using Briefwright.Brief.Formats;
 using Briefwright.Cli.Commands;
 using Briefwright.Composer;
 using Briefwright.Composer.Drawing;
@@ -62,6 +63,8 @@ public static class BatchBuilder
         string id = scenario.Brief.Id;
         string dir = settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
         string? hash = null;
+        var formats = settings.Options.Formats;
+        string formatNames = OutputFormats.Describe(formats, " ");
         try
         {
             Directory.CreateDirectory(dir);
@@ -84,17 +87,18 @@ public static class BatchBuilder
             if (!settings.Force && !Directory.Exists(folder.TempDir))
             {
                 var (known, quick) = folder.Read(full: false);
-                if (EditionPlanner.Plan(request, quick) is EditionPlan.Skip unchanged)
-                    return new BriefOutcome(file, id, OutcomeStatus.Skipped, unchanged.Edition, Path.Combine(dir, known!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { InputHash = hash };
+                if (EditionPlanner.Plan(request, quick) is EditionPlan.Skip unchanged && HoldsFormats(known, formats))
+                    return new BriefOutcome(file, id, OutcomeStatus.Skipped, unchanged.Edition, Path.Combine(dir, known!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { InputHash = hash, Formats = formatNames };
             }
 
             using var held = BriefLock.Acquire(folder.TempDir, id, message => { lock (error) error.WriteLine($"{file}: {message}"); }, stop);
             FaultSeam.After(id, "locked");
             recovered = EditionTransaction.Recover(folder, held);
             var (current, state) = folder.Read(full: true);
-            var plan = EditionPlanner.Plan(request, state);
+            // Formats switched on or off are not an input of the edition: the same edition is rebuilt with the formats asked for.
+            var plan = EditionPlanner.Plan(HoldsFormats(current, formats) ? request : request with { Force = true }, state);
             if (plan is EditionPlan.Skip skip)
-                return new BriefOutcome(file, id, OutcomeStatus.Skipped, skip.Edition, Path.Combine(dir, current!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { Recovered = recovered, InputHash = hash };
+                return new BriefOutcome(file, id, OutcomeStatus.Skipped, skip.Edition, Path.Combine(dir, current!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { Recovered = recovered, InputHash = hash, Formats = formatNames };
             var build = (EditionPlan.Build)plan;
 
             WarmUp.Start(); // this brief will be built: let the output libraries start up while its model runs
@@ -107,6 +111,7 @@ public static class BatchBuilder
             var brief = BriefBuilder.Build(scenario, settings.Template, settings.Options with { PreviousEdition = before, ChartImages = settings.AnnexImages });
             var files = brief.Annex.Select(a => ($"{brief.FileStem}.{a.Suffix}",
                     settings.CsvByteOrderMark && a.Suffix.EndsWith(".csv", StringComparison.Ordinal) ? [0xEF, 0xBB, 0xBF, .. a.Bytes] : a.Bytes))
+                .Concat(brief.Formats.Select(f => ($"{brief.FileStem}.{f.Suffix}", f.Bytes)))
                 .Append((brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson)))
                 .Append((brief.FileStem + ".pdf", brief.Pdf)).ToList();
             var manifest = new Manifest(id, brief.FileStem, build.Edition, hash, inputs, files.Select(f => f.Item1).ToList())
@@ -118,7 +123,7 @@ public static class BatchBuilder
             string pdf = Path.Combine(dir, brief.FileStem + ".pdf");
             return new BriefOutcome(file, id, OutcomeStatus.Built, build.Edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null)
             {
-                Recovered = recovered, InputHash = hash,
+                Recovered = recovered, InputHash = hash, Formats = formatNames,
                 Archived = archived is null ? null : Path.GetRelativePath(dir, archived),
             };
         }
@@ -165,6 +170,14 @@ public static class BatchBuilder
             return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
         }
     }
+
+    /// <summary>
+    /// The folder holds exactly the formats asked for (besides the PDF): a format switched on or off since the last build
+    /// rebuilds the same edition, since the formats are not an input of the brief. Folders without a manifest say yes.
+    /// </summary>
+    private static bool HoldsFormats(Manifest? manifest, OutputFormat formats) =>
+        manifest is null || OutputFormats.Names.Where(n => n.Format != OutputFormat.Pdf)
+            .All(n => manifest.Files.Contains($"{manifest.Stem}.{n.Name}") == formats.HasFlag(n.Format));
 
     /// <summary>Where in the template the offending text was written: found by its text, else the line of the filled text.</summary>
     private static string Position(BriefTemplate template, ComposeException ex)
