@@ -289,7 +289,7 @@ public sealed class DocxWriter : IBriefWriter
                 new ParagraphPropertiesDefault(new ParagraphPropertiesBaseStyle(new SpacingBetweenLines { After = "120", Line = line, LineRule = LineSpacingRuleValues.Auto }))),
             new Style(new StyleName { Val = "Normal" }, new PrimaryStyle()) { Type = StyleValues.Paragraph, StyleId = "Normal", Default = true },
             Heading(1, 20), Heading(2, 13.5), Heading(3, 11),
-            Para("Subtitle", "Subtitle", "Normal", [], [new FontSize { Val = Half(12.5).ToString(CultureInfo.InvariantCulture) }, new Color { Val = muted }]),
+            Para("Subtitle", "Subtitle", "Normal", [], [new Color { Val = muted }, new FontSize { Val = Half(12.5).ToString(CultureInfo.InvariantCulture) }]),
             Para("Caption", "caption", "Normal", [new KeepNext(), new SpacingBetweenLines { Before = "200", After = "60" }],
                 [new Bold(), new FontSize { Val = Half(theme.CaptionSize).ToString(CultureInfo.InvariantCulture) }]),
             Para("Note", "Source note", "Normal", [], [new Color { Val = muted }, new FontSize { Val = Half(theme.CaptionSize).ToString(CultureInfo.InvariantCulture) }]),

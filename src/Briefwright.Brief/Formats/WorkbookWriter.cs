@@ -15,6 +15,9 @@ public enum ColumnKind
     /// <summary>A whole number such as a calendar year or a count (format <c>0</c>).</summary>
     Whole,
 
+    /// <summary>A number as the spreadsheet program shows it (all its digits); for columns whose values differ in size.</summary>
+    General,
+
     /// <summary>A number shown with three decimals.</summary>
     Number,
 
@@ -82,7 +85,7 @@ public sealed class WorkbookWriter : IBriefWriter
         tables.Add(new SheetTable("About", "What this workbook is.", [new("Item", ColumnKind.Text, 24), new("Value", ColumnKind.Text, 100)], about));
 
         tables.Add(new SheetTable("Assumptions", sheets[0].Item2,
-            [new("Path", ColumnKind.Text, 34), new("Label", ColumnKind.Text, 34), new("Value (percent for rates)", ColumnKind.Number, 14),
+            [new("Path", ColumnKind.Text, 34), new("Label", ColumnKind.Text, 34), new("Value (percent for rates)", ColumnKind.General, 14),
              new("Value as text", ColumnKind.Text, 18), new("Unit", ColumnKind.Text, 10), new("Source", ColumnKind.Text, 50), new("Note", ColumnKind.Text, 50)],
             scenario.Assumptions.Select(x => Row(x.Path, x.Label, x.Unit == ValueUnit.Rate && x.Value is { } v ? new PercentValue(v) : x.Value, x.Text,
                 x.Unit.ToString().ToLowerInvariant(), x.Source, x.Note)).ToList()));
@@ -111,7 +114,7 @@ public sealed class WorkbookWriter : IBriefWriter
 
         if (a.Tornado.Count > 0)
             tables.Add(new SheetTable("Sensitivity", sheets.First(s => s.Item1 == "Sensitivity").Item2,
-                [new("Assumption", ColumnKind.Text, 30), new("Parameter", ColumnKind.Text, 22), new("Low (percent for rates)", ColumnKind.Number), new("High (percent for rates)", ColumnKind.Number),
+                [new("Assumption", ColumnKind.Text, 30), new("Parameter", ColumnKind.Text, 22), new("Low (percent for rates)", ColumnKind.General), new("High (percent for rates)", ColumnKind.General),
                  new("Option", ColumnKind.Text, 30), new("Change at low (%)", ColumnKind.Percent), new("Change at high (%)", ColumnKind.Percent),
                  new("Optimum at low (years)", ColumnKind.Number), new("Optimum at high (years)", ColumnKind.Number)],
                 a.Tornado.SelectMany(t => t.AtLow.OptionIds.Select((id, k) =>
@@ -219,7 +222,7 @@ public sealed class WorkbookWriter : IBriefWriter
         bool b => TextCell(reference, b ? "yes" : "no", General),
         PercentValue p => NumberCell(reference, p.Fraction, PercentFormat),
         double d when !double.IsFinite(d) => null,
-        double d => NumberCell(reference, d, kind switch { ColumnKind.Percent => PercentFormat, ColumnKind.Whole => WholeFormat, _ => NumberFormat }),
+        double d => NumberCell(reference, d, kind switch { ColumnKind.Percent => PercentFormat, ColumnKind.Whole => WholeFormat, ColumnKind.General => General, _ => NumberFormat }),
         int i => NumberCell(reference, i, kind == ColumnKind.Percent ? PercentFormat : WholeFormat),
         _ => TextCell(reference, Convert.ToString(value, CultureInfo.InvariantCulture) ?? "", General),
     };
