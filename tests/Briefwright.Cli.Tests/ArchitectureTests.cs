@@ -117,6 +117,16 @@ public class ArchitectureTests
             f => !f.StartsWith("src/Briefwright.Cli/", StringComparison.Ordinal), allowed));
     }
 
+    [Fact]
+    public void OpenXml_is_used_only_by_the_format_writers_in_Brief()
+    {
+        var offenders = Projects.SelectMany(p => Offenders(p, ["DocumentFormat.OpenXml"], allowed: None))
+            .Where(o => !o.StartsWith("Briefwright.Brief: Briefwright.Brief.Formats.", StringComparison.Ordinal));
+        Assert.Empty(offenders);
+        // The writers return bytes: they hold no file type (checked for every project by the file-access rule too).
+        Assert.Empty(Offenders("Briefwright.Brief", ["System.IO.File", "System.IO.FileStream", "System.IO.Directory"], allowed: None));
+    }
+
     /// <summary>The assembly built from a project under src/ (the command line's is named after the program).</summary>
     private static Assembly Load(string project) =>
         project == "Briefwright.Cli" ? typeof(Batch.BatchBuilder).Assembly : Assembly.Load(project);

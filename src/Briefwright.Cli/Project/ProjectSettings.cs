@@ -114,8 +114,14 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
             var names = formatsNode is YSequence seq ? seq.Items.Select(i => i is YScalar sc && !sc.IsNull ? sc.Value : null).ToList() : null;
             if (names is null || names.Count == 0 || names.Any(n => n is null))
                 ctx.Report(formatsNode.At, "formats", $"must be a list of format names ({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})", BindContext.Show(formatsNode));
+            else if (names.Distinct(StringComparer.OrdinalIgnoreCase).Count() != names.Count)
+                ctx.Report(formatsNode.At, "formats", "must name each format once", BindContext.Show(formatsNode));
             else if (Brief.Formats.OutputFormats.Parse(names!, out string? unknown) is { } parsed) formats = parsed;
-            else ctx.Report(formatsNode.At, "formats", $"must be a list of format names ({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})", unknown);
+            else
+            {
+                var item = ((YSequence)formatsNode).Items.First(i => ((YScalar)i).Value.Trim() == unknown);
+                ctx.Report(item.At, "formats", $"must be a list of format names ({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})", BindContext.Quote(unknown ?? ""));
+            }
         }
         if (ctx.Problems.Count > 0) return new Loaded(null, ctx.Problems, sources);
         return new Loaded(new ProjectSettings(path, template, theme, outDir, date, jobs, chartCopies, bom) { Formats = formats }, [], sources);
