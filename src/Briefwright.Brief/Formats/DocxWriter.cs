@@ -78,7 +78,7 @@ public sealed class DocxWriter : IBriefWriter
                 case HeadingBlock h:
                     string number = "";
                     if (h.Level == 2) { section++; subsection = 0; number = $"{section}  "; }
-                    else if (h.Level >= 3) { subsection++; number = $"{section}.{subsection}  "; }
+                    else if (h.Level == 3) { subsection++; number = $"{section}.{subsection}  "; }
                     string style = h.Level switch { 1 => "Heading1", 2 => "Heading2", _ => "Heading3" };
                     parent.Append(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = style }), new Run(Text(number + h.Text))));
                     break;

@@ -52,8 +52,8 @@ public sealed partial class HtmlWriter : IBriefWriter
         {
             string number = "";
             if (h.Level == 2) { section++; subsection = 0; number = $"{section}"; }
-            else if (h.Level >= 3) { subsection++; number = $"{section}.{subsection}"; }
-            headings.Add((h.Level, number, h.Text, h.Level == 1 ? "title" : "s-" + number.Replace('.', '-')));
+            else if (h.Level == 3) { subsection++; number = $"{section}.{subsection}"; }
+            headings.Add((h.Level, number, h.Text, h.Level == 1 ? "title" : h.Level > 3 ? $"h-{headings.Count}" : "s-" + number.Replace('.', '-')));
         }
         var sections = headings.Where(h => h.Level == 2).ToList();
         if (sections.Count > 0)
@@ -72,6 +72,11 @@ public sealed partial class HtmlWriter : IBriefWriter
             if (block is HeadingBlock h)
             {
                 var (level, number, text, id) = headings[heading++];
+                if (level > 3) // unnumbered, as in the PDF: a heading inside the current section
+                {
+                    sb.Append("<h4 id=\"").Append(id).Append("\">").Append(Text(text)).Append("</h4>\n");
+                    continue;
+                }
                 int depth = level switch { 1 => 0, 2 => 1, _ => 2 };
                 while (open >= Math.Max(depth, 1)) { sb.Append("</section>\n"); open--; }
                 if (depth == 0)
