@@ -1,14 +1,8 @@
 using System.Globalization;
+using System.Text;
 using Briefwright.Composer.Document;
 using Briefwright.Composer.Layout;
-using DocumentFormat.OpenXml;
 using DocumentFormat.OpenXml.Packaging;
-using DocumentFormat.OpenXml.Wordprocessing;
-using A = DocumentFormat.OpenXml.Drawing;
-using DW = DocumentFormat.OpenXml.Drawing.Wordprocessing;
-using PIC = DocumentFormat.OpenXml.Drawing.Pictures;
-using RunStyle = Briefwright.Composer.Document.RunStyle;
-using WordRunStyle = DocumentFormat.OpenXml.Wordprocessing.RunStyle;
 
 namespace Briefwright.Brief.Formats;
 
@@ -16,53 +10,59 @@ namespace Briefwright.Brief.Formats;
 /// The brief as an editable document for clearance rounds: the title and numbered sections as real heading styles (so
 /// a word processor's navigation lists them), tables as tables with a repeated header row, charts as PNG images with
 /// their alternative text, captions in the caption style with sequence numbers, and the theme's font and colours as
-/// the document's styles. Same content, same bytes: relationship ids are fixed, dates are the brief's.
+/// the document's styles. Same content, same bytes: relationship ids are fixed, dates are the brief's. The package and
+/// its parts come from the Open XML SDK; the parts' XML is written here (see <see cref="PartXml"/>).
 /// </summary>
 public sealed class DocxWriter : IBriefWriter
 {
     public string Suffix => "docx";
 
     private const long EmuPerPoint = 12700;
+    private const string W = "http://schemas.openxmlformats.org/wordprocessingml/2006/main";
 
     public byte[] Write(BriefContent content)
     {
         var doc = content.Document;
         var theme = content.Theme;
         using var stream = new MemoryStream();
-        using (var word = WordprocessingDocument.Create(stream, WordprocessingDocumentType.Document))
+        using (var word = WordprocessingDocument.Create(stream, DocumentFormat.OpenXml.WordprocessingDocumentType.Document))
         {
             var main = word.AddNewPart<MainDocumentPart>("application/vnd.openxmlformats-officedocument.wordprocessingml.document.main+xml", "rId1");
-            var styles = main.AddNewPart<StyleDefinitionsPart>("rIdStyles");
-            styles.Styles = Styles(theme, doc.FontFamily ?? "Liberation Sans", doc.Info.Language);
+            PartXml.Feed(main.AddNewPart<StyleDefinitionsPart>("rIdStyles"), Styles(theme, doc.FontFamily ?? "Liberation Sans", doc.Info.Language));
             var builder = new Builder(main, content);
-            var body = new Body();
-            if (doc.Info.Marker is { } marker)
-                body.Append(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = "Marker" }), new Run(new Text(marker))));
+            var body = new StringBuilder(256 * 1024);
+            if (doc.Info.Marker is { } marker) body.Append(Para("Marker", Run(marker)));
             foreach (var block in doc.Blocks) builder.Add(body, block);
-            body.Append(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = "Note" }),
-                new Run(new Text($"Scenario {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · input hash {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}"))));
-            var numbering = main.AddNewPart<NumberingDefinitionsPart>("rIdNumbering");
-            numbering.Numbering = builder.Numbering();
-            var footer = main.AddNewPart<FooterPart>("rIdFooter");
-            footer.Footer = new Footer(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = "Footer" }),
-                new Run(new Text(doc.Info.FooterNote + " · page ") { Space = SpaceProcessingModeValues.Preserve }),
-                new SimpleField(new Run(new Text("1"))) { Instruction = " PAGE " }));
+            body.Append(Para("Note", Run($"Scenario {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · input hash {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}")));
+            PartXml.Feed(main.AddNewPart<NumberingDefinitionsPart>("rIdNumbering"), builder.Numbering());
+            PartXml.Feed(main.AddNewPart<FooterPart>("rIdFooter"),
+                $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · page ") + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
             bool letter = doc.Paper == PaperSize.Letter;
-            body.Append(new SectionProperties(
-                new FooterReference { Type = HeaderFooterValues.Default, Id = "rIdFooter" },
-                new PageSize { Width = letter ? 12240U : 11906U, Height = letter ? 15840U : 16838U },
-                new PageMargin
-                {
-                    Top = Twips(theme.MarginTop), Bottom = Twips(theme.MarginBottom), Left = (uint)Twips(theme.MarginLeft), Right = (uint)Twips(theme.MarginRight),
-                    Header = 567, Footer = 567, Gutter = 0,
-                }));
-            main.Document = new Document(body);
+            body.Append("<w:sectPr><w:footerReference w:type=\"default\" r:id=\"rIdFooter\"/>")
+                .Append($"<w:pgSz w:w=\"{(letter ? 12240 : 11906)}\" w:h=\"{(letter ? 15840 : 16838)}\"/>")
+                .Append($"<w:pgMar w:top=\"{Twips(theme.MarginTop)}\" w:right=\"{Twips(theme.MarginRight)}\" w:bottom=\"{Twips(theme.MarginBottom)}\" w:left=\"{Twips(theme.MarginLeft)}\" w:header=\"567\" w:footer=\"567\" w:gutter=\"0\"/>")
+                .Append("</w:sectPr>");
+            PartXml.Feed(main, $"<w:document xmlns:w=\"{W}\" xmlns:r=\"{PartXml.RelationshipsNs}\" " +
+                "xmlns:wp=\"http://schemas.openxmlformats.org/drawingml/2006/wordprocessingDrawing\" xmlns:a=\"http://schemas.openxmlformats.org/drawingml/2006/main\" " +
+                $"xmlns:pic=\"http://schemas.openxmlformats.org/drawingml/2006/picture\"><w:body>{body}</w:body></w:document>");
             ZipStamp.CoreProperties(word, doc.Info.Title, doc.Info.Author, doc.Info.Date);
         }
         return ZipStamp.Restamp(stream.ToArray(), content.Document.Info.Date);
     }
 
     private static int Twips(double points) => (int)Math.Round(points * 20);
+
+    private static string X(string text) => PartXml.Escape(text);
+
+    /// <summary>A run of text, with bold or italic properties when given.</summary>
+    private static string Run(string text, bool bold = false, bool italic = false, string? style = null)
+    {
+        string props = (style is null ? "" : $"<w:rStyle w:val=\"{style}\"/>") + (bold ? "<w:b/>" : "") + (italic ? "<w:i/>" : "");
+        return "<w:r>" + (props.Length > 0 ? $"<w:rPr>{props}</w:rPr>" : "") + $"<w:t xml:space=\"preserve\">{X(text)}</w:t></w:r>";
+    }
+
+    private static string Para(string style, string runs, string extraProps = "") =>
+        $"<w:p><w:pPr><w:pStyle w:val=\"{style}\"/>{extraProps}</w:pPr>{runs}</w:p>";
 
     private sealed class Builder(MainDocumentPart main, BriefContent content)
     {
@@ -71,7 +71,7 @@ public sealed class DocxWriter : IBriefWriter
         private readonly List<int> orderedLists = [];
         private int section, subsection, tables, figures, images;
 
-        public void Add(OpenXmlElement parent, Block block)
+        public void Add(StringBuilder sb, Block block)
         {
             switch (block)
             {
@@ -80,50 +80,38 @@ public sealed class DocxWriter : IBriefWriter
                     if (h.Level == 2) { section++; subsection = 0; number = $"{section}  "; }
                     else if (h.Level == 3) { subsection++; number = $"{section}.{subsection}  "; }
                     string style = h.Level switch { 1 => "Heading1", 2 => "Heading2", _ => "Heading3" };
-                    parent.Append(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = style }), new Run(Text(number + h.Text))));
+                    sb.Append(Para(style, Run(number + h.Text)));
                     break;
                 case ParagraphBlock p:
-                    parent.Append(Para(p.Role switch { ParagraphRole.Note => "Note", ParagraphRole.Meta => "Note", ParagraphRole.Subtitle => "Subtitle", _ => null }, p.Runs));
+                    sb.Append(Para(p.Role switch { ParagraphRole.Note or ParagraphRole.Meta => "Note", ParagraphRole.Subtitle => "Subtitle", _ => "Normal" }, Runs(p.Runs)));
                     break;
                 case ListBlock l:
                     int num = 1;
                     if (l.Ordered) { orderedLists.Add(orderedLists.Count + 2); num = orderedLists[^1]; }
                     foreach (var item in l.Items)
-                    {
-                        var para = Para("ListParagraph", item);
-                        para.ParagraphProperties!.Append(new NumberingProperties(new NumberingLevelReference { Val = 0 }, new NumberingId { Val = num }));
-                        parent.Append(para);
-                    }
+                        sb.Append(Para("ListParagraph", Runs(item), $"<w:numPr><w:ilvl w:val=\"0\"/><w:numId w:val=\"{num}\"/></w:numPr>"));
                     break;
                 case TableBlock t:
-                    Table(parent, t);
+                    Table(sb, t);
                     break;
                 case FigureBlock f:
-                    Figure(parent, f);
+                    Figure(sb, f);
                     break;
                 case BoxBlock b:
-                    Box(parent, b);
+                    Box(sb, b);
                     break;
                 case PageBreakBlock:
-                    parent.Append(new Paragraph(new Run(new Break { Type = BreakValues.Page })));
+                    sb.Append("<w:p><w:r><w:br w:type=\"page\"/></w:r></w:p>");
                     break;
             }
         }
 
-        private Paragraph Para(string? style, IReadOnlyList<TextRun> runs)
+        private string Runs(IReadOnlyList<TextRun> runs)
         {
-            var para = new Paragraph(new ParagraphProperties(style is null ? new ParagraphStyleId { Val = "Normal" } : new ParagraphStyleId { Val = style }));
+            var sb = new StringBuilder();
             foreach (var r in runs)
             {
-                var run = new Run();
-                if (r.Style != RunStyle.Regular)
-                {
-                    var props = new RunProperties();
-                    if (r.Style is RunStyle.Bold or RunStyle.BoldItalic) props.Append(new Bold());
-                    if (r.Style is RunStyle.Italic or RunStyle.BoldItalic) props.Append(new Italic());
-                    run.Append(props);
-                }
-                run.Append(Text(r.Text));
+                bool bold = r.Style is RunStyle.Bold or RunStyle.BoldItalic, italic = r.Style is RunStyle.Italic or RunStyle.BoldItalic;
                 if (r.Link is { } link && Uri.TryCreate(link, UriKind.Absolute, out var uri))
                 {
                     if (!links.TryGetValue(link, out var id))
@@ -132,65 +120,52 @@ public sealed class DocxWriter : IBriefWriter
                         main.AddHyperlinkRelationship(uri, true, id);
                         links[link] = id;
                     }
-                    run.RunProperties ??= new RunProperties();
-                    run.RunProperties.PrependChild(new WordRunStyle { Val = "Hyperlink" });
-                    para.Append(new Hyperlink(run) { Id = id });
+                    sb.Append($"<w:hyperlink r:id=\"{id}\">").Append(Run(r.Text, bold, italic, "Hyperlink")).Append("</w:hyperlink>");
                 }
-                else para.Append(run);
+                else sb.Append(Run(r.Text, bold, italic));
             }
-            return para;
+            return sb.ToString();
         }
-
-        private static Text Text(string s) => new(s) { Space = SpaceProcessingModeValues.Preserve };
 
         /// <summary>"Table 3. caption" with the number as a sequence field, so a word processor renumbers it.</summary>
-        private static Paragraph Caption(string kind, int number, string caption) => new(
-            new ParagraphProperties(new ParagraphStyleId { Val = "Caption" }, new KeepNext()),
-            new Run(Text(kind + " ")),
-            new SimpleField(new Run(new Text(number.ToString(CultureInfo.InvariantCulture)))) { Instruction = $" SEQ {kind} \\* ARABIC " },
-            new Run(Text(". " + caption)));
+        private static string Caption(string kind, int number, string caption) => Para("Caption",
+            Run(kind + " ") + $"<w:fldSimple w:instr=\" SEQ {kind} \\* ARABIC \">" + Run(number.ToString(CultureInfo.InvariantCulture)) + "</w:fldSimple>" + Run(". " + caption),
+            "<w:keepNext/>");
 
-        private static Paragraph Source(string source) => new(new ParagraphProperties(new ParagraphStyleId { Val = "Note" }),
-            new Run(new RunProperties(new Italic()), Text("Source: ")), new Run(Text(source)));
+        private static string Source(string source) => Para("Note", Run("Source: ", italic: true) + Run(source));
 
-        private void Table(OpenXmlElement parent, TableBlock t)
+        private void Table(StringBuilder sb, TableBlock t)
         {
             tables++;
-            if (t.Caption is not null) parent.Append(Caption("Table", tables, t.Caption));
-            var table = new Table(new TableProperties(
-                new TableStyle { Val = "BriefTable" },
-                new TableWidth { Type = TableWidthUnitValues.Pct, Width = "5000" },
-                new TableLook { FirstRow = true, FirstColumn = true, NoHorizontalBand = false, NoVerticalBand = true, LastRow = false, LastColumn = false },
-                new TableCaption { Val = t.Caption ?? $"Table {tables}" }));
-            var grid = new TableGrid();
-            for (int c = 0; c < t.Header.Count; c++) grid.Append(new GridColumn());
-            table.Append(grid);
-            table.Append(Row(t, t.Header, header: true));
-            foreach (var row in t.Rows) table.Append(Row(t, row, header: false));
-            parent.Append(table);
-            if (t.Source is not null) parent.Append(Source(t.Source));
+            if (t.Caption is not null) sb.Append(Caption("Table", tables, t.Caption));
+            sb.Append("<w:tbl><w:tblPr><w:tblStyle w:val=\"BriefTable\"/><w:tblW w:w=\"5000\" w:type=\"pct\"/>")
+              .Append("<w:tblLook w:firstRow=\"1\" w:lastRow=\"0\" w:firstColumn=\"1\" w:lastColumn=\"0\" w:noHBand=\"0\" w:noVBand=\"1\"/>")
+              .Append($"<w:tblCaption w:val=\"{X(t.Caption ?? $"Table {tables}")}\"/></w:tblPr><w:tblGrid>");
+            for (int c = 0; c < t.Header.Count; c++) sb.Append("<w:gridCol/>");
+            sb.Append("</w:tblGrid>");
+            Row(sb, t, t.Header, header: true);
+            foreach (var row in t.Rows) Row(sb, t, row, header: false);
+            sb.Append("</w:tbl>");
+            if (t.Source is not null) sb.Append(Source(t.Source));
         }
 
-        private static TableRow Row(TableBlock t, IReadOnlyList<string> cells, bool header)
+        private static void Row(StringBuilder sb, TableBlock t, IReadOnlyList<string> cells, bool header)
         {
-            var row = new TableRow();
-            if (header) row.Append(new TableRowProperties(new TableHeader(), new CantSplit()));
+            sb.Append("<w:tr>");
+            if (header) sb.Append("<w:trPr><w:cantSplit/><w:tblHeader/></w:trPr>");
             for (int c = 0; c < cells.Count; c++)
             {
                 var align = c < t.Align.Count ? t.Align[c] : CellAlign.Left;
-                var props = new ParagraphProperties(new ParagraphStyleId { Val = "TableText" });
-                if (align != CellAlign.Left) props.Append(new Justification { Val = align == CellAlign.Right ? JustificationValues.Right : JustificationValues.Center });
-                var run = new Run(Text(cells[c]));
-                if (header) run.PrependChild(new RunProperties(new Bold()));
-                row.Append(new TableCell(new Paragraph(props, run)));
+                string jc = align switch { CellAlign.Right => "<w:jc w:val=\"right\"/>", CellAlign.Center => "<w:jc w:val=\"center\"/>", _ => "" };
+                sb.Append("<w:tc>").Append(Para("TableText", Run(cells[c], bold: header), jc)).Append("</w:tc>");
             }
-            return row;
+            sb.Append("</w:tr>");
         }
 
-        private void Figure(OpenXmlElement parent, FigureBlock f)
+        private void Figure(StringBuilder sb, FigureBlock f)
         {
             figures++;
-            parent.Append(Caption("Figure", figures, f.Caption));
+            sb.Append(Caption("Figure", figures, f.Caption));
             if (charts.GetValueOrDefault(f.Id)?.Png is { } png)
             {
                 images++;
@@ -198,118 +173,91 @@ public sealed class DocxWriter : IBriefWriter
                 var part = main.AddNewPart<ImagePart>("image/png", rid);
                 using (var s = new MemoryStream(png)) part.FeedData(s);
                 long cx = (long)(f.WidthPt * EmuPerPoint), cy = (long)(f.HeightPt * EmuPerPoint);
-                var inline = new DW.Inline(
-                    new DW.Extent { Cx = cx, Cy = cy },
-                    new DW.EffectExtent { LeftEdge = 0, TopEdge = 0, RightEdge = 0, BottomEdge = 0 },
-                    new DW.DocProperties { Id = (uint)images, Name = $"Figure {figures}", Description = f.AltText, Title = f.Caption },
-                    new DW.NonVisualGraphicFrameDrawingProperties(new A.GraphicFrameLocks { NoChangeAspect = true }),
-                    new A.Graphic(new A.GraphicData(
-                        new PIC.Picture(
-                            new PIC.NonVisualPictureProperties(
-                                new PIC.NonVisualDrawingProperties { Id = (uint)images, Name = $"fig-{f.Id}.png", Description = f.AltText },
-                                new PIC.NonVisualPictureDrawingProperties()),
-                            new PIC.BlipFill(new A.Blip { Embed = rid }, new A.Stretch(new A.FillRectangle())),
-                            new PIC.ShapeProperties(
-                                new A.Transform2D(new A.Offset { X = 0, Y = 0 }, new A.Extents { Cx = cx, Cy = cy }),
-                                new A.PresetGeometry(new A.AdjustValueList()) { Preset = A.ShapeTypeValues.Rectangle })))
-                    { Uri = "http://schemas.openxmlformats.org/drawingml/2006/picture" }))
-                { DistanceFromTop = 0, DistanceFromBottom = 0, DistanceFromLeft = 0, DistanceFromRight = 0 };
-                parent.Append(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = "Figure" }, new KeepNext()), new Run(new Drawing(inline))));
+                string alt = X(f.AltText);
+                sb.Append(Para("Figure",
+                    "<w:r><w:drawing><wp:inline distT=\"0\" distB=\"0\" distL=\"0\" distR=\"0\">" +
+                    $"<wp:extent cx=\"{cx}\" cy=\"{cy}\"/><wp:effectExtent l=\"0\" t=\"0\" r=\"0\" b=\"0\"/>" +
+                    $"<wp:docPr id=\"{images}\" name=\"Figure {figures}\" descr=\"{alt}\" title=\"{X(f.Caption)}\"/>" +
+                    "<wp:cNvGraphicFramePr><a:graphicFrameLocks noChangeAspect=\"1\"/></wp:cNvGraphicFramePr>" +
+                    "<a:graphic><a:graphicData uri=\"http://schemas.openxmlformats.org/drawingml/2006/picture\"><pic:pic>" +
+                    $"<pic:nvPicPr><pic:cNvPr id=\"{images}\" name=\"{X($"fig-{f.Id}.png")}\" descr=\"{alt}\"/><pic:cNvPicPr/></pic:nvPicPr>" +
+                    $"<pic:blipFill><a:blip r:embed=\"{rid}\"/><a:stretch><a:fillRect/></a:stretch></pic:blipFill>" +
+                    $"<pic:spPr><a:xfrm><a:off x=\"0\" y=\"0\"/><a:ext cx=\"{cx}\" cy=\"{cy}\"/></a:xfrm><a:prstGeom prst=\"rect\"><a:avLst/></a:prstGeom></pic:spPr>" +
+                    "</pic:pic></a:graphicData></a:graphic></wp:inline></w:drawing></w:r>",
+                    "<w:keepNext/>"));
             }
-            else parent.Append(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = "Note" }), new Run(Text(f.AltText))));
-            if (f.Source is not null) parent.Append(Source(f.Source));
+            else sb.Append(Para("Note", Run(f.AltText)));
+            if (f.Source is not null) sb.Append(Source(f.Source));
         }
 
         /// <summary>A shaded box (key findings): a one-cell table shaded in the theme's box colour.</summary>
-        private void Box(OpenXmlElement parent, BoxBlock b)
+        private void Box(StringBuilder sb, BoxBlock b)
         {
-            var cell = new TableCell(new TableCellProperties(new Shading { Val = ShadingPatternValues.Clear, Color = "auto", Fill = Hex(content.Theme.BoxFill) }));
-            if (b.Title is not null) cell.Append(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = "BoxTitle" }), new Run(Text(b.Title))));
+            var cell = new StringBuilder();
+            if (b.Title is not null) cell.Append(Para("BoxTitle", Run(b.Title)));
             foreach (var inner in b.Content) Add(cell, inner);
-            if (!cell.Elements<Paragraph>().Any() && !cell.Elements<Table>().Any()) cell.Append(new Paragraph());
-            if (cell.LastChild is Table) cell.Append(new Paragraph());
-            parent.Append(new Table(
-                new TableProperties(
-                    new TableWidth { Type = TableWidthUnitValues.Pct, Width = "5000" },
-                    new TableBorders(new LeftBorder { Val = BorderValues.Single, Size = 24, Color = Hex(content.Theme.Accent) }),
-                    new TableLayout { Type = TableLayoutValues.Fixed },
-                    new TableCaption { Val = b.Title ?? "Box" }),
-                new TableGrid(new GridColumn()),
-                new TableRow(new TableRowProperties(new CantSplit()), cell)));
-            parent.Append(new Paragraph(new ParagraphProperties(new ParagraphStyleId { Val = "Normal" })));
+            string inside = cell.ToString();
+            // A table cell must end with a paragraph.
+            if (inside.Length == 0 || inside.EndsWith("</w:tbl>", StringComparison.Ordinal)) inside += "<w:p/>";
+            sb.Append("<w:tbl><w:tblPr><w:tblW w:w=\"5000\" w:type=\"pct\"/>")
+              .Append($"<w:tblBorders><w:left w:val=\"single\" w:sz=\"24\" w:space=\"0\" w:color=\"{Hex(content.Theme.Accent)}\"/></w:tblBorders>")
+              .Append($"<w:tblLayout w:type=\"fixed\"/><w:tblCaption w:val=\"{X(b.Title ?? "Box")}\"/></w:tblPr><w:tblGrid><w:gridCol/></w:tblGrid>")
+              .Append($"<w:tr><w:trPr><w:cantSplit/></w:trPr><w:tc><w:tcPr><w:shd w:val=\"clear\" w:color=\"auto\" w:fill=\"{Hex(content.Theme.BoxFill)}\"/></w:tcPr>")
+              .Append(inside).Append("</w:tc></w:tr></w:tbl>")
+              .Append("<w:p><w:pPr><w:pStyle w:val=\"Normal\"/></w:pPr></w:p>");
         }
 
         /// <summary>Bullets (number 1) and one numbering per ordered list, each starting at 1.</summary>
-        public Numbering Numbering()
+        public string Numbering()
         {
-            var numbering = new Numbering(
-                new AbstractNum(new Level(
-                    new NumberingFormat { Val = NumberFormatValues.Bullet }, new LevelText { Val = "•" },
-                    new PreviousParagraphProperties(new Indentation { Left = "360", Hanging = "240" })) { LevelIndex = 0 }) { AbstractNumberId = 1 },
-                new AbstractNum(new Level(
-                    new StartNumberingValue { Val = 1 }, new NumberingFormat { Val = NumberFormatValues.Decimal }, new LevelText { Val = "%1." },
-                    new PreviousParagraphProperties(new Indentation { Left = "360", Hanging = "300" })) { LevelIndex = 0 }) { AbstractNumberId = 2 },
-                new NumberingInstance(new AbstractNumId { Val = 1 }) { NumberID = 1 });
+            var sb = new StringBuilder($"<w:numbering xmlns:w=\"{W}\">");
+            sb.Append("<w:abstractNum w:abstractNumId=\"1\"><w:lvl w:ilvl=\"0\"><w:numFmt w:val=\"bullet\"/><w:lvlText w:val=\"•\"/>")
+              .Append("<w:pPr><w:ind w:left=\"360\" w:hanging=\"240\"/></w:pPr></w:lvl></w:abstractNum>")
+              .Append("<w:abstractNum w:abstractNumId=\"2\"><w:lvl w:ilvl=\"0\"><w:start w:val=\"1\"/><w:numFmt w:val=\"decimal\"/><w:lvlText w:val=\"%1.\"/>")
+              .Append("<w:pPr><w:ind w:left=\"360\" w:hanging=\"300\"/></w:pPr></w:lvl></w:abstractNum>")
+              .Append("<w:num w:numId=\"1\"><w:abstractNumId w:val=\"1\"/></w:num>");
             foreach (int id in orderedLists)
-                numbering.Append(new NumberingInstance(new AbstractNumId { Val = 2 },
-                    new LevelOverride(new StartOverrideNumberingValue { Val = 1 }) { LevelIndex = 0 }) { NumberID = id });
-            return numbering;
+                sb.Append($"<w:num w:numId=\"{id}\"><w:abstractNumId w:val=\"2\"/><w:lvlOverride w:ilvl=\"0\"><w:startOverride w:val=\"1\"/></w:lvlOverride></w:num>");
+            return sb.Append("</w:numbering>").ToString();
         }
     }
 
     private static string Hex(Rgb c) => $"{c.R:X2}{c.G:X2}{c.B:X2}";
 
     /// <summary>The theme as styles: font and colours, the brief's type sizes (half-points), headings with outline levels.</summary>
-    private static Styles Styles(Theme theme, string font, string language)
+    private static string Styles(Theme theme, string font, string language)
     {
-        string text = Hex(theme.Text), accent = Hex(theme.Accent), muted = Hex(theme.Muted);
-        int Half(double pt) => (int)Math.Round(pt * 2);
-        Style Para(string id, string name, string? basedOn, OpenXmlElement[] para, OpenXmlElement[] run, bool primary = true)
-        {
-            var style = new Style { Type = StyleValues.Paragraph, StyleId = id };
-            style.Append(new StyleName { Val = name });
-            if (basedOn is not null) style.Append(new BasedOn { Val = basedOn });
-            style.Append(new NextParagraphStyle { Val = "Normal" });
-            if (primary) style.Append(new PrimaryStyle());
-            style.Append(new StyleParagraphProperties(para));
-            style.Append(new StyleRunProperties(run));
-            return style;
-        }
-        Style Heading(int level, double size) => Para($"Heading{level}", $"heading {level}", "Normal",
-            [new KeepNext(), new KeepLines(), new SpacingBetweenLines { Before = level == 1 ? "0" : level == 2 ? "320" : "200", After = "80" }, new OutlineLevel { Val = level - 1 }],
-            [new Bold(), new Color { Val = accent }, new FontSize { Val = Half(size).ToString(CultureInfo.InvariantCulture) }]);
-        var line = ((int)Math.Round(240 * theme.LineFactor)).ToString(CultureInfo.InvariantCulture);
-        return new Styles(
-            new DocDefaults(
-                new RunPropertiesDefault(new RunPropertiesBaseStyle(
-                    new RunFonts { Ascii = font, HighAnsi = font, ComplexScript = font, EastAsia = font },
-                    new Color { Val = text },
-                    new FontSize { Val = Half(theme.BodySize).ToString(CultureInfo.InvariantCulture) },
-                    new Languages { Val = language })),
-                new ParagraphPropertiesDefault(new ParagraphPropertiesBaseStyle(new SpacingBetweenLines { After = "120", Line = line, LineRule = LineSpacingRuleValues.Auto }))),
-            new Style(new StyleName { Val = "Normal" }, new PrimaryStyle()) { Type = StyleValues.Paragraph, StyleId = "Normal", Default = true },
-            Heading(1, 20), Heading(2, 13.5), Heading(3, 11),
-            Para("Subtitle", "Subtitle", "Normal", [], [new Color { Val = muted }, new FontSize { Val = Half(12.5).ToString(CultureInfo.InvariantCulture) }]),
-            Para("Caption", "caption", "Normal", [new KeepNext(), new SpacingBetweenLines { Before = "200", After = "60" }],
-                [new Bold(), new FontSize { Val = Half(theme.CaptionSize).ToString(CultureInfo.InvariantCulture) }]),
-            Para("Note", "Source note", "Normal", [], [new Color { Val = muted }, new FontSize { Val = Half(theme.CaptionSize).ToString(CultureInfo.InvariantCulture) }]),
-            Para("Figure", "Figure", "Normal", [new KeepNext(), new SpacingBetweenLines { After = "40" }], []),
-            Para("TableText", "Table text", "Normal", [new SpacingBetweenLines { Before = "20", After = "20", Line = "240", LineRule = LineSpacingRuleValues.Auto }],
-                [new FontSize { Val = Half(theme.TableSize).ToString(CultureInfo.InvariantCulture) }]),
-            Para("ListParagraph", "List Paragraph", "Normal", [new Indentation { Left = "360" }, new ContextualSpacing()], []),
-            Para("BoxTitle", "Box title", "Normal", [new KeepNext()], [new Bold(), new Color { Val = accent }, new FontSize { Val = Half(11).ToString(CultureInfo.InvariantCulture) }]),
-            Para("Marker", "Draft marker", "Normal", [new Justification { Val = JustificationValues.Right }], [new Bold(), new Color { Val = "A4161A" }]),
-            Para("Footer", "footer", "Normal", [], [new Color { Val = muted }, new FontSize { Val = "16" }], primary: false),
-            new Style(new StyleName { Val = "Hyperlink" }, new StyleRunProperties(new Color { Val = accent }, new Underline { Val = UnderlineValues.Single })) { Type = StyleValues.Character, StyleId = "Hyperlink" },
-            new Style(
-                new StyleName { Val = "Brief table" },
-                new StyleTableProperties(new TableBorders(
-                    new TopBorder { Val = BorderValues.Single, Size = 4, Color = Hex(theme.Rule) },
-                    new BottomBorder { Val = BorderValues.Single, Size = 4, Color = Hex(theme.Rule) },
-                    new InsideHorizontalBorder { Val = BorderValues.Single, Size = 4, Color = Hex(theme.Rule) }),
-                    new TableCellMarginDefault(new TopMargin { Width = "30", Type = TableWidthUnitValues.Dxa }, new BottomMargin { Width = "30", Type = TableWidthUnitValues.Dxa })),
-                new TableStyleProperties(new TableStyleConditionalFormattingTableCellProperties(
-                    new Shading { Val = ShadingPatternValues.Clear, Color = "auto", Fill = Hex(theme.HeaderFill) })) { Type = TableStyleOverrideValues.FirstRow })
-            { Type = StyleValues.Table, StyleId = "BriefTable" });
+        string text = Hex(theme.Text), accent = Hex(theme.Accent), muted = Hex(theme.Muted), rule = Hex(theme.Rule);
+        static string Half(double pt) => ((int)Math.Round(pt * 2)).ToString(CultureInfo.InvariantCulture);
+        static string Style(string id, string name, string para, string run, bool primary = true) =>
+            $"<w:style w:type=\"paragraph\" w:styleId=\"{id}\"><w:name w:val=\"{name}\"/><w:basedOn w:val=\"Normal\"/><w:next w:val=\"Normal\"/>" +
+            (primary ? "<w:qFormat/>" : "") + $"<w:pPr>{para}</w:pPr><w:rPr>{run}</w:rPr></w:style>";
+        static string Heading(int level, double size, string accent) => Style($"Heading{level}", $"heading {level}",
+            $"<w:keepNext/><w:keepLines/><w:spacing w:before=\"{(level == 1 ? 0 : level == 2 ? 320 : 200)}\" w:after=\"80\"/><w:outlineLvl w:val=\"{level - 1}\"/>",
+            $"<w:b/><w:color w:val=\"{accent}\"/><w:sz w:val=\"{Half(size)}\"/>");
+        string line = ((int)Math.Round(240 * theme.LineFactor)).ToString(CultureInfo.InvariantCulture);
+        string f = X(font);
+        return $"<w:styles xmlns:w=\"{W}\">" +
+            $"<w:docDefaults><w:rPrDefault><w:rPr><w:rFonts w:ascii=\"{f}\" w:eastAsia=\"{f}\" w:hAnsi=\"{f}\" w:cs=\"{f}\"/><w:color w:val=\"{text}\"/>" +
+            $"<w:sz w:val=\"{Half(theme.BodySize)}\"/><w:lang w:val=\"{X(language)}\"/></w:rPr></w:rPrDefault>" +
+            $"<w:pPrDefault><w:pPr><w:spacing w:after=\"120\" w:line=\"{line}\" w:lineRule=\"auto\"/></w:pPr></w:pPrDefault></w:docDefaults>" +
+            "<w:style w:type=\"paragraph\" w:default=\"1\" w:styleId=\"Normal\"><w:name w:val=\"Normal\"/><w:qFormat/></w:style>" +
+            Heading(1, 20, accent) + Heading(2, 13.5, accent) + Heading(3, 11, accent) +
+            Style("Subtitle", "Subtitle", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"{Half(12.5)}\"/>") +
+            Style("Caption", "caption", "<w:keepNext/><w:spacing w:before=\"200\" w:after=\"60\"/>", $"<w:b/><w:sz w:val=\"{Half(theme.CaptionSize)}\"/>") +
+            Style("Note", "Source note", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"{Half(theme.CaptionSize)}\"/>") +
+            Style("Figure", "Figure", "<w:keepNext/><w:spacing w:after=\"40\"/>", "") +
+            Style("TableText", "Table text", "<w:spacing w:before=\"20\" w:after=\"20\" w:line=\"240\" w:lineRule=\"auto\"/>", $"<w:sz w:val=\"{Half(theme.TableSize)}\"/>") +
+            Style("ListParagraph", "List Paragraph", "<w:ind w:left=\"360\"/><w:contextualSpacing/>", "") +
+            Style("BoxTitle", "Box title", "<w:keepNext/>", $"<w:b/><w:color w:val=\"{accent}\"/><w:sz w:val=\"{Half(11)}\"/>") +
+            Style("Marker", "Draft marker", "<w:jc w:val=\"right\"/>", "<w:b/><w:color w:val=\"A4161A\"/>") +
+            Style("Footer", "footer", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"16\"/>", primary: false) +
+            $"<w:style w:type=\"character\" w:styleId=\"Hyperlink\"><w:name w:val=\"Hyperlink\"/><w:rPr><w:color w:val=\"{accent}\"/><w:u w:val=\"single\"/></w:rPr></w:style>" +
+            "<w:style w:type=\"table\" w:styleId=\"BriefTable\"><w:name w:val=\"Brief table\"/><w:tblPr><w:tblBorders>" +
+            $"<w:top w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/><w:bottom w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/>" +
+            $"<w:insideH w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/></w:tblBorders>" +
+            "<w:tblCellMar><w:top w:w=\"30\" w:type=\"dxa\"/><w:bottom w:w=\"30\" w:type=\"dxa\"/></w:tblCellMar></w:tblPr>" +
+            $"<w:tblStylePr w:type=\"firstRow\"><w:tcPr><w:shd w:val=\"clear\" w:color=\"auto\" w:fill=\"{Hex(theme.HeaderFill)}\"/></w:tcPr></w:tblStylePr></w:style>" +
+            "</w:styles>";
     }
 }

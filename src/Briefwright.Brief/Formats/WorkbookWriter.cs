@@ -1,9 +1,9 @@
 using System.Globalization;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
+using System.Text;
 using DocumentFormat.OpenXml;
 using DocumentFormat.OpenXml.Packaging;
-using DocumentFormat.OpenXml.Spreadsheet;
 
 namespace Briefwright.Brief.Formats;
 
@@ -175,72 +175,92 @@ public sealed class WorkbookWriter : IBriefWriter
         {
             var book = doc.AddNewPart<WorkbookPart>("application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml", "rId1");
             var styles = book.AddNewPart<WorkbookStylesPart>("rIdStyles");
-            styles.Stylesheet = Stylesheet($"FF{headerFill.R:X2}{headerFill.G:X2}{headerFill.B:X2}");
-            var sheets = new Sheets();
+            PartXml.Feed(styles, Stylesheet($"FF{headerFill.R:X2}{headerFill.G:X2}{headerFill.B:X2}"));
+            var sheets = new StringBuilder();
             for (int i = 0; i < tables.Count; i++)
             {
                 string rid = $"rIdSheet{i + 1}";
-                var part = book.AddNewPart<WorksheetPart>(rid);
-                part.Worksheet = Worksheet(tables[i]);
-                sheets.Append(new Sheet { Name = tables[i].Name, SheetId = (uint)(i + 1), Id = rid });
+                PartXml.Feed(book.AddNewPart<WorksheetPart>(rid), Worksheet(tables[i]));
+                sheets.Append("<sheet name=\"").Append(PartXml.Escape(tables[i].Name)).Append("\" sheetId=\"").Append(i + 1).Append("\" r:id=\"").Append(rid).Append("\"/>");
             }
-            book.Workbook = new Workbook(new BookViews(new WorkbookView()), sheets);
+            PartXml.Feed(book, $"<workbook xmlns=\"{Main}\" xmlns:r=\"{PartXml.RelationshipsNs}\"><bookViews><workbookView/></bookViews><sheets>{sheets}</sheets></workbook>");
             ZipStamp.CoreProperties(doc, title, organisation, date);
         }
         return ZipStamp.Restamp(stream.ToArray(), date);
     }
 
-    private static Worksheet Worksheet(SheetTable table)
+    private const string Main = "http://schemas.openxmlformats.org/spreadsheetml/2006/main";
+
+    /// <summary>
+    /// A sheet's XML, written directly: the SDK's typed element classes would bring the whole spreadsheet schema into
+    /// the native executable (tens of megabytes); the tests read every part back with those classes and validate it.
+    /// </summary>
+    private static string Worksheet(SheetTable table)
     {
-        var view = new SheetView { WorkbookViewId = 0, TabSelected = table.Name == "About" };
-        view.Append(new Pane { VerticalSplit = 1, TopLeftCell = "A2", ActivePane = PaneValues.BottomLeft, State = PaneStateValues.Frozen });
-        view.Append(new Selection { Pane = PaneValues.BottomLeft, ActiveCell = "A2", SequenceOfReferences = new ListValue<StringValue>(["A2"]) });
-        var columns = new Columns(table.Columns.Select((c, i) => new Column { Min = (uint)(i + 1), Max = (uint)(i + 1), Width = c.Width, CustomWidth = true }));
-        var data = new SheetData();
-        var header = new Row { RowIndex = 1 };
-        for (int c = 0; c < table.Columns.Count; c++) header.Append(TextCell(Ref(c, 1), table.Columns[c].Header, Header));
-        data.Append(header);
+        var sb = new StringBuilder(table.Rows.Count * table.Columns.Count * 48 + 1024);
+        sb.Append("<worksheet xmlns=\"").Append(Main).Append("\"><sheetViews><sheetView").Append(table.Name == "About" ? " tabSelected=\"1\"" : "")
+          .Append(" workbookViewId=\"0\"><pane ySplit=\"1\" topLeftCell=\"A2\" activePane=\"bottomLeft\" state=\"frozen\"/>")
+          .Append("<selection pane=\"bottomLeft\" activeCell=\"A2\" sqref=\"A2\"/></sheetView></sheetViews><sheetFormatPr defaultRowHeight=\"15\"/><cols>");
+        for (int c = 0; c < table.Columns.Count; c++)
+            sb.Append("<col min=\"").Append(c + 1).Append("\" max=\"").Append(c + 1).Append("\" width=\"")
+              .Append(table.Columns[c].Width.ToString("R", CultureInfo.InvariantCulture)).Append("\" customWidth=\"1\"/>");
+        sb.Append("</cols><sheetData><row r=\"1\">");
+        for (int c = 0; c < table.Columns.Count; c++) TextCell(sb, Ref(c, 1), table.Columns[c].Header, Header);
+        sb.Append("</row>");
         for (int r = 0; r < table.Rows.Count; r++)
         {
             uint index = (uint)(r + 2);
-            var row = new Row { RowIndex = index };
+            sb.Append("<row r=\"").Append(index).Append("\">");
             var cells = table.Rows[r];
-            for (int c = 0; c < cells.Count && c < table.Columns.Count; c++)
-                if (Cell(Ref(c, index), cells[c], table.Columns[c].Kind, table.Name == "About") is { } cell) row.Append(cell);
-            data.Append(row);
+            for (int c = 0; c < cells.Count && c < table.Columns.Count; c++) Cell(sb, Ref(c, index), cells[c], table.Columns[c].Kind, table.Name == "About");
+            sb.Append("</row>");
         }
-        var sheet = new Worksheet(new SheetViews(view), new SheetFormatProperties { DefaultRowHeight = 15 }, columns, data);
-        if (table.Rows.Count > 0)
-            sheet.Append(new AutoFilter { Reference = $"A1:{Ref(table.Columns.Count - 1, (uint)(table.Rows.Count + 1))}" });
-        return sheet;
+        sb.Append("</sheetData>");
+        if (table.Rows.Count > 0) sb.Append("<autoFilter ref=\"A1:").Append(Ref(table.Columns.Count - 1, (uint)(table.Rows.Count + 1))).Append("\"/>");
+        return sb.Append("</worksheet>").ToString();
     }
 
-    private static Cell? Cell(string reference, object? value, ColumnKind kind, bool wrap) => value switch
+    private static void Cell(StringBuilder sb, string reference, object? value, ColumnKind kind, bool wrap)
     {
-        null => null,
-        string s => TextCell(reference, s, wrap ? WrapText : General),
-        bool b => TextCell(reference, b ? "yes" : "no", General),
-        PercentValue p => NumberCell(reference, p.Fraction, PercentFormat),
-        double d when !double.IsFinite(d) => null,
-        double d => NumberCell(reference, d, kind switch { ColumnKind.Percent => PercentFormat, ColumnKind.Whole => WholeFormat, ColumnKind.General => General, _ => NumberFormat }),
-        int i => NumberCell(reference, i, kind == ColumnKind.Percent ? PercentFormat : WholeFormat),
-        _ => TextCell(reference, Convert.ToString(value, CultureInfo.InvariantCulture) ?? "", General),
-    };
+        switch (value)
+        {
+            case null:
+                break;
+            case string s:
+                TextCell(sb, reference, s, wrap ? WrapText : General);
+                break;
+            case bool b:
+                TextCell(sb, reference, b ? "yes" : "no", General);
+                break;
+            case PercentValue p:
+                NumberCell(sb, reference, p.Fraction, PercentFormat);
+                break;
+            case double d when !double.IsFinite(d):
+                break;
+            case double d:
+                NumberCell(sb, reference, d, kind switch { ColumnKind.Percent => PercentFormat, ColumnKind.Whole => WholeFormat, ColumnKind.General => General, _ => NumberFormat });
+                break;
+            case int i:
+                NumberCell(sb, reference, i, kind == ColumnKind.Percent ? PercentFormat : WholeFormat);
+                break;
+            default:
+                TextCell(sb, reference, Convert.ToString(value, CultureInfo.InvariantCulture) ?? "", General);
+                break;
+        }
+    }
 
-    private static Cell NumberCell(string reference, double value, uint style) =>
-        new() { CellReference = reference, StyleIndex = style, CellValue = new CellValue(value.ToString("R", CultureInfo.InvariantCulture)) };
+    private static void NumberCell(StringBuilder sb, string reference, double value, uint style) =>
+        sb.Append("<c r=\"").Append(reference).Append("\"").Append(style == 0 ? "" : $" s=\"{style}\"").Append("><v>")
+          .Append(value.ToString("R", CultureInfo.InvariantCulture)).Append("</v></c>");
 
     /// <summary>A typed text cell; text that starts like a formula gets the quote prefix, so editing the cell keeps it text.</summary>
-    private static Cell TextCell(string reference, string text, uint style)
+    private static void TextCell(StringBuilder sb, string reference, string text, uint style)
     {
         bool formulaLike = text.Length > 0 && text[0] is '=' or '+' or '-' or '@' or '\t' or '\r';
-        var t = new Text(text);
-        if (text.Length > 0 && (char.IsWhiteSpace(text[0]) || char.IsWhiteSpace(text[^1]))) t.Space = SpaceProcessingModeValues.Preserve;
-        return new Cell
-        {
-            CellReference = reference, DataType = CellValues.InlineString, InlineString = new InlineString(t),
-            StyleIndex = formulaLike && style == General ? QuotedText : style,
-        };
+        uint s = formulaLike && style == General ? QuotedText : style;
+        bool preserve = text.Length > 0 && (char.IsWhiteSpace(text[0]) || char.IsWhiteSpace(text[^1]));
+        sb.Append("<c r=\"").Append(reference).Append("\"").Append(s == 0 ? "" : $" s=\"{s}\"").Append(" t=\"inlineStr\"><is><t")
+          .Append(preserve ? " xml:space=\"preserve\"" : "").Append('>').Append(PartXml.Escape(text)).Append("</t></is></c>");
     }
 
     public static string Ref(int column, uint row)
@@ -250,26 +270,21 @@ public sealed class WorkbookWriter : IBriefWriter
         return letters + row.ToString(CultureInfo.InvariantCulture);
     }
 
-    private static Stylesheet Stylesheet(string headerArgb) => new(
-        new NumberingFormats(
-            new NumberingFormat { NumberFormatId = 164, FormatCode = "0.0%" },
-            new NumberingFormat { NumberFormatId = 165, FormatCode = "0.000" }) { Count = 2 },
-        new Fonts(
-            new Font(new FontSize { Val = 10 }, new FontName { Val = "Liberation Sans" }),
-            new Font(new Bold(), new FontSize { Val = 10 }, new FontName { Val = "Liberation Sans" })) { Count = 2 },
-        new Fills(
-            new Fill(new PatternFill { PatternType = PatternValues.None }),
-            new Fill(new PatternFill { PatternType = PatternValues.Gray125 }),
-            new Fill(new PatternFill(new ForegroundColor { Rgb = headerArgb }) { PatternType = PatternValues.Solid })) { Count = 3 },
-        new Borders(new Border(new LeftBorder(), new RightBorder(), new TopBorder(), new BottomBorder(), new DiagonalBorder())) { Count = 1 },
-        new CellStyleFormats(new CellFormat { NumberFormatId = 0, FontId = 0, FillId = 0, BorderId = 0 }) { Count = 1 },
-        new CellFormats(
-            new CellFormat { NumberFormatId = 0, FontId = 0, FillId = 0, BorderId = 0, FormatId = 0 },
-            new CellFormat(new Alignment { WrapText = true, Vertical = VerticalAlignmentValues.Top }) { NumberFormatId = 0, FontId = 1, FillId = 2, BorderId = 0, FormatId = 0, ApplyFont = true, ApplyFill = true, ApplyAlignment = true },
-            new CellFormat { NumberFormatId = 164, FontId = 0, FillId = 0, BorderId = 0, FormatId = 0, ApplyNumberFormat = true },
-            new CellFormat { NumberFormatId = 165, FontId = 0, FillId = 0, BorderId = 0, FormatId = 0, ApplyNumberFormat = true },
-            new CellFormat { NumberFormatId = 1, FontId = 0, FillId = 0, BorderId = 0, FormatId = 0, ApplyNumberFormat = true },
-            new CellFormat(new Alignment { WrapText = true, Vertical = VerticalAlignmentValues.Top }) { NumberFormatId = 0, FontId = 0, FillId = 0, BorderId = 0, FormatId = 0, ApplyAlignment = true },
-            new CellFormat { NumberFormatId = 49, FontId = 0, FillId = 0, BorderId = 0, FormatId = 0, ApplyNumberFormat = true, QuotePrefix = true }) { Count = 7 },
-        new CellStyles(new CellStyle { Name = "Normal", FormatId = 0, BuiltinId = 0 }) { Count = 1 });
+    private static string Stylesheet(string headerArgb) =>
+        $"<styleSheet xmlns=\"{Main}\">" +
+        "<numFmts count=\"2\"><numFmt numFmtId=\"164\" formatCode=\"0.0%\"/><numFmt numFmtId=\"165\" formatCode=\"0.000\"/></numFmts>" +
+        "<fonts count=\"2\"><font><sz val=\"10\"/><name val=\"Liberation Sans\"/></font><font><b/><sz val=\"10\"/><name val=\"Liberation Sans\"/></font></fonts>" +
+        "<fills count=\"3\"><fill><patternFill patternType=\"none\"/></fill><fill><patternFill patternType=\"gray125\"/></fill>" +
+        $"<fill><patternFill patternType=\"solid\"><fgColor rgb=\"{headerArgb}\"/></patternFill></fill></fills>" +
+        "<borders count=\"1\"><border><left/><right/><top/><bottom/><diagonal/></border></borders>" +
+        "<cellStyleXfs count=\"1\"><xf numFmtId=\"0\" fontId=\"0\" fillId=\"0\" borderId=\"0\"/></cellStyleXfs>" +
+        "<cellXfs count=\"7\">" +
+        "<xf numFmtId=\"0\" fontId=\"0\" fillId=\"0\" borderId=\"0\" xfId=\"0\"/>" +
+        "<xf numFmtId=\"0\" fontId=\"1\" fillId=\"2\" borderId=\"0\" xfId=\"0\" applyFont=\"1\" applyFill=\"1\" applyAlignment=\"1\"><alignment vertical=\"top\" wrapText=\"1\"/></xf>" +
+        "<xf numFmtId=\"164\" fontId=\"0\" fillId=\"0\" borderId=\"0\" xfId=\"0\" applyNumberFormat=\"1\"/>" +
+        "<xf numFmtId=\"165\" fontId=\"0\" fillId=\"0\" borderId=\"0\" xfId=\"0\" applyNumberFormat=\"1\"/>" +
+        "<xf numFmtId=\"1\" fontId=\"0\" fillId=\"0\" borderId=\"0\" xfId=\"0\" applyNumberFormat=\"1\"/>" +
+        "<xf numFmtId=\"0\" fontId=\"0\" fillId=\"0\" borderId=\"0\" xfId=\"0\" applyAlignment=\"1\"><alignment vertical=\"top\" wrapText=\"1\"/></xf>" +
+        "<xf numFmtId=\"49\" fontId=\"0\" fillId=\"0\" borderId=\"0\" xfId=\"0\" quotePrefix=\"1\" applyNumberFormat=\"1\"/>" +
+        "</cellXfs><cellStyles count=\"1\"><cellStyle name=\"Normal\" xfId=\"0\" builtinId=\"0\"/></cellStyles></styleSheet>";
 }
