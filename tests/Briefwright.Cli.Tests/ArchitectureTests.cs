@@ -118,10 +118,11 @@ public class ArchitectureTests
     }
 
     [Fact]
-    public void OpenXml_is_used_only_by_the_format_writers_in_Brief()
+    public void The_OpenXml_sdk_is_for_the_tests_only()
     {
-        var offenders = Projects.SelectMany(p => Offenders(p, ["DocumentFormat.OpenXml"], allowed: None))
-            .Where(o => !o.StartsWith("Briefwright.Brief: Briefwright.Brief.Formats.", StringComparison.Ordinal));
+        // The workbook and document are written by Brief/Formats/OfficePackage: the SDK's packaging kept about 20 MB in
+        // the native executable (measured 19 → 40 MB). The tests read the files back and validate them with it.
+        var offenders = Projects.SelectMany(p => Offenders(p, ["DocumentFormat.OpenXml", "System.IO.Packaging"], allowed: None));
         Assert.Empty(offenders);
         // The writers return bytes: they hold no file type (checked for every project by the file-access rule too).
         Assert.Empty(Offenders("Briefwright.Brief", ["System.IO.File", "System.IO.FileStream", "System.IO.Directory"], allowed: None));

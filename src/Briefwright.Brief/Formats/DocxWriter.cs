@@ -2,7 +2,6 @@ using System.Globalization;
 using System.Text;
 using Briefwright.Composer.Document;
 using Briefwright.Composer.Layout;
-using DocumentFormat.OpenXml.Packaging;
 
 namespace Briefwright.Brief.Formats;
 
@@ -10,8 +9,8 @@ namespace Briefwright.Brief.Formats;
 /// The brief as an editable document for clearance rounds: the title and numbered sections as real heading styles (so
 /// a word processor's navigation lists them), tables as tables with a repeated header row, charts as PNG images with
 /// their alternative text, captions in the caption style with sequence numbers, and the theme's font and colours as
-/// the document's styles. Same content, same bytes: relationship ids are fixed, dates are the brief's. The package and
-/// its parts come from the Open XML SDK; the parts' XML is written here (see <see cref="PartXml"/>).
+/// the document's styles (WordprocessingML, ECMA-376 Part 1). Same content, same bytes: relationship ids are fixed,
+/// dates are the brief's (see <see cref="OfficePackage"/>).
 /// </summary>
 public sealed class DocxWriter : IBriefWriter
 {
@@ -20,39 +19,45 @@ public sealed class DocxWriter : IBriefWriter
     private const long EmuPerPoint = 12700;
     private const string W = "http://schemas.openxmlformats.org/wordprocessingml/2006/main";
 
+    private const string Rel = "http://schemas.openxmlformats.org/officeDocument/2006/relationships/";
+    private const string Doc = "/word/document.xml";
+
     public byte[] Write(BriefContent content)
     {
         var doc = content.Document;
         var theme = content.Theme;
-        using var stream = new MemoryStream();
-        using (var word = WordprocessingDocument.Create(stream, DocumentFormat.OpenXml.WordprocessingDocumentType.Document))
-        {
-            var main = word.AddNewPart<MainDocumentPart>("application/vnd.openxmlformats-officedocument.wordprocessingml.document.main+xml", "rId1");
-            PartXml.Feed(main.AddNewPart<StyleDefinitionsPart>("rIdStyles"), Styles(theme, doc.FontFamily ?? "Liberation Sans", doc.Info.Language));
-            var builder = new Builder(main, content);
-            var body = new StringBuilder(256 * 1024);
-            if (doc.Info.Marker is { } marker) body.Append(Para("Marker", Run(marker)));
-            foreach (var block in doc.Blocks) builder.Add(body, block);
-            body.Append(Para("Note", Run($"Scenario {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · input hash {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}")));
-            PartXml.Feed(main.AddNewPart<NumberingDefinitionsPart>("rIdNumbering"), builder.Numbering());
-            PartXml.Feed(main.AddNewPart<FooterPart>("rIdFooter"),
-                $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · page ") + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
-            bool letter = doc.Paper == PaperSize.Letter;
-            body.Append("<w:sectPr><w:footerReference w:type=\"default\" r:id=\"rIdFooter\"/>")
-                .Append($"<w:pgSz w:w=\"{(letter ? 12240 : 11906)}\" w:h=\"{(letter ? 15840 : 16838)}\"/>")
-                .Append($"<w:pgMar w:top=\"{Twips(theme.MarginTop)}\" w:right=\"{Twips(theme.MarginRight)}\" w:bottom=\"{Twips(theme.MarginBottom)}\" w:left=\"{Twips(theme.MarginLeft)}\" w:header=\"567\" w:footer=\"567\" w:gutter=\"0\"/>")
-                .Append("</w:sectPr>");
-            PartXml.Feed(main, $"<w:document xmlns:w=\"{W}\" xmlns:r=\"{PartXml.RelationshipsNs}\" " +
-                "xmlns:wp=\"http://schemas.openxmlformats.org/drawingml/2006/wordprocessingDrawing\" xmlns:a=\"http://schemas.openxmlformats.org/drawingml/2006/main\" " +
-                $"xmlns:pic=\"http://schemas.openxmlformats.org/drawingml/2006/picture\"><w:body>{body}</w:body></w:document>");
-            ZipStamp.CoreProperties(word, doc.Info.Title, doc.Info.Author, doc.Info.Date);
-        }
-        return ZipStamp.Restamp(stream.ToArray(), content.Document.Info.Date);
+        var package = new OfficePackage(doc.Info.Date);
+        package.Relate("/", "rId1", Rel + "officeDocument", Doc);
+        var builder = new Builder(package, content);
+        var body = new StringBuilder(256 * 1024);
+        if (doc.Info.Marker is { } marker) body.Append(Para("Marker", Run(marker)));
+        foreach (var block in doc.Blocks) builder.Add(body, block);
+        body.Append(Para("Note", Run($"Scenario {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · input hash {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}")));
+        bool letter = doc.Paper == PaperSize.Letter;
+        body.Append("<w:sectPr><w:footerReference w:type=\"default\" r:id=\"rIdFooter\"/>")
+            .Append($"<w:pgSz w:w=\"{(letter ? 12240 : 11906)}\" w:h=\"{(letter ? 15840 : 16838)}\"/>")
+            .Append($"<w:pgMar w:top=\"{Twips(theme.MarginTop)}\" w:right=\"{Twips(theme.MarginRight)}\" w:bottom=\"{Twips(theme.MarginBottom)}\" w:left=\"{Twips(theme.MarginLeft)}\" w:header=\"567\" w:footer=\"567\" w:gutter=\"0\"/>")
+            .Append("</w:sectPr>");
+        // The main part first, then the parts it refers to, in a fixed order.
+        package.AddXml(Doc, "application/vnd.openxmlformats-officedocument.wordprocessingml.document.main+xml",
+            $"<w:document xmlns:w=\"{W}\" xmlns:r=\"{OfficePackage.RelationshipsNs}\" " +
+            "xmlns:wp=\"http://schemas.openxmlformats.org/drawingml/2006/wordprocessingDrawing\" xmlns:a=\"http://schemas.openxmlformats.org/drawingml/2006/main\" " +
+            $"xmlns:pic=\"http://schemas.openxmlformats.org/drawingml/2006/picture\"><w:body>{body}</w:body></w:document>");
+        package.Relate(Doc, "rIdStyles", Rel + "styles", "/word/styles.xml");
+        package.AddXml("/word/styles.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.styles+xml", Styles(theme, doc.FontFamily ?? "Liberation Sans", doc.Info.Language));
+        package.Relate(Doc, "rIdNumbering", Rel + "numbering", "/word/numbering.xml");
+        package.AddXml("/word/numbering.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.numbering+xml", builder.Numbering());
+        package.Relate(Doc, "rIdFooter", Rel + "footer", "/word/footer1.xml");
+        package.AddXml("/word/footer1.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.footer+xml",
+            $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · page ") + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
+        builder.AddImages();
+        package.CoreProperties(doc.Info.Title, doc.Info.Author);
+        return package.ToBytes();
     }
 
     private static int Twips(double points) => (int)Math.Round(points * 20);
 
-    private static string X(string text) => PartXml.Escape(text);
+    private static string X(string text) => OfficePackage.Escape(text);
 
     /// <summary>A run of text, with bold or italic properties when given.</summary>
     private static string Run(string text, bool bold = false, bool italic = false, string? style = null)
@@ -64,11 +69,12 @@ public sealed class DocxWriter : IBriefWriter
     private static string Para(string style, string runs, string extraProps = "") =>
         $"<w:p><w:pPr><w:pStyle w:val=\"{style}\"/>{extraProps}</w:pPr>{runs}</w:p>";
 
-    private sealed class Builder(MainDocumentPart main, BriefContent content)
+    private sealed class Builder(OfficePackage package, BriefContent content)
     {
         private readonly Dictionary<string, Charts.RenderedChart> charts = content.Charts.ToDictionary(c => c.Id, StringComparer.Ordinal);
         private readonly Dictionary<string, string> links = new(StringComparer.Ordinal);
         private readonly List<int> orderedLists = [];
+        private readonly List<(string Name, byte[] Png)> pictures = [];
         private int section, subsection, tables, figures, images;
 
         public void Add(StringBuilder sb, Block block)
@@ -117,7 +123,7 @@ public sealed class DocxWriter : IBriefWriter
                     if (!links.TryGetValue(link, out var id))
                     {
                         id = $"rIdLink{links.Count + 1}";
-                        main.AddHyperlinkRelationship(uri, true, id);
+                        package.Relate(Doc, id, Rel + "hyperlink", uri.AbsoluteUri, external: true);
                         links[link] = id;
                     }
                     sb.Append($"<w:hyperlink r:id=\"{id}\">").Append(Run(r.Text, bold, italic, "Hyperlink")).Append("</w:hyperlink>");
@@ -170,8 +176,9 @@ public sealed class DocxWriter : IBriefWriter
             {
                 images++;
                 string rid = $"rIdImage{images}";
-                var part = main.AddNewPart<ImagePart>("image/png", rid);
-                using (var s = new MemoryStream(png)) part.FeedData(s);
+                string name = $"/word/media/image{images}.png";
+                package.Relate(Doc, rid, Rel + "image", name);
+                pictures.Add((name, png));
                 long cx = (long)(f.WidthPt * EmuPerPoint), cy = (long)(f.HeightPt * EmuPerPoint);
                 string alt = X(f.AltText);
                 sb.Append(Para("Figure",
@@ -205,6 +212,12 @@ public sealed class DocxWriter : IBriefWriter
               .Append($"<w:tr><w:trPr><w:cantSplit/></w:trPr><w:tc><w:tcPr><w:shd w:val=\"clear\" w:color=\"auto\" w:fill=\"{Hex(content.Theme.BoxFill)}\"/></w:tcPr>")
               .Append(inside).Append("</w:tc></w:tr></w:tbl>")
               .Append("<w:p><w:pPr><w:pStyle w:val=\"Normal\"/></w:pPr></w:p>");
+        }
+
+        /// <summary>The charts' PNG files, after the parts that refer to them.</summary>
+        public void AddImages()
+        {
+            foreach (var (name, png) in pictures) package.Add(name, "image/png", png);
         }
 
         /// <summary>Bullets (number 1) and one numbering per ordered list, each starting at 1.</summary>

@@ -2,8 +2,6 @@ using System.Globalization;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 using System.Text;
-using DocumentFormat.OpenXml;
-using DocumentFormat.OpenXml.Packaging;
 
 namespace Briefwright.Brief.Formats;
 
@@ -170,31 +168,32 @@ public sealed class WorkbookWriter : IBriefWriter
 
     public static byte[] Write(IReadOnlyList<SheetTable> tables, DateOnly date, string organisation, string title, Composer.Layout.Rgb headerFill)
     {
-        using var stream = new MemoryStream();
-        using (var doc = SpreadsheetDocument.Create(stream, SpreadsheetDocumentType.Workbook))
+        const string Ns = "http://schemas.openxmlformats.org/officeDocument/2006/relationships/";
+        var package = new OfficePackage(date);
+        package.Relate("/", "rId1", Ns + "officeDocument", "/xl/workbook.xml");
+        var sheets = new StringBuilder();
+        for (int i = 0; i < tables.Count; i++)
         {
-            var book = doc.AddNewPart<WorkbookPart>("application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml", "rId1");
-            var styles = book.AddNewPart<WorkbookStylesPart>("rIdStyles");
-            PartXml.Feed(styles, Stylesheet($"FF{headerFill.R:X2}{headerFill.G:X2}{headerFill.B:X2}"));
-            var sheets = new StringBuilder();
-            for (int i = 0; i < tables.Count; i++)
-            {
-                string rid = $"rIdSheet{i + 1}";
-                PartXml.Feed(book.AddNewPart<WorksheetPart>(rid), Worksheet(tables[i]));
-                sheets.Append("<sheet name=\"").Append(PartXml.Escape(tables[i].Name)).Append("\" sheetId=\"").Append(i + 1).Append("\" r:id=\"").Append(rid).Append("\"/>");
-            }
-            PartXml.Feed(book, $"<workbook xmlns=\"{Main}\" xmlns:r=\"{PartXml.RelationshipsNs}\"><bookViews><workbookView/></bookViews><sheets>{sheets}</sheets></workbook>");
-            ZipStamp.CoreProperties(doc, title, organisation, date);
+            string rid = $"rIdSheet{i + 1}";
+            sheets.Append("<sheet name=\"").Append(OfficePackage.Escape(tables[i].Name)).Append("\" sheetId=\"").Append(i + 1).Append("\" r:id=\"").Append(rid).Append("\"/>");
         }
-        return ZipStamp.Restamp(stream.ToArray(), date);
+        package.AddXml("/xl/workbook.xml", "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml",
+            $"<workbook xmlns=\"{Main}\" xmlns:r=\"{OfficePackage.RelationshipsNs}\"><bookViews><workbookView/></bookViews><sheets>{sheets}</sheets></workbook>");
+        package.Relate("/xl/workbook.xml", "rIdStyles", Ns + "styles", "/xl/styles.xml");
+        package.AddXml("/xl/styles.xml", "application/vnd.openxmlformats-officedocument.spreadsheetml.styles+xml", Stylesheet($"FF{headerFill.R:X2}{headerFill.G:X2}{headerFill.B:X2}"));
+        for (int i = 0; i < tables.Count; i++)
+        {
+            string name = $"/xl/worksheets/sheet{i + 1}.xml";
+            package.Relate("/xl/workbook.xml", $"rIdSheet{i + 1}", Ns + "worksheet", name);
+            package.AddXml(name, "application/vnd.openxmlformats-officedocument.spreadsheetml.worksheet+xml", Worksheet(tables[i]));
+        }
+        package.CoreProperties(title, organisation);
+        return package.ToBytes();
     }
 
     private const string Main = "http://schemas.openxmlformats.org/spreadsheetml/2006/main";
 
-    /// <summary>
-    /// A sheet's XML, written directly: the SDK's typed element classes would bring the whole spreadsheet schema into
-    /// the native executable (tens of megabytes); the tests read every part back with those classes and validate it.
-    /// </summary>
+    /// <summary>A sheet's XML (SpreadsheetML, ECMA-376 Part 1); the tests read it back and validate it with the Open XML SDK.</summary>
     private static string Worksheet(SheetTable table)
     {
         var sb = new StringBuilder(table.Rows.Count * table.Columns.Count * 48 + 1024);
@@ -260,7 +259,7 @@ public sealed class WorkbookWriter : IBriefWriter
         uint s = formulaLike && style == General ? QuotedText : style;
         bool preserve = text.Length > 0 && (char.IsWhiteSpace(text[0]) || char.IsWhiteSpace(text[^1]));
         sb.Append("<c r=\"").Append(reference).Append("\"").Append(s == 0 ? "" : $" s=\"{s}\"").Append(" t=\"inlineStr\"><is><t")
-          .Append(preserve ? " xml:space=\"preserve\"" : "").Append('>').Append(PartXml.Escape(text)).Append("</t></is></c>");
+          .Append(preserve ? " xml:space=\"preserve\"" : "").Append('>').Append(OfficePackage.Escape(text)).Append("</t></is></c>");
     }
 
     public static string Ref(int column, uint row)
