@@ -22,6 +22,9 @@ public sealed record BuildOptions
     /// <summary>The formats written beside the PDF (web page, workbook, editable document); not an input of the brief's edition.</summary>
     public Formats.OutputFormat Formats { get; init; } = Briefwright.Brief.Formats.OutputFormats.Default;
 
+    /// <summary>Why this is a new edition, by input name (the edition planner's <c>Changed</c>): said in the changes section.</summary>
+    public IReadOnlyList<string> EditionCauses { get; init; } = [];
+
     /// <summary>Also render each chart as SVG and PNG for the data annex.</summary>
     public bool ChartImages { get; init; }
 
