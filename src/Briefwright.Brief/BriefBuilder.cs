@@ -1,6 +1,7 @@
 using System.Text;
 using Briefwright.Brief.Annex;
 using Briefwright.Brief.ChartSet;
+using Briefwright.Brief.Formats;
 using Briefwright.Charts;
 using Briefwright.Composer;
 using Briefwright.Composer.Document;
@@ -48,7 +49,11 @@ public static class BriefBuilder
             return (Json: json, Changes: changes, Markdown: FillTemplate(solved, figureRefs, template, changes));
         });
         var charts = ChartSpec.RenderPdf(specs);
-        var annex = runner.Start(() => AnnexFiles.Build(solved, options.ChartImages ? ChartSpec.AddImages(charts, specs, runner.Threads) : charts));
+        // The web page needs each chart as SVG and the editable document as PNG: the same copies as the data annex's.
+        var formats = options.Formats;
+        bool copies = options.ChartImages || (formats & (OutputFormat.Html | OutputFormat.Docx)) != 0;
+        var imaged = runner.Start(() => copies ? ChartSpec.AddImages(charts, specs, runner.Threads) : charts);
+        var annex = runner.Start(() => AnnexFiles.Build(solved, options.ChartImages ? imaged.GetAwaiter().GetResult() : charts));
         var (json, changes, markdown) = text.GetAwaiter().GetResult();
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
@@ -65,9 +70,12 @@ public static class BriefBuilder
                 Marker = info.Status switch { "final" => null, "consultation" => "CONSULTATION DRAFT", _ => "DRAFT" },
             },
             blocks) { Theme = options.PageTheme(), FontFamily = family };
+        // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid out.
+        var others = runner.Start(() => OutputWriters.For(formats).Select(w => new AnnexFile(w.Suffix,
+            w.Write(new BriefContent(document, imaged.GetAwaiter().GetResult(), solved, json, info.Organisation)))).ToList());
         var pdf = DocumentComposer.WritePdf(document, new RenderSession(family));
         var annexFiles = annex.GetAwaiter().GetResult().Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
-        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes);
+        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes) { Formats = others.GetAwaiter().GetResult() };
     }
 
     /// <summary>
