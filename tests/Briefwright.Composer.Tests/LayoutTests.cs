@@ -171,6 +171,23 @@ public class LayoutTests
     }
 
     [Fact]
+    public void A_paragraph_that_leads_into_an_equation_stays_on_its_page()
+    {
+        double lh = Theme.BodySize * Theme.LineFactor;
+        int wordsPerLine = (int)Math.Floor((Theme.ContentWidth + 5) / 25);
+        int most = (int)Math.Floor(Theme.ContentHeight / lh);
+        // Every fill of the first page, so that one of them leaves room for the lead-in line but not the equation.
+        for (int fill = 1; fill < most; fill++)
+        {
+            var s = Draw(Words(fill * wordsPerLine), new ParagraphBlock(new[] { new TextRun("Lead-in, the working years are:") }),
+                new MathBlock(@"W^{*} = \frac{Q}{Z}"));
+            var lead = s.Ops.Single(o => o.Kind == "text" && o.Text.StartsWith("Lead-in", StringComparison.Ordinal));
+            var equation = s.Ops.First(o => o.Kind == "text" && o.Text.Contains('Q'));
+            Assert.True(lead.Page == equation.Page, $"fill {fill}: the lead-in is on page {lead.Page + 1}, its equation on {equation.Page + 1}");
+        }
+    }
+
+    [Fact]
     public void Short_cells_such_as_numbers_and_ranges_never_wrap()
     {
         string longText = string.Join(" ", Enumerable.Repeat("explanation", 30));

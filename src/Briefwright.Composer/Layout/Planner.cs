@@ -14,7 +14,12 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
     public IReadOnlyList<Atom> Plan(IEnumerable<Block> blocks)
     {
         var atoms = new List<Atom>();
-        foreach (var block in blocks) atoms.AddRange(PlanBlock(block, theme.ContentWidth));
+        foreach (var block in blocks)
+        {
+            // A paragraph that leads into an equation ("… are:") stays on the page with it.
+            if (block is MathBlock && atoms.Count > 0 && atoms[^1] is LinesAtom lead) lead.KeepWithNext = true;
+            atoms.AddRange(PlanBlock(block, theme.ContentWidth));
+        }
         return atoms;
     }
 
