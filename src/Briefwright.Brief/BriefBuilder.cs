@@ -27,6 +27,9 @@ public static class BriefBuilder
     {
         options ??= BuildOptions.Default;
         var scenario = solved.Scenario;
+        var language = GlyphCheck.LanguageOf(scenario);
+        using var languageScope = BriefLanguage.Use(language);
+        GlyphCheck.Check(scenario, template, language, options.Fonts);
         string? family = null;
         if (options.Fonts is { } fonts)
         {
@@ -55,15 +58,20 @@ public static class BriefBuilder
         var document = new BriefDocument(
             new DocumentInfo(
                 info.Title, info.ShortTitle, info.Author ?? info.Organisation,
-                "Schooling length, demography and long-run output per person",
-                "schooling; human capital; demography; balanced growth; output per person",
-                "en-GB", info.Date, $"Edition {info.Edition}" + (info.Status == "final" ? "" : $" ({info.Status})"),
-                options.Theme.Footer ?? $"{info.Organisation} · Model illustration, not a forecast")
+                T("doc.subject"), T("doc.keywords"),
+                language.Tag, info.Date, T("doc.edition", info.Edition) + (info.Status == "final" ? "" : $" ({T("status." + info.Status)})"),
+                options.Theme.Footer ?? T("doc.footer", info.Organisation))
             {
                 Logo = options.Logo,
-                Marker = info.Status switch { "final" => null, "consultation" => "CONSULTATION DRAFT", _ => "DRAFT" },
+                Marker = info.Status switch { "final" => null, "consultation" => T("marker.consultation"), _ => T("marker.draft") },
+                PageLabel = T("page.label", "{0}", "{1}"),
+                DateText = language.Date(info.Date),
             },
-            blocks) { Theme = options.PageTheme(), FontFamily = family };
+            blocks)
+        {
+            Theme = options.PageTheme() with { FigureLabel = T("layout.figure"), TableLabel = T("layout.table"), SourceLabel = T("layout.source") },
+            FontFamily = family,
+        };
         var pdf = DocumentComposer.WritePdf(document);
         var annexFiles = annex.GetAwaiter().GetResult().Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
         return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes);
@@ -79,6 +87,7 @@ public static class BriefBuilder
     public static string FillTemplate(SolvedScenario solved, IReadOnlyList<FigureRef> figures, BriefTemplate template, EditionChanges? changes = null)
     {
         var scenario = solved.Scenario;
+        using var languageScope = BriefLanguage.Use(GlyphCheck.LanguageOf(scenario));
         var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, figures,
             scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), template.Hash);
         var model = BriefModelBuilder.Build(inputs);
@@ -93,19 +102,20 @@ public static class BriefBuilder
     public static IReadOnlyList<ChartSpec> ChartSpecs(SolvedScenario solved, string? family = null)
     {
         InstallChartFont();
-        ChartFont.Use(family ?? ChartFont.Family);
         var scenario = solved.Scenario;
+        var language = GlyphCheck.LanguageOf(scenario);
+        using var languageScope = BriefLanguage.Use(language);
+        ChartFont.Use(ChartFont.Variant(family ?? ChartFont.Family, GlyphCheck.ChartCharacters(scenario, language)));
         var results = solved.BalancedGrowth;
-        string source = $"briefwright model, scenario {scenario.Brief.Id}";
+        string source = T("chart.source", scenario.Brief.Id);
         var charts = new List<ChartSpec> { AnalysisChartSet.HeadlinePath(solved, source) };
         charts.Add(new ChartSpec("output-curve", SchoolingCharts.OutputCurve(results),
-            "Output per person against years of schooling, once the economy has adjusted (balanced growth path)",
-            CurveAltText(results), source));
+            T("chart.curve.caption"), CurveAltText(results), source));
         var curve = results.SchoolingCurve;
         var baseline = results.Options.First(o => o.IsBaseline);
         charts.Add(new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(results),
-            "The two opposing forces: workers per person and human capital per worker against schooling",
-            $"Line chart with two axes: as schooling lengthens, the worker share (workers per person) {Wording.Trend(curve.Select(c => c.WorkerShare).ToList())} and human capital per worker {Wording.Trend(curve.Select(c => c.HumanCapitalPerWorker).ToList())}; at the baseline of {TemplateFunctions.Years(baseline.SchoolingYears)} the worker share is {TemplateFunctions.Num(baseline.WorkerShare, 3)} and human capital per worker {TemplateFunctions.Num(baseline.HumanCapitalPerWorker, 2)}.",
+            T("chart.forces.caption"),
+            T("chart.forces.alt", Wording.Trend(curve.Select(c => c.WorkerShare).ToList()), Wording.Trend(curve.Select(c => c.HumanCapitalPerWorker).ToList()), TemplateFunctions.Years(baseline.SchoolingYears), TemplateFunctions.Num(baseline.WorkerShare, 3), TemplateFunctions.Num(baseline.HumanCapitalPerWorker, 2)),
             source));
         charts.AddRange(AnalysisChartSet.Specs(solved, source));
         return charts;
@@ -118,15 +128,18 @@ public static class BriefBuilder
         var curve = results.SchoolingCurve;
         string trend = Wording.Trend(curve.Select(c => c.OutputPerPerson).ToList());
         string where = opt.AtBoundary
-            ? $"It is highest at the edge of the range, at {TemplateFunctions.Years(opt.SchoolingYears)}."
-            : $"It is highest at {TemplateFunctions.Years(opt.SchoolingYears)}; lengths from {TemplateFunctions.Years(opt.Within1Pct[0])} to {TemplateFunctions.Years(opt.Within1Pct[1])} come within 1% of that.";
+            ? T("chart.curve.alt_edge", TemplateFunctions.Years(opt.SchoolingYears))
+            : T("chart.curve.alt_highest", TemplateFunctions.Years(opt.SchoolingYears), TemplateFunctions.Years(opt.Within1Pct[0]), TemplateFunctions.Years(opt.Within1Pct[1]));
         var sides = results.Options.Select(o => Math.Sign(Math.Round(o.SchoolingYears - opt.SchoolingYears, 1))).Distinct().ToList();
-        string options = sides.Count == 1 && sides[0] < 0 ? "Every option lies below the output-maximising length."
-            : sides.Count == 1 && sides[0] > 0 ? "Every option lies above the output-maximising length."
-            : sides.Count == 1 ? "Every option lies at the output-maximising length."
-            : "The options lie on both sides of the output-maximising length.";
-        return $"Line chart of output per person against years of schooling from 0 to {TemplateFunctions.Years(opt.FeasibleMaxSchooling)}: as schooling lengthens, output per person {trend}. {where} {options}";
+        string options = sides.Count == 1 && sides[0] < 0 ? T("chart.curve.alt_below")
+            : sides.Count == 1 && sides[0] > 0 ? T("chart.curve.alt_above")
+            : sides.Count == 1 ? T("chart.curve.alt_at")
+            : T("chart.curve.alt_both");
+        return T("chart.curve.alt", TemplateFunctions.Years(opt.FeasibleMaxSchooling), trend, where, options);
     }
+
+    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
+    private static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
 
     /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>
     public static void InstallChartFont() => ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));

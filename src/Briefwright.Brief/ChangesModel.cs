@@ -29,13 +29,15 @@ public static class ChangesModel
     {
         var text = "";
         if (changes.Assumptions.Count > 0)
-            text += Md.Table($"Assumptions changed since edition {changes.PreviousEdition} ({changes.PreviousDate})", null,
-                new[] { "Parameter", "Previous", "Now", "Source" },
-                changes.Assumptions.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "not given" }), new HashSet<int> { 1, 2 }) + "\n";
+            text += Md.Table(T("changes.assumptions_caption", changes.PreviousEdition, changes.PreviousDate), null,
+                new[] { T("table.parameter"), T("changes.previous"), T("changes.now"), T("table.source") },
+                changes.Assumptions.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? T("changes.not_given") }), new HashSet<int> { 1, 2 }) + "\n";
         if (changes.Results.Count > 0)
-            text += Md.Table($"Headline results changed since edition {changes.PreviousEdition}", null,
-                new[] { "Result", "Previous", "Now", "Difference" },
+            text += Md.Table(T("changes.results_caption", changes.PreviousEdition), null,
+                new[] { T("changes.result"), T("changes.previous"), T("changes.now"), T("changes.difference") },
                 changes.Results.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "" }), new HashSet<int> { 1, 2, 3 });
-        return text.Length > 0 ? text : "No assumption or headline result changed; only the presentation did.\n";
+        return text.Length > 0 ? text : T("changes.none") + "\n";
     }
+
+    private static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
 }

@@ -150,7 +150,8 @@ public static class ScenarioSchema
             ("id", id.DeepClone()), ("title", Str("Title", 200)), ("short_title", Str("Running header", 80)), ("organisation", Str("Organisation", 200)),
             ("author", Str("Author", 200)), ("date", Obj(("type", "string"), ("pattern", "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"), ("format", "date"), ("description", "Date of the brief, YYYY-MM-DD"))),
             ("status", Obj(("enum", Arr("draft", "consultation", "final")))), ("edition", Num("Edition", Bounds.Closed(1, 9999), integer: true)),
-            ("question", Str("The policy question", 2000))), strict, "id", "title", "organisation", "date");
+            ("question", Str("The policy question", 2000)),
+            ("language", Obj(("type", "string"), ("pattern", LanguageTag.Pattern), ("description", LanguageTag.Description)))), strict, "id", "title", "organisation", "date");
         var demography = Section("Stable population", Obj(
             ("population_growth", Num("Population growth rate n", Bounds.Closed(-0.1, 0.1), rate: true)), ("school_entry_age", Num("School-entry age a0", Bounds.Closed(0, 30))),
             ("retirement_age", Num("Retirement age R", age)), ("participation", Num("Labour-force participation p (default 100%)", Bounds.OpenClosed(0, 1), rate: true)),

@@ -130,6 +130,14 @@ public static class BatchBuilder
                 InputHash = hash, Messages = ex.Errors.Select(e => e.ToString().Split('\n')[0]).ToList(),
             };
         }
+        catch (BriefTextException ex)
+        {
+            lock (error) foreach (var e in ex.Errors) error.WriteLine(e);
+            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "text the brief cannot show")
+            {
+                InputHash = hash, Messages = ex.Errors.ToList(),
+            };
+        }
         catch (UnsolvableScenarioException ex)
         {
             lock (error) error.WriteLine(ScenarioInputs.Unsolvable(file, ex));

@@ -14,6 +14,9 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
     [GeneratedRegex(@"^[a-z0-9][a-z0-9_-]{0,63}\z")]
     private static partial Regex IdPattern();
 
+    [GeneratedRegex(@"^[a-z]{2,3}(-[A-Za-z0-9]{2,8})*\z")]
+    private static partial Regex LanguageTagPattern();
+
     public ScenarioDocument? Bind(YNode root, IReadOnlyList<string> files)
     {
         if (root is not YMapping top)
@@ -35,7 +38,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         var analysis = analysisBinder.Bind(top, inputs, brief);
         return ctx.Problems.Count > 0 || analysis is null ? null : new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
         {
-            Analysis = analysis, OptionNames = optionNames!, RuleNames = analysisBinder.RuleNames,
+            Analysis = analysis, OptionNames = optionNames!, RuleNames = analysisBinder.RuleNames, Texts = ctx.Texts,
         };
     }
 
@@ -44,7 +47,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         var m = ctx.Mapping(top, "brief", "", required: true);
         if (m is null) return null;
         const string p = "brief";
-        ctx.CheckKeys(m, p, "id", "title", "short_title", "organisation", "author", "date", "status", "edition", "question");
+        ctx.CheckKeys(m, p, "id", "title", "short_title", "organisation", "author", "date", "status", "edition", "question", "language");
         string? id = ctx.Text(m, "id", p, required: true);
         if (id is not null && !IdPattern().IsMatch(id))
         {
@@ -70,8 +73,19 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             edition = null;
         }
         string? question = ctx.Text(m, "question", p, required: false, maxLength: 2000);
+        string? language = ctx.Text(m, "language", p, required: false, maxLength: 35);
+        if (language is not null && !LanguageTagPattern().IsMatch(language))
+        {
+            ctx.Report(m["language"]!.At, "brief.language", "must be a language tag such as en-GB, fr-FR, es-ES or de-DE", BindContext.Quote(language));
+            language = null;
+        }
+        else if (language is not null && LanguageTag.RightToLeft.Contains(language.Split('-')[0]))
+        {
+            ctx.Report(m["language"]!.At, "brief.language", "is written right to left, which briefs cannot be yet (the layout writes left to right only); use en, fr, es or de", BindContext.Quote(language));
+            language = null;
+        }
         if (id is null || title is null || organisation is null || date is null || edition is null) return null;
-        return new BriefInfo(id, title, shortTitle ?? title, organisation, author, date.Value, status, (int)edition.Value, question);
+        return new BriefInfo(id, title, shortTitle ?? title, organisation, author, date.Value, status, (int)edition.Value, question, language ?? LanguageTag.Default);
     }
 
     private Demography? BindDemography(YMapping top)
