@@ -19,8 +19,12 @@ namespace Briefwright.Brief;
 /// </summary>
 public static class BriefBuilder
 {
-    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null) =>
-        Compose(ScenarioSolver.Solve(scenario, (options ?? BuildOptions.Default).ModelThreads), template, options);
+    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null)
+    {
+        // Text the brief could not show is refused before the model runs (Compose checks again for its other callers).
+        GlyphCheck.Check(scenario, template, GlyphCheck.LanguageOf(scenario), (options ?? BuildOptions.Default).Fonts);
+        return Compose(ScenarioSolver.Solve(scenario, (options ?? BuildOptions.Default).ModelThreads), template, options);
+    }
 
     /// <summary>Everything after the model: charts, results data, filled template, layout and PDF.</summary>
     public static BuiltBrief Compose(SolvedScenario solved, BriefTemplate template, BuildOptions? options = null)
@@ -106,6 +110,7 @@ public static class BriefBuilder
         var language = GlyphCheck.LanguageOf(scenario);
         using var languageScope = BriefLanguage.Use(language);
         ChartFont.Use(ChartFont.Variant(family ?? ChartFont.Family, GlyphCheck.ChartCharacters(scenario, language)));
+        ChartWords.Use(new ChartWords.Language(key => language.Texts.TryGetValue(key, out var t) ? t.Text : null, language.Decimal));
         var results = solved.BalancedGrowth;
         string source = T("chart.source", scenario.Brief.Id);
         var charts = new List<ChartSpec> { AnalysisChartSet.HeadlinePath(solved, source) };

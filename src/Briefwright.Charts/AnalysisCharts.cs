@@ -19,20 +19,22 @@ public static class AnalysisCharts
         band.LegendText = legend;
     }
 
-    private static string F(double v, string f = "0.0") => v.ToString(f, CultureInfo.InvariantCulture);
+    private static string F(double v, string f = "0.0") => ChartWords.Number(v, f);
+
+    private static string Pct => ChartWords.Text("number.percent", "%");
 
     /// <summary>Output per person relative to no reform, by calendar year, one line per option; the headline option's
     /// Monte Carlo band (5–95% and 25–75%), its dip and its break-even year are marked.</summary>
     public static Plot ReformPath(AppraisalResults reform, string headlineId, IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null)
     {
         var plot = new Plot();
-        ChartRenderer.Style(plot, "Year", "Output per person vs no reform (%)");
+        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.year", "Year"), ChartWords.Text("chart.axis.vs_no_reform", "Output per person vs no reform (%)"));
         int n = Math.Min(years ?? 80, reform.HorizonYears) + 1;
         double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
         if (mc is not null)
         {
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.12, $"{labels[headlineId]}: 5–95% of draws");
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.22, "25–75% of draws");
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.12, ChartWords.Text("chart.legend.p5_p95", "{0}: 5–95% of draws", labels[headlineId]));
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.22, ChartWords.Text("chart.legend.p25_p75", "25–75% of draws"));
         }
         var zero = plot.Add.HorizontalLine(0, 1, Palette.Ink);
         zero.LinePattern = LinePattern.Solid;
@@ -52,7 +54,7 @@ public static class AnalysisCharts
                 dip.MarkerShape = MarkerShape.FilledTriangleDown;
                 dip.MarkerSize = 9;
                 dip.Color = Palette.Contrast;
-                dip.LegendText = $"Deepest dip, {reform.ReformYear + dy}: {F(100 * depth, "0.00")}%";
+                dip.LegendText = ChartWords.Text("chart.legend.dip", "Deepest dip, {0}: {1}", reform.ReformYear + dy, F(100 * depth, "0.00") + Pct);
             }
             if (o.PresentValues[0].BreakEvenYear is { } be && be < n)
             {
@@ -60,7 +62,7 @@ public static class AnalysisCharts
                 v.Color = Palette.Contrast;
                 v.LinePattern = LinePattern.Dotted;
                 v.LineWidth = 1.2f;
-                v.LegendText = $"Break-even ({o.PresentValues[0].ScheduleLabel}): {reform.ReformYear + be}";
+                v.LegendText = ChartWords.Text("chart.legend.break_even", "Break-even ({0}): {1}", o.PresentValues[0].ScheduleLabel, reform.ReformYear + be);
             }
         }
         plot.Axes.SetLimitsX(xs[0], xs[^1]);
@@ -73,7 +75,7 @@ public static class AnalysisCharts
     public static Plot Tornado(IReadOnlyList<TornadoRow> rows, int optionIndex, double central, string optionLabel)
     {
         var plot = new Plot();
-        ChartRenderer.Style(plot, $"Long-run change in output per person, {optionLabel} (%)", "");
+        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person, {0} (%)", optionLabel), "");
         var bars = new List<Bar>();
         var ticks = new List<Tick>();
         for (int i = 0; i < rows.Count; i++)
@@ -83,7 +85,7 @@ public static class AnalysisCharts
             double lo = r.AtLow.LongRunChangePct[optionIndex], hi = r.AtHigh.LongRunChangePct[optionIndex];
             bars.Add(new Bar { Position = pos, ValueBase = central, Value = lo, FillColor = Palette.Contrast, Size = 0.6, Orientation = Orientation.Horizontal });
             bars.Add(new Bar { Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Primary, Size = 0.6, Orientation = Orientation.Horizontal });
-            ticks.Add(new Tick(pos, r.Label));
+            ticks.Add(new Tick(pos, ChartWords.Text("parameter." + r.Parameter, r.Label)));
         }
         var plotBars = plot.Add.Bars(bars);
         plotBars.Horizontal = true;
@@ -92,15 +94,15 @@ public static class AnalysisCharts
         var c = plot.Add.VerticalLine(central);
         c.Color = Palette.Ink;
         c.LineWidth = 1;
-        c.LegendText = $"Central assumptions: {F(central, "0.00")}%";
+        c.LegendText = ChartWords.Text("chart.legend.central", "Central assumptions: {0}", F(central, "0.00") + Pct);
         var lowKey = plot.Add.Marker(double.NaN, double.NaN);
         lowKey.MarkerShape = MarkerShape.FilledSquare;
         lowKey.Color = Palette.Contrast;
-        lowKey.LegendText = "Parameter at the low end of its range";
+        lowKey.LegendText = ChartWords.Text("chart.legend.low_end", "Parameter at the low end of its range");
         var highKey = plot.Add.Marker(double.NaN, double.NaN);
         highKey.MarkerShape = MarkerShape.FilledSquare;
         highKey.Color = Palette.Primary;
-        highKey.LegendText = "Parameter at the high end of its range";
+        highKey.LegendText = ChartWords.Text("chart.legend.high_end", "Parameter at the high end of its range");
         plot.Axes.SetLimitsY(-0.7, rows.Count - 0.3);
         ChartRenderer.LegendBelow(plot);
         return plot;
@@ -133,7 +135,7 @@ public static class AnalysisCharts
     public static Plot Distribution(MonteCarloResults mc, int optionIndex, string optionLabel)
     {
         var plot = new Plot();
-        ChartRenderer.Style(plot, $"Long-run change in output per person, {optionLabel} (%)", "Share of draws (%)");
+        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person, {0} (%)", optionLabel), ChartWords.Text("chart.axis.share_of_draws", "Share of draws (%)"));
         var sample = mc.HeadlineChangeSample;
         double lo = sample.Min(), hi = sample.Max();
         const int bins = 30;
@@ -147,13 +149,13 @@ public static class AnalysisCharts
         }).ToList();
         plot.Add.Bars(bars);
         var p = mc.Options[optionIndex].LongRunChangePct;
-        foreach (var (x, name, pattern) in new[] { (p.P5, "5th percentile", LinePattern.Dashed), (p.P50, "Median", LinePattern.Solid), (p.P95, "95th percentile", LinePattern.Dashed) })
+        foreach (var (x, name, pattern) in new[] { (p.P5, ChartWords.Text("table.p5", "5th percentile"), LinePattern.Dashed), (p.P50, ChartWords.Text("table.median", "Median"), LinePattern.Solid), (p.P95, ChartWords.Text("table.p95", "95th percentile"), LinePattern.Dashed) })
         {
             var v = plot.Add.VerticalLine(x);
             v.Color = Palette.Contrast;
             v.LinePattern = pattern;
             v.LineWidth = 1.4f;
-            v.LegendText = $"{name}: {F(x, "0.00")}%";
+            v.LegendText = $"{name}: {F(x, "0.00")}{Pct}";
         }
         plot.Axes.SetLimitsY(0, bars.Max(b => b.Value) * 1.15);
         ChartRenderer.LegendBelow(plot);

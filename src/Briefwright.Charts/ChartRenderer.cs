@@ -27,6 +27,14 @@ public static partial class ChartRenderer
         plot.Axes.Color(Palette.Ink);
         plot.Legend.FontSize = 8.5f;
         plot.Legend.OutlineColor = Palette.Grid;
+        if (ChartWords.DecimalMark is { } mark)
+        {
+            // Numbers on the axes in the brief's format (a decimal comma); the point stays when the language uses it.
+            string Localised(double v) => Math.Round(v, 10).ToString("0.##########", System.Globalization.CultureInfo.InvariantCulture).Replace(".", mark, StringComparison.Ordinal).Replace("-", "−", StringComparison.Ordinal);
+            plot.Axes.Left.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = Localised };
+            plot.Axes.Right.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = Localised };
+            plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = Localised };
+        }
     }
 
     /// <summary>

@@ -170,9 +170,12 @@ public static class BriefModelBuilder
     /// </summary>
     public static string Label(Assumption a)
     {
-        if (a.Path.StartsWith("options[", StringComparison.Ordinal)) return a.Label;
         string path = System.Text.RegularExpressions.Regex.Replace(a.Path, @"\[[0-9]+\]", "[]");
-        return BriefLanguage.Current.Texts.TryGetValue("field." + path, out var t) ? t.Text : a.Label;
+        if (!BriefLanguage.Current.Texts.TryGetValue("field." + path, out var t)) return a.Label;
+        // An option's row is labelled "Schooling: <the option's own label>": only the first part is the tool's.
+        const string optionRow = "Schooling: ";
+        return path == "options[].schooling_years" && a.Label.StartsWith(optionRow, StringComparison.Ordinal)
+            ? BriefLanguage.Current.Format("field." + path, a.Label[optionRow.Length..]) : t.Text;
     }
 
     /// <summary>A value with its unit, once: rates as percentages, years with "years", ages bare.</summary>
