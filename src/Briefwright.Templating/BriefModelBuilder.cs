@@ -155,14 +155,27 @@ public static class BriefModelBuilder
     {
         var rows = s.Assumptions.Select(a => (IReadOnlyList<string>)new[]
         {
-            Label(a), a.Text ?? FormatValue(a), SourceText(a), a.Note ?? "",
+            Label(a), ValueText(s, a), SourceText(a), a.Note ?? "",
         });
         return Md.Table(T("table.assumptions_caption"), T("source.scenario", s.Brief.Id), new[] { T("table.parameter"), T("table.value"), T("table.source"), T("table.note") }, rows, RightOfFirst);
     }
 
     /// <summary>The source column: an option without a source of its own is defined in the scenario.</summary>
-    public static string SourceText(Assumption a) => a.Source ?? (a.Path.StartsWith("options[", StringComparison.Ordinal)
-        ? T("source.defined_here") : T("source.none_given"));
+    public static string SourceText(Assumption a) => a.Source switch
+    {
+        null => a.Path.StartsWith("options[", StringComparison.Ordinal) ? T("source.defined_here") : T("source.none_given"),
+        BriefDateSource => T("source.brief_date"),
+        _ => a.Source,
+    };
+
+    /// <summary>The source the scenario reader gives a valuation year left to its default.</summary>
+    private const string BriefDateSource = "the brief's date";
+
+    /// <summary>An assumption's value as the table shows it: the reader's text, except brackets of returns, written in the brief's language.</summary>
+    public static string ValueText(ScenarioDocument s, Assumption a) =>
+        a.Path == "human_capital.returns.brackets" && s.Inputs.HumanCapital.Returns is BracketReturns b
+            ? string.Join("; ", b.Brackets.Select(x => T("value.bracket", Localise((x.Rate * 100).ToString("0.0##", CultureInfo.InvariantCulture)) + BriefLanguage.Current.PercentSign, Num(x.FromYear, 0))))
+            : a.Text ?? FormatValue(a);
 
     /// <summary>
     /// An assumption's label in the brief's language: the scenario's own label for an option, else the language's

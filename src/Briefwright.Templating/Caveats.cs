@@ -37,8 +37,8 @@ public static class Caveats
             list.Add(T("caveat.far_beyond", Years(opt.SchoolingYears)));
         if (inputs.Demography.GrowthRate < 0)
             list.Add(T("caveat.shrinking", Pct(inputs.Demography.GrowthRate)));
-        if (opt.ClosedFormNotApplicable is { } why)
-            list.Add(T(opt.Diagnostics.Converged ? "caveat.numerical" : "caveat.numerical_not_converged", why, opt.Diagnostics.GridPoints, Small(opt.Diagnostics.Tolerance)));
+        if (opt.ClosedFormNotApplicable is not null && Model.Core.OptimumSearch.ClosedFormObstacleCode(inputs.Demography, inputs.HumanCapital) is { } why)
+            list.Add(T(opt.Diagnostics.Converged ? "caveat.numerical" : "caveat.numerical_not_converged", T("reason." + why), opt.Diagnostics.GridPoints, Small(opt.Diagnostics.Tolerance)));
         if (opt.LocalMaxima.Count > 1)
             list.Add(T("caveat.maxima", opt.LocalMaxima.Count));
         foreach (var (label, get, low, high, percent) in UsualRanges)
@@ -63,8 +63,9 @@ public static class Caveats
                     yield return T("caveat.even_pv", Label(o.OptionId), Pct(o.ProbabilityPositivePv.Estimate, 0));
             }
         var headline = a.Reform.Options.FirstOrDefault(o => o.OptionId == a.HeadlineOptionId);
-        if (headline?.PresentValues[0] is { Total: null } pv)
-            yield return T("caveat.horizon_only", a.Reform.ReformYear + a.Reform.HorizonYears, pv.TailNote);
+        if (headline?.PresentValues[0] is { Total: null } pv && scenario.Analysis.Discounts.FirstOrDefault(d => d.Id == pv.ScheduleId) is { } schedule)
+            yield return T("caveat.horizon_only", a.Reform.ReformYear + a.Reform.HorizonYears,
+                T("caveat.tail_infinite", Pct(schedule.Steps[^1].Rate), Pct(scenario.Inputs.Production.TechnologyGrowth)));
         if (a.Reform.Optimum.SchoolingYears > 20)
             yield return T("caveat.discounted_long", Years(a.Reform.Optimum.SchoolingYears));
     }

@@ -81,7 +81,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         }
         else if (language is not null && LanguageTag.RightToLeft.Contains(language.Split('-')[0]))
         {
-            ctx.Report(m["language"]!.At, "brief.language", "is written right to left, which briefs cannot be yet (the layout writes left to right only); use en, fr, es or de", BindContext.Quote(language));
+            ctx.Report(m["language"]!.At, "brief.language", "is a right-to-left language, which briefs cannot be written in yet (the layout writes left to right only); use en, fr, es or de", BindContext.Quote(language));
             language = null;
         }
         if (id is null || title is null || organisation is null || date is null || edition is null) return null;
