@@ -25,6 +25,8 @@ public sealed class BriefTextException(IReadOnlyList<string> errors) : Exception
 /// </summary>
 public static class GlyphCheck
 {
+    private static readonly HashSet<(string Template, string Language, byte[]? Font)> Passed = new();
+
     /// <summary>Problems shown at most; the count of the rest follows.</summary>
     public const int MaxReported = 20;
 
@@ -72,16 +74,27 @@ public static class GlyphCheck
             if (Missing(field.Value, out int i) is { } why)
                 problems.Add(new Diagnostic(field.At, field.Path, $"cannot be shown: {why}; use another character or a theme font that has it", $"{BindQuote(field.Value)} (character {i + 1})").Message);
 
-        foreach (var (text, line, column) in TemplateTexts(template.Text))
-            if (Missing(text, out int i) is { } why)
-            {
-                var (l, c) = Advance(text, i, line, column);
-                problems.Add($"{template.Path}:{l}:{c}: template text cannot be shown: {why}. Got {BindQuote(text)}.");
-            }
+        // The template and the language's texts are the same for every brief of a batch: checked once per font.
+        var once = (template.Hash, language.Code, fonts?.Regular);
+        bool known;
+        lock (Passed) known = Passed.Contains(once);
+        if (!known)
+        {
+            int before = problems.Count;
+            foreach (var (text, line, column) in TemplateTexts(template.Text))
+                if (Missing(text, out int i) is { } why)
+                {
+                    var (l, c) = Advance(text, i, line, column);
+                    problems.Add($"{template.Path}:{l}:{c}: template text cannot be shown: {why}. Got {BindQuote(text)}.");
+                }
 
-        foreach (var (key, value) in language.Texts.OrderBy(t => t.Value.Line))
-            if (Missing(value.Text, out _) is { } why)
-                problems.Add($"{language.Source}:{value.Line}:1: {key}: cannot be shown: {why}.");
+            foreach (var (key, value) in language.Texts.OrderBy(t => t.Value.Line))
+                if (Missing(value.Text, out _) is { } why)
+                    problems.Add($"{language.Source}:{value.Line}:1: {key}: cannot be shown: {why}.");
+            if (problems.Count == before)
+                lock (Passed)
+                    if (Passed.Count < 64) Passed.Add(once);
+        }
 
         if (problems.Count == 0) return;
         if (problems.Count > MaxReported)
