@@ -1,4 +1,3 @@
-using System.Security.Cryptography;
 using System.Text;
 using Briefwright.Brief.Annex;
 using Briefwright.Charts;
@@ -50,7 +49,9 @@ public static class BriefBuilder
         var text = Start(() =>
         {
             string json = ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis));
-            var changes = options.PreviousEdition is { } previous ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) : null;
+            var changes = options.PreviousEdition is { } previous
+                ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) with { Causes = options.EditionCauses, Edition = scenario.Brief.Edition }
+                : null;
             return (Json: json, Changes: changes, Markdown: FillTemplate(solved, figureRefs, template, changes));
         });
         var charts = ChartSpec.RenderPdf(specs);
@@ -81,8 +82,19 @@ public static class BriefBuilder
         return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes);
     }
 
-    /// <summary>Output files are named from the scenario id and the brief's date: auroria-national-2026-11-30.</summary>
-    public static string FileStem(ScenarioDocument scenario) => $"{scenario.Brief.Id}-{scenario.Brief.Date:yyyy-MM-dd}";
+    /// <summary>
+    /// Output files are named from the scenario id, the brief's date and, from edition 2 on, the edition:
+    /// auroria-national-2026-11-30, auroria-national-2026-11-30-edition-2. No two editions share a name.
+    /// </summary>
+    public static string FileStem(ScenarioDocument scenario) => FileStem(scenario.Brief.Id, scenario.Brief.Date, scenario.Brief.Edition);
+
+    public static string FileStem(string id, DateOnly date, int edition) =>
+        $"{id}-{date:yyyy-MM-dd}" + (edition > 1 ? $"-edition-{edition.ToString(System.Globalization.CultureInfo.InvariantCulture)}" : "");
+
+    /// <summary>Whether an assumption as shown or a headline result differs from a previous edition's results data.</summary>
+    public static bool ResultsDiffer(SolvedScenario solved, string previousJson) =>
+        EditionSnapshot.Compare(EditionSnapshot.FromJson(previousJson),
+            EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(solved)))).Any;
 
     public static string FillTemplate(SolvedScenario solved, IReadOnlyList<RenderedChart> charts, BriefTemplate template, EditionChanges? changes = null) =>
         FillTemplate(solved, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(), template, changes);
@@ -149,5 +161,4 @@ public static class BriefBuilder
     /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>
     public static void InstallChartFont() => ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
 
-    public static string Sha256(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
 }

@@ -19,6 +19,9 @@ public sealed record BuildOptions
     /// <summary>The previous edition's results data, to write the "changes since the previous edition" section.</summary>
     public EditionSnapshot? PreviousEdition { get; init; }
 
+    /// <summary>Why this is a new edition, by input name (the edition planner's <c>Changed</c>): said in the changes section.</summary>
+    public IReadOnlyList<string> EditionCauses { get; init; } = [];
+
     /// <summary>Also render each chart as SVG and PNG for the data annex.</summary>
     public bool ChartImages { get; init; }
 

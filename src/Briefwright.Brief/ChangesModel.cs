@@ -36,8 +36,42 @@ public static class ChangesModel
             text += Md.Table(T("changes.results_caption", changes.PreviousEdition), null,
                 new[] { T("changes.result"), T("changes.previous"), T("changes.now"), T("changes.difference") },
                 changes.Results.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "" }), new HashSet<int> { 1, 2, 3 });
-        return text.Length > 0 ? text : T("changes.none") + "\n";
+        var causes = Causes(changes, text.Length > 0);
+        if (text.Length == 0)
+            return (causes.Count > 0 ? T("changes.none_follows", Join(causes)) : T("changes.none")) + "\n";
+        return causes.Count > 0 ? text + "\n" + T("changes.also_follows", Join(causes)) + "\n" : text;
     }
+
+    /// <summary>
+    /// The reasons for a new edition that the tables do not show, in words: a changed template, other content of the
+    /// scenario (its title, question, options' wording or notes), the edition <c>brief.edition</c> asks for, a new tool.
+    /// </summary>
+    public static IReadOnlyList<string> Causes(EditionChanges changes, bool tables)
+    {
+        var words = new List<string>();
+        foreach (var cause in changes.Causes)
+            switch (cause)
+            {
+                case "template":
+                    words.Add(T("changes.cause.template"));
+                    break;
+                case "content" when changes.Assumptions.Count == 0:
+                    words.Add(T("changes.cause.content"));
+                    break;
+                case "brief.edition":
+                    words.Add(T("changes.cause.edition", changes.Edition));
+                    break;
+                case "results":
+                    words.Add(T(tables ? "changes.cause.tool_rows" : "changes.cause.tool"));
+                    break;
+                case "files":
+                    words.Add(T("changes.cause.files"));
+                    break;
+            }
+        return words;
+    }
+
+    private static string Join(IReadOnlyList<string> words) => Wording.List(words);
 
     private static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
 }

@@ -38,10 +38,20 @@ public static class CliApp
         {
             io.Err.WriteLine(usage.Message);
             io.Err.WriteLine(usage.Hint);
-            if (usage.Command == "build") BuildCommand.LogUsageError(args, usage.Message, io);
+            if (usage.Command == "build" && !args.Contains("--plan")) BuildCommand.LogUsageError(args, usage.Message, io); // a plan writes nothing
             return ExitCodes.InvalidInput;
         }
-        var config = new InvocationConfiguration { Output = io.Out, Error = io.Err };
-        return parsed.Invoke(config);
+        // Each command reports its stages' failures (StageErrors); what escapes one is a fault of the tool, reported in
+        // one line rather than as the parser's stack trace.
+        var config = new InvocationConfiguration { Output = io.Out, Error = io.Err, EnableDefaultExceptionHandler = false };
+        try
+        {
+            return parsed.Invoke(config);
+        }
+        catch (Exception ex)
+        {
+            io.Err.WriteLine($"briefwright: {StageErrors.Internal(ex)}");
+            return ExitCodes.Failed;
+        }
     }
 }

@@ -11,7 +11,8 @@ public static class Program
         }
         catch (Exception ex)
         {
-            Console.Error.WriteLine($"briefwright: internal error, please report it: {ex.GetType().Name}: {ex.Message}");
+            // Each command reports its stages' failures itself (StageErrors); what reaches here is a fault of the tool.
+            Console.Error.WriteLine($"briefwright: {StageErrors.Internal(ex)}");
             return ExitCodes.Failed;
         }
     }

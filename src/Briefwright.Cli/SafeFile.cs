@@ -70,7 +70,7 @@ public static unsafe class SafeFile
     }
 
     private static string TooLarge(long size, long max, bool atLeast = false) =>
-        $"the file is {(atLeast ? "more than " : "")}{(atLeast ? max : size).ToString("N0", System.Globalization.CultureInfo.InvariantCulture)} bytes, over the limit of {max.ToString("N0", System.Globalization.CultureInfo.InvariantCulture)} bytes";
+        $"the file is {(atLeast ? "more than " : "")}{Scenario.Numbers.Count(atLeast ? max : size)} bytes, over the limit of {Scenario.Numbers.Count(max)} bytes";
 
     // statx(2) and realpath(3) from the C library, found at run time (no import needed where they do not exist).
     private static readonly Lazy<(nint Statx, nint RealPath)> Libc = new(() =>

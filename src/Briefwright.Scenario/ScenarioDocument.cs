@@ -61,6 +61,12 @@ public sealed record ScenarioDocument(
     /// <summary>Every text read from the scenario, with its position (titles, labels, names, sources, notes).</summary>
     public IReadOnlyList<TextField> Texts { get; init; } = [];
 
+    /// <summary>What the scenario says apart from brief.date and brief.edition (<see cref="ScenarioContent"/>): a new edition starts when it changes.</summary>
+    public string ContentHash { get; init; } = "";
+
+    /// <summary>Where brief.edition is written, if it is (for a message that the edition asked for was already passed).</summary>
+    public Diagnostics.SourceSpan? EditionAt { get; init; }
+
     /// <summary>Reform path, appraisal, sensitivity and uncertainty settings (defaults when the scenario gives none).</summary>
     public Model.Uncertainty.AnalysisSettings Analysis { get; init; } = null!;
 
@@ -99,5 +105,5 @@ public static class InSentence
         _ => $"a discount rate stepping from {Percent(schedule.Steps[0].Rate)} to {Percent(schedule.Steps[^1].Rate)}",
     };
 
-    private static string Percent(double rate) => (rate * 100).ToString("0.0##", System.Globalization.CultureInfo.InvariantCulture) + "%";
+    private static string Percent(double rate) => Numbers.Percent(rate, minDecimals: 1);
 }

@@ -31,12 +31,16 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         if (tree is null || problems.Count > 0) return new LoadResult(null, problems, sources);
 
         var ctx = new BindContext();
-        var binder = new ScenarioBinder(ctx, (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, project, ctx, sources, files));
+        var tables = new List<string>();
+        var binder = new ScenarioBinder(ctx, (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
         var document = binder.Bind(tree, files);
-        return new LoadResult(document is null ? null : document with { InputHash = sources.Hash() }, ctx.Problems, sources);
+        return new LoadResult(document is null ? null : document with
+        {
+            InputHash = sources.Hash(), ContentHash = ScenarioContent.Hash(tree, tables), EditionAt = ScenarioContent.EditionAt(tree),
+        }, ctx.Problems, sources);
     }
 
-    private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, string project, BindContext ctx, SourceSet sources, List<string> files)
+    private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, string project, BindContext ctx, SourceSet sources, List<string> files, List<string> tables)
     {
         if (!file.EndsWith(".csv", StringComparison.OrdinalIgnoreCase))
         {
@@ -60,6 +64,7 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         }
         sources.Add(full, text);
         files.Add(full);
+        tables.Add(text);
         return LifeTableReader.Read(full, text, fieldPath, ctx);
     }
 

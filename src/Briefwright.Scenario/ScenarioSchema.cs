@@ -30,8 +30,6 @@ public static class ScenarioSchema
 
     private static JsonObject Str(string description, int maxLength = 400) => Obj(("type", "string"), ("maxLength", maxLength), ("description", description));
 
-    private static string F(double x) => x.ToString("R", CultureInfo.InvariantCulture);
-
     /// <summary>A bare number within <paramref name="b"/>.</summary>
     private static JsonObject Bare(Bounds b, bool integer)
     {
@@ -93,9 +91,10 @@ public static class ScenarioSchema
     private static JsonObject Num(string description, Bounds b, bool rate = false, bool integer = false) =>
         Wrap(description, rate ? Obj(("anyOf", new JsonArray(Bare(b, integer), Obj(("type", "string"), ("pattern", PercentPattern(b)))))) : Bare(b, integer));
 
-    /// <summary>A number, or a percentage string (sensitivity ranges and distribution parameters, whose unit is the parameter's).</summary>
-    private static JsonObject AnyNum(string description, bool positive = false) =>
-        Wrap(description, Obj(("anyOf", new JsonArray(Bare(positive ? Bounds.OpenClosed(0, 1000) : Bounds.Closed(-1000, 1000), false),
+    /// <summary>A number, or a percentage string, in a parameter's unit (range ends and distribution parameters): the
+    /// schema cannot tell which parameter, so only the field's own wide bounds apply.</summary>
+    private static JsonObject AnyNum(string description, Bounds b) =>
+        Wrap(description, Obj(("anyOf", new JsonArray(Bare(b, false),
             Obj(("type", "string"), ("pattern", "^[-+]?[0-9]+(\\.[0-9]*)?\\s*%$"))))));
 
     private static JsonObject Wrap(string description, JsonObject bare)
@@ -135,87 +134,97 @@ public static class ScenarioSchema
             ("properties", Obj((selector, Obj(("enum", Arr(variants.Select(v => v.Name).ToArray())))))), ("allOf", all));
     }
 
-    private static JsonObject Sections(bool strict)
+    private static string Describe(ScenarioField f)
+    {
+        string text = ScenarioFields.DefaultOf(f) is { } d ? $"{f.Label} (default {d})" : f.Label;
+        return f.Help is null ? text : $"{text}: {f.Help.Replace("`", "")}";
+    }
+
+    private static JsonObject Properties(string path, string? variant, bool strict, string? skip = null)
+    {
+        var props = new JsonObject();
+        foreach (var f in ScenarioFields.Children(path, variant))
+            if (f.Key != skip) props[f.Key] ??= Node(f, strict);
+        return props;
+    }
+
+    private static string[] Required(string path, string? variant = null, string? skip = null) =>
+        ScenarioFields.Children(path, variant).Where(f => f.Required && f.Key != skip).Select(f => f.Key).Distinct().ToArray();
+
+    private static JsonObject Array(ScenarioField f, JsonObject items)
+    {
+        var a = Obj(("type", "array"), ("description", Describe(f)));
+        if (f.MinItems > 0) a["minItems"] = f.MinItems;
+        a["items"] = items;
+        return a;
+    }
+
+    /// <summary>The schema of one field of the catalogue; list items are always complete (lists are replaced whole).</summary>
+    private static JsonObject Node(ScenarioField f, bool strict)
     {
         var parameterNames = Arr(Parameters.All.Select(p => p.Name).ToArray());
-        var id = Obj(("type", "string"), ("pattern", "^[a-z0-9][a-z0-9_-]{0,63}$"));
-        var age = Bounds.OpenClosed(0, 150);
-        var survival = Variants("Survival curve", "form", strict,
-            ("rectangular", Obj(("max_age", Num("Age at death (everyone)", age))), ["max_age"]),
-            ("gompertz_makeham", Obj(("a", Num("Makeham term A", Bounds.ClosedOpen(0, 1))), ("b", Num("Gompertz level B", Bounds.Open(0, 1))),
-                ("c", Num("Gompertz growth c", Bounds.Open(1, 2))), ("max_age", Num("Oldest age considered (default 120)", age))), ["a", "b", "c"]),
-            ("life_table", Obj(("file", Str("Life table CSV: age,survivors from age 0, relative to this file")), ("source", Str("Source of the life table")),
-                ("note", Str("Note", 1000))), ["file"]));
-        var brief = Section("Title-block facts", Obj(
-            ("id", id.DeepClone()), ("title", Str("Title", 200)), ("short_title", Str("Running header", 80)), ("organisation", Str("Organisation", 200)),
-            ("author", Str("Author", 200)), ("date", Obj(("type", "string"), ("pattern", "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"), ("format", "date"), ("description", "Date of the brief, YYYY-MM-DD"))),
-            ("status", Obj(("enum", Arr("draft", "consultation", "final")))), ("edition", Num("Edition", Bounds.Closed(1, 9999), integer: true)),
-            ("question", Str("The policy question", 2000)),
-            ("language", Obj(("type", "string"), ("pattern", LanguageTag.Pattern), ("description", LanguageTag.Description)))), strict, "id", "title", "organisation", "date");
-        var demography = Section("Stable population", Obj(
-            ("population_growth", Num("Population growth rate n", Bounds.Closed(-0.1, 0.1), rate: true)), ("school_entry_age", Num("School-entry age a0", Bounds.Closed(0, 30))),
-            ("retirement_age", Num("Retirement age R", age)), ("participation", Num("Labour-force participation p (default 100%)", Bounds.OpenClosed(0, 1), rate: true)),
-            ("survival", survival)), strict, "population_growth", "school_entry_age", "retirement_age", "survival");
-        var bracket = Section("A bracket of returns", Obj(("from", Num("First year of the bracket", Bounds.Closed(0, 40))), ("rate", Num("Return", Bounds.ClosedOpen(0, 1), rate: true))),
-            true, "from", "rate");
-        var returns = Variants("Returns to schooling", "form", strict,
-            ("constant", Obj(("rate", Num("Return to a year of schooling", Bounds.Open(0, 1), rate: true))), ["rate"]),
-            ("power", Obj(("theta", Num("Power-form scale θ", Bounds.Open(0, 2))), ("psi", Num("Power-form curvature ψ", Bounds.ClosedOpen(0, 1)))), ["theta", "psi"]),
-            ("brackets", Obj(("brackets", Obj(("type", "array"), ("minItems", 1), ("items", bracket))), ("source", Str("Source")), ("note", Str("Note", 1000))), []));
-        var experience = Section("Mincer experience profile", Obj(("linear", Num("β1", Bounds.Closed(0, 0.5))), ("quadratic", Num("β2", Bounds.OpenClosed(0, 0.05)))),
-            strict, "linear", "quadratic");
-        var humanCapital = Section("Human capital", Obj(("returns", returns), ("experience", experience)), strict);
-        var production = Section("Production", Obj(
-            ("saving_rate", Num("Saving rate s", Binding.ParameterBounds.SavingRate, rate: true)), ("capital_share", Num("Capital share α", Binding.ParameterBounds.CapitalShare, rate: true)),
-            ("depreciation", Num("Depreciation δ", Bounds.ClosedOpen(0, 1), rate: true)), ("technology_growth", Num("Technology growth g", Bounds.Closed(-0.1, 0.1), rate: true))),
-            strict, "saving_rate", "capital_share", "depreciation", "technology_growth");
-        var option = Section("A policy option", Obj(
-            ("id", id.DeepClone()), ("label", Str("Label", 120)), ("in_sentence", Str("How the option reads inside a sentence (default: the label, first letter lower-cased)", 120)), ("schooling_years", Num("Years of schooling", Bounds.Closed(0, 40))),
-            ("retirement_age", Num("Own retirement age", age)), ("participation", Num("Own participation", Bounds.OpenClosed(0, 1), rate: true)),
-            ("baseline", Obj(("type", "boolean"))), ("source", Str("Source")), ("note", Str("Note", 1000))), true, "id", "label", "schooling_years");
-        var reform = Section("Reform simulation", Obj(("year", Num("Reform year", Bounds.Closed(1900, 2300), integer: true)),
-            ("phase_in_cohorts", Num("Cohorts to phase in", Bounds.Closed(1, 40), integer: true)),
-            ("horizon_years", Num("Years simulated", Bounds.Closed(20, AnalysisBinder.MaxHorizon), integer: true)), ("headline_option", Str("Option for charts and indices"))), strict);
-        var rate = Bounds.Closed(-0.05, 0.5);
-        var step = Section("A step of a declining schedule", Obj(("from_year", Num("First year of the step", Bounds.Closed(1, 10_000))), ("rate", Num("Rate", rate, rate: true))),
-            true, "from_year", "rate");
-        var customRate = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr("id", "label")),
-            ("anyOf", new JsonArray(Obj(("required", Arr("rate"))), Obj(("required", Arr("schedule"))))), ("properties", Obj(
-                ("id", Str("Id")), ("label", Str("Label", 120)), ("in_sentence", Str("How the rule reads inside a sentence (default: described from its rates)", 120)), ("rate", Num("Constant rate", rate, rate: true)),
-                ("schedule", Obj(("type", "array"), ("minItems", 1), ("items", step))), ("source", Str("Source")))));
-        var discount = Obj(("anyOf", new JsonArray(Obj(("enum", Arr("green_book", "omb_3", "omb_7"))), customRate)));
-        var appraisal = Section("Discounting", Obj(("discount_rates", Obj(("type", "array"), ("minItems", 1), ("items", discount))),
-            ("valuation_year", Num("Calendar year present values are valued at (default: the brief's year); not after the reform year",
-                Bounds.Closed(1900, 2300), integer: true))), strict);
-        var range = Obj(("type", "array"), ("minItems", 2), ("maxItems", 2), ("items", AnyNum("End of the range")));
-        var grid = Section("A two-way grid", Obj(
-            ("x", Obj(("enum", parameterNames.DeepClone()))), ("x_range", range.DeepClone()), ("y", Obj(("enum", parameterNames.DeepClone()))),
-            ("y_range", range.DeepClone()), ("steps", Num("Steps per axis (default 9)", Bounds.Closed(2, 41))), ("output", Obj(("enum", Arr("optimum", "change"))))),
-            true, "x", "x_range", "y", "y_range");
-        var sensitivity = Section("Sensitivity", Obj(
-            ("ranges", Obj(("type", "object"), ("propertyNames", Obj(("enum", parameterNames.DeepClone()))), ("additionalProperties", range.DeepClone()))),
-            ("grids", Obj(("type", "array"), ("items", grid)))), strict);
-        var distribution = Variants("A parameter's distribution", "distribution", strict,
-            ("normal", Obj(("mean", AnyNum("Mean")), ("sd", AnyNum("Standard deviation", positive: true))), ["mean", "sd"]),
-            ("truncated_normal", Obj(("mean", AnyNum("Mean")), ("sd", AnyNum("Standard deviation", positive: true)), ("low", AnyNum("Lower bound")), ("high", AnyNum("Upper bound"))),
-                ["mean", "sd", "low", "high"]),
-            ("uniform", Obj(("low", AnyNum("Lower bound")), ("high", AnyNum("Upper bound"))), ["low", "high"]),
-            ("triangular", Obj(("low", AnyNum("Lower bound")), ("mode", AnyNum("Most likely value")), ("high", AnyNum("Upper bound"))), ["low", "mode", "high"]),
-            ("lognormal", Obj(("median", AnyNum("Median", positive: true)), ("sigma_log", Num("Standard deviation of the log", Bounds.OpenClosed(0, 5)))), ["median", "sigma_log"]));
-        var uncertainty = Section("Monte Carlo and Sobol", Obj(
-            ("draws", Num("Accepted draws (default 2000)", Bounds.Closed(10, AnalysisBinder.MaxDraws))), ("seed", Num("Random seed", Bounds.Closed(0, 9_007_199_254_740_991))),
-            ("sobol_samples", Num("Sobol base samples (default 2,560)", Bounds.Closed(0, AnalysisBinder.MaxSobolSamples))),
-            ("parameters", Obj(("type", "object"), ("minProperties", 1), ("propertyNames", Obj(("enum", parameterNames.DeepClone()))), ("additionalProperties", distribution)))),
-            strict, "seed", "parameters");
-        var scenario = Obj(
-            ("type", "object"),
-            ("additionalProperties", false),
-            ("properties", Obj(
-                ("extends", Obj(("type", "string"), ("minLength", 1), ("description", "Path of the scenario this one builds on, relative to this file"))),
-                ("brief", brief), ("demography", demography), ("human_capital", humanCapital), ("production", production),
-                ("options", Obj(("type", "array"), ("minItems", 2), ("items", option))),
-                ("reform", reform), ("appraisal", appraisal), ("sensitivity", sensitivity), ("uncertainty", uncertainty))));
-        if (strict) scenario["required"] = Arr("brief", "demography", "production", "options");
+        string description = Describe(f);
+        switch (f.Kind)
+        {
+            case FieldKind.Section:
+                return Section(description, Properties(f.Path, null, strict), strict, Required(f.Path));
+            case FieldKind.Variants:
+            {
+                string selector = f.Selector!;
+                var variants = ScenarioFields.Get(f.Path + "." + selector).Choices
+                    .Select(v => (v, Properties(f.Path, v, strict, selector), Required(f.Path, v, selector))).ToArray();
+                return Variants(description, selector, strict, variants);
+            }
+            case FieldKind.List:
+                return Array(f, Node(ScenarioFields.Get(f.Path + "[]"), strict: true));
+            case FieldKind.ParameterMap:
+            {
+                var map = Obj(("type", "object"), ("description", description));
+                if (f.MinItems > 0) map["minProperties"] = f.MinItems;
+                map["propertyNames"] = Obj(("enum", parameterNames));
+                map["additionalProperties"] = Node(ScenarioFields.Get(f.Path + ".*"), strict);
+                return map;
+            }
+            case FieldKind.NameOrSection:
+            {
+                var own = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr(Required(f.Path))));
+                if (f.Alternatives.Length > 0)
+                    own["anyOf"] = new JsonArray(f.Alternatives.Select(k => (JsonNode?)Obj(("required", Arr(k)))).ToArray());
+                own["properties"] = Properties(f.Path, null, strict: true);
+                return Obj(("description", description), ("anyOf", new JsonArray(Obj(("enum", Arr(f.Choices))), own)));
+            }
+            case FieldKind.Text when f.Pattern is { } pattern:
+                return Obj(("type", "string"), ("maxLength", f.MaxLength), ("pattern", pattern), ("description", description));
+            case FieldKind.Text:
+                return Str(description, f.MaxLength);
+            case FieldKind.Path:
+                return Obj(("type", "string"), ("minLength", 1), ("description", description));
+            case FieldKind.Id:
+                return Obj(("type", "string"), ("pattern", "^[a-z0-9][a-z0-9_-]{0,63}$"), ("description", description));
+            case FieldKind.Date:
+                return Obj(("type", "string"), ("pattern", "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"), ("format", "date"), ("description", description));
+            case FieldKind.Choice:
+                return Obj(("enum", Arr(f.Choices)), ("description", description));
+            case FieldKind.Flag:
+                return Obj(("type", "boolean"), ("description", description));
+            case FieldKind.Number:
+                return Num(description, f.Bounds, rate: f.Unit == ValueUnit.Rate, integer: f.Whole);
+            case FieldKind.ParameterName:
+                return Obj(("enum", parameterNames), ("description", description));
+            case FieldKind.ParameterValue:
+                return AnyNum(description, f.Bounds);
+            case FieldKind.Range:
+                return Obj(("type", "array"), ("description", description), ("minItems", 2), ("maxItems", 2),
+                    ("items", AnyNum("End of the range", f.Bounds)));
+            default:
+                throw new InvalidOperationException($"no schema for {f.Kind}");
+        }
+    }
+
+    private static JsonObject Sections(bool strict)
+    {
+        var scenario = Obj(("type", "object"), ("additionalProperties", false), ("properties", Properties("", null, strict)));
+        if (strict) scenario["required"] = Arr(Required(""));
         return scenario;
     }
 

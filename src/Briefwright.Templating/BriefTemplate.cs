@@ -40,7 +40,7 @@ public sealed class BriefTemplate
         this.template = template;
         Path = path;
         Text = text;
-        Hash = Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(text)));
+        Hash = Sha256Hex.Of(text);
     }
 
     public string Path { get; }

@@ -52,10 +52,10 @@ public class BatchTests
         string archived = Path.Combine(w.Out, "archive", "auroria-silverdale", "edition-1", "auroria-silverdale-2026-11-30.pdf");
         Assert.Equal(before["auroria-silverdale-2026-11-30.pdf"], File.ReadAllBytes(archived));
         Assert.Equal(before["auroria-eastmark-2026-11-30.pdf"], File.ReadAllBytes(Path.Combine(w.Out, "auroria-eastmark-2026-11-30.pdf")));
-        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(w.Out, "auroria-silverdale-2026-11-30.results.json")));
+        using var json = JsonDocument.Parse(File.ReadAllText(Path.Combine(w.Out, "auroria-silverdale-2026-11-30-edition-2.results.json")));
         Assert.Equal(2, json.RootElement.GetProperty("edition").GetInt32());
 
-        string md = File.ReadAllText(Path.Combine(w.Out, "auroria-silverdale-2026-11-30.brief.md"));
+        string md = File.ReadAllText(Path.Combine(w.Out, "auroria-silverdale-2026-11-30-edition-2.brief.md"));
         var changed = md.Split('\n').SkipWhile(l => !l.StartsWith("[[table: Assumptions changed")).Skip(4).TakeWhile(l => l.StartsWith('|')).ToList();
         Assert.Equal("| Population growth rate | −0.40% | −0.60% | Silverdale provincial projection 2025 (invented) |", Assert.Single(changed));
     }

@@ -77,17 +77,17 @@ public class KillAfterEveryStepOfASameDateRebuildTests
 {
     [Fact]
     public void A_same_date_rebuild_killed_after_any_step_loses_nothing_and_the_next_build_finishes_it() =>
-        KillAfterEveryStepTests.KillEachStep(w => w.Edit("auroria-national.yaml", "value: 22%", "value: 23%"), []);
+        KillAfterEveryStepTests.KillEachStep(w => w.Edit("auroria-national.yaml", "value: 22%", "value: 23%"), [], edition: 2);
 }
 
-/// <summary>The same for a rebuild with a new date (new file names; the previous edition's files are removed).</summary>
+/// <summary>The same for a rebuild with a new date (edition 1 re-dated: new file names; the previous dated files are removed).</summary>
 public class KillAfterEveryStepTests
 {
     [Fact]
     public void A_new_date_rebuild_killed_after_any_step_loses_nothing_and_the_next_build_finishes_it() =>
-        KillEachStep(_ => { }, ["--date", "2026-12-15"]);
+        KillEachStep(_ => { }, ["--date", "2026-12-15"], edition: 1);
 
-    internal static void KillEachStep(Action<Workspace> change, string[] extra)
+    internal static void KillEachStep(Action<Workspace> change, string[] extra, int edition)
     {
         var w = new Workspace("auroria-national");
         string yaml = Path.Combine(w.Dir, "auroria-national.yaml");
@@ -126,7 +126,7 @@ public class KillAfterEveryStepTests
             var (code, output, err) = Snapshot.Run(args.Select(a => a == yaml ? Path.Combine(trial, "auroria-national.yaml") : a).Where(a => a != "-q").ToArray());
             Assert.True(code == 0, $"{step}: {err}");
             bool switching = steps.IndexOf(step) >= steps.IndexOf($"{Snapshot.Id}/journal") && steps.IndexOf(step) < steps.IndexOf($"{Snapshot.Id}/committed");
-            if (switching) Assert.True(output.Contains("finished the switch to edition 2 that an interrupted build had begun"), $"{step}: {output}");
+            if (switching) Assert.True(output.Contains($"finished the switch to edition {edition} that an interrupted build had begun"), $"{step}: {output}");
             if (locked) Assert.True(output.Contains("recovered: took over the lock of a build that showed no sign of life"), $"{step}: {output}");
             Assert.Equal(expected, Snapshot.Of(outDir));
             Assert.Equal(edition1, Snapshot.Of(archive));
@@ -216,7 +216,7 @@ public class ConcurrentBuildTests
     }
 
     [Fact]
-    public void Three_builds_of_three_dates_make_three_editions_and_archive_every_previous_one_whole()
+    public void Three_builds_of_three_dates_re_date_edition_1_and_archive_every_dated_copy_whole()
     {
         var w = new Workspace("auroria-national");
         string yaml = Path.Combine(w.Dir, "auroria-national.yaml");
@@ -224,10 +224,15 @@ public class ConcurrentBuildTests
         var edition1 = Snapshot.Of(w.Out);
         var results = RunAtOnce(new[] { "2026-12-01", "2026-12-02", "2026-12-03" }.Select(d => new[] { "build", yaml, "--no-chart-images", "-q", "--date", d }));
         Assert.All(results, r => Assert.True(r.Code == 0, r.Err));
-        Assert.Equal(4, Snapshot.AssertWhole(w.Out).Edition);
+        var current = Snapshot.AssertWhole(w.Out);
+        Assert.Equal(1, current.Edition); // a new date alone is no new edition
         string root = Path.Combine(w.Out, "archive", Snapshot.Id);
-        Assert.Equal(["edition-1", "edition-2", "edition-3"], Directory.GetDirectories(root).Select(Path.GetFileName).Order());
-        for (int n = 1; n <= 3; n++) Assert.Equal(n, Snapshot.AssertWhole(Path.Combine(root, $"edition-{n}")).Edition);
+        var kept = Directory.GetDirectories(root).Select(d => Snapshot.AssertWhole(d)).ToList();
+        Assert.Equal(3, kept.Count);
+        Assert.All(kept, m => Assert.Equal(1, m.Edition));
+        // Every dated copy is somewhere: three in the archive, one current.
+        Assert.Equal(["auroria-national-2026-11-30", "auroria-national-2026-12-01", "auroria-national-2026-12-02", "auroria-national-2026-12-03"],
+            kept.Select(m => m.Stem).Append(current.Stem).Order());
         Assert.Equal(edition1, Snapshot.Of(Path.Combine(root, "edition-1")));
         Assert.False(Directory.Exists(Path.Combine(w.Out, EditionFolder.TempFolderName)));
     }

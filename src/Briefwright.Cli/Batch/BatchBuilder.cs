@@ -1,5 +1,4 @@
 using System.Diagnostics;
-using System.Security.Cryptography;
 using System.Text;
 using Briefwright.Brief;
 using Briefwright.Brief.Annex;
@@ -35,10 +34,8 @@ public static class BatchBuilder
     /// <summary>SHA-256 of the four bundled font files, one after the other (an input of every brief).</summary>
     internal static readonly Lazy<string> FontsHash = new(() =>
     {
-        using var sha = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
-        foreach (var style in new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic })
-            sha.AppendData(BundledFonts.Bytes(style));
-        return Convert.ToHexStringLower(sha.GetHashAndReset());
+        var styles = new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic };
+        return Sha256Hex.OfAll(styles.Select(BundledFonts.Bytes));
     });
 
     /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when null.</param>
@@ -60,32 +57,23 @@ public static class BatchBuilder
         var scenario = loaded.Document!;
         if (settings.Date is { } d) scenario = scenario with { Brief = scenario.Brief with { Date = d } };
         string id = scenario.Brief.Id;
-        string dir = settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
+        string dir = DirOf(file, settings);
         string? hash = null;
         try
         {
             Directory.CreateDirectory(dir);
-            var inputs = new SortedDictionary<string, string>(StringComparer.Ordinal)
-            {
-                ["scenario"] = scenario.InputHash,
-                ["template"] = settings.Template.Hash,
-                ["theme"] = settings.ThemeHash,
-                ["fonts"] = FontsHash.Value,
-                ["tool"] = ToolInfo.Version,
-                ["date"] = scenario.Brief.Date.ToString("yyyy-MM-dd"),
-                ["annex_images"] = settings.AnnexImages ? "yes" : "no",
-            };
-            if (settings.CsvByteOrderMark) inputs["csv_bom"] = "yes";
-            hash = BriefBuilder.Sha256(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")));
+            var (inputs, outputs, request) = Request(scenario, settings);
+            hash = request.Fingerprint;
             var folder = new EditionFolder(dir, id);
-            var request = new EditionRequest(hash, scenario.Brief.Edition, settings.Force);
             // Unchanged briefs are skipped without taking the lock (only reads; the manifest is switched last), unless the
             // temporary folder exists: then a build is running or was interrupted, and the locked path sees to it.
             if (!settings.Force && !Directory.Exists(folder.TempDir))
             {
                 var (known, quick) = folder.Read(full: false);
-                if (EditionPlanner.Plan(request, quick) is EditionPlan.Skip unchanged)
+                var early = EditionPlanner.Plan(request, quick);
+                if (early is EditionPlan.Skip unchanged)
                     return new BriefOutcome(file, id, OutcomeStatus.Skipped, unchanged.Edition, Path.Combine(dir, known!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { InputHash = hash };
+                if (early is EditionPlan.Refuse refused) return Refused(file, loaded, scenario, refused, dir, hash, error, watch);
             }
 
             using var held = BriefLock.Acquire(folder.TempDir, id, message => { lock (error) error.WriteLine($"{file}: {message}"); }, stop);
@@ -95,7 +83,16 @@ public static class BatchBuilder
             var plan = EditionPlanner.Plan(request, state);
             if (plan is EditionPlan.Skip skip)
                 return new BriefOutcome(file, id, OutcomeStatus.Skipped, skip.Edition, Path.Combine(dir, current!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { Recovered = recovered, InputHash = hash };
+            if (plan is EditionPlan.Refuse refuse) return Refused(file, loaded, scenario, refuse, dir, hash, error, watch) with { Recovered = recovered };
             var build = (EditionPlan.Build)plan;
+
+            // Only the tool changed among what defines an edition: the results decide whether this is a new edition.
+            SolvedScenario? solved = null;
+            if (build.ResultsDecide)
+            {
+                solved = ScenarioSolver.Solve(scenario, settings.Options.ModelThreads);
+                build = EditionPlanner.Settle(build, request, state, ResultsDiffer(solved, dir, build.CompareWith));
+            }
 
             WarmUp.Start(); // this brief will be built: let the output libraries start up while its model runs
             scenario = scenario with { Brief = scenario.Brief with { Edition = build.Edition } };
@@ -104,16 +101,21 @@ public static class BatchBuilder
                 try { before = EditionSnapshot.FromJson(File.ReadAllText(Path.Combine(dir, previousJson))); }
                 catch (Exception ex) when (ex is System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException) { } // no comparison from a damaged file
 
-            var brief = BriefBuilder.Build(scenario, settings.Template, settings.Options with { PreviousEdition = before, ChartImages = settings.AnnexImages });
+            var options = settings.Options with { PreviousEdition = before, ChartImages = settings.AnnexImages, EditionCauses = build.Changed };
+            var brief = solved is null
+                ? BriefBuilder.Build(scenario, settings.Template, options)
+                : BriefBuilder.Compose(solved with { Scenario = scenario }, settings.Template, options);
             var files = brief.Annex.Select(a => ($"{brief.FileStem}.{a.Suffix}",
                     settings.CsvByteOrderMark && a.Suffix.EndsWith(".csv", StringComparison.Ordinal) ? [0xEF, 0xBB, 0xBF, .. a.Bytes] : a.Bytes))
                 .Append((brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson)))
                 .Append((brief.FileStem + ".pdf", brief.Pdf)).ToList();
             var manifest = new Manifest(id, brief.FileStem, build.Edition, hash, inputs, files.Select(f => f.Item1).ToList())
             {
+                Outputs = outputs, RequestedEdition = Math.Max(1, request.RequestedEdition),
                 Sizes = files.ToDictionary(f => f.Item1, f => (long)f.Item2.Length),
                 Sha256 = files.ToDictionary(f => f.Item1, f => EditionFolder.Sha256(f.Item2)),
             };
+            build = EditionPlanner.KeepReplaced(build, state, current?.Sha256, manifest.Sha256!);
             string? archived = EditionTransaction.Execute(folder, held, build, current, state, files, manifest, settings.Durable);
             string pdf = Path.Combine(dir, brief.FileStem + ".pdf");
             return new BriefOutcome(file, id, OutcomeStatus.Built, build.Edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null)
@@ -122,66 +124,78 @@ public static class BatchBuilder
                 Archived = archived is null ? null : Path.GetRelativePath(dir, archived),
             };
         }
-        catch (TemplateException ex)
-        {
-            lock (error) foreach (var e in ex.Errors) error.WriteLine(e);
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "template error")
-            {
-                InputHash = hash, Messages = ex.Errors.Select(e => e.ToString().Split('\n')[0]).ToList(),
-            };
-        }
-        catch (BriefTextException ex)
-        {
-            lock (error) foreach (var e in ex.Errors) error.WriteLine(e);
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "text the brief cannot show")
-            {
-                InputHash = hash, Messages = ex.Errors.ToList(),
-            };
-        }
-        catch (UnsolvableScenarioException ex)
-        {
-            lock (error) error.WriteLine(ScenarioInputs.Unsolvable(file, ex));
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message);
-        }
-        catch (ComposeException ex)
-        {
-            string message = $"{Position(settings.Template, ex)}: {ex.Message}";
-            lock (error) error.WriteLine(message);
-            return new BriefOutcome(file, id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
-        }
         catch (OperationCanceledException) when (stop.IsCancellationRequested)
         {
             return new BriefOutcome(file, id, OutcomeStatus.Stopped, null, null, 0, 0, watch.ElapsedMilliseconds, "stopped by a signal before it was started; nothing was replaced") { Recovered = recovered };
         }
-        catch (EditionWriteException ex)
-        {
-            lock (error) error.WriteLine($"{file}: cannot write the brief to {dir}: {ex.Message}.");
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { Recovered = recovered };
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            // Failed before any staging: the lock, the recovery or the folder itself (a file, read-only, full).
-            string message = $"{file}: cannot write the brief to {dir} ({ex.Message}); nothing was replaced: the previous files are untouched.";
-            lock (error) error.WriteLine(message);
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { Recovered = recovered, InputHash = hash, Messages = [message] };
-        }
         catch (Exception ex)
         {
             // Whatever went wrong, this brief fails alone: the others in the batch are still built, nothing is half-written.
-            string message = $"{file}: {(ex is NonFiniteResultException ? "" : "internal error, please report it: ")}{ex.Message}";
-            lock (error) error.WriteLine(message);
-            return new BriefOutcome(file, id, OutcomeStatus.Failed, null, null, 0, 0, watch.ElapsedMilliseconds, ex.Message) { InputHash = hash, Messages = [message] };
+            var failure = StageErrors.Describe(ex, file, dir, settings.Template);
+            lock (error) foreach (var line in failure.Lines) error.WriteLine(line);
+            return new BriefOutcome(file, id, failure.Status, null, null, 0, 0, watch.ElapsedMilliseconds, failure.Summary)
+            {
+                Recovered = recovered, InputHash = hash, Messages = failure.FirstLines,
+            };
         }
     }
 
-    /// <summary>Where in the template the offending text was written: found by its text, else the line of the filled text.</summary>
-    private static string Position(BriefTemplate template, ComposeException ex)
+    /// <summary>The output folder of one scenario: the one named, else an <c>out</c> folder beside it.</summary>
+    public static string DirOf(string file, BatchSettings settings) => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
+
+    /// <summary>
+    /// What the brief depends on, by name: <c>inputs</c> (what its bytes are made from: the scenario's text and content,
+    /// template, theme, fonts, tool, date) and <c>outputs</c> (the output switches: which files are written). A further
+    /// output format or switch goes into <c>outputs</c>, never <c>inputs</c>, so that it never makes an edition.
+    /// </summary>
+    public static (SortedDictionary<string, string> Inputs, SortedDictionary<string, string> Outputs, EditionRequest Request) Request(ScenarioDocument scenario, BatchSettings settings)
     {
-        var lines = template.Text.Split('\n');
-        if (ex.Snippet is { Length: > 0 } snippet)
-            for (int i = 0; i < lines.Length; i++)
-                if (lines[i].IndexOf(snippet, StringComparison.Ordinal) is int col and >= 0) return $"{template.Path}:{i + 1}:{col + 1}";
-        return $"{template.Path}:{Math.Max(1, ex.Line)}:1";
+        var inputs = new SortedDictionary<string, string>(StringComparer.Ordinal)
+        {
+            [EditionInput.ScenarioText] = scenario.InputHash,
+            [EditionInput.Content] = scenario.ContentHash,
+            [EditionInput.Template] = settings.Template.Hash,
+            ["theme"] = settings.ThemeHash,
+            ["fonts"] = FontsHash.Value,
+            [EditionInput.Tool] = ToolInfo.Version,
+            [EditionInput.Date] = scenario.Brief.Date.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture),
+        };
+        var outputs = new SortedDictionary<string, string>(StringComparer.Ordinal)
+        {
+            ["chart_copies"] = settings.AnnexImages ? "yes" : "no",
+            ["csv_byte_order_mark"] = settings.CsvByteOrderMark ? "yes" : "no",
+        };
+        string hash = Sha256Hex.Of(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")
+            .Concat(outputs.Select(kv => $"{EditionInput.OutputPrefix}{kv.Key}={kv.Value}"))));
+        return (inputs, outputs, new EditionRequest(hash, scenario.Brief.Edition, settings.Force) { Inputs = inputs, Outputs = outputs });
     }
 
+    /// <summary>Whether the solved brief's assumptions as shown or headline results differ from the current edition's
+    /// results file; true when that file cannot be read (the change cannot be ruled out).</summary>
+    private static bool ResultsDiffer(SolvedScenario solved, string dir, string? previousJson)
+    {
+        if (previousJson is null) return true;
+        try { return BriefBuilder.ResultsDiffer(solved, File.ReadAllText(Path.Combine(dir, previousJson))); }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException) { return true; }
+    }
+
+    /// <summary><c>brief.edition</c> below an edition already issued: a positioned error, nothing written for the brief.</summary>
+    private static BriefOutcome Refused(string file, LoadResult loaded, ScenarioDocument scenario, EditionPlan.Refuse refuse, string dir, string? hash, TextWriter error, Stopwatch watch)
+    {
+        var problem = RefusalOf(file, scenario, refuse, dir);
+        lock (error)
+        {
+            error.WriteLine(loaded.Sources.Render(problem));
+            error.WriteLine($"{file}: 1 problem; nothing written.");
+        }
+        return new BriefOutcome(file, scenario.Brief.Id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "brief.edition is below an edition already issued")
+        {
+            InputHash = hash, Messages = [problem.Message],
+        };
+    }
+
+    internal static Scenario.Diagnostics.Diagnostic RefusalOf(string file, ScenarioDocument scenario, EditionPlan.Refuse refuse, string dir) =>
+        new(scenario.EditionAt ?? new Scenario.Diagnostics.SourceSpan(file, 1, 1), "brief.edition",
+            $"must not be below edition {refuse.Issued}, already issued in {dir}; remove it, or give at least {refuse.Issued + 1} to start a new edition",
+            $"'{refuse.Requested}'");
 }

@@ -1,4 +1,3 @@
-using System.Security.Cryptography;
 using System.Text.Json;
 using System.Text.RegularExpressions;
 using Briefwright.Brief.Editions;
@@ -23,12 +22,12 @@ public sealed class EditionFolder(string dir, string id)
     public string ArchiveRoot => Path.Combine(Dir, "archive", Id);
     public string Staging(string token) => Path.Combine(TempDir, $"{Id}.{token}");
 
-    public static string Sha256(byte[] bytes) => Convert.ToHexStringLower(SHA256.HashData(bytes));
+    public static string Sha256(byte[] bytes) => Sha256Hex.Of(bytes);
 
     public static string Sha256(string path)
     {
         using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16);
-        return Convert.ToHexStringLower(SHA256.HashData(stream));
+        return Sha256Hex.Of(stream);
     }
 
     /// <summary>
@@ -61,18 +60,22 @@ public sealed class EditionFolder(string dir, string id)
                 else if (manifest.Sizes is { } sizes && sizes[f] != info.Length) changed.Add(f);
                 else if (full && manifest.Sha256 is { } hashes && hashes[f] != Sha256(info.FullName)) changed.Add(f);
             }
-            return (manifest, new CurrentEdition(condition, manifest.Edition, manifest.Hash, manifest.Stem, manifest.Files, missing, changed, archived));
+            return (manifest, new CurrentEdition(condition, manifest.Edition, manifest.Hash, manifest.Stem, manifest.Files, missing, changed, archived)
+            {
+                Inputs = manifest.Inputs, Outputs = manifest.Outputs, RequestedEdition = manifest.RequestedEdition,
+            });
         }
         if (!full) return (null, new CurrentEdition(condition, null, null, null, [], [], [], 0));
         var found = Found();
         return (null, new CurrentEdition(condition, FoundEdition(found), null, null, found, [], [], archived));
     }
 
-    /// <summary>Files of this brief by name, <c>&lt;id&gt;-YYYY-MM-DD.*</c> (ids cannot hold a dot, so no other brief's).</summary>
+    /// <summary>Files of this brief by name, <c>&lt;id&gt;-YYYY-MM-DD.*</c> or <c>&lt;id&gt;-YYYY-MM-DD-edition-N.*</c> (ids cannot
+    /// hold a dot, so no other brief's).</summary>
     public IReadOnlyList<string> Found()
     {
         if (!Directory.Exists(Dir)) return [];
-        var pattern = new Regex("^" + Regex.Escape(Id) + @"-\d{4}-\d{2}-\d{2}\.", RegexOptions.CultureInvariant);
+        var pattern = new Regex("^" + Regex.Escape(Id) + @"-\d{4}-\d{2}-\d{2}(-edition-\d{1,9})?\.", RegexOptions.CultureInvariant);
         return Directory.EnumerateFiles(Dir, Id + "-*").Select(Path.GetFileName).Where(n => n is not null && pattern.IsMatch(n)).Select(n => n!).Order(StringComparer.Ordinal).ToList();
     }
 

@@ -1,4 +1,3 @@
-using System.Security.Cryptography;
 using System.Text;
 using System.Text.Json;
 
@@ -8,11 +7,19 @@ namespace Briefwright.Cli.Batch;
 /// What a brief in an output folder was built from: the hashes of every input, the files written with their sizes and
 /// SHA-256, and its own hash (<c>check</c>: the SHA-256 of the file with that value left empty). Stored as
 /// <c>&lt;id&gt;.manifest.json</c>. A manifest whose check fails, or that names a path outside its folder, is damaged.
+/// <c>inputs</c> are what the brief's bytes depend on (<see cref="Brief.Editions.EditionInput"/>); <c>outputs</c> are the
+/// output switches (which files are written), kept apart because they never make an edition; <c>hash</c> covers both.
 /// Manifests of earlier releases (no sizes, hashes or check) are read as valid but unverifiable.
 /// </summary>
 public sealed record Manifest(string Id, string Stem, int Edition, string Hash, IReadOnlyDictionary<string, string> Inputs, IReadOnlyList<string> Files)
 {
     public IReadOnlyDictionary<string, long>? Sizes { get; init; }
+
+    /// <summary>Output switches by name (chart copies, byte order mark, further formats): never part of what defines an edition.</summary>
+    public IReadOnlyDictionary<string, string>? Outputs { get; init; }
+
+    /// <summary>The <c>brief.edition</c> the scenario gave for this build (a minimum; 1 when it gave none).</summary>
+    public int? RequestedEdition { get; init; }
 
     public IReadOnlyDictionary<string, string>? Sha256 { get; init; }
 
@@ -68,7 +75,7 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
 
     private static string CheckText(string value) => $"\"check\": \"{value}\"";
 
-    private static string SelfHash(string text) => Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text)));
+    private static string SelfHash(string text) => Sha256Hex.Of(text);
 
     /// <summary>Every file exists with the size the manifest recorded (the check a skipped build relies on).</summary>
     public bool FilesPresent(string outDir) => Files.All(f => Sizes is null
@@ -81,4 +88,5 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
 [System.Text.Json.Serialization.JsonSerializable(typeof(BuildLogEntry))]
 [System.Text.Json.Serialization.JsonSerializable(typeof(Journal))]
 [System.Text.Json.Serialization.JsonSerializable(typeof(LockInfo))]
+[System.Text.Json.Serialization.JsonSerializable(typeof(IReadOnlyList<PlannedBrief>))]
 internal sealed partial class BatchJsonContext : System.Text.Json.Serialization.JsonSerializerContext;

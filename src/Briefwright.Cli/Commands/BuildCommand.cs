@@ -28,12 +28,14 @@ public static class BuildCommand
         var skipFlush = new Option<bool>("--skip-flush") { Description = "Do not wait for each brief to reach the disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a power cut might leave an empty one." };
         var settingsFile = new Option<string?>("--settings") { Description = $"Project settings file. Default: the nearest {ProjectSettings.FileName} in the scenarios' folder or a folder above it." };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print nothing but errors." };
+        var plan = new Option<bool>("--plan") { Description = "Say what a build would do for each brief (build new, skip, rewrite, re-date, new edition) and which inputs changed, and write nothing at all: no brief, log line, lock or folder. Exit 0, or 2 on invalid input." };
+        var json = new Option<bool>("--json") { Description = "With --plan: print the plan as a JSON list, one object per scenario in the order given." };
         var command = new Command("build",
             "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results JSON, CSV tables and " +
             "chart images beside it. Unchanged briefs are skipped; a changed brief becomes a new edition and the previous one is archived. " +
             $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
-            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root,
+            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root, plan, json,
         };
         command.SetAction(parse =>
         {
@@ -41,7 +43,14 @@ public static class BuildCommand
             var given = parse.GetValue(paths)!;
             if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;
             string? shardText = parse.GetValue(shard);
-            var log = new BuildLog(io.Clock, shardText);
+            bool planOnly = parse.GetValue(plan);
+            if (parse.GetValue(json) && !planOnly)
+            {
+                error.WriteLine("briefwright build: --json is for --plan; a build reports in build-log.jsonl (one JSON line per brief).");
+                return ExitCodes.InvalidInput;
+            }
+            // A plan writes nothing, not even a log line.
+            var log = planOnly ? null : new BuildLog(io.Clock, shardText);
             string? cliOut = parse.GetValue(outDir);
             if (given.Contains("-"))
                 return Refuse(log, "usage", LogDirs(given, cliOut, null), error,
@@ -91,9 +100,15 @@ public static class BuildCommand
                 CsvByteOrderMark = parse.GetValue(csvBom) || (project?.CsvByteOrderMark ?? false),
                 Root = parse.GetValue(root),
             };
+            if (planOnly)
+            {
+                var plans = BuildPlan.PlanAll(files, settings, jobCount, error);
+                io.Out.Write(parse.GetValue(json) ? BuildPlan.ToJson(plans) : BuildPlan.ToText(plans));
+                return emptyFolder || plans.Any(p => p.Action == "invalid") ? ExitCodes.InvalidInput : ExitCodes.Ok;
+            }
             bool beQuiet = parse.GetValue(quiet);
             var progress = new Progress(beQuiet ? TextWriter.Null : io.Out, io.Interactive && !beQuiet, files.Count);
-            var outcomes = Run(files, settings, jobCount, progress, error, log);
+            var outcomes = Run(files, settings, jobCount, progress, error, log!);
             if (!beQuiet) io.Out.Write(Summary(outcomes));
             if (outcomes.Any(o => o.Status is OutcomeStatus.Failed or OutcomeStatus.Stopped)) return ExitCodes.Failed;
             return emptyFolder || outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
@@ -102,9 +117,10 @@ public static class BuildCommand
     }
 
     /// <summary>Stops the run before any brief: prints the messages, logs them (one run line per output folder), exit 2.</summary>
-    private static int Refuse(BuildLog log, string stage, IEnumerable<string> logDirs, TextWriter error, params string[] messages)
+    private static int Refuse(BuildLog? log, string stage, IEnumerable<string> logDirs, TextWriter error, params string[] messages)
     {
         foreach (var m in messages) error.WriteLine(m);
+        if (log is null) return ExitCodes.InvalidInput; // a plan writes nothing
         var entry = log.RunEntry(stage, messages);
         foreach (var dir in logDirs.Distinct()) BuildLog.Append(dir, entry);
         return ExitCodes.InvalidInput;
@@ -248,7 +264,7 @@ public static class BuildCommand
         }
         catch (TemplateException ex)
         {
-            foreach (var e in ex.Errors.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(e);
+            foreach (var line in StageErrors.Describe(ex, templatePath ?? "template").Lines.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(line);
             return null;
         }
         stage = "theme";
@@ -266,13 +282,13 @@ public static class BuildCommand
                 byte[] bold = spec.FontFiles.GetValueOrDefault("bold", regular);
                 var fonts = (regular, bold, spec.FontFiles.GetValueOrDefault("italic", regular), spec.FontFiles.GetValueOrDefault("bold_italic", bold));
                 options = options with { Fonts = fonts };
-                themeHash = BriefBuilder.Sha256(themeHash + string.Concat(new[] { fonts.regular, fonts.bold, fonts.Item3, fonts.Item4 }
-                    .Select(b => Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(b)))));
+                themeHash = Sha256Hex.Of(themeHash + string.Concat(new[] { fonts.regular, fonts.bold, fonts.Item3, fonts.Item4 }
+                    .Select(b => Sha256Hex.Upper(b))));
             }
             if (spec.Logo is { } png)
             {
                 options = options with { Logo = png };
-                themeHash = BriefBuilder.Sha256(themeHash + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(png.Png)));
+                themeHash = Sha256Hex.Of(themeHash + Sha256Hex.Upper(png.Png));
             }
         }
         stage = "options";

@@ -128,7 +128,7 @@ public static class ScenarioInputs
     {
         foreach (var d in problems.Take(MaxPrinted)) error.WriteLine(sources.Render(d));
         if (problems.Count > MaxPrinted)
-            error.WriteLine($"… and {(problems.Count - MaxPrinted).ToString("N0", System.Globalization.CultureInfo.InvariantCulture)} more problem{(problems.Count - MaxPrinted == 1 ? "" : "s")} not shown (fix these first).");
+            error.WriteLine($"… and {Numbers.Count(problems.Count - MaxPrinted)} more problem{(problems.Count - MaxPrinted == 1 ? "" : "s")} not shown (fix these first).");
     }
 
     /// <summary>Solves a loaded scenario; null (after printing the reason, with the scenario's name) when the model cannot.</summary>
@@ -140,13 +140,10 @@ public static class ScenarioInputs
         }
         catch (UnsolvableScenarioException ex)
         {
-            error.WriteLine(Unsolvable(path, ex));
+            foreach (var line in StageErrors.Describe(ex, path).Lines) error.WriteLine(line);
             return null;
         }
     }
-
-    public static string Unsolvable(string path, UnsolvableScenarioException ex) =>
-        $"{path}: the model cannot solve this scenario: {ex.Message.TrimEnd('.')}. Change the inputs named in the reason; nothing written.";
 
     private static string Binding(string s) => Scenario.Binding.BindContext.Printable(s);
 }

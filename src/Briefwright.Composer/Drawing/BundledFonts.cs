@@ -54,7 +54,7 @@ public sealed class BundledFonts : IFontResolver
     /// </summary>
     public static string Register(byte[] regular, byte[] bold, byte[] italic, byte[] boldItalic)
     {
-        string family = "Theme " + Convert.ToHexString(System.Security.Cryptography.SHA256.HashData(regular.Concat(bold).Concat(italic).Concat(boldItalic).ToArray()))[..12];
+        string family = "Theme " + Sha256Hex.Upper(regular.Concat(bold).Concat(italic).Concat(boldItalic).ToArray())[..12];
         Registered.TryAdd($"{family}|{RunStyle.Regular}", regular);
         Registered.TryAdd($"{family}|{RunStyle.Bold}", bold);
         Registered.TryAdd($"{family}|{RunStyle.Italic}", italic);

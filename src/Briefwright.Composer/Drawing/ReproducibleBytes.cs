@@ -1,5 +1,4 @@
 using System.Globalization;
-using System.Security.Cryptography;
 using System.Text;
 using System.Text.RegularExpressions;
 
@@ -87,7 +86,7 @@ public static partial class ReproducibleBytes
             f.Text.Overwrite(f.Start, mask.ToString());
         }
 
-        byte[] digest = SHA256.HashData(file.Write());
+        byte[] digest = Sha256Hex.Digest(file.Write());
         int n = 0;
         foreach (var f in fields.OrderBy(f => f.Text.Order).ThenBy(f => f.Start))
         {
@@ -136,7 +135,7 @@ public static partial class ReproducibleBytes
         var output = new List<byte>();
         while (output.Count < length)
         {
-            input = SHA256.HashData(input);
+            input = Sha256Hex.Digest(input);
             output.AddRange(input);
         }
         return output.Take(length).ToArray();

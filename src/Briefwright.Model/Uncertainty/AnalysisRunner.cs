@@ -37,10 +37,13 @@ public static class AnalysisRunner
         return new AnalysisResults(settings.HeadlineOptionId, reform, tornado, grids, mc, sobol);
     }
 
+    /// <summary>The seed of the Sobol samples: the scenario's, changed so they are not the Monte Carlo draws.</summary>
+    public static ulong SobolSeed(MonteCarloSpec spec) => spec.Seed ^ 0x5AB0_1D5EUL;
+
     private static GlobalSensitivity Sobol(ModelInputs inputs, AnalysisSettings settings, MonteCarloSpec spec, double guess, int maxThreads)
     {
         var names = spec.Parameters.Select(p => p.Parameter).ToList();
-        var indices = Uncertainty.Sobol.Estimate(spec.Parameters.Count, spec.SobolSamples, spec.Seed ^ 0x5AB0_1D5EUL, names, u =>
+        var indices = Uncertainty.Sobol.Estimate(spec.Parameters.Count, spec.SobolSamples, SobolSeed(spec), names, u =>
         {
             var trial = MonteCarlo.Apply(inputs, spec.Parameters, u);
             if (Parameters.Violation(trial) is not null) return null;

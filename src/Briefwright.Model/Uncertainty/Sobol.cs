@@ -42,6 +42,19 @@ public static class Sobol
     public const int DefaultResamples = 1000;
     public const double DefaultLevel = 0.95;
 
+    /// <summary>Base samples whose every run must meet the model's rules: half of them, and at least two (the indices
+    /// are ratios of variances over the accepted rows; below that they say nothing).</summary>
+    public static int MinRows(int n) => Math.Max(2, (n + 1) / 2);
+
+    /// <summary>Row <paramref name="r"/> of the base matrices A and B: its own random stream from (seed, r), A's d
+    /// uniforms first, then B's.</summary>
+    public static void BaseRow(ulong seed, int r, Span<double> a, Span<double> b)
+    {
+        var rng = SplitMix64.ForStream(seed, (ulong)r);
+        for (int j = 0; j < a.Length; j++) a[j] = rng.NextOpenUnit();
+        for (int j = 0; j < b.Length; j++) b[j] = rng.NextOpenUnit();
+    }
+
     /// <param name="f">The model on the unit cube: d uniforms in (0,1) to several outputs.</param>
     public static IReadOnlyList<SobolIndices> Estimate(int d, int n, ulong seed, IReadOnlyList<string> inputNames, Func<double[], double[]?> f,
         int maxThreads = ModelThreads.AllCores, int resamples = DefaultResamples, double level = DefaultLevel)
@@ -50,11 +63,9 @@ public static class Sobol
         var b = new double[n][];
         for (int r = 0; r < n; r++)
         {
-            var rng = SplitMix64.ForStream(seed, (ulong)r);
             a[r] = new double[d];
             b[r] = new double[d];
-            for (int j = 0; j < d; j++) a[r][j] = rng.NextOpenUnit();
-            for (int j = 0; j < d; j++) b[r][j] = rng.NextOpenUnit();
+            BaseRow(seed, r, a[r], b[r]);
         }
         var fa = new double[]?[n];
         var fb = new double[]?[n];
@@ -73,39 +84,47 @@ public static class Sobol
         // Rows where any evaluation broke a model rule are dropped from every estimator alike.
         var rows = Enumerable.Range(0, n).Where(r => fa[r] is not null && fb[r] is not null && Enumerable.Range(0, d).All(i => fab[i, r] is not null)).ToArray();
         int m = rows.Length;
+        if (m < MinRows(n))
+            throw new ModelRuleException($"Sobol indices: only {m} of {n} base samples met every model rule in all {d + 2} of their runs " +
+                $"(at least {MinRows(n)} must); narrow the distributions, or set uncertainty.sobol_samples to 0 to skip the indices.");
         int outputs = fa[rows[0]]!.Length;
         // Resample s draws its rows from its own stream, so every output sees the same resamples and threads change nothing.
         ulong bootSeed = seed ^ 0xB007_57A9_0000_0001UL;
-        return ModelThreads.Map(outputs, maxThreads, k =>
+        return ModelThreads.Map(outputs, maxThreads, k => Output(k, d, rows, fa, fb, fab, inputNames, bootSeed, resamples, level));
+    }
+
+    /// <summary>The indices of output <paramref name="k"/> over the accepted rows, with bootstrap intervals.</summary>
+    private static SobolIndices Output(int k, int d, int[] rows, double[]?[] fa, double[]?[] fb, double[]?[,] fab,
+        IReadOnlyList<string> inputNames, ulong bootSeed, int resamples, double level)
+    {
+        int m = rows.Length;
+        // Column-major copies of this output: yA[j], yB[j], yAB[i][j] for the accepted rows.
+        var yA = rows.Select(r => fa[r]![k]).ToArray();
+        var yB = rows.Select(r => fb[r]![k]).ToArray();
+        var yAB = Enumerable.Range(0, d).Select(i => rows.Select(r => fab[i, r]![k]).ToArray()).ToArray();
+        var all = Enumerable.Range(0, m).ToArray();
+        var (first, total, variance) = Indices(yA, yB, yAB, all);
+        var bootFirst = new double[d][];
+        var bootTotal = new double[d][];
+        for (int i = 0; i < d; i++) { bootFirst[i] = new double[resamples]; bootTotal[i] = new double[resamples]; }
+        var pick = new int[m];
+        for (int s = 0; s < resamples; s++)
         {
-            // Column-major copies of this output: yA[j], yB[j], yAB[i][j] for the accepted rows.
-            var yA = rows.Select(r => fa[r]![k]).ToArray();
-            var yB = rows.Select(r => fb[r]![k]).ToArray();
-            var yAB = Enumerable.Range(0, d).Select(i => rows.Select(r => fab[i, r]![k]).ToArray()).ToArray();
-            var all = Enumerable.Range(0, m).ToArray();
-            var (first, total, variance) = Indices(yA, yB, yAB, all);
-            var bootFirst = new double[d][];
-            var bootTotal = new double[d][];
-            for (int i = 0; i < d; i++) { bootFirst[i] = new double[resamples]; bootTotal[i] = new double[resamples]; }
-            var pick = new int[m];
-            for (int s = 0; s < resamples; s++)
-            {
-                var rng = SplitMix64.ForStream(bootSeed, (ulong)s);
-                for (int j = 0; j < m; j++) pick[j] = (int)(rng.NextUInt64() % (ulong)m);
-                var (bf, bt, _) = Indices(yA, yB, yAB, pick);
-                for (int i = 0; i < d; i++) { bootFirst[i][s] = bf[i]; bootTotal[i][s] = bt[i]; }
-            }
-            double lowP = (1 - level) / 2, highP = 1 - lowP;
-            var fLow = new double[d]; var fHigh = new double[d]; var tLow = new double[d]; var tHigh = new double[d];
-            for (int i = 0; i < d; i++)
-            {
-                Array.Sort(bootFirst[i]);
-                Array.Sort(bootTotal[i]);
-                fLow[i] = Quantile(bootFirst[i], lowP); fHigh[i] = Quantile(bootFirst[i], highP);
-                tLow[i] = Quantile(bootTotal[i], lowP); tHigh[i] = Quantile(bootTotal[i], highP);
-            }
-            return new SobolIndices(inputNames, first, fLow, fHigh, total, tLow, tHigh, variance, m, resamples, level);
-        });
+            var rng = SplitMix64.ForStream(bootSeed, (ulong)s);
+            for (int j = 0; j < m; j++) pick[j] = (int)(rng.NextUInt64() % (ulong)m);
+            var (bf, bt, _) = Indices(yA, yB, yAB, pick);
+            for (int i = 0; i < d; i++) { bootFirst[i][s] = bf[i]; bootTotal[i][s] = bt[i]; }
+        }
+        double lowP = (1 - level) / 2, highP = 1 - lowP;
+        var fLow = new double[d]; var fHigh = new double[d]; var tLow = new double[d]; var tHigh = new double[d];
+        for (int i = 0; i < d; i++)
+        {
+            Array.Sort(bootFirst[i]);
+            Array.Sort(bootTotal[i]);
+            fLow[i] = Quantile(bootFirst[i], lowP); fHigh[i] = Quantile(bootFirst[i], highP);
+            tLow[i] = Quantile(bootTotal[i], lowP); tHigh[i] = Quantile(bootTotal[i], highP);
+        }
+        return new SobolIndices(inputNames, first, fLow, fHigh, total, tLow, tHigh, variance, m, resamples, level);
     }
 
     /// <summary>The estimators over the rows listed in <paramref name="pick"/> (all rows, or a bootstrap resample).</summary>

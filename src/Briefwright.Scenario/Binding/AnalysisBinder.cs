@@ -20,7 +20,9 @@ public sealed class AnalysisBinder(BindContext ctx)
     /// </summary>
     public const int DefaultSobolSamples = 2560;
 
-    private static readonly Bounds YearBounds = Bounds.Closed(1900, 2300);
+    private static readonly Bounds YearBounds = ScenarioFields.Get("reform.year").Bounds;
+
+    private static ScenarioField F(string path, string? variant = null) => ScenarioFields.Get(path, variant);
 
     /// <summary>
     /// The most simulated years one brief's uncertainty analysis may ask for: (draws + Sobol samples × (parameters + 2))
@@ -37,8 +39,8 @@ public sealed class AnalysisBinder(BindContext ctx)
         if (years <= MaxSimulatedYears) return;
         var u = (YMapping)top["uncertainty"]!;
         var at = u["draws"] ?? u["sobol_samples"] ?? (YNode)u;
-        ctx.Report(at.At, "uncertainty", $"asks for {years.ToString("N0", CultureInfo.InvariantCulture)} simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × {reform.HorizonYears}); the limit for one brief is {MaxSimulatedYears.ToString("N0", CultureInfo.InvariantCulture)}; lower draws, sobol_samples or reform.horizon_years",
-            years.ToString("N0", CultureInfo.InvariantCulture));
+        ctx.Report(at.At, "uncertainty", $"asks for {Numbers.Count(years)} simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × {reform.HorizonYears}); the limit for one brief is {Numbers.Count(MaxSimulatedYears)}; lower draws, sobol_samples or reform.horizon_years",
+            Numbers.Count(years));
     }
 
     /// <summary>Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a model rule.</summary>
@@ -70,7 +72,7 @@ public sealed class AnalysisBinder(BindContext ctx)
         var b = inputs.Baseline;
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
         headline = (alternatives.FirstOrDefault(o => inputs.DemographyFor(o) != inputs.DemographyFor(b) || o.SchoolingYears != b.SchoolingYears) ?? alternatives[0]).Id;
-        var m = ctx.Mapping(top, "reform", "", required: false);
+        var m = ctx.Mapping(top, F("reform"), "");
         int defaultYear = brief.Date.Year + 1;
         if ((m is null || m["year"] is null) && !YearBounds.Contains(defaultYear))
         {
@@ -80,13 +82,13 @@ public sealed class AnalysisBinder(BindContext ctx)
         }
         if (m is null) return new ReformSettings(defaultYear);
         const string p = "reform";
-        ctx.CheckKeys(m, p, "year", "phase_in_cohorts", "horizon_years", "headline_option");
-        double? year = ctx.Number(m, "year", p, ValueUnit.Number, YearBounds, fallback: defaultYear);
-        double? phase = ctx.Number(m, "phase_in_cohorts", p, ValueUnit.Number, Bounds.Closed(1, 40), fallback: 1);
-        double? horizon = ctx.Number(m, "horizon_years", p, ValueUnit.Years, Bounds.Closed(20, MaxHorizon), fallback: 150);
+        ctx.CheckFields(m, p, F(p));
+        double? year = ctx.Number(m, F("reform.year"), p, fallback: defaultYear);
+        double? phase = ctx.Number(m, F("reform.phase_in_cohorts"), p);
+        double? horizon = ctx.Number(m, F("reform.horizon_years"), p);
         foreach (var (key, v) in new[] { ("year", year), ("phase_in_cohorts", phase), ("horizon_years", horizon) })
             if (v is { } x && x != Math.Floor(x)) ctx.Report(m[key]!.At, $"{p}.{key}", "must be a whole number", BindContext.Show(m[key]!));
-        if (ctx.Text(m, "headline_option", p, required: false) is { } h)
+        if (ctx.Text(m, F("reform.headline_option"), p) is { } h)
         {
             if (inputs.Options.All(o => o.Id != h) || h == inputs.BaselineId)
                 ctx.Report(m["headline_option"]!.At, "reform.headline_option", $"must name an option other than the baseline ({string.Join(", ", inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id))})", $"'{h}'");
@@ -103,9 +105,9 @@ public sealed class AnalysisBinder(BindContext ctx)
     {
         var m = top["appraisal"] as YMapping;
         int defaultYear = brief.Date.Year;
-        double? year = m is null
-            ? ctx.Number(new YMapping(Array.Empty<KeyValuePair<YScalar, YNode>>(), top.At), "valuation_year", "appraisal", ValueUnit.Number, Bounds.Closed(1900, 2300), label: "Valuation year of present values", fallback: defaultYear, fallbackSource: "the brief's date")
-            : ctx.Number(m, "valuation_year", "appraisal", ValueUnit.Number, Bounds.Closed(1900, 2300), label: "Valuation year of present values", fallback: defaultYear, fallbackSource: "the brief's date");
+        var empty = new YMapping(Array.Empty<KeyValuePair<YScalar, YNode>>(), top.At);
+        double? year = ctx.Number(m ?? empty, F("appraisal.valuation_year"), "appraisal", fallback: defaultYear,
+            fallbackSource: "the brief's date");
         if (year is not { } y) return null;
         if (y != Math.Floor(y))
         {
@@ -127,13 +129,14 @@ public sealed class AnalysisBinder(BindContext ctx)
 
     private IReadOnlyList<DiscountSchedule>? BindDiscounts(YMapping top)
     {
-        var m = ctx.Mapping(top, "appraisal", "", required: false);
+        var m = ctx.Mapping(top, F("appraisal"), "");
         if (m is null) return DiscountSchedule.Published;
-        ctx.CheckKeys(m, "appraisal", "discount_rates", "valuation_year");
-        var list = ctx.Sequence(m, "discount_rates", "appraisal", required: false);
+        ctx.CheckFields(m, "appraisal", F("appraisal"));
+        var list = ctx.Sequence(m, F("appraisal.discount_rates"), "appraisal");
         if (list is null) return DiscountSchedule.Published;
         var result = new List<DiscountSchedule>();
-        var known = new Dictionary<string, DiscountSchedule> { ["green_book"] = DiscountSchedule.GreenBook, ["omb_3"] = DiscountSchedule.Omb3, ["omb_7"] = DiscountSchedule.Omb7 };
+        var published = new[] { DiscountSchedule.GreenBook, DiscountSchedule.Omb3, DiscountSchedule.Omb7 };
+        var known = F("appraisal.discount_rates[]").Choices.Zip(published).ToDictionary(p => p.First, p => p.Second);
         for (int i = 0; i < list.Items.Count; i++)
         {
             string ip = $"appraisal.discount_rates[{i}]";
@@ -143,7 +146,7 @@ public sealed class AnalysisBinder(BindContext ctx)
                     result.Add(schedule);
                     break;
                 case YScalar s:
-                    ctx.Report(s.At, ip, $"must be one of green_book, omb_3, omb_7 or a mapping with id, label and rate or schedule{(Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "")}", $"'{s.Value}'");
+                    ctx.Report(s.At, ip, $"must be one of {string.Join(", ", known.Keys)} or a mapping with id, label and rate or schedule{(Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "")}", $"'{s.Value}'");
                     break;
                 case YMapping item:
                     if (BindSchedule(item, ip) is { } own) result.Add(own);
@@ -153,31 +156,33 @@ public sealed class AnalysisBinder(BindContext ctx)
                     break;
             }
         }
-        if (result.Count == 0) ctx.Report(list.At, "appraisal.discount_rates", "must list at least one discount rate", "an empty list");
+        if (result.Count < F("appraisal.discount_rates").MinItems) ctx.Report(list.At, "appraisal.discount_rates", "must list at least one discount rate", "an empty list");
         return result;
     }
 
     private DiscountSchedule? BindSchedule(YMapping item, string ip)
     {
-        ctx.CheckKeys(item, ip, "id", "label", "in_sentence", "rate", "schedule", "source");
-        string? id = ctx.Text(item, "id", ip, required: true);
-        string? label = ctx.Text(item, "label", ip, required: true, maxLength: 120);
-        if (id is not null && ctx.Text(item, "in_sentence", ip, required: false, maxLength: 120) is { } name) RuleNames[id] = name;
+        const string d = "appraisal.discount_rates[]";
+        ctx.CheckFields(item, ip, F(d));
+        string? id = ctx.Text(item, F(d + ".id"), ip);
+        string? label = ctx.Text(item, F(d + ".label"), ip);
+        if (id is not null && ctx.Text(item, F(d + ".in_sentence"), ip) is { } name) RuleNames[id] = name;
         if (item["rate"] is not null)
         {
-            double? rate = ctx.Number(item, "rate", ip, ValueUnit.Rate, Bounds.Closed(-0.05, 0.5));
+            double? rate = ctx.Number(item, F(d + ".rate"), ip);
             return id is null || label is null || rate is null ? null : DiscountSchedule.Constant(id, label, rate.Value);
         }
-        var steps = ctx.Sequence(item, "schedule", ip, required: true);
+        var steps = ctx.Sequence(item, F(d + ".schedule"), ip, required: true);
         if (steps is null) return null;
         var list = new List<DiscountStep>();
         for (int j = 0; j < steps.Items.Count; j++)
         {
             string sp = $"{ip}.schedule[{j}]";
             if (steps.Items[j] is not YMapping s) { ctx.Report(steps.Items[j].At, sp, "must be a mapping with from_year and rate", steps.Items[j].Kind); continue; }
-            ctx.CheckKeys(s, sp, "from_year", "rate");
-            double? from = ctx.Number(s, "from_year", sp, ValueUnit.Number, Bounds.Closed(1, 10_000));
-            double? rate = ctx.Number(s, "rate", sp, ValueUnit.Rate, Bounds.Closed(-0.05, 0.5));
+            const string step = d + ".schedule[]";
+            ctx.CheckFields(s, sp, F(step));
+            double? from = ctx.Number(s, F(step + ".from_year"), sp);
+            double? rate = ctx.Number(s, F(step + ".rate"), sp);
             if (from is null || rate is null) continue;
             if (j == 0 && from != 1) ctx.Report(s["from_year"]!.At, sp + ".from_year", "the first step must start at year 1", BindContext.Show(s["from_year"]!));
             if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(s["from_year"]!.At, sp + ".from_year", $"steps must start at increasing years (previous step starts at {list[^1].FromYear})", BindContext.Show(s["from_year"]!));
@@ -225,34 +230,35 @@ public sealed class AnalysisBinder(BindContext ctx)
     }
 
     private static string Format(Parameters.Definition def, double v) =>
-        def.IsRate ? (v * 100).ToString("0.###", CultureInfo.InvariantCulture) + "%" : v.ToString("0.####", CultureInfo.InvariantCulture);
+        def.IsRate ? Numbers.Percent(v) : Numbers.Plain(v);
 
     private (IReadOnlyList<SensitivityRange>, IReadOnlyList<GridSpec>) BindSensitivity(YMapping top, ModelInputs inputs)
     {
         var ranges = new List<SensitivityRange>();
         var grids = new List<GridSpec>();
-        var m = ctx.Mapping(top, "sensitivity", "", required: false);
+        var m = ctx.Mapping(top, F("sensitivity"), "");
         if (m is null) return (ranges, grids);
-        ctx.CheckKeys(m, "sensitivity", "ranges", "grids");
-        if (ctx.Mapping(m, "ranges", "sensitivity", required: false) is { } r)
+        ctx.CheckFields(m, "sensitivity", F("sensitivity"));
+        if (ctx.Mapping(m, F("sensitivity.ranges"), "sensitivity") is { } r)
             foreach (var (key, value) in r.Entries)
             {
                 string path = $"sensitivity.ranges.{key.Value}";
                 if (Parameter(key, path) is { } def && Pair(value, path, def, inputs) is { } pair) ranges.Add(new SensitivityRange(def.Name, pair.Low, pair.High));
             }
-        if (ctx.Sequence(m, "grids", "sensitivity", required: false) is { } g)
+        const string gf = "sensitivity.grids[]";
+        if (ctx.Sequence(m, F("sensitivity.grids"), "sensitivity") is { } g)
             for (int i = 0; i < g.Items.Count; i++)
             {
                 string ip = $"sensitivity.grids[{i}]";
                 if (g.Items[i] is not YMapping item) { ctx.Report(g.Items[i].At, ip, "must be a mapping with x, x_range, y, y_range", g.Items[i].Kind); continue; }
-                ctx.CheckKeys(item, ip, "x", "x_range", "y", "y_range", "steps", "output");
+                ctx.CheckFields(item, ip, F(gf));
                 var x = item["x"] as YScalar;
                 var y = item["y"] as YScalar;
                 if (x is null || y is null) { ctx.Report(item.At, ip, "needs x and y parameter names", null); continue; }
                 var dx = Parameter(x, ip + ".x");
                 var dy = Parameter(y, ip + ".y");
-                double? steps = ctx.Number(item, "steps", ip, ValueUnit.Number, Bounds.Closed(2, 41), fallback: 9);
-                string output = ctx.Choice(item, "output", ip, required: false, "optimum", "change") ?? "optimum";
+                double? steps = ctx.Number(item, F(gf + ".steps"), ip);
+                string output = ctx.Choice(item, F(gf + ".output"), ip) ?? F(gf + ".output").DefaultText!;
                 if (dx is null || dy is null || steps is null) continue;
                 if (dx == dy) { ctx.Report(y.At, ip + ".y", "must differ from x", $"'{y.Value}'"); continue; }
                 var xr = item["x_range"] is { } xn ? Pair(xn, ip + ".x_range", dx, inputs) : null;
@@ -271,15 +277,15 @@ public sealed class AnalysisBinder(BindContext ctx)
 
     private MonteCarloSpec? BindUncertainty(YMapping top, ModelInputs inputs)
     {
-        var m = ctx.Mapping(top, "uncertainty", "", required: false);
-        if (m is null) return null;
         const string p = "uncertainty";
-        ctx.CheckKeys(m, p, "draws", "seed", "sobol_samples", "parameters");
-        double? draws = ctx.Number(m, "draws", p, ValueUnit.Number, Bounds.Closed(10, MaxDraws), fallback: 2000);
-        double? seed = ctx.Number(m, "seed", p, ValueUnit.Number, Bounds.Closed(0, 9_007_199_254_740_991));
-        double? sobol = ctx.Number(m, "sobol_samples", p, ValueUnit.Number, Bounds.Closed(0, MaxSobolSamples), fallback: DefaultSobolSamples);
+        var m = ctx.Mapping(top, F(p), "");
+        if (m is null) return null;
+        ctx.CheckFields(m, p, F(p));
+        double? draws = ctx.Number(m, F(p + ".draws"), p);
+        double? seed = ctx.Number(m, F(p + ".seed"), p);
+        double? sobol = ctx.Number(m, F(p + ".sobol_samples"), p);
         var parameters = new List<UncertainParameter>();
-        if (ctx.Mapping(m, "parameters", p, required: true) is { } ps)
+        if (ctx.Mapping(m, F(p + ".parameters"), p) is { } ps)
             foreach (var (key, value) in ps.Entries)
             {
                 string path = $"{p}.parameters.{key.Value}";
@@ -295,7 +301,7 @@ public sealed class AnalysisBinder(BindContext ctx)
             return null;
         }
         var spec = new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);
-        return Pilot(inputs, spec, m["parameters"]!) ? spec : null;
+        return Pilot(inputs, spec, m["parameters"]!) && SobolPilot(inputs, spec, m) ? spec : null;
     }
 
     /// <summary>
@@ -329,51 +335,91 @@ public sealed class AnalysisBinder(BindContext ctx)
         return false;
     }
 
+    /// <summary>
+    /// The Sobol samples' counterpart of <see cref="Pilot"/>: the first <see cref="PilotDraws"/> base samples as the
+    /// model draws them (same seed, same rows), each with its d + 2 runs checked against the model's rules without
+    /// solving. A sample is used only when all its runs meet them and is not redrawn, so distributions that Monte Carlo
+    /// survives by redrawing can leave the indices nothing; the model needs <see cref="Sobol.MinRows"/> of them.
+    /// </summary>
+    private bool SobolPilot(ModelInputs inputs, MonteCarloSpec spec, YMapping at)
+    {
+        if (spec.SobolSamples == 0) return true;
+        int n = Math.Min(spec.SobolSamples, PilotDraws), d = spec.Parameters.Count, accepted = 0;
+        string? why = null;
+        var a = new double[d];
+        var b = new double[d];
+        var mixed = new double[d];
+        bool Meets(double[] u)
+        {
+            string? violation = Parameters.Violation(MonteCarlo.Apply(inputs, spec.Parameters, u));
+            why ??= violation;
+            return violation is null;
+        }
+        for (int r = 0; r < n; r++)
+        {
+            Sobol.BaseRow(AnalysisRunner.SobolSeed(spec), r, a, b);
+            bool ok = Meets(a) && Meets(b);
+            for (int i = 0; i < d && ok; i++)
+            {
+                a.CopyTo(mixed, 0);
+                mixed[i] = b[i];
+                ok = Meets(mixed);
+            }
+            if (ok) accepted++;
+        }
+        if (accepted >= Sobol.MinRows(n)) return true;
+        var node = at["sobol_samples"] ?? at["parameters"]!;
+        ctx.Report(node.At, node == at["sobol_samples"] ? "uncertainty.sobol_samples" : "uncertainty.parameters",
+            $"the distributions break a model rule too often for the Sobol indices: only {accepted} of the first {n} base samples met every rule in all {d + 2} of their runs (at least {Sobol.MinRows(n)} must; for example: {why}); narrow the distributions, or set sobol_samples to 0",
+            $"{accepted} of {n}");
+        return false;
+    }
+
     private Distribution? BindDistribution(YMapping m, string path, Parameters.Definition def)
     {
+        const string d = "uncertainty.parameters.*";
         var unit = def.IsRate ? ValueUnit.Rate : ValueUnit.Number;
-        var any = Bounds.Closed(-1000, 1000);
-        var positive = Bounds.OpenClosed(0, 1000);
         // The ends of a bounded distribution are values the parameter takes, so they follow the parameter's own rules.
         var ends = ParameterBounds.For(def.Name);
-        string? kind = ctx.Choice(m, "distribution", path, required: true, "normal", "truncated_normal", "uniform", "triangular", "lognormal");
+        double? Value(string key)
+        {
+            var f = F(d + "." + key);
+            return ctx.Number(m, f, path, unit: unit, bounds: f.ParameterBounds ? ends : f.Bounds);
+        }
+        string? kind = ctx.Choice(m, F(d + ".distribution"), path);
+        if (kind is not null) ctx.CheckFields(m, path, F(d), kind);
         switch (kind)
         {
             case "normal":
             {
-                ctx.CheckKeys(m, path, "distribution", "mean", "sd");
-                double? mean = ctx.Number(m, "mean", path, unit, any), sd = ctx.Number(m, "sd", path, unit, positive);
+                double? mean = Value("mean"), sd = Value("sd");
                 return mean is null || sd is null ? null : new NormalDistribution(mean.Value, sd.Value);
             }
             case "truncated_normal":
             {
-                ctx.CheckKeys(m, path, "distribution", "mean", "sd", "low", "high");
-                double? mean = ctx.Number(m, "mean", path, unit, any), sd = ctx.Number(m, "sd", path, unit, positive);
-                double? lo = ctx.Number(m, "low", path, unit, ends), hi = ctx.Number(m, "high", path, unit, ends);
+                double? mean = Value("mean"), sd = Value("sd");
+                double? lo = Value("low"), hi = Value("high");
                 if (mean is null || sd is null || lo is null || hi is null) return null;
                 if (!(hi > lo)) { ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!)); return null; }
                 return new TruncatedNormalDistribution(mean.Value, sd.Value, lo.Value, hi.Value);
             }
             case "uniform":
             {
-                ctx.CheckKeys(m, path, "distribution", "low", "high");
-                double? lo = ctx.Number(m, "low", path, unit, ends), hi = ctx.Number(m, "high", path, unit, ends);
+                double? lo = Value("low"), hi = Value("high");
                 if (lo is null || hi is null) return null;
                 if (!(hi > lo)) { ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!)); return null; }
                 return new UniformDistribution(lo.Value, hi.Value);
             }
             case "triangular":
             {
-                ctx.CheckKeys(m, path, "distribution", "low", "mode", "high");
-                double? lo = ctx.Number(m, "low", path, unit, ends), mode = ctx.Number(m, "mode", path, unit, ends), hi = ctx.Number(m, "high", path, unit, ends);
+                double? lo = Value("low"), mode = Value("mode"), hi = Value("high");
                 if (lo is null || mode is null || hi is null) return null;
                 if (!(lo <= mode && mode <= hi && hi > lo)) { ctx.Report(m["mode"]!.At, path + ".mode", "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!)); return null; }
                 return new TriangularDistribution(lo.Value, mode.Value, hi.Value);
             }
             case "lognormal":
             {
-                ctx.CheckKeys(m, path, "distribution", "median", "sigma_log");
-                double? median = ctx.Number(m, "median", path, unit, positive), sigma = ctx.Number(m, "sigma_log", path, ValueUnit.Number, Bounds.OpenClosed(0, 5));
+                double? median = Value("median"), sigma = ctx.Number(m, F(d + ".sigma_log"), path);
                 return median is null || sigma is null ? null : new LognormalDistribution(median.Value, sigma.Value);
             }
             default:

@@ -65,6 +65,33 @@ public sealed class BindContext
         }
     }
 
+    /// <summary>Reports every key that <paramref name="field"/>'s mapping (of <paramref name="variant"/>) may not hold.</summary>
+    public void CheckFields(YMapping map, string path, ScenarioField field, string? variant = null) =>
+        CheckKeys(map, path, ScenarioFields.Keys(field.Path, variant));
+
+    public YMapping? Mapping(YMapping parent, ScenarioField field, string path) => Mapping(parent, field.Key, path, field.Required);
+
+    public YSequence? Sequence(YMapping parent, ScenarioField field, string path, bool? required = null) =>
+        Sequence(parent, field.Key, path, required ?? field.Required);
+
+    public string? Text(YMapping parent, ScenarioField field, string path) =>
+        Text(parent, field.Key, path, field.Required, field.MaxLength);
+
+    public string? Choice(YMapping parent, ScenarioField field, string path) =>
+        Choice(parent, field.Key, path, field.Required, field.Choices);
+
+    public bool? Flag(YMapping parent, ScenarioField field, string path) => Flag(parent, field.Key, path);
+
+    /// <summary>
+    /// <paramref name="field"/>'s number with its unit, bounds, default and (when the field has one) assumptions row;
+    /// <paramref name="fallback"/> replaces a default that depends on other fields, <paramref name="unit"/> and
+    /// <paramref name="bounds"/> the field's own for a value in a parameter's unit.
+    /// </summary>
+    public double? Number(YMapping parent, ScenarioField field, string path, double? fallback = null, string? fallbackSource = null,
+        ValueUnit? unit = null, Bounds? bounds = null) =>
+        Number(parent, field.Key, path, unit ?? field.Unit, bounds ?? field.Bounds, field.Assumption ? field.Label : null,
+            fallback ?? field.Default, fallbackSource);
+
     public YMapping? Mapping(YMapping parent, string key, string path, bool required)
     {
         var node = parent[key];

@@ -1,5 +1,3 @@
-using System.Globalization;
-
 namespace Briefwright.Scenario.Binding;
 
 /// <summary>An allowed interval for a number, with the rule text used in messages.</summary>
@@ -15,7 +13,7 @@ public readonly record struct Bounds(double Min, double Max, bool MinInclusive, 
 
     public string Rule(bool asPercent)
     {
-        string F(double x) => asPercent ? (x * 100).ToString("0.###", CultureInfo.InvariantCulture) + "%" : x.ToString("0.########", CultureInfo.InvariantCulture);
+        string F(double x) => asPercent ? Numbers.Percent(x) : Numbers.Plain(x, 8);
         string lo = MinInclusive ? $"at least {F(Min)}" : $"greater than {F(Min)}";
         string hi = MaxInclusive ? $"at most {F(Max)}" : $"less than {F(Max)}";
         return $"must be {lo} and {hi}";

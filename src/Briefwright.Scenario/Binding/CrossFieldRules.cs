@@ -8,8 +8,8 @@ namespace Briefwright.Scenario.Binding;
 /// <summary>Rules that tie several fields together; each is reported at the field a user would change.</summary>
 public static class CrossFieldRules
 {
-    private static string F(double v) => v.ToString("0.####", CultureInfo.InvariantCulture);
-    private static string Pct(double v) => (v * 100).ToString("0.###", CultureInfo.InvariantCulture) + "%";
+    private static string F(double v) => Numbers.Plain(v);
+    private static string Pct(double v) => Numbers.Percent(v);
 
     public static void Check(YMapping top, ModelInputs inputs, BindContext ctx)
     {
@@ -59,7 +59,7 @@ public static class CrossFieldRules
             var at = survival["file"] ?? survival["max_age"] ?? (YNode)survival;
             ctx.Report(at.At, "demography.survival",
                 $"the survival curve must leave workers: almost nobody is alive at {F(d.EntryAge + o.SchoolingYears)}, when schooling ends under options[{i}] ({o.Id}); at least {ModelLimits.MinSurvivorsAtWork:0.######} of a cohort must be",
-                alive.ToString("0.########", CultureInfo.InvariantCulture));
+                Numbers.Plain(alive, 8));
             break;
         }
     }

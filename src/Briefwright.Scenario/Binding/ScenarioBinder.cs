@@ -9,7 +9,9 @@ namespace Briefwright.Scenario.Binding;
 /// <summary>Turns the merged YAML tree of a scenario into validated model inputs, reporting every problem.</summary>
 public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceSpan, string, TabulatedSurvival?> loadLifeTable)
 {
-    public static readonly string[] TopLevelKeys = { "extends", "brief", "demography", "human_capital", "production", "options", "reform", "appraisal", "sensitivity", "uncertainty" };
+    public static readonly string[] TopLevelKeys = ScenarioFields.Keys("");
+
+    private static ScenarioField F(string path, string? variant = null) => ScenarioFields.Get(path, variant);
 
     [GeneratedRegex(@"^[a-z0-9][a-z0-9_-]{0,63}\z")]
     private static partial Regex IdPattern();
@@ -44,36 +46,36 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
 
     private BriefInfo? BindBrief(YMapping top)
     {
-        var m = ctx.Mapping(top, "brief", "", required: true);
+        var m = ctx.Mapping(top, F("brief"), "");
         if (m is null) return null;
         const string p = "brief";
-        ctx.CheckKeys(m, p, "id", "title", "short_title", "organisation", "author", "date", "status", "edition", "question", "language");
-        string? id = ctx.Text(m, "id", p, required: true);
+        ctx.CheckFields(m, p, F(p));
+        string? id = ctx.Text(m, F("brief.id"), p);
         if (id is not null && !IdPattern().IsMatch(id))
         {
             ctx.Report(m["id"]!.At, "brief.id", "must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit (it names the output files)", BindContext.Quote(id));
             id = null;
         }
-        string? title = ctx.Text(m, "title", p, required: true, maxLength: 200);
-        string? shortTitle = ctx.Text(m, "short_title", p, required: false, maxLength: 80);
-        string? organisation = ctx.Text(m, "organisation", p, required: true, maxLength: 200);
-        string? author = ctx.Text(m, "author", p, required: false, maxLength: 200);
-        string? dateText = ctx.Text(m, "date", p, required: true);
+        string? title = ctx.Text(m, F("brief.title"), p);
+        string? shortTitle = ctx.Text(m, F("brief.short_title"), p);
+        string? organisation = ctx.Text(m, F("brief.organisation"), p);
+        string? author = ctx.Text(m, F("brief.author"), p);
+        string? dateText = ctx.Text(m, F("brief.date"), p);
         DateOnly? date = null;
         if (dateText is not null)
         {
             if (DateOnly.TryParseExact(dateText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)) date = d;
             else ctx.Report(m["date"]!.At, "brief.date", "must be a date written YYYY-MM-DD", $"'{dateText}'");
         }
-        string status = ctx.Choice(m, "status", p, required: false, "draft", "consultation", "final") ?? "draft";
-        double? edition = ctx.Number(m, "edition", p, ValueUnit.Number, Bounds.Closed(1, 9999), fallback: 1);
+        string status = ctx.Choice(m, F("brief.status"), p) ?? F("brief.status").DefaultText!;
+        double? edition = ctx.Number(m, F("brief.edition"), p);
         if (edition is { } e && e != Math.Floor(e))
         {
             ctx.Report(m["edition"]!.At, "brief.edition", "must be a whole number", BindContext.Show(m["edition"]!));
             edition = null;
         }
-        string? question = ctx.Text(m, "question", p, required: false, maxLength: 2000);
-        string? language = ctx.Text(m, "language", p, required: false, maxLength: 35);
+        string? question = ctx.Text(m, F("brief.question"), p);
+        string? language = ctx.Text(m, F("brief.language"), p);
         if (language is not null && !LanguageTagPattern().IsMatch(language))
         {
             ctx.Report(m["language"]!.At, "brief.language", "must be a language tag such as en-GB, fr-FR, es-ES or de-DE", BindContext.Quote(language));
@@ -90,14 +92,14 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
 
     private Demography? BindDemography(YMapping top)
     {
-        var m = ctx.Mapping(top, "demography", "", required: true);
+        var m = ctx.Mapping(top, F("demography"), "");
         if (m is null) return null;
         const string p = "demography";
-        ctx.CheckKeys(m, p, "population_growth", "school_entry_age", "retirement_age", "participation", "survival");
-        double? n = ctx.Number(m, "population_growth", p, ValueUnit.Rate, ParameterBounds.PopulationGrowth, "Population growth rate");
-        double? entry = ctx.Number(m, "school_entry_age", p, ValueUnit.Age, ParameterBounds.SchoolEntryAge, "School-entry age");
-        double? retire = ctx.Number(m, "retirement_age", p, ValueUnit.Age, ParameterBounds.RetirementAge, "Retirement age");
-        double? part = ctx.Number(m, "participation", p, ValueUnit.Rate, ParameterBounds.Participation, "Labour-force participation", fallback: 1.0);
+        ctx.CheckFields(m, p, F(p));
+        double? n = ctx.Number(m, F("demography.population_growth"), p);
+        double? entry = ctx.Number(m, F("demography.school_entry_age"), p);
+        double? retire = ctx.Number(m, F("demography.retirement_age"), p);
+        double? part = ctx.Number(m, F("demography.participation"), p);
         var survival = BindSurvival(m, p);
         if (n is null || entry is null || retire is null || part is null || survival is null) return null;
         return new Demography(n.Value, entry.Value, retire.Value, survival, part.Value);
@@ -105,36 +107,35 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
 
     private Survival? BindSurvival(YMapping demography, string parent)
     {
-        var m = ctx.Mapping(demography, "survival", parent, required: true);
+        const string p = "demography.survival";
+        var m = ctx.Mapping(demography, F(p), parent);
         if (m is null) return null;
-        string p = BindContext.Join(parent, "survival");
-        string? form = ctx.Choice(m, "form", p, required: true, "rectangular", "gompertz_makeham", "life_table");
+        string? form = ctx.Choice(m, F(p + ".form"), p);
+        if (form is not null) ctx.CheckFields(m, p, F(p), form);
         switch (form)
         {
             case "rectangular":
             {
-                ctx.CheckKeys(m, p, "form", "max_age");
-                double? max = ctx.Number(m, "max_age", p, ValueUnit.Age, Bounds.OpenClosed(0, 150), "Age at death (everyone)");
+                double? max = ctx.Number(m, F(p + ".max_age", form), p);
                 return max is null ? null : new RectangularSurvival(max.Value);
             }
             case "gompertz_makeham":
             {
-                ctx.CheckKeys(m, p, "form", "a", "b", "c", "max_age");
-                double? a = ctx.Number(m, "a", p, ValueUnit.Number, Bounds.ClosedOpen(0, 1), "Makeham term A");
-                double? b = ctx.Number(m, "b", p, ValueUnit.Number, Bounds.Open(0, 1), "Gompertz level B");
-                double? c = ctx.Number(m, "c", p, ValueUnit.Number, Bounds.Open(1, 2), "Gompertz growth c");
-                double? max = ctx.Number(m, "max_age", p, ValueUnit.Age, Bounds.OpenClosed(0, 150), "Oldest age considered", fallback: 120);
+                double? a = ctx.Number(m, F(p + ".a"), p);
+                double? b = ctx.Number(m, F(p + ".b"), p);
+                double? c = ctx.Number(m, F(p + ".c"), p);
+                double? max = ctx.Number(m, F(p + ".max_age", form), p);
                 return a is null || b is null || c is null || max is null ? null : new GompertzMakehamSurvival(a.Value, b.Value, c.Value, max.Value);
             }
             case "life_table":
             {
-                ctx.CheckKeys(m, p, "form", "file", "source", "note");
-                string? file = ctx.Text(m, "file", p, required: true);
+                var fileField = F(p + ".file");
+                string? file = ctx.Text(m, fileField, p);
                 if (file is null) return null;
-                var table = loadLifeTable(file, m["file"]!.At, BindContext.Join(p, "file"));
+                var table = loadLifeTable(file, m["file"]!.At, fileField.Path);
                 if (table is not null)
-                    ctx.Add(new Assumption(BindContext.Join(p, "file"), "Life table", null, $"{file} (ages 0–{table.MaxAge:0})", ValueUnit.Text,
-                        ctx.Text(m, "source", p, required: false), ctx.Text(m, "note", p, required: false, maxLength: 1000)));
+                    ctx.Add(new Assumption(fileField.Path, fileField.Label, null, $"{file} (ages 0–{table.MaxAge:0})", fileField.Unit,
+                        ctx.Text(m, F(p + ".source"), p), ctx.Text(m, F(p + ".note"), p)));
                 return table;
             }
             default:
@@ -144,23 +145,23 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
 
     private HumanCapital? BindHumanCapital(YMapping top)
     {
-        var m = ctx.Mapping(top, "human_capital", "", required: false);
         const string p = "human_capital";
+        var m = ctx.Mapping(top, F(p), "");
         if (m is null)
         {
             ctx.Add(HallJonesAssumption(p + ".returns"));
             return new HumanCapital(BracketReturns.HallJones, null);
         }
-        ctx.CheckKeys(m, p, "returns", "experience");
+        ctx.CheckFields(m, p, F(p));
         var returns = BindReturns(m, p);
         ExperienceProfile? experience = null;
         bool experienceOk = true;
-        if (ctx.Mapping(m, "experience", p, required: false) is { } e)
+        const string ep = p + ".experience";
+        if (ctx.Mapping(m, F(ep), p) is { } e)
         {
-            string ep = p + ".experience";
-            ctx.CheckKeys(e, ep, "linear", "quadratic");
-            double? b1 = ctx.Number(e, "linear", ep, ValueUnit.Number, Bounds.Closed(0, 0.5), "Experience premium, linear term β₁");
-            double? b2 = ctx.Number(e, "quadratic", ep, ValueUnit.Number, Bounds.OpenClosed(0, 0.05), "Experience premium, quadratic term β₂");
+            ctx.CheckFields(e, ep, F(ep));
+            double? b1 = ctx.Number(e, F(ep + ".linear"), ep);
+            double? b2 = ctx.Number(e, F(ep + ".quadratic"), ep);
             experienceOk = b1 is not null && b2 is not null;
             if (experienceOk) experience = new ExperienceProfile(b1!.Value, b2!.Value);
         }
@@ -168,38 +169,36 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
     }
 
     private static Assumption HallJonesAssumption(string path) =>
-        new(path, "Returns to schooling", null, "13.4% a year for years 0–4, 10.1% for 4–8, 6.8% beyond", ValueUnit.Text,
+        new(path, ScenarioFields.Get("human_capital.returns").Label, null, "13.4% a year for years 0–4, 10.1% for 4–8, 6.8% beyond", ValueUnit.Text,
             "Hall & Jones (1999), after Psacharopoulos (1994) (default)", null);
 
     private ReturnSchedule? BindReturns(YMapping hc, string parent)
     {
-        var m = ctx.Mapping(hc, "returns", parent, required: false);
-        string p = BindContext.Join(parent, "returns");
+        const string p = "human_capital.returns";
+        var m = ctx.Mapping(hc, F(p), parent);
         if (m is null)
         {
             ctx.Add(HallJonesAssumption(p));
             return BracketReturns.HallJones;
         }
-        string? form = ctx.Choice(m, "form", p, required: true, "constant", "brackets", "power");
+        string? form = ctx.Choice(m, F(p + ".form"), p);
+        if (form is not null) ctx.CheckFields(m, p, F(p), form);
         switch (form)
         {
             case "constant":
             {
-                ctx.CheckKeys(m, p, "form", "rate");
-                double? r = ctx.Number(m, "rate", p, ValueUnit.Rate, Bounds.Open(0, 1), "Return to a year of schooling");
+                double? r = ctx.Number(m, F(p + ".rate"), p);
                 return r is null ? null : new ConstantReturn(r.Value);
             }
             case "power":
             {
-                ctx.CheckKeys(m, p, "form", "theta", "psi");
-                double? theta = ctx.Number(m, "theta", p, ValueUnit.Number, Bounds.Open(0, 2), "Power-form scale θ");
-                double? psi = ctx.Number(m, "psi", p, ValueUnit.Number, Bounds.ClosedOpen(0, 1), "Power-form curvature ψ");
+                double? theta = ctx.Number(m, F(p + ".theta"), p);
+                double? psi = ctx.Number(m, F(p + ".psi"), p);
                 return theta is null || psi is null ? null : new PowerReturn(theta.Value, psi.Value);
             }
             case "brackets":
             {
-                ctx.CheckKeys(m, p, "form", "brackets", "source", "note");
-                var list = ctx.Sequence(m, "brackets", p, required: false);
+                var list = ctx.Sequence(m, F(p + ".brackets"), p);
                 if (list is null)
                 {
                     ctx.Add(HallJonesAssumption(p));
@@ -215,51 +214,53 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
     private ReturnSchedule? BindBrackets(YMapping returns, YSequence list, string parent)
     {
         string p = BindContext.Join(parent, "brackets");
+        const string item = "human_capital.returns.brackets[]";
         var brackets = new List<ReturnBracket>();
         bool ok = list.Items.Count > 0;
         if (!ok) ctx.Report(list.At, p, "must list at least one bracket", "an empty list");
         for (int i = 0; i < list.Items.Count; i++)
         {
             string ip = $"{p}[{i}]";
-            if (list.Items[i] is not YMapping item)
+            if (list.Items[i] is not YMapping bracket)
             {
                 ctx.Report(list.Items[i].At, ip, "each bracket must be a mapping with from and rate", list.Items[i].Kind);
                 ok = false;
                 continue;
             }
-            ctx.CheckKeys(item, ip, "from", "rate");
-            double? from = ctx.Number(item, "from", ip, ValueUnit.Years, Bounds.Closed(0, 40));
-            double? rate = ctx.Number(item, "rate", ip, ValueUnit.Rate, Bounds.ClosedOpen(0, 1));
+            ctx.CheckFields(bracket, ip, F(item));
+            double? from = ctx.Number(bracket, F(item + ".from"), ip);
+            double? rate = ctx.Number(bracket, F(item + ".rate"), ip);
             if (from is null || rate is null) { ok = false; continue; }
             if (i == 0 && from != 0)
             {
-                ctx.Report(item["from"]!.At, ip + ".from", "the first bracket must start at year 0", BindContext.Show(item["from"]!));
+                ctx.Report(bracket["from"]!.At, ip + ".from", "the first bracket must start at year 0", BindContext.Show(bracket["from"]!));
                 ok = false;
             }
             if (brackets.Count > 0 && from <= brackets[^1].FromYear)
             {
-                ctx.Report(item["from"]!.At, ip + ".from", $"brackets must start at increasing years (previous bracket starts at {brackets[^1].FromYear.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(item["from"]!));
+                ctx.Report(bracket["from"]!.At, ip + ".from", $"brackets must start at increasing years (previous bracket starts at {brackets[^1].FromYear.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(bracket["from"]!));
                 ok = false;
             }
             brackets.Add(new ReturnBracket(from.Value, rate.Value));
         }
         if (!ok) return null;
         string text = string.Join("; ", brackets.Select((b, i) =>
-            $"{(b.Rate * 100).ToString("0.0##", CultureInfo.InvariantCulture)}% from year {b.FromYear.ToString(CultureInfo.InvariantCulture)}"));
-        ctx.Add(new Assumption(p, "Returns to schooling", null, text, ValueUnit.Text, ctx.Text(returns, "source", parent, false), ctx.Text(returns, "note", parent, false, 1000)));
+            $"{Numbers.Percent(b.Rate, minDecimals: 1)} from year {b.FromYear.ToString(CultureInfo.InvariantCulture)}"));
+        ctx.Add(new Assumption(p, F(parent).Label, null, text, ValueUnit.Text,
+            ctx.Text(returns, F(parent + ".source"), parent), ctx.Text(returns, F(parent + ".note"), parent)));
         return new BracketReturns(brackets);
     }
 
     private Production? BindProduction(YMapping top)
     {
-        var m = ctx.Mapping(top, "production", "", required: true);
-        if (m is null) return null;
         const string p = "production";
-        ctx.CheckKeys(m, p, "saving_rate", "capital_share", "depreciation", "technology_growth");
-        double? s = ctx.Number(m, "saving_rate", p, ValueUnit.Rate, ParameterBounds.SavingRate, "Saving (investment) rate");
-        double? alpha = ctx.Number(m, "capital_share", p, ValueUnit.Rate, ParameterBounds.CapitalShare, "Capital share of income α");
-        double? delta = ctx.Number(m, "depreciation", p, ValueUnit.Rate, ParameterBounds.Depreciation, "Depreciation rate δ");
-        double? g = ctx.Number(m, "technology_growth", p, ValueUnit.Rate, ParameterBounds.TechnologyGrowth, "Technology growth g");
+        var m = ctx.Mapping(top, F(p), "");
+        if (m is null) return null;
+        ctx.CheckFields(m, p, F(p));
+        double? s = ctx.Number(m, F(p + ".saving_rate"), p);
+        double? alpha = ctx.Number(m, F(p + ".capital_share"), p);
+        double? delta = ctx.Number(m, F(p + ".depreciation"), p);
+        double? g = ctx.Number(m, F(p + ".technology_growth"), p);
         if (s is null || alpha is null || delta is null || g is null) return null;
         return new Production(s.Value, alpha.Value, delta.Value, g.Value);
     }
@@ -268,9 +269,9 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
     {
         baselineId = null;
         names = null;
-        var list = ctx.Sequence(top, "options", "", required: true);
+        var list = ctx.Sequence(top, F("options"), "");
         if (list is null) return null;
-        if (list.Items.Count < 2)
+        if (list.Items.Count < F("options").MinItems)
         {
             ctx.Report(list.At, "options", "must list a baseline and at least one alternative", $"{list.Items.Count} option(s)");
             return null;
@@ -282,42 +283,14 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         bool ok = true;
         for (int i = 0; i < list.Items.Count; i++)
         {
-            string ip = $"options[{i}]";
-            if (list.Items[i] is not YMapping item)
-            {
-                ctx.Report(list.Items[i].At, ip, "each option must be a mapping with id, label and schooling_years", list.Items[i].Kind);
-                ok = false;
-                continue;
-            }
-            ctx.CheckKeys(item, ip, "id", "label", "in_sentence", "schooling_years", "retirement_age", "participation", "baseline", "source", "note");
-            string? id = ctx.Text(item, "id", ip, required: true);
-            if (id is not null && !IdPattern().IsMatch(id))
-            {
-                ctx.Report(item["id"]!.At, ip + ".id", "must be 1–64 lower-case letters, digits, '-' or '_'", BindContext.Quote(id));
-                id = null;
-            }
-            if (id is not null && ids.TryGetValue(id, out int first))
-            {
-                ctx.Report(item["id"]!.At, ip + ".id", $"option ids must be unique (also used by options[{first}])", $"'{id}'");
-                id = null;
-            }
-            if (id is not null) ids[id] = i;
-            string? label = ctx.Text(item, "label", ip, required: true, maxLength: 120);
-            string? inSentence = ctx.Text(item, "in_sentence", ip, required: false, maxLength: 120);
-            double? years = ctx.Number(item, "schooling_years", ip, ValueUnit.Years, Bounds.Closed(0, 40));
-            double? retire = item["retirement_age"] is null ? null : ctx.Number(item, "retirement_age", ip, ValueUnit.Age, Bounds.OpenClosed(0, 150));
-            double? part = item["participation"] is null ? null : ctx.Number(item, "participation", ip, ValueUnit.Rate, Bounds.OpenClosed(0, 1));
-            bool isBaseline = ctx.Flag(item, "baseline", ip) ?? false;
-            if (id is null || label is null || years is null || (item["retirement_age"] is not null && retire is null) || (item["participation"] is not null && part is null))
+            if (BindOption(list.Items[i], i, ids) is not var (option, inSentence, isBaseline))
             {
                 ok = false;
                 continue;
             }
-            if (isBaseline) baselines.Add(id);
-            options.Add(new PolicyOption(id, label, years.Value, retire, part));
-            optionNames[id] = inSentence ?? InSentence.FromLabel(label);
-            ctx.Add(new Assumption(ip + ".schooling_years", $"Schooling: {label}", years.Value, null, ValueUnit.Years,
-                ctx.Text(item, "source", ip, false), ctx.Text(item, "note", ip, false, 1000)));
+            if (isBaseline) baselines.Add(option.Id);
+            options.Add(option);
+            optionNames[option.Id] = inSentence ?? InSentence.FromLabel(option.Label);
         }
         if (baselines.Count > 1)
         {
@@ -328,5 +301,43 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         baselineId = baselines.Count == 1 ? baselines[0] : options[0].Id;
         names = optionNames;
         return options;
+    }
+
+    /// <summary>One option (its id checked against <paramref name="ids"/>, the ids seen before it); null when it has a
+    /// problem, which is reported.</summary>
+    private (PolicyOption Option, string? InSentence, bool IsBaseline)? BindOption(YNode node, int i, Dictionary<string, int> ids)
+    {
+        string ip = $"options[{i}]";
+        if (node is not YMapping item)
+        {
+            ctx.Report(node.At, ip, "each option must be a mapping with id, label and schooling_years", node.Kind);
+            return null;
+        }
+        const string o = "options[]";
+        ctx.CheckFields(item, ip, F(o));
+        string? id = ctx.Text(item, F(o + ".id"), ip);
+        if (id is not null && !IdPattern().IsMatch(id))
+        {
+            ctx.Report(item["id"]!.At, ip + ".id", "must be 1–64 lower-case letters, digits, '-' or '_'", BindContext.Quote(id));
+            id = null;
+        }
+        if (id is not null && ids.TryGetValue(id, out int first))
+        {
+            ctx.Report(item["id"]!.At, ip + ".id", $"option ids must be unique (also used by options[{first}])", $"'{id}'");
+            id = null;
+        }
+        if (id is not null) ids[id] = i;
+        string? label = ctx.Text(item, F(o + ".label"), ip);
+        string? inSentence = ctx.Text(item, F(o + ".in_sentence"), ip);
+        double? years = ctx.Number(item, F(o + ".schooling_years"), ip);
+        double? retire = item["retirement_age"] is null ? null : ctx.Number(item, F(o + ".retirement_age"), ip);
+        double? part = item["participation"] is null ? null : ctx.Number(item, F(o + ".participation"), ip);
+        bool isBaseline = ctx.Flag(item, F(o + ".baseline"), ip) ?? false;
+        if (id is null || label is null || years is null || (item["retirement_age"] is not null && retire is null)
+            || (item["participation"] is not null && part is null))
+            return null;
+        ctx.Add(new Assumption(ip + ".schooling_years", $"Schooling: {label}", years.Value, null, ValueUnit.Years,
+            ctx.Text(item, F(o + ".source"), ip), ctx.Text(item, F(o + ".note"), ip)));
+        return (new PolicyOption(id, label, years.Value, retire, part), inSentence, isBaseline);
     }
 }

@@ -15,14 +15,7 @@ public sealed class SourceSet
     /// <summary>SHA-256 (hex) over every text added, in order, each prefixed by its length.</summary>
     public string Hash()
     {
-        using var sha = System.Security.Cryptography.IncrementalHash.CreateHash(System.Security.Cryptography.HashAlgorithmName.SHA256);
-        foreach (var t in texts)
-        {
-            var bytes = System.Text.Encoding.UTF8.GetBytes(t);
-            sha.AppendData(BitConverter.GetBytes((long)bytes.Length));
-            sha.AppendData(bytes);
-        }
-        return Convert.ToHexStringLower(sha.GetHashAndReset());
+        return Sha256Hex.OfAll(texts.Select(System.Text.Encoding.UTF8.GetBytes), lengthPrefixed: true);
     }
 
     public string? Line(string file, int line) =>

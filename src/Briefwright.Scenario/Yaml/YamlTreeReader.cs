@@ -23,7 +23,7 @@ public static class YamlTreeReader
         var start = new SourceSpan(file, 1, 1);
         long bytes = System.Text.Encoding.UTF8.GetByteCount(text);
         if (bytes > MaxBytes)
-            return (null, new[] { new Diagnostic(start, "", $"file is larger than the limit for a {what} of 1 MiB ({MaxBytes.ToString("N0", CultureInfo.InvariantCulture)} bytes)", $"{bytes.ToString("N0", CultureInfo.InvariantCulture)} bytes") });
+            return (null, new[] { new Diagnostic(start, "", $"file is larger than the limit for a {what} of 1 MiB ({Numbers.Count(MaxBytes)} bytes)", $"{Numbers.Count(bytes)} bytes") });
         if (text.Contains('\0'))
             return (null, new[] { new Diagnostic(start, "", "file is binary, not YAML text", "a NUL byte") });
         if (string.IsNullOrWhiteSpace(StripComments(text)))
