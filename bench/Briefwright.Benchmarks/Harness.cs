@@ -58,7 +58,7 @@ public static class Harness
         Time("  read Markdown", 10, () => MarkdownReader.Read(markdown, figures));
         var info = new DocumentInfo("t", "t", "a", "s", "k", "en-GB", scenario.Brief.Date, "Edition 1", "footer");
         var doc = new BriefDocument(info, MarkdownReader.Read(markdown, figures));
-        Time("  layout", 10, () => DocumentComposer.Layout(doc, Composer.Layout.Theme.For(doc.Paper), DocumentComposer.Measurer));
+        Time("  layout", 10, () => DocumentComposer.Layout(doc, Composer.Layout.Theme.For(doc.Paper), new RenderSession().Measurer));
         Time("  layout + write PDF", 10, () => DocumentComposer.WritePdf(doc));
         Time("  annex files", 10, () => AnnexFiles.Build(solved, charts));
     }

@@ -42,11 +42,10 @@ public static class BriefBuilder
         var specs = ChartSpecs(solved, family);
         var figureRefs = specs.Select(c => new FigureRef(c.Id, c.Caption)).ToList();
         // The results data and the filled template need the charts' ids and captions, not their drawings; the data annex
-        // needs the drawn charts, not the brief. When the brief may use more than one thread, both are made on a spare
-        // core while the charts and the brief are laid out.
-        bool spare = options.ModelThreads != 1;
-        Task<T> Start<T>(Func<T> work) => spare ? Task.Run(work) : Task.FromResult(work());
-        var text = Start(() =>
+        // needs the drawn charts, not the brief. The caller's runner decides where they are made (in order here, or on
+        // spare cores while the charts and the brief are laid out).
+        var runner = options.Runner;
+        var text = runner.Start(() =>
         {
             string json = ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis));
             var changes = options.PreviousEdition is { } previous
@@ -55,7 +54,7 @@ public static class BriefBuilder
             return (Json: json, Changes: changes, Markdown: FillTemplate(solved, figureRefs, template, changes));
         });
         var charts = ChartSpec.RenderPdf(specs);
-        var annex = Start(() => AnnexFiles.Build(solved, options.ChartImages ? ChartSpec.AddImages(charts, specs, spare ? Environment.ProcessorCount : 1) : charts));
+        var annex = runner.Start(() => AnnexFiles.Build(solved, options.ChartImages ? ChartSpec.AddImages(charts, specs, runner.Threads) : charts));
         var (json, changes, markdown) = text.GetAwaiter().GetResult();
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
@@ -77,7 +76,7 @@ public static class BriefBuilder
             Theme = options.PageTheme() with { FigureLabel = T("layout.figure"), TableLabel = T("layout.table"), SourceLabel = T("layout.source") },
             FontFamily = family,
         };
-        var pdf = DocumentComposer.WritePdf(document);
+        var pdf = DocumentComposer.WritePdf(document, new RenderSession(family));
         var annexFiles = annex.GetAwaiter().GetResult().Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
         return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes);
     }

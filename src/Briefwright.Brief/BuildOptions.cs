@@ -26,10 +26,14 @@ public sealed record BuildOptions
     public bool ChartImages { get; init; }
 
     /// <summary>
-    /// Threads one brief may use: the model's uncertainty loops, and (above 1) the results data, filled template and
-    /// chart copies made beside the layout. A batch building one brief per core passes 1. Output does not depend on it.
+    /// Threads the model's uncertainty loops may use. A batch building one brief per core passes 1. Output does not
+    /// depend on it.
     /// </summary>
     public int ModelThreads { get; init; } = Model.Uncertainty.ModelThreads.AllCores;
+
+    /// <summary>Where the brief's independent pieces run beside its layout (<see cref="WorkRunner"/>); in order on the
+    /// calling thread unless the caller gives another. Output does not depend on it.</summary>
+    public WorkRunner Runner { get; init; } = WorkRunner.Sequential;
 
     public static BuildOptions Default { get; } = new();
 

@@ -15,7 +15,7 @@ public static class CliApp
 
     public static int Run(string[] args, CliIo io)
     {
-        if (args is ["build", ..]) BuildCommand.HeadStart();
+        if (args is ["build", ..]) Speed.HeadStart();
         var root = new RootCommand(
             "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief (PDF) on " +
             "schooling length, demography and long-run output per person, with its numbers also written as data.\n\n" +

@@ -13,13 +13,6 @@ public sealed record ComposedPdf(byte[] Bytes, int PageCount);
 /// <summary>Lays out a brief and writes it as a tagged PDF with outline, metadata, running header and footer.</summary>
 public sealed class DocumentComposer
 {
-    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, PdfTextMeasurer> Measurers = new();
-
-    /// <summary>One measurer per font family for the whole process: fonts are loaded and measured once.</summary>
-    public static PdfTextMeasurer MeasurerFor(string? family) => Measurers.GetOrAdd(family ?? BundledFonts.Family, f => new PdfTextMeasurer(f));
-
-    public static ITextMeasurer Measurer => MeasurerFor(null);
-
     /// <summary>Measure stage and pagination, without drawing: pages of placed atoms.</summary>
     public static IReadOnlyList<IReadOnlyList<Placement>> Layout(BriefDocument brief, Theme theme, ITextMeasurer measurer) =>
         Paginator.Paginate(new Planner(theme, measurer).Plan(brief.Blocks), theme.ContentHeight);
@@ -121,10 +114,12 @@ public sealed class DocumentComposer
     }
 
     /// <summary>The whole brief as PDF bytes; the same document gives the same bytes.</summary>
-    public static ComposedPdf WritePdf(BriefDocument brief)
+    /// <param name="session">The build's render session (its fonts and measurer); a new one for the document's font
+    /// family when null.</param>
+    public static ComposedPdf WritePdf(BriefDocument brief, RenderSession? session = null)
     {
         var theme = brief.Theme ?? Theme.For(brief.Paper);
-        var measurer = MeasurerFor(brief.FontFamily);
+        var measurer = (session ?? new RenderSession(brief.FontFamily)).Measurer;
         var pages = Layout(brief, theme, measurer);
 
         using var document = new PdfDocument();

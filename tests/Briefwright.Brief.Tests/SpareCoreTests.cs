@@ -2,6 +2,20 @@ namespace Briefwright.Brief.Tests;
 
 public class SpareCoreTests
 {
+    /// <summary>As the command line's runner does: each piece on the thread pool, chart copies on every core.</summary>
+    private sealed class Spare : WorkRunner
+    {
+        public static int Started;
+
+        public override Task<T> Start<T>(Func<T> work)
+        {
+            Interlocked.Increment(ref Started);
+            return Task.Run(work);
+        }
+
+        public override int Threads => Environment.ProcessorCount;
+    }
+
     [Fact]
     public void A_brief_composed_on_several_threads_is_byte_identical_to_one_composed_on_one()
     {
@@ -10,7 +24,8 @@ public class SpareCoreTests
         // per brief. Both must give the same files, byte for byte.
         var solved = ScenarioSolver.Solve(Demo.Load("auroria-national"));
         var one = BriefBuilder.Compose(solved, StandardTemplate.Template, BuildOptions.Default with { ChartImages = true, ModelThreads = 1 });
-        var many = BriefBuilder.Compose(solved, StandardTemplate.Template, BuildOptions.Default with { ChartImages = true });
+        var many = BriefBuilder.Compose(solved, StandardTemplate.Template, BuildOptions.Default with { ChartImages = true, Runner = new Spare() });
+        Assert.True(Spare.Started >= 2, "the pieces ran on the spare runner");
         Assert.Equal(one.Pdf, many.Pdf);
         Assert.Equal(one.ResultsJson, many.ResultsJson);
         Assert.Equal(one.Markdown, many.Markdown);

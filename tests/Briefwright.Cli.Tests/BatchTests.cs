@@ -124,7 +124,7 @@ public class BatchTests
         // The head start parses the standard template whatever the options; a named template that cannot be read is
         // reported by the build itself, as before.
         var w = new Workspace("auroria-silverdale");
-        Commands.BuildCommand.HeadStart();
+        Speed.HeadStart();
         var (code, _, err) = w.Build("--template", "no-such-template.md");
         Assert.Equal(ExitCodes.InvalidInput, code);
         Assert.Contains("no-such-template.md:1:1: cannot read the template (no such file).", err);

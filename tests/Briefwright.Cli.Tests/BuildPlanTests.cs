@@ -145,4 +145,14 @@ public class BuildPlanTests
         Assert.Equal(2, code);
         Assert.Contains("--json is for --plan", err);
     }
+
+    [Fact]
+    public void Build_help_explains_the_plan_and_the_edition_rule()
+    {
+        var (code, output, _) = Run("build", "--help");
+        Assert.Equal(0, code);
+        Assert.Contains("--plan", output);
+        Assert.Contains("a new date alone re-dates the current edition", output);
+        Assert.Contains("output switches never make an edition", output);
+    }
 }

@@ -33,3 +33,20 @@ public class StageFailureTests
         Assert.Equal(a.Concat(b), Enumerable.Range(0, 6).Select(_ => rng.NextOpenUnit()));
     }
 }
+
+/// <summary>The model's caches stay within their bounds however many schedules a process meets.</summary>
+public class CacheBoundTests
+{
+    [Fact]
+    public void Present_value_factors_are_kept_for_at_most_the_bound_and_give_the_same_sums_after_a_reset()
+    {
+        var inputs = ReformSimulatorTests.Inputs();
+        var path = Briefwright.Model.Dynamics.ReformSimulator.Simulate(inputs, inputs.Options[1], new Briefwright.Model.Dynamics.ReformSettings(2027, 1, 40));
+        double first = Briefwright.Model.Dynamics.PresentValue.ToHorizonOnly(path, Briefwright.Model.Dynamics.DiscountSchedule.GreenBook, 0.02);
+        for (int i = 0; i < Briefwright.Model.Dynamics.PresentValue.MaxCachedFactors + 10; i++)
+            Briefwright.Model.Dynamics.PresentValue.ToHorizonOnly(path,
+                Briefwright.Model.Dynamics.DiscountSchedule.Constant($"r{i}", $"r{i}", 0.01 + i * 1e-5), 0.02);
+        Assert.InRange(Briefwright.Model.Dynamics.PresentValue.CachedFactors, 1, Briefwright.Model.Dynamics.PresentValue.MaxCachedFactors);
+        Assert.Equal(first, Briefwright.Model.Dynamics.PresentValue.ToHorizonOnly(path, Briefwright.Model.Dynamics.DiscountSchedule.GreenBook, 0.02));
+    }
+}

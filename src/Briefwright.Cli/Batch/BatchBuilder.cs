@@ -94,7 +94,7 @@ public static class BatchBuilder
                 build = EditionPlanner.Settle(build, request, state, ResultsDiffer(solved, dir, build.CompareWith));
             }
 
-            WarmUp.Start(); // this brief will be built: let the output libraries start up while its model runs
+            Speed.WarmUp(); // this brief will be built: let the output libraries start up while its model runs
             scenario = scenario with { Brief = scenario.Brief with { Edition = build.Edition } };
             EditionSnapshot? before = null;
             if (build.NewEdition && build.CompareWith is { } previousJson)

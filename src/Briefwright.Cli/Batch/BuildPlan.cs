@@ -66,7 +66,7 @@ public static class BuildPlan
         switch (plan)
         {
             case EditionPlan.Skip skip:
-                return new PlannedBrief(file, id, "skip", skip.Edition, skip.Edition, before, before, [], "nothing it depends on changed and its files are as built" + interrupted) { Out = dir };
+                return new PlannedBrief(file, id, "skip", skip.Edition, skip.Edition, before, before, [], "nothing it depends on changed and its files are as built." + interrupted) { Out = dir };
             case EditionPlan.Refuse refuse:
                 var problem = BatchBuilder.RefusalOf(file, scenario, refuse, dir);
                 return new PlannedBrief(file, id, "invalid", null, state.Edition, null, before, [EditionInput.RequestedEdition], "brief.edition is below an edition already issued")

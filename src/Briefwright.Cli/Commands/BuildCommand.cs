@@ -32,7 +32,9 @@ public static class BuildCommand
         var json = new Option<bool>("--json") { Description = "With --plan: print the plan as a JSON list, one object per scenario in the order given." };
         var command = new Command("build",
             "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results JSON, CSV tables and " +
-            "chart images beside it. Unchanged briefs are skipped; a changed brief becomes a new edition and the previous one is archived. " +
+            "chart images beside it. Unchanged briefs are skipped. A changed scenario content, template or headline result makes a new edition " +
+            "(files named <id>-<date>-edition-<n>); a new date alone re-dates the current edition; a new theme or tool rewrites it; output " +
+            "switches never make an edition; whatever is replaced is archived first. --plan shows what a build would do, writing nothing. " +
             $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
             paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root, plan, json,
@@ -173,30 +175,6 @@ public static class BuildCommand
     /// <summary>Templates are read up to this size.</summary>
     public const long MaxTemplateBytes = 1 << 20;
 
-    /// <summary>
-    /// On a spare core, while the command line and the first scenario are read: parses the standard template, hashes
-    /// the bundled fonts and reads a sample manifest, so that a single brief built by a fresh process finishes sooner.
-    /// The template and the hash are computed once per process either way (the template is parsed even when another is
-    /// named: reading the options here would repeat the command-line parser); a failure here surfaces, with its
-    /// message, where the value is first used.
-    /// </summary>
-    public static void HeadStart()
-    {
-        Task.Run(() =>
-        {
-            try
-            {
-                _ = StandardTemplate.Template;
-                _ = BatchBuilder.FontsHash.Value;
-                Manifest.Parse("""{"id":"a","stem":"a-2000-01-01","edition":1,"hash":"0","inputs":{"tool":"0"},"files":["a.pdf"]}""");
-            }
-            catch (Exception)
-            {
-                // Only a head start: the same work is done, and any error reported, where the value is first used.
-            }
-        });
-    }
-
     public static IReadOnlyList<BriefOutcome> Run(IReadOnlyList<string> files, BatchSettings settings, int jobs, Progress progress, TextWriter error, BuildLog? log = null)
     {
         log ??= new BuildLog(TimeProvider.System, null);
@@ -208,8 +186,7 @@ public static class BuildCommand
         var reader = new FileSourceReader();
         Parallel.For(0, files.Count, parallel, i => loaded[i] = new ScenarioLoader(reader, settings.Root).Load(files[i]));
         var duplicates = ScenarioInputs.DuplicateIds(files.Select((f, i) => (f, loaded[i]!)).ToList(), reader);
-        // Several briefs at once already keep the cores busy; the model's own loops then stay on their brief's thread.
-        if (jobs > 1 && files.Count > 1) settings = settings with { Options = settings.Options with { ModelThreads = 1 } };
+        settings = settings with { Options = Speed.ForBatch(settings.Options, jobs, files.Count) };
         Parallel.For(0, files.Count, parallel, i =>
         {
             // A signal stops the build between briefs: those in progress finish, the others are not started.

@@ -55,7 +55,18 @@ public sealed record PresentValue(
     private static int CheckOffset(int offset) =>
         offset >= 0 ? offset : throw new ArgumentOutOfRangeException(nameof(offset), offset, "The valuation date must not follow the reform year.");
 
-    private static double[] Factors(DiscountSchedule schedule, int horizon) => FactorCache.GetOrAdd((schedule, horizon), key => key.Schedule.Factors(key.Horizon));
+    /// <summary>Schedules and horizons whose factors are kept; a process that meets more (a long batch of briefs with
+    /// rules of their own) starts the cache afresh rather than let it grow. Factors are recomputed the same.</summary>
+    internal const int MaxCachedFactors = 256;
+
+    private static double[] Factors(DiscountSchedule schedule, int horizon)
+    {
+        if (FactorCache.TryGetValue((schedule, horizon), out var known)) return known;
+        if (FactorCache.Count >= MaxCachedFactors) FactorCache.Clear();
+        return FactorCache.GetOrAdd((schedule, horizon), key => key.Schedule.Factors(key.Horizon));
+    }
+
+    internal static int CachedFactors => FactorCache.Count;
 
     /// <summary>Σ_{t=0..H} D(o+t)·e^(g(o+t))·gain(t), with the running sums written to <paramref name="cumulative"/> when it is not empty.</summary>
     private static double Sum(ReformPath path, double[] d, double technologyGrowth, int offset, Span<double> cumulative)

@@ -166,6 +166,9 @@ public sealed class TiltedKernel
         }
     }
 
+    /// <summary>Kernels kept per survival curve (the table itself lets a curve and its kernels go with it).</summary>
+    internal const int MaxKernelsPerCurve = 16;
+
     private static readonly ConditionalWeakTable<Survival, System.Collections.Concurrent.ConcurrentDictionary<double, TiltedKernel>> Cache = new();
 
     /// <summary>
@@ -179,6 +182,9 @@ public sealed class TiltedKernel
         // Look-ups without locks or allocation once built: a draw asks for the same kernels many times.
         if (Cache.TryGetValue(survival, out var known) && known.TryGetValue(quadratic, out var kernel)) return kernel;
         var byQuadratic = Cache.GetValue(survival, _ => new());
+        // Bounded: one survival curve meets few curvatures (one per scenario); should a caller vary it, the kernels
+        // are rebuilt rather than kept without end (the same kernel is built the same way).
+        if (byQuadratic.Count >= MaxKernelsPerCurve) byQuadratic.Clear();
         return byQuadratic.GetOrAdd(quadratic, q => new TiltedKernel(q == 0 ? survival.At : a => survival.At(a) * Math.Exp(-q * a * a), survival.MaxAge));
     }
 
