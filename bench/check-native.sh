@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # Publishes the native executable (README, "Installing for scheduled jobs") and checks that it writes the same bytes
-# as the managed build: every file of the demo briefs (with theme, chart copies and annex), the output of check,
+# as the managed build: every file of the demo briefs (with theme, chart copies, annex, web page, workbook and document), the output of check,
 # solve --json, diff and schema, and the messages and exit code of check on every bad input of tests/corpus. Run by CI after the tests. Usage: bench/check-native.sh [output folder]
 set -euo pipefail
 cd "$(dirname "$0")/.."
@@ -26,7 +26,7 @@ same() { # label, file a, file b
 for who in managed native; do
   if [ $who = managed ]; then run=("${managed[@]}"); else run=("$native/briefwright"); fi
   mkdir -p "$work/$who"
-  "${run[@]}" build briefs-demo --theme briefs-demo/auroria-institute.theme.yaml -o "$work/$who/briefs" -q
+  "${run[@]}" build briefs-demo --theme briefs-demo/auroria-institute.theme.yaml --formats pdf,html,xlsx,docx -o "$work/$who/briefs" -q
   "${run[@]}" check briefs-demo > "$work/$who/check.txt"
   "${run[@]}" solve briefs-demo/auroria-national.yaml briefs-demo/auroria-northport.yaml --json > "$work/$who/solve.json"
   "${run[@]}" solve briefs-demo/auroria-silverdale.yaml > "$work/$who/solve.txt"

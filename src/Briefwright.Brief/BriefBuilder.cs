@@ -1,5 +1,7 @@
 using System.Text;
 using Briefwright.Brief.Annex;
+using Briefwright.Brief.ChartSet;
+using Briefwright.Brief.Formats;
 using Briefwright.Charts;
 using Briefwright.Composer;
 using Briefwright.Composer.Document;
@@ -39,7 +41,7 @@ public static class BriefBuilder
             family = BundledFonts.Register(fonts.Regular, fonts.Bold, fonts.Italic, fonts.BoldItalic);
             ChartFont.Register(family, fonts.Regular, fonts.Bold);
         }
-        var specs = ChartSpecs(solved, family);
+        var specs = ChartSpecs(solved, family, options.Theme.ChartColours);
         var figureRefs = specs.Select(c => new FigureRef(c.Id, c.Caption)).ToList();
         // The results data and the filled template need the charts' ids and captions, not their drawings; the data annex
         // needs the drawn charts, not the brief. The caller's runner decides where they are made (in order here, or on
@@ -54,7 +56,11 @@ public static class BriefBuilder
             return (Json: json, Changes: changes, Markdown: FillTemplate(solved, figureRefs, template, changes));
         });
         var charts = ChartSpec.RenderPdf(specs);
-        var annex = runner.Start(() => AnnexFiles.Build(solved, options.ChartImages ? ChartSpec.AddImages(charts, specs, runner.Threads) : charts));
+        // The web page needs each chart as SVG and the editable document as PNG: the same copies as the data annex's.
+        var formats = options.Formats;
+        bool copies = options.ChartImages || (formats & (OutputFormat.Html | OutputFormat.Docx)) != 0;
+        var imaged = runner.Start(() => copies ? ChartSpec.AddImages(charts, specs, runner.Threads) : charts);
+        var annex = runner.Start(() => AnnexFiles.Build(solved, options.ChartImages ? imaged.GetAwaiter().GetResult() : charts));
         var (json, changes, markdown) = text.GetAwaiter().GetResult();
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
@@ -76,9 +82,12 @@ public static class BriefBuilder
             Theme = options.PageTheme() with { FigureLabel = T("layout.figure"), TableLabel = T("layout.table"), SourceLabel = T("layout.source") },
             FontFamily = family,
         };
+        // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid out.
+        var others = runner.Start(() => OutputWriters.For(formats).Select(w => new AnnexFile(w.Suffix,
+            w.Write(new BriefContent(document, imaged.GetAwaiter().GetResult(), solved, json, info.Organisation)))).ToList());
         var pdf = DocumentComposer.WritePdf(document, new RenderSession(family));
         var annexFiles = annex.GetAwaiter().GetResult().Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
-        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes);
+        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes) { Formats = others.GetAwaiter().GetResult() };
     }
 
     /// <summary>
@@ -113,8 +122,12 @@ public static class BriefBuilder
     public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false, string? family = null) =>
         ChartSpec.RenderAll(ChartSpecs(solved, family), withImages);
 
-    /// <summary>The brief's charts, built but not yet drawn, in the bundled font or the theme's <paramref name="family"/>.</summary>
-    public static IReadOnlyList<ChartSpec> ChartSpecs(SolvedScenario solved, string? family = null)
+    /// <summary>
+    /// The brief's charts (<see cref="ChartCatalogue"/>), built but not yet drawn, in the bundled font or the theme's
+    /// <paramref name="family"/>, each option in its style for this brief (from the theme's <paramref name="chartColours"/>
+    /// when given).
+    /// </summary>
+    public static IReadOnlyList<ChartSpec> ChartSpecs(SolvedScenario solved, string? family = null, IReadOnlyList<string>? chartColours = null)
     {
         InstallChartFont();
         var scenario = solved.Scenario;
@@ -122,36 +135,8 @@ public static class BriefBuilder
         using var languageScope = BriefLanguage.Use(language);
         ChartFont.Use(ChartFont.Variant(family ?? ChartFont.Family, GlyphCheck.ChartCharacters(scenario, language)));
         ChartWords.Use(new ChartWords.Language(key => language.Texts.TryGetValue(key, out var t) ? t.Text : null, language.Decimal));
-        var results = solved.BalancedGrowth;
         string source = T("chart.source", scenario.Brief.Id);
-        var charts = new List<ChartSpec> { AnalysisChartSet.HeadlinePath(solved, source) };
-        charts.Add(new ChartSpec("output-curve", SchoolingCharts.OutputCurve(results),
-            T("chart.curve.caption"), CurveAltText(results), source));
-        var curve = results.SchoolingCurve;
-        var baseline = results.Options.First(o => o.IsBaseline);
-        charts.Add(new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(results),
-            T("chart.forces.caption"),
-            T("chart.forces.alt", Wording.Trend(curve.Select(c => c.WorkerShare).ToList()), Wording.Trend(curve.Select(c => c.HumanCapitalPerWorker).ToList()), TemplateFunctions.Years(baseline.SchoolingYears), TemplateFunctions.Num(baseline.WorkerShare, 3), TemplateFunctions.Num(baseline.HumanCapitalPerWorker, 2)),
-            source));
-        charts.AddRange(AnalysisChartSet.Specs(solved, source));
-        return charts;
-    }
-
-    /// <summary>The output curve described from its computed shape: its trend, where it is highest, and where the options sit.</summary>
-    public static string CurveAltText(BalancedGrowthResults results)
-    {
-        var opt = results.Optimum;
-        var curve = results.SchoolingCurve;
-        string trend = Wording.Trend(curve.Select(c => c.OutputPerPerson).ToList());
-        string where = opt.AtBoundary
-            ? T("chart.curve.alt_edge", TemplateFunctions.Years(opt.SchoolingYears))
-            : T("chart.curve.alt_highest", TemplateFunctions.Years(opt.SchoolingYears), TemplateFunctions.Years(opt.Within1Pct[0]), TemplateFunctions.Years(opt.Within1Pct[1]));
-        var sides = results.Options.Select(o => Math.Sign(Math.Round(o.SchoolingYears - opt.SchoolingYears, 1))).Distinct().ToList();
-        string options = sides.Count == 1 && sides[0] < 0 ? T("chart.curve.alt_below")
-            : sides.Count == 1 && sides[0] > 0 ? T("chart.curve.alt_above")
-            : sides.Count == 1 ? T("chart.curve.alt_at")
-            : T("chart.curve.alt_both");
-        return T("chart.curve.alt", TemplateFunctions.Years(opt.FeasibleMaxSchooling), trend, where, options);
+        return ChartCatalogue.Build(new ChartContext(solved, ChartCatalogue.Styles(solved, chartColours), source));
     }
 
     /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>

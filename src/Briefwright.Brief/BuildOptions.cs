@@ -19,6 +19,9 @@ public sealed record BuildOptions
     /// <summary>The previous edition's results data, to write the "changes since the previous edition" section.</summary>
     public EditionSnapshot? PreviousEdition { get; init; }
 
+    /// <summary>The formats written beside the PDF (web page, workbook, editable document); not an input of the brief's edition.</summary>
+    public Formats.OutputFormat Formats { get; init; } = Briefwright.Brief.Formats.OutputFormats.Default;
+
     /// <summary>Why this is a new edition, by input name (the edition planner's <c>Changed</c>): said in the changes section.</summary>
     public IReadOnlyList<string> EditionCauses { get; init; } = [];
 

@@ -30,7 +30,7 @@ public static class WarmUp
             var plot = new ScottPlot.Plot();
             plot.Add.Scatter(new double[] { 0, 1, 2 }, new double[] { 1, 3, 2 });
             plot.XLabel("x");
-            byte[] chart = ChartRenderer.ToPdf(new[] { plot });
+            byte[] chart = ChartRenderer.ToPdf(plot);
 
             string markdown = BriefTemplate.Parse("# {{ title }}\n\nText with **bold** and *italic*.\n\n| a | b |\n|---|--:|\n| {{ title }} | 1.0 |\n\n[[figure: warm]]\n", "warm-up")
                 .Render(new Scriban.Runtime.ScriptObject { ["title"] = "Warm-up" });

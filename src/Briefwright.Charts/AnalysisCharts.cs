@@ -14,38 +14,39 @@ public static class AnalysisCharts
         Func<Percentiles, double> high, double alpha, string legend)
     {
         var band = plot.Add.FillY(xs, fan.Take(n).Select(p => 100 * low(p)).ToArray(), fan.Take(n).Select(p => 100 * high(p)).ToArray());
-        band.FillColor = Palette.Primary.WithAlpha(alpha);
+        band.FillColor = Palette.Band.WithAlpha(alpha);
         band.LineWidth = 0;
         band.LegendText = legend;
     }
 
-    private static string F(double v, string f = "0.0") => ChartWords.Number(v, f);
+    private static string F(double v, string f = "0.0") => ChartRenderer.Number(v, f);
 
     private static string Pct => ChartWords.Text("number.percent", "%");
 
     /// <summary>Output per person relative to no reform, by calendar year, one line per option; the headline option's
     /// Monte Carlo band (5–95% and 25–75%), its dip and its break-even year are marked.</summary>
-    public static Plot ReformPath(AppraisalResults reform, string headlineId, IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null)
+    public static Plot ReformPath(AppraisalResults reform, string headlineId, IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null, OptionStyles? styles = null)
     {
+        styles ??= new OptionStyles(reform.Options.Select(o => o.OptionId));
         var plot = new Plot();
         ChartRenderer.Style(plot, ChartWords.Text("chart.axis.year", "Year"), ChartWords.Text("chart.axis.vs_no_reform", "Output per person vs no reform (%)"));
         int n = Math.Min(years ?? 80, reform.HorizonYears) + 1;
         double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
         if (mc is not null)
         {
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.12, ChartWords.Text("chart.legend.p5_p95", "{0}: 5–95% of draws", labels[headlineId]));
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.22, ChartWords.Text("chart.legend.p25_p75", "25–75% of draws"));
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, ChartWords.Text("chart.legend.p5_p95", "{0}: 5–95% of draws", labels[headlineId]));
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.3, ChartWords.Text("chart.legend.p25_p75", "25–75% of draws"));
         }
-        var zero = plot.Add.HorizontalLine(0, 1, Palette.Ink);
+        var zero = plot.Add.HorizontalLine(0, 1, Palette.Neutral);
         zero.LinePattern = LinePattern.Solid;
-        int colour = 0;
         foreach (var o in reform.Options)
         {
             bool headline = o.OptionId == headlineId;
+            var style = styles[o.OptionId];
             var line = plot.Add.ScatterLine(xs, o.Path.Gain.Take(n).Select(g => 100 * g).ToArray());
-            line.Color = headline ? Palette.Primary : Palette.Series[1 + colour++ % (Palette.Series.Length - 1)];
-            line.LineWidth = headline ? 2.2f : 1.4f;
-            line.LinePattern = headline ? LinePattern.Solid : colour % 2 == 0 ? LinePattern.Dashed : LinePattern.DenselyDashed;
+            line.Color = style.Color;
+            line.LineWidth = headline ? 2.2f : 1.5f;
+            line.LinePattern = style.Pattern;
             line.LegendText = labels[o.OptionId];
             if (!headline) continue;
             if (o.Path.DipYear is { } dy && o.Path.DipDepth is { } depth)
@@ -53,29 +54,30 @@ public static class AnalysisCharts
                 var dip = plot.Add.Marker(reform.ReformYear + dy, 100 * depth);
                 dip.MarkerShape = MarkerShape.FilledTriangleDown;
                 dip.MarkerSize = 9;
-                dip.Color = Palette.Contrast;
+                dip.Color = Palette.Neutral;
                 dip.LegendText = ChartWords.Text("chart.legend.dip", "Deepest dip, {0}: {1}", reform.ReformYear + dy, F(100 * depth, "0.00") + Pct);
             }
             if (o.PresentValues[0].BreakEvenYear is { } be && be < n)
             {
                 var v = plot.Add.VerticalLine(reform.ReformYear + be);
-                v.Color = Palette.Contrast;
+                v.Color = Palette.Neutral;
                 v.LinePattern = LinePattern.Dotted;
                 v.LineWidth = 1.2f;
                 v.LegendText = ChartWords.Text("chart.legend.break_even", "Break-even ({0}): {1}", o.PresentValues[0].ScheduleLabel, reform.ReformYear + be);
             }
         }
         plot.Axes.SetLimitsX(xs[0], xs[^1]);
-        plot.Axes.Bottom.TickGenerator = new ScottPlot.TickGenerators.NumericAutomatic { LabelFormatter = v => v.ToString("0", CultureInfo.InvariantCulture) };
-        ChartRenderer.LegendBelow(plot);
+        plot.Axes.Bottom.TickGenerator = ChartRenderer.Ticks("0");
+        ChartRenderer.LegendInside(plot, Alignment.UpperLeft);
         return plot;
     }
 
     /// <summary>Tornado: the headline option's long-run change with each parameter at the low and high end of its range.</summary>
     public static Plot Tornado(IReadOnlyList<TornadoRow> rows, int optionIndex, double central, string optionLabel)
     {
+        // Not options: the two ends of each range are drawn in the neutral tones.
         var plot = new Plot();
-        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person, {0} (%)", optionLabel), "");
+        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"), "");
         var bars = new List<Bar>();
         var ticks = new List<Tick>();
         for (int i = 0; i < rows.Count; i++)
@@ -83,28 +85,28 @@ public static class AnalysisCharts
             var r = rows[i];
             double pos = rows.Count - 1 - i;
             double lo = r.AtLow.LongRunChangePct[optionIndex], hi = r.AtHigh.LongRunChangePct[optionIndex];
-            bars.Add(new Bar { Position = pos, ValueBase = central, Value = lo, FillColor = Palette.Contrast, Size = 0.6, Orientation = Orientation.Horizontal });
-            bars.Add(new Bar { Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Primary, Size = 0.6, Orientation = Orientation.Horizontal });
+            bars.Add(new Bar { Position = pos, ValueBase = central, Value = lo, FillColor = Palette.NeutralLight, Size = 0.6, Orientation = Orientation.Horizontal });
+            bars.Add(new Bar { Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Neutral, Size = 0.6, Orientation = Orientation.Horizontal });
             ticks.Add(new Tick(pos, ChartWords.Text("parameter." + r.Parameter, r.Label)));
         }
         var plotBars = plot.Add.Bars(bars);
         plotBars.Horizontal = true;
         plot.Axes.Left.TickGenerator = new ScottPlot.TickGenerators.NumericManual(ticks.ToArray());
-        plot.Axes.Left.TickLabelStyle.FontSize = 8.5f;
         var c = plot.Add.VerticalLine(central);
         c.Color = Palette.Ink;
         c.LineWidth = 1;
-        c.LegendText = ChartWords.Text("chart.legend.central", "Central assumptions: {0}", F(central, "0.00") + Pct);
+        c.LegendText = ChartWords.Text("chart.legend.central", "{0}, central assumptions: {1}", optionLabel, F(central, "0.00") + Pct);
         var lowKey = plot.Add.Marker(double.NaN, double.NaN);
         lowKey.MarkerShape = MarkerShape.FilledSquare;
-        lowKey.Color = Palette.Contrast;
+        lowKey.Color = Palette.NeutralLight;
         lowKey.LegendText = ChartWords.Text("chart.legend.low_end", "Parameter at the low end of its range");
         var highKey = plot.Add.Marker(double.NaN, double.NaN);
         highKey.MarkerShape = MarkerShape.FilledSquare;
-        highKey.Color = Palette.Primary;
+        highKey.Color = Palette.Neutral;
         highKey.LegendText = ChartWords.Text("chart.legend.high_end", "Parameter at the high end of its range");
-        plot.Axes.SetLimitsY(-0.7, rows.Count - 0.3);
-        ChartRenderer.LegendBelow(plot);
+        // Room below the shortest bars for the legend.
+        plot.Axes.SetLimitsY(-3.2, rows.Count - 0.3);
+        ChartRenderer.LegendInside(plot, Alignment.LowerRight);
         return plot;
     }
 
@@ -119,23 +121,40 @@ public static class AnalysisCharts
             for (int j = 0; j < ny; j++)
                 data[ny - 1 - j, i] = grid.Values[i][j] ?? double.NaN;
         var hm = plot.Add.Heatmap(data);
-        hm.Colormap = new ScottPlot.Colormaps.CustomInterpolated(new[] { Color.FromHex("#F6EFD9"), Color.FromHex("#8FB8C9"), Palette.Primary });
-        double x0 = grid.X[0] * xScale, x1 = grid.X[^1] * xScale, y0 = grid.Y[0] * yScale, y1 = grid.Y[^1] * yScale;
-        double dx = (x1 - x0) / (nx - 1), dy = (y1 - y0) / (ny - 1);
-        hm.Extent = new CoordinateRect(x0 - dx / 2, x1 + dx / 2, y0 - dy / 2, y1 + dy / 2);
+        hm.Colormap = new ScottPlot.Colormaps.CustomInterpolated(Palette.Sequential);
+        var (left, right, bottom, top) = HeatmapEdges(grid, xScale, yScale);
+        hm.Rectangle = new CoordinateRect(left, right, bottom, top);
+        hm.Smooth = false;
         hm.NaNCellColor = Colors.White;
-        plot.Axes.SetLimits(x0 - dx / 2, x1 + dx / 2, y0 - dy / 2, y1 + dy / 2);
+        plot.Axes.SetLimits(left, right, bottom, top);
+        // The data area ends exactly at the outer cell edges, so edge cells are whole.
+        plot.Axes.Margins(0, 0);
         var bar = plot.Add.ColorBar(hm, Edge.Right);
         bar.Label = valueLabel;
-        bar.LabelStyle.FontSize = 9;
+        bar.LabelStyle.FontSize = ChartRenderer.TitleSize;
+        bar.Axis.TickLabelStyle.FontSize = ChartRenderer.TickSize;
+        bar.Axis.TickGenerator = ChartRenderer.Ticks();
         return plot;
     }
 
-    /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
-    public static Plot Distribution(MonteCarloResults mc, int optionIndex, string optionLabel)
+    /// <summary>
+    /// The outer edges of a heat map whose cells are centred on the grid values: half a grid step beyond the first and
+    /// last value on each axis (one cell per value, each one step wide).
+    /// </summary>
+    public static (double Left, double Right, double Bottom, double Top) HeatmapEdges(GridResult grid, double xScale = 1, double yScale = 1)
     {
+        int nx = grid.X.Length, ny = grid.Y.Length;
+        double x0 = grid.X[0] * xScale, x1 = grid.X[^1] * xScale, y0 = grid.Y[0] * yScale, y1 = grid.Y[^1] * yScale;
+        double dx = nx > 1 ? (x1 - x0) / (nx - 1) : 1, dy = ny > 1 ? (y1 - y0) / (ny - 1) : 1;
+        return (x0 - dx / 2, x1 + dx / 2, y0 - dy / 2, y1 + dy / 2);
+    }
+
+    /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
+    public static Plot Distribution(MonteCarloResults mc, int optionIndex, string optionLabel, OptionStyle? style = null)
+    {
+        var colour = style?.Color ?? Palette.Options[0];
         var plot = new Plot();
-        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person, {0} (%)", optionLabel), ChartWords.Text("chart.axis.share_of_draws", "Share of draws (%)"));
+        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"), ChartWords.Text("chart.axis.share_of_draws", "Share of draws (%)"));
         var sample = mc.HeadlineChangeSample;
         double lo = sample.Min(), hi = sample.Max();
         const int bins = 30;
@@ -145,20 +164,21 @@ public static class AnalysisCharts
         foreach (var v in sample) counts[Math.Min(bins - 1, (int)((v - lo) / width))]++;
         var bars = Enumerable.Range(0, bins).Select(b => new Bar
         {
-            Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92, FillColor = Palette.Primary.WithAlpha(0.75),
+            Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92, FillColor = colour.WithAlpha(0.7),
         }).ToList();
-        plot.Add.Bars(bars);
+        var histogram = plot.Add.Bars(bars);
+        histogram.LegendText = ChartWords.Text("chart.legend.share_of_draws", "{0}: share of draws", optionLabel);
         var p = mc.Options[optionIndex].LongRunChangePct;
         foreach (var (x, name, pattern) in new[] { (p.P5, ChartWords.Text("table.p5", "5th percentile"), LinePattern.Dashed), (p.P50, ChartWords.Text("table.median", "Median"), LinePattern.Solid), (p.P95, ChartWords.Text("table.p95", "95th percentile"), LinePattern.Dashed) })
         {
             var v = plot.Add.VerticalLine(x);
-            v.Color = Palette.Contrast;
+            v.Color = Palette.Ink;
             v.LinePattern = pattern;
             v.LineWidth = 1.4f;
             v.LegendText = $"{name}: {F(x, "0.00")}{Pct}";
         }
         plot.Axes.SetLimitsY(0, bars.Max(b => b.Value) * 1.15);
-        ChartRenderer.LegendBelow(plot);
+        ChartRenderer.LegendInside(plot, Alignment.UpperLeft);
         return plot;
     }
 }

@@ -12,7 +12,7 @@ public sealed record RenderedChart(string Id, byte[] Pdf, int Page, double Width
 }
 
 /// <summary>A chart before rendering: the plot and the texts that go with it.</summary>
-public sealed record ChartSpec(string Id, ScottPlot.Plot Plot, string Caption, string AltText, string Source)
+public sealed record ChartSpec(string Id, ChartPanels Plot, string Caption, string AltText, string Source)
 {
     /// <summary>Renders all charts into one multi-page PDF (one embedded font for all of them), and SVG and PNG copies if asked.</summary>
     public static IReadOnlyList<RenderedChart> RenderAll(IReadOnlyList<ChartSpec> specs, bool withImages)
@@ -36,7 +36,11 @@ public sealed record ChartSpec(string Id, ScottPlot.Plot Plot, string Caption, s
     {
         var copies = new RenderedChart[charts.Count];
         Parallel.For(0, charts.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, threads) },
-            i => copies[i] = charts[i] with { Svg = ChartRenderer.ToSvg(specs[i].Plot), Png = ChartRenderer.ToPng(specs[i].Plot) });
+            i =>
+            {
+                var texts = new ChartRenderer.CopyTexts(specs[i].Caption, specs[i].Source);
+                copies[i] = charts[i] with { Svg = ChartRenderer.ToSvg(specs[i].Plot, texts), Png = ChartRenderer.ToPng(specs[i].Plot, texts) };
+            });
         return copies;
     }
 }

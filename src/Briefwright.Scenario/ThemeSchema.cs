@@ -33,6 +33,14 @@ public static class ThemeSchema
                 ["name"] = Text("Organisation or house-style name", MaxName),
                 ["paper"] = new JsonObject { ["enum"] = new JsonArray("a4", "letter"), ["description"] = "Paper size (default a4)" },
                 ["colours"] = new JsonObject { ["type"] = "object", ["additionalProperties"] = false, ["properties"] = colours, ["description"] = "Colours written #RRGGBB" },
+                ["chart_colours"] = new JsonObject
+                {
+                    ["type"] = "array",
+                    ["minItems"] = ThemeSpec.MinChartColours,
+                    ["maxItems"] = ThemeSpec.MaxChartColours,
+                    ["items"] = new JsonObject { ["type"] = "string", ["pattern"] = "^#[0-9A-Fa-f]{6}$" },
+                    ["description"] = "Colours of the options in charts, one per option in scenario order (cycled when there are more options); default: the standard palette, chosen to stay apart with colour-vision deficiencies and in greyscale",
+                },
                 ["footer"] = Text("Footer text on every page", MaxFooter),
                 ["logo"] = Text("PNG logo, relative to the theme", 400, "\\.[pP][nN][gG]$"),
                 ["fonts"] = new JsonObject { ["type"] = "object", ["additionalProperties"] = false, ["required"] = new JsonArray("regular"), ["properties"] = fonts },

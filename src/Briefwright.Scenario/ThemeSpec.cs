@@ -15,6 +15,12 @@ public sealed record ThemeSpec(string Name, string Paper, IReadOnlyDictionary<st
 
     public static readonly string[] ColourKeys = { "accent", "text", "muted", "rule", "box_fill", "header_fill" };
 
+    /// <summary>The options' colours in charts, in scenario order (#RRGGBB each); empty for the standard palette.</summary>
+    public IReadOnlyList<string> ChartColours { get; init; } = Array.Empty<string>();
+
+    /// <summary>How many chart colours a theme may give.</summary>
+    public const int MinChartColours = 2, MaxChartColours = 8;
+
     public static ThemeSpec Default { get; } = new("briefwright standard", "a4", new Dictionary<string, string>(), null, null);
 
     /// <summary>The logo as read and checked by <see cref="ThemeLoader"/>: PNG bytes and size in pixels.</summary>
@@ -43,7 +49,7 @@ public static partial class ThemeLoader
         if (root is null) return (null, problems, sources);
         var ctx = new BindContext();
         if (root is not YMapping top) { ctx.Report(root.At, "", "a theme must be a mapping", root.Kind); return (null, ctx.Problems, sources); }
-        ctx.CheckKeys(top, "", "name", "paper", "colours", "footer", "logo", "fonts");
+        ctx.CheckKeys(top, "", "name", "paper", "colours", "chart_colours", "footer", "logo", "fonts");
         string? name = ctx.Text(top, "name", "", required: true, maxLength: ThemeSchema.MaxName);
         string paper = ctx.Choice(top, "paper", "", required: false, "a4", "letter") ?? "a4";
         string? footer = ctx.Text(top, "footer", "", required: false, maxLength: ThemeSchema.MaxFooter);
@@ -58,6 +64,18 @@ public static partial class ThemeLoader
                 if (value is YScalar s && Hex().IsMatch(s.Value)) colours[key.Value] = s.Value;
                 else ctx.Report(value.At, $"colours.{key.Value}", "must be a colour written #RRGGBB", BindContext.Show(value));
             }
+        }
+        var chartColours = new List<string>();
+        if (top["chart_colours"] is { } cc)
+        {
+            if (cc is not YSequence seq || seq.Items.Count < ThemeSpec.MinChartColours || seq.Items.Count > ThemeSpec.MaxChartColours)
+                ctx.Report(cc.At, "chart_colours", $"must be a list of {ThemeSpec.MinChartColours} to {ThemeSpec.MaxChartColours} colours written #RRGGBB, one per option in scenario order", BindContext.Show(cc));
+            else
+                for (int i = 0; i < seq.Items.Count; i++)
+                {
+                    if (seq.Items[i] is YScalar s && Hex().IsMatch(s.Value)) chartColours.Add(s.Value);
+                    else ctx.Report(seq.Items[i].At, $"chart_colours[{i}]", "must be a colour written #RRGGBB", BindContext.Show(seq.Items[i]));
+                }
         }
         var fonts = new Dictionary<string, string>();
         var fontFiles = new Dictionary<string, byte[]>();
@@ -100,7 +118,7 @@ public static partial class ThemeLoader
             }
         }
         if (ctx.Problems.Count > 0 || name is null) return (null, ctx.Problems, sources);
-        return (new ThemeSpec(name, paper, colours, footer, logoPath) { FontPaths = fonts, FontFiles = fontFiles, Logo = logoImage }, ctx.Problems, sources);
+        return (new ThemeSpec(name, paper, colours, footer, logoPath) { FontPaths = fonts, FontFiles = fontFiles, Logo = logoImage, ChartColours = chartColours }, ctx.Problems, sources);
     }
 
     private static byte[]? ReadAsset(ISourceReader reader, BindContext ctx, string theme, string file, string project, SourceSpan at, string field, long maxBytes, string what)

@@ -214,5 +214,5 @@ public static class BriefModelBuilder
     }
 
     private static string Reproducibility(BriefInputs b) =>
-        T("annex.reproducibility", b.InputHash, Md.Escape(b.TemplateName), b.TemplateHash[..16], b.ToolVersion);
+        T("annex.reproducibility", b.InputHash, Md.Escape(b.TemplateName), b.TemplateHash, b.ToolVersion);
 }

@@ -22,7 +22,7 @@ public static class Md
             if (char.IsControl(c)) continue;
             // '!' only makes an image before '[', which is escaped; '&' only starts an entity before a letter or '#'.
             bool entity = c == '&' && i + 1 < trimmed.Length && (char.IsAsciiLetter(trimmed[i + 1]) || trimmed[i + 1] == '#');
-            if ("\\`*_[]<>|#".Contains(c) || entity) sb.Append('\\');
+            if ("\\`*_[]<>|#$".Contains(c) || entity) sb.Append('\\');
             sb.Append(c);
         }
         // Block starts: a quote (>), a list item (- x, + x, 1. x, 1) x), a rule or heading underline (---, ===), a fence (~~~).

@@ -126,4 +126,79 @@ public class LayoutTests
         for (int p = 0; p < s.PageCount; p++)
             Assert.Contains(s.Ops, o => o.Page == p && o.Text == $"Page {p + 1} of {s.PageCount}");
     }
+    private static double Bottom => Theme.PageHeight - Theme.MarginBottom;
+
+    /// <summary>The lowest point drawn in the content area of each page (text baselines and figure bottoms).</summary>
+    private static double[] Filled(RecordingSurface s) => Enumerable.Range(0, s.PageCount).Select(p => s.Ops
+        .Where(o => o.Page == p && o.Y > Theme.MarginTop && o.Y < Bottom + 1 && o.Kind is "text" or "figure")
+        .Select(o => o.Kind == "figure" ? o.Y + o.Height : o.Y).DefaultIfEmpty(Theme.MarginTop).Max() - Theme.MarginTop).ToArray();
+
+    [Fact]
+    public void A_figure_that_does_not_fit_waits_while_the_text_after_it_fills_the_page()
+    {
+        // Half a page of text, a figure taller than what is left, then more text.
+        var figure = new FigureBlock("chart", Array.Empty<byte>(), 1, 400, 200, "A chart", "Model", "Alt text");
+        var s = Draw(Words(150), figure, Words(300, 'v'));
+        var fig = Assert.Single(s.Ops, o => o.Kind == "figure");
+        Assert.Equal(1, fig.Page);
+        Assert.Contains(BodyText(s), o => o.Page == 0 && o.Text.StartsWith('v'));
+        // The caption and source stay with the chart, above and below it, on its page.
+        var caption = s.Ops.Single(o => o.Kind == "text" && o.Text.StartsWith("Figure 1."));
+        var source = s.Ops.Single(o => o.Kind == "text" && o.Text.StartsWith("Source:"));
+        Assert.Equal(1, caption.Page);
+        Assert.Equal(1, source.Page);
+        Assert.True(caption.Y < fig.Y && source.Y > fig.Y + fig.Height);
+        // The figure opens its page; no page but the last is more than a third empty.
+        Assert.True(caption.Y - Theme.MarginTop < 20);
+        var filled = Filled(s);
+        for (int p = 0; p < s.PageCount - 1; p++)
+            Assert.True(filled[p] > Theme.ContentHeight * 2 / 3, $"page {p + 1} is filled to {filled[p]:0} of {Theme.ContentHeight:0} pt");
+    }
+
+    [Fact]
+    public void A_heading_at_the_foot_of_a_page_moves_to_the_next_page_with_its_paragraph()
+    {
+        double lh = Theme.BodySize * Theme.LineFactor;
+        int wordsPerLine = (int)Math.Floor((Theme.ContentWidth + 5) / 25);
+        // Leaves room for the heading and about one line, not for the heading and the two lines it keeps with.
+        int firstLines = (int)Math.Floor((Theme.ContentHeight - Theme.ParagraphGap - 16 - 13.5 * 1.25 - 3 - Theme.ParagraphGap - 1.2 * lh) / lh);
+        var s = Draw(Words(firstLines * wordsPerLine), new HeadingBlock(2, "Next section"), Words(wordsPerLine * 6, 'v'));
+        var heading = s.Ops.Single(o => o.Kind == "text" && o.Text.EndsWith("Next section"));
+        var firstAfter = BodyText(s).First(o => o.Text.StartsWith('v'));
+        Assert.Equal(1, heading.Page);
+        Assert.Equal(heading.Page, firstAfter.Page);
+        Assert.True(heading.Y < firstAfter.Y);
+    }
+
+    [Fact]
+    public void Short_cells_such_as_numbers_and_ranges_never_wrap()
+    {
+        string longText = string.Join(" ", Enumerable.Repeat("explanation", 30));
+        var rows = new[] { (IReadOnlyList<string>)new[] { longText, "63 to 67", "+4.1% to +4.3%" } };
+        var s = Draw(new TableBlock(new[] { "Assumption", "Range tested", "Change" }, rows, new[] { CellAlign.Left, CellAlign.Right, CellAlign.Right }, null, null));
+        Assert.Contains(BodyText(s), o => o.Text == "63 to 67");
+        Assert.Contains(BodyText(s), o => o.Text == "+4.1% to +4.3%");
+        Assert.Contains(BodyText(s), o => o.Text == "Range tested");
+    }
+
+    [Fact]
+    public void A_block_that_can_never_fit_on_a_page_is_an_error_that_names_it()
+    {
+        var rows = new[] { (IReadOnlyList<string>)new[] { "Overlong row " + string.Join(" ", Enumerable.Repeat("word", 3000)), "1" } };
+        var e = Assert.Throws<ComposeException>(() => Draw(new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, null, null)));
+        Assert.Contains("table row 'Overlong row", e.Message);
+        Assert.Contains("cannot fit on a page", e.Message);
+    }
+
+    [Fact]
+    public void Nothing_is_drawn_below_the_content_area()
+    {
+        var figure = new FigureBlock("chart", Array.Empty<byte>(), 1, 400, 200, "A chart", "Model", "Alt text");
+        var rows = Enumerable.Range(1, 30).Select(i => (IReadOnlyList<string>)new[] { $"row {i}", $"{i}.0" }).ToList();
+        var s = Draw(Words(100), figure, new HeadingBlock(2, "H"), Words(200), new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, "Caption", "Source"), figure, Words(50));
+        Assert.All(s.Ops.Where(o => o.Kind == "figure"), f => Assert.True(f.Y + f.Height <= Bottom + 1e-6));
+        // The footer's baseline is 30 pt below the content area; anything between is content drawn too low.
+        Assert.All(s.Ops.Where(o => o.Kind == "text" && o.Y > Theme.MarginTop && o.Y < Bottom + 25), t => Assert.True(t.Y <= Bottom, $"'{t.Text}' at {t.Y}"));
+        Assert.Equal(0, s.OpenTags);
+    }
 }

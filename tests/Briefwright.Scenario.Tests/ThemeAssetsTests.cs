@@ -130,4 +130,23 @@ public class ThemeAssetsTests
         var (_, problems, _) = ThemeLoader.Load("t.theme.yaml", new MemoryReader(new() { ["t.theme.yaml"] = "name: T\n" + line + "\n" }));
         Assert.StartsWith(expected, Assert.Single(problems).Message);
     }
+
+    [Fact]
+    public void A_theme_may_set_the_chart_colours_in_option_order()
+    {
+        var (theme, problems, _) = ThemeLoader.Load("t.theme.yaml", new MemoryReader(new() { ["t.theme.yaml"] = "name: T\nchart_colours: [\"#112233\", \"#AABBCC\", \"#445566\"]\n" }));
+        Assert.Empty(problems);
+        Assert.Equal(new[] { "#112233", "#AABBCC", "#445566" }, theme!.ChartColours);
+    }
+
+    [Theory]
+    [InlineData("chart_colours: [\"#112233\", red]", "t.theme.yaml:2:28: chart_colours[1]: must be a colour written #RRGGBB")]
+    [InlineData("chart_colours: [\"#112233\"]", "t.theme.yaml:2:16: chart_colours: must be a list of 2 to 8 colours")]
+    [InlineData("chart_colours: \"#112233\"", "t.theme.yaml:2:16: chart_colours: must be a list of 2 to 8 colours")]
+    public void Chart_colours_are_a_short_list_of_colours(string line, string expected)
+    {
+        var (theme, problems, _) = ThemeLoader.Load("t.theme.yaml", new MemoryReader(new() { ["t.theme.yaml"] = "name: T\n" + line + "\n" }));
+        Assert.Null(theme);
+        Assert.StartsWith(expected, Assert.Single(problems).Message);
+    }
 }

@@ -3,6 +3,7 @@ using System.Text;
 using Briefwright.Brief;
 using Briefwright.Brief.Annex;
 using Briefwright.Brief.Editions;
+using Briefwright.Brief.Formats;
 using Briefwright.Cli.Commands;
 using Briefwright.Composer;
 using Briefwright.Composer.Drawing;
@@ -59,6 +60,8 @@ public static class BatchBuilder
         string id = scenario.Brief.Id;
         string dir = DirOf(file, settings);
         string? hash = null;
+        var formats = settings.Options.Formats;
+        string formatNames = OutputFormats.Describe(formats, " ");
         try
         {
             Directory.CreateDirectory(dir);
@@ -72,7 +75,7 @@ public static class BatchBuilder
                 var (known, quick) = folder.Read(full: false);
                 var early = EditionPlanner.Plan(request, quick);
                 if (early is EditionPlan.Skip unchanged)
-                    return new BriefOutcome(file, id, OutcomeStatus.Skipped, unchanged.Edition, Path.Combine(dir, known!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { InputHash = hash };
+                    return new BriefOutcome(file, id, OutcomeStatus.Skipped, unchanged.Edition, Path.Combine(dir, known!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { InputHash = hash, Formats = formatNames };
                 if (early is EditionPlan.Refuse refused) return Refused(file, loaded, scenario, refused, dir, hash, error, watch);
             }
 
@@ -80,9 +83,10 @@ public static class BatchBuilder
             FaultSeam.After(id, "locked");
             recovered = EditionTransaction.Recover(folder, held);
             var (current, state) = folder.Read(full: true);
+            // Formats switched on or off are not an input of the edition: the same edition is rebuilt with the formats asked for.
             var plan = EditionPlanner.Plan(request, state);
             if (plan is EditionPlan.Skip skip)
-                return new BriefOutcome(file, id, OutcomeStatus.Skipped, skip.Edition, Path.Combine(dir, current!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { Recovered = recovered, InputHash = hash };
+                return new BriefOutcome(file, id, OutcomeStatus.Skipped, skip.Edition, Path.Combine(dir, current!.Stem + ".pdf"), 0, 0, watch.ElapsedMilliseconds, null) { Recovered = recovered, InputHash = hash, Formats = formatNames };
             if (plan is EditionPlan.Refuse refuse) return Refused(file, loaded, scenario, refuse, dir, hash, error, watch) with { Recovered = recovered };
             var build = (EditionPlan.Build)plan;
 
@@ -107,6 +111,7 @@ public static class BatchBuilder
                 : BriefBuilder.Compose(solved with { Scenario = scenario }, settings.Template, options);
             var files = brief.Annex.Select(a => ($"{brief.FileStem}.{a.Suffix}",
                     settings.CsvByteOrderMark && a.Suffix.EndsWith(".csv", StringComparison.Ordinal) ? [0xEF, 0xBB, 0xBF, .. a.Bytes] : a.Bytes))
+                .Concat(brief.Formats.Select(f => ($"{brief.FileStem}.{f.Suffix}", f.Bytes)))
                 .Append((brief.FileStem + ".results.json", Encoding.UTF8.GetBytes(brief.ResultsJson)))
                 .Append((brief.FileStem + ".pdf", brief.Pdf)).ToList();
             var manifest = new Manifest(id, brief.FileStem, build.Edition, hash, inputs, files.Select(f => f.Item1).ToList())
@@ -120,7 +125,7 @@ public static class BatchBuilder
             string pdf = Path.Combine(dir, brief.FileStem + ".pdf");
             return new BriefOutcome(file, id, OutcomeStatus.Built, build.Edition, pdf, brief.PageCount, brief.Pdf.Length, watch.ElapsedMilliseconds, null)
             {
-                Recovered = recovered, InputHash = hash,
+                Recovered = recovered, InputHash = hash, Formats = formatNames,
                 Archived = archived is null ? null : Path.GetRelativePath(dir, archived),
             };
         }
@@ -164,6 +169,7 @@ public static class BatchBuilder
         {
             ["chart_copies"] = settings.AnnexImages ? "yes" : "no",
             ["csv_byte_order_mark"] = settings.CsvByteOrderMark ? "yes" : "no",
+            ["formats"] = OutputFormats.Describe(settings.Options.Formats, ","),
         };
         string hash = Sha256Hex.Of(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")
             .Concat(outputs.Select(kv => $"{EditionInput.OutputPrefix}{kv.Key}={kv.Value}"))));

@@ -15,6 +15,9 @@ public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Sta
     /// <summary>The hash over everything the brief depends on (the manifest's), once the scenario was read and valid.</summary>
     public string? InputHash { get; init; }
 
+    /// <summary>The formats the brief's folder holds after this build (pdf, html, xlsx, docx), for the summary.</summary>
+    public string? Formats { get; init; }
+
     /// <summary>What this build found left by an interrupted one and put right, if anything.</summary>
     public string? Recovered { get; init; }
 

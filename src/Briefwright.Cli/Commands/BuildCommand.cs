@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using System.Text;
 using Briefwright.Brief;
+using Briefwright.Brief.Formats;
 using Briefwright.Cli.Batch;
 using Briefwright.Cli.Project;
 using Briefwright.Scenario;
@@ -28,6 +29,12 @@ public static class BuildCommand
         var skipFlush = new Option<bool>("--skip-flush") { Description = "Do not wait for each brief to reach the disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a power cut might leave an empty one." };
         var settingsFile = new Option<string?>("--settings") { Description = $"Project settings file. Default: the nearest {ProjectSettings.FileName} in the scenarios' folder or a folder above it." };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print nothing but errors." };
+        var formatsOption = new Option<string?>("--formats")
+        {
+            Description = "Which files to write for each brief, comma-separated: pdf (always written), html (a self-contained web page), " +
+                "xlsx (a spreadsheet workbook of the results tables), docx (an editable document). Default: the project's, else pdf. " +
+                "Switching a format on or off rebuilds the same edition; it never makes a new one.",
+        };
         var plan = new Option<bool>("--plan") { Description = "Say what a build would do for each brief (build new, skip, rewrite, re-date, new edition) and which inputs changed, and write nothing at all: no brief, log line, lock or folder. Exit 0, or 2 on invalid input." };
         var json = new Option<bool>("--json") { Description = "With --plan: print the plan as a JSON list, one object per scenario in the order given." };
         var command = new Command("build",
@@ -37,7 +44,7 @@ public static class BuildCommand
             "switches never make an edition; whatever is replaced is archived first. --plan shows what a build would do, writing nothing. " +
             $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
-            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root, plan, json,
+            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root, plan, json, formatsOption,
         };
         command.SetAction(parse =>
         {
@@ -94,6 +101,15 @@ public static class BuildCommand
                 return Refuse(log, stage, LogDirs(files, effectiveOut, null, expanded: true), TextWriter.Null, messages);
             }
             var (tpl, options, themeHash, day, shardSpec, jobCount) = setup.Value;
+            var formats = project?.Formats ?? OutputFormats.Default;
+            if (parse.GetValue(formatsOption) is { } formatsText)
+            {
+                if (OutputFormats.Parse(formatsText.Split(','), out string? unknown) is not { } parsed)
+                    return Refuse(log, "options", LogDirs(files, effectiveOut, null, expanded: true), error,
+                        $"--formats: must be a comma-separated list of {OutputFormats.Describe(OutputFormats.All)}. Got '{Scenario.Binding.BindContext.Printable(unknown ?? formatsText)}'.");
+                formats = parsed;
+            }
+            options = options with { Formats = formats };
             if (shardSpec is { } s) files = Shards.Select(files, s.Index, s.Count, project?.Folder);
             bool images = !parse.GetValue(noImages) && (project?.ChartCopies ?? true);
             var settings = new BatchSettings(tpl, options, themeHash, effectiveOut, day, parse.GetValue(force), images)
@@ -300,9 +316,10 @@ public static class BuildCommand
         {
             o.Id ?? Path.GetFileName(o.Scenario), o.Status.ToString().ToLowerInvariant(), o.Edition?.ToString(CultureInfo.InvariantCulture) ?? "",
             o.Pages > 0 ? o.Pages.ToString(CultureInfo.InvariantCulture) : "", o.Bytes > 0 ? $"{o.Bytes / 1024} KB" : "", $"{o.Milliseconds} ms",
-        }).Prepend(new[] { "brief", "status", "edition", "pages", "size", "time" }).ToList();
-        int[] w = Enumerable.Range(0, 6).Select(c => rows.Max(r => r[c].Length)).ToArray();
-        foreach (var r in rows) sb.AppendLine(string.Join("  ", r.Select((cell, c) => c == 0 ? cell.PadRight(w[c]) : cell.PadLeft(w[c]))).TrimEnd());
+            o.Formats ?? "",
+        }).Prepend(new[] { "brief", "status", "edition", "pages", "size", "time", "formats" }).ToList();
+        int[] w = Enumerable.Range(0, 7).Select(c => rows.Max(r => r[c].Length)).ToArray();
+        foreach (var r in rows) sb.AppendLine(string.Join("  ", r.Select((cell, c) => c is 0 or 6 ? cell.PadRight(w[c]) : cell.PadLeft(w[c]))).TrimEnd());
         var counts = outcomes.GroupBy(o => o.Status).OrderBy(g => g.Key).Select(g => $"{g.Count()} {g.Key.ToString().ToLowerInvariant()}");
         sb.AppendLine($"{outcomes.Count} brief(s): {string.Join(", ", counts)}.");
         return sb.ToString();

@@ -21,6 +21,9 @@ public enum SettingKind
 
     /// <summary>true or false.</summary>
     Flag,
+
+    /// <summary>A list of output format names (pdf, html, xlsx, docx).</summary>
+    Formats,
 }
 
 /// <summary>One field of the settings file: its key, kind and the text shown in the schema and the docs.</summary>
@@ -33,6 +36,9 @@ public sealed record SettingField(string Key, SettingKind Kind, string Descripti
 /// </summary>
 public sealed record ProjectSettings(string File, string? Template, string? Theme, string? Out, DateOnly? Date, int? Jobs, bool? ChartCopies, bool? CsvByteOrderMark)
 {
+    /// <summary>The formats each brief is written in (the PDF always); null: the default, the PDF.</summary>
+    public Brief.Formats.OutputFormat? Formats { get; init; }
+
     public const string FileName = "briefwright.settings.yaml";
     public const int MaxJobs = 256;
 
@@ -46,6 +52,7 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
         new("jobs", SettingKind.Jobs, "Briefs built at once (1 to 256). Default: one per core."),
         new("chart_copies", SettingKind.Flag, "Write each chart as SVG and PNG beside the brief (default true)."),
         new("csv_byte_order_mark", SettingKind.Flag, "Start each CSV file with a UTF-8 byte order mark, for spreadsheet programs (default false)."),
+        new("formats", SettingKind.Formats, "Files written for each brief: a list of pdf (always written), html (self-contained web page), xlsx (spreadsheet workbook of the results tables), docx (editable document). Default: [pdf]."),
     ];
 
     /// <summary>The folder the settings file is in; its paths are relative to it.</summary>
@@ -101,8 +108,23 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
         }
         bool? chartCopies = ctx.Flag(top, "chart_copies", "");
         bool? bom = ctx.Flag(top, "csv_byte_order_mark", "");
+        Brief.Formats.OutputFormat? formats = null;
+        if (top["formats"] is { } formatsNode)
+        {
+            var names = formatsNode is YSequence seq ? seq.Items.Select(i => i is YScalar sc && !sc.IsNull ? sc.Value : null).ToList() : null;
+            if (names is null || names.Count == 0 || names.Any(n => n is null))
+                ctx.Report(formatsNode.At, "formats", $"must be a list of format names ({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})", BindContext.Show(formatsNode));
+            else if (names.Distinct(StringComparer.OrdinalIgnoreCase).Count() != names.Count)
+                ctx.Report(formatsNode.At, "formats", "must name each format once", BindContext.Show(formatsNode));
+            else if (Brief.Formats.OutputFormats.Parse(names!, out string? unknown) is { } parsed) formats = parsed;
+            else
+            {
+                var item = ((YSequence)formatsNode).Items.First(i => ((YScalar)i).Value.Trim() == unknown);
+                ctx.Report(item.At, "formats", $"must be a list of format names ({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})", BindContext.Quote(unknown ?? ""));
+            }
+        }
         if (ctx.Problems.Count > 0) return new Loaded(null, ctx.Problems, sources);
-        return new Loaded(new ProjectSettings(path, template, theme, outDir, date, jobs, chartCopies, bom), [], sources);
+        return new Loaded(new ProjectSettings(path, template, theme, outDir, date, jobs, chartCopies, bom) { Formats = formats }, [], sources);
     }
 
     /// <summary>JSON Schema (draft 2020-12) of the settings file, made from <see cref="Fields"/>.</summary>
@@ -120,6 +142,11 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
                     ["anyOf"] = new JsonArray(new JsonObject { ["const"] = "scenario" }, new JsonObject { ["pattern"] = "^[0-9]{4}-[0-9]{2}-[0-9]{2}$", ["format"] = "date" }),
                 },
                 SettingKind.Jobs => new JsonObject { ["type"] = "integer", ["minimum"] = 1, ["maximum"] = MaxJobs, ["description"] = f.Description },
+                SettingKind.Formats => new JsonObject
+                {
+                    ["type"] = "array", ["minItems"] = 1, ["uniqueItems"] = true, ["description"] = f.Description,
+                    ["items"] = new JsonObject { ["enum"] = new JsonArray(Brief.Formats.OutputFormats.Names.Select(n => (JsonNode)n.Name).ToArray()) },
+                },
                 _ => new JsonObject { ["type"] = "boolean", ["description"] = f.Description },
             };
         }

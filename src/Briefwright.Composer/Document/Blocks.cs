@@ -50,3 +50,6 @@ public sealed record FigureBlock(string Id, byte[] Pdf, int Page, double WidthPt
 public sealed record BoxBlock(string? Title, IReadOnlyList<Block> Content) : Block;
 
 public sealed record PageBreakBlock : Block;
+
+/// <summary>A display equation written in the math notation (<see cref="Layout.MathNotation"/>); <see cref="Line"/> is its line in the text.</summary>
+public sealed record MathBlock(string Source, int Line = 0) : Block;

@@ -46,7 +46,7 @@ public sealed class RecordingSurface : IDrawingSurface
 
     public void FillRect(Box box, Rgb color) => ops.Add(new Op(page, "rect", "", box.X, box.Y, box.Width, box.Height));
     public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) => ops.Add(new Op(page, "line", "", x1, y1, x2 - x1, y2 - y1));
-    public void Figure(string id, byte[] pdf, int page, Box box) => ops.Add(new Op(page, "figure", id, box.X, box.Y, box.Width, box.Height));
+    public void Figure(string id, byte[] pdf, int chartPage, Box box) => ops.Add(new Op(page, "figure", id, box.X, box.Y, box.Width, box.Height));
     public void BeginLink(Box box, string url, string text)
     {
         depth++;

@@ -27,5 +27,14 @@ public abstract class Atom
     /// <summary>Starts a new page unless already at the top of one.</summary>
     public bool BreakBefore { get; init; }
 
+    /// <summary>
+    /// Atoms with the same float (a figure with its caption and source line) move together: when they do not fit
+    /// where they stand, the text that follows fills the page and they go to the top of the next one.
+    /// </summary>
+    public object? Float { get; set; }
+
+    /// <summary>What this atom holds, in a few words, for an error that names it.</summary>
+    public virtual string Describe() => GetType().Name.Replace("Atom", "").ToLowerInvariant();
+
     public abstract void Draw(IDrawingSurface surface, Theme theme, double x, double y);
 }

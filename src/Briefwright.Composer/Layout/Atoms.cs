@@ -16,6 +16,14 @@ public sealed class LinesAtom : Atom
     public string? OutlineTitle { get; init; }
     public bool RuleBelow { get; init; }
 
+    public override string Describe() => $"the text '{Start(Lines)}'";
+
+    internal static string Start(IReadOnlyList<TextLine> lines)
+    {
+        string text = string.Join(" ", lines.SelectMany(l => l.Spans).Select(s => s.Text));
+        return text.Length <= 40 ? text : text[..40] + "…";
+    }
+
     public override void Draw(IDrawingSurface surface, Theme theme, double x, double y)
     {
         if (OutlineTitle is not null) surface.Outline(OutlineLevel, OutlineTitle, y);
@@ -66,6 +74,8 @@ public sealed class ListItemAtom : Atom
     public required double Indent { get; init; }
     public required FontSpec Font { get; init; }
 
+    public override string Describe() => $"the list item '{LinesAtom.Start(Lines)}'";
+
     public override void Draw(IDrawingSurface surface, Theme theme, double x, double y)
     {
         surface.BeginTag(StructTag.LI);
@@ -91,6 +101,8 @@ public sealed class TableRowAtom : Atom
     public required double Padding { get; init; }
     public bool IsHeader { get; init; }
     public bool Striped { get; init; }
+
+    public override string Describe() => $"the table row '{LinesAtom.Start(Cells.SelectMany(c => c).ToList())}'";
 
     public override void Draw(IDrawingSurface surface, Theme theme, double x, double y)
     {
@@ -132,6 +144,8 @@ public sealed class FigureAtom : Atom
     public required double Width { get; init; }
     public required string AltText { get; init; }
 
+    public override string Describe() => $"figure '{Id}'";
+
     public override void Draw(IDrawingSurface surface, Theme theme, double x, double y)
     {
         var box = new Box(x + (theme.ContentWidth - Width) / 2, y, Width, Height);
@@ -146,6 +160,8 @@ public sealed class BoxAtom : Atom
 {
     public required IReadOnlyList<(Atom Atom, double Y)> Content { get; init; }
     public required double Padding { get; init; }
+
+    public override string Describe() => Content.Count == 0 ? "an empty box" : $"the box starting with {Content[0].Atom.Describe()}";
 
     public override void Draw(IDrawingSurface surface, Theme theme, double x, double y)
     {

@@ -73,7 +73,15 @@ public static class LineBreaker
     private static IEnumerable<(string Word, TextRun Run, bool SpaceBefore)> Words(IReadOnlyList<TextRun> runs)
     {
         bool pendingSpace = false;
+        // Neighbouring runs of one style and link are one text: a Markdown reader splits "E*" into "E" and "*", and
+        // a line must not break between them.
+        var joined = new List<TextRun>();
         foreach (var run in runs)
+        {
+            if (joined.Count > 0 && joined[^1].Style == run.Style && joined[^1].Link == run.Link) joined[^1] = joined[^1] with { Text = joined[^1].Text + run.Text };
+            else joined.Add(run);
+        }
+        foreach (var run in joined)
         {
             var text = run.Text.Replace('\n', ' ');
             int i = 0;

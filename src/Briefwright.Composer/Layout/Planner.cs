@@ -27,6 +27,7 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         FigureBlock f => Figure(f, width),
         BoxBlock b => new[] { Box(b, width) },
         PageBreakBlock => new Atom[] { new BreakAtom { BreakBefore = true } },
+        MathBlock m => new[] { Equation(m, width) },
         _ => Array.Empty<Atom>(),
     };
 
@@ -122,7 +123,7 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         ? new LinesAtom
         {
             Lines = l.Lines, LineHeight = l.LineHeight, Ascent = l.Ascent, Height = l.Height, SpaceBefore = spaceBefore,
-            Group = l.Group, GroupTag = l.GroupTag, Color = l.Color, KeepWithNext = l.KeepWithNext,
+            Group = l.Group, GroupTag = l.GroupTag, Color = l.Color, KeepWithNext = l.KeepWithNext, Float = l.Float,
         }
         : a;
 
@@ -143,6 +144,9 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         if (h > maxH) { w *= maxH / h; h = maxH; }
         atoms.Add(new FigureAtom { Id = f.Id, Pdf = f.Pdf, Page = f.Page, Width = w, Height = h, SpaceBefore = 4, AltText = f.AltText, KeepWithNext = f.Source is not null });
         if (f.Source is not null) atoms.AddRange(SourceLine(f.Source, width));
+        // Caption, chart and source move as one float: text after them may fill a page they do not fit on.
+        var float_ = new object();
+        foreach (var a in atoms) a.Float = float_;
         return atoms;
     }
 
@@ -185,27 +189,48 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         return atoms;
     }
 
-    /// <summary>Column widths: each column's widest word is its minimum; the rest of the width goes in proportion to its longest cell.</summary>
+    /// <summary>Cells this short (numbers, ranges such as "63 to 67", short labels) are never wrapped.</summary>
+    public const int NoWrapLength = 16;
+
+    /// <summary>
+    /// Column widths sized from the content: a column is at least as wide as its widest short cell (see
+    /// <see cref="NoWrapLength"/>, so numbers never wrap) and its widest word; the rest of the width goes in proportion
+    /// to its longest cell. When short cells alone would overflow the table, only words are kept whole.
+    /// </summary>
     private double[] ColumnWidths(TableBlock t, double width, double size, double pad)
     {
         int cols = t.Header.Count;
-        var min = new double[cols];
+        var word = new double[cols];
+        var whole = new double[cols];
         var want = new double[cols];
+        var font = new FontSpec(RunStyle.Bold, size);
         foreach (var row in t.Rows.Prepend(t.Header))
             for (int c = 0; c < cols; c++)
             {
                 string cell = c < row.Count ? row[c] : "";
-                var font = new FontSpec(RunStyle.Bold, size);
                 double longestWord = cell.Split(' ').Select(w => measurer.Width(w, font)).DefaultIfEmpty(0).Max();
-                min[c] = Math.Max(min[c], longestWord + 2 * pad);
-                want[c] = Math.Max(want[c], measurer.Width(cell, font) + 2 * pad);
+                double full = measurer.Width(cell, font);
+                word[c] = Math.Max(word[c], longestWord + 2 * pad);
+                whole[c] = Math.Max(whole[c], (cell.Length <= NoWrapLength ? full : longestWord) + 2 * pad);
+                want[c] = Math.Max(want[c], full + 2 * pad);
             }
+        var min = whole.Sum() <= width ? whole : word;
         double totalWant = want.Sum();
         if (totalWant <= width) return want.Select(w => w * width / totalWant).ToArray();
         double spare = width - min.Sum();
         if (spare <= 0) return min.Select(m => m * width / min.Sum()).ToArray();
         double extraWant = want.Zip(min, (w, m) => w - m).Sum();
         return min.Select((m, c) => m + spare * (want[c] - m) / extraWant).ToArray();
+    }
+
+    /// <summary>Display equations are set a little larger than body text, centred, and kept with the line before them.</summary>
+    private Atom Equation(MathBlock m, double width)
+    {
+        var node = MathNotation.Parse(m.Source, m.Line);
+        var box = MathBox.Layout(node, theme.BodySize * 1.1, measurer);
+        if (box.Width > width)
+            throw new ComposeException($"the equation '{(m.Source.Length <= 40 ? m.Source : m.Source[..40] + "…")}' is {box.Width:0} pt wide and does not fit the {width:0} pt line: split it.", m.Line, m.Source);
+        return new MathAtom { Box = box, AltText = MathNotation.Spoken(node), Source = m.Source, Height = box.Ascent + box.Descent + 6, SpaceBefore = theme.ParagraphGap };
     }
 
     private Atom Box(BoxBlock b, double width)

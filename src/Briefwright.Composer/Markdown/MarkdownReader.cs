@@ -19,6 +19,7 @@ namespace Briefwright.Composer.Markdown;
 /// Turns the filled template (CommonMark with pipe tables) into blocks. Directives on a line of their own:
 /// <c>[[figure: id]]</c> places a chart, <c>[[table: caption | source]]</c> captions the next table,
 /// <c>[[pagebreak]]</c> starts a new page. A block quote becomes a shaded box whose first bold line is its title.
+/// A paragraph written <c>$$ … $$</c> is a display equation in the math notation (<see cref="Layout.MathNotation"/>).
 /// </summary>
 public static partial class MarkdownReader
 {
@@ -61,6 +62,14 @@ public static partial class MarkdownReader
                 // A directive is written as [[...]] in the template itself; escaped brackets (\[\[, as text from a
                 // scenario is written) read back as the same characters but are text, never a directive.
                 bool written = p.Span.Start >= 0 && p.Span.End < markdown.Length && markdown.AsSpan(p.Span.Start, p.Span.Length).TrimStart().StartsWith("[[", StringComparison.Ordinal);
+                // A display equation: a paragraph written $$ … $$ in the template, read from its source text so that
+                // Markdown never touches its backslashes, underscores and stars.
+                string raw = p.Span.Start >= 0 && p.Span.End < markdown.Length ? markdown.Substring(p.Span.Start, p.Span.Length).Trim() : "";
+                if (raw.Length >= 4 && raw.StartsWith("$$", StringComparison.Ordinal) && raw.EndsWith("$$", StringComparison.Ordinal))
+                {
+                    blocks.Add(new Document.MathBlock(raw[2..^2].Replace('\n', ' ').Trim(), p.Line + 1));
+                    break;
+                }
                 var m = Directive().Match(written ? plain : "");
                 if (m.Success)
                 {
