@@ -50,16 +50,17 @@ public class LanguageTests
 
     [Theory]
     //           tag      date                       page label        words the tool writes                                   decimal   percent
-    [InlineData("en-GB", "30 November 2026", "Page 1 of 10", new[] { "Key findings", "Caveats", "Technical annex", "Figure 1.", "Table 1.", "Source:" }, "100.0", "%")]
-    [InlineData("fr-FR", "30 novembre 2026", "Page 1 sur 10", new[] { "Principaux résultats", "Mises en garde", "Annexe technique", "Figure 1.", "Tableau 1.", "Source :" }, "100,0", " %")]
-    [InlineData("es-ES", "30 de noviembre de 2026", "Página 1 de 10", new[] { "Conclusiones principales", "Advertencias", "Anexo técnico", "Figura 1.", "Tabla 1.", "Fuente:" }, "100,0", " %")]
-    [InlineData("de-DE", "30. November 2026", "Seite 1 von 10", new[] { "Wichtigste Ergebnisse", "Vorbehalte", "Technischer Anhang", "Abbildung 1.", "Tabelle 1.", "Quelle:" }, "100,0", " %")]
+    [InlineData("en-GB", "30 November 2026", "Page 1 of", new[] { "Key findings", "Caveats", "Technical annex", "Figure 1.", "Table 1.", "Source:" }, "100.0", "%")]
+    [InlineData("fr-FR", "30 novembre 2026", "Page 1 sur", new[] { "Principaux résultats", "Mises en garde", "Annexe technique", "Figure 1.", "Tableau 1.", "Source :" }, "100,0", " %")]
+    [InlineData("es-ES", "30 de noviembre de 2026", "Página 1 de", new[] { "Conclusiones principales", "Advertencias", "Anexo técnico", "Figura 1.", "Tabla 1.", "Fuente:" }, "100,0", " %")]
+    [InlineData("de-DE", "30. November 2026", "Seite 1 von", new[] { "Wichtigste Ergebnisse", "Vorbehalte", "Technischer Anhang", "Abbildung 1.", "Tabelle 1.", "Quelle:" }, "100,0", " %")]
     public void Brief_follows_its_language(string tag, string date, string pageLabel, string[] words, string baselineIndex, string percent)
     {
         var brief = BuildIn(tag);
         string text = PdfText(brief.Pdf);
         Assert.Contains(date, text);
-        Assert.Contains(pageLabel, text);
+        // The page label with the brief's own page count (the German brief runs a page longer than the others).
+        Assert.Contains($"{pageLabel} {brief.PageCount}", text);
         foreach (var w in words) Assert.Contains(w, text);
         // The baseline's index in the results table is 100 to one decimal, written with the language's decimal mark.
         Assert.Contains(baselineIndex, text);
