@@ -22,6 +22,9 @@ public sealed class DocxWriter : IBriefWriter
     private const string Rel = "http://schemas.openxmlformats.org/officeDocument/2006/relationships/";
     private const string Doc = "/word/document.xml";
 
+    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
+    private static string T(string key) => Templating.BriefLanguage.Current.Format(key);
+
     public byte[] Write(BriefContent content)
     {
         var doc = content.Document;
@@ -32,7 +35,7 @@ public sealed class DocxWriter : IBriefWriter
         var body = new StringBuilder(256 * 1024);
         if (doc.Info.Marker is { } marker) body.Append(Para("Marker", Run(marker)));
         foreach (var block in doc.Blocks) builder.Add(body, block);
-        body.Append(Para("Note", Run($"Scenario {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · input hash {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}")));
+        body.Append(Para("Note", Run($"{T("output.scenario")} {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · {T("output.input_hash")} {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}")));
         bool letter = doc.Paper == PaperSize.Letter;
         body.Append("<w:sectPr><w:footerReference w:type=\"default\" r:id=\"rIdFooter\"/>")
             .Append($"<w:pgSz w:w=\"{(letter ? 12240 : 11906)}\" w:h=\"{(letter ? 15840 : 16838)}\"/>")
@@ -49,7 +52,7 @@ public sealed class DocxWriter : IBriefWriter
         package.AddXml("/word/numbering.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.numbering+xml", builder.Numbering());
         package.Relate(Doc, "rIdFooter", Rel + "footer", "/word/footer1.xml");
         package.AddXml("/word/footer1.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.footer+xml",
-            $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · page ") + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
+            $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · " + T("output.page") + " ") + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
         builder.AddImages();
         package.CoreProperties(doc.Info.Title, doc.Info.Author);
         return package.ToBytes();

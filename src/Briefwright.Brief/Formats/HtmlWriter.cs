@@ -33,7 +33,7 @@ public sealed partial class HtmlWriter : IBriefWriter
           .Append("<meta name=\"keywords\" content=\"").Append(Attr(info.Keywords)).Append("\">\n")
           .Append("<meta name=\"generator\" content=\"briefwright ").Append(Attr(ToolInfo.Version)).Append("\">\n")
           .Append("<style>\n").Append(Styles(theme, doc.FontFamily, doc.Paper)).Append("</style>\n</head>\n<body>\n")
-          .Append("<a class=\"skip\" href=\"#main\">Skip to the brief</a>\n");
+          .Append("<a class=\"skip\" href=\"#main\">").Append(Text(T("output.skip"))).Append("</a>\n");
 
         // Banner: organisation, logo, date and edition, and the draft marker.
         sb.Append("<header class=\"masthead\">\n");
@@ -58,7 +58,7 @@ public sealed partial class HtmlWriter : IBriefWriter
         var sections = headings.Where(h => h.Level == 2).ToList();
         if (sections.Count > 0)
         {
-            sb.Append("<nav aria-label=\"Contents\">\n<p class=\"toc-title\">Contents</p>\n<ol>\n");
+            sb.Append("<nav aria-label=\"").Append(Attr(T("output.contents"))).Append("\">\n<p class=\"toc-title\">").Append(Text(T("output.contents"))).Append("</p>\n<ol>\n");
             foreach (var h in sections) sb.Append("<li><a href=\"#").Append(h.Id).Append("\">").Append(Text(h.Text)).Append("</a></li>\n");
             sb.Append("</ol>\n</nav>\n");
         }
@@ -97,12 +97,15 @@ public sealed partial class HtmlWriter : IBriefWriter
         sb.Append("</main>\n");
 
         sb.Append("<footer>\n<p>").Append(Text(info.FooterNote)).Append("</p>\n")
-          .Append("<p>Results are model illustrations under stated assumptions, not forecasts; official statistics and the commissioning body's own appraisal rules prevail.</p>\n")
-          .Append("<p class=\"stamp\">Scenario ").Append(Text(content.Solved.Scenario.Brief.Id)).Append(" · ").Append(Text(info.Edition))
-          .Append(" · input hash <code>").Append(Text(content.Solved.Scenario.InputHash)).Append("</code> · briefwright ").Append(Text(ToolInfo.Version)).Append("</p>\n")
+          .Append("<p>").Append(Text(T("output.cautions"))).Append("</p>\n")
+          .Append("<p class=\"stamp\">").Append(Text(T("output.scenario"))).Append(' ').Append(Text(content.Solved.Scenario.Brief.Id)).Append(" · ").Append(Text(info.Edition))
+          .Append(" · ").Append(Text(T("output.input_hash"))).Append(" <code>").Append(Text(content.Solved.Scenario.InputHash)).Append("</code> · briefwright ").Append(Text(ToolInfo.Version)).Append("</p>\n")
           .Append("</footer>\n</body>\n</html>\n");
         return sb.ToString();
     }
+
+    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
+    private static string T(string key) => Templating.BriefLanguage.Current.Format(key);
 
     private sealed class State(IReadOnlyDictionary<string, Charts.RenderedChart> charts, Composer.Layout.Theme theme)
     {
