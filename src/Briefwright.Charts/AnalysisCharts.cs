@@ -175,7 +175,7 @@ public static class AnalysisCharts
             v.Color = Palette.Ink;
             v.LinePattern = pattern;
             v.LineWidth = 1.4f;
-            v.LegendText = $"{name}: {F(x, "0.00")}{Pct}";
+            v.LegendText = ChartWords.Text("chart.legend.percentile", "{0}: {1}", name, F(x, "0.00") + Pct);
         }
         plot.Axes.SetLimitsY(0, bars.Max(b => b.Value) * 1.15);
         ChartRenderer.LegendInside(plot, Alignment.UpperLeft);
