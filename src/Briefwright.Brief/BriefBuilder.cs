@@ -20,14 +20,21 @@ namespace Briefwright.Brief;
 /// </summary>
 public static class BriefBuilder
 {
-    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null) =>
-        Compose(ScenarioSolver.Solve(scenario, (options ?? BuildOptions.Default).ModelThreads), template, options);
+    public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null)
+    {
+        // Text the brief could not show is refused before the model runs (Compose checks again for its other callers).
+        GlyphCheck.Check(scenario, template, GlyphCheck.LanguageOf(scenario), (options ?? BuildOptions.Default).Fonts);
+        return Compose(ScenarioSolver.Solve(scenario, (options ?? BuildOptions.Default).ModelThreads), template, options);
+    }
 
     /// <summary>Everything after the model: charts, results data, filled template, layout and PDF.</summary>
     public static BuiltBrief Compose(SolvedScenario solved, BriefTemplate template, BuildOptions? options = null)
     {
         options ??= BuildOptions.Default;
         var scenario = solved.Scenario;
+        var language = GlyphCheck.LanguageOf(scenario);
+        using var languageScope = BriefLanguage.Use(language);
+        GlyphCheck.Check(scenario, template, language, options.Fonts);
         string? family = null;
         if (options.Fonts is { } fonts)
         {
@@ -61,15 +68,20 @@ public static class BriefBuilder
         var document = new BriefDocument(
             new DocumentInfo(
                 info.Title, info.ShortTitle, info.Author ?? info.Organisation,
-                "Schooling length, demography and long-run output per person",
-                "schooling; human capital; demography; balanced growth; output per person",
-                "en-GB", info.Date, $"Edition {info.Edition}" + (info.Status == "final" ? "" : $" ({info.Status})"),
-                options.Theme.Footer ?? $"{info.Organisation} · Model illustration, not a forecast")
+                T("doc.subject"), T("doc.keywords"),
+                language.Tag, info.Date, T("doc.edition", info.Edition) + (info.Status == "final" ? "" : $" ({T("status." + info.Status)})"),
+                options.Theme.Footer ?? T("doc.footer", info.Organisation))
             {
                 Logo = options.Logo,
-                Marker = info.Status switch { "final" => null, "consultation" => "CONSULTATION DRAFT", _ => "DRAFT" },
+                Marker = info.Status switch { "final" => null, "consultation" => T("marker.consultation"), _ => T("marker.draft") },
+                PageLabel = T("page.label", "{0}", "{1}"),
+                DateText = language.Date(info.Date),
             },
-            blocks) { Theme = options.PageTheme(), FontFamily = family };
+            blocks)
+        {
+            Theme = options.PageTheme() with { FigureLabel = T("layout.figure"), TableLabel = T("layout.table"), SourceLabel = T("layout.source") },
+            FontFamily = family,
+        };
         // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid out.
         var others = runner.Start(() => OutputWriters.For(formats).Select(w => new AnnexFile(w.Suffix,
             w.Write(new BriefContent(document, imaged.GetAwaiter().GetResult(), solved, json, info.Organisation)))).ToList());
@@ -99,6 +111,7 @@ public static class BriefBuilder
     public static string FillTemplate(SolvedScenario solved, IReadOnlyList<FigureRef> figures, BriefTemplate template, EditionChanges? changes = null)
     {
         var scenario = solved.Scenario;
+        using var languageScope = BriefLanguage.Use(GlyphCheck.LanguageOf(scenario));
         var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, figures,
             scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), template.Hash);
         var model = BriefModelBuilder.Build(inputs);
@@ -117,10 +130,17 @@ public static class BriefBuilder
     public static IReadOnlyList<ChartSpec> ChartSpecs(SolvedScenario solved, string? family = null, IReadOnlyList<string>? chartColours = null)
     {
         InstallChartFont();
-        ChartFont.Use(family ?? ChartFont.Family);
-        string source = $"briefwright model, scenario {solved.Scenario.Brief.Id}";
+        var scenario = solved.Scenario;
+        var language = GlyphCheck.LanguageOf(scenario);
+        using var languageScope = BriefLanguage.Use(language);
+        ChartFont.Use(ChartFont.Variant(family ?? ChartFont.Family, GlyphCheck.ChartCharacters(scenario, language)));
+        ChartWords.Use(new ChartWords.Language(key => language.Texts.TryGetValue(key, out var t) ? t.Text : null, language.Decimal));
+        string source = T("chart.source", scenario.Brief.Id);
         return ChartCatalogue.Build(new ChartContext(solved, ChartCatalogue.Styles(solved, chartColours), source));
     }
+
+    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
+    private static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
 
     /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>
     public static void InstallChartFont() => ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));

@@ -29,19 +29,17 @@ public static class ChangesModel
     {
         var text = "";
         if (changes.Assumptions.Count > 0)
-            text += Md.Table($"Assumptions changed since edition {changes.PreviousEdition} ({changes.PreviousDate})", null,
-                new[] { "Parameter", "Previous", "Now", "Source" },
-                changes.Assumptions.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "not given" }), new HashSet<int> { 1, 2 }) + "\n";
+            text += Md.Table(T("changes.assumptions_caption", changes.PreviousEdition, changes.PreviousDate), null,
+                new[] { T("table.parameter"), T("changes.previous"), T("changes.now"), T("table.source") },
+                changes.Assumptions.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? T("changes.not_given") }), new HashSet<int> { 1, 2 }) + "\n";
         if (changes.Results.Count > 0)
-            text += Md.Table($"Headline results changed since edition {changes.PreviousEdition}", null,
-                new[] { "Result", "Previous", "Now", "Difference" },
+            text += Md.Table(T("changes.results_caption", changes.PreviousEdition), null,
+                new[] { T("changes.result"), T("changes.previous"), T("changes.now"), T("changes.difference") },
                 changes.Results.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "" }), new HashSet<int> { 1, 2, 3 });
         var causes = Causes(changes, text.Length > 0);
         if (text.Length == 0)
-            return causes.Count > 0
-                ? $"No assumption or headline result changed; this edition follows {Join(causes)}.\n"
-                : "No assumption or headline result changed.\n";
-        return causes.Count > 0 ? text + $"\nThis edition also follows {Join(causes)}.\n" : text;
+            return (causes.Count > 0 ? T("changes.none_follows", Join(causes)) : T("changes.none")) + "\n";
+        return causes.Count > 0 ? text + "\n" + T("changes.also_follows", Join(causes)) + "\n" : text;
     }
 
     /// <summary>
@@ -55,24 +53,25 @@ public static class ChangesModel
             switch (cause)
             {
                 case "template":
-                    words.Add("a change of the template (the brief's wording and layout)");
+                    words.Add(T("changes.cause.template"));
                     break;
                 case "content" when changes.Assumptions.Count == 0:
-                    words.Add("a change of the scenario's other content (such as its title, question, options' wording or notes)");
+                    words.Add(T("changes.cause.content"));
                     break;
                 case "brief.edition":
-                    words.Add($"the scenario's request for edition {changes.Edition} (brief.edition)");
+                    words.Add(T("changes.cause.edition", changes.Edition));
                     break;
                 case "results":
-                    words.Add(tables ? "a new version of the tool, under which the rows above changed" : "a new version of the tool");
+                    words.Add(T(tables ? "changes.cause.tool_rows" : "changes.cause.tool"));
                     break;
                 case "files":
-                    words.Add("the previous edition's files, found incomplete or without their record");
+                    words.Add(T("changes.cause.files"));
                     break;
             }
         return words;
     }
 
-    private static string Join(IReadOnlyList<string> words) =>
-        words.Count == 1 ? words[0] : string.Join(", ", words.Take(words.Count - 1)) + " and " + words[^1];
+    private static string Join(IReadOnlyList<string> words) => Wording.List(words);
+
+    private static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
 }

@@ -21,19 +21,21 @@ public static class AnalysisCharts
 
     private static string F(double v, string f = "0.0") => ChartRenderer.Number(v, f);
 
+    private static string Pct => ChartWords.Text("number.percent", "%");
+
     /// <summary>Output per person relative to no reform, by calendar year, one line per option; the headline option's
     /// Monte Carlo band (5–95% and 25–75%), its dip and its break-even year are marked.</summary>
     public static Plot ReformPath(AppraisalResults reform, string headlineId, IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null, OptionStyles? styles = null)
     {
         styles ??= new OptionStyles(reform.Options.Select(o => o.OptionId));
         var plot = new Plot();
-        ChartRenderer.Style(plot, "Year", "Output per person vs no reform (%)");
+        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.year", "Year"), ChartWords.Text("chart.axis.vs_no_reform", "Output per person vs no reform (%)"));
         int n = Math.Min(years ?? 80, reform.HorizonYears) + 1;
         double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
         if (mc is not null)
         {
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, $"{labels[headlineId]}: 5–95% of draws");
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.3, "25–75% of draws");
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, ChartWords.Text("chart.legend.p5_p95", "{0}: 5–95% of draws", labels[headlineId]));
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.3, ChartWords.Text("chart.legend.p25_p75", "25–75% of draws"));
         }
         var zero = plot.Add.HorizontalLine(0, 1, Palette.Neutral);
         zero.LinePattern = LinePattern.Solid;
@@ -53,7 +55,7 @@ public static class AnalysisCharts
                 dip.MarkerShape = MarkerShape.FilledTriangleDown;
                 dip.MarkerSize = 9;
                 dip.Color = Palette.Neutral;
-                dip.LegendText = $"Deepest dip, {reform.ReformYear + dy}: {F(100 * depth, "0.00")}%";
+                dip.LegendText = ChartWords.Text("chart.legend.dip", "Deepest dip, {0}: {1}", reform.ReformYear + dy, F(100 * depth, "0.00") + Pct);
             }
             if (o.PresentValues[0].BreakEvenYear is { } be && be < n)
             {
@@ -61,7 +63,7 @@ public static class AnalysisCharts
                 v.Color = Palette.Neutral;
                 v.LinePattern = LinePattern.Dotted;
                 v.LineWidth = 1.2f;
-                v.LegendText = $"Break-even ({o.PresentValues[0].ScheduleLabel}): {reform.ReformYear + be}";
+                v.LegendText = ChartWords.Text("chart.legend.break_even", "Break-even ({0}): {1}", o.PresentValues[0].ScheduleLabel, reform.ReformYear + be);
             }
         }
         plot.Axes.SetLimitsX(xs[0], xs[^1]);
@@ -75,7 +77,7 @@ public static class AnalysisCharts
     {
         // Not options: the two ends of each range are drawn in the neutral tones.
         var plot = new Plot();
-        ChartRenderer.Style(plot, "Long-run change in output per person (%)", "");
+        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"), "");
         var bars = new List<Bar>();
         var ticks = new List<Tick>();
         for (int i = 0; i < rows.Count; i++)
@@ -85,7 +87,7 @@ public static class AnalysisCharts
             double lo = r.AtLow.LongRunChangePct[optionIndex], hi = r.AtHigh.LongRunChangePct[optionIndex];
             bars.Add(new Bar { Position = pos, ValueBase = central, Value = lo, FillColor = Palette.NeutralLight, Size = 0.6, Orientation = Orientation.Horizontal });
             bars.Add(new Bar { Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Neutral, Size = 0.6, Orientation = Orientation.Horizontal });
-            ticks.Add(new Tick(pos, r.Label));
+            ticks.Add(new Tick(pos, ChartWords.Text("parameter." + r.Parameter, r.Label)));
         }
         var plotBars = plot.Add.Bars(bars);
         plotBars.Horizontal = true;
@@ -93,15 +95,15 @@ public static class AnalysisCharts
         var c = plot.Add.VerticalLine(central);
         c.Color = Palette.Ink;
         c.LineWidth = 1;
-        c.LegendText = $"{optionLabel}, central assumptions: {F(central, "0.00")}%";
+        c.LegendText = ChartWords.Text("chart.legend.central", "{0}, central assumptions: {1}", optionLabel, F(central, "0.00") + Pct);
         var lowKey = plot.Add.Marker(double.NaN, double.NaN);
         lowKey.MarkerShape = MarkerShape.FilledSquare;
         lowKey.Color = Palette.NeutralLight;
-        lowKey.LegendText = "Parameter at the low end of its range";
+        lowKey.LegendText = ChartWords.Text("chart.legend.low_end", "Parameter at the low end of its range");
         var highKey = plot.Add.Marker(double.NaN, double.NaN);
         highKey.MarkerShape = MarkerShape.FilledSquare;
         highKey.Color = Palette.Neutral;
-        highKey.LegendText = "Parameter at the high end of its range";
+        highKey.LegendText = ChartWords.Text("chart.legend.high_end", "Parameter at the high end of its range");
         // Room below the shortest bars for the legend.
         plot.Axes.SetLimitsY(-3.2, rows.Count - 0.3);
         ChartRenderer.LegendInside(plot, Alignment.LowerRight);
@@ -152,7 +154,7 @@ public static class AnalysisCharts
     {
         var colour = style?.Color ?? Palette.Options[0];
         var plot = new Plot();
-        ChartRenderer.Style(plot, "Long-run change in output per person (%)", "Share of draws (%)");
+        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"), ChartWords.Text("chart.axis.share_of_draws", "Share of draws (%)"));
         var sample = mc.HeadlineChangeSample;
         double lo = sample.Min(), hi = sample.Max();
         const int bins = 30;
@@ -165,15 +167,15 @@ public static class AnalysisCharts
             Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92, FillColor = colour.WithAlpha(0.7),
         }).ToList();
         var histogram = plot.Add.Bars(bars);
-        histogram.LegendText = $"{optionLabel}: share of draws";
+        histogram.LegendText = ChartWords.Text("chart.legend.share_of_draws", "{0}: share of draws", optionLabel);
         var p = mc.Options[optionIndex].LongRunChangePct;
-        foreach (var (x, name, pattern) in new[] { (p.P5, "5th percentile", LinePattern.Dashed), (p.P50, "Median", LinePattern.Solid), (p.P95, "95th percentile", LinePattern.Dashed) })
+        foreach (var (x, name, pattern) in new[] { (p.P5, ChartWords.Text("table.p5", "5th percentile"), LinePattern.Dashed), (p.P50, ChartWords.Text("table.median", "Median"), LinePattern.Solid), (p.P95, ChartWords.Text("table.p95", "95th percentile"), LinePattern.Dashed) })
         {
             var v = plot.Add.VerticalLine(x);
             v.Color = Palette.Ink;
             v.LinePattern = pattern;
             v.LineWidth = 1.4f;
-            v.LegendText = $"{name}: {F(x, "0.00")}%";
+            v.LegendText = ChartWords.Text("chart.legend.percentile", "{0}: {1}", name, F(x, "0.00") + Pct);
         }
         plot.Axes.SetLimitsY(0, bars.Max(b => b.Value) * 1.15);
         ChartRenderer.LegendInside(plot, Alignment.UpperLeft);

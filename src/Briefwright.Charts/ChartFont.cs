@@ -14,6 +14,7 @@ public sealed class ChartFont : ScottPlot.IFontResolver
     private static readonly ChartFont Resolver = new();
     private static bool installed;
     private readonly Dictionary<string, (SKTypeface Regular, SKTypeface Bold)> families = new();
+    private readonly Dictionary<string, (byte[] Regular, byte[] Bold)> sources = new();
 
     private static readonly AsyncLocal<string?> CurrentFamily = new();
 
@@ -23,7 +24,11 @@ public sealed class ChartFont : ScottPlot.IFontResolver
     /// </summary>
     public static string Current => CurrentFamily.Value ?? Family;
 
-    private static SKTypeface Typeface(byte[] ttf) => SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(ttf, FontSubsetter.ChartCharacters)));
+    private static SKTypeface Typeface(byte[] ttf, IReadOnlyCollection<int>? extra = null)
+    {
+        var ranges = extra is null ? FontSubsetter.ChartCharacters : FontSubsetter.ChartCharacters.Concat(extra.Select(c => (c, c))).ToArray();
+        return SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(ttf, ranges)));
+    }
 
     public static void Install(byte[] regularTtf, byte[] boldTtf) => Register(Family, regularTtf, boldTtf);
 
@@ -44,8 +49,36 @@ public sealed class ChartFont : ScottPlot.IFontResolver
                 Fonts.Default = Family;
                 installed = true;
             }
-            if (!Resolver.families.ContainsKey(family)) Resolver.families[family] = (Typeface(regularTtf), Typeface(boldTtf));
+            if (!Resolver.families.ContainsKey(family))
+            {
+                Resolver.families[family] = (Typeface(regularTtf), Typeface(boldTtf));
+                Resolver.sources[family] = (regularTtf, boldTtf);
+            }
         }
+    }
+
+    /// <summary>
+    /// The family to draw charts in when their texts use <paramref name="characters"/>: <paramref name="family"/>
+    /// itself when they all lie in <see cref="FontSubsetter.ChartCharacters"/>, else a variant of it (registered here,
+    /// once per set) cut to those ranges plus every other character used, whatever its script. Characters the font
+    /// does not carry are left out here; <c>GlyphCheck</c> refuses them before any chart is drawn.
+    /// </summary>
+    public static string Variant(string family, IEnumerable<int> characters)
+    {
+        var extra = characters.Where(c => c >= 0x20 && !FontSubsetter.IsChartCharacter(c)).Distinct().Order().ToList();
+        if (extra.Count == 0) return family;
+        string name = family + " " + Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(
+            System.Text.Encoding.UTF8.GetBytes(string.Join(",", extra))))[..12];
+        lock (Gate)
+        {
+            if (!Resolver.families.ContainsKey(name))
+            {
+                if (!Resolver.sources.TryGetValue(family, out var bytes))
+                    throw new InvalidOperationException($"The chart font family '{family}' is not registered.");
+                Resolver.families[name] = (Typeface(bytes.Regular, extra), Typeface(bytes.Bold, extra));
+            }
+        }
+        return name;
     }
 
     /// <summary>Draws this thread of work's charts in <paramref name="family"/> (registered before) from now on.</summary>

@@ -40,15 +40,24 @@ public static partial class ChartRenderer
     }
 
     /// <summary>Automatic ticks labelled with a true minus sign, and <paramref name="format"/> when given.</summary>
-    public static ScottPlot.TickGenerators.NumericAutomatic Ticks(string? format = null) =>
-        new() { LabelFormatter = v => Number(v, format) };
+    public static ScottPlot.TickGenerators.NumericAutomatic Ticks(string? format = null)
+    {
+        // The decimal mark of the brief being built now: ticks are labelled later, maybe on another thread of work.
+        string? mark = ChartWords.DecimalMark;
+        return new() { LabelFormatter = v => Number(v, format, mark) };
+    }
 
-    /// <summary>A tick label: invariant digits, the minus sign U+2212, no "−0".</summary>
-    public static string Number(double v, string? format = null)
+    /// <summary>A tick label: invariant digits, the brief's decimal mark, the minus sign U+2212, no "−0".</summary>
+    public static string Number(double v, string? format = null) => Number(v, format, ChartWords.DecimalMark);
+
+    private static string Number(double v, string? format, string? mark)
     {
         if (Math.Abs(v) < 1e-12) v = 0;
         string text = v.ToString(format ?? "0.##########", System.Globalization.CultureInfo.InvariantCulture);
-        return text == "-0" ? "0" : text.Replace('-', Minus);
+        if (text == "-0") text = "0";
+        // The brief language's decimal mark (a comma in French, Spanish and German); the point stays otherwise.
+        if (mark is not null) text = text.Replace(".", mark, StringComparison.Ordinal);
+        return text.Replace('-', Minus);
     }
 
     /// <summary>A compact legend inside the data area, in the corner the chart leaves empty.</summary>

@@ -19,6 +19,61 @@ public static partial class FontSubsetter
         (0x2212, 0x2212), (0x2264, 0x2265),
     };
 
+    /// <summary>Whether <paramref name="c"/> is in <see cref="ChartCharacters"/>.</summary>
+    public static bool IsChartCharacter(int c) => ChartCharacters.Any(r => c >= r.First && c <= r.Last);
+
+    /// <summary>
+    /// Every character <paramref name="font"/> maps to a glyph (its cmap), read with HarfBuzz; null when the library
+    /// is unavailable. Read once per font file (the bytes are the key).
+    /// </summary>
+    public static IReadOnlySet<int>? Characters(byte[] font)
+    {
+        lock (Coverage)
+        {
+            if (Coverage.TryGetValue(font, out var known)) return known;
+        }
+        HashSet<int>? set;
+        try
+        {
+            set = Collect(font);
+        }
+        catch (Exception ex) when (ex is DllNotFoundException or EntryPointNotFoundException)
+        {
+            set = null;
+        }
+        lock (Coverage)
+        {
+            if (set is not null) Coverage.AddOrUpdate(font, set);
+        }
+        return set;
+    }
+
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<byte[], IReadOnlySet<int>> Coverage = new();
+
+    private static unsafe HashSet<int> Collect(byte[] font)
+    {
+        fixed (byte* data = font)
+        {
+            IntPtr blob = hb_blob_create(data, (uint)font.Length, 0 /* duplicate */, IntPtr.Zero, IntPtr.Zero);
+            IntPtr face = hb_face_create(blob, 0);
+            IntPtr set = hb_set_create();
+            try
+            {
+                hb_face_collect_unicodes(face, set);
+                var result = new HashSet<int>();
+                uint c = uint.MaxValue; // HB_SET_VALUE_INVALID: start before the first member
+                while (hb_set_next(set, ref c) != 0) result.Add((int)c);
+                return result;
+            }
+            finally
+            {
+                hb_set_destroy(set);
+                hb_face_destroy(face);
+                hb_blob_destroy(blob);
+            }
+        }
+    }
+
     /// <summary>The subset font, or the input unchanged if the subsetter is unavailable or fails.</summary>
     public static byte[] Subset(byte[] font, (int First, int Last)[] ranges)
     {
@@ -76,4 +131,8 @@ public static partial class FontSubsetter
     [LibraryImport(Lib)] private static partial void hb_blob_destroy(IntPtr blob);
     [LibraryImport(Lib)] private static partial void hb_face_destroy(IntPtr face);
     [LibraryImport(Lib)] private static partial void hb_subset_input_destroy(IntPtr input);
+    [LibraryImport(Lib)] private static partial IntPtr hb_set_create();
+    [LibraryImport(Lib)] private static partial void hb_set_destroy(IntPtr set);
+    [LibraryImport(Lib)] private static partial void hb_face_collect_unicodes(IntPtr face, IntPtr set);
+    [LibraryImport(Lib)] private static partial int hb_set_next(IntPtr set, ref uint codepoint);
 }

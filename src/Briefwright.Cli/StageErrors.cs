@@ -14,7 +14,9 @@ public enum Stage
     /// <summary>Solving it: <see cref="UnsolvableScenarioException"/> (the model's own <see cref="ModelRuleException"/>,
     /// a non-finite result, a computation that fails on these inputs).</summary>
     Model,
-    /// <summary>Parsing or filling the template: <see cref="TemplateException"/>, with positions.</summary>
+    /// <summary>Parsing or filling the template: <see cref="TemplateException"/>, with positions; and text the brief
+    /// cannot show (<see cref="BriefTextException"/>: a character the fonts lack, a language without texts), positioned
+    /// at the scenario field, template line or line of texts it came from.</summary>
     Template,
     /// <summary>Laying out the pages: <see cref="ComposeException"/>, traced back to the template.</summary>
     Layout,
@@ -42,6 +44,8 @@ public static class StageErrors
         ModelRuleException m => Model(file, m.Message),
         TemplateException t => new(Stage.Template, t.Errors.Select(e => e.ToString()).ToList(), ExitCodes.InvalidInput,
             OutcomeStatus.Invalid, "template error"),
+        BriefTextException x => new(Stage.Template, x.Errors, ExitCodes.InvalidInput, OutcomeStatus.Invalid,
+            "text the brief cannot show (a language without texts, or a character the fonts lack)"),
         ComposeException c => new(Stage.Layout, [$"{(template is null ? file : Position(template, c))}: {c.Message}"],
             ExitCodes.InvalidInput, OutcomeStatus.Invalid, c.Message),
         EditionWriteException w => new(Stage.Write, [$"{file}: cannot write the brief to {outDir}: {w.Message}."],

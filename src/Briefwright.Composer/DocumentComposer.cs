@@ -69,8 +69,9 @@ public sealed class DocumentComposer
         double right = theme.PageWidth - theme.MarginRight;
         double headerY = theme.MarginTop - 30;
         double footerY = theme.PageHeight - theme.MarginBottom + 30;
-        string date = info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture);
-        string pageText = $"Page {page + 1} of {pageCount}";
+        string date = info.DateText ?? info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture);
+        string pageText = info.PageLabel.Replace("{0}", (page + 1).ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal)
+            .Replace("{1}", pageCount.ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal);
         string headerRight = $"{date} · {info.Edition}";
         surface.BeginArtifact();
         if (page == 0 && info.Logo is { } logo)

@@ -12,7 +12,29 @@ public sealed record BriefInfo(
     DateOnly Date,
     string Status,
     int Edition,
-    string? Question);
+    string? Question,
+    string Language = LanguageTag.Default);
+
+/// <summary>A text written in the scenario, where it was written: the glyph check names it when no font carries a character.</summary>
+public sealed record TextField(string Path, Diagnostics.SourceSpan At, string Value);
+
+/// <summary>The brief's language (<c>brief.language</c>): a tag such as en-GB, fr-FR, es-ES or de-DE.</summary>
+public static class LanguageTag
+{
+    public const string Default = "en-GB";
+    public const string Pattern = "^[a-z]{2,3}(-[A-Za-z0-9]{2,8})*$";
+    public const string Description = "Language of the brief: a language tag such as en-GB (default), fr-FR, es-ES or de-DE; the tool's texts and number and date formats follow it";
+
+    /// <summary>Language subtags whose scripts run right to left, which the layout does not write yet.</summary>
+    public static readonly IReadOnlySet<string> RightToLeft = new HashSet<string>(StringComparer.Ordinal)
+    {
+        "ar", "arc", "ckb", "dv", "fa", "he", "iw", "ks", "ps", "sd", "syr", "ug", "ur", "yi",
+    };
+
+    /// <summary>Whether <paramref name="c"/> belongs to a right-to-left script (Hebrew, Arabic, Syriac, Thaana, N'Ko, …).</summary>
+    public static bool IsRightToLeft(int c) => c is (>= 0x0590 and <= 0x08FF) or (>= 0xFB1D and <= 0xFDFF) or (>= 0xFE70 and <= 0xFEFF)
+        or (>= 0x10800 and <= 0x10FFF) or (>= 0x1E800 and <= 0x1EFFF);
+}
 
 public enum ValueUnit
 {
@@ -35,6 +57,9 @@ public sealed record ScenarioDocument(
 {
     /// <summary>SHA-256 over the text of every input file, in the order read (the scenario, what it extends, life tables).</summary>
     public string InputHash { get; init; } = "";
+
+    /// <summary>Every text read from the scenario, with its position (titles, labels, names, sources, notes).</summary>
+    public IReadOnlyList<TextField> Texts { get; init; } = [];
 
     /// <summary>What the scenario says apart from brief.date and brief.edition (<see cref="ScenarioContent"/>): a new edition starts when it changes.</summary>
     public string ContentHash { get; init; } = "";

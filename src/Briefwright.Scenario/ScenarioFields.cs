@@ -54,6 +54,8 @@ public sealed record ScenarioField(string Path, FieldKind Kind, string Label)
     public string? DefaultText { get; init; }
     public string? Help { get; init; }
     public int MaxLength { get; init; } = 400;
+    /// <summary>For <see cref="FieldKind.Text"/>: a regular expression the whole value must match (the schema says it too).</summary>
+    public string? Pattern { get; init; }
     public string[] Choices { get; init; } = [];
     /// <summary>The selector field of a <see cref="FieldKind.Variants"/> mapping.</summary>
     public string? Selector { get; init; }
@@ -134,6 +136,13 @@ public static class ScenarioFields
                 + "already issued it is an error (README, \"Rebuilds, editions and the data annex\")",
         },
         T("brief.question", "The policy question", 2000),
+        T("brief.language", "Language of the brief", 35) with
+        {
+            DefaultText = LanguageTag.Default, Pattern = LanguageTag.Pattern,
+            Help = "a language tag: en-GB, fr-FR, es-ES, de-DE (any region of en, fr, es, de); the tool's words, the number and "
+                + "date formats and the PDF's language tag follow it; a right-to-left language, or right-to-left text in any "
+                + "field, is refused (the layout writes left to right only); see docs/templates.md, \"Languages\"",
+        },
 
         N("demography.population_growth", "Population growth rate", ValueUnit.Rate, Bounds.Closed(-0.1, 0.1), true)
             with { Assumption = true, Help = "n; zero and negative allowed" },

@@ -193,6 +193,8 @@ public static class ScenarioSchema
                 own["properties"] = Properties(f.Path, null, strict: true);
                 return Obj(("description", description), ("anyOf", new JsonArray(Obj(("enum", Arr(f.Choices))), own)));
             }
+            case FieldKind.Text when f.Pattern is { } pattern:
+                return Obj(("type", "string"), ("maxLength", f.MaxLength), ("pattern", pattern), ("description", description));
             case FieldKind.Text:
                 return Str(description, f.MaxLength);
             case FieldKind.Path:

@@ -38,11 +38,11 @@ internal static class AnalysisModel
 
         int k = reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
         model["sensitivity_available"] = a.Tornado.Count > 0 || a.MonteCarlo is not null;
-        model["tornado"] = new ScriptArray(a.Tornado.Select(t => Obj(("parameter", t.Parameter), ("label", t.Label),
+        model["tornado"] = new ScriptArray(a.Tornado.Select(t => Obj(("parameter", t.Parameter), ("label", ParameterLabel(t.Parameter, t.Label)),
             ("at_low", t.AtLow.LongRunChangePct[k]), ("at_high", t.AtHigh.LongRunChangePct[k]), ("swing", t.Swing),
             ("optimum_low", t.AtLow.OptimumYears), ("optimum_high", t.AtHigh.OptimumYears))));
         // Parameters whose whole range moves the headline change by less than 0.05 points: named, not assumed.
-        var still = a.Tornado.Where(t => Math.Abs(t.AtHigh.LongRunChangePct[k] - t.AtLow.LongRunChangePct[k]) < 0.05).Select(t => t.Label.ToLowerInvariant()).ToList();
+        var still = a.Tornado.Where(t => Math.Abs(t.AtHigh.LongRunChangePct[k] - t.AtLow.LongRunChangePct[k]) < 0.05).Select(t => InSentence(ParameterLabel(t.Parameter, t.Label))).ToList();
         model["tornado_still"] = still.Count == 0 ? null : Wording.List(still);
         model["has_grid"] = a.Grids.Count > 0;
         if (a.MonteCarlo is { } mc)
@@ -61,11 +61,11 @@ internal static class AnalysisModel
         {
             var idx = sobol.Indices[0];
             int top = Enumerable.Range(0, idx.Inputs.Count).MaxBy(i => idx.Total[i]);
-            model["sobol"] = Obj(("top_parameter", Parameters.Find(idx.Inputs[top])!.Label), ("top_total", idx.Total[top]),
+            model["sobol"] = Obj(("top_parameter", ParameterLabel(idx.Inputs[top], Parameters.Find(idx.Inputs[top])!.Label)), ("top_total", idx.Total[top]),
                 ("top_total_low", idx.TotalLow[top]), ("top_total_high", idx.TotalHigh[top]), ("top_first", idx.FirstOrder[top]),
                 ("top_first_low", idx.FirstOrderLow[top]), ("top_first_high", idx.FirstOrderHigh[top]),
                 ("samples", idx.Samples), ("resamples", idx.Resamples), ("level", idx.Level),
-                ("top_share", idx.Total[top] > 0.5 ? "most" : "the largest share"));
+                ("top_share", T(idx.Total[top] > 0.5 ? "sobol.most" : "sobol.largest_share")));
         }
         else model["sobol"] = null;
 
@@ -83,12 +83,12 @@ internal static class AnalysisModel
         var baseline = (ScriptObject)model["baseline"]!;
         string rule = s.RuleName(h.ScheduleId);
         int y0 = a.Reform.ReformYear;
-        string lead = $"{Wording.Capitalise(s.OptionName(h.OptionId))} {Wording.Effect(h.LongRunChangePct)} against {baseline["name"]!}, once the economy has fully adjusted.";
+        string lead = T("headline.lead", Wording.Capitalise(s.OptionName(h.OptionId)), Wording.Effect(h.LongRunChangePct), baseline["name"]);
         var decomposition = r.Levers.FirstOrDefault(l => l.OptionId == h.OptionId);
-        string? split = decomposition is { IsCombined: true } ? $"By lever: {DecompositionText(decomposition)} (each lever's average effect over the orders in which the levers could be switched)." : null;
+        string? split = decomposition is { IsCombined: true } ? T("headline.split", DecompositionText(decomposition)) : null;
         var others = ((ScriptArray)model["alternatives"]!).Cast<ScriptObject>().Where(o => (string)o["id"]! != h.OptionId).Select(o =>
         {
-            string line = $"{o["label"]}: {Wording.Effect((double)o["change_pct"]!)}";
+            string line = T("headline.other", o["label"], Wording.Effect((double)o["change_pct"]!));
             if (o["decomposition_text"] is string d) line += $" ({d})";
             return (object)Obj(("id", o["id"]), ("label", o["label"]), ("line", line + "."));
         });
@@ -108,22 +108,22 @@ internal static class AnalysisModel
         var r = a.Reform;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
         {
-            label(o.OptionId), o.Path.DipDepth is { } dd ? Change(100 * dd) : "none", Year(r.ReformYear, o.Path.DipYear),
-            Year(r.ReformYear, o.Path.FirstPositiveYear), o.PresentValues[0].BreakEvenYear is null ? "not by " + (r.ReformYear + r.HorizonYears) : Year(r.ReformYear, o.PresentValues[0].BreakEvenYear),
+            label(o.OptionId), o.Path.DipDepth is { } dd ? Change(100 * dd) : T("table.none"), Year(r.ReformYear, o.Path.DipYear),
+            Year(r.ReformYear, o.Path.FirstPositiveYear), o.PresentValues[0].BreakEvenYear is null ? T("table.not_by", r.ReformYear + r.HorizonYears) : Year(r.ReformYear, o.PresentValues[0].BreakEvenYear),
             Change(100 * o.Path.LongRunGain), Change(100 * o.Path.BalancedGrowthGain),
         });
-        return Md.Table($"The reform over time: output per person against no reform (reform from {r.ReformYear})", "briefwright cohort simulation",
-            new[] { "Option", "Deepest dip", "Year of dip", "Above no reform from", $"Pays back ({r.Options[0].PresentValues[0].ScheduleLabel})", $"Change in {r.ReformYear + r.HorizonYears}", "Once adjusted" },
+        return Md.Table(T("table.reform_caption", r.ReformYear), T("source.simulation"),
+            new[] { T("table.option"), T("table.deepest_dip"), T("table.dip_year"), T("table.above_from"), T("table.pays_back", r.Options[0].PresentValues[0].ScheduleLabel), T("table.change_in", r.ReformYear + r.HorizonYears), T("table.once_adjusted") },
             rows, new HashSet<int> { 1, 2, 3, 4, 5, 6 });
     }
 
     private static string AppraisalTable(AnalysisResults a, Func<string, string> label)
     {
         var schedules = a.Reform.Options[0].PresentValues;
-        var header = new List<string> { "Option" };
+        var header = new List<string> { T("table.option") };
         header.AddRange(schedules.Select(p => p.ScheduleLabel));
         var rows = a.Reform.Options.Select(o => (IReadOnlyList<string>)o.PresentValues.Select(pv => Pv(pv.ToHorizon)).Prepend(label(o.OptionId)).ToList());
-        return Md.Table($"Present value of the gain to {a.Reform.ReformYear + a.Reform.HorizonYears}, valued at {a.Reform.ValuationYear}, in years of {a.Reform.ValuationYear} output per person", "briefwright cohort simulation; discount rates as named, counted from " + a.Reform.ValuationYear,
+        return Md.Table(T("table.pv_caption", a.Reform.ReformYear + a.Reform.HorizonYears, a.Reform.ValuationYear), T("source.pv", a.Reform.ValuationYear),
             header, rows, Enumerable.Range(1, schedules.Count).ToHashSet());
     }
 
@@ -135,8 +135,8 @@ internal static class AnalysisModel
             label(o.OptionId), Change(o.LongRunChangePct.P5), Change(o.LongRunChangePct.P50), Change(o.LongRunChangePct.P95),
             ProbabilityWords.Cell(o.ProbabilityGain), ProbabilityWords.Cell(o.ProbabilityPositivePv),
         });
-        return Md.Table($"Uncertainty: long-run change in output per person over {Big(mc.Draws)} Monte Carlo draws (seed {mc.Seed}); probabilities with 95% intervals", "briefwright Monte Carlo; Wilson score intervals",
-            new[] { "Option", "5th percentile", "Median", "95th percentile", "Probability of a gain", "Probability PV > 0" },
+        return Md.Table(T("table.mc_caption", Big(mc.Draws), mc.Seed), T("source.mc"),
+            new[] { T("table.option"), T("table.p5"), T("table.median"), T("table.p95"), T("table.prob_gain"), T("table.prob_pv") },
             rows, new HashSet<int> { 1, 2, 3, 4, 5 });
     }
 
@@ -144,16 +144,16 @@ internal static class AnalysisModel
     {
         if (a.Sobol is not { } s) return "";
         var idx = s.Indices;
-        string Show(double v) => v is > -0.005 and < 0.005 ? "0.00" : Num(v, 2);
+        string Show(double v) => v is > -0.005 and < 0.005 ? Num(0, 2) : Num(v, 2);
         string Cell(double v, double lo, double hi) => $"{Show(v)} ({Show(lo)}–{Show(hi)})";
         var rows = Enumerable.Range(0, idx[0].Inputs.Count).OrderByDescending(i => idx[0].Total[i]).Select(i => (IReadOnlyList<string>)new[]
         {
-            Parameters.Find(idx[0].Inputs[i])!.Label, Cell(idx[0].FirstOrder[i], idx[0].FirstOrderLow[i], idx[0].FirstOrderHigh[i]),
+            ParameterLabel(idx[0].Inputs[i], Parameters.Find(idx[0].Inputs[i])!.Label), Cell(idx[0].FirstOrder[i], idx[0].FirstOrderLow[i], idx[0].FirstOrderHigh[i]),
             Cell(idx[0].Total[i], idx[0].TotalLow[i], idx[0].TotalHigh[i]), Cell(idx[1].Total[i], idx[1].TotalLow[i], idx[1].TotalHigh[i]),
             Cell(idx[2].Total[i], idx[2].TotalLow[i], idx[2].TotalHigh[i]),
         });
-        return Md.Table($"Which assumption matters most: Sobol indices ({Big(idx[0].Samples)} base samples; {Num(100 * idx[0].Level, 0)}% bootstrap intervals in brackets)", "briefwright, Saltelli sampling and estimators, bootstrap over the base samples",
-            new[] { "Parameter", "First-order, headline change", "Total, headline change", "Total, optimum E*", "Total, present value" },
+        return Md.Table(T("table.sobol_caption", Big(idx[0].Samples), Pct(idx[0].Level, 0)), T("source.sobol"),
+            new[] { T("table.parameter"), T("table.sobol_first"), T("table.sobol_total"), T("table.sobol_optimum"), T("table.sobol_pv") },
             rows, new HashSet<int> { 1, 2, 3, 4 });
     }
 
@@ -161,8 +161,15 @@ internal static class AnalysisModel
     private static string TailText(Model.Dynamics.DiscountedOptimum d, int horizon)
     {
         if (d.TailIncluded)
-            return $"The value it maximises includes the gain beyond the {horizon}-year horizon, held at its balanced-growth level and discounted to infinity.";
-        var cuts = string.Join(", ", d.ByHorizon.Select(x => $"{Years(x.SchoolingYears)} if cut at {x.HorizonYears} years"));
-        return $"The long-run discount rate does not exceed technology growth, so the gain beyond the horizon has no finite value; the value maximised is cut {horizon} years after the reform, and the optimum moves with the cut ({cuts}).";
+            return T("tail.included", horizon);
+        var cuts = string.Join(", ", d.ByHorizon.Select(x => T("tail.cut_at", Years(x.SchoolingYears), x.HorizonYears)));
+        return T("tail.cut", horizon, cuts);
     }
+
+    /// <summary>A parameter's label in the brief's language (key <c>parameter.&lt;name&gt;</c>), else the model's.</summary>
+    internal static string ParameterLabel(string name, string fallback) =>
+        BriefLanguage.Current.Texts.TryGetValue("parameter." + name, out var t) ? t.Text : fallback;
+
+    /// <summary>A label as it reads inside a sentence: lower case, except German nouns (key <c>list.lower_case</c>).</summary>
+    internal static string InSentence(string label) => BriefLanguage.Current.Get("list.lower_case") == "yes" ? label.ToLowerInvariant() : label;
 }

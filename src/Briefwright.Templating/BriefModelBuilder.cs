@@ -15,6 +15,9 @@ public static class BriefModelBuilder
     {
         var model = new ScriptObject();
         model.AddFunctions(typeof(TemplateFunctions));
+        var language = BriefLanguage.Current;
+        model.AddFunction("say", new Say(language.Format));
+        model["language"] = Obj(("code", language.Code), ("tag", language.Tag));
         var s = b.Scenario;
         var r = b.Results;
 
@@ -39,7 +42,7 @@ public static class BriefModelBuilder
         var d = s.Inputs.Demography;
         model["demography"] = Obj(("growth", d.GrowthRate), ("entry_age", d.EntryAge), ("retirement_age", d.RetirementAge),
             ("participation", d.Participation), ("survival", SurvivalText(d.Survival)),
-            ("growth_text", Math.Round(d.GrowthRate * 100, 1) > 0 ? $"growing by {Pct(d.GrowthRate)} a year" : Math.Round(d.GrowthRate * 100, 1) < 0 ? $"shrinking by {Pct(-d.GrowthRate)} a year" : "that neither grows nor shrinks"));
+            ("growth_text", Math.Round(d.GrowthRate * 100, 1) > 0 ? T("demography.growing", Pct(d.GrowthRate)) : Math.Round(d.GrowthRate * 100, 1) < 0 ? T("demography.shrinking", Pct(-d.GrowthRate)) : T("demography.steady")));
         var p = s.Inputs.Production;
         model["production"] = Obj(("saving_rate", p.SavingRate), ("capital_share", p.CapitalShare), ("depreciation", p.Depreciation),
             ("technology_growth", p.TechnologyGrowth), ("output_per_effective_worker", r.SteadyState.OutputPerEffectiveWorker),
@@ -60,6 +63,12 @@ public static class BriefModelBuilder
         model.AddFunction("reproducibility", new Func<string>(() => Reproducibility(b)));
         return model;
     }
+
+    /// <summary>A text of the brief's language, filled with <paramref name="args"/>.</summary>
+    internal static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
+
+    /// <summary>The template function <c>say "key" values…</c>: a text of the brief's language.</summary>
+    public delegate string Say(string key, params object?[] values);
 
     internal static ScriptObject Obj(params (string Key, object? Value)[] pairs)
     {
@@ -85,7 +94,7 @@ public static class BriefModelBuilder
 
     /// <summary>"schooling +8.2 points and the retirement age +4.0 points".</summary>
     public static string DecompositionText(Model.Core.LeverDecomposition d) =>
-        Wording.List(d.Levers.Select(l => $"{Wording.LeverName(l.Lever)} {Wording.Points(l.ChangePct)}").ToList());
+        Wording.List(d.Levers.Select(l => T("lever.points", Wording.LeverName(l.Lever), Wording.Points(l.ChangePct))).ToList());
 
     /// <summary>What the options that change schooling alone show about the two opposing forces, chosen from their signs.</summary>
     private static string ResultsSummary(ScenarioDocument s, BalancedGrowthResults r)
@@ -98,16 +107,17 @@ public static class BriefModelBuilder
             var set = alone.Where(l => (r.Options.First(o => o.Id == l.OptionId).SchoolingYears > baseYears) == longer).ToList();
             if (set.Count == 0) continue;
             var dirs = set.Select(l => HeadlineFacts.Of(l.TotalChangePct)).Distinct().ToList();
-            string which = set.Count == 1 ? $"In the option that {(longer ? "lengthens" : "shortens")} schooling and changes nothing else" : $"In every option that {(longer ? "lengthens" : "shortens")} schooling and changes nothing else";
-            string gainSide = longer ? "the gain in human capital per worker" : "the gain in workers per person";
-            string lossSide = longer ? "the loss of workers per person" : "the loss of human capital per worker";
+            string side = longer ? "longer" : "shorter";
+            string which = T(set.Count == 1 ? $"summary.one_{side}" : $"summary.every_{side}");
+            string gainSide = T(longer ? "summary.gain_human_capital" : "summary.gain_workers");
+            string lossSide = T(longer ? "summary.loss_workers" : "summary.loss_human_capital");
             if (dirs.Count > 1)
-                parts.Add($"Among the options that {(longer ? "lengthen" : "shorten")} schooling alone, output per person rises in some and falls in others: the balance of the two forces depends on how far schooling moves.");
+                parts.Add(T($"summary.mixed_{side}"));
             else parts.Add(dirs[0] switch
             {
-                Direction.Rise => $"{which}, {gainSide} outweighs {lossSide}: output per person rises.",
-                Direction.Fall => $"{which}, {lossSide} outweighs {gainSide}: output per person falls.",
-                _ => $"{which}, the two forces almost cancel: output per person changes by less than 0.05%.",
+                Direction.Rise => T("summary.rises", which, gainSide, lossSide),
+                Direction.Fall => T("summary.falls", which, lossSide, gainSide),
+                _ => T("summary.cancel", which),
             });
         }
         return string.Join(" ", parts);
@@ -118,9 +128,9 @@ public static class BriefModelBuilder
         var combined = r.Levers.Where(l => l.IsCombined).ToList();
         if (combined.Count == 0) return "";
         var names = Model.Core.Levers.All.Where(lever => combined.Any(c => c.Levers.Any(l => l.Lever == lever))).ToList();
-        var header = new List<string> { "Option" };
-        header.AddRange(names.Select(n => Wording.Capitalise(Wording.LeverName(n).Replace("the ", ""))));
-        header.Add("Total change");
+        var header = new List<string> { T("table.option") };
+        header.AddRange(names.Select(n => T("lever.heading." + n)));
+        header.Add(T("table.total_change"));
         var rows = combined.Select(c =>
         {
             var row = new List<string> { Md.Escape(r.Options.First(o => o.Id == c.OptionId).Label) };
@@ -128,15 +138,14 @@ public static class BriefModelBuilder
             row.Add(Change(c.TotalChangePct));
             return (IReadOnlyList<string>)row;
         });
-        return Md.Table("What each lever contributes to the long-run change in output per person (percentage points; average over the orders in which the levers can be switched)",
-            "briefwright model results", header, rows, Enumerable.Range(1, names.Count + 1).ToHashSet());
+        return Md.Table(T("table.levers_caption"), T("source.model_results"), header, rows, Enumerable.Range(1, names.Count + 1).ToHashSet());
     }
 
     public static string SurvivalText(Survival s) => s switch
     {
-        RectangularSurvival r => $"everyone lives to {Num(r.MaxAge, 0)}",
+        RectangularSurvival r => T("survival.rectangular", Num(r.MaxAge, 0)),
         GompertzMakehamSurvival g => $"Gompertz–Makeham (A = {Sig(g.A, 3)}, B = {Sig(g.B, 3)}, c = {Sig(g.C, 4)})",
-        TabulatedSurvival t => $"life table to age {Num(t.MaxAge, 0)}",
+        TabulatedSurvival t => T("survival.table", Num(t.MaxAge, 0)),
         _ => s.GetType().Name,
     };
 
@@ -146,14 +155,41 @@ public static class BriefModelBuilder
     {
         var rows = s.Assumptions.Select(a => (IReadOnlyList<string>)new[]
         {
-            a.Label, a.Text ?? FormatValue(a), SourceText(a), a.Note ?? "",
+            Label(a), ValueText(s, a), SourceText(a), a.Note ?? "",
         });
-        return Md.Table("Assumptions: every value in the scenario, with its source", $"scenario {s.Brief.Id}", new[] { "Parameter", "Value", "Source", "Note" }, rows, RightOfFirst);
+        return Md.Table(T("table.assumptions_caption"), T("source.scenario", s.Brief.Id), new[] { T("table.parameter"), T("table.value"), T("table.source"), T("table.note") }, rows, RightOfFirst);
     }
 
     /// <summary>The source column: an option without a source of its own is defined in the scenario.</summary>
-    public static string SourceText(Assumption a) => a.Source ?? (a.Path.StartsWith("options[", StringComparison.Ordinal)
-        ? "defined in this scenario" : "no source given in the scenario");
+    public static string SourceText(Assumption a) => a.Source switch
+    {
+        null => a.Path.StartsWith("options[", StringComparison.Ordinal) ? T("source.defined_here") : T("source.none_given"),
+        BriefDateSource => T("source.brief_date"),
+        _ => a.Source,
+    };
+
+    /// <summary>The source the scenario reader gives a valuation year left to its default.</summary>
+    private const string BriefDateSource = "the brief's date";
+
+    /// <summary>An assumption's value as the table shows it: the reader's text, except brackets of returns, written in the brief's language.</summary>
+    public static string ValueText(ScenarioDocument s, Assumption a) =>
+        a.Path == "human_capital.returns.brackets" && s.Inputs.HumanCapital.Returns is BracketReturns b
+            ? string.Join("; ", b.Brackets.Select(x => T("value.bracket", Localise((x.Rate * 100).ToString("0.0##", CultureInfo.InvariantCulture)) + BriefLanguage.Current.PercentSign, Num(x.FromYear, 0))))
+            : a.Text ?? FormatValue(a);
+
+    /// <summary>
+    /// An assumption's label in the brief's language: the scenario's own label for an option, else the language's
+    /// name for the field (key <c>field.&lt;path&gt;</c>), else the label the scenario reader gave it.
+    /// </summary>
+    public static string Label(Assumption a)
+    {
+        string path = System.Text.RegularExpressions.Regex.Replace(a.Path, @"\[[0-9]+\]", "[]");
+        if (!BriefLanguage.Current.Texts.TryGetValue("field." + path, out var t)) return a.Label;
+        // An option's row is labelled "Schooling: <the option's own label>": only the first part is the tool's.
+        const string optionRow = "Schooling: ";
+        return path == "options[].schooling_years" && a.Label.StartsWith(optionRow, StringComparison.Ordinal)
+            ? BriefLanguage.Current.Format("field." + path, a.Label[optionRow.Length..]) : t.Text;
+    }
 
     /// <summary>A value with its unit, once: rates as percentages, years with "years", ages bare.</summary>
     public static string FormatValue(Assumption a) => a.Value is not { } v ? "" : a.Unit switch
@@ -169,14 +205,14 @@ public static class BriefModelBuilder
         var baseY = r.Options.First(o => o.IsBaseline).OutputPerPerson;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
         {
-            o.Label + (o.IsBaseline ? " (baseline)" : ""), Num(o.SchoolingYears, 1), Num(o.WorkerShare, 3), Num(o.HumanCapitalPerWorker, 2),
+            o.Label + (o.IsBaseline ? T("table.baseline_suffix") : ""), Num(o.SchoolingYears, 1), Num(o.WorkerShare, 3), Num(o.HumanCapitalPerWorker, 2),
             Num(100 * o.OutputPerPerson / baseY, 1), o.IsBaseline ? "–" : Change(o.ChangeVsBaselinePct, 1),
         });
-        return Md.Table("Long-run output per person by option, once the economy has adjusted (balanced growth path; output per person as an index, baseline = 100)", "briefwright model results",
-            new[] { "Option", "Schooling (years)", "Workers per person", "Human capital per worker", "Output per person (baseline = 100)", "Change vs baseline" },
+        return Md.Table(T("table.results_caption"), T("source.model_results"),
+            new[] { T("table.option"), T("table.schooling_years"), T("table.workers_per_person"), T("table.human_capital"), T("table.output_index"), T("table.change_vs_baseline") },
             rows, new HashSet<int> { 1, 2, 3, 4, 5 });
     }
 
     private static string Reproducibility(BriefInputs b) =>
-        $"Inputs (scenario and every file it reads), SHA-256: `{b.InputHash}`. Template `{Md.Escape(b.TemplateName)}`, SHA-256: `{b.TemplateHash}`. Tool: briefwright {b.ToolVersion}. The brief's date comes from the scenario, so the same inputs give a byte-identical PDF.";
+        T("annex.reproducibility", b.InputHash, Md.Escape(b.TemplateName), b.TemplateHash, b.ToolVersion);
 }

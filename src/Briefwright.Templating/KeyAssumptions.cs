@@ -1,5 +1,6 @@
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
+using static Briefwright.Templating.BriefModelBuilder;
 using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
@@ -34,21 +35,21 @@ public static class KeyAssumptions
             {
                 var def = Parameters.Find(t.Parameter)!;
                 var row = Find(s, Paths.GetValueOrDefault(t.Parameter, ""));
-                string value = t.Parameter == "return_scale" ? "×1 (returns as in the annex)" : row is null ? (def.IsRate ? Pct(def.Get(s.Inputs)) : Sig(def.Get(s.Inputs), 3)) : row.Text ?? BriefModelBuilder.FormatValue(row);
-                string range = t.Parameter == "return_scale" ? $"×{Sig(t.Low, 3)} to ×{Sig(t.High, 3)}" : def.IsRate ? $"{Pct(t.Low)} to {Pct(t.High)}" : $"{Sig(t.Low, 3)} to {Sig(t.High, 3)}";
+                string value = t.Parameter == "return_scale" ? T("key.return_scale_value") : row is null ? (def.IsRate ? Pct(def.Get(s.Inputs)) : Sig(def.Get(s.Inputs), 3)) : row.Text ?? BriefModelBuilder.FormatValue(row);
+                string range = t.Parameter == "return_scale" ? T("key.range", "×" + Sig(t.Low, 3), "×" + Sig(t.High, 3)) : def.IsRate ? T("key.range", Pct(t.Low), Pct(t.High)) : T("key.range", Sig(t.Low, 3), Sig(t.High, 3));
                 return (IReadOnlyList<string>)new[]
                 {
-                    t.Label, value, range, $"{Change(t.AtLow.LongRunChangePct[k])} to {Change(t.AtHigh.LongRunChangePct[k])}",
+                    AnalysisModel.ParameterLabel(t.Parameter, t.Label), value, range, T("key.range", Change(t.AtLow.LongRunChangePct[k]), Change(t.AtHigh.LongRunChangePct[k])),
                 };
             });
-            return Md.Table($"The assumptions that move the result most, ranked by how far each moves the long-run change for {headline}", $"scenario {s.Brief.Id}; every assumption with its source is in the annex",
-                new[] { "Assumption", "Value", "Range tested", $"Long-run change across that range" }, rows, new HashSet<int> { 1, 2, 3 });
+            return Md.Table(T("key.caption_ranked", headline), T("key.source", s.Brief.Id),
+                new[] { T("key.assumption"), T("table.value"), T("key.range_tested"), T("key.change_across") }, rows, new HashSet<int> { 1, 2, 3 });
         }
         var core = Core.Select(p => Find(s, p)).Where(r => r is not null).Select(r => (IReadOnlyList<string>)new[]
         {
-            r!.Label, r.Text ?? BriefModelBuilder.FormatValue(r), BriefModelBuilder.SourceText(r),
+            BriefModelBuilder.Label(r!), r!.Text ?? BriefModelBuilder.FormatValue(r), BriefModelBuilder.SourceText(r),
         });
-        return Md.Table("The assumptions the result rests on (no sensitivity ranges were given, so they are not ranked)", $"scenario {s.Brief.Id}; every assumption with its source is in the annex",
-            new[] { "Assumption", "Value", "Source" }, core, new HashSet<int> { 1 });
+        return Md.Table(T("key.caption_unranked"), T("key.source", s.Brief.Id),
+            new[] { T("key.assumption"), T("table.value"), T("table.source") }, core, new HashSet<int> { 1 });
     }
 }

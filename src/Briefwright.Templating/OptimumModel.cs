@@ -25,26 +25,25 @@ internal static class OptimumModel
         bool flat = width >= FlatBandYears;
         string summary = shape switch
         {
-            "corner_zero" => "In this model output per person is highest with no schooling at all: it falls as soon as schooling lengthens from zero, so the model's answer lies at the edge of the feasible range, not inside it.",
-            "corner_max" => $"In this model output per person is highest at the longest schooling the assumptions allow ({Years(opt.SchoolingYears)}), so the model's answer lies at the edge of the feasible range, not inside it.",
-            _ => $"In this model output per person would be highest with {Years(opt.SchoolingYears)} of schooling ({(opt.Method == OptimumMethod.ClosedForm ? "closed form" : "numerical search")}).",
+            "corner_zero" => T("optimum.corner_zero"),
+            "corner_max" => T("optimum.corner_max", Years(opt.SchoolingYears)),
+            _ => T("optimum.interior", Years(opt.SchoolingYears), T(opt.Method == OptimumMethod.ClosedForm ? "optimum.closed_form" : "optimum.numerical")),
         };
         string band = shape == "corner_zero"
-            ? $"Any length up to {Years(opt.Within1Pct[1])} comes within 1% of that level."
-            : $"Any length between {Years(opt.Within1Pct[0])} and {Years(opt.Within1Pct[1])} comes within 1% of the maximum" +
-              (flat ? ", so the curve is flat near its top and small changes in the assumptions move the optimum a lot." : ".");
+            ? T("optimum.band_up_to", Years(opt.Within1Pct[1]))
+            : T(flat ? "optimum.band_flat" : "optimum.band", Years(opt.Within1Pct[0]), Years(opt.Within1Pct[1]));
         string? maxima = opt.LocalMaxima.Count > 1
-            ? $"Output per person has {opt.LocalMaxima.Count} local maxima over schooling length, at {Wording.List(opt.LocalMaxima.OrderBy(m => m.SchoolingYears).Select(m => Years(m.SchoolingYears)).ToList())}; the highest is the one given."
+            ? T("optimum.maxima", opt.LocalMaxima.Count, Wording.List(opt.LocalMaxima.OrderBy(m => m.SchoolingYears).Select(m => Years(m.SchoolingYears)).ToList()))
             : null;
         var d = a.Reform.Optimum;
         string rule = s.RuleName(d.ScheduleId);
         string discounted = opt.SchoolingYears <= baseline.SchoolingYears
-            ? $"The output-maximising length is no longer than the baseline's {Years(baseline.SchoolingYears)}, so no discounted optimum was searched for: that search looks only at longer schooling."
+            ? T("discounted.not_searched", Years(baseline.SchoolingYears))
             : d.SchoolingYears <= baseline.SchoolingYears + 1e-9
-                ? $"Discounted at {rule}, no schooling length between the baseline's {Years(baseline.SchoolingYears)} and {Years(opt.SchoolingYears)} gives a reform a positive present value."
+                ? T("discounted.none_positive", rule, Years(baseline.SchoolingYears), Years(opt.SchoolingYears))
                 : Years(d.SchoolingYears) == Years(opt.SchoolingYears)
-                    ? $"Discounted at {rule}, the schooling length that maximises the present value of a reform is the same, {Years(d.SchoolingYears)}, to one decimal."
-                    : $"Discounted at {rule}, the schooling length that maximises the present value of a reform is {Years(d.SchoolingYears)}, against {Years(opt.SchoolingYears)} without discounting: discounting weighs the early loss of workers against gains that arrive decades later.";
+                    ? T("discounted.same", rule, Years(d.SchoolingYears))
+                    : T("discounted.differs", rule, Years(d.SchoolingYears), Years(opt.SchoolingYears));
         return Obj(
             ("schooling_years", opt.SchoolingYears), ("low", opt.Within1Pct[0]), ("high", opt.Within1Pct[1]),
             ("method", opt.Method == OptimumMethod.ClosedForm ? "closed form" : "numerical search"), ("at_boundary", opt.AtBoundary),

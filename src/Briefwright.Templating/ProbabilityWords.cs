@@ -1,4 +1,5 @@
 using Briefwright.Model.Uncertainty;
+using static Briefwright.Templating.BriefModelBuilder;
 using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
@@ -10,10 +11,10 @@ namespace Briefwright.Templating;
 public static class ProbabilityWords
 {
     public static string Sentence(Probability p) =>
-        p.Count == p.Draws ? $"{Pct(p.Low, 1)} or more (all {Big(p.Draws)} draws; 95% interval)"
-        : p.Count == 0 ? $"{Pct(p.High, 1)} or less (none of {Big(p.Draws)} draws; 95% interval)"
-        : $"{Pct(p.Estimate, 1)} (95% interval {Pct(p.Low, 1)} to {Pct(p.High, 1)})";
+        p.Count == p.Draws ? T("probability.all", Pct(p.Low, 1), Big(p.Draws))
+        : p.Count == 0 ? T("probability.none", Pct(p.High, 1), Big(p.Draws))
+        : T("probability.some", Pct(p.Estimate, 1), Pct(p.Low, 1), Pct(p.High, 1));
 
     public static string Cell(Probability p) =>
-        p.Count == p.Draws ? $"{Pct(p.Low, 1)} or more" : p.Count == 0 ? $"{Pct(p.High, 1)} or less" : $"{Pct(p.Estimate, 1)} ({Pct(p.Low, 1)}–{Pct(p.High, 1)})";
+        p.Count == p.Draws ? T("probability.or_more", Pct(p.Low, 1)) : p.Count == 0 ? T("probability.or_less", Pct(p.High, 1)) : $"{Pct(p.Estimate, 1)} ({Pct(p.Low, 1)}–{Pct(p.High, 1)})";
 }

@@ -1,5 +1,6 @@
 using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
+using static Briefwright.Templating.BriefModelBuilder;
 using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
@@ -10,7 +11,8 @@ namespace Briefwright.Templating;
 /// </summary>
 public static class Wording
 {
-    public const string Outcome = "long-run output per person";
+    /// <summary>What the brief measures, as it reads inside a sentence ("long-run output per person").</summary>
+    public static string Outcome => T("outcome");
 
     /// <summary>"rise", "fall" or "none" for a percentage change as shown to one decimal.</summary>
     public static string DirectionWord(double changePct) => HeadlineFacts.Of(changePct) switch
@@ -23,9 +25,9 @@ public static class Wording
     /// <summary>"would raise long-run output per person by 4.1%", "would lower … by 2.7%" or "would leave … unchanged (to one decimal)".</summary>
     public static string Effect(double changePct) => HeadlineFacts.Of(changePct) switch
     {
-        Direction.Rise => $"would raise {Outcome} by {Magnitude(changePct)}",
-        Direction.Fall => $"would lower {Outcome} by {Magnitude(changePct)}",
-        _ => $"would leave {Outcome} unchanged (a change of less than 0.05%)",
+        Direction.Rise => T("effect.raise", Outcome, Magnitude(changePct)),
+        Direction.Fall => T("effect.lower", Outcome, Magnitude(changePct)),
+        _ => T("effect.none", Outcome, Localise("0.05") + BriefLanguage.Current.PercentSign),
     };
 
     /// <summary>A percentage change without its sign, for use after a direction word: −2.74 → "2.7%".</summary>
@@ -34,8 +36,10 @@ public static class Wording
     /// <summary>A change in percentage points with its sign: "+8.2 points", "−0.3 points", "0.0 points".</summary>
     public static string Points(double points)
     {
-        string s = Change(points).TrimEnd('%');
-        return s + (s is "+1.0" or "−1.0" or "1.0" ? " point" : " points");
+        string pct = BriefLanguage.Current.PercentSign;
+        string s = Change(points);
+        s = s.EndsWith(pct, StringComparison.Ordinal) ? s[..^pct.Length] : s;
+        return T(Math.Abs(Math.Round(points, 1)) == 1.0 ? "unit.point" : "unit.points", s);
     }
 
     public static string Capitalise(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];
@@ -43,9 +47,7 @@ public static class Wording
     /// <summary>How a lever reads inside a sentence.</summary>
     public static string LeverName(string lever) => lever switch
     {
-        Model.Core.Levers.Schooling => "schooling",
-        Model.Core.Levers.RetirementAge => "the retirement age",
-        Model.Core.Levers.Participation => "participation",
+        Model.Core.Levers.Schooling or Model.Core.Levers.RetirementAge or Model.Core.Levers.Participation => T("lever." + lever),
         _ => lever.Replace('_', ' '),
     };
 
@@ -54,7 +56,7 @@ public static class Wording
     {
         0 => "",
         1 => items[0],
-        _ => string.Join(", ", items.Take(items.Count - 1)) + " and " + items[^1],
+        _ => string.Join(", ", items.Take(items.Count - 1)) + T("list.and") + items[^1],
     };
 
     /// <summary>The shape of a sequence of values: "rises", "falls", "stays the same", "rises, then falls", "falls, then rises" or "rises and falls more than once".</summary>
@@ -71,10 +73,10 @@ public static class Wording
         }
         return steps.Count switch
         {
-            0 => "stays the same",
-            1 => steps[0] > 0 ? "rises" : "falls",
-            2 => steps[0] > 0 ? "rises, then falls" : "falls, then rises",
-            _ => "rises and falls more than once",
+            0 => T("trend.same"),
+            1 => steps[0] > 0 ? T("trend.rises") : T("trend.falls"),
+            2 => steps[0] > 0 ? T("trend.rises_falls") : T("trend.falls_rises"),
+            _ => T("trend.many"),
         };
     }
 
@@ -88,20 +90,21 @@ public static class Wording
         bool dipFirst = h.DeepestDipPct is not null && (h.PeakYear is null || h.DipCalendarYear < h.PeakYear);
         if (dipFirst)
         {
-            string first = $"Output per person first falls below the path without the reform, {UpTo(h.DeepestDipPct!.Value)} in {h.DipCalendarYear}";
-            if (h.FirstYearAbove is { } above) return $"{first}, and is above it from {above}.";
-            return h.FirstYearBelow is not null ? $"{first}, and is still below it in {end}." : $"{first}.";
+            string first = T("arrival.dip", UpTo(h.DeepestDipPct!.Value), h.DipCalendarYear);
+            if (h.FirstYearAbove is { } above) return T("arrival.dip_then_above", first, above);
+            return h.FirstYearBelow is not null ? T("arrival.dip_still_below", first, end) : T("arrival.sentence", first);
         }
         if (h.FirstYearBelow is { } below && h.PeakGainPct is { } peak && h.PeakYear < below)
-            return $"Output per person first rises above the path without the reform, {UpTo(peak)} in {h.PeakYear}, and is below it from {below}.";
+            return T("arrival.peak_then_below", UpTo(peak), h.PeakYear, below);
         if (h.FirstYearBelow is { } from)
-            return from <= reformYear ? "Output per person is below the path without the reform from the start." : $"Output per person is below the path without the reform from {from}.";
+            return from <= reformYear ? T("arrival.below_from_start") : T("arrival.below_from", from);
         if (h.FirstYearAbove is { } start)
-            return start <= reformYear ? "Output per person is above the path without the reform from the start." : $"Output per person is above the path without the reform from {start}.";
-        return $"Output per person stays within rounding of the path without the reform to {end}.";
+            return start <= reformYear ? T("arrival.above_from_start") : T("arrival.above_from", start);
+        return T("arrival.within_rounding", end);
     }
 
-    private static string UpTo(double pct) => HeadlineFacts.Of(pct) == Direction.None ? "by less than 0.05%" : $"by up to {Magnitude(pct)}";
+    private static string UpTo(double pct) => HeadlineFacts.Of(pct) == Direction.None
+        ? T("arrival.by_less", Localise("0.05") + BriefLanguage.Current.PercentSign) : T("arrival.by_up_to", Magnitude(pct));
 
     /// <summary>Whether and when the headline option pays back under the first appraisal rule.</summary>
     public static string Payback(HeadlineFacts h, string rule, int reformYear)
@@ -111,14 +114,14 @@ public static class Wording
         if (h.BreakEvenCalendarYear is { } be)
         {
             if (lossesFirst && be > reformYear)
-                return $"Discounted at {rule}, the later gains make up for the early losses in {be}: the reform pays back then.";
+                return T("payback.pays_back", rule, be);
             if (be <= reformYear)
-                return $"Discounted at {rule}, the running total of gains and losses is positive in every year to {end}.";
-            return $"Discounted at {rule}, the running total of gains and losses is positive from {be} to {end}.";
+                return T("payback.positive_every_year", rule, end);
+            return T("payback.positive_from", rule, be, end);
         }
         return lossesFirst && h.Direction == Direction.Rise
-            ? $"Discounted at {rule}, the reform does not pay back within the horizon to {end}."
-            : $"Discounted at {rule}, the running total of gains and losses is still negative in {end}.";
+            ? T("payback.not_within", rule, end)
+            : T("payback.still_negative", rule, end);
     }
 
     /// <summary>The 90% range sentence, or null without Monte Carlo draws.</summary>
@@ -126,9 +129,9 @@ public static class Wording
     {
         if (h.RangeLowPct is not { } lo || h.RangeHighPct is not { } hi) return null;
         if (HeadlineFacts.Of(lo) == Direction.None && HeadlineFacts.Of(hi) == Direction.None)
-            return "In 90% of the model runs with uncertain assumptions the long-run change stays within 0.05% of zero.";
-        string s = $"In 90% of the model runs with uncertain assumptions the long-run change lies between {Change(lo)} and {Change(hi)}";
+            return T("range.within_zero", Localise("0.05") + BriefLanguage.Current.PercentSign);
+        string s = T("range.between", Change(lo), Change(hi));
         bool straddles = HeadlineFacts.Of(lo) != HeadlineFacts.Of(hi);
-        return straddles && h.ProbabilityGain is { } p ? $"{s}; the chance of a gain is {Prob(p)}." : s + ".";
+        return straddles && h.ProbabilityGain is { } p ? T("range.with_chance", s, Prob(p)) : T("arrival.sentence", s);
     }
 }

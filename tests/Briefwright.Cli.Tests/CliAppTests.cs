@@ -24,7 +24,7 @@ public class CliAppTests
             var (code, output, error) = Run("check", Demo());
             Assert.Equal(0, code);
             Assert.Equal("", error);
-            Assert.Equal(5, output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length); // four scenarios and the theme
+            Assert.Equal(6, output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length); // five scenarios and the theme
         }
 
         [Fact]

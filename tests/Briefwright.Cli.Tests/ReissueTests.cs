@@ -310,8 +310,8 @@ public class ReissueTests
             // Then every job succeeds and every brief was built once, by one shard
             foreach (var r in runs) Assert.True((await r).Code == 0, (await r).Err);
             var built = LogLines(outDir).Where(l => l.GetProperty("status").GetString() == "built").Select(l => l.GetProperty("id").GetString()).ToList();
-            Assert.Equal(new[] { "auroria-eastmark", "auroria-national", "auroria-northport", "auroria-silverdale" }, built.Order());
-            Assert.Equal(4, Directory.GetFiles(outDir, "*.pdf").Length);
+            Assert.Equal(new[] { "auroria-eastmark", "auroria-national", "auroria-northport", "auroria-silverdale", "auroria-valdoree" }, built.Order());
+            Assert.Equal(5, Directory.GetFiles(outDir, "*.pdf").Length);
             Assert.Equal(2, LogLines(outDir).Select(l => l.GetProperty("shard").GetString()).Distinct().Count());
         }
     }

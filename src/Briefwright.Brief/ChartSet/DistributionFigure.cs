@@ -1,6 +1,8 @@
 using Briefwright.Charts;
 using Briefwright.Templating;
 
+using static Briefwright.Brief.ChartSet.ChartTexts;
+
 namespace Briefwright.Brief.ChartSet;
 
 /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, in its option colour.</summary>
@@ -13,8 +15,8 @@ public sealed class DistributionFigure : IChartDefinition
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
         yield return new ChartSpec("distribution", AnalysisCharts.Distribution(mc, k, headline, c.Styles[a.HeadlineOptionId]),
-            $"Distribution of the long-run change for {headline} over {mc.Draws:N0} Monte Carlo draws",
-            $"Histogram: the long-run change lies between {TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P5)} and {TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P95)} in 90% of draws, median {TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P50)}.",
+            T("chart.distribution.caption", headline, TemplateFunctions.Big(mc.Draws)),
+            T("chart.distribution.alt", TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P5), TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P95), TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P50)),
             c.Source);
     }
 }

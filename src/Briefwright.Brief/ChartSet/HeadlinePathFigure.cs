@@ -2,6 +2,8 @@ using Briefwright.Charts;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Templating;
 
+using static Briefwright.Brief.ChartSet.ChartTexts;
+
 namespace Briefwright.Brief.ChartSet;
 
 /// <summary>Page 1's chart: the headline option's path over time with its Monte Carlo band, described from its facts.</summary>
@@ -15,8 +17,8 @@ public sealed class HeadlinePathFigure : IChartDefinition
         string label = scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int years = Math.Min(HeadlinePathChart.Years, a.Reform.HorizonYears);
         yield return new ChartSpec("headline-path", HeadlinePathChart.Build(a.Reform, a.HeadlineOptionId, label, a.MonteCarlo, c.Styles),
-            $"{label}: change in output per person against no reform, {a.Reform.ReformYear}–{a.Reform.ReformYear + years}" + (a.MonteCarlo is null ? "" : ", with the range of 90% of model runs"),
-            $"Line chart over years. {Wording.Arrival(facts, a.Reform.ReformYear)}" + (a.MonteCarlo is null ? "" : " A shaded band shows where 90% of the model runs with uncertain assumptions lie."),
+            T(a.MonteCarlo is null ? "chart.headline.caption" : "chart.headline.caption_band", label, a.Reform.ReformYear, a.Reform.ReformYear + years),
+            T("chart.headline.alt", Wording.Arrival(facts, a.Reform.ReformYear)) + (a.MonteCarlo is null ? "" : T("chart.headline.alt_band")),
             c.Source);
     }
 }

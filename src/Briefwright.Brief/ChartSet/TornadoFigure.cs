@@ -1,6 +1,8 @@
 using Briefwright.Charts;
 using Briefwright.Templating;
 
+using static Briefwright.Brief.ChartSet.ChartTexts;
+
 namespace Briefwright.Brief.ChartSet;
 
 /// <summary>Tornado: the headline option's long-run change with each assumption at the ends of its range.</summary>
@@ -14,8 +16,8 @@ public sealed class TornadoFigure : IChartDefinition
         int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
         double central = c.Solved.BalancedGrowth.Options.First(o => o.Id == a.HeadlineOptionId).ChangeVsBaselinePct;
         yield return new ChartSpec("tornado", AnalysisCharts.Tornado(a.Tornado, k, central, headline),
-            $"Sensitivity of the long-run change for {headline} to each assumption",
-            $"Tornado chart: {a.Tornado[0].Label} moves the long-run change most, from {TemplateFunctions.Change(a.Tornado[0].AtLow.LongRunChangePct[k])} to {TemplateFunctions.Change(a.Tornado[0].AtHigh.LongRunChangePct[k])} across its range; the central value is {TemplateFunctions.Change(central)}.",
+            T("chart.tornado.caption", headline),
+            T("chart.tornado.alt", ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label), TemplateFunctions.Change(a.Tornado[0].AtLow.LongRunChangePct[k]), TemplateFunctions.Change(a.Tornado[0].AtHigh.LongRunChangePct[k]), TemplateFunctions.Change(central)),
             c.Source);
     }
 }

@@ -22,6 +22,9 @@ public sealed class DocxWriter : IBriefWriter
     private const string Rel = "http://schemas.openxmlformats.org/officeDocument/2006/relationships/";
     private const string Doc = "/word/document.xml";
 
+    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
+    private static string T(string key) => Templating.BriefLanguage.Current.Format(key);
+
     public byte[] Write(BriefContent content)
     {
         var doc = content.Document;
@@ -32,7 +35,7 @@ public sealed class DocxWriter : IBriefWriter
         var body = new StringBuilder(256 * 1024);
         if (doc.Info.Marker is { } marker) body.Append(Para("Marker", Run(marker)));
         foreach (var block in doc.Blocks) builder.Add(body, block);
-        body.Append(Para("Note", Run($"Scenario {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · input hash {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}")));
+        body.Append(Para("Note", Run($"{T("output.scenario")} {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · {T("output.input_hash")} {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}")));
         bool letter = doc.Paper == PaperSize.Letter;
         body.Append("<w:sectPr><w:footerReference w:type=\"default\" r:id=\"rIdFooter\"/>")
             .Append($"<w:pgSz w:w=\"{(letter ? 12240 : 11906)}\" w:h=\"{(letter ? 15840 : 16838)}\"/>")
@@ -49,7 +52,7 @@ public sealed class DocxWriter : IBriefWriter
         package.AddXml("/word/numbering.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.numbering+xml", builder.Numbering());
         package.Relate(Doc, "rIdFooter", Rel + "footer", "/word/footer1.xml");
         package.AddXml("/word/footer1.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.footer+xml",
-            $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · page ") + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
+            $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · " + T("output.page") + " ") + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
         builder.AddImages();
         package.CoreProperties(doc.Info.Title, doc.Info.Author);
         return package.ToBytes();
@@ -134,16 +137,22 @@ public sealed class DocxWriter : IBriefWriter
         }
 
         /// <summary>"Table 3. caption" with the number as a sequence field, so a word processor renumbers it.</summary>
-        private static string Caption(string kind, int number, string caption) => Para("Caption",
-            Run(kind + " ") + $"<w:fldSimple w:instr=\" SEQ {kind} \\* ARABIC \">" + Run(number.ToString(CultureInfo.InvariantCulture)) + "</w:fldSimple>" + Run(". " + caption),
-            "<w:keepNext/>");
+        /// <remarks>The words around the number are the brief's label (<paramref name="label"/>, "Figure {0}." in English).</remarks>
+        private static string Caption(string kind, string label, int number, string caption)
+        {
+            int at = label.IndexOf("{0}", StringComparison.Ordinal);
+            string before = at < 0 ? label + " " : label[..at], after = at < 0 ? "" : label[(at + 3)..];
+            return Para("Caption",
+                Run(before) + $"<w:fldSimple w:instr=\" SEQ {kind} \\* ARABIC \">" + Run(number.ToString(CultureInfo.InvariantCulture)) + "</w:fldSimple>" + Run(after + " " + caption),
+                "<w:keepNext/>");
+        }
 
-        private static string Source(string source) => Para("Note", Run("Source: ", italic: true) + Run(source));
+        private string Source(string source) => Para("Note", Run(content.Theme.SourceLabel, italic: true) + Run(source));
 
         private void Table(StringBuilder sb, TableBlock t)
         {
             tables++;
-            if (t.Caption is not null) sb.Append(Caption("Table", tables, t.Caption));
+            if (t.Caption is not null) sb.Append(Caption("Table", content.Theme.TableLabel, tables, t.Caption));
             sb.Append("<w:tbl><w:tblPr><w:tblStyle w:val=\"BriefTable\"/><w:tblW w:w=\"5000\" w:type=\"pct\"/>")
               .Append("<w:tblLook w:firstRow=\"1\" w:lastRow=\"0\" w:firstColumn=\"1\" w:lastColumn=\"0\" w:noHBand=\"0\" w:noVBand=\"1\"/>")
               .Append($"<w:tblCaption w:val=\"{X(t.Caption ?? $"Table {tables}")}\"/></w:tblPr><w:tblGrid>");
@@ -171,7 +180,7 @@ public sealed class DocxWriter : IBriefWriter
         private void Figure(StringBuilder sb, FigureBlock f)
         {
             figures++;
-            sb.Append(Caption("Figure", figures, f.Caption));
+            sb.Append(Caption("Figure", content.Theme.FigureLabel, figures, f.Caption));
             if (charts.GetValueOrDefault(f.Id)?.Png is { } png)
             {
                 images++;

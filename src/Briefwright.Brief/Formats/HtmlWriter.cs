@@ -33,7 +33,7 @@ public sealed partial class HtmlWriter : IBriefWriter
           .Append("<meta name=\"keywords\" content=\"").Append(Attr(info.Keywords)).Append("\">\n")
           .Append("<meta name=\"generator\" content=\"briefwright ").Append(Attr(ToolInfo.Version)).Append("\">\n")
           .Append("<style>\n").Append(Styles(theme, doc.FontFamily, doc.Paper)).Append("</style>\n</head>\n<body>\n")
-          .Append("<a class=\"skip\" href=\"#main\">Skip to the brief</a>\n");
+          .Append("<a class=\"skip\" href=\"#main\">").Append(Text(T("output.skip"))).Append("</a>\n");
 
         // Banner: organisation, logo, date and edition, and the draft marker.
         sb.Append("<header class=\"masthead\">\n");
@@ -41,7 +41,7 @@ public sealed partial class HtmlWriter : IBriefWriter
             sb.Append("<img class=\"logo\" src=\"data:image/png;base64,").Append(Convert.ToBase64String(logo.Png))
               .Append("\" width=\"").Append(Math.Min(logo.Width, 160)).Append("\" alt=\"").Append(Attr(content.OrganisationName)).Append("\">\n");
         sb.Append("<p class=\"org\">").Append(Text(content.OrganisationName)).Append("</p>\n")
-          .Append("<p class=\"stamp\">").Append(Text(info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture))).Append(" · ").Append(Text(info.Edition)).Append("</p>\n");
+          .Append("<p class=\"stamp\">").Append(Text(info.DateText ?? info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture))).Append(" · ").Append(Text(info.Edition)).Append("</p>\n");
         if (info.Marker is { } marker) sb.Append("<p class=\"marker\">").Append(Text(marker)).Append("</p>\n");
         sb.Append("</header>\n");
 
@@ -58,13 +58,13 @@ public sealed partial class HtmlWriter : IBriefWriter
         var sections = headings.Where(h => h.Level == 2).ToList();
         if (sections.Count > 0)
         {
-            sb.Append("<nav aria-label=\"Contents\">\n<p class=\"toc-title\">Contents</p>\n<ol>\n");
+            sb.Append("<nav aria-label=\"").Append(Attr(T("output.contents"))).Append("\">\n<p class=\"toc-title\">").Append(Text(T("output.contents"))).Append("</p>\n<ol>\n");
             foreach (var h in sections) sb.Append("<li><a href=\"#").Append(h.Id).Append("\">").Append(Text(h.Text)).Append("</a></li>\n");
             sb.Append("</ol>\n</nav>\n");
         }
 
         sb.Append("<main id=\"main\">\n");
-        var state = new State(charts);
+        var state = new State(charts, theme);
         int open = 0; // sections open: 0, 1 (level 2) or 2 (level 3)
         int heading = 0;
         foreach (var block in doc.Blocks)
@@ -97,16 +97,21 @@ public sealed partial class HtmlWriter : IBriefWriter
         sb.Append("</main>\n");
 
         sb.Append("<footer>\n<p>").Append(Text(info.FooterNote)).Append("</p>\n")
-          .Append("<p>Results are model illustrations under stated assumptions, not forecasts; official statistics and the commissioning body's own appraisal rules prevail.</p>\n")
-          .Append("<p class=\"stamp\">Scenario ").Append(Text(content.Solved.Scenario.Brief.Id)).Append(" · ").Append(Text(info.Edition))
-          .Append(" · input hash <code>").Append(Text(content.Solved.Scenario.InputHash)).Append("</code> · briefwright ").Append(Text(ToolInfo.Version)).Append("</p>\n")
+          .Append("<p>").Append(Text(T("output.cautions"))).Append("</p>\n")
+          .Append("<p class=\"stamp\">").Append(Text(T("output.scenario"))).Append(' ').Append(Text(content.Solved.Scenario.Brief.Id)).Append(" · ").Append(Text(info.Edition))
+          .Append(" · ").Append(Text(T("output.input_hash"))).Append(" <code>").Append(Text(content.Solved.Scenario.InputHash)).Append("</code> · briefwright ").Append(Text(ToolInfo.Version)).Append("</p>\n")
           .Append("</footer>\n</body>\n</html>\n");
         return sb.ToString();
     }
 
-    private sealed class State(IReadOnlyDictionary<string, Charts.RenderedChart> charts)
+    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
+    private static string T(string key) => Templating.BriefLanguage.Current.Format(key);
+
+    private sealed class State(IReadOnlyDictionary<string, Charts.RenderedChart> charts, Composer.Layout.Theme theme)
     {
         public IReadOnlyDictionary<string, Charts.RenderedChart> Charts { get; } = charts;
+        /// <summary>The brief's labels for tables, figures and sources, in its language (as in the PDF).</summary>
+        public Composer.Layout.Theme Theme { get; } = theme;
         public int Tables;
         public int Figures;
         public int Boxes;
@@ -133,10 +138,10 @@ public sealed partial class HtmlWriter : IBriefWriter
                 sb.Append(l.Ordered ? "</ol>\n" : "</ul>\n");
                 break;
             case TableBlock t:
-                Table(sb, t, ++state.Tables);
+                Table(sb, t, ++state.Tables, state.Theme);
                 break;
             case FigureBlock f:
-                Figure(sb, f, ++state.Figures, state.Charts.GetValueOrDefault(f.Id));
+                Figure(sb, f, ++state.Figures, state.Charts.GetValueOrDefault(f.Id), state.Theme);
                 break;
             case BoxBlock b:
                 string boxId = $"box-{++state.Boxes}";
@@ -154,11 +159,11 @@ public sealed partial class HtmlWriter : IBriefWriter
         }
     }
 
-    private static void Table(StringBuilder sb, TableBlock t, int number)
+    private static void Table(StringBuilder sb, TableBlock t, int number, Composer.Layout.Theme theme)
     {
         string id = $"table-{number}";
         sb.Append("<div class=\"table-wrap\" role=\"region\" tabindex=\"0\" aria-labelledby=\"").Append(id).Append("-caption\">\n<table id=\"").Append(id).Append("\">\n");
-        sb.Append("<caption id=\"").Append(id).Append("-caption\"><span class=\"label\">Table ").Append(number).Append(".</span> ").Append(Text(t.Caption ?? "")).Append("</caption>\n");
+        sb.Append("<caption id=\"").Append(id).Append("-caption\"><span class=\"label\">").Append(Text(Label(theme.TableLabel, number))).Append("</span> ").Append(Text(t.Caption ?? "")).Append("</caption>\n");
         sb.Append("<thead>\n<tr>");
         for (int c = 0; c < t.Header.Count; c++)
             sb.Append("<th scope=\"col\"").Append(AlignClass(t, c)).Append('>').Append(Text(t.Header[c])).Append("</th>");
@@ -175,7 +180,7 @@ public sealed partial class HtmlWriter : IBriefWriter
             sb.Append("</tr>\n");
         }
         sb.Append("</tbody>\n</table>\n</div>\n");
-        if (t.Source is not null) sb.Append("<p class=\"source\"><em>Source:</em> ").Append(Text(t.Source)).Append("</p>\n");
+        if (t.Source is not null) sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd())).Append("</em> ").Append(Text(t.Source)).Append("</p>\n");
     }
 
     private static string AlignClass(TableBlock t, int c) => c < t.Align.Count ? t.Align[c] switch
@@ -185,14 +190,16 @@ public sealed partial class HtmlWriter : IBriefWriter
         _ => "",
     } : "";
 
-    private static void Figure(StringBuilder sb, FigureBlock f, int number, Charts.RenderedChart? chart)
+    private static string Label(string label, int number) => label.Replace("{0}", number.ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal);
+
+    private static void Figure(StringBuilder sb, FigureBlock f, int number, Charts.RenderedChart? chart, Composer.Layout.Theme theme)
     {
         string id = "fig-" + f.Id;
-        sb.Append("<figure id=\"").Append(Attr(id)).Append("\">\n<figcaption><span class=\"label\">Figure ").Append(number).Append(".</span> ")
+        sb.Append("<figure id=\"").Append(Attr(id)).Append("\">\n<figcaption><span class=\"label\">").Append(Text(Label(theme.FigureLabel, number))).Append("</span> ")
           .Append(Text(f.Caption)).Append("</figcaption>\n");
-        if (chart?.Svg is { } svg) sb.Append(InlineSvg(svg, id, $"Figure {number}. {f.Caption}", f.AltText)).Append('\n');
+        if (chart?.Svg is { } svg) sb.Append(InlineSvg(svg, id, $"{Label(theme.FigureLabel, number)} {f.Caption}", f.AltText)).Append('\n');
         else sb.Append("<p role=\"img\" aria-label=\"").Append(Attr(f.AltText)).Append("\">").Append(Text(f.AltText)).Append("</p>\n");
-        if (f.Source is not null) sb.Append("<p class=\"source\"><em>Source:</em> ").Append(Text(f.Source)).Append("</p>\n");
+        if (f.Source is not null) sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd())).Append("</em> ").Append(Text(f.Source)).Append("</p>\n");
         sb.Append("</figure>\n");
     }
 

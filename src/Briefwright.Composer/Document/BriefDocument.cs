@@ -23,6 +23,12 @@ public sealed record DocumentInfo(
 
     /// <summary>A marker such as "DRAFT" drawn at the top of every page (as page furniture, not content); null for none.</summary>
     public string? Marker { get; init; }
+
+    /// <summary>The page number in the brief's language, {0} the page and {1} the count.</summary>
+    public string PageLabel { get; init; } = "Page {0} of {1}";
+
+    /// <summary>The date as the brief's language writes it; null for "30 November 2026".</summary>
+    public string? DateText { get; init; }
 }
 
 public sealed record BriefDocument(DocumentInfo Info, IReadOnlyList<Block> Blocks, PaperSize Paper = PaperSize.A4)

@@ -134,7 +134,7 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
 
     private IEnumerable<Atom> SourceLine(string source, double width)
     {
-        var atoms = Paragraph(new[] { new TextRun("Source: ", RunStyle.Italic), new TextRun(source) }, ParagraphRole.Note, width).ToList();
+        var atoms = Paragraph(new[] { new TextRun(theme.SourceLabel, RunStyle.Italic), new TextRun(source) }, ParagraphRole.Note, width).ToList();
         return atoms.Select((a, i) => i == 0 ? Clone(a, 3) : a);
     }
 
@@ -142,7 +142,7 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
     {
         figures++;
         var atoms = new List<Atom>();
-        atoms.AddRange(Caption($"Figure {figures}.", f.Caption, width, 12));
+        atoms.AddRange(Caption(theme.FigureLabel.Replace("{0}", figures.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal), f.Caption, width, 12));
         double w = Math.Min(width, f.WidthPt);
         double h = f.HeightPt * w / f.WidthPt;
         double maxH = theme.ContentHeight * 0.6;
@@ -159,7 +159,7 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
     {
         tables++;
         var atoms = new List<Atom>();
-        if (t.Caption is not null) atoms.AddRange(Caption($"Table {tables}.", t.Caption, width, 12));
+        if (t.Caption is not null) atoms.AddRange(Caption(theme.TableLabel.Replace("{0}", tables.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal), t.Caption, width, 12));
         double size = theme.TableSize, lh = size * 1.3, pad = 3.5;
         var regular = new FontSpec(RunStyle.Regular, size);
         int cols = t.Header.Count;

@@ -14,6 +14,13 @@ public readonly record struct FontSpec(RunStyle Style, double Size);
 /// <summary>Page geometry, type sizes and colours. All lengths in points.</summary>
 public sealed record Theme
 {
+    /// <summary>The words the layout writes itself, in the brief's language: {0} is the number.</summary>
+    public string FigureLabel { get; init; } = "Figure {0}.";
+
+    public string TableLabel { get; init; } = "Table {0}.";
+
+    public string SourceLabel { get; init; } = "Source: ";
+
     public double PageWidth { get; init; } = 595.28;
     public double PageHeight { get; init; } = 841.89;
     public double MarginLeft { get; init; } = 62;

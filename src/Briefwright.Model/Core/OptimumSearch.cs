@@ -92,12 +92,25 @@ public static class OptimumSearch
     }
 
     /// <summary>Why the closed form E* = R − a₀ + ln(1 − n/r)/n does not apply, or null when it does.</summary>
-    public static string? ClosedFormObstacle(Demography demography, HumanCapital humanCapital)
+    public static string? ClosedFormObstacle(Demography demography, HumanCapital humanCapital) => ClosedFormObstacleCode(demography, humanCapital) switch
     {
-        if (humanCapital.Returns is not ConstantReturn c) return "the return to schooling is not constant";
-        if (demography.Survival is not RectangularSurvival) return "survival is not rectangular";
-        if (humanCapital.Experience is not null) return "an experience profile is used";
-        if (!(c.Rate > demography.GrowthRate)) return "the return to schooling does not exceed population growth";
+        "return_not_constant" => "the return to schooling is not constant",
+        "survival_not_rectangular" => "survival is not rectangular",
+        "experience_profile" => "an experience profile is used",
+        "return_below_growth" => "the return to schooling does not exceed population growth",
+        _ => null,
+    };
+
+    /// <summary>
+    /// Why the closed form does not apply, as a code (return_not_constant, survival_not_rectangular,
+    /// experience_profile, return_below_growth), or null: the brief words it in its own language.
+    /// </summary>
+    public static string? ClosedFormObstacleCode(Demography demography, HumanCapital humanCapital)
+    {
+        if (humanCapital.Returns is not ConstantReturn c) return "return_not_constant";
+        if (demography.Survival is not RectangularSurvival) return "survival_not_rectangular";
+        if (humanCapital.Experience is not null) return "experience_profile";
+        if (!(c.Rate > demography.GrowthRate)) return "return_below_growth";
         return null;
     }
 

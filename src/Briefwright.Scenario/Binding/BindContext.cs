@@ -14,9 +14,11 @@ public sealed class BindContext
     private const int MaxNumberLength = 32;
     private readonly List<Diagnostic> problems = new();
     private readonly List<Assumption> assumptions = new();
+    private readonly List<TextField> texts = new();
 
     public IReadOnlyList<Diagnostic> Problems => problems;
     public IReadOnlyList<Assumption> Assumptions => assumptions;
+    public IReadOnlyList<TextField> Texts => texts;
 
     public void Report(SourceSpan at, string path, string rule, string? got) => problems.Add(new Diagnostic(at, path, rule, got));
 
@@ -137,7 +139,20 @@ public sealed class BindContext
             Report(s.At, p, $"must be at most {maxLength} characters", $"{s.Value.Length} characters");
             return null;
         }
+        if (RightToLeftAt(s.Value) is int rtl)
+        {
+            Report(s.At, p, "uses a right-to-left script, which briefs cannot be written in yet (the layout writes left to right only)", $"{Quote(s.Value)} (U+{rtl:X4} at character {s.Value.IndexOf(char.ConvertFromUtf32(rtl), StringComparison.Ordinal) + 1})");
+            return null;
+        }
+        texts.Add(new TextField(p, s.At, s.Value));
         return s.Value;
+    }
+
+    private static int? RightToLeftAt(string value)
+    {
+        foreach (var rune in value.EnumerateRunes())
+            if (LanguageTag.IsRightToLeft(rune.Value)) return rune.Value;
+        return null;
     }
 
     public string? Choice(YMapping parent, string key, string path, bool required, params string[] allowed)

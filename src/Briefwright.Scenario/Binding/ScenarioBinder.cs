@@ -16,6 +16,9 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
     [GeneratedRegex(@"^[a-z0-9][a-z0-9_-]{0,63}\z")]
     private static partial Regex IdPattern();
 
+    [GeneratedRegex(@"^[a-z]{2,3}(-[A-Za-z0-9]{2,8})*\z")]
+    private static partial Regex LanguageTagPattern();
+
     public ScenarioDocument? Bind(YNode root, IReadOnlyList<string> files)
     {
         if (root is not YMapping top)
@@ -37,7 +40,7 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         var analysis = analysisBinder.Bind(top, inputs, brief);
         return ctx.Problems.Count > 0 || analysis is null ? null : new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
         {
-            Analysis = analysis, OptionNames = optionNames!, RuleNames = analysisBinder.RuleNames,
+            Analysis = analysis, OptionNames = optionNames!, RuleNames = analysisBinder.RuleNames, Texts = ctx.Texts,
         };
     }
 
@@ -72,8 +75,19 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             edition = null;
         }
         string? question = ctx.Text(m, F("brief.question"), p);
+        string? language = ctx.Text(m, F("brief.language"), p);
+        if (language is not null && !LanguageTagPattern().IsMatch(language))
+        {
+            ctx.Report(m["language"]!.At, "brief.language", "must be a language tag such as en-GB, fr-FR, es-ES or de-DE", BindContext.Quote(language));
+            language = null;
+        }
+        else if (language is not null && LanguageTag.RightToLeft.Contains(language.Split('-')[0]))
+        {
+            ctx.Report(m["language"]!.At, "brief.language", "is a right-to-left language, which briefs cannot be written in yet (the layout writes left to right only); use en, fr, es or de", BindContext.Quote(language));
+            language = null;
+        }
         if (id is null || title is null || organisation is null || date is null || edition is null) return null;
-        return new BriefInfo(id, title, shortTitle ?? title, organisation, author, date.Value, status, (int)edition.Value, question);
+        return new BriefInfo(id, title, shortTitle ?? title, organisation, author, date.Value, status, (int)edition.Value, question, language ?? LanguageTag.Default);
     }
 
     private Demography? BindDemography(YMapping top)

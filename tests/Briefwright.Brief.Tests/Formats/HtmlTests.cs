@@ -243,3 +243,42 @@ public class HtmlTests
         }
     }
 }
+
+/// <summary>
+/// The web page and the editable document of the invented French-language demo brief (Val-Dorée) are in French: the
+/// page's lang attribute, its own words (skip link, contents, cautions), figure and table labels, source lines and date
+/// follow the brief's language, as the PDF's do. Expected words are written out here, not read from the language files.
+/// </summary>
+public class FrenchFormatsTests
+{
+    private static readonly Lazy<BuiltBrief> Brief = new(() => FormatsDemo.Build("auroria-valdoree"));
+
+    [Fact]
+    public void Web_page_is_in_the_brief_language()
+    {
+        string html = Encoding.UTF8.GetString(FormatsDemo.File(Brief.Value, "html"));
+        Assert.Contains("<html lang=\"fr-FR\"", html);
+        Assert.Contains(">Aller à la note</a>", html);
+        Assert.Contains("<p class=\"toc-title\">Sommaire</p>", html);
+        Assert.Contains("<span class=\"label\">Figure 1.</span>", html);
+        Assert.Contains("<span class=\"label\">Tableau 1.</span>", html);
+        Assert.Contains("<em>Source :</em>", html);
+        Assert.Contains("30 novembre 2026", html);
+        Assert.Contains("pas des prévisions", html);
+        foreach (var english in new[] { "Contents", "Skip to the brief", "not forecasts", "<em>Source:</em>", "Table 1.", "November" })
+            Assert.DoesNotContain(english, html);
+    }
+
+    [Fact]
+    public void Editable_document_labels_are_in_the_brief_language()
+    {
+        using var zip = new System.IO.Compression.ZipArchive(new MemoryStream(FormatsDemo.File(Brief.Value, "docx")));
+        using var reader = new StreamReader(zip.GetEntry("word/document.xml")!.Open());
+        string xml = reader.ReadToEnd();
+        Assert.Contains(">Tableau </w:t>", xml);
+        Assert.Contains(">Source : </w:t>", xml);
+        Assert.Contains(">Scénario ", xml);
+        Assert.DoesNotContain(">Table </w:t>", xml);
+        Assert.DoesNotContain(">Source: </w:t>", xml);
+    }
+}
