@@ -178,7 +178,7 @@ public static class BatchBuilder
 
     /// <summary>Whether the solved brief's assumptions as shown or headline results differ from the current edition's
     /// results file; true when that file cannot be read (the change cannot be ruled out).</summary>
-    private static bool ResultsDiffer(SolvedScenario solved, string dir, string? previousJson)
+    internal static bool ResultsDiffer(SolvedScenario solved, string dir, string? previousJson)
     {
         if (previousJson is null) return true;
         try { return BriefBuilder.ResultsDiffer(solved, File.ReadAllText(Path.Combine(dir, previousJson))); }

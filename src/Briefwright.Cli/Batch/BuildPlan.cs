@@ -80,17 +80,12 @@ public static class BuildPlan
             try
             {
                 var solved = ScenarioSolver.Solve(scenario, settings.Options.ModelThreads);
-                string json = File.ReadAllText(Path.Combine(dir, build.CompareWith!));
-                build = EditionPlanner.Settle(build, request, state, BriefBuilder.ResultsDiffer(solved, json));
+                build = EditionPlanner.Settle(build, request, state, BatchBuilder.ResultsDiffer(solved, dir, build.CompareWith));
             }
             catch (Exception ex) when (ex is UnsolvableScenarioException or ModelRuleException)
             {
                 var failure = StageErrors.Describe(ex, file);
                 return new PlannedBrief(file, id, "invalid", null, state.Edition, null, before, [], failure.Summary) { Messages = failure.Lines, Out = dir };
-            }
-            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or JsonException or KeyNotFoundException or InvalidOperationException)
-            {
-                build = EditionPlanner.Settle(build, request, state, resultsChanged: true);
             }
         }
         string stem = BriefBuilder.FileStem(id, scenario.Brief.Date, build.Edition);
