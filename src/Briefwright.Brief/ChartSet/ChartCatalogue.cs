@@ -2,8 +2,9 @@ using Briefwright.Charts;
 
 namespace Briefwright.Brief.ChartSet;
 
-/// <summary>What every chart definition is given: the solved scenario, the options' styles for this brief, the source line.</summary>
-public sealed record ChartContext(SolvedScenario Solved, OptionStyles Styles, string Source);
+/// <summary>What every chart definition is given: the solved scenario, the options' styles for this brief, the source
+/// line, and what the brief's charts are drawn with (their font and words).</summary>
+public sealed record ChartContext(SolvedScenario Solved, OptionStyles Styles, string Source, ChartDrawing Drawing);
 
 /// <summary>
 /// One chart of the brief, defined in one place: its id, plot, caption, alternative text and source. A definition

@@ -14,7 +14,7 @@ public sealed class DistributionFigure : IChartDefinition
         if (a.MonteCarlo is not { } mc) yield break;
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
-        yield return new ChartSpec("distribution", AnalysisCharts.Distribution(mc, k, headline, c.Styles[a.HeadlineOptionId]),
+        yield return new ChartSpec("distribution", AnalysisCharts.Distribution(c.Drawing, mc, k, headline, c.Styles[a.HeadlineOptionId]),
             T("chart.distribution.caption", headline, TemplateFunctions.Big(mc.Draws)),
             T("chart.distribution.alt", TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P5), TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P95), TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P50)),
             c.Source);

@@ -17,7 +17,7 @@ public sealed class HeatmapFigure : IChartDefinition
             string what = grid.Spec.Output == "optimum" ? T("chart.heatmap.optimum") : T("chart.heatmap.change", headline);
             string x = ParameterLabel(grid.Spec.X, Parameters.Find(grid.Spec.X)!.Label), y = ParameterLabel(grid.Spec.Y, Parameters.Find(grid.Spec.Y)!.Label);
             var values = grid.Values.SelectMany(v => v).Where(v => v is not null).Select(v => v!.Value).ToList();
-            yield return new ChartSpec(i == 0 ? "heatmap" : $"heatmap-{i + 1}", AnalysisCharts.Heatmap(grid, Axis(grid.Spec.X, x), Axis(grid.Spec.Y, y), what, Scale(grid.Spec.X), Scale(grid.Spec.Y)),
+            yield return new ChartSpec(i == 0 ? "heatmap" : $"heatmap-{i + 1}", AnalysisCharts.Heatmap(c.Drawing, grid, Axis(grid.Spec.X, x), Axis(grid.Spec.Y, y), what, Scale(grid.Spec.X), Scale(grid.Spec.Y)),
                 T("chart.heatmap.caption", what, InSentence(x), InSentence(y)),
                 T(grid.Invalid > 0 ? "chart.heatmap.alt_blank" : "chart.heatmap.alt", InSentence(what), F(values.Min()), F(values.Max()), grid.Invalid),
                 c.Source);

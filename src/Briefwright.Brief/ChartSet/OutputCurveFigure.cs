@@ -12,7 +12,7 @@ public sealed class OutputCurveFigure : IChartDefinition
     public IEnumerable<ChartSpec> Build(ChartContext c)
     {
         var results = c.Solved.BalancedGrowth;
-        yield return new ChartSpec("output-curve", SchoolingCharts.OutputCurve(results, c.Styles),
+        yield return new ChartSpec("output-curve", SchoolingCharts.OutputCurve(c.Drawing, results, c.Styles),
             T("chart.curve.caption"),
             AltText(results), c.Source);
     }

@@ -15,7 +15,7 @@ public sealed class TornadoFigure : IChartDefinition
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
         double central = c.Solved.BalancedGrowth.Options.First(o => o.Id == a.HeadlineOptionId).ChangeVsBaselinePct;
-        yield return new ChartSpec("tornado", AnalysisCharts.Tornado(a.Tornado, k, central, headline),
+        yield return new ChartSpec("tornado", AnalysisCharts.Tornado(c.Drawing, a.Tornado, k, central, headline),
             T("chart.tornado.caption", headline),
             T("chart.tornado.alt", ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label), TemplateFunctions.Change(a.Tornado[0].AtLow.LongRunChangePct[k]), TemplateFunctions.Change(a.Tornado[0].AtHigh.LongRunChangePct[k]), TemplateFunctions.Change(central)),
             c.Source);
