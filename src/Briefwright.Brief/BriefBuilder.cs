@@ -33,7 +33,7 @@ public static class BriefBuilder
         options ??= BuildOptions.Default;
         var scenario = solved.Scenario;
         var language = GlyphCheck.LanguageOf(scenario);
-        using var languageScope = BriefLanguage.Use(language);
+        var words = new TemplateFunctions(language);
         GlyphCheck.Check(scenario, template, language, options.Fonts);
         // The brief's own fonts and words for its pages and its charts, made here and passed down; nothing is kept
         // beyond this brief.
@@ -50,7 +50,8 @@ public static class BriefBuilder
         {
             string json = ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis));
             var changes = options.PreviousEdition is { } previous
-                ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) with { Causes = options.EditionCauses, Edition = scenario.Brief.Edition }
+                ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json, language), language)
+                    with { Causes = options.EditionCauses, Edition = scenario.Brief.Edition }
                 : null;
             return (Json: json, Changes: changes, Markdown: FillTemplate(solved, figureRefs, template, changes));
         });
@@ -67,18 +68,18 @@ public static class BriefBuilder
         var document = new BriefDocument(
             new DocumentInfo(
                 info.Title, info.ShortTitle, info.Author ?? info.Organisation,
-                T("doc.subject"), T("doc.keywords"),
-                language.Tag, info.Date, T("doc.edition", info.Edition) + (info.Status == "final" ? "" : $" ({T("status." + info.Status)})"),
-                options.Theme.Footer ?? T("doc.footer", info.Organisation))
+                words.T("doc.subject"), words.T("doc.keywords"),
+                language.Tag, info.Date, words.T("doc.edition", info.Edition) + (info.Status == "final" ? "" : $" ({words.T("status." + info.Status)})"),
+                options.Theme.Footer ?? words.T("doc.footer", info.Organisation))
             {
                 Logo = options.Logo,
-                Marker = info.Status switch { "final" => null, "consultation" => T("marker.consultation"), _ => T("marker.draft") },
-                PageLabel = T("page.label", "{0}", "{1}"),
+                Marker = info.Status switch { "final" => null, "consultation" => words.T("marker.consultation"), _ => words.T("marker.draft") },
+                PageLabel = words.T("page.label", "{0}", "{1}"),
                 DateText = language.Date(info.Date),
             },
             blocks)
         {
-            Theme = options.PageTheme() with { FigureLabel = T("layout.figure"), TableLabel = T("layout.table"), SourceLabel = T("layout.source") },
+            Theme = options.PageTheme() with { FigureLabel = words.T("layout.figure"), TableLabel = words.T("layout.table"), SourceLabel = words.T("layout.source") },
             FontFamily = fonts?.Family,
         };
         // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid out.
@@ -110,11 +111,11 @@ public static class BriefBuilder
     public static string FillTemplate(SolvedScenario solved, IReadOnlyList<FigureRef> figures, BriefTemplate template, EditionChanges? changes = null)
     {
         var scenario = solved.Scenario;
-        using var languageScope = BriefLanguage.Use(GlyphCheck.LanguageOf(scenario));
+        var language = GlyphCheck.LanguageOf(scenario);
         var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, figures,
             scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), template.Hash);
-        var model = BriefModelBuilder.Build(inputs);
-        ChangesModel.Add(model, changes);
+        var model = new BriefModelBuilder(language).Build(inputs);
+        new ChangesModel(language).Add(model, changes);
         return template.Render(model);
     }
 
@@ -133,10 +134,10 @@ public static class BriefBuilder
         SolvedScenario solved, ChartDrawing? drawing = null, IReadOnlyList<string>? chartColours = null)
     {
         var scenario = solved.Scenario;
-        using var languageScope = BriefLanguage.Use(GlyphCheck.LanguageOf(scenario));
-        string source = T("chart.source", scenario.Brief.Id);
+        var texts = new ChartTexts(GlyphCheck.LanguageOf(scenario));
+        string source = texts.T("chart.source", scenario.Brief.Id);
         var context = new ChartContext(solved, ChartCatalogue.Styles(solved, chartColours), source,
-            drawing ?? ChartDrawingFor(scenario));
+            drawing ?? ChartDrawingFor(scenario), texts);
         return ChartCatalogue.Build(context);
     }
 
@@ -156,8 +157,5 @@ public static class BriefBuilder
     /// <summary>The bundled regular and bold faces as a chart font: made from bytes that never change, once.</summary>
     private static readonly Lazy<ChartFont> BundledChartFont =
         new(() => ChartFont.FromBytes(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold)));
-
-    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
-    private static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
 
 }

@@ -134,6 +134,18 @@ public static partial class ChartRenderer
         return output.ToArray();
     }
 
+    /// <summary>A tiny chart in <paramref name="drawing"/>'s font, as PDF: it goes through every step a brief's charts
+    /// take (typefaces, subsetting, layout, PDF), for a caller that wants the library started before a brief needs
+    /// it.</summary>
+    public static byte[] SamplePdf(ChartDrawing drawing)
+    {
+        var plot = new Plot();
+        Style(plot, drawing, "x", "y");
+        var line = plot.Add.ScatterLine(new double[] { 0, 1, 2 }, new double[] { 1, 3, 2 });
+        line.LegendText = "sample";
+        return ToPdf(plot);
+    }
+
     /// <summary>The width of the PNG copies in pixels: enough for a full-width slide.</summary>
     public const int PngWidth = 1600;
 

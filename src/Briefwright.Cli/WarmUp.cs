@@ -29,10 +29,7 @@ internal static class WarmUp
         {
             var drawing = new ChartDrawing(
                 ChartFont.FromBytes(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold)), ChartWords.English);
-            var plot = new ScottPlot.Plot();
-            ChartRenderer.Style(plot, drawing, "x", "y");
-            plot.Add.Scatter(new double[] { 0, 1, 2 }, new double[] { 1, 3, 2 });
-            byte[] chart = ChartRenderer.ToPdf(plot);
+            byte[] chart = ChartRenderer.SamplePdf(drawing);
 
             string markdown = BriefTemplate.Parse(
                     "# {{ title }}\n\nText with **bold** and *italic*.\n\n| a | b |\n|---|--:|\n| {{ title }} | 1.0 |\n\n"

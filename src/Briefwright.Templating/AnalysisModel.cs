@@ -3,15 +3,13 @@ using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 using Scriban.Runtime;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
 /// <summary>Template data and block placeholders for the reform over time, sensitivity and uncertainty.</summary>
-internal static class AnalysisModel
+internal sealed class AnalysisModel(BriefLanguage language) : TemplateFunctions(language)
 {
-    public static void Add(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
+    public void Add(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
     {
         string Label(string id) => s.Inputs.Options.First(o => o.Id == id).Label;
         var reform = a.Reform;
@@ -76,7 +74,7 @@ internal static class AnalysisModel
     }
 
     /// <summary>The headline option: its facts and the sentences page 1 is made of, each chosen from those facts.</summary>
-    private static ScriptObject Headline(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
+    private ScriptObject Headline(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
     {
         var h = HeadlineFacts.From(r, a);
         var option = ((ScriptArray)model["options"]!).Cast<ScriptObject>().First(o => (string)o["id"]! == h.OptionId);
@@ -85,7 +83,7 @@ internal static class AnalysisModel
         int y0 = a.Reform.ReformYear;
         string lead = T("headline.lead", Wording.Capitalise(s.OptionName(h.OptionId)), Wording.Effect(h.LongRunChangePct), baseline["name"]);
         var decomposition = r.Levers.FirstOrDefault(l => l.OptionId == h.OptionId);
-        string? split = decomposition is { IsCombined: true } ? T("headline.split", DecompositionText(decomposition)) : null;
+        string? split = decomposition is { IsCombined: true } ? T("headline.split", BriefModelBuilder.DecompositionText(decomposition)) : null;
         var others = ((ScriptArray)model["alternatives"]!).Cast<ScriptObject>().Where(o => (string)o["id"]! != h.OptionId).Select(o =>
         {
             string line = T("headline.other", o["label"], Wording.Effect((double)o["change_pct"]!));
@@ -101,9 +99,9 @@ internal static class AnalysisModel
             ("present_value", h.PresentValue), ("is_combined", decomposition?.IsCombined ?? false), ("others", new ScriptArray(others)));
     }
 
-    private static string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";
+    private string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";
 
-    private static string ReformTable(AnalysisResults a, Func<string, string> label)
+    private string ReformTable(AnalysisResults a, Func<string, string> label)
     {
         var r = a.Reform;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
@@ -117,7 +115,7 @@ internal static class AnalysisModel
             rows, new HashSet<int> { 1, 2, 3, 4, 5, 6 });
     }
 
-    private static string AppraisalTable(AnalysisResults a, Func<string, string> label)
+    private string AppraisalTable(AnalysisResults a, Func<string, string> label)
     {
         var schedules = a.Reform.Options[0].PresentValues;
         var header = new List<string> { T("table.option") };
@@ -127,7 +125,7 @@ internal static class AnalysisModel
             header, rows, Enumerable.Range(1, schedules.Count).ToHashSet());
     }
 
-    private static string UncertaintyTable(AnalysisResults a, Func<string, string> label)
+    private string UncertaintyTable(AnalysisResults a, Func<string, string> label)
     {
         if (a.MonteCarlo is not { } mc) return "";
         var rows = mc.Options.Select(o => (IReadOnlyList<string>)new[]
@@ -140,7 +138,7 @@ internal static class AnalysisModel
             rows, new HashSet<int> { 1, 2, 3, 4, 5 });
     }
 
-    private static string SobolTable(AnalysisResults a)
+    private string SobolTable(AnalysisResults a)
     {
         if (a.Sobol is not { } s) return "";
         var idx = s.Indices;
@@ -158,7 +156,7 @@ internal static class AnalysisModel
     }
 
     /// <summary>How the discounted optimum treats the value beyond the horizon, in words chosen from the result.</summary>
-    private static string TailText(Model.Dynamics.DiscountedOptimum d, int horizon)
+    private string TailText(Model.Dynamics.DiscountedOptimum d, int horizon)
     {
         if (d.TailIncluded)
             return T("tail.included", horizon);
@@ -167,9 +165,9 @@ internal static class AnalysisModel
     }
 
     /// <summary>A parameter's label in the brief's language (key <c>parameter.&lt;name&gt;</c>), else the model's.</summary>
-    internal static string ParameterLabel(string name, string fallback) =>
-        BriefLanguage.Current.Texts.TryGetValue("parameter." + name, out var t) ? t.Text : fallback;
+    internal string ParameterLabel(string name, string fallback) =>
+        L.Texts.TryGetValue("parameter." + name, out var t) ? t.Text : fallback;
 
     /// <summary>A label as it reads inside a sentence: lower case, except German nouns (key <c>list.lower_case</c>).</summary>
-    internal static string InSentence(string label) => BriefLanguage.Current.Get("list.lower_case") == "yes" ? label.ToLowerInvariant() : label;
+    internal string InSentence(string label) => L.Get("list.lower_case") == "yes" ? label.ToLowerInvariant() : label;
 }

@@ -2,16 +2,14 @@ using Briefwright.Model.Inputs;
 using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
 /// <summary>The cautions every brief carries, and those the scenario and its results call for.</summary>
-public static class Caveats
+public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language)
 {
     /// <summary>The cautions every brief carries, in the brief's language.</summary>
-    public static IReadOnlyList<string> Fixed => new[] { T("caveat.not_forecasts"), T("caveat.optimum"), T("caveat.official") };
+    public IReadOnlyList<string> Fixed => new[] { T("caveat.not_forecasts"), T("caveat.optimum"), T("caveat.official") };
 
     /// <summary>Usual ranges for a parameter check; the bounds are common practice in growth accounting, not rules.</summary>
     private static readonly (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
@@ -26,7 +24,7 @@ public static class Caveats
         ("caveat.name.return", i => (i.HumanCapital.Returns as ConstantReturn)?.Rate, 0.04, 0.15, true),
     };
 
-    public static IReadOnlyList<string> Generated(ScenarioDocument scenario, BalancedGrowthResults results, AnalysisResults? analysis = null)
+    public IReadOnlyList<string> Generated(ScenarioDocument scenario, BalancedGrowthResults results, AnalysisResults? analysis = null)
     {
         var list = new List<string>();
         var inputs = scenario.Inputs;
@@ -51,7 +49,7 @@ public static class Caveats
         return list;
     }
 
-    private static IEnumerable<string> FromAnalysis(ScenarioDocument scenario, AnalysisResults a)
+    private IEnumerable<string> FromAnalysis(ScenarioDocument scenario, AnalysisResults a)
     {
         string Label(string id) => Md.Escape(scenario.OptionName(id));
         if (a.MonteCarlo is { } mc)

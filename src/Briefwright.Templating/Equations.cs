@@ -1,15 +1,13 @@
 using System.Text;
 using Briefwright.Model.Inputs;
 using Briefwright.Model.Results;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
 /// <summary>The technical annex: the model's equations and how each number was computed.</summary>
-public static class Equations
+public sealed class Equations(BriefLanguage language) : TemplateFunctions(language)
 {
-    public static string Annex(ModelInputs inputs, BalancedGrowthResults r)
+    public string Annex(ModelInputs inputs, BalancedGrowthResults r)
     {
         var sb = new StringBuilder();
         sb.Append(T("eq.intro")).Append("\n\n");
@@ -34,7 +32,7 @@ public static class Equations
         return sb.ToString();
     }
 
-    private static string ScheduleText(HumanCapital hc)
+    private string ScheduleText(HumanCapital hc)
     {
         string schooling = hc.Returns switch
         {
@@ -47,6 +45,6 @@ public static class Equations
     }
 
     /// <summary>How the search refined each maximum, in the brief's language (the model names it in English).</summary>
-    private static string RefinementName(string refinement) =>
-        BriefLanguage.Current.Texts.TryGetValue("eq.refinement." + refinement.Replace(' ', '_'), out var t) ? t.Text : refinement;
+    private string RefinementName(string refinement) =>
+        L.Texts.TryGetValue("eq.refinement." + refinement.Replace(' ', '_'), out var t) ? t.Text : refinement;
 }

@@ -2,8 +2,6 @@ using Briefwright.Charts;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Templating;
 
-using static Briefwright.Brief.ChartSet.ChartTexts;
-
 namespace Briefwright.Brief.ChartSet;
 
 /// <summary>Page 1's chart: the headline option's path over time with its Monte Carlo band, described from its facts.</summary>
@@ -11,14 +9,15 @@ public sealed class HeadlinePathFigure : IChartDefinition
 {
     public IEnumerable<ChartSpec> Build(ChartContext c)
     {
+        var w = c.Texts;
         var a = c.Solved.Analysis;
         var scenario = c.Solved.Scenario;
         var facts = HeadlineFacts.From(c.Solved.BalancedGrowth, a);
         string label = scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int years = Math.Min(HeadlinePathChart.Years, a.Reform.HorizonYears);
         yield return new ChartSpec("headline-path", HeadlinePathChart.Build(c.Drawing, a.Reform, a.HeadlineOptionId, label, a.MonteCarlo, c.Styles),
-            T(a.MonteCarlo is null ? "chart.headline.caption" : "chart.headline.caption_band", label, a.Reform.ReformYear, a.Reform.ReformYear + years),
-            T("chart.headline.alt", Wording.Arrival(facts, a.Reform.ReformYear)) + (a.MonteCarlo is null ? "" : T("chart.headline.alt_band")),
+            w.T(a.MonteCarlo is null ? "chart.headline.caption" : "chart.headline.caption_band", label, a.Reform.ReformYear, a.Reform.ReformYear + years),
+            w.T("chart.headline.alt", w.Wording.Arrival(facts, a.Reform.ReformYear)) + (a.MonteCarlo is null ? "" : w.T("chart.headline.alt_band")),
             c.Source);
     }
 }
