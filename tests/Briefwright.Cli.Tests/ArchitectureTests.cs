@@ -98,6 +98,12 @@ public class ArchitectureTests
             // PDFsharp takes one global font resolver and asks it for faces by name: one append-only table from a
             // name derived from the font bytes to those bytes; which family a brief is set in is its RenderSession's.
             ["Briefwright.Composer.Drawing.PdfFontResolver.Registered"] = "PDFsharp's resolver is process-wide",
+            // Memos: each value is a pure function of its key, and every key is immutable content (a schedule and
+            // horizon, font bytes, a survival curve), so a memo gives every brief the answer it would compute itself.
+            ["Briefwright.Model.Dynamics.PresentValue.FactorCache"] = "memo of discount factors, at most 256 entries",
+            ["Briefwright.Model.Numerics.TiltedKernel.Cache"] = "memo of at most 16 kernels per survival curve, curves held weakly",
+            ["Briefwright.Charts.FontSubsetter.Coverage"] = "memo of a font's characters, held weakly per font",
+            ["Briefwright.Brief.GlyphCheck.Passed"] = "memo of template and language texts found in a font, at most 64",
         };
         var state = StaticMutableState(["Briefwright.Model", "Briefwright.Scenario", "Briefwright.Templating",
             "Briefwright.Charts", "Briefwright.Composer", "Briefwright.Brief"], allowed);
@@ -110,6 +116,7 @@ public class ArchitectureTests
         typeof(AsyncLocal<>), typeof(ThreadLocal<>), typeof(System.Collections.Concurrent.ConcurrentDictionary<,>),
         typeof(System.Collections.Concurrent.ConcurrentBag<>), typeof(System.Collections.Concurrent.ConcurrentQueue<>),
         typeof(Dictionary<,>), typeof(List<>), typeof(HashSet<>), typeof(Queue<>), typeof(Stack<>),
+        typeof(System.Runtime.CompilerServices.ConditionalWeakTable<,>),
     ];
 
     /// <summary>"Type.field: why" for every static field of the assemblies that is state, minus the allowed ones.</summary>
