@@ -69,17 +69,21 @@ public static class BriefBuilder
             new DocumentInfo(
                 info.Title, info.ShortTitle, info.Author ?? info.Organisation,
                 words.T("doc.subject"), words.T("doc.keywords"),
-                language.Tag, info.Date, words.T("doc.edition", info.Edition) + (info.Status == "final" ? "" : $" ({words.T("status." + info.Status)})"),
+                language.Tag, info.Date,
+                words.T("doc.edition", info.Edition)
+                + (info.Status == "final" ? "" : $" ({words.T("status." + info.Status)})"),
                 options.Theme.Footer ?? words.T("doc.footer", info.Organisation))
             {
                 Logo = options.Logo,
-                Marker = info.Status switch { "final" => null, "consultation" => words.T("marker.consultation"), _ => words.T("marker.draft") },
+                Marker = info.Status switch { "final" => null, "consultation" => words.T("marker.consultation"),
+                    _ => words.T("marker.draft") },
                 PageLabel = words.T("page.label", "{0}", "{1}"),
                 DateText = language.Date(info.Date),
             },
             blocks)
         {
-            Theme = options.PageTheme() with { FigureLabel = words.T("layout.figure"), TableLabel = words.T("layout.table"), SourceLabel = words.T("layout.source") },
+            Theme = options.PageTheme() with { FigureLabel = words.T("layout.figure"),
+                TableLabel = words.T("layout.table"), SourceLabel = words.T("layout.source") },
             FontFamily = fonts?.Family,
         };
         // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid out.
@@ -119,7 +123,8 @@ public static class BriefBuilder
         return template.Render(model);
     }
 
-    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false, FontFaces? fonts = null)
+    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false,
+        FontFaces? fonts = null)
     {
         var drawing = ChartDrawingFor(solved.Scenario, fonts);
         return ChartSpec.RenderAll(ChartSpecs(solved, drawing), drawing, withImages);

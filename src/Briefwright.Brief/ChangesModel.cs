@@ -4,8 +4,8 @@ using Scriban.Runtime;
 
 namespace Briefwright.Brief;
 
-/// <summary>Template data for the "changes since the previous edition" section: <c>changes</c> and <c>changes_table</c>,
-/// in the brief's language.</summary>
+/// <summary>Template data for the "changes since the previous edition" section: <c>changes</c> and
+/// <c>changes_table</c>, in the brief's language.</summary>
 public sealed class ChangesModel(BriefLanguage language) : TemplateFunctions(language)
 {
     public void Add(ScriptObject model, EditionChanges? changes)

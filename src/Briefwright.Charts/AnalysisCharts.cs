@@ -25,17 +25,22 @@ public static class AnalysisCharts
 
     /// <summary>Output per person relative to no reform, by calendar year, one line per option; the headline option's
     /// Monte Carlo band (5–95% and 25–75%), its dip and its break-even year are marked.</summary>
-    public static Plot ReformPath(ChartDrawing d, AppraisalResults reform, string headlineId, IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null, OptionStyles? styles = null)
+    public static Plot ReformPath(ChartDrawing d, AppraisalResults reform, string headlineId,
+        IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null,
+        OptionStyles? styles = null)
     {
         styles ??= new OptionStyles(reform.Options.Select(o => o.OptionId));
         var plot = new Plot();
-        ChartRenderer.Style(plot, d, d.Text("chart.axis.year", "Year"), d.Text("chart.axis.vs_no_reform", "Output per person vs no reform (%)"));
+        ChartRenderer.Style(plot, d, d.Text("chart.axis.year", "Year"), d.Text("chart.axis.vs_no_reform",
+            "Output per person vs no reform (%)"));
         int n = Math.Min(years ?? 80, reform.HorizonYears) + 1;
         double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
         if (mc is not null)
         {
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, d.Text("chart.legend.p5_p95", "{0}: 5–95% of draws", labels[headlineId]));
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.3, d.Text("chart.legend.p25_p75", "25–75% of draws"));
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, d.Text("chart.legend.p5_p95",
+                "{0}: 5–95% of draws", labels[headlineId]));
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.3, d.Text("chart.legend.p25_p75",
+                "25–75% of draws"));
         }
         var zero = plot.Add.HorizontalLine(0, 1, Palette.Neutral);
         zero.LinePattern = LinePattern.Solid;
@@ -55,7 +60,8 @@ public static class AnalysisCharts
                 dip.MarkerShape = MarkerShape.FilledTriangleDown;
                 dip.MarkerSize = 9;
                 dip.Color = Palette.Neutral;
-                dip.LegendText = d.Text("chart.legend.dip", "Deepest dip, {0}: {1}", reform.ReformYear + dy, F(d, 100 * depth, "0.00") + Pct(d));
+                dip.LegendText = d.Text("chart.legend.dip", "Deepest dip, {0}: {1}", reform.ReformYear + dy,
+                    F(d, 100 * depth, "0.00") + Pct(d));
             }
             if (o.PresentValues[0].BreakEvenYear is { } be && be < n)
             {
@@ -63,7 +69,8 @@ public static class AnalysisCharts
                 v.Color = Palette.Neutral;
                 v.LinePattern = LinePattern.Dotted;
                 v.LineWidth = 1.2f;
-                v.LegendText = d.Text("chart.legend.break_even", "Break-even ({0}): {1}", o.PresentValues[0].ScheduleLabel, reform.ReformYear + be);
+                v.LegendText = d.Text("chart.legend.break_even", "Break-even ({0}): {1}",
+                    o.PresentValues[0].ScheduleLabel, reform.ReformYear + be);
             }
         }
         plot.Axes.SetLimitsX(xs[0], xs[^1]);
@@ -73,11 +80,13 @@ public static class AnalysisCharts
     }
 
     /// <summary>Tornado: the headline option's long-run change with each parameter at the low and high end of its range.</summary>
-    public static Plot Tornado(ChartDrawing d, IReadOnlyList<TornadoRow> rows, int optionIndex, double central, string optionLabel)
+    public static Plot Tornado(ChartDrawing d, IReadOnlyList<TornadoRow> rows, int optionIndex, double central,
+        string optionLabel)
     {
         // Not options: the two ends of each range are drawn in the neutral tones.
         var plot = new Plot();
-        ChartRenderer.Style(plot, d, d.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"), "");
+        ChartRenderer.Style(plot, d, d.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"),
+            "");
         var bars = new List<Bar>();
         var ticks = new List<Tick>();
         for (int i = 0; i < rows.Count; i++)
@@ -95,7 +104,8 @@ public static class AnalysisCharts
         var c = plot.Add.VerticalLine(central);
         c.Color = Palette.Ink;
         c.LineWidth = 1;
-        c.LegendText = d.Text("chart.legend.central", "{0}, central assumptions: {1}", optionLabel, F(d, central, "0.00") + Pct(d));
+        c.LegendText = d.Text("chart.legend.central", "{0}, central assumptions: {1}", optionLabel,
+            F(d, central, "0.00") + Pct(d));
         var lowKey = plot.Add.Marker(double.NaN, double.NaN);
         lowKey.MarkerShape = MarkerShape.FilledSquare;
         lowKey.Color = Palette.NeutralLight;
@@ -111,7 +121,8 @@ public static class AnalysisCharts
     }
 
     /// <summary>Heat map of a grid result (E* or the long-run change) over two parameters; cells that break a model rule are left blank.</summary>
-    public static Plot Heatmap(ChartDrawing d, GridResult grid, string xLabel, string yLabel, string valueLabel, double xScale = 1, double yScale = 1)
+    public static Plot Heatmap(ChartDrawing d, GridResult grid, string xLabel, string yLabel, string valueLabel,
+        double xScale = 1, double yScale = 1)
     {
         var plot = new Plot();
         ChartRenderer.Style(plot, d, xLabel, yLabel);
@@ -152,11 +163,13 @@ public static class AnalysisCharts
     }
 
     /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
-    public static Plot Distribution(ChartDrawing d, MonteCarloResults mc, int optionIndex, string optionLabel, OptionStyle? style = null)
+    public static Plot Distribution(ChartDrawing d, MonteCarloResults mc, int optionIndex, string optionLabel,
+        OptionStyle? style = null)
     {
         var colour = style?.Color ?? Palette.Options[0];
         var plot = new Plot();
-        ChartRenderer.Style(plot, d, d.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"), d.Text("chart.axis.share_of_draws", "Share of draws (%)"));
+        ChartRenderer.Style(plot, d, d.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"),
+            d.Text("chart.axis.share_of_draws", "Share of draws (%)"));
         var sample = mc.HeadlineChangeSample;
         double lo = sample.Min(), hi = sample.Max();
         const int bins = 30;
@@ -171,7 +184,12 @@ public static class AnalysisCharts
         var histogram = plot.Add.Bars(bars);
         histogram.LegendText = d.Text("chart.legend.share_of_draws", "{0}: share of draws", optionLabel);
         var p = mc.Options[optionIndex].LongRunChangePct;
-        foreach (var (x, name, pattern) in new[] { (p.P5, d.Text("table.p5", "5th percentile"), LinePattern.Dashed), (p.P50, d.Text("table.median", "Median"), LinePattern.Solid), (p.P95, d.Text("table.p95", "95th percentile"), LinePattern.Dashed) })
+        foreach (var (x, name, pattern) in new[]
+                 {
+                     (p.P5, d.Text("table.p5", "5th percentile"), LinePattern.Dashed),
+                     (p.P50, d.Text("table.median", "Median"), LinePattern.Solid),
+                     (p.P95, d.Text("table.p95", "95th percentile"), LinePattern.Dashed),
+                 })
         {
             var v = plot.Add.VerticalLine(x);
             v.Color = Palette.Ink;

@@ -81,7 +81,8 @@ internal sealed class ChartFontResolver : IFontResolver
         return resolver;
     });
 
-    /// <summary>Adds <paramref name="family"/> (once; the typefaces are made on first use) and installs the resolver.</summary>
+    /// <summary>Adds <paramref name="family"/> (once; its typefaces are made when first used) and installs the
+    /// resolver.</summary>
     public static void Register(string family, Func<(SKTypeface Regular, SKTypeface Bold)> typefaces)
     {
         Families.TryAdd(family, new Lazy<(SKTypeface, SKTypeface)>(typefaces));
@@ -89,7 +90,8 @@ internal sealed class ChartFontResolver : IFontResolver
     }
 
     public SKTypeface? CreateTypeface(string fontName, FontWeight weight, FontSlant slant, FontSpacing spacing) =>
-        Families.TryGetValue(fontName, out var f) ? (weight >= FontWeight.SemiBold ? f.Value.Bold : f.Value.Regular) : null;
+        Families.TryGetValue(fontName, out var f)
+            ? (weight >= FontWeight.SemiBold ? f.Value.Bold : f.Value.Regular) : null;
 
     public SKTypeface? CreateTypeface(string fontName, bool bold, bool italic) =>
         Families.TryGetValue(fontName, out var f) ? (bold ? f.Value.Bold : f.Value.Regular) : null;

@@ -42,10 +42,11 @@ public static partial class ChartRenderer
 
     /// <summary>
     /// The family on the plot's title, axis titles, tick labels and legend, set on the plot itself. ScottPlot's own
-    /// way (<c>plot.Font.Set</c>) also writes process-wide defaults (<c>Fonts.Default</c>, <c>Fonts.DefaultFontStyle</c>)
-    /// that every text made later in the process starts from, so a brief drawn at the same time would change this one's
-    /// legend; those defaults are never written here. Labels get the regular face, as <c>plot.Font.Set</c> gave them;
-    /// the legend's items, made when it is drawn, get the family's regular face by name.
+    /// way (<c>plot.Font.Set</c>) also writes process-wide defaults (<c>Fonts.Default</c>,
+    /// <c>Fonts.DefaultFontStyle</c>) that every text made later in the process starts from, so a brief drawn at the
+    /// same time would change this one's legend; those defaults are never written here. Labels get the regular face,
+    /// as <c>plot.Font.Set</c> gave them; the legend's items, made when it is drawn, get the family's regular face by
+    /// name.
     /// </summary>
     private static void SetFont(Plot plot, string family)
     {
@@ -65,8 +66,8 @@ public static partial class ChartRenderer
         label.Font = Fonts.GetTypeface(family, FontWeight.Normal, FontSlant.Upright, FontSpacing.Normal);
     }
 
-    /// <summary>Automatic ticks labelled with a true minus sign, the brief's decimal mark, and <paramref name="format"/>
-    /// when given.</summary>
+    /// <summary>Automatic ticks labelled with a true minus sign, the brief's decimal mark, and
+    /// <paramref name="format"/> when given.</summary>
     public static ScottPlot.TickGenerators.NumericAutomatic Ticks(ChartDrawing drawing, string? format = null)
     {
         string? mark = drawing.Words.DecimalMark;

@@ -16,7 +16,8 @@ public sealed record ChartSpec(string Id, ChartPanels Plot, string Caption, stri
 {
     /// <summary>Renders all charts into one multi-page PDF (one embedded font for all of them), and SVG and PNG copies
     /// (their title and source in <paramref name="drawing"/>'s font) if asked.</summary>
-    public static IReadOnlyList<RenderedChart> RenderAll(IReadOnlyList<ChartSpec> specs, ChartDrawing drawing, bool withImages)
+    public static IReadOnlyList<RenderedChart> RenderAll(IReadOnlyList<ChartSpec> specs, ChartDrawing drawing,
+        bool withImages)
     {
         var charts = RenderPdf(specs);
         return withImages ? AddImages(charts, specs, drawing) : charts;

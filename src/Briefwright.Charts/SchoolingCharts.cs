@@ -14,7 +14,8 @@ public static class SchoolingCharts
     {
         styles ??= new OptionStyles(results.Options.Select(o => o.Id));
         var plot = new Plot();
-        ChartRenderer.Style(plot, d, d.Text("chart.axis.years_of_schooling", "Years of schooling"), d.Text("chart.axis.output_index", "Output per person (index)"));
+        ChartRenderer.Style(plot, d, d.Text("chart.axis.years_of_schooling", "Years of schooling"),
+            d.Text("chart.axis.output_index", "Output per person (index)"));
         var band = plot.Add.HorizontalSpan(results.Optimum.Within1Pct[0], results.Optimum.Within1Pct[1]);
         band.FillStyle.Color = Palette.Band.WithAlpha(0.18);
         band.LineStyle.Width = 0;
@@ -63,10 +64,13 @@ public static class SchoolingCharts
         var baseline = results.Options.First(o => o.IsBaseline);
         var style = styles[baseline.Id];
         // The same padding for both panels, so their data areas share left and right edges.
-        var upper = Panel(d, "", d.Text("chart.axis.worker_share", "Worker share"), xs, results.SchoolingCurve.Select(p => p.WorkerShare).ToArray(),
+        var upper = Panel(d, "", d.Text("chart.axis.worker_share", "Worker share"), xs,
+            results.SchoolingCurve.Select(p => p.WorkerShare).ToArray(),
             d.Text("chart.legend.worker_share", "Workers per person"), new PixelPadding(58, 12, 22, 8));
-        var lower = Panel(d, d.Text("chart.axis.years_of_schooling", "Years of schooling"), d.Text("chart.axis.human_capital", "Human capital"), xs,
-            results.SchoolingCurve.Select(p => p.HumanCapitalPerWorker).ToArray(), d.Text("chart.legend.human_capital", "Human capital per worker"), new PixelPadding(58, 12, 40, 8));
+        var lower = Panel(d, d.Text("chart.axis.years_of_schooling", "Years of schooling"),
+            d.Text("chart.axis.human_capital", "Human capital"), xs,
+            results.SchoolingCurve.Select(p => p.HumanCapitalPerWorker).ToArray(),
+            d.Text("chart.legend.human_capital", "Human capital per worker"), new PixelPadding(58, 12, 40, 8));
         foreach (var (plot, legend) in new[] { (upper, true), (lower, false) })
         {
             var line = plot.Add.VerticalLine(baseline.SchoolingYears);
@@ -80,7 +84,8 @@ public static class SchoolingCharts
         return new ChartPanels(new[] { upper, lower }, new[] { UpperShare, 1 - UpperShare });
     }
 
-    private static Plot Panel(ChartDrawing d, string xLabel, string yLabel, double[] xs, double[] ys, string legend, PixelPadding padding)
+    private static Plot Panel(ChartDrawing d, string xLabel, string yLabel, double[] xs, double[] ys, string legend,
+        PixelPadding padding)
     {
         var plot = new Plot();
         ChartRenderer.Style(plot, d, xLabel, yLabel);

@@ -28,12 +28,13 @@ internal static class WarmUp
         try
         {
             var drawing = new ChartDrawing(
-                ChartFont.FromBytes(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold)), ChartWords.English);
+                ChartFont.FromBytes(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold)),
+                ChartWords.English);
             byte[] chart = ChartRenderer.SamplePdf(drawing);
 
             string markdown = BriefTemplate.Parse(
-                    "# {{ title }}\n\nText with **bold** and *italic*.\n\n| a | b |\n|---|--:|\n| {{ title }} | 1.0 |\n\n"
-                    + "[[figure: warm]]\n", "warm-up")
+                    "# {{ title }}\n\nText with **bold** and *italic*.\n\n"
+                    + "| a | b |\n|---|--:|\n| {{ title }} | 1.0 |\n\n[[figure: warm]]\n", "warm-up")
                 .Render(new Scriban.Runtime.ScriptObject { ["title"] = "Warm-up" });
             var figure = new FigureBlock("warm", chart, 1, ChartRenderer.Width, ChartRenderer.Height, "Warm-up", null, "Warm-up");
             var blocks = MarkdownReader.Read(markdown, new Dictionary<string, FigureBlock> { ["warm"] = figure });

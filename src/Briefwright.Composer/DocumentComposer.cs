@@ -120,7 +120,8 @@ public sealed class DocumentComposer
     {
         var theme = brief.Theme ?? Theme.For(brief.Paper);
         session ??= brief.FontFamily is null ? new RenderSession()
-            : throw new ArgumentNullException(nameof(session), "A document in a theme's fonts needs their render session.");
+            : throw new ArgumentNullException(nameof(session),
+                "A document in a theme's fonts needs their render session.");
         var measurer = session.Measurer;
         var pages = Layout(brief, theme, measurer);
 

@@ -83,7 +83,8 @@ internal sealed class AnalysisModel(BriefLanguage language) : TemplateFunctions(
         int y0 = a.Reform.ReformYear;
         string lead = T("headline.lead", Wording.Capitalise(s.OptionName(h.OptionId)), Wording.Effect(h.LongRunChangePct), baseline["name"]);
         var decomposition = r.Levers.FirstOrDefault(l => l.OptionId == h.OptionId);
-        string? split = decomposition is { IsCombined: true } ? T("headline.split", BriefModelBuilder.DecompositionText(decomposition)) : null;
+        string? split = decomposition is { IsCombined: true }
+            ? T("headline.split", BriefModelBuilder.DecompositionText(decomposition)) : null;
         var others = ((ScriptArray)model["alternatives"]!).Cast<ScriptObject>().Where(o => (string)o["id"]! != h.OptionId).Select(o =>
         {
             string line = T("headline.other", o["label"], Wording.Effect((double)o["change_pct"]!));

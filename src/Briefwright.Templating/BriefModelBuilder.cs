@@ -66,7 +66,8 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
     /// <summary>The template function <c>say "key" values…</c>: a text of the brief's language.</summary>
     public delegate string Say(string key, params object?[] values);
 
-    private ScriptObject OptionObject(ScenarioDocument s, OptionResult o, OptionResult baseline, Model.Core.LeverDecomposition? levers)
+    private ScriptObject OptionObject(ScenarioDocument s, OptionResult o, OptionResult baseline,
+        Model.Core.LeverDecomposition? levers)
     {
         var decomposition = levers?.Levers ?? [];
         double delta = o.SchoolingYears - baseline.SchoolingYears;
@@ -164,7 +165,9 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
     /// <summary>An assumption's value as the table shows it: the reader's text, except brackets of returns, written in the brief's language.</summary>
     public string ValueText(ScenarioDocument s, Assumption a) =>
         a.Path == "human_capital.returns.brackets" && s.Inputs.HumanCapital.Returns is BracketReturns b
-            ? string.Join("; ", b.Brackets.Select(x => T("value.bracket", Localise((x.Rate * 100).ToString("0.0##", CultureInfo.InvariantCulture)) + L.PercentSign, Num(x.FromYear, 0))))
+            ? string.Join("; ", b.Brackets.Select(x => T("value.bracket",
+                Localise((x.Rate * 100).ToString("0.0##", CultureInfo.InvariantCulture)) + L.PercentSign,
+                Num(x.FromYear, 0))))
             : a.Text ?? FormatValue(a);
 
     /// <summary>

@@ -9,7 +9,8 @@ namespace Briefwright.Templating;
 public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language)
 {
     /// <summary>The cautions every brief carries, in the brief's language.</summary>
-    public IReadOnlyList<string> Fixed => new[] { T("caveat.not_forecasts"), T("caveat.optimum"), T("caveat.official") };
+    public IReadOnlyList<string> Fixed => new[] { T("caveat.not_forecasts"), T("caveat.optimum"),
+        T("caveat.official") };
 
     /// <summary>Usual ranges for a parameter check; the bounds are common practice in growth accounting, not rules.</summary>
     private static readonly (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
@@ -24,7 +25,8 @@ public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language
         ("caveat.name.return", i => (i.HumanCapital.Returns as ConstantReturn)?.Rate, 0.04, 0.15, true),
     };
 
-    public IReadOnlyList<string> Generated(ScenarioDocument scenario, BalancedGrowthResults results, AnalysisResults? analysis = null)
+    public IReadOnlyList<string> Generated(ScenarioDocument scenario, BalancedGrowthResults results,
+        AnalysisResults? analysis = null)
     {
         var list = new List<string>();
         var inputs = scenario.Inputs;

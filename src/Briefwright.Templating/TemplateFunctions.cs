@@ -120,12 +120,14 @@ public class TemplateFunctions(BriefLanguage language)
 
     public Wording Wording => wording ??= this as Wording ?? new Wording(L);
     public Caveats Caveats => caveats ??= this as Caveats ?? new Caveats(L);
-    public ProbabilityWords ProbabilityWords => probabilityWords ??= this as ProbabilityWords ?? new ProbabilityWords(L);
+    public ProbabilityWords ProbabilityWords
+        => probabilityWords ??= this as ProbabilityWords ?? new ProbabilityWords(L);
     internal OptimumModel OptimumModel => optimumModel ??= this as OptimumModel ?? new OptimumModel(L);
     public Equations Equations => equations ??= this as Equations ?? new Equations(L);
     public KeyAssumptions KeyAssumptions => keyAssumptions ??= this as KeyAssumptions ?? new KeyAssumptions(L);
     internal AnalysisModel AnalysisModel => analysisModel ??= this as AnalysisModel ?? new AnalysisModel(L);
-    public BriefModelBuilder BriefModelBuilder => briefModelBuilder ??= this as BriefModelBuilder ?? new BriefModelBuilder(L);
+    public BriefModelBuilder BriefModelBuilder
+        => briefModelBuilder ??= this as BriefModelBuilder ?? new BriefModelBuilder(L);
 
     /// <summary>
     /// Makes the formatting functions callable from templates under their snake_case names (<c>pct</c>, <c>change</c>,
@@ -148,7 +150,8 @@ public class TemplateFunctions(BriefLanguage language)
     }
 
     /// <summary>A number written with a point as the decimal mark, in the brief's language.</summary>
-    public string Localise(string invariant) => L.Decimal == "." ? invariant : invariant.Replace(".", L.Decimal, StringComparison.Ordinal);
+    public string Localise(string invariant) =>
+        L.Decimal == "." ? invariant : invariant.Replace(".", L.Decimal, StringComparison.Ordinal);
 
     private string Fixed(double value, int digits) => Localise(FixedInvariant(value, digits));
 

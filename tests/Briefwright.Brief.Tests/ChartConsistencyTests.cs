@@ -72,7 +72,8 @@ public class ChartConsistencyTests
                 foreach (var (axis, length) in new (IAxis, float)[] { (plot.Axes.Bottom, area.Width), (plot.Axes.Left, area.Height) })
                 {
                     if (axis.Label.Text.Length == 0) continue;
-                    using var font = new SKFont(Fonts.GetTypeface(axis.Label.FontName, axis.Label.Bold, false), axis.Label.FontSize);
+                    using var font = new SKFont(Fonts.GetTypeface(axis.Label.FontName, axis.Label.Bold, false),
+                        axis.Label.FontSize);
                     float width = font.MeasureText(axis.Label.Text);
                     Assert.True(width <= length, $"{spec.Id}: '{axis.Label.Text}' is {width:0} pt long on an axis of {length:0} pt");
                 }

@@ -49,9 +49,11 @@ public class SpareCoreTests
         var english = ScenarioSolver.Solve(Demo.Load("auroria-national"), 1);
         var options = BuildOptions.Default with
         {
-            ChartImages = true, ModelThreads = 1, Formats = Brief.Formats.OutputFormat.Pdf | Brief.Formats.OutputFormat.Html,
+            ChartImages = true, ModelThreads = 1,
+            Formats = Brief.Formats.OutputFormat.Pdf | Brief.Formats.OutputFormat.Html,
         };
-        BuiltBrief French(WorkRunner runner) => BriefBuilder.Compose(french, StandardTemplate.Template, options with { Runner = runner });
+        BuiltBrief French(WorkRunner runner) => BriefBuilder.Compose(french, StandardTemplate.Template,
+            options with { Runner = runner });
         BuiltBrief English(WorkRunner runner) =>
             BriefBuilder.Compose(english, StandardTemplate.Template, options with { Runner = runner, Fonts = theme });
 
@@ -69,7 +71,8 @@ public class SpareCoreTests
             Assert.Equal(a.Annex.Select(x => x.Suffix), b.Annex.Select(x => x.Suffix));
             foreach (var (x, y) in a.Annex.Zip(b.Annex)) Assert.True(x.Bytes.AsSpan().SequenceEqual(y.Bytes), x.Suffix);
             Assert.Equal(a.Formats.Select(x => x.Suffix), b.Formats.Select(x => x.Suffix));
-            foreach (var (x, y) in a.Formats.Zip(b.Formats)) Assert.True(x.Bytes.AsSpan().SequenceEqual(y.Bytes), x.Suffix);
+            foreach (var (x, y) in a.Formats.Zip(b.Formats))
+                Assert.True(x.Bytes.AsSpan().SequenceEqual(y.Bytes), x.Suffix);
         }
     }
 }

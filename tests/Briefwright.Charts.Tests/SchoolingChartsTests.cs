@@ -67,7 +67,8 @@ public class SchoolingChartsTests
     [Fact]
     public void Uses_the_bundled_font_not_a_host_font()
     {
-        var pdf = System.Text.Encoding.Latin1.GetString(ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Drawing, Results())));
+        var pdf = System.Text.Encoding.Latin1.GetString(
+            ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Drawing, Results())));
         Assert.Contains("LiberationSans", pdf);
         Assert.DoesNotContain("DejaVu", pdf);
     }
@@ -117,7 +118,8 @@ public class SchoolingChartsTests
     [Fact]
     public void Copies_carry_the_figure_title_and_source_line()
     {
-        var texts = new ChartRenderer.CopyTexts("Output per person against years of schooling", "briefwright model, scenario test", Drawing.Family);
+        var texts = new ChartRenderer.CopyTexts("Output per person against years of schooling",
+            "briefwright model, scenario test", Drawing.Family);
         string svg = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Drawing, Results()), texts);
         Assert.Contains("Output per person against years of schooling", svg);
         Assert.Contains("Source: briefwright model, scenario test", svg);

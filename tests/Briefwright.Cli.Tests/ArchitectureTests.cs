@@ -94,14 +94,15 @@ public class ArchitectureTests
         {
             // ScottPlot finds typefaces through its static resolver list by family name: one append-only table from a
             // name derived from the font bytes to its typefaces; which font a chart uses is set on the plot itself.
-            ["Briefwright.Charts.ChartFontResolver.Families"] = "ScottPlot's resolver is process-wide (Fonts.FontResolvers)",
+            ["Briefwright.Charts.ChartFontResolver.Families"] = "ScottPlot's resolvers are process-wide",
             // PDFsharp takes one global font resolver and asks it for faces by name: one append-only table from a
             // name derived from the font bytes to those bytes; which family a brief is set in is its RenderSession's.
             ["Briefwright.Composer.Drawing.PdfFontResolver.Registered"] = "PDFsharp's resolver is process-wide",
             // Memos: each value is a pure function of its key, and every key is immutable content (a schedule and
             // horizon, font bytes, a survival curve), so a memo gives every brief the answer it would compute itself.
             ["Briefwright.Model.Dynamics.PresentValue.FactorCache"] = "memo of discount factors, at most 256 entries",
-            ["Briefwright.Model.Numerics.TiltedKernel.Cache"] = "memo of at most 16 kernels per survival curve, curves held weakly",
+            ["Briefwright.Model.Numerics.TiltedKernel.Cache"] =
+                "memo of at most 16 kernels per survival curve, curves held weakly",
             ["Briefwright.Charts.FontSubsetter.Coverage"] = "memo of a font's characters, held weakly per font",
             ["Briefwright.Brief.GlyphCheck.Passed"] = "memo of template and language texts found in a font, at most 64",
         };
@@ -110,7 +111,7 @@ public class ArchitectureTests
         Assert.True(state.Count == 0, "static state in the libraries:\n" + string.Join("\n", state));
     }
 
-    /// <summary>Generic types that hold state that changes, whether or not the field holding them is readonly.</summary>
+    /// <summary>Generic types that hold changing state, whether or not the field holding them is readonly.</summary>
     private static readonly Type[] MutableByNature =
     [
         typeof(AsyncLocal<>), typeof(ThreadLocal<>), typeof(System.Collections.Concurrent.ConcurrentDictionary<,>),
@@ -119,7 +120,8 @@ public class ArchitectureTests
         typeof(System.Runtime.CompilerServices.ConditionalWeakTable<,>),
     ];
 
-    /// <summary>"Type.field: why" for every static field of the assemblies that is state, minus the allowed ones.</summary>
+    /// <summary>"Type.field: why" for every static field of the assemblies that is state, minus the allowed ones.
+    /// </summary>
     private static List<string> StaticMutableState(string[] assemblies, IReadOnlyDictionary<string, string> allowed)
     {
         const BindingFlags statics = BindingFlags.Static | BindingFlags.Public | BindingFlags.NonPublic
@@ -132,7 +134,8 @@ public class ArchitectureTests
             {
                 if (field.IsLiteral) continue;
                 string name = $"{type.FullName}.{field.Name}";
-                var fieldType = field.FieldType.IsGenericType ? field.FieldType.GetGenericTypeDefinition() : field.FieldType;
+                var fieldType = field.FieldType.IsGenericType ? field.FieldType.GetGenericTypeDefinition()
+                    : field.FieldType;
                 string? why = !field.IsInitOnly ? "not readonly"
                     : field.IsDefined(typeof(ThreadStaticAttribute)) ? "[ThreadStatic]"
                     : MutableByNature.Contains(fieldType) ? $"holds a {field.FieldType.Name}"

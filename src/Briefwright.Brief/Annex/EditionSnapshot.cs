@@ -97,7 +97,8 @@ public sealed record EditionSnapshot(
             double diff = n.Value - o.Value;
             if (Math.Abs(diff) < 5e-4 * Math.Max(1, Math.Abs(o.Value))) continue;
             string F(double v) => n.Unit == "%" ? words.Change(v, 2) : words.Num(v, 2);
-            results.Add(new ChangedValue(key, n.Label, F(o.Value), F(n.Value), (diff >= 0 ? "+" : "−") + words.Num(Math.Abs(diff), 2) + (n.Unit == "%" ? " points" : "")));
+            results.Add(new ChangedValue(key, n.Label, F(o.Value), F(n.Value),
+                (diff >= 0 ? "+" : "−") + words.Num(Math.Abs(diff), 2) + (n.Unit == "%" ? " points" : "")));
         }
         return new EditionChanges(old.Edition, old.Date, assumptions, results);
     }

@@ -13,9 +13,11 @@ public sealed class DistributionFigure : IChartDefinition
         if (a.MonteCarlo is not { } mc) yield break;
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
-        yield return new ChartSpec("distribution", AnalysisCharts.Distribution(c.Drawing, mc, k, headline, c.Styles[a.HeadlineOptionId]),
+        yield return new ChartSpec("distribution", AnalysisCharts.Distribution(c.Drawing, mc, k, headline,
+            c.Styles[a.HeadlineOptionId]),
             w.T("chart.distribution.caption", headline, w.Big(mc.Draws)),
-            w.T("chart.distribution.alt", w.Change(mc.Options[k].LongRunChangePct.P5), w.Change(mc.Options[k].LongRunChangePct.P95), w.Change(mc.Options[k].LongRunChangePct.P50)),
+            w.T("chart.distribution.alt", w.Change(mc.Options[k].LongRunChangePct.P5),
+                w.Change(mc.Options[k].LongRunChangePct.P95), w.Change(mc.Options[k].LongRunChangePct.P50)),
             c.Source);
     }
 }

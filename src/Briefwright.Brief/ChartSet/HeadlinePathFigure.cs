@@ -15,9 +15,12 @@ public sealed class HeadlinePathFigure : IChartDefinition
         var facts = HeadlineFacts.From(c.Solved.BalancedGrowth, a);
         string label = scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int years = Math.Min(HeadlinePathChart.Years, a.Reform.HorizonYears);
-        yield return new ChartSpec("headline-path", HeadlinePathChart.Build(c.Drawing, a.Reform, a.HeadlineOptionId, label, a.MonteCarlo, c.Styles),
-            w.T(a.MonteCarlo is null ? "chart.headline.caption" : "chart.headline.caption_band", label, a.Reform.ReformYear, a.Reform.ReformYear + years),
-            w.T("chart.headline.alt", w.Wording.Arrival(facts, a.Reform.ReformYear)) + (a.MonteCarlo is null ? "" : w.T("chart.headline.alt_band")),
+        yield return new ChartSpec("headline-path", HeadlinePathChart.Build(c.Drawing, a.Reform, a.HeadlineOptionId,
+            label, a.MonteCarlo, c.Styles),
+            w.T(a.MonteCarlo is null ? "chart.headline.caption" : "chart.headline.caption_band", label,
+                a.Reform.ReformYear, a.Reform.ReformYear + years),
+            w.T("chart.headline.alt", w.Wording.Arrival(facts, a.Reform.ReformYear))
+                + (a.MonteCarlo is null ? "" : w.T("chart.headline.alt_band")),
             c.Source);
     }
 }

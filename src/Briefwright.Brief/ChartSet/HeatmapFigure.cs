@@ -13,12 +13,16 @@ public sealed class HeatmapFigure : IChartDefinition
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         foreach (var (grid, i) in a.Grids.Select((g, i) => (g, i)))
         {
-            string what = grid.Spec.Output == "optimum" ? w.T("chart.heatmap.optimum") : w.T("chart.heatmap.change", headline);
-            string x = w.ParameterLabel(grid.Spec.X, Parameters.Find(grid.Spec.X)!.Label), y = w.ParameterLabel(grid.Spec.Y, Parameters.Find(grid.Spec.Y)!.Label);
+            string what = grid.Spec.Output == "optimum"
+                ? w.T("chart.heatmap.optimum") : w.T("chart.heatmap.change", headline);
+            string x = w.ParameterLabel(grid.Spec.X, Parameters.Find(grid.Spec.X)!.Label),
+                y = w.ParameterLabel(grid.Spec.Y, Parameters.Find(grid.Spec.Y)!.Label);
             var values = grid.Values.SelectMany(v => v).Where(v => v is not null).Select(v => v!.Value).ToList();
-            yield return new ChartSpec(i == 0 ? "heatmap" : $"heatmap-{i + 1}", AnalysisCharts.Heatmap(c.Drawing, grid, Axis(grid.Spec.X, x), Axis(grid.Spec.Y, y), what, Scale(grid.Spec.X), Scale(grid.Spec.Y)),
+            yield return new ChartSpec(i == 0 ? "heatmap" : $"heatmap-{i + 1}", AnalysisCharts.Heatmap(c.Drawing,
+                grid, Axis(grid.Spec.X, x), Axis(grid.Spec.Y, y), what, Scale(grid.Spec.X), Scale(grid.Spec.Y)),
                 w.T("chart.heatmap.caption", what, w.InSentence(x), w.InSentence(y)),
-                w.T(grid.Invalid > 0 ? "chart.heatmap.alt_blank" : "chart.heatmap.alt", w.InSentence(what), w.F(values.Min()), w.F(values.Max()), grid.Invalid),
+                w.T(grid.Invalid > 0 ? "chart.heatmap.alt_blank" : "chart.heatmap.alt", w.InSentence(what),
+                    w.F(values.Min()), w.F(values.Max()), grid.Invalid),
                 c.Source);
         }
     }

@@ -14,8 +14,10 @@ public sealed class OpposingForcesFigure : IChartDefinition
         var baseline = results.Options.First(o => o.IsBaseline);
         yield return new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(c.Drawing, results, c.Styles),
             w.T("chart.forces.caption"),
-            w.T("chart.forces.alt", w.Wording.Trend(curve.Select(x => x.WorkerShare).ToList()), w.Wording.Trend(curve.Select(x => x.HumanCapitalPerWorker).ToList()),
-                w.Years(baseline.SchoolingYears), w.Num(baseline.WorkerShare, 3), w.Num(baseline.HumanCapitalPerWorker, 2)),
+            w.T("chart.forces.alt", w.Wording.Trend(curve.Select(x => x.WorkerShare).ToList()),
+                w.Wording.Trend(curve.Select(x => x.HumanCapitalPerWorker).ToList()),
+                w.Years(baseline.SchoolingYears), w.Num(baseline.WorkerShare, 3),
+                w.Num(baseline.HumanCapitalPerWorker, 2)),
             c.Source);
     }
 }

@@ -16,7 +16,9 @@ public sealed class TornadoFigure : IChartDefinition
         double central = c.Solved.BalancedGrowth.Options.First(o => o.Id == a.HeadlineOptionId).ChangeVsBaselinePct;
         yield return new ChartSpec("tornado", AnalysisCharts.Tornado(c.Drawing, a.Tornado, k, central, headline),
             w.T("chart.tornado.caption", headline),
-            w.T("chart.tornado.alt", w.ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label), w.Change(a.Tornado[0].AtLow.LongRunChangePct[k]), w.Change(a.Tornado[0].AtHigh.LongRunChangePct[k]), w.Change(central)),
+            w.T("chart.tornado.alt", w.ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label),
+                w.Change(a.Tornado[0].AtLow.LongRunChangePct[k]), w.Change(a.Tornado[0].AtHigh.LongRunChangePct[k]),
+                w.Change(central)),
             c.Source);
     }
 }

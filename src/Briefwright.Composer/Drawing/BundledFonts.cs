@@ -36,14 +36,14 @@ public static class BundledFonts
         return bytes;
     }
 
-    /// <summary>Makes PDFsharp find the bundled fonts (and every <see cref="FontFaces"/> made so far); once per process.</summary>
+    /// <summary>Makes PDFsharp find the bundled fonts (and every <see cref="FontFaces"/> made so far).</summary>
     public static void Install() => PdfFontResolver.Install();
 }
 
 /// <summary>
 /// A font family given as TrueType files (a theme's fonts), made by the caller and handed to the brief's
-/// <see cref="RenderSession"/>. Its <see cref="Family"/> name is derived from the bytes, so that the same files give the
-/// same name in every run, and a name always stands for the same bytes.
+/// <see cref="RenderSession"/>. Its <see cref="Family"/> name is derived from the bytes, so that the same files give
+/// the same name in every run, and a name always stands for the same bytes.
 /// </summary>
 public sealed class FontFaces
 {
@@ -94,7 +94,8 @@ internal sealed class PdfFontResolver : IFontResolver
     {
         var style = (bold, italic) switch
         {
-            (true, true) => RunStyle.BoldItalic, (true, _) => RunStyle.Bold, (_, true) => RunStyle.Italic, _ => RunStyle.Regular,
+            (true, true) => RunStyle.BoldItalic, (true, _) => RunStyle.Bold,
+            (_, true) => RunStyle.Italic, _ => RunStyle.Regular,
         };
         return Registered.ContainsKey($"{familyName}|{style}")
             ? new FontResolverInfo($"{familyName}|{style}") : new FontResolverInfo(BundledFonts.FaceName(style));
