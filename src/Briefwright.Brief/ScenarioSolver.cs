@@ -6,7 +6,8 @@ using Briefwright.Scenario;
 namespace Briefwright.Brief;
 
 /// <summary>Everything the model computes for one scenario.</summary>
-public sealed record SolvedScenario(ScenarioDocument Scenario, BalancedGrowthResults BalancedGrowth, AnalysisResults Analysis)
+public sealed record SolvedScenario(
+    ScenarioDocument Scenario, BalancedGrowthResults BalancedGrowth, AnalysisResults Analysis)
 {
     private OptionOutcomes? outcomes;
 

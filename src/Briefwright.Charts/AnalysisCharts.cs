@@ -150,7 +150,8 @@ public static class AnalysisCharts
     }
 
     /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
-    public static Plot Distribution(MonteCarloResults mc, OptionUncertainty option, string optionLabel, OptionStyle? style = null)
+    public static Plot Distribution(
+        MonteCarloResults mc, OptionUncertainty option, string optionLabel, OptionStyle? style = null)
     {
         var colour = style?.Color ?? Palette.Options[0];
         var plot = new Plot();

@@ -6,8 +6,10 @@ namespace Briefwright.Model;
 /// </summary>
 internal static class Same
 {
-    /// <summary>The same items in the same order (doubles compared as <see cref="double.Equals(double)"/>: NaN equals NaN).</summary>
-    public static bool Items<T>(IReadOnlyList<T>? a, IReadOnlyList<T>? b) => Items(a, b, EqualityComparer<T>.Default.Equals);
+    /// <summary>The same items in the same order (doubles compared as <see cref="double.Equals(double)"/>: NaN
+    /// equals NaN).</summary>
+    public static bool Items<T>(IReadOnlyList<T>? a, IReadOnlyList<T>? b) =>
+        Items(a, b, EqualityComparer<T>.Default.Equals);
 
     public static bool Items<T>(IReadOnlyList<T>? a, IReadOnlyList<T>? b, Func<T, T, bool> equal)
     {

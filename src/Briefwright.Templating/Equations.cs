@@ -29,7 +29,10 @@ public static class Equations
         sb.Append(inputs.Demography.Survival is RectangularSurvival ? T("eq.rectangular") : T("eq.quadrature")).Append(' ');
         sb.Append(r.Optimum.Method == OptimumMethod.ClosedForm
             ? T("eq.closed_form")
-            : T(r.Optimum.Diagnostics.Converged ? "eq.search" : "eq.search_not_converged", r.Optimum.Diagnostics.GridPoints, ResultWords.Brief.Refinement(r.Optimum.Diagnostics.Refinement), Small(r.Optimum.Diagnostics.Tolerance))).Append(' ');
+            : T(r.Optimum.Diagnostics.Converged ? "eq.search" : "eq.search_not_converged",
+                r.Optimum.Diagnostics.GridPoints,
+                ResultWords.Brief.Refinement(r.Optimum.Diagnostics.Refinement), Small(r.Optimum.Diagnostics.Tolerance)))
+          .Append(' ');
         sb.Append(T("eq.band", Years(r.Optimum.Within1Pct[0]), Years(r.Optimum.Within1Pct[1]))).Append('\n');
         return sb.ToString();
     }

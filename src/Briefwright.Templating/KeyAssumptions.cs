@@ -38,7 +38,9 @@ public static class KeyAssumptions
                 string range = t.Parameter == "return_scale" ? T("key.range", "×" + Sig(t.Low, 3), "×" + Sig(t.High, 3)) : def.IsRate ? T("key.range", Pct(t.Low), Pct(t.High)) : T("key.range", Sig(t.Low, 3), Sig(t.High, 3));
                 return (IReadOnlyList<string>)new[]
                 {
-                    AnalysisModel.ParameterLabel(t.Parameter, t.Label), value, range, T("key.range", Change(t.AtLow.LongRunChangeOf(a.HeadlineOptionId)), Change(t.AtHigh.LongRunChangeOf(a.HeadlineOptionId))),
+                    AnalysisModel.ParameterLabel(t.Parameter, t.Label), value, range,
+                    T("key.range", Change(t.AtLow.LongRunChangeOf(a.HeadlineOptionId)),
+                        Change(t.AtHigh.LongRunChangeOf(a.HeadlineOptionId))),
                 };
             });
             return Md.Table(T("key.caption_ranked", headline), T("key.source", s.Brief.Id),

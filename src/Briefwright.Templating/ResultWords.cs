@@ -16,18 +16,22 @@ public sealed class ResultWords
     private readonly Func<double, int, string> number;
     private readonly Func<double, int, string> percent;
 
-    private ResultWords(Func<BriefLanguage> language, Func<double, int, string> number, Func<double, int, string> percent)
+    private ResultWords(
+        Func<BriefLanguage> language, Func<double, int, string> number, Func<double, int, string> percent)
     {
         this.language = language;
         this.number = number;
         this.percent = percent;
     }
 
-    /// <summary>The brief's language and number format (<see cref="BriefLanguage.Current"/>, as every text of the brief).</summary>
-    public static ResultWords Brief { get; } = new(() => BriefLanguage.Current, TemplateFunctions.Num, TemplateFunctions.Pct);
+    /// <summary>The brief's language and number format (<see cref="BriefLanguage.Current"/>, as every text of the
+    /// brief).</summary>
+    public static ResultWords Brief { get; } =
+        new(() => BriefLanguage.Current, TemplateFunctions.Num, TemplateFunctions.Pct);
 
     /// <summary>English with invariant numbers: the results JSON and the console.</summary>
-    public static ResultWords Data { get; } = new(() => BriefLanguage.English, Plain, (f, d) => Plain(f * 100, d) + "%");
+    public static ResultWords Data { get; } =
+        new(() => BriefLanguage.English, Plain, (f, d) => Plain(f * 100, d) + "%");
 
     private static string Plain(double value, int digits) =>
         value.ToString("0." + new string('0', digits), CultureInfo.InvariantCulture);
@@ -40,7 +44,8 @@ public sealed class ResultWords
     /// <summary>How the value beyond the horizon was treated.</summary>
     public string TailNote(TailBasis tail) => tail.Treatment switch
     {
-        TailTreatment.NotFinite => T("result.tail_not_finite", percent(tail.LongRunRate, 1), percent(tail.TechnologyGrowth, 1)),
+        TailTreatment.NotFinite =>
+            T("result.tail_not_finite", percent(tail.LongRunRate, 1), percent(tail.TechnologyGrowth, 1)),
         _ => T("result.tail_held", percent(tail.HeldGain, 2)),
     };
 
@@ -50,7 +55,8 @@ public sealed class ResultWords
         string cut = d.TailIncluded
             ? T("result.optimum_tail_included", d.HorizonYears)
             : T("result.optimum_tail_cut", d.HorizonYears, string.Join(", ", d.ByHorizon.Select((x, i) =>
-                T(i == 0 ? "result.optimum_cut_first" : "result.optimum_cut_other", number(x.SchoolingYears, 1), x.HorizonYears))));
+                T(i == 0 ? "result.optimum_cut_first" : "result.optimum_cut_other", number(x.SchoolingYears, 1),
+                    x.HorizonYears))));
         return d.LongerSchoolingPays
             ? T("result.optimum_discounting", d.ScheduleLabel, cut)
             : T("result.optimum_no_gain", cut);

@@ -4,13 +4,15 @@ using Briefwright.Model.Uncertainty;
 
 namespace Briefwright.Model.Tests;
 
-/// <summary>Results that hold arrays compare by value: two computations alike are equal, one changed number is not.</summary>
+/// <summary>Results that hold arrays compare by value: two computations alike are equal, one changed number is
+/// not.</summary>
 public class ValueEqualityTests
 {
     private static readonly ReformSettings Reform = new(2028, 1, 80);
 
     private static ReformPath Path() =>
-        ReformSimulator.Simulate(ReformSimulatorTests.Inputs(), ReformSimulatorTests.Inputs().Options.Single(o => o.Id == "plus1"), Reform);
+        ReformSimulator.Simulate(ReformSimulatorTests.Inputs(),
+            ReformSimulatorTests.Inputs().Options.Single(o => o.Id == "plus1"), Reform);
 
     [Fact]
     public void Reform_paths_computed_alike_are_equal_and_hash_alike()

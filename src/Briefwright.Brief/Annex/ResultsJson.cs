@@ -99,7 +99,8 @@ internal static class ResultsNaming
                 o => o.ClosedFormNotApplicable is { } why ? words.ClosedFormReason(why) : null);
         }
         else if (info.Type == typeof(SolverDiagnostics))
-            Replace<SolverDiagnostics>(info, nameof(SolverDiagnostics.Refinement), "refinement", d => words.Refinement(d.Refinement));
+            Replace<SolverDiagnostics>(info, nameof(SolverDiagnostics.Refinement), "refinement",
+                d => words.Refinement(d.Refinement));
         else if (info.Type == typeof(ReformPath))
         {
             Rename(info, nameof(ReformPath.DipYear), "dip_years_after_reform");
@@ -112,10 +113,12 @@ internal static class ResultsNaming
             Remove(info, nameof(PresentValue.Counted));
         }
         else if (info.Type == typeof(AppraisalResults))
-            Insert<AppraisalResults>(info, after: nameof(AppraisalResults.ValuationYear), "price_base", a => words.PriceBase(a.ValuationYear));
+            Insert<AppraisalResults>(info, after: nameof(AppraisalResults.ValuationYear), "price_base",
+                a => words.PriceBase(a.ValuationYear));
         else if (info.Type == typeof(DiscountedOptimum))
         {
-            Replace<DiscountedOptimum>(info, nameof(DiscountedOptimum.LongerSchoolingPays), "explanation", words.Explanation);
+            Replace<DiscountedOptimum>(info, nameof(DiscountedOptimum.LongerSchoolingPays), "explanation",
+                words.Explanation);
             Remove(info, nameof(DiscountedOptimum.ScheduleLabel));
             Remove(info, nameof(DiscountedOptimum.HorizonYears));
         }
@@ -131,7 +134,8 @@ internal static class ResultsNaming
         throw new InvalidOperationException($"The results data has no member {member} on {info.Type.Name}.");
     }
 
-    private static void Rename(JsonTypeInfo info, string member, string name) => info.Properties[IndexOf(info, member)].Name = name;
+    private static void Rename(JsonTypeInfo info, string member, string name) =>
+        info.Properties[IndexOf(info, member)].Name = name;
 
     private static void Remove(JsonTypeInfo info, string member) => info.Properties.RemoveAt(IndexOf(info, member));
 

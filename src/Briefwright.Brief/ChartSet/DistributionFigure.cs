@@ -14,9 +14,11 @@ public sealed class DistributionFigure : IChartDefinition
         if (a.MonteCarlo is not { } mc) yield break;
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         var h = c.Solved.Outcomes.Headline.Uncertainty!;
-        yield return new ChartSpec("distribution", AnalysisCharts.Distribution(mc, h, headline, c.Styles[a.HeadlineOptionId]),
+        yield return new ChartSpec("distribution",
+            AnalysisCharts.Distribution(mc, h, headline, c.Styles[a.HeadlineOptionId]),
             T("chart.distribution.caption", headline, TemplateFunctions.Big(mc.Draws)),
-            T("chart.distribution.alt", TemplateFunctions.Change(h.LongRunChangePct.P5), TemplateFunctions.Change(h.LongRunChangePct.P95), TemplateFunctions.Change(h.LongRunChangePct.P50)),
+            T("chart.distribution.alt", TemplateFunctions.Change(h.LongRunChangePct.P5),
+                TemplateFunctions.Change(h.LongRunChangePct.P95), TemplateFunctions.Change(h.LongRunChangePct.P50)),
             c.Source);
     }
 }

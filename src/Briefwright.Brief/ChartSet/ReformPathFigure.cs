@@ -18,7 +18,10 @@ public sealed class ReformPathFigure : IChartDefinition
         var path = headline.Path;
         yield return new ChartSpec("reform-path", AnalysisCharts.ReformPath(a.Reform, a.HeadlineOptionId, labels, a.MonteCarlo, styles: c.Styles),
             T("chart.reform.caption", a.Reform.ReformYear, a.Reform.ReformYear + 80),
-            T("chart.reform.alt", solved.Scenario.OptionName(a.HeadlineOptionId), Wording.Arrival(HeadlineFacts.From(headline, a.Reform), a.Reform.ReformYear), TemplateFunctions.Change(100 * path.BalancedGrowthGain)) + (a.MonteCarlo is null ? "" : T("chart.reform.alt_band")),
+            T("chart.reform.alt", solved.Scenario.OptionName(a.HeadlineOptionId),
+                Wording.Arrival(HeadlineFacts.From(headline, a.Reform), a.Reform.ReformYear),
+                TemplateFunctions.Change(100 * path.BalancedGrowthGain))
+                + (a.MonteCarlo is null ? "" : T("chart.reform.alt_band")),
             c.Source);
     }
 }

@@ -17,7 +17,9 @@ public sealed class TornadoFigure : IChartDefinition
         double central = h.BalancedGrowth.ChangeVsBaselinePct;
         yield return new ChartSpec("tornado", AnalysisCharts.Tornado(h.Swings, central, headline),
             T("chart.tornado.caption", headline),
-            T("chart.tornado.alt", ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label), TemplateFunctions.Change(h.Swings[0].AtLowPct), TemplateFunctions.Change(h.Swings[0].AtHighPct), TemplateFunctions.Change(central)),
+            T("chart.tornado.alt", ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label),
+                TemplateFunctions.Change(h.Swings[0].AtLowPct), TemplateFunctions.Change(h.Swings[0].AtHighPct),
+                TemplateFunctions.Change(central)),
             c.Source);
     }
 }

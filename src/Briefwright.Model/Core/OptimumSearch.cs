@@ -111,7 +111,8 @@ public static class OptimumSearch
         return Math.Clamp(end - demography.EntryAge - working, 0.0, maxSchooling);
     }
 
-    private static (double E, int Iterations, bool Converged, RefinementMethod How) Refine(LifeCycle cycle, double lo, double hi)
+    private static (double E, int Iterations, bool Converged, RefinementMethod How) Refine(
+        LifeCycle cycle, double lo, double hi)
     {
         if (cycle.ObjectiveLogSlope(lo) > 0 && cycle.ObjectiveLogSlope(hi) < 0)
         {
@@ -127,7 +128,8 @@ public static class OptimumSearch
         return GoldenSection(cycle, lo, hi);
     }
 
-    private static (double E, int Iterations, bool Converged, RefinementMethod How) GoldenSection(LifeCycle cycle, double lo, double hi)
+    private static (double E, int Iterations, bool Converged, RefinementMethod How) GoldenSection(
+        LifeCycle cycle, double lo, double hi)
     {
         var (a, b, it) = Numerics.GoldenSection.Maximise(cycle.Objective, lo, hi, 1e-8);
         return (0.5 * (a + b), it, b - a <= 1e-8, RefinementMethod.GoldenSection);

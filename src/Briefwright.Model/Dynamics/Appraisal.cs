@@ -7,7 +7,8 @@ namespace Briefwright.Model.Dynamics;
 public sealed record OptionAppraisal(string OptionId, ReformPath Path, IReadOnlyList<PresentValue> PresentValues)
 {
     public bool Equals(OptionAppraisal? other) =>
-        other is not null && OptionId == other.OptionId && Path.Equals(other.Path) && Same.Items(PresentValues, other.PresentValues);
+        other is not null && OptionId == other.OptionId && Path.Equals(other.Path)
+        && Same.Items(PresentValues, other.PresentValues);
 
     public override int GetHashCode() => HashCode.Combine(OptionId, Path, Same.Hash(PresentValues));
 }
@@ -24,7 +25,8 @@ public sealed record HorizonOptimum(int HorizonYears, double SchoolingYears, dou
 /// the brief (Templating) and the results writer from <see cref="LongerSchoolingPays"/>, <see cref="TailIncluded"/>,
 /// <see cref="ScheduleLabel"/>, <see cref="HorizonYears"/> and <see cref="ByHorizon"/>.
 /// </summary>
-/// <param name="LongerSchoolingPays">False when no schooling longer than the baseline's has a positive present value.</param>
+/// <param name="LongerSchoolingPays">False when no schooling longer than the baseline's has a positive present
+/// value.</param>
 public sealed record DiscountedOptimum(
     string ScheduleId,
     double SchoolingYears,
@@ -43,7 +45,8 @@ public sealed record DiscountedOptimum(
         && ScheduleLabel == other.ScheduleLabel && HorizonYears == other.HorizonYears
         && LongerSchoolingPays == other.LongerSchoolingPays;
 
-    public override int GetHashCode() => HashCode.Combine(ScheduleId, SchoolingYears, PresentValue, Same.Hash(ByHorizon));
+    public override int GetHashCode() =>
+        HashCode.Combine(ScheduleId, SchoolingYears, PresentValue, Same.Hash(ByHorizon));
 }
 
 /// <param name="ValuationYear">Calendar year present values are valued at: technology level 1 and discount factor 1
@@ -62,7 +65,8 @@ public sealed record AppraisalResults(
         && HorizonYears == other.HorizonYears && PhaseInCohorts == other.PhaseInCohorts
         && Same.Items(Options, other.Options) && Optimum.Equals(other.Optimum);
 
-    public override int GetHashCode() => HashCode.Combine(ReformYear, ValuationYear, HorizonYears, Same.Hash(Options), Optimum);
+    public override int GetHashCode() =>
+        HashCode.Combine(ReformYear, ValuationYear, HorizonYears, Same.Hash(Options), Optimum);
 }
 
 public static class Appraisal

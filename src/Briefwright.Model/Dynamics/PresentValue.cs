@@ -91,7 +91,8 @@ public sealed record PresentValue(
     }
 
     /// <param name="dH">D at the horizon, <paramref name="h"/> years after the valuation date.</param>
-    private static (double? Tail, TailBasis Basis) TailValue(DiscountSchedule schedule, double dH, int h, double g, double longRunGain)
+    private static (double? Tail, TailBasis Basis) TailValue(
+        DiscountSchedule schedule, double dH, int h, double g, double longRunGain)
     {
         int lastStart = schedule.Steps[^1].FromYear;
         double lastRate = schedule.Steps[^1].Rate;

@@ -15,8 +15,9 @@ public sealed record ReformPath(
     int? FirstPositiveYear)
 {
     public bool Equals(ReformPath? other) =>
-        other is not null && OptionId == other.OptionId && Same.Items(Gain, other.Gain) && LongRunGain.Equals(other.LongRunGain)
-        && BalancedGrowthGain.Equals(other.BalancedGrowthGain) && DipDepth.Equals(other.DipDepth) && DipYear == other.DipYear
+        other is not null && OptionId == other.OptionId && Same.Items(Gain, other.Gain)
+        && LongRunGain.Equals(other.LongRunGain) && BalancedGrowthGain.Equals(other.BalancedGrowthGain)
+        && DipDepth.Equals(other.DipDepth) && DipYear == other.DipYear
         && FirstPositiveYear == other.FirstPositiveYear && ReformYear == other.ReformYear;
 
     public override int GetHashCode() => HashCode.Combine(OptionId, Same.Hash(Gain), LongRunGain, DipYear, ReformYear);

@@ -49,7 +49,8 @@ public static class ReformSimulator
         if (reform.Id == baseline.Id) return ReformPath.Flat(reform.Id, settings.HorizonYears) with { ReformYear = settings.Year };
         cache ??= new Cache();
         var labour = new Labour(inputs, reform, settings.PhaseInCohorts, cache);
-        var gain = Gains(inputs.Production, labour, settings.HorizonYears, settledShortcut ? labour.SettledFrom : double.PositiveInfinity);
+        double settled = settledShortcut ? labour.SettledFrom : double.PositiveInfinity;
+        var gain = Gains(inputs.Production, labour, settings.HorizonYears, settled);
         double bgpGain = cache.OutputPerPerson(inputs, reform) / cache.OutputPerPerson(inputs, baseline) - 1;
         return Landmarks(reform.Id, gain, bgpGain, settings.Year);
     }
@@ -71,7 +72,8 @@ public static class ReformSimulator
             var hc = inputs.HumanCapital;
             // Tables run to the latest retirement age of any option, so options share them.
             double lastAge = double.NegativeInfinity;
-            foreach (var o in inputs.Options) lastAge = Math.Max(lastAge, o.RetirementAge ?? inputs.Demography.RetirementAge);
+            foreach (var o in inputs.Options)
+                lastAge = Math.Max(lastAge, o.RetirementAge ?? inputs.Demography.RetirementAge);
             population = cache.Population(inputs);
             var before = Before;
             CohortLabour Table(double e)
@@ -121,7 +123,8 @@ public static class ReformSimulator
     {
         // Capital: with z = k^(1−α), k̇ = s·k^α·x^(1−α) − λk becomes linear, ż = (1−α)(s·x^(1−α) − λz), and is
         // integrated exactly for forcing that is linear within each time step (an exponential integrator).
-        double alpha = p.CapitalShare, s = p.SavingRate, lambda = BalancedGrowth.EffectiveDepreciation(labour.Before, p);
+        double alpha = p.CapitalShare, s = p.SavingRate;
+        double lambda = BalancedGrowth.EffectiveDepreciation(labour.Before, p);
         double beta = 1 - alpha, mu = beta * lambda, h = ReformSettings.TimeStep;
         double decay = Math.Exp(-mu * h);
         // ∫₀^h e^(−μ(h−τ))·(1 − τ/h) dτ and ∫₀^h e^(−μ(h−τ))·τ/h dτ.
@@ -135,7 +138,8 @@ public static class ReformSimulator
 
         var gain = new double[horizon + 1];
         int stepsPerYear = (int)Math.Round(1 / h);
-        double xSettled = double.IsPositiveInfinity(settled) ? double.NaN : labour.At(settled), lnSettled = Math.Log(xSettled);
+        double xSettled = double.IsPositiveInfinity(settled) ? double.NaN : labour.At(settled);
+        double lnSettled = Math.Log(xSettled);
         double xNow = labour.At(0), lnNow = Math.Log(xNow), fNow = Forcing(lnNow);
         gain[0] = Output(z, lnNow) / y0 - 1;
         for (int year = 0; year < horizon; year++)

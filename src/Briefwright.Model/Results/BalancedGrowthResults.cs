@@ -23,7 +23,8 @@ public enum RefinementMethod
 }
 
 /// <summary>How the optimum was found and whether the search converged.</summary>
-public sealed record SolverDiagnostics(int GridPoints, int RefinementIterations, bool Converged, double Tolerance, RefinementMethod Refinement);
+public sealed record SolverDiagnostics(
+    int GridPoints, int RefinementIterations, bool Converged, double Tolerance, RefinementMethod Refinement);
 
 /// <summary>Why the closed form E* = R − a₀ + ln(1 − n/r)/n does not apply.</summary>
 public enum ClosedFormObstacle
@@ -53,13 +54,15 @@ public sealed record OptimumResult(
     SolverDiagnostics Diagnostics)
 {
     public bool Equals(OptimumResult? other) =>
-        other is not null && SchoolingYears.Equals(other.SchoolingYears) && OutputPerPerson.Equals(other.OutputPerPerson)
+        other is not null && SchoolingYears.Equals(other.SchoolingYears)
+        && OutputPerPerson.Equals(other.OutputPerPerson)
         && Method == other.Method && ClosedFormNotApplicable == other.ClosedFormNotApplicable
         && Same.Items(Within1Pct, other.Within1Pct) && AtBoundary == other.AtBoundary
         && FeasibleMaxSchooling.Equals(other.FeasibleMaxSchooling) && Same.Items(LocalMaxima, other.LocalMaxima)
         && Diagnostics.Equals(other.Diagnostics);
 
-    public override int GetHashCode() => HashCode.Combine(SchoolingYears, OutputPerPerson, Method, Same.Hash(Within1Pct), Diagnostics);
+    public override int GetHashCode() =>
+        HashCode.Combine(SchoolingYears, OutputPerPerson, Method, Same.Hash(Within1Pct), Diagnostics);
 }
 
 /// <summary>Balanced-growth quantities shared by all options.</summary>

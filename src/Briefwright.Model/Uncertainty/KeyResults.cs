@@ -12,10 +12,12 @@ public sealed record KeyResults(
     double OptimumYears)
 {
     public bool Equals(KeyResults? other) =>
-        other is not null && Same.Items(OptionIds, other.OptionIds) && Same.Items(LongRunChangePct, other.LongRunChangePct)
+        other is not null && Same.Items(OptionIds, other.OptionIds)
+        && Same.Items(LongRunChangePct, other.LongRunChangePct)
         && Same.Items(PresentValue, other.PresentValue) && OptimumYears.Equals(other.OptimumYears);
 
-    public override int GetHashCode() => HashCode.Combine(Same.Hash(OptionIds), Same.Hash(LongRunChangePct), OptimumYears);
+    public override int GetHashCode() =>
+        HashCode.Combine(Same.Hash(OptionIds), Same.Hash(LongRunChangePct), OptimumYears);
 
     /// <summary>The long-run change (percent) of the option <paramref name="optionId"/>.</summary>
     public double LongRunChangeOf(string optionId) => LongRunChangePct[IndexOf(optionId)];

@@ -38,7 +38,8 @@ public sealed record MonteCarloResults(
         && Same.Items(Options, other.Options) && OptimumYears.Equals(other.OptimumYears)
         && Same.Items(HeadlineFan, other.HeadlineFan) && Same.Items(HeadlineChangeSample, other.HeadlineChangeSample);
 
-    public override int GetHashCode() => HashCode.Combine(Draws, Rejected, Seed, Same.Hash(Options), Same.Hash(HeadlineChangeSample));
+    public override int GetHashCode() =>
+        HashCode.Combine(Draws, Rejected, Seed, Same.Hash(Options), Same.Hash(HeadlineChangeSample));
 }
 
 public static class MonteCarlo

@@ -3,7 +3,8 @@ using Briefwright.Model.Results;
 
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>One parameter's effect on one option's long-run change (percent), at the ends of its range (one tornado bar).</summary>
+/// <summary>One parameter's effect on one option's long-run change (percent), at the ends of its range (one tornado
+/// bar).</summary>
 public sealed record OptionSwing(TornadoRow Row, double AtLowPct, double AtHighPct);
 
 /// <summary>
@@ -22,9 +23,11 @@ public sealed record OptionOutcome(
     public bool IsBaseline => BalancedGrowth.IsBaseline;
 
     /// <summary>The reform path (alternatives only).</summary>
-    public ReformPath Path => Appraisal?.Path ?? throw new InvalidOperationException($"The baseline {Id} has no reform path.");
+    public ReformPath Path =>
+        Appraisal?.Path ?? throw new InvalidOperationException($"The baseline {Id} has no reform path.");
 
-    /// <summary>Present values under every discount schedule, the headline schedule first (alternatives only).</summary>
+    /// <summary>Present values under every discount schedule, the headline schedule first (alternatives
+    /// only).</summary>
     public IReadOnlyList<PresentValue> PresentValues => Appraisal?.PresentValues ?? [];
 
     public bool Equals(OptionOutcome? other) =>
@@ -56,7 +59,8 @@ public sealed class OptionOutcomes : IEquatable<OptionOutcomes>
 
     public OptionOutcome Baseline { get; }
 
-    /// <summary>Every option but the baseline, in scenario order (the order of the appraisal and Monte Carlo lists).</summary>
+    /// <summary>Every option but the baseline, in scenario order (the order of the appraisal and Monte Carlo
+    /// lists).</summary>
     public IReadOnlyList<OptionOutcome> Alternatives { get; }
 
     public OptionOutcome this[string id] => All.First(o => o.Id == id);
@@ -69,7 +73,8 @@ public sealed class OptionOutcomes : IEquatable<OptionOutcomes>
         {
             var appraisal = appraisals.GetValueOrDefault(o.Id);
             IReadOnlyList<OptionSwing> swings = o.IsBaseline || appraisal is null ? [] : analysis.Tornado
-                .Select(t => new OptionSwing(t, t.AtLow.LongRunChangeOf(o.Id), t.AtHigh.LongRunChangeOf(o.Id))).ToList();
+                .Select(t => new OptionSwing(t, t.AtLow.LongRunChangeOf(o.Id), t.AtHigh.LongRunChangeOf(o.Id)))
+                .ToList();
             return new OptionOutcome(o, appraisal, uncertainty?.GetValueOrDefault(o.Id), swings);
         }).ToList();
         return new OptionOutcomes(all, analysis.HeadlineOptionId);
