@@ -5,7 +5,12 @@ namespace Briefwright.Brief.Tests;
 /// <summary>The "changes since the previous edition" section says truthfully why there is a new edition.</summary>
 public class ChangesModelTests
 {
-    private static readonly ChangedValue Saving = new("production.saving_rate", "Saving rate", "22.00%", "23.00%", "invented");
+    private static readonly ChangedValue Saving = new(
+        "production.saving_rate",
+        "Saving rate",
+        "22.00%",
+        "23.00%",
+        "invented");
 
     private static EditionChanges Changes(string[] causes, bool assumption = false) =>
         new(1, "2026-11-30", assumption ? [Saving] : [], []) { Causes = causes, Edition = 2 };
@@ -30,7 +35,9 @@ public class ChangesModelTests
     [Fact]
     public void Content_without_a_changed_assumption_names_the_scenarios_other_content()
     {
-        Assert.Contains("a change of the scenario's other content (such as its title, question, options' wording or notes)", ChangesModel.Table(Changes(["content"])));
+        Assert.Contains(
+            "a change of the scenario's other content (such as its title, question, options' wording or notes)",
+            ChangesModel.Table(Changes(["content"])));
     }
 
     [Fact]
@@ -44,7 +51,9 @@ public class ChangesModelTests
     public void Several_causes_beside_a_table_are_named_after_it()
     {
         string text = ChangesModel.Table(Changes(["content", "template", "date"], assumption: true));
-        Assert.EndsWith("\nThis edition also follows a change of the template (the brief's wording and layout).\n", text);
+        Assert.EndsWith(
+            "\nThis edition also follows a change of the template (the brief's wording and layout).\n",
+            text);
     }
 
     [Fact]

@@ -11,7 +11,9 @@ internal static class ExternalTool
         File.WriteAllBytes(path, pdf);
         try
         {
-            var psi = new ProcessStartInfo(tool, $"{args} \"{path}\"") { RedirectStandardOutput = true, RedirectStandardError = true };
+            var psi = new ProcessStartInfo(tool, $"{args} \"{path}\"") {
+                RedirectStandardOutput = true,
+                RedirectStandardError = true };
             using var p = Process.Start(psi) ?? throw new InvalidOperationException($"{tool} did not start.");
             string output = p.StandardOutput.ReadToEnd() + p.StandardError.ReadToEnd();
             p.WaitForExit();
@@ -19,7 +21,8 @@ internal static class ExternalTool
         }
         catch (System.ComponentModel.Win32Exception)
         {
-            throw new InvalidOperationException($"{tool} is not installed; .ci/run installs it (apt-get install poppler-utils qpdf).");
+            throw new InvalidOperationException(
+                $"{tool} is not installed; .ci/run installs it (apt-get install poppler-utils qpdf).");
         }
         finally
         {

@@ -80,7 +80,9 @@ public class PaletteTests
             for (int j = i + 1; j < colours.Length; j++)
             {
                 double d = DeltaE(View(colours[i], matrix), View(colours[j], matrix));
-                Assert.True(d >= MinDeltaE, $"{view}: options {i + 1} and {j + 1} differ by {d:0.0} (CIE76), below {MinDeltaE}");
+                Assert.True(
+                    d >= MinDeltaE,
+                    $"{view}: options {i + 1} and {j + 1} differ by {d:0.0} (CIE76), below {MinDeltaE}");
             }
     }
 
@@ -92,7 +94,9 @@ public class PaletteTests
             for (int j = i + 1; j < colours.Length; j++)
             {
                 double d = Math.Abs(View(colours[i], null).L - View(colours[j], null).L);
-                Assert.True(d >= MinGreyDelta, $"options {i + 1} and {j + 1} differ by {d:0.0} in lightness, below {MinGreyDelta}");
+                Assert.True(
+                    d >= MinGreyDelta,
+                    $"options {i + 1} and {j + 1} differ by {d:0.0} in lightness, below {MinGreyDelta}");
             }
     }
 

@@ -105,7 +105,9 @@ public class EditionRuleTests
     {
         var w = Built();
         string template = Path.Combine(w.Dir, "brief-template.md");
-        File.WriteAllText(template, File.ReadAllText(Path.Combine(RepositoryRoot.Path, "templates", "standard-brief.md")));
+        File.WriteAllText(
+            template,
+            File.ReadAllText(Path.Combine(RepositoryRoot.Path, "templates", "standard-brief.md")));
         Assert.Equal(0, w.Build("-t", template).Code); // the standard template's own text, named: the same template
         Assert.Equal(1, Current(w).Edition);
         File.AppendAllText(template, "\nA closing line added to the template.\n");
@@ -198,6 +200,8 @@ public class EditionRuleTests
         w.Edit("auroria-national.yaml", "value: 23%", "value: 24%");
         Next("--date", "2026-12-31"); // edition 3, same date as the re-dated edition 2
         Assert.Equal("auroria-national-2026-12-31-edition-3", Current(w).Stem);
-        Assert.Equal(["edition-1", "edition-2", "edition-2-2"], Directory.GetDirectories(Path.Combine(w.Out, "archive", Id)).Select(Path.GetFileName).Order());
+        Assert.Equal(
+            ["edition-1", "edition-2", "edition-2-2"],
+            Directory.GetDirectories(Path.Combine(w.Out, "archive", Id)).Select(Path.GetFileName).Order());
     }
 }

@@ -12,14 +12,18 @@ public class FormatsTests
     private static (int Edition, List<string> Files) Manifest(string outDir)
     {
         using var m = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "auroria-silverdale.manifest.json")));
-        return (m.RootElement.GetProperty("edition").GetInt32(), m.RootElement.GetProperty("files").EnumerateArray().Select(f => f.GetString()!).ToList());
+        return (m.RootElement.GetProperty("edition").GetInt32(), m.RootElement.GetProperty("files").EnumerateArray()
+            .Select(f => f.GetString()!)
+            .ToList());
     }
 
     private static (int Code, string Out, string Err) Build(Workspace w, params string[] extra)
     {
         var output = new StringWriter();
         var error = new StringWriter();
-        int code = CliApp.Run(new[] { "build", Path.Combine(w.Dir, "auroria-silverdale.yaml"), "--no-chart-images" }.Concat(extra).ToArray(), output, error);
+        int code = CliApp.Run(new[] { "build", Path.Combine(w.Dir, "auroria-silverdale.yaml"), "--no-chart-images" }
+            .Concat(extra)
+            .ToArray(), output, error);
         return (code, output.ToString(), error.ToString());
     }
 
@@ -59,7 +63,9 @@ public class FormatsTests
         Assert.DoesNotContain(files, f => f.EndsWith(".html") || f.EndsWith(".xlsx") || f.EndsWith(".docx"));
         Assert.False(File.Exists(Path.Combine(w.Out, Stem + ".html")));
         // A file dropped by an output switch is kept first, as the edition rule says (EditionPlanner.KeepReplaced).
-        Assert.Contains(Directory.GetFiles(Path.Combine(w.Out, "archive"), Stem + ".html", SearchOption.AllDirectories), f => f.Contains("edition-1", StringComparison.Ordinal));
+        Assert.Contains(
+            Directory.GetFiles(Path.Combine(w.Out, "archive"), Stem + ".html", SearchOption.AllDirectories),
+            f => f.Contains("edition-1", StringComparison.Ordinal));
         Assert.Equal(pdf, File.ReadAllBytes(Path.Combine(w.Out, Stem + ".pdf")));
     }
 
@@ -96,7 +102,9 @@ public class FormatsTests
         File.WriteAllText(settings, "formats: [html, odt]\n");
         var badSettings = Build(w);
         Assert.Equal(2, badSettings.Code);
-        Assert.Contains($"{settings}:1:17: formats: must be a list of format names (pdf, html, xlsx, docx). Got 'odt'.", badSettings.Err);
+        Assert.Contains(
+            $"{settings}:1:17: formats: must be a list of format names (pdf, html, xlsx, docx). Got 'odt'.",
+            badSettings.Err);
         File.WriteAllText(settings, "formats: html\n");
         Assert.Equal(2, Build(w).Code);
     }

@@ -13,8 +13,11 @@ internal sealed class Workspace
         foreach (var f in Directory.GetFiles(CliAppTests.Demo()))
         {
             string name = Path.GetFileName(f);
-            if (name.EndsWith(".yaml") && names.Length > 0 && !names.Contains(Path.GetFileNameWithoutExtension(name)) && name != "auroria-national.yaml") continue;
-            string text = File.ReadAllText(f).Replace("draws: 2000", "draws: 60").Replace("sobol_samples: 2560", "sobol_samples: 0").Replace("steps: 9", "steps: 3");
+            if (name.EndsWith(".yaml") && names.Length > 0 && !names.Contains(Path.GetFileNameWithoutExtension(name))
+                && name != "auroria-national.yaml") continue;
+            string text = File.ReadAllText(f).Replace("draws: 2000", "draws: 60")
+                .Replace("sobol_samples: 2560", "sobol_samples: 0")
+                .Replace("steps: 9", "steps: 3");
             File.WriteAllText(Path.Combine(Dir, name), text);
         }
     }

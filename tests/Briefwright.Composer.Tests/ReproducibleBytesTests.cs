@@ -27,7 +27,8 @@ public class ReproducibleBytesTests
     private static byte[] StoredDeflate(string text)
     {
         using var packed = new MemoryStream();
-        using (var z = new ZLibStream(packed, CompressionLevel.NoCompression, leaveOpen: true)) z.Write(Encoding.ASCII.GetBytes(text));
+        using (var z = new ZLibStream(packed, CompressionLevel.NoCompression, leaveOpen: true)) z.Write(
+            Encoding.ASCII.GetBytes(text));
         return packed.ToArray();
     }
 
@@ -105,7 +106,10 @@ public class ReproducibleBytesTests
     private static int CountOf(string s, string what)
     {
         int n = 0;
-        for (int i = s.IndexOf(what, StringComparison.Ordinal); i >= 0; i = s.IndexOf(what, i + 1, StringComparison.Ordinal)) n++;
+        for (
+            int i = s.IndexOf(what, StringComparison.Ordinal);
+            i >= 0;
+            i = s.IndexOf(what, i + 1, StringComparison.Ordinal)) n++;
         return n;
     }
 
@@ -115,7 +119,9 @@ public class ReproducibleBytesTests
         File.WriteAllBytes(path, pdf);
         try
         {
-            var psi = new ProcessStartInfo("qpdf", $"{args} \"{path}\"") { RedirectStandardOutput = true, RedirectStandardError = true };
+            var psi = new ProcessStartInfo("qpdf", $"{args} \"{path}\"") {
+                RedirectStandardOutput = true,
+                RedirectStandardError = true };
             using var p = Process.Start(psi)!;
             string output = p.StandardOutput.ReadToEnd() + p.StandardError.ReadToEnd();
             p.WaitForExit();

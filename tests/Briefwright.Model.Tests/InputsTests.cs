@@ -41,11 +41,18 @@ public class InputsTests
         // φ(E) = ∫₀^E θ·s^(−ψ) ds. Independent route: that integral by double-exponential quadrature (Math.NET) after the
         // substitution s = x⁴, which removes the singularity at 0. θ = 0.32, ψ = 0.58 are recalled from memory.
         var p = new PowerReturn(0.32, 0.58);
-        double integral = MathNet.Numerics.Integrate.DoubleExponential(x => 0.32 * Math.Pow(x * x * x * x, -0.58) * 4 * x * x * x, 0, Math.Pow(years, 0.25), 1e-13);
+        double integral = MathNet.Numerics.Integrate.DoubleExponential(
+            x => 0.32 * Math.Pow(x * x * x * x, -0.58) * 4 * x * x * x,
+            0,
+            Math.Pow(years, 0.25),
+            1e-13);
         Assert.Equal(integral, p.Phi(years), 8);
         // The marginal return is the slope of φ (central difference) and falls with schooling.
         double h = 1e-5;
-        Assert.Equal((p.Phi(years + h) - p.Phi(years - Math.Min(h, years / 2))) / (h + Math.Min(h, years / 2)), p.MarginalReturn(years), 6);
+        Assert.Equal(
+            (p.Phi(years + h) - p.Phi(years - Math.Min(h, years / 2))) / (h + Math.Min(h, years / 2)),
+            p.MarginalReturn(years),
+            6);
         Assert.True(p.MarginalReturn(years) > p.MarginalReturn(years + 1));
     }
 }

@@ -31,7 +31,9 @@ public class TemplateBudgetTests
     [InlineData("{{ [1] | array.insert_at 900000000 1 | array.size }}", "Got 900,000,000")]
     [InlineData("{{ (1..1000000000) | array.size }}", "Got 1,000,000,000")]
     [InlineData("{{ (1..99999) | array.size }}", "Range expression exceeds LoopLimit")]
-    [InlineData("{{ x = 'abcdefgh'; for i in 1..40; x = x + x; end; x | string.size }}", "The template made a text of 2,097,15")]
+    [InlineData(
+        "{{ x = 'abcdefgh'; for i in 1..40; x = x + x; end; x | string.size }}",
+        "The template made a text of 2,097,15")]
     public void Oversized_numbers_texts_and_lists_stop_the_template(string text, string expected)
     {
         Assert.Contains(expected, Error(text).Message);
@@ -93,7 +95,8 @@ public class TemplateBudgetFuzzTests
         int stopped = 0, filled = 0;
         for (int i = 0; i < 150; i++)
         {
-            string text = string.Concat(Enumerable.Range(0, 1 + rng.Next(4)).Select(_ => Pieces[rng.Next(Pieces.Length)]));
+            string text = string.Concat(
+                Enumerable.Range(0, 1 + rng.Next(4)).Select(_ => Pieces[rng.Next(Pieces.Length)]));
             try
             {
                 string output = BriefTemplate.Parse(text, "t.md").Render(model);
@@ -102,7 +105,9 @@ public class TemplateBudgetFuzzTests
             }
             catch (TemplateException ex)
             {
-                Assert.All(ex.Errors, e => Assert.True(e.Line >= 1 && e.Column >= 1 && e.File == "t.md", $"case {i}: {e}"));
+                Assert.All(
+                    ex.Errors,
+                    e => Assert.True(e.Line >= 1 && e.Column >= 1 && e.File == "t.md", $"case {i}: {e}"));
                 stopped++;
             }
         }

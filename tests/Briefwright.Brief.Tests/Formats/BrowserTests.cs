@@ -20,7 +20,9 @@ public class BrowserTests
         get
         {
             string path = Path.Combine(RepositoryRoot.Path, ".tools", "node_modules", "axe-core", "axe.min.js");
-            Assert.True(File.Exists(path), $"{path} is missing; test.sh installs it (npm install --prefix .tools axe-core).");
+            Assert.True(
+                File.Exists(path),
+                $"{path} is missing; test.sh installs it (npm install --prefix .tools axe-core).");
             return File.ReadAllText(path);
         }
     }
@@ -28,8 +30,17 @@ public class BrowserTests
     /// <summary>Runs headless Chromium on a page and returns what it printed; a missing browser fails with how to install it.</summary>
     internal static string RunChromium(string dir, params string[] args)
     {
-        var psi = new ProcessStartInfo(Chromium) { RedirectStandardOutput = true, RedirectStandardError = true, WorkingDirectory = dir };
-        foreach (var a in new[] { "--headless", "--no-sandbox", "--disable-gpu", "--hide-scrollbars", "--no-first-run", $"--user-data-dir={Path.Combine(dir, "profile")}" }.Concat(args))
+        var psi = new ProcessStartInfo(Chromium) {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            WorkingDirectory = dir };
+        foreach (var a in new[] {
+            "--headless",
+            "--no-sandbox",
+            "--disable-gpu",
+            "--hide-scrollbars",
+            "--no-first-run",
+            $"--user-data-dir={Path.Combine(dir, "profile")}" }.Concat(args))
             psi.ArgumentList.Add(a);
         try
         {
@@ -42,7 +53,8 @@ public class BrowserTests
         }
         catch (System.ComponentModel.Win32Exception)
         {
-            throw new InvalidOperationException("chromium is not installed; test.sh installs it (apt-get install chromium).");
+            throw new InvalidOperationException(
+                "chromium is not installed; test.sh installs it (apt-get install chromium).");
         }
     }
 
@@ -106,7 +118,8 @@ public class BrowserTests
             Assert.True(m.Success, "axe wrote no results: " + dom[Math.Max(0, dom.Length - 500)..]);
             string json = WebUtility.HtmlDecode(m.Groups[1].Value);
             Assert.False(json.StartsWith("ERROR", StringComparison.Ordinal), json);
-            return JsonDocument.Parse(json).RootElement.EnumerateArray().Select(v => (v.GetProperty("id").GetString()!, v.GetProperty("impact").GetString()!,
+            return JsonDocument.Parse(json).RootElement.EnumerateArray().Select(v => (v.GetProperty("id")
+                .GetString()!, v.GetProperty("impact").GetString()!,
                 v.GetProperty("nodes").GetInt32(), v.GetProperty("help").GetString()!)).ToList();
         }
         finally
@@ -120,7 +133,9 @@ public class BrowserTests
     {
         var violations = Axe(System.Text.Encoding.UTF8.GetString(FormatsDemo.File(FormatsDemo.National, "html")));
         var serious = violations.Where(v => v.Impact is "serious" or "critical").ToList();
-        Assert.True(serious.Count == 0, string.Join("\n", serious.Select(v => $"{v.Impact} {v.Id} ({v.Nodes}): {v.Help}")));
+        Assert.True(
+            serious.Count == 0,
+            string.Join("\n", serious.Select(v => $"{v.Impact} {v.Id} ({v.Nodes}): {v.Help}")));
     }
 
     [Fact]
@@ -128,7 +143,10 @@ public class BrowserTests
     {
         // The same page with an unlabelled image and a table header without a scope that fits: the harness must see them.
         string html = System.Text.Encoding.UTF8.GetString(FormatsDemo.File(FormatsDemo.National, "html"))
-            .Replace("<main id=\"main\">", "<main id=\"main\"><img src=\"data:image/png;base64,iVBORw0KGgo=\">", StringComparison.Ordinal)
+            .Replace(
+                "<main id=\"main\">",
+                "<main id=\"main\"><img src=\"data:image/png;base64,iVBORw0KGgo=\">",
+                StringComparison.Ordinal)
             .Replace("<html lang=\"en-GB\">", "<html>", StringComparison.Ordinal);
         var violations = Axe(html);
         Assert.Contains(violations, v => v.Id == "image-alt" && v.Impact == "critical");
