@@ -12,6 +12,7 @@ Only lines longer than the limit change, with as little else as possible:
 - A code line that ends with a `//` comment (outside strings) moves that comment onto its own line(s) above it, at
   the code's indentation, when the line is over the limit and the comment is what makes it so or the code alone
   fits; the code itself is left as it is.
+- A one-line `/// <summary>...</summary>` becomes a block: `<summary>` and `</summary>` on lines of their own.
 - Never breaks inside an XML tag (`<see cref="X"/>`) or a `code span`; a single word longer than the line stays
   whole. Lines inside raw strings (\"\"\") spanning lines are not touched.
 Characters are counted as code points. --check prints what would change and exits 1 if anything would. Review the
@@ -129,6 +130,17 @@ def rewrap(lines, limit):
         if m:
             indent, marker = m.group("indent"), m.group("marker")
             prefix = indent + marker + " "
+            summary = re.match(r"^<summary>(.*)</summary>$", m.group("text").strip())
+            if marker == "///" and summary:
+                # A one-line summary becomes a block: the tags on lines of their own, the text filled between them.
+                new, words = [prefix + "<summary>"], tokens(summary.group(1))
+                while words:
+                    filled, words = fill(prefix, words, limit)
+                    new.append(filled)
+                out[i:i + 1] = new + [prefix + "</summary>"]
+                changed += 1
+                i += len(new) + 1
+                continue
             words = tokens(m.group("text"))
             first, rest = fill(prefix, words, limit)
             if not rest:

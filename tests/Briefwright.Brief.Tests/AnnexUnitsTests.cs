@@ -66,7 +66,8 @@ public class AnnexUnitsTests
             Assert.True(
                 change.GetProperty("p5_interval").GetProperty("low").GetDouble() <= change.GetProperty("p5").GetDouble());
         }
-        // The default base sample size was chosen so that the headline's 95% intervals are at most ±0.05 (docs/model.md).
+        // The default base sample size was chosen so that the headline's 95% intervals are at most ±0.05
+        // (docs/model.md).
         var headline = a.GetProperty("sobol").GetProperty("indices")[0];
         double[] Arr(string name) => headline.GetProperty(name).EnumerateArray().Select(x => x.GetDouble()).ToArray();
         var (first, firstLow, firstHigh, total, totalLow, totalHigh) = (Arr("first_order"), Arr("first_order_low"), Arr(

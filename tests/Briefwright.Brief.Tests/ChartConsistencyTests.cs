@@ -4,7 +4,9 @@ using SkiaSharp;
 
 namespace Briefwright.Brief.Tests;
 
-/// <summary>The demo brief's charts, drawn: one style per option across figures, one set of type sizes, axis titles that fit.</summary>
+/// <summary>
+/// The demo brief's charts, drawn: one style per option across figures, one set of type sizes, axis titles that fit.
+/// </summary>
 public class ChartConsistencyTests
 {
     private static IReadOnlyList<ChartSpec> DemoCharts()

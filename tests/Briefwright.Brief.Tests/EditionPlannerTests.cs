@@ -170,9 +170,10 @@ public class EditionPlannerTests
     }
 
     /// <summary>
-    /// The edition rule, on named inputs (the manifest's <c>inputs</c> and <c>outputs</c>). The rule is the project's own
-    /// (README, "Rebuilds, editions and the data annex"); that a reprint under a new date keeps its edition number and that
-    /// a new edition gets a name of its own is common practice for numbered documents, not taken from a source.
+    /// The edition rule, on named inputs (the manifest's <c>inputs</c> and <c>outputs</c>). The rule is the project's
+    /// own (README, "Rebuilds, editions and the data annex"); that a reprint under a new date keeps its edition number
+    /// and that a new edition gets a name of its own is common practice for numbered documents, not taken from a
+    /// source.
     /// </summary>
     public class Given_named_inputs
     {
@@ -213,7 +214,9 @@ public class EditionPlannerTests
 
         private static readonly string[] Files3 = ["b-2026-11-30-edition-3.results.json", "b-2026-11-30-edition-3.pdf"];
 
-        /// <summary>A request with some inputs or outputs changed from <see cref="Inputs"/> and <see cref="Outputs"/>.</summary>
+        /// <summary>
+        /// A request with some inputs or outputs changed from <see cref="Inputs"/> and <see cref="Outputs"/>.
+        /// </summary>
         private static EditionRequest Ask(
             int requested = 1,
             bool force = false,
@@ -421,7 +424,8 @@ public class EditionPlannerTests
             var day = new DateOnly(2026, 11, 30);
             Assert.Equal("b-2026-11-30", BriefBuilder.FileStem("b", day, 1));
             Assert.Equal("b-2026-11-30-edition-2", BriefBuilder.FileStem("b", day, 2));
-            // Any two editions differ in name, whatever their dates; a re-dated edition differs from its earlier copy by date.
+            // Any two editions differ in name, whatever their dates; a re-dated edition differs from its earlier copy
+            // by date.
             var names = new[] { (day, 1), (day, 2), (day.AddDays(31), 2), (day.AddDays(31), 3) }.Select(
                 e => BriefBuilder.FileStem("b", e.Item1, e.Item2)).ToList();
             Assert.Equal(names.Count, names.Distinct().Count());

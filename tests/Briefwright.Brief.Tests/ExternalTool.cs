@@ -2,7 +2,9 @@ using System.Diagnostics;
 
 namespace Briefwright.Brief.Tests;
 
-/// <summary>Runs a PDF checker from poppler-utils or qpdf (installed by .ci/run) on bytes written to a temporary file.</summary>
+/// <summary>
+/// Runs a PDF checker from poppler-utils or qpdf (installed by .ci/run) on bytes written to a temporary file.
+/// </summary>
 internal static class ExternalTool
 {
     public static (int Code, string Output) Run(string tool, string args, byte[] pdf)

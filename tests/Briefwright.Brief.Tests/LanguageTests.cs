@@ -97,7 +97,8 @@ public class LanguageTests
         // The baseline's index in the results table is 100 to one decimal, written with the language's decimal mark.
         Assert.Contains(baselineIndex, text);
         if (baselineIndex.Contains(',')) Assert.DoesNotContain("100.0", text);
-        // The headline change is +4.1% for the national scenario (DESIGN.md's demo check value), in the language's format.
+        // The headline change is +4.1% for the national scenario (DESIGN.md's demo check value), in the language's
+        // format.
         string change = "+4" + baselineIndex[3] + "1" + percent;
         Assert.Contains(change, text);
         // The PDF's language tag.

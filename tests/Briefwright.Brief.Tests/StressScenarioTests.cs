@@ -123,8 +123,8 @@ public class StressScenarioTests
         Assert.Equal(
             JsonValueKind.Null,
             Build("s07-never-pays-back").Json.GetProperty("headline").GetProperty("break_even_calendar_year").ValueKind);
-        // At the longest feasible schooling nobody works, so output per person is zero there: the optimum can come close
-        // to that edge (s03) but never sit on it.
+        // At the longest feasible schooling nobody works, so output per person is zero there: the optimum can come
+        // close to that edge (s03) but never sit on it.
         var near = Build("s03-optimum-near-maximum").Json.GetProperty("optimum");
         Assert.False(near.GetProperty("at_boundary").GetBoolean());
         Assert.True(
@@ -140,7 +140,9 @@ public class StressScenarioTests
             Assert.Equal(scenario.Brief.Status != "final", page.Contains("DRAFT", StringComparison.Ordinal));
     }
 
-    /// <summary>Numbers the template writes itself ("In 90% of the model runs", "less than 0.05%"), not results.</summary>
+    /// <summary>
+    /// Numbers the template writes itself ("In 90% of the model runs", "less than 0.05%"), not results.
+    /// </summary>
     private static readonly string[] Constants = { "90%", "0.05%" };
 
     [Theory]
@@ -175,7 +177,9 @@ public class StressScenarioTests
         }
     }
 
-    /// <summary>The results data page 1 may quote: the headline block, each option's change and schooling, and the lever split.</summary>
+    /// <summary>
+    /// The results data page 1 may quote: the headline block, each option's change and schooling, and the lever split.
+    /// </summary>
     private static List<double> PageOneFacts(JsonElement json)
     {
         var facts = new List<double>();

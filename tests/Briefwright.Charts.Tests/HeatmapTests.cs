@@ -4,7 +4,9 @@ using SkiaSharp;
 
 namespace Briefwright.Charts.Tests;
 
-/// <summary>The heat map's cells, read back from the drawn pixels: one per grid value, centred on it, edge cells whole.</summary>
+/// <summary>
+/// The heat map's cells, read back from the drawn pixels: one per grid value, centred on it, edge cells whole.
+/// </summary>
 public class HeatmapTests
 {
     static HeatmapTests()

@@ -31,7 +31,9 @@ public class PaletteTests
     /// </summary>
     private const double MinDeltaE = 20;
 
-    /// <summary>Minimum difference in CIELAB lightness L* between any two options, the only thing left in greyscale.</summary>
+    /// <summary>
+    /// Minimum difference in CIELAB lightness L* between any two options, the only thing left in greyscale.
+    /// </summary>
     private const double MinGreyDelta = 8;
 
     // sRGB transfer function and D65 matrices: IEC 61966-2-1 (sRGB); CIELAB: CIE 15:2004.

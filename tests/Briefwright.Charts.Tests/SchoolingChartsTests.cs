@@ -82,7 +82,8 @@ public class SchoolingChartsTests
     {
         var a = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()));
         var b = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()));
-        // PNG signature, then the IHDR chunk: width and height as big-endian 32-bit integers (PNG specification, 11.2.2).
+        // PNG signature, then the IHDR chunk: width and height as big-endian 32-bit integers (PNG specification,
+        // 11.2.2).
         Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A }, a[..8]);
         Assert.Equal("IHDR", System.Text.Encoding.ASCII.GetString(a, 12, 4));
         Assert.True(ChartRenderer.PngWidth >= 1600);

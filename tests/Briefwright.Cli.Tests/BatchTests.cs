@@ -156,7 +156,8 @@ public class BatchTests
         var (code, _, err) = w.Build("--template", "no-such-template.md");
         Assert.Equal(ExitCodes.InvalidInput, code);
         Assert.Contains("no-such-template.md:1:1: cannot read the template (no such file).", err);
-        Assert.Equal(new[] { BuildLog.FileName }, Directory.GetFiles(w.Out).Select(Path.GetFileName)); // only the attempt is logged
+        // only the attempt is logged
+        Assert.Equal(new[] { BuildLog.FileName }, Directory.GetFiles(w.Out).Select(Path.GetFileName));
     }
 }
 
@@ -233,6 +234,7 @@ public class ThemeTests
         var (code, _, err) = w.Build("--theme", Path.Combine(w.Dir, "house.theme.yaml"));
         Assert.Equal(2, code);
         Assert.Contains("house.theme.yaml:3:12: fonts.regular: must be a TrueType font (glyf outlines); the file is an OpenType font with CFF outlines", err);
-        Assert.Equal(new[] { BuildLog.FileName }, Directory.GetFiles(w.Out).Select(Path.GetFileName)); // only the attempt is logged
+        // only the attempt is logged
+        Assert.Equal(new[] { BuildLog.FileName }, Directory.GetFiles(w.Out).Select(Path.GetFileName));
     }
 }

@@ -4,7 +4,9 @@ using Briefwright.Cli.Project;
 
 namespace Briefwright.Cli.Tests;
 
-/// <summary><c>build --plan</c>: what a build would do and why, from the same planner, writing nothing at all.</summary>
+/// <summary>
+/// <c>build --plan</c>: what a build would do and why, from the same planner, writing nothing at all.
+/// </summary>
 public class BuildPlanTests
 {
     private static (int Code, string Out, string Err) Run(params string[] args) => ReissueTests.Run(args);

@@ -24,7 +24,8 @@ public class CliAppTests
             var (code, output, error) = Run("check", Demo());
             Assert.Equal(0, code);
             Assert.Equal("", error);
-            Assert.Equal(6, output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length); // five scenarios and the theme
+            // five scenarios and the theme
+            Assert.Equal(6, output.Split('\n', StringSplitOptions.RemoveEmptyEntries).Length);
         }
 
         [Fact]

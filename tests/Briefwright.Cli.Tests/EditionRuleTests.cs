@@ -5,8 +5,8 @@ namespace Briefwright.Cli.Tests;
 
 /// <summary>
 /// The edition rule with real builds in a temporary folder, path by path, and what each brief's "changes" section says
-/// (read from its filled template, <c>.brief.md</c>). The rule is the project's own (README, "Rebuilds, editions and the
-/// data annex"); numbering reprints and new editions this way is common practice for numbered documents.
+/// (read from its filled template, <c>.brief.md</c>). The rule is the project's own (README, "Rebuilds, editions and
+/// the data annex"); numbering reprints and new editions this way is common practice for numbered documents.
 /// </summary>
 public class EditionRuleTests
 {
@@ -144,7 +144,8 @@ public class EditionRuleTests
         var edition1 = Snapshot.Of(w.Out);
         string theme = Path.Combine(w.Dir, "auroria-institute.theme.yaml");
         File.Copy(CliAppTests.Demo("auroria-institute.theme.yaml"), theme);
-        File.Copy(CliAppTests.Demo("auroria-institute-logo.png"), Path.Combine(w.Dir, "auroria-institute-logo.png"), overwrite: true); // the workspace copies text only
+        // the workspace copies text only
+        File.Copy(CliAppTests.Demo("auroria-institute-logo.png"), Path.Combine(w.Dir, "auroria-institute-logo.png"), overwrite: true);
         var (code, _, err) = w.Build("--theme", theme);
         Assert.True(code == 0, err);
         Assert.Equal((1, Stem1), (Current(w).Edition, Current(w).Stem));

@@ -3,8 +3,8 @@ using Briefwright.Cli.Project;
 
 namespace Briefwright.Cli.Tests;
 
-/// <summary>Which formats a build writes: chosen on the command line or in the project settings, covered by the manifest,
-/// listed in the summary, and never a new edition of the brief.</summary>
+/// <summary>Which formats a build writes: chosen on the command line or in the project settings, covered by the
+/// manifest, listed in the summary, and never a new edition of the brief.</summary>
 public class FormatsTests
 {
     private const string Stem = "auroria-silverdale-2026-11-30";
@@ -37,7 +37,8 @@ public class FormatsTests
         Assert.Equal((1, false), (Manifest(w.Out).Edition, File.Exists(Path.Combine(w.Out, Stem + ".html"))));
         byte[] pdf = File.ReadAllBytes(Path.Combine(w.Out, Stem + ".pdf"));
 
-        // When every format is switched on, then the same edition is rebuilt with them, in the manifest, nothing archived
+        // When every format is switched on, then the same edition is rebuilt with them, in the manifest, nothing
+        // archived
         var all = Build(w, "--formats", "pdf,html,xlsx,docx");
         Assert.True(all.Code == 0, all.Err);
         Assert.Matches(@"auroria-silverdale\s+built\s+1\s.*pdf html xlsx docx", all.Out);

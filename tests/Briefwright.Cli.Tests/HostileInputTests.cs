@@ -46,7 +46,8 @@ public class HostileInputTests
         var run = Task.Run(() => (Run("check", Path.Combine(dir, "pipe.yaml")), Run(
             "check",
             Path.Combine(dir, "child.yaml")), Run("check", Path.Combine(dir, "table.yaml"))));
-        var (top, child, table) = await run.WaitAsync(TimeSpan.FromMinutes(2)); // a TimeoutException means a named pipe blocked
+        // a TimeoutException means a named pipe blocked
+        var (top, child, table) = await run.WaitAsync(TimeSpan.FromMinutes(2));
         Assert.Equal((2, 2, 2), (top.Code, child.Code, table.Code));
         Assert.Contains("pipe.yaml:1:1: cannot read the scenario (it is a named pipe, not a regular file).", top.Err);
         Assert.Contains("child.yaml:1:10: extends: cannot read the extended scenario (it is a named pipe, not a regular file). Got 'pipe.yaml'.", child.Err);

@@ -63,7 +63,8 @@ public class SchemaVerdictTests
     private static readonly string[] LostInJson = ["quoted-number.yaml", "overlong-number.yaml"];
 
     /// <summary>A YAML tree as JSON, typed by the YAML 1.2 core schema (as editors' YAML support reads it): plain
-    /// true/false are booleans, plain numbers are numbers, plain null/~/empty is null, everything else a string.</summary>
+    /// true/false are booleans, plain numbers are numbers, plain null/~/empty is null, everything else a
+    /// string.</summary>
     public static JsonNode? ToJson(YNode node) => node switch
     {
         YMapping m => new JsonObject(m.Entries.GroupBy(e => e.Key.Value)

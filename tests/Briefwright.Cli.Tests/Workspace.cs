@@ -2,7 +2,9 @@ using System.Diagnostics;
 
 namespace Briefwright.Cli.Tests;
 
-/// <summary>A temporary copy of the demo scenarios with light Monte Carlo settings, so batch tests run quickly.</summary>
+/// <summary>
+/// A temporary copy of the demo scenarios with light Monte Carlo settings, so batch tests run quickly.
+/// </summary>
 internal sealed class Workspace
 {
     public string Dir { get; } = Directory.CreateTempSubdirectory("bw-batch-").FullName;

@@ -5,7 +5,10 @@ using Briefwright.Composer.Markdown;
 
 namespace Briefwright.Composer.Tests;
 
-/// <summary>The math notation: parsed, laid out with sizes and baselines, drawn inside a Formula element with spoken alternative text.</summary>
+/// <summary>
+/// The math notation: parsed, laid out with sizes and baselines, drawn inside a Formula element with spoken alternative
+/// text.
+/// </summary>
 public class MathTests
 {
     /// <summary>Every character 0.5 of the font size wide, so sizes show in widths.</summary>

@@ -40,11 +40,14 @@ public class ReproducibleBytesTests
         return output.ToArray();
     }
 
-    /// <summary>A small PDFsharp document (random subset tag, /ID and XMP uuids) with one extra compressed stream.</summary>
+    /// <summary>
+    /// A small PDFsharp document (random subset tag, /ID and XMP uuids) with one extra compressed stream.
+    /// </summary>
     private static byte[] Sample(byte[] compressed)
     {
         using var doc = new PdfDocument();
-        doc.Options.CompressContentStreams = false; // PDFsharp's own deflate output draws a qpdf warning (see DocumentComposer)
+        // PDFsharp's own deflate output draws a qpdf warning (see DocumentComposer)
+        doc.Options.CompressContentStreams = false;
         doc.Info.Title = "Sample (invented)";
         doc.Info.CreationDate = new DateTime(2026, 11, 30, 0, 0, 0, DateTimeKind.Utc);
         var page = doc.AddPage();
@@ -65,7 +68,8 @@ public class ReproducibleBytesTests
     {
         BundledFonts.Install();
         byte[] compressed = StoredDeflate(Lookalikes);
-        Assert.True(compressed.AsSpan().IndexOf(Encoding.ASCII.GetBytes("/NM(abc-123)")) >= 0); // the pattern is in the raw bytes
+        // the pattern is in the raw bytes
+        Assert.True(compressed.AsSpan().IndexOf(Encoding.ASCII.GetBytes("/NM(abc-123)")) >= 0);
 
         byte[] fixedPdf = ReproducibleBytes.Fix(Sample(compressed), new DateOnly(2026, 11, 30));
 

@@ -107,7 +107,9 @@ public class ValuationDateTests
         return new ReformPath("x", gain, gain[^1], 0.02, gain.Min(), 14, 16) { ReformYear = reformYear };
     }
 
-    /// <summary>Independent route: each calendar year's flow discounted year by year at the rates written out here.</summary>
+    /// <summary>
+    /// Independent route: each calendar year's flow discounted year by year at the rates written out here.
+    /// </summary>
     private static double BruteForce(ReformPath path, Func<int, double> rateInYear, int offset)
     {
         double pv = 0;

@@ -85,7 +85,8 @@ public class ReformSimulatorTests
             new ReformSettings(2027, 1, 150));
         Assert.NotNull(path.DipDepth);
         Assert.True(path.DipDepth < 0);
-        Assert.InRange(path.DipYear!.Value, 10, 14); // the first reform cohort would have started work after E₀ = 11 years
+        // the first reform cohort would have started work after E₀ = 11 years
+        Assert.InRange(path.DipYear!.Value, 10, 14);
         Assert.True(path.FirstPositiveYear > path.DipYear);
         Assert.True(path.LongRunGain > 0);
     }

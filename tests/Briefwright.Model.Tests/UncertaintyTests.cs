@@ -11,7 +11,8 @@ public class UncertaintyTests
         // Ishigami & Homma (1990): f = sin x₁ + a·sin² x₂ + b·x₃⁴·sin x₁, xᵢ ~ U(−π, π), a = 7, b = 0.1. Analytic
         // variances (Saltelli et al. 2008, Global Sensitivity Analysis: The Primer): V = a²/8 + bπ⁴/5 + b²π⁸/18 + 1/2,
         // V₁ = (1 + bπ⁴/5)²/2, V₂ = a²/8, V₃ = 0, V₁₃ = 8b²π⁸/225. The published indices S₁ = 0.3139, S₂ = 0.4424,
-        // S₃ = 0, S_T1 = 0.5576, S_T2 = 0.4424, S_T3 = 0.2437 are recalled from memory and checked against the formulas.
+        // S₃ = 0, S_T1 = 0.5576, S_T2 = 0.4424, S_T3 = 0.2437 are recalled from memory and checked against the
+        // formulas.
         private const double A = 7, B = 0.1;
         private static readonly double V = A * A / 8 + B * Math.Pow(Math.PI, 4) / 5 + B * B * Math.Pow(Math.PI, 8) / 18
             + 0.5;
@@ -196,7 +197,8 @@ public class UncertaintyTests
         [Fact]
         public void Truncated_normal_mean_and_quantiles_match_numerical_integration_of_the_density()
         {
-            // Independent route: the normal density of Math.NET integrated over [low, high] (double-exponential quadrature).
+            // Independent route: the normal density of Math.NET integrated over [low, high] (double-exponential
+            // quadrature).
             var d = new TruncatedNormalDistribution(0.2, 0.05, 0.15, 0.3);
             var normal = new MathNet.Numerics.Distributions.Normal(0.2, 0.05);
             double mass = MathNet.Numerics.Integrate.DoubleExponential(normal.Density, 0.15, 0.3, 1e-14);
@@ -384,8 +386,8 @@ public class UncertaintyTests
             // With the return to schooling scaled by k ~ U(low, high) and nothing else uncertain, the long-run change
             // is positive exactly when k exceeds the threshold k* where it crosses zero (found here by Brent's
             // method on the deterministic model), so P(gain) = (high − k*)/(high − low). The Monte Carlo estimate must
-            // agree within its own 95% interval (widened by a draw for rounding), and a distribution of higher returns must give a
-            // higher probability.
+            // agree within its own 95% interval (widened by a draw for rounding), and a distribution of higher returns
+            // must give a higher probability.
             var inputs = ReformSimulatorTests.Inputs();
             var settings = Settings();
             double Change(

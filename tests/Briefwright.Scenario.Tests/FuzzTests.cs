@@ -4,9 +4,9 @@ using CsCheck;
 namespace Briefwright.Scenario.Tests;
 
 /// <summary>
-/// Seeded fuzzing: 10,000 random mutations of the demo scenarios, some aiming extends and life tables outside the project folder (CsCheck generators driven by a fixed PCG seed,
-/// so every run tries the same cases). No mutation may crash the loader; every failure must be a positioned error;
-/// every mutant that loads must solve to finite numbers.
+/// Seeded fuzzing: 10,000 random mutations of the demo scenarios, some aiming extends and life tables outside the
+/// project folder (CsCheck generators driven by a fixed PCG seed, so every run tries the same cases). No mutation may
+/// crash the loader; every failure must be a positioned error; every mutant that loads must solve to finite numbers.
 /// </summary>
 public class FuzzTests
 {
@@ -20,7 +20,8 @@ public class FuzzTests
             .Replace("auroria-national.yaml", "national.yaml")
             .Replace("northport-life-table.csv", "table.csv"),
         ["table.csv"] = File.ReadAllText(Path.Combine(Root, "briefs-demo", "northport-life-table.csv")),
-        // Outside the project folder (the current folder): path mutations aim at these, which must never be read or quoted.
+        // Outside the project folder (the current folder): path mutations aim at these, which must never be read or
+        // quoted.
         ["../secret.yaml"] = "password: hunter2\n",
         ["../secret.csv"] = "age,survivors\n0,hunter2\n",
     };

@@ -5,8 +5,8 @@ namespace Briefwright.Scenario.Tests;
 
 /// <summary>
 /// A theme's logo and fonts are read and checked whole before any brief uses them: damaged, truncated, oversized or
-/// unsupported files are positioned theme errors (exit code 2), not failures while drawing. PNG layout, chunk CRC-32 and
-/// zlib image data per the PNG specification (ISO/IEC 15948); TrueType tables per the OpenType specification.
+/// unsupported files are positioned theme errors (exit code 2), not failures while drawing. PNG layout, chunk CRC-32
+/// and zlib image data per the PNG specification (ISO/IEC 15948); TrueType tables per the OpenType specification.
 /// </summary>
 public class ThemeAssetsTests
 {
@@ -22,7 +22,9 @@ public class ThemeAssetsTests
         return b;
     }
 
-    /// <summary>CRC-32 bit by bit, as the PNG specification's Annex D defines it (reflected polynomial 0xEDB88320).</summary>
+    /// <summary>
+    /// CRC-32 bit by bit, as the PNG specification's Annex D defines it (reflected polynomial 0xEDB88320).
+    /// </summary>
     private static uint Crc(ReadOnlySpan<byte> bytes)
     {
         uint c = 0xFFFFFFFF;

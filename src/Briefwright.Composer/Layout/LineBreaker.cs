@@ -7,7 +7,9 @@ public sealed record LineSpan(string Text, double X, double Width, FontSpec Font
 
 public sealed record TextLine(IReadOnlyList<LineSpan> Spans, double Width);
 
-/// <summary>Greedy line breaking of styled runs at spaces; words longer than the line are broken by character.</summary>
+/// <summary>
+/// Greedy line breaking of styled runs at spaces; words longer than the line are broken by character.
+/// </summary>
 public static class LineBreaker
 {
     public static IReadOnlyList<TextLine> Break(
@@ -48,7 +50,8 @@ public static class LineBreaker
     /// <summary>
     /// A word wider than the line, broken at the margin: one pass over its characters, each measured once, and each
     /// piece measured once, so the time is linear in the word's length (re-measuring ever shorter prefixes made a
-    /// 20,000-character word take tens of seconds). Surrogate pairs stay whole. Returns the last piece, which starts a line.
+    /// 20,000-character word take tens of seconds). Surrogate pairs stay whole. Returns the last piece, which starts a
+    /// line.
     /// </summary>
     private static (string Last, double Width) BreakLongWord(
         string word,

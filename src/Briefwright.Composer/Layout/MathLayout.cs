@@ -41,7 +41,9 @@ public static class MathNotation
 
     private static readonly string[] Functions = { "ln", "exp", "max", "min", "log", "arg" };
 
-    /// <summary>Parses an equation; an unknown command or an unclosed brace is a <see cref="ComposeException"/>.</summary>
+    /// <summary>
+    /// Parses an equation; an unknown command or an unclosed brace is a <see cref="ComposeException"/>.
+    /// </summary>
     public static Node Parse(string source, int line = 0)
     {
         int i = 0;
@@ -198,7 +200,9 @@ public static class MathNotation
     }
 }
 
-/// <summary>Lays out a parsed equation: glyphs and rules relative to the baseline, with width, ascent and descent.</summary>
+/// <summary>
+/// Lays out a parsed equation: glyphs and rules relative to the baseline, with width, ascent and descent.
+/// </summary>
 public sealed class MathBox
 {
     public readonly record struct Glyph(string Text, double X, double Dy, FontSpec Font);
@@ -312,7 +316,9 @@ public sealed class MathBox
     }
 }
 
-/// <summary>A display equation, centred, drawn inside a Formula structure element with its spoken form as alternative text.</summary>
+/// <summary>
+/// A display equation, centred, drawn inside a Formula structure element with its spoken form as alternative text.
+/// </summary>
 public sealed class MathAtom : Atom
 {
     public required MathBox Box { get; init; }

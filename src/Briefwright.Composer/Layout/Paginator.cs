@@ -88,7 +88,9 @@ public static class Paginator
         return pages;
     }
 
-    /// <summary>The height of an atom with the atoms it must stay with; just its own when the chain cannot fit on any page.</summary>
+    /// <summary>
+    /// The height of an atom with the atoms it must stay with; just its own when the chain cannot fit on any page.
+    /// </summary>
     private static double Chain(IReadOnlyList<Atom> atoms, int i, double space, double pageHeight)
     {
         double chain = space + atoms[i].Height;

@@ -255,7 +255,9 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         return min.Select((m, c) => m + spare * (want[c] - m) / extraWant).ToArray();
     }
 
-    /// <summary>Display equations are set a little larger than body text, centred, and kept with the line before them.</summary>
+    /// <summary>
+    /// Display equations are set a little larger than body text, centred, and kept with the line before them.
+    /// </summary>
     private Atom Equation(MathBlock m, double width)
     {
         var node = MathNotation.Parse(m.Source, m.Line);

@@ -37,7 +37,9 @@ public static partial class MarkdownReader
         return blocks;
     }
 
-    /// <summary>Schemes a link in a brief may use; anything else (file:, javascript:, a relative path) is refused.</summary>
+    /// <summary>
+    /// Schemes a link in a brief may use; anything else (file:, javascript:, a relative path) is refused.
+    /// </summary>
     public static readonly string[] LinkSchemes = { "http", "https", "mailto" };
 
     private static string CheckedLink(string? url, int line)

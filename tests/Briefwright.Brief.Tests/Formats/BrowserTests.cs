@@ -7,9 +7,9 @@ using SkiaSharp;
 namespace Briefwright.Brief.Tests.Formats;
 
 /// <summary>
-/// The web page in a real browser: headless Chromium (Debian's <c>chromium</c>, installed by test.sh) takes a screenshot
-/// of the national demo page, and axe-core (from the npm registry, installed by test.sh into <c>.tools/</c>) checks it
-/// for accessibility. The rule: no violation that axe rates serious or critical (axe's impact levels).
+/// The web page in a real browser: headless Chromium (Debian's <c>chromium</c>, installed by test.sh) takes a
+/// screenshot of the national demo page, and axe-core (from the npm registry, installed by test.sh into <c>.tools/</c>)
+/// checks it for accessibility. The rule: no violation that axe rates serious or critical (axe's impact levels).
 /// </summary>
 public class BrowserTests
 {
@@ -27,7 +27,9 @@ public class BrowserTests
         }
     }
 
-    /// <summary>Runs headless Chromium on a page and returns what it printed; a missing browser fails with how to install it.</summary>
+    /// <summary>
+    /// Runs headless Chromium on a page and returns what it printed; a missing browser fails with how to install it.
+    /// </summary>
     internal static string RunChromium(string dir, params string[] args)
     {
         var psi = new ProcessStartInfo(Chromium) {
@@ -100,7 +102,10 @@ public class BrowserTests
         }
     }
 
-    /// <summary>axe-core's violations for a page, run inside headless Chromium: the page with axe inlined writes them into itself.</summary>
+    /// <summary>
+    /// axe-core's violations for a page, run inside headless Chromium: the page with axe inlined writes them into
+    /// itself.
+    /// </summary>
     internal static List<(string Id, string Impact, int Nodes, string Help)> Axe(string html)
     {
         string dir = TempDir();
@@ -141,7 +146,8 @@ public class BrowserTests
     [Fact]
     public void Axe_run_this_way_reports_what_is_wrong()
     {
-        // The same page with an unlabelled image and a table header without a scope that fits: the harness must see them.
+        // The same page with an unlabelled image and a table header without a scope that fits: the harness must see
+        // them.
         string html = System.Text.Encoding.UTF8.GetString(FormatsDemo.File(FormatsDemo.National, "html"))
             .Replace(
                 "<main id=\"main\">",

@@ -4,7 +4,9 @@ using Briefwright.Scenario;
 
 namespace Briefwright.Brief.Tests.Formats;
 
-/// <summary>The invented national demo brief built once with every format, in the demo's theme (colours and logo).</summary>
+/// <summary>
+/// The invented national demo brief built once with every format, in the demo's theme (colours and logo).
+/// </summary>
 internal static class FormatsDemo
 {
     private static readonly Lazy<BuiltBrief> Lazy = new(() => Build("auroria-national"));

@@ -120,7 +120,9 @@ public class HtmlTests
         Assert.NotEmpty(NumberCheck.Check(changedFinding, json));
     }
 
-    /// <summary>Reads numbers off the page and compares each with the results data rounded to the digits printed.</summary>
+    /// <summary>
+    /// Reads numbers off the page and compares each with the results data rounded to the digits printed.
+    /// </summary>
     internal static class NumberCheck
     {
         private static readonly Regex Number = new(@"[+\-−]?\d[\d,]*(?:\.\d+)?", RegexOptions.Compiled);
@@ -128,7 +130,9 @@ public class HtmlTests
         public static string Plain(string html) =>
             WebUtility.HtmlDecode(Regex.Replace(html, "<[^>]+>", "")).Trim();
 
-        /// <summary>The numbers in a text with the digits after the point: "−0.7%" is (-0.7, 1); "2,000" is (2000, 0).</summary>
+        /// <summary>
+        /// The numbers in a text with the digits after the point: "−0.7%" is (-0.7, 1); "2,000" is (2000, 0).
+        /// </summary>
         public static List<(double Value, int Decimals, string Text)> Numbers(
             string text) => Number.Matches(text).Select(m =>
         {
@@ -151,7 +155,10 @@ public class HtmlTests
                     .ToList()).ToList();
         }
 
-        /// <summary>One printed cell against the value it shows (a percent in points, a year, an index); "–" and "none" stand for no value.</summary>
+        /// <summary>
+        /// One printed cell against the value it shows (a percent in points, a year, an index); "–" and "none" stand
+        /// for no value.
+        /// </summary>
         private static void Cell(List<string> problems, string where, string cell, double? exact, double scale = 1)
         {
             var numbers = Numbers(cell);
@@ -202,7 +209,8 @@ public class HtmlTests
             if (optionRows.Count != options.Count + 1) problems.Add(
                 $"options table has {optionRows.Count - 1} rows, the data {options.Count}");
 
-            // The reform over time: deepest dip, its year, first year above, payback, change at the horizon, once adjusted.
+            // The reform over time: deepest dip, its year, first year above, payback, change at the horizon, once
+            // adjusted.
             var reform = json.GetProperty("analysis").GetProperty("reform");
             var paths = reform.GetProperty("options").EnumerateArray().ToDictionary(
                 r => options.Single(o => o.GetProperty("id").GetString() == r.GetProperty("option_id").GetString())
@@ -269,9 +277,9 @@ public class HtmlTests
                     problems.Add($"monte carlo/{row[0]}/probability: shows '{row[4]}', the data has {estimate}");
             }
 
-            // Key findings: every number is one of the headline facts, an option's schooling or change, a lever's share, or
-            // a number written in an option's or schedule's label (scenario text); "90%" is the width of the range shown
-            // (5th to 95th percentile, fixed by the method).
+            // Key findings: every number is one of the headline facts, an option's schooling or change, a lever's
+            // share, or a number written in an option's or schedule's label (scenario text); "90%" is the width of the
+            // range shown (5th to 95th percentile, fixed by the method).
             var candidates = new List<double> { 90 };
             foreach (var p in json.GetProperty("headline").EnumerateObject())
                 if (p.Value.ValueKind == JsonValueKind.Number) { candidates.Add(p.Value.GetDouble()); candidates.Add(

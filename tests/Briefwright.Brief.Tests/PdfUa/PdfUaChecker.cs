@@ -6,7 +6,9 @@ using System.Text.RegularExpressions;
 
 namespace Briefwright.Brief.Tests.PdfUa;
 
-/// <summary>One failed check: the Matterhorn Protocol checkpoint (or the standard's clause) and what was found.</summary>
+/// <summary>
+/// One failed check: the Matterhorn Protocol checkpoint (or the standard's clause) and what was found.
+/// </summary>
 public sealed record Finding(string Checkpoint, string Message)
 {
     public override string ToString() => $"{Checkpoint}: {Message}";
@@ -32,7 +34,8 @@ public sealed partial class PdfUaChecker
 
     // Per page (object reference): MCIDs in structure-tree order, with the element that holds each.
     private readonly Dictionary<string, List<(int Mcid, string Element)>> treeMcids = new();
-    private readonly Dictionary<string, string> annotationParents = new(); // annotation ref → structure type holding its OBJR
+    // annotation ref → structure type holding its OBJR
+    private readonly Dictionary<string, string> annotationParents = new();
     private readonly List<int> headingLevels = new();
     private bool usesPlainH;
 
@@ -337,7 +340,9 @@ public sealed partial class PdfUaChecker
         return null;
     }
 
-    /// <summary>14-002, 14-003, 14-007: numbered headings start at H1, do not skip levels going down, and are not mixed with H.</summary>
+    /// <summary>
+    /// 14-002, 14-003, 14-007: numbered headings start at H1, do not skip levels going down, and are not mixed with H.
+    /// </summary>
     private void CheckHeadings()
     {
         if (usesPlainH && headingLevels.Count > 0) Fail("14-007", "the document uses both H and numbered headings");
@@ -574,7 +579,9 @@ public sealed partial class PdfUaChecker
 
     private readonly record struct Token(string Text, bool IsOperator);
 
-    /// <summary>Content stream tokens: operands (numbers, names, strings, arrays and dictionaries flattened) and operators.</summary>
+    /// <summary>
+    /// Content stream tokens: operands (numbers, names, strings, arrays and dictionaries flattened) and operators.
+    /// </summary>
     private static IEnumerable<Token> Tokens(byte[] b)
     {
         int i = 0, n = b.Length;

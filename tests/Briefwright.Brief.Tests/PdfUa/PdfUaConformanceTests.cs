@@ -216,7 +216,9 @@ public class PdfUaConformanceTests
         return (png, Read(16), Read(20)); // IHDR width and height
     }
 
-    /// <summary>A one-page vector chart drawn with Skia, as the chart library does: a background, bars and a label.</summary>
+    /// <summary>
+    /// A one-page vector chart drawn with Skia, as the chart library does: a background, bars and a label.
+    /// </summary>
     private static byte[] ChartPdf()
     {
         using var stream = new MemoryStream();
