@@ -28,7 +28,8 @@ public class ChangesModelTests
     [Fact]
     public void A_template_change_alone_says_so()
     {
-        Assert.Equal("No assumption or headline result changed; this edition follows a change of the template (the brief's wording and layout).\n",
+        Assert.Equal("No assumption or headline result changed; this edition follows a change of the template (the " +
+            "brief's wording and layout).\n",
             ChangesModel.Table(Changes(["template"])));
     }
 
@@ -43,7 +44,8 @@ public class ChangesModelTests
     [Fact]
     public void A_raised_brief_edition_says_the_scenario_asked_for_it()
     {
-        Assert.Equal("No assumption or headline result changed; this edition follows the scenario's request for edition 2 (brief.edition).\n",
+        Assert.Equal("No assumption or headline result changed; this edition follows the scenario's request for " +
+            "edition 2 (brief.edition).\n",
             ChangesModel.Table(Changes(["brief.edition", "scenario"])));
     }
 

@@ -233,7 +233,8 @@ public class ThemeTests
             "name: House style (invented)\nfonts:\n  regular: house.ttf\n");
         var (code, _, err) = w.Build("--theme", Path.Combine(w.Dir, "house.theme.yaml"));
         Assert.Equal(2, code);
-        Assert.Contains("house.theme.yaml:3:12: fonts.regular: must be a TrueType font (glyf outlines); the file is an OpenType font with CFF outlines", err);
+        Assert.Contains("house.theme.yaml:3:12: fonts.regular: must be a TrueType font (glyf outlines); the file is " +
+            "an OpenType font with CFF outlines", err);
         // only the attempt is logged
         Assert.Equal(new[] { BuildLog.FileName }, Directory.GetFiles(w.Out).Select(Path.GetFileName));
     }

@@ -125,7 +125,8 @@ public class SchemaAndDiffTests
             CliAppTests.Demo("auroria-national.yaml"),
             CliAppTests.Demo("auroria-eastmark.yaml"));
         Assert.Equal(1, code);
-        Assert.Contains("Population growth rate (demography.population_growth): 0.90% → 1.60%  [source: Eastmark provincial projection 2025 (invented)]", output);
+        Assert.Contains("Population growth rate (demography.population_growth): 0.90% → 1.60%  [source: Eastmark " +
+            "provincial projection 2025 (invented)]", output);
         Assert.Contains("School-entry age (demography.school_entry_age): 6 → 5", output);
     }
 

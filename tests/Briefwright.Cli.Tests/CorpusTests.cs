@@ -44,7 +44,8 @@ public class CorpusTests
         Assert.True(cases.Count >= 100, $"{cases.Count} files");
         if (Environment.GetEnvironmentVariable("BRIEFWRIGHT_UPDATE_CORPUS") == "1")
             File.WriteAllLines(Path.Combine(Dir, "expected.tsv"), cases.Select(
-                c => $"{c}\t{Run(c).Error.Split('\n')[0]}").Prepend("# file\tfirst message (paths relative to this folder)"));
+                c => $"{c}\t{Run(c).Error.Split('\n')[0]}").Prepend("# file\tfirst message (paths relative to this " +
+                    "folder)"));
         Assert.Equal(cases.Order(), Expected().Keys.Order());
     }
 

@@ -114,7 +114,8 @@ public class EditionRuleTests
         Assert.Equal(0, w.Build("-t", template).Code);
         Assert.Equal(2, Current(w).Edition);
         string section = ChangesSection(Md(w))!;
-        Assert.Contains("No assumption or headline result changed; this edition follows a change of the template (the brief's wording and layout).", section);
+        Assert.Contains("No assumption or headline result changed; this edition follows a change of the template (the " +
+            "brief's wording and layout).", section);
     }
 
     [Fact]
@@ -164,14 +165,16 @@ public class EditionRuleTests
         w.Edit("auroria-national.yaml", "edition: 1", "edition: 5");
         Assert.Equal(0, w.Build().Code);
         Assert.Equal((5, "auroria-national-2026-11-30-edition-5"), (Current(w).Edition, Current(w).Stem));
-        Assert.Contains("No assumption or headline result changed; this edition follows the scenario's request for edition 5 (brief.edition).", ChangesSection(Md(w)));
+        Assert.Contains("No assumption or headline result changed; this edition follows the scenario's request for " +
+            "edition 5 (brief.edition).", ChangesSection(Md(w)));
 
         // Written below edition 5: refused at its position, nothing written but the log line.
         w.Edit("auroria-national.yaml", "edition: 5", "edition: 2");
         var before = Snapshot.Of(w.Out);
         var (code, _, err) = w.Build();
         Assert.Equal(2, code);
-        Assert.Contains($"{yaml}:11:12: brief.edition: must not be below edition 5, already issued in {w.Out}; remove it, or give at least 6 to start a new edition. Got '2'.", err);
+        Assert.Contains($"{yaml}:11:12: brief.edition: must not be below edition 5, already issued in {w.Out}; remove " +
+            "it, or give at least 6 to start a new edition. Got '2'.", err);
         Assert.Contains("^", err);
         Assert.Equal(before, Snapshot.Of(w.Out));
         var line = LastLogLine(w);

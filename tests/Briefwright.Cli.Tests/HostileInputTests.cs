@@ -50,8 +50,10 @@ public class HostileInputTests
         var (top, child, table) = await run.WaitAsync(TimeSpan.FromMinutes(2));
         Assert.Equal((2, 2, 2), (top.Code, child.Code, table.Code));
         Assert.Contains("pipe.yaml:1:1: cannot read the scenario (it is a named pipe, not a regular file).", top.Err);
-        Assert.Contains("child.yaml:1:10: extends: cannot read the extended scenario (it is a named pipe, not a regular file). Got 'pipe.yaml'.", child.Err);
-        Assert.Contains("table.yaml:13:11: demography.survival.file: cannot read the life table (it is a named pipe, not a regular file). Got 'pipe.csv'.", table.Err);
+        Assert.Contains("child.yaml:1:10: extends: cannot read the extended scenario (it is a named pipe, not a " +
+            "regular file). Got 'pipe.yaml'.", child.Err);
+        Assert.Contains("table.yaml:13:11: demography.survival.file: cannot read the life table (it is a named pipe, " +
+            "not a regular file). Got 'pipe.csv'.", table.Err);
     }
 
     [Fact]
@@ -111,7 +113,8 @@ public class HostileInputTests
                     1 => good.Replace(
                         "    form: rectangular\n    max_age: 80",
                         $"    form: life_table\n    file: \"{target}\""),
-                    _ => $"extends: base.yaml\ndemography:\n  survival:\n    form: life_table\n    file: \"{target}\"\n",
+                    _ => "extends: base.yaml\ndemography:\n  survival:\n    form: life_table\n" +
+                        $"    file: \"{target}\"\n",
                 };
                 string file = Path.Combine(dir, "case.yaml");
                 File.WriteAllText(file, text);

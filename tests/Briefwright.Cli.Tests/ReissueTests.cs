@@ -48,8 +48,11 @@ public class ReissueTests
             // When the folder is checked, then both files get a positioned error and the exit code is 2
             var (code, output, error) = Run(A("check", w.Dir));
             Assert.Equal(2, code);
-            Assert.Contains($"{variant}:1:10: brief.id: must be unique within the batch; this scenario keeps the id of the scenario it extends, which '{parent}' also uses: give it its own brief.id. Got 'auroria-silverdale'.", error);
-            Assert.Contains($"{parent}:5:7: brief.id: must be unique within the batch; '{variant}' also uses it, and their briefs would overwrite each other. Got 'auroria-silverdale'.", error);
+            Assert.Contains($"{variant}:1:10: brief.id: must be unique within the batch; this scenario keeps the id " +
+                $"of the scenario it extends, which '{parent}' also uses: give it its own brief.id. Got " +
+                "'auroria-silverdale'.", error);
+            Assert.Contains($"{parent}:5:7: brief.id: must be unique within the batch; '{variant}' also uses it, and " +
+                "their briefs would overwrite each other. Got 'auroria-silverdale'.", error);
             Assert.Contains("^", error);
             Assert.Contains("auroria-national.yaml: ok", output);
 

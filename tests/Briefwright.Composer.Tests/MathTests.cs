@@ -104,7 +104,8 @@ public class MathTests
     [Fact]
     public void A_display_equation_in_the_text_is_drawn_inside_a_formula_element_with_alternative_text()
     {
-        string markdown = "Before.\n\n$$\\omega(E) = p \\cdot \\frac{\\int_{a_0}^{R} l(a)\\, da}{\\int_{0}^{\\Omega} l(a)\\, da}$$\n\nAfter *this*.\n";
+        string markdown = "Before.\n\n$$\\omega(E) = p \\cdot \\frac{\\int_{a_0}^{R} l(a)\\, da}{\\int_{0}^{\\Omega} " +
+            "l(a)\\, da}$$\n\nAfter *this*.\n";
         var blocks = MarkdownReader.Read(markdown, new Dictionary<string, FigureBlock>());
         var math = Assert.Single(blocks.OfType<MathBlock>());
         Assert.StartsWith("\\omega(E)", math.Source);

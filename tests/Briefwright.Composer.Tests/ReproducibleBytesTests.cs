@@ -103,7 +103,8 @@ public class ReproducibleBytesTests
     {
         byte[] pdf = Encoding.Latin1.GetBytes(
             "%PDF-1.7\n1 0 obj\n<</Length 2 0 R>>\nstream\nabc\nendstream\nendobj\n2 0 obj\n3\nendobj\nxref\n0 3\n" +
-            "0000000000 65535 f \n0000000009 00000 n \n0000000063 00000 n \ntrailer\n<</Size 3>>\nstartxref\n80\n%%EOF\n");
+            "0000000000 65535 f \n0000000009 00000 n \n0000000063 00000 n \ntrailer\n<</Size 3>>\nstartxref\n80\n" +
+            "%%EOF\n");
         Assert.Throws<InvalidDataException>(() => ReproducibleBytes.Fix(pdf, new DateOnly(2026, 11, 30)));
     }
 

@@ -89,7 +89,8 @@ public class ConfinementTests
     [Fact]
     public void A_child_that_switches_a_distribution_replaces_the_parents_parameters_and_errors_point_at_the_child()
     {
-        string parent = MemoryReader.Valid + "\nuncertainty:\n  seed: 1\n  parameters:\n    saving_rate: { distribution: uniform, low: 10%, high: 30% }\n";
+        string parent = MemoryReader.Valid + "\nuncertainty:\n  seed: 1\n  parameters:\n" +
+            "    saving_rate: { distribution: uniform, low: 10%, high: 30% }\n";
         string child
             = "extends: p.yaml\nuncertainty:\n  parameters:\n    saving_rate: { distribution: normal, mean: 20% }\n";
         var r = LoadWith(child, ("proj/p.yaml", parent));
@@ -106,7 +107,8 @@ public class ConfinementTests
     public void Ids_may_not_end_in_a_newline_and_messages_show_control_characters_as_escapes()
     {
         var r = MemoryReader.Load(MemoryReader.With("id: test-brief", "id: \"test\\n\""));
-        Assert.Equal("s.yaml:2:7: brief.id: must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit (it names the output files). Got 'test\\n'.", First(r));
+        Assert.Equal("s.yaml:2:7: brief.id: must be 1–64 lower-case letters, digits, '-' or '_', starting with a " +
+            "letter or digit (it names the output files). Got 'test\\n'.", First(r));
     }
 
     [Theory]

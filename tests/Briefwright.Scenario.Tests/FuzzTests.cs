@@ -88,7 +88,8 @@ public class FuzzTests
             catch (Exception ex)
             {
                 Assert.Fail(
-                    $"case {i} (file {targets[target]}, op {op}) crashed the loader: {ex.GetType().Name}: {ex.Message}");
+                    $"case {i} (file {targets[target]}, op {op}) crashed the loader: {ex.GetType().Name}: " +
+                    $"{ex.Message}");
                 return;
             }
             if (!result.Ok)

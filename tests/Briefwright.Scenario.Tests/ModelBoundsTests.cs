@@ -35,7 +35,8 @@ public class ModelBoundsTests
         var r = MemoryReader.Load(MemoryReader.Valid.Replace("population_growth: 1%", "population_growth: -5%").Replace(
             "technology_growth: 2%",
             "technology_growth: 5%").Replace("depreciation: 3%", "depreciation: 1e-300"));
-        Assert.Equal("s.yaml:16:17: production.depreciation: population growth + technology growth + depreciation must be at least 0.1%, or the model's results are not finite (-5% + 5% + 0% = 0%). Got 0%.", First(r));
+        Assert.Equal("s.yaml:16:17: production.depreciation: population growth + technology growth + depreciation " +
+            "must be at least 0.1%, or the model's results are not finite (-5% + 5% + 0% = 0%). Got 0%.", First(r));
     }
 
     [Fact]
@@ -69,7 +70,9 @@ public class ModelBoundsTests
             "form: rectangular\n    max_age: 80",
             "form: life_table\n    file: t.csv",
             ("t.csv", "age,survivors\n0,1000\n1,0\n100,0\n"));
-        Assert.Equal("s.yaml:12:11: demography.survival: the survival curve must leave workers: almost nobody is alive at 17, when schooling ends under options[0] (base); at least 0.000001 of a cohort must be. Got 0.", First(r));
+        Assert.Equal("s.yaml:12:11: demography.survival: the survival curve must leave workers: almost nobody is " +
+            "alive at 17, when schooling ends under options[0] (base); at least 0.000001 of a cohort must be. Got " +
+            "0.", First(r));
     }
 
     [Fact]
@@ -108,9 +111,11 @@ public class ModelBoundsTests
     [Fact]
     public void A_grid_whose_corner_breaks_a_rule_is_reported()
     {
-        var text = MemoryReader.Valid + "\nsensitivity:\n  grids:\n    - { x: population_growth, x_range: [-2%, 1%], y: technology_growth, y_range: [-2%, 2%] }\n";
+        var text = MemoryReader.Valid + "\nsensitivity:\n  grids:\n    - { x: population_growth, x_range: [-2%, 1%], " +
+            "y: technology_growth, y_range: [-2%, 2%] }\n";
         string first = First(MemoryReader.Load(text));
-        Assert.True(first.Contains("with population_growth at -2% and technology_growth at -2% the scenario breaks a model rule (n + g + δ below 0.1%)"), first);
+        Assert.True(first.Contains("with population_growth at -2% and technology_growth at -2% the scenario breaks a " +
+            "model rule (n + g + δ below 0.1%)"), first);
     }
 
     [Theory]
@@ -136,8 +141,11 @@ public class ModelBoundsTests
     [Fact]
     public void The_uncertainty_work_of_one_brief_is_bounded()
     {
-        var r = MemoryReader.Load(MemoryReader.Valid + "\nreform:\n  horizon_years: 400\nuncertainty:\n  seed: 1\n  draws: 200000\n  sobol_samples: 8192\n  parameters:\n    saving_rate: { distribution: uniform, low: 10%, high: 30% }\n");
-        Assert.Contains("uncertainty: asks for 89,830,400 simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = (200000 + 8192 × 3) × 400); the limit for one brief is 10,000,000", First(r));
+        var r = MemoryReader.Load(MemoryReader.Valid + "\nreform:\n  horizon_years: 400\nuncertainty:\n  seed: 1\n" +
+            "  draws: 200000\n  sobol_samples: 8192\n  parameters:\n    saving_rate: { distribution: uniform, low: " +
+            "10%, high: 30% }\n");
+        Assert.Contains("uncertainty: asks for 89,830,400 simulated years ((draws + sobol_samples × (parameters + 2)) " +
+            "× reform.horizon_years = (200000 + 8192 × 3) × 400); the limit for one brief is 10,000,000", First(r));
     }
 
     [Fact]

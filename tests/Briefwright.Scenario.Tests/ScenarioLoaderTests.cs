@@ -102,7 +102,9 @@ public class ScenarioLoaderTests
             "saving_rate: 0.2",
             "saving_rate: NaN",
             "s.yaml:14:16: production.saving_rate: must be a finite number. Got 'NaN'.")]
-        [InlineData("school_entry_age: 6", "school_entry_age: 6%", "s.yaml:8:21: demography.school_entry_age: must be a plain number; a percent sign is only allowed for rates. Got '6%'.")]
+        [InlineData("school_entry_age: 6", "school_entry_age: 6%",
+            "s.yaml:8:21: demography.school_entry_age: must be a plain number; a percent sign is only allowed for " +
+            "rates. Got '6%'.")]
         [InlineData(
             "retirement_age: 65",
             "retirment_age: 65",
@@ -111,14 +113,23 @@ public class ScenarioLoaderTests
             "date: 2026-11-30",
             "date: 30/11/2026",
             "s.yaml:5:9: brief.date: must be a date written YYYY-MM-DD. Got '30/11/2026'.")]
-        [InlineData("id: test-brief", "id: ../etc", "s.yaml:2:7: brief.id: must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit (it names the output files). Got '../etc'.")]
-        [InlineData("form: rectangular", "form: rectangle", "s.yaml:11:11: demography.survival.form: must be one of rectangular, gompertz_makeham, life_table (did you mean 'rectangular'?). Got 'rectangle'.")]
+        [InlineData("id: test-brief", "id: ../etc",
+            "s.yaml:2:7: brief.id: must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or " +
+            "digit (it names the output files). Got '../etc'.")]
+        [InlineData("form: rectangular", "form: rectangle",
+            "s.yaml:11:11: demography.survival.form: must be one of rectangular, gompertz_makeham, life_table (did " +
+            "you mean 'rectangular'?). Got 'rectangle'.")]
         [InlineData(
             "max_age: 80",
             "max_age: 60",
             "s.yaml:9:19: demography.retirement_age: must not exceed the survival curve's maximum age (60). Got 65.")]
-        [InlineData("schooling_years: 12", "schooling_years: 12\n    retirement_age: 18", "s.yaml:24:22: options[1].schooling_years: school-entry age plus schooling must be below the retirement age (6 + 12 = 18, retirement at 18). Got 12.")]
-        [InlineData("depreciation: 3%\n  technology_growth: 2%", "depreciation: 0%\n  technology_growth: -2%", "s.yaml:16:17: production.depreciation: population growth + technology growth + depreciation must be at least 0.1%, or the model's results are not finite (1% + -2% + 0% = -1%). Got 0%.")]
+        [InlineData("schooling_years: 12", "schooling_years: 12\n    retirement_age: 18",
+            "s.yaml:24:22: options[1].schooling_years: school-entry age plus schooling must be below the retirement " +
+            "age (6 + 12 = 18, retirement at 18). Got 12.")]
+        [InlineData("depreciation: 3%\n  technology_growth: 2%",
+            "depreciation: 0%\n  technology_growth: -2%",
+                "s.yaml:16:17: production.depreciation: population growth + technology growth + depreciation must be " +
+                "at least 0.1%, or the model's results are not finite (1% + -2% + 0% = -1%). Got 0%.")]
         [InlineData(
             "id: more",
             "id: base",
@@ -155,8 +166,10 @@ public class ScenarioLoaderTests
         [Fact]
         public void Brackets_must_start_at_zero_and_increase()
         {
-            var text = MemoryReader.Valid + "\nhuman_capital:\n  returns:\n    form: brackets\n    brackets:\n      - { from: 0, rate: 10% }\n      - { from: 8, rate: 8% }\n      - { from: 6, rate: 6% }\n";
-            Assert.Equal("s.yaml:31:17: human_capital.returns.brackets[2].from: brackets must start at increasing years (previous bracket starts at 8). Got '6'.", Single(MemoryReader.Load(text)));
+            var text = MemoryReader.Valid + "\nhuman_capital:\n  returns:\n    form: brackets\n    brackets:\n" +
+                "      - { from: 0, rate: 10% }\n      - { from: 8, rate: 8% }\n      - { from: 6, rate: 6% }\n";
+            Assert.Equal("s.yaml:31:17: human_capital.returns.brackets[2].from: brackets must start at increasing " +
+                "years (previous bracket starts at 8). Got '6'.", Single(MemoryReader.Load(text)));
         }
 
         [Fact]
@@ -175,14 +188,16 @@ public class ScenarioLoaderTests
         {
             var text = MemoryReader.With("form: rectangular\n    max_age: 80", "form: life_table\n    file: lt.csv");
             var r = MemoryReader.Load(text, ("lt.csv", "0,1\n50,0.9\n60,0.95\n100,0\n"));
-            Assert.Equal("lt.csv:3:4: demography.survival.file: survivors must not increase with age (previous row: 0.9). Got 0.95.", Single(r));
+            Assert.Equal("lt.csv:3:4: demography.survival.file: survivors must not increase with age (previous row: " +
+                "0.9). Got 0.95.", Single(r));
         }
 
         [Fact]
         public void Duplicate_keys_name_the_first_occurrence()
         {
             var text = MemoryReader.With("school_entry_age: 6", "school_entry_age: 6\n  school_entry_age: 7");
-            Assert.Equal("s.yaml:9:3: demography.school_entry_age: duplicate key; first given at line 8. Got 'school_entry_age' again.", Single(MemoryReader.Load(text)));
+            Assert.Equal("s.yaml:9:3: demography.school_entry_age: duplicate key; first given at line 8. Got " +
+                "'school_entry_age' again.", Single(MemoryReader.Load(text)));
         }
 
         [Fact]
@@ -195,7 +210,8 @@ public class ScenarioLoaderTests
         [Fact]
         public void An_empty_file_says_what_a_scenario_needs()
         {
-            Assert.Equal("s.yaml:1:1: file is empty; a scenario needs at least the brief, demography and options sections. Got nothing.", Single(MemoryReader.Load("# only a comment\n")));
+            Assert.Equal("s.yaml:1:1: file is empty; a scenario needs at least the brief, demography and options " +
+                "sections. Got nothing.", Single(MemoryReader.Load("# only a comment\n")));
         }
 
         [Fact]
@@ -206,7 +222,8 @@ public class ScenarioLoaderTests
                 ["b.yaml"] = "extends: a.yaml\n" };
             var r = new ScenarioLoader(new MemoryReader(files)).Load("a.yaml");
             Assert.Equal(
-                "b.yaml:1:10: extends: scenarios extend each other in a cycle (a.yaml → b.yaml → a.yaml). Got 'a.yaml'.",
+                "b.yaml:1:10: extends: scenarios extend each other in a cycle (a.yaml → b.yaml → a.yaml). Got " +
+                "'a.yaml'.",
                 Single(r));
         }
 
@@ -238,6 +255,7 @@ public class SizeLimitTests
         string huge = MemoryReader.Valid + "\n# " + new string('x', 1_100_000) + "\n";
         var r = MemoryReader.Load(huge);
         int bytes = System.Text.Encoding.UTF8.GetByteCount(huge);
-        Assert.Equal($"s.yaml:1:1: file is larger than the limit for a scenario of 1 MiB (1,048,576 bytes). Got {bytes:N0} bytes.", Assert.Single(r.Problems).Message);
+        Assert.Equal("s.yaml:1:1: file is larger than the limit for a scenario of 1 MiB (1,048,576 bytes). Got " +
+            $"{bytes:N0} bytes.", Assert.Single(r.Problems).Message);
     }
 }

@@ -50,7 +50,8 @@ public class TemplateBudgetTests
     public void A_doubly_recursive_function_under_the_depth_limit_is_stopped_by_the_step_or_time_budget()
     {
         var e = Error("# T\n{{ func f(n); if n > 0; f(n - 1); f(n - 1); end; end; f 40 }}");
-        Assert.Equal("t.md:2:55: This statement ran past the budget for one brief (1,000,000 steps or 5 s), as an endless or exploding loop or recursion would.", e.ToString());
+        Assert.Equal("t.md:2:55: This statement ran past the budget for one brief (1,000,000 steps or 5 s), as an " +
+            "endless or exploding loop or recursion would.", e.ToString());
     }
 
     [Fact]
@@ -82,7 +83,8 @@ public class TemplateBudgetFuzzTests
         "{{ 'ab' * 99999 }}", "{{ x = 'abcd'; for i in 1..30; x = x + x; end; x | string.size }}", "{{ (1..200000) | array.size }}",
         "{{ 'x' | string.pad_left 99999 }}", "{{ big 1 99999 }}", "{{ pct 0.5 999999 }}", "{{ [1, 2] | array.insert_at 99999 3 | array.size }}",
         "{{ for i in 1..9999; for j in 1..9999; end; end }}", "text\n", "{{ func g; ret g; end }}{{ g }}", "{{ (1..9999) | array.join ',' | string.size }}",
-        "{{ capture c; for i in 1..9999; 'abcdefghij'; end; end; c | string.size }}", "{{ brief.title | string.replace 'A' ('B' * 50000) }}",
+        "{{ capture c; for i in 1..9999; 'abcdefghij'; end; end; c | string.size }}",
+            "{{ brief.title | string.replace 'A' ('B' * 50000) }}",
     };
 
     [Fact]

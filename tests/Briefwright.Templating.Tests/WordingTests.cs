@@ -42,12 +42,14 @@ public class WordingTests
 
     [Fact]
     public void A_dip_then_a_gain_is_told_in_that_order() =>
-        Assert.Equal("Output per person first falls below the path without the reform, by up to 0.7% in 2048, and is above it from 2066.",
+        Assert.Equal("Output per person first falls below the path without the reform, by up to 0.7% in 2048, and is " +
+            "above it from 2066.",
             Wording.Arrival(Facts(4.1, dip: -0.74, dipYear: 2048, peak: 4.0, peakYear: 2178, above: 2066), 2028));
 
     [Fact]
     public void A_cut_that_gains_first_and_loses_later_is_told_in_that_order() =>
-        Assert.Equal("Output per person first rises above the path without the reform, by up to 3.1% in 2040, and is below it from 2054.",
+        Assert.Equal("Output per person first rises above the path without the reform, by up to 3.1% in 2040, and is " +
+            "below it from 2054.",
             Wording.Arrival(Facts(-10.2, dip: -10, dipYear: 2178, peak: 3.1, peakYear: 2040, below: 2054), 2028));
 
     [Fact]

@@ -20,7 +20,8 @@ public static class Paginator
         foreach (var atom in atoms)
             if (atom.Height > pageHeight + 1e-6)
                 throw new ComposeException(
-                    $"{Capitalise(atom.Describe())} is {atom.Height:0} pt tall and cannot fit on a page ({pageHeight:0} pt of content height): shorten it or split it.");
+                    $"{Capitalise(atom.Describe())} is {atom.Height:0} pt tall and cannot fit on a page " +
+                    $"({pageHeight:0} pt of content height): shorten it or split it.");
 
         var pages = new List<List<Placement>> { new() };
         double y = 0;

@@ -263,7 +263,8 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         var node = MathNotation.Parse(m.Source, m.Line);
         var box = MathBox.Layout(node, theme.BodySize * 1.1, measurer);
         if (box.Width > width)
-            throw new ComposeException($"the equation '{(m.Source.Length <= 40 ? m.Source : m.Source[..40] + "…")}' is {box.Width:0} pt wide and does not fit the {width:0} pt line: split it.", m.Line, m.Source);
+            throw new ComposeException($"the equation '{(m.Source.Length <= 40 ? m.Source : m.Source[..40] + "…")}' " +
+                $"is {box.Width:0} pt wide and does not fit the {width:0} pt line: split it.", m.Line, m.Source);
         return new MathAtom {
             Box = box,
             AltText = MathNotation.Spoken(node),

@@ -121,7 +121,9 @@ public static partial class MarkdownReader
             case ThematicBreakBlock:
                 break;
             default:
-                throw new ComposeException($"the brief's text holds a {node.GetType().Name.Replace("Block", " block").ToLowerInvariant()}, which briefs do not support; use paragraphs, lists, tables, headings or a quote.", node.Line + 1);
+                throw new ComposeException("the brief's text holds a " +
+                    $"{node.GetType().Name.Replace("Block", " block").ToLowerInvariant()}, which briefs do not " +
+                    "support; use paragraphs, lists, tables, headings or a quote.", node.Line + 1);
         }
     }
 
@@ -139,7 +141,8 @@ public static partial class MarkdownReader
             case "figure":
                 if (!figures.TryGetValue(argument.Trim(), out var figure))
                     throw new ComposeException(
-                        $"unknown figure '{argument.Trim()}'. Known figures: {string.Join(", ", figures.Keys.Order())}.",
+                        $"unknown figure '{argument.Trim()}'. Known figures: " +
+                        $"{string.Join(", ", figures.Keys.Order())}.",
                         line,
                         text);
                 blocks.Add(figure);
@@ -152,7 +155,8 @@ public static partial class MarkdownReader
                 blocks.Add(new PageBreakBlock());
                 break;
             default:
-                throw new ComposeException($"unknown directive [[{name}]]; known: [[figure: id]], [[table: caption | source]], [[pagebreak]]. Got {text}.", line, text);
+                throw new ComposeException($"unknown directive [[{name}]]; known: [[figure: id]], [[table: caption | " +
+                    $"source]], [[pagebreak]]. Got {text}.", line, text);
         }
     }
 

@@ -112,9 +112,12 @@ public class BrowserTests
         try
         {
             string runner = "<script>" + AxeScript + "</script><script>" +
-                "axe.run(document, { resultTypes: ['violations'] }).then(function (r) { var p = document.createElement('pre'); p.id = 'axe-results';" +
-                " p.textContent = JSON.stringify(r.violations.map(function (v) { return { id: v.id, impact: v.impact || '', nodes: v.nodes.length, help: v.help }; })); document.body.appendChild(p); })" +
-                ".catch(function (e) { var p = document.createElement('pre'); p.id = 'axe-results'; p.textContent = 'ERROR ' + e; document.body.appendChild(p); });</script>";
+                "axe.run(document, { resultTypes: ['violations'] }).then(function (r) { var p = " +
+                "document.createElement('pre'); p.id = 'axe-results';" +
+                " p.textContent = JSON.stringify(r.violations.map(function (v) { return { id: v.id, impact: v.impact " +
+                "|| '', nodes: v.nodes.length, help: v.help }; })); document.body.appendChild(p); })" +
+                ".catch(function (e) { var p = document.createElement('pre'); p.id = 'axe-results'; p.textContent = " +
+                "'ERROR ' + e; document.body.appendChild(p); });</script>";
             int end = html.LastIndexOf("</body>", StringComparison.Ordinal);
             string page = Path.Combine(dir, "axe.html");
             File.WriteAllText(page, html[..end] + runner + html[end..]);

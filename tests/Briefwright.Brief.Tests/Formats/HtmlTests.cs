@@ -79,7 +79,9 @@ public class HtmlTests
     {
         string html = Html;
         var brief = FormatsDemo.National;
-        var svgs = Regex.Matches(html, "<svg [^>]*role=\"img\" aria-labelledby=\"([^ ]+)-title \\1-desc\">\\s*<title id=\"\\1-title\">([^<]+)</title><desc id=\"\\1-desc\">([^<]+)</desc>");
+        var svgs = Regex.Matches(html,
+            "<svg [^>]*role=\"img\" aria-labelledby=\"([^ ]+)-title \\1-desc\">\\s*<title " +
+            "id=\"\\1-title\">([^<]+)</title><desc id=\"\\1-desc\">([^<]+)</desc>");
         int figures = brief.Markdown.Split('\n').Count(l => l.StartsWith("[[figure:", StringComparison.Ordinal));
         Assert.Equal(figures, svgs.Count);
         Assert.Equal(figures, Regex.Matches(html, "<svg ").Count);
@@ -147,7 +149,9 @@ public class HtmlTests
 
         public static List<List<string>> Rows(string html, string captionStart)
         {
-            var table = Regex.Match(html, "<table id=\"table-\\d+\">\\s*<caption[^>]*><span class=\"label\">Table \\d+\\.</span> " + Regex.Escape(captionStart) + ".*?</table>", RegexOptions.Singleline);
+            var table = Regex.Match(html,
+                "<table id=\"table-\\d+\">\\s*<caption[^>]*><span class=\"label\">Table " +
+                "\\d+\\.</span> " + Regex.Escape(captionStart) + ".*?</table>", RegexOptions.Singleline);
             Assert.True(table.Success, $"no table whose caption starts '{captionStart}'");
             return Regex.Matches(table.Value, "<tr>(.*?)</tr>", RegexOptions.Singleline)
                 .Select(r => Regex.Matches(r.Groups[1].Value, "<t[hd][^>]*>(.*?)</t[hd]>", RegexOptions.Singleline)

@@ -127,7 +127,8 @@ public class PdfUaConformanceTests
     public void Content_scan_accepts_tagged_content_artifacts_and_strings_that_look_like_operators()
     {
         var scan = PdfUaChecker.ScanContent(Encoding.ASCII.GetBytes(
-            "/Artifact BMC 0 0 5 5 re f EMC /P <</MCID 0>> BDC BT (EMC Tj \\) BDC) Tj ET EMC /Figure <</MCID 1>> BDC q /Fm0 Do Q EMC"));
+            "/Artifact BMC 0 0 5 5 re f EMC /P <</MCID 0>> BDC BT (EMC Tj \\) BDC) Tj ET EMC /Figure <</MCID 1>> BDC " +
+            "q /Fm0 Do Q EMC"));
         Assert.Empty(scan.Findings);
         Assert.Equal([0, 1], scan.Mcids);
     }
@@ -175,7 +176,8 @@ public class PdfUaConformanceTests
             new TableBlock(["Year", "Output per person", "Worker share", "Note"],
                 Enumerable.Range(
                     2026,
-                    70).Select(y => (IReadOnlyList<string>)[$"{y}", $"{100 + (y - 2026) * 0.7:F1}", $"{0.42 - (y - 2026) * 0.0005:F3}", y % 7 == 0 ? "census year (invented)" : ""]).ToList(),
+                    70).Select(y => (IReadOnlyList<string>)[$"{y}", $"{100 + (y - 2026) * 0.7:F1}",
+                        $"{0.42 - (y - 2026) * 0.0005:F3}", y % 7 == 0 ? "census year (invented)" : ""]).ToList(),
                 [CellAlign.Left, CellAlign.Right, CellAlign.Right, CellAlign.Left], "An invented long table", "Invented for the test."),
             new FigureBlock(
                 "stress",
