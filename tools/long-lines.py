@@ -57,6 +57,7 @@ def main():
         for folder in sorted(per_folder):
             count, longest = per_folder[folder]
             print(f"{count:6d}  {longest:4d}  {folder}")
+    sys.stdout.flush()
     print(f"{total} lines over {a.max} characters", file=sys.stderr if a.list else sys.stdout)
     return 1 if total else 0
 

@@ -102,7 +102,7 @@ def split(line, limit):
         # An argument after others: it starts a line of its own first.
         tail = " " * (indent + 4) + line[start:]
         return [before] + (split(tail, limit) or [tail])
-    lo, hi = cstart + 12, min(end - 1, limit - 2)  # cut c: line[:c] + '" +' within the limit
+    lo, hi = cstart + 12, min(end - 1, limit - 3)  # cut c: line[:c] and '" +' within the limit
     if hi <= lo:
         return None
     cut = None

@@ -64,7 +64,8 @@ public class AnnexUnitsTests
             Assert.True(low <= estimate && estimate <= high && low < high, $"{low} ≤ {estimate} ≤ {high}");
             var change = o.GetProperty("long_run_change_pct");
             Assert.True(
-                change.GetProperty("p5_interval").GetProperty("low").GetDouble() <= change.GetProperty("p5").GetDouble());
+                change.GetProperty("p5_interval").GetProperty("low").GetDouble()
+                <= change.GetProperty("p5").GetDouble());
         }
         // The default base sample size was chosen so that the headline's 95% intervals are at most ±0.05
         // (docs/model.md).
@@ -82,7 +83,9 @@ public class AnnexUnitsTests
         }
     }
 
-    private static readonly Regex UnitSuffix = new(@"(_pct|_fraction|_share|_years|_year|_years_after_reform|_index|_years_of_output|_draws|^draws|^base_samples|^resamples|^discount_factor_to_reform|^years_after_reform)$");
+    private static readonly Regex UnitSuffix = new(
+        "(_pct|_fraction|_share|_years|_year|_years_after_reform|_index|_years_of_output|_draws|^draws|^base_samples"
+        + "|^resamples|^discount_factor_to_reform|^years_after_reform)$");
 
     [Fact]
     public void Every_numeric_CSV_column_says_its_unit_and_numbers_are_written_in_their_shortest_round_trip_form()

@@ -192,7 +192,9 @@ public class EditionPlannerTests
             IReadOnlyDictionary<string, string> outputs) =>
             string.Join(
                 ";",
-                inputs.OrderBy(kv => kv.Key).Concat(outputs.OrderBy(kv => kv.Key)).Select(kv => kv.Key + "=" + kv.Value));
+                inputs.OrderBy(kv => kv.Key)
+                    .Concat(outputs.OrderBy(kv => kv.Key))
+                    .Select(kv => kv.Key + "=" + kv.Value));
 
         private static CurrentEdition Current(
             int edition = 3,

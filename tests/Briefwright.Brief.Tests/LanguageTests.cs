@@ -51,7 +51,7 @@ public class LanguageTests
     }
 
     [Theory]
-    //           tag      date                       page label        words the tool writes                                   decimal   percent
+    // Each case: the language tag, the date, the page label, words the tool writes, the decimal sign, the percent.
     [InlineData(
         "en-GB",
         "30 November 2026",
@@ -104,7 +104,15 @@ public class LanguageTests
         // The PDF's language tag.
         Assert.Contains($"/Lang({tag})", Encoding.Latin1.GetString(brief.Pdf));
         // The cautions every brief carries: the not-a-forecast line is there in every language.
-        Assert.Contains(tag switch { "fr-FR" => "pas des prévisions", "es-ES" => "no previsiones", "de-DE" => "keine Prognosen", _ => "not forecasts" }, text);
+        Assert.Contains(
+            tag switch
+            {
+                "fr-FR" => "pas des prévisions",
+                "es-ES" => "no previsiones",
+                "de-DE" => "keine Prognosen",
+                _ => "not forecasts",
+            },
+            text);
     }
 
     [Theory]

@@ -122,13 +122,15 @@ public class StressScenarioTests
             l => l.GetProperty("is_combined").GetBoolean());
         Assert.Equal(
             JsonValueKind.Null,
-            Build("s07-never-pays-back").Json.GetProperty("headline").GetProperty("break_even_calendar_year").ValueKind);
+            Build("s07-never-pays-back").Json.GetProperty("headline").GetProperty("break_even_calendar_year")
+                .ValueKind);
         // At the longest feasible schooling nobody works, so output per person is zero there: the optimum can come
         // close to that edge (s03) but never sit on it.
         var near = Build("s03-optimum-near-maximum").Json.GetProperty("optimum");
         Assert.False(near.GetProperty("at_boundary").GetBoolean());
         Assert.True(
-            near.GetProperty("feasible_max_schooling").GetDouble() - near.GetProperty("schooling_years").GetDouble() < 2);
+            near.GetProperty("feasible_max_schooling").GetDouble()
+            - near.GetProperty("schooling_years").GetDouble() < 2);
     }
 
     [Theory]
@@ -171,8 +173,10 @@ public class StressScenarioTests
             string digits = token.TrimStart('+', '−', '-').TrimEnd('%').Replace(",", "");
             int decimals = digits.Contains('.') ? digits.Length - digits.IndexOf('.') - 1 : 0;
             double shown = double.Parse(digits, CultureInfo.InvariantCulture);
-            Assert.True(facts.Any(f => Math.Abs(
-                Math.Abs(Math.Round(f, decimals, MidpointRounding.AwayFromZero)) - shown) < 1e-9 || Math.Abs(Math.Abs(Math.Round(f, decimals)) - shown) < 1e-9),
+            Assert.True(
+                facts.Any(f =>
+                    Math.Abs(Math.Abs(Math.Round(f, decimals, MidpointRounding.AwayFromZero)) - shown) < 1e-9
+                    || Math.Abs(Math.Abs(Math.Round(f, decimals)) - shown) < 1e-9),
                 $"{name}: '{token}' on page 1 is not a page-1 fact of the results data. Box:\n{box}");
         }
     }

@@ -42,7 +42,7 @@ public class BatchTests
     }
 
     [Fact]
-    public void A_changed_assumption_rebuilds_only_its_brief_archives_the_previous_edition_and_lists_exactly_that_change()
+    public void A_changed_assumption_rebuilds_only_its_brief_archives_the_last_edition_and_lists_exactly_that_change()
     {
         var w = new Workspace("auroria-silverdale", "auroria-eastmark");
         Assert.Equal(0, w.Build().Code);

@@ -70,8 +70,8 @@ public class BuildPlanTests
         var (code2, text, _) = PlanWritingNothing(w, "--no-chart-images");
         Assert.Equal(0, code2);
         Assert.Contains("auroria-national  new edition        2  auroria-national-2026-11-30-edition-2.pdf", text);
-        Assert.Contains("changed: the scenario's content: a new edition 2 after edition 1; the current files are kept " +
-            "first in archive/auroria-national/edition-1.", text);
+        Assert.Contains("changed: the scenario's content: a new edition 2 after edition 1; the current files are " +
+            "kept first in archive/auroria-national/edition-1.", text);
         var planned = Json(PlanWritingNothing(w, "--no-chart-images", "--json").Out)[0];
         Assert.Equal(["content"], planned.GetProperty("changed").EnumerateArray().Select(e => e.GetString()));
         Assert.Equal(0, w.Build().Code);

@@ -38,7 +38,7 @@ public class EditionRuleTests
     private static JsonElement LastLogLine(Workspace w) => Snapshot.Log(w.Out)[^1];
 
     [Fact]
-    public void A_same_date_rebuild_with_nothing_changed_is_skipped_and_forced_keeps_the_edition_without_a_changes_section()
+    public void Same_date_rebuild_with_nothing_changed_is_skipped_and_forced_keeps_the_edition_with_no_changes_section()
     {
         var w = Built();
         var before = Snapshot.Of(w.Out);
@@ -114,8 +114,8 @@ public class EditionRuleTests
         Assert.Equal(0, w.Build("-t", template).Code);
         Assert.Equal(2, Current(w).Edition);
         string section = ChangesSection(Md(w))!;
-        Assert.Contains("No assumption or headline result changed; this edition follows a change of the template (the " +
-            "brief's wording and layout).", section);
+        Assert.Contains("No assumption or headline result changed; this edition follows a change of the template " +
+            "(the brief's wording and layout).", section);
     }
 
     [Fact]
@@ -146,7 +146,10 @@ public class EditionRuleTests
         string theme = Path.Combine(w.Dir, "auroria-institute.theme.yaml");
         File.Copy(CliAppTests.Demo("auroria-institute.theme.yaml"), theme);
         // the workspace copies text only
-        File.Copy(CliAppTests.Demo("auroria-institute-logo.png"), Path.Combine(w.Dir, "auroria-institute-logo.png"), overwrite: true);
+        File.Copy(
+            CliAppTests.Demo("auroria-institute-logo.png"),
+            Path.Combine(w.Dir, "auroria-institute-logo.png"),
+            overwrite: true);
         var (code, _, err) = w.Build("--theme", theme);
         Assert.True(code == 0, err);
         Assert.Equal((1, Stem1), (Current(w).Edition, Current(w).Stem));
@@ -173,8 +176,8 @@ public class EditionRuleTests
         var before = Snapshot.Of(w.Out);
         var (code, _, err) = w.Build();
         Assert.Equal(2, code);
-        Assert.Contains($"{yaml}:11:12: brief.edition: must not be below edition 5, already issued in {w.Out}; remove " +
-            "it, or give at least 6 to start a new edition. Got '2'.", err);
+        Assert.Contains($"{yaml}:11:12: brief.edition: must not be below edition 5, already issued in {w.Out}; " +
+            "remove it, or give at least 6 to start a new edition. Got '2'.", err);
         Assert.Contains("^", err);
         Assert.Equal(before, Snapshot.Of(w.Out));
         var line = LastLogLine(w);

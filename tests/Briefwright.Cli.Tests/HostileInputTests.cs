@@ -98,7 +98,8 @@ public class HostileInputTests
         {
             "pipe.yaml", "zero.yaml", "out.yaml", "sub/secret.yaml", "../" + Path.GetFileName(outside)
                 + "/secret.yaml", Path.Combine(outside, "secret.yaml"),
-            "/proc/self/environ", "/dev/zero", "base.yaml", "pipe.csv", "zero.csv", "env.csv", "sub/x.csv", "/etc/passwd", "nothing.yaml", ".", "..", "",
+            "/proc/self/environ", "/dev/zero", "base.yaml", "pipe.csv", "zero.csv", "env.csv", "sub/x.csv",
+            "/etc/passwd", "nothing.yaml", ".", "..", "",
         };
         string good = File.ReadAllText(Good);
         var rng = new Random(20261202);

@@ -37,7 +37,7 @@ public class ReissueTests
     public class DuplicateIds
     {
         [Fact]
-        public void A_variant_that_keeps_its_parents_id_is_refused_on_each_file_by_check_and_build_and_nothing_is_written_for_them()
+        public void A_variant_keeping_its_parents_id_is_refused_per_file_by_check_and_build_and_nothing_is_written()
         {
             // Given a variant written with extends that keeps its parent's brief.id
             var w = new Workspace("auroria-silverdale");
@@ -238,7 +238,8 @@ public class ReissueTests
             // When options are given, then they win
             string other = Path.Combine(project, "other");
             var (code2, _, error2) = Run(
-                A("build", Path.Combine(regions, "auroria-silverdale.yaml"), "-q", "-o", other, "--date", "2027-04-01"));
+                A("build", Path.Combine(regions, "auroria-silverdale.yaml"), "-q", "-o", other,
+                    "--date", "2027-04-01"));
             Assert.True(code2 == 0, error2);
             Assert.True(File.Exists(Path.Combine(other, "auroria-silverdale-2027-04-01.pdf")));
         }
@@ -263,7 +264,7 @@ public class ReissueTests
     public class Log
     {
         [Fact]
-        public void Each_attempt_is_one_line_with_utc_time_tool_version_input_hash_shard_outcome_and_every_positioned_message()
+        public void Each_attempt_is_one_line_with_utc_time_version_input_hash_shard_outcome_and_positioned_messages()
         {
             // Given a folder with one good and one bad scenario, and a clock stopped at a known instant
             var w = new Workspace("auroria-silverdale");

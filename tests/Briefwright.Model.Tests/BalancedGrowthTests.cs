@@ -57,7 +57,8 @@ public class BalancedGrowthTests
             var r = BalancedGrowth.Solve(Inputs(-0.01));
             Assert.Equal(OptimumMethod.Numerical, r.Optimum.Method);
             Assert.True(
-                r.Optimum.Within1Pct[0] < r.Optimum.SchoolingYears && r.Optimum.SchoolingYears < r.Optimum.Within1Pct[1]);
+                r.Optimum.Within1Pct[0] < r.Optimum.SchoolingYears
+                && r.Optimum.SchoolingYears < r.Optimum.Within1Pct[1]);
             Assert.True(r.Optimum.Diagnostics.Converged);
         }
     }

@@ -27,9 +27,10 @@ public class InvariantTests
                 ReturnSchedule returns = schedule switch { 0 => new ConstantReturn(r), 1 => BracketReturns
                     .HallJones, _ => new PowerReturn(0.32, 0.58) };
                 var d = new Demography(n, entry, Math.Min(retire, survival.MaxAge), survival, p);
-                return (d, new HumanCapital(
-                    returns,
-                    schedule == 1 ? new ExperienceProfile(0.081, 0.0012) : null), new Production(s, alpha, Math.Max(delta, 0.04 - n), 0.015));
+                return (
+                    d,
+                    new HumanCapital(returns, schedule == 1 ? new ExperienceProfile(0.081, 0.0012) : null),
+                    new Production(s, alpha, Math.Max(delta, 0.04 - n), 0.015));
             });
 
     [Fact]

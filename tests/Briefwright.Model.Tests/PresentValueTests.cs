@@ -130,7 +130,8 @@ public class ValuationDateTests
     [Theory]
     [InlineData(0.03)]
     [InlineData(0.07)]
-    public void Moving_the_reform_later_lowers_every_constant_rate_present_value_by_the_discount_factor_between_the_years(double rate)
+    public void Moving_the_reform_later_lowers_each_constant_rate_present_value_by_the_discount_factor_between_years(
+        double rate)
     {
         // US OMB Circular A-4 (2003) rates. Valued at 2026, a reform in 2060 instead of 2028 is the same path 32 years
         // later: at a constant rate every flow is worth (e^g/(1 + r))^32 as much, and so is the sum and its tail.

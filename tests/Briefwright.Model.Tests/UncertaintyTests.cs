@@ -74,7 +74,7 @@ public class UncertaintyTests
         }
 
         [Fact]
-        public void The_interval_width_shrinks_like_one_over_root_N_and_covers_the_analytic_value_about_95_percent_of_the_time()
+        public void Interval_width_shrinks_like_one_over_root_N_and_covers_the_analytic_value_95_percent_of_the_time()
         {
             int covered = 0, cases = 0;
             double widthSmall = 0, widthLarge = 0;
@@ -216,8 +216,9 @@ public class UncertaintyTests
         public void Error_shrinks_roughly_as_one_over_root_n()
         {
             var d = new UniformDistribution(0, 1);
-            double Rms(
-                int n) => Math.Sqrt(Enumerable.Range(0, 200).Average(s => Math.Pow(SampleMean(d, n, (ulong)(1000 + s)) - 0.5, 2)));
+            double Rms(int n) =>
+                Math.Sqrt(Enumerable.Range(0, 200)
+                    .Average(s => Math.Pow(SampleMean(d, n, (ulong)(1000 + s)) - 0.5, 2)));
             double ratio = Rms(250) / Rms(4000); // √16 = 4 expected
             Assert.InRange(ratio, 3.0, 5.3);
         }
@@ -390,13 +391,16 @@ public class UncertaintyTests
             // must give a higher probability.
             var inputs = ReformSimulatorTests.Inputs();
             var settings = Settings();
-            double Change(
-                double k) => KeyResultsEvaluator.Evaluate(Parameters.Find("return_scale")!.Set(inputs, k), settings, 34).LongRunChangePct[0];
+            double Change(double k) =>
+                KeyResultsEvaluator.Evaluate(Parameters.Find("return_scale")!.Set(inputs, k), settings, 34)
+                    .LongRunChangePct[0];
             double threshold = MathNet.Numerics.RootFinding.Brent.FindRoot(Change, 0.05, 1.0, 1e-10);
-            Probability Run(
-                double low,
-                double high) => MonteCarlo.Run(inputs, Settings(new UncertainParameter("return_scale", new UniformDistribution(low, high))), 34)
-                .Options.Single(o => o.OptionId == "plus1").ProbabilityGain;
+            Probability Run(double low, double high)
+            {
+                var parameter = new UncertainParameter("return_scale", new UniformDistribution(low, high));
+                return MonteCarlo.Run(inputs, Settings(parameter), 34)
+                    .Options.Single(o => o.OptionId == "plus1").ProbabilityGain;
+            }
             var lower = Run(0.0, 1.0);
             var higher = Run(0.3, 1.3);
             foreach (var (p, low, high) in new[] { (lower, 0.0, 1.0), (higher, 0.3, 1.3) })

@@ -28,10 +28,13 @@ public class FuzzTests
 
     private static readonly string[] Tokens =
     {
-        "NaN", "-", "%", "[", "]", "{", "}", ":", "&a ", "*a", "\t", "  ", "1e999", "-1", "0", "\"", "'", "#", "---", "\n", "- ",
-        "extends: region.yaml\n", "extends: national.yaml\n", "999999999999999999999999999999999", "é", "\0", "...", "!!int ", "? ", ",",
+        "NaN", "-", "%", "[", "]", "{", "}", ":", "&a ", "*a", "\t", "  ", "1e999", "-1", "0", "\"", "'", "#", "---",
+        "\n", "- ",
+        "extends: region.yaml\n", "extends: national.yaml\n", "999999999999999999999999999999999", "é", "\0", "...",
+        "!!int ", "? ", ",",
         // paths out of the project folder, of the wrong kind, and tags
-        "extends: ../secret.yaml\n", "extends: /etc/passwd\n", "extends: /proc/self/environ\n", "file: ../secret.csv\n", "file: /dev/zero.csv\n",
+        "extends: ../secret.yaml\n", "extends: /etc/passwd\n", "extends: /proc/self/environ\n", "file: ../secret.csv\n",
+        "file: /dev/zero.csv\n",
         "../", "/", "!!str ", "!custom ", "!!binary ",
     };
 

@@ -144,8 +144,8 @@ public class ModelBoundsTests
         var r = MemoryReader.Load(MemoryReader.Valid + "\nreform:\n  horizon_years: 400\nuncertainty:\n  seed: 1\n" +
             "  draws: 200000\n  sobol_samples: 8192\n  parameters:\n    saving_rate: { distribution: uniform, low: " +
             "10%, high: 30% }\n");
-        Assert.Contains("uncertainty: asks for 89,830,400 simulated years ((draws + sobol_samples × (parameters + 2)) " +
-            "× reform.horizon_years = (200000 + 8192 × 3) × 400); the limit for one brief is 10,000,000", First(r));
+        Assert.Contains("uncertainty: asks for 89,830,400 simulated years ((draws + sobol_samples × (parameters + " +
+            "2)) × reform.horizon_years = (200000 + 8192 × 3) × 400); the limit for one brief is 10,000,000", First(r));
     }
 
     [Fact]

@@ -79,12 +79,16 @@ public class TemplateBudgetFuzzTests
 {
     private static readonly string[] Pieces =
     {
-        "# {{ brief.title }}\n", "{{ for i in 1..100 }}{{ i }} {{ end }}\n", "{{ while true }}x{{ end }}", "{{ func f(n); if n > 0; f(n - 1); f(n - 1); end; end; f 30 }}",
-        "{{ 'ab' * 99999 }}", "{{ x = 'abcd'; for i in 1..30; x = x + x; end; x | string.size }}", "{{ (1..200000) | array.size }}",
-        "{{ 'x' | string.pad_left 99999 }}", "{{ big 1 99999 }}", "{{ pct 0.5 999999 }}", "{{ [1, 2] | array.insert_at 99999 3 | array.size }}",
-        "{{ for i in 1..9999; for j in 1..9999; end; end }}", "text\n", "{{ func g; ret g; end }}{{ g }}", "{{ (1..9999) | array.join ',' | string.size }}",
+        "# {{ brief.title }}\n", "{{ for i in 1..100 }}{{ i }} {{ end }}\n", "{{ while true }}x{{ end }}",
+        "{{ func f(n); if n > 0; f(n - 1); f(n - 1); end; end; f 30 }}",
+        "{{ 'ab' * 99999 }}", "{{ x = 'abcd'; for i in 1..30; x = x + x; end; x | string.size }}",
+        "{{ (1..200000) | array.size }}",
+        "{{ 'x' | string.pad_left 99999 }}", "{{ big 1 99999 }}", "{{ pct 0.5 999999 }}",
+        "{{ [1, 2] | array.insert_at 99999 3 | array.size }}",
+        "{{ for i in 1..9999; for j in 1..9999; end; end }}", "text\n", "{{ func g; ret g; end }}{{ g }}",
+        "{{ (1..9999) | array.join ',' | string.size }}",
         "{{ capture c; for i in 1..9999; 'abcdefghij'; end; end; c | string.size }}",
-            "{{ brief.title | string.replace 'A' ('B' * 50000) }}",
+        "{{ brief.title | string.replace 'A' ('B' * 50000) }}",
     };
 
     [Fact]

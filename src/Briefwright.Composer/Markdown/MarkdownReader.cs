@@ -201,7 +201,8 @@ public static partial class MarkdownReader
                 case EmphasisInline em:
                     var next = (style, em.DelimiterCount >= 2) switch
                     {
-                        (RunStyle.Italic, true) or (RunStyle.Bold, false) or (RunStyle.BoldItalic, _) => RunStyle.BoldItalic,
+                        (RunStyle.Italic, true) or (RunStyle.Bold, false) or (RunStyle.BoldItalic, _)
+                            => RunStyle.BoldItalic,
                         (_, true) => RunStyle.Bold,
                         _ => RunStyle.Italic,
                     };

@@ -227,8 +227,8 @@ public sealed partial class PdfUaChecker
             }
         }
         if (type == "Table" && childTypes.Any(t => t is not ("TR" or "THead" or "TBody" or "TFoot" or "Caption")))
-            Fail("09-004", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a table holds rows, row groups " +
-                "and a caption");
+            Fail("09-004", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a table holds rows, row " +
+                "groups and a caption");
         if (type == "L" && childTypes.Any(t => t is not ("LI" or "Caption" or "L")))
             Fail("09-005", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a list holds list items");
         if (type == "Table") CheckHeaderScopes(kid, where);
@@ -270,8 +270,8 @@ public sealed partial class PdfUaChecker
             string checkpoint = type == "Figure" ? "13-004" : "17-002";
             if (alt.Trim().Length == 0) Fail(checkpoint, $"{where} has no alternative text");
             else if (FileName().IsMatch(alt.Trim()))
-                Fail(checkpoint, $"{where}: the alternative text is a file name ('{alt}'); needs a description (human " +
-                    "check beyond this)");
+                Fail(checkpoint, $"{where}: the alternative text is a file name ('{alt}'); needs a description " +
+                    "(human check beyond this)");
             CheckBoundingBox(element, where, page);
         }
         if (type == "Link"
@@ -457,8 +457,8 @@ public sealed partial class PdfUaChecker
         var dangling = treeSet.Where(m => !scan.Mcids.Contains(m)).ToList();
         if (dangling.Count > 0)
             Fail("ISO 32000-1 14.7.4.2",
-                $"page {index}: structure elements point at marked content {string.Join(", ", dangling.Take(5))} that " +
-                "the page does not have");
+                $"page {index}: structure elements point at marked content {string.Join(", ", dangling.Take(5))} " +
+                "that the page does not have");
 
         // The parent tree must lead each MCID back to the element that holds it (what assistive technology follows).
         if (inTree.Count > 0)
@@ -616,13 +616,17 @@ public sealed partial class PdfUaChecker
                 yield return new Token(Encoding.Latin1.GetString(b, start, i - start), false);
                 continue;
             }
-            if (c is (byte)'[' or (byte)']' or (byte)'{' or (byte)'}') { i++; yield return new Token(
-                ((char)c).ToString(),
-                false); continue; }
+            if (c is (byte)'[' or (byte)']' or (byte)'{' or (byte)'}')
+            {
+                i++;
+                yield return new Token(((char)c).ToString(), false);
+                continue;
+            }
             int s = i;
             if (c == '/') i++;
             while (i < n && b[i] is not ((byte)' ' or (byte)'\n' or (byte)'\r' or (byte)'\t' or (byte)'\f' or 0
-                or (byte)'(' or (byte)')' or (byte)'<' or (byte)'>' or (byte)'[' or (byte)']' or (byte)'{' or (byte)'}' or (byte)'/' or (byte)'%')) i++;
+                or (byte)'(' or (byte)')' or (byte)'<' or (byte)'>' or (byte)'[' or (byte)']' or (byte)'{' or (byte)'}'
+                or (byte)'/' or (byte)'%')) i++;
             string word = Encoding.Latin1.GetString(b, s, i - s);
             bool isOperand = c == '/' || c is (byte)'+' or (byte)'-' or (byte)'.' || char.IsAsciiDigit((char)c)
                 || word is "true" or "false" or "null";

@@ -174,11 +174,13 @@ public class PdfUaConformanceTests
                 .Select(i => (IReadOnlyList<TextRun>)[new TextRun($"Ordered point {i}.")])
                 .ToList(), true),
             new TableBlock(["Year", "Output per person", "Worker share", "Note"],
-                Enumerable.Range(
-                    2026,
-                    70).Select(y => (IReadOnlyList<string>)[$"{y}", $"{100 + (y - 2026) * 0.7:F1}",
-                        $"{0.42 - (y - 2026) * 0.0005:F3}", y % 7 == 0 ? "census year (invented)" : ""]).ToList(),
-                [CellAlign.Left, CellAlign.Right, CellAlign.Right, CellAlign.Left], "An invented long table", "Invented for the test."),
+                Enumerable.Range(2026, 70)
+                    .Select(y => (IReadOnlyList<string>)[$"{y}", $"{100 + (y - 2026) * 0.7:F1}",
+                        $"{0.42 - (y - 2026) * 0.0005:F3}", y % 7 == 0 ? "census year (invented)" : ""])
+                    .ToList(),
+                [CellAlign.Left, CellAlign.Right, CellAlign.Right, CellAlign.Left],
+                "An invented long table",
+                "Invented for the test."),
             new FigureBlock(
                 "stress",
                 ChartPdf(),
