@@ -28,8 +28,12 @@ public class ChartConsistencyTests
         foreach (var spec in specs)
             foreach (var plottable in spec.Plot.Plottables)
             {
-                string? legend = plottable switch { ScottPlot.Plottables.Scatter s => s
-                    .LegendText, ScottPlot.Plottables.Marker m => m.LegendText, _ => null };
+                string? legend = plottable switch
+                {
+                    ScottPlot.Plottables.Scatter s => s.LegendText,
+                    ScottPlot.Plottables.Marker m => m.LegendText,
+                    _ => null,
+                };
                 if (legend is null) continue;
                 string label = legend.Replace(" (baseline)", "");
                 if (!labels.TryGetValue(label, out var id)) continue;

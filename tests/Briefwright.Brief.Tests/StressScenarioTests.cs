@@ -34,8 +34,8 @@ public class StressScenarioTests
                 var result = new ScenarioLoader(new Demo.DiskReader()).Load(
                     Path.Combine(Demo.Root, "tests", "stress", name + ".yaml"));
                 Assert.True(result.Ok, string.Join("\n", result.Problems));
-                Cache[name] = built = (BriefBuilder.Build(result.Document!, StandardTemplate.Template), result
-                    .Document!);
+                Cache[name] = built =
+                    (BriefBuilder.Build(result.Document!, StandardTemplate.Template), result.Document!);
             }
         }
         using var pdf = PdfDocument.Open(built.Item1.Pdf);
@@ -197,8 +197,8 @@ public class StressScenarioTests
             }
         }
         Collect(json.GetProperty("headline"));
-        if (json.GetProperty("headline").GetProperty("probability_gain") is { ValueKind: JsonValueKind.Number } p) facts
-            .Add(100 * p.GetDouble());
+        if (json.GetProperty("headline").GetProperty("probability_gain") is { ValueKind: JsonValueKind.Number } p)
+            facts.Add(100 * p.GetDouble());
         Collect(json.GetProperty("lever_decomposition"));
         foreach (var o in json.GetProperty("options").EnumerateArray())
         {

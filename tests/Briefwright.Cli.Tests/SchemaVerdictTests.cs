@@ -74,10 +74,10 @@ public class SchemaVerdictTests
         YScalar { IsNull: true } => null,
         YScalar { Value: "true" or "True" or "TRUE" } => JsonValue.Create(true),
         YScalar { Value: "false" or "False" or "FALSE" } => JsonValue.Create(false),
-        YScalar p when Regex.IsMatch(p.Value, "^[-+]?[0-9]+$") && long.TryParse(p.Value, out long l) => JsonValue
-            .Create(l),
-        YScalar p when Regex.IsMatch(p.Value, "^[-+]?(\\.[0-9]+|[0-9]+(\\.[0-9]*)?)([eE][-+]?[0-9]+)?$") => JsonValue
-            .Create(double.Parse(p.Value, System.Globalization.CultureInfo.InvariantCulture)),
+        YScalar p when Regex.IsMatch(p.Value, "^[-+]?[0-9]+$") && long.TryParse(p.Value, out long l)
+            => JsonValue.Create(l),
+        YScalar p when Regex.IsMatch(p.Value, "^[-+]?(\\.[0-9]+|[0-9]+(\\.[0-9]*)?)([eE][-+]?[0-9]+)?$")
+            => JsonValue.Create(double.Parse(p.Value, System.Globalization.CultureInfo.InvariantCulture)),
         YScalar p => JsonValue.Create(p.Value),
         _ => throw new InvalidOperationException(node.Kind),
     };

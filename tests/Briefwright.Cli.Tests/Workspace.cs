@@ -16,7 +16,8 @@ internal sealed class Workspace
         {
             string name = Path.GetFileName(f);
             if (name.EndsWith(".yaml") && names.Length > 0 && !names.Contains(Path.GetFileNameWithoutExtension(name))
-                && name != "auroria-national.yaml") continue;
+                && name != "auroria-national.yaml")
+                continue;
             string text = File.ReadAllText(f).Replace("draws: 2000", "draws: 60")
                 .Replace("sobol_samples: 2560", "sobol_samples: 0")
                 .Replace("steps: 9", "steps: 3");

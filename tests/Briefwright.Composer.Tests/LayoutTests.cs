@@ -146,9 +146,8 @@ public class LayoutTests
     /// <summary>The lowest point drawn in the content area of each page (text baselines and figure bottoms).</summary>
     private static double[] Filled(RecordingSurface s) => Enumerable.Range(0, s.PageCount).Select(p => s.Ops
         .Where(o => o.Page == p && o.Y > Theme.MarginTop && o.Y < Bottom + 1 && o.Kind is "text" or "figure")
-        .Select(o => o.Kind == "figure"
-            ? o.Y + o.Height
-            : o.Y).DefaultIfEmpty(Theme.MarginTop).Max() - Theme.MarginTop).ToArray();
+        .Select(o => o.Kind == "figure" ? o.Y + o.Height : o.Y)
+        .DefaultIfEmpty(Theme.MarginTop).Max() - Theme.MarginTop).ToArray();
 
     [Fact]
     public void A_figure_that_does_not_fit_waits_while_the_text_after_it_fills_the_page()

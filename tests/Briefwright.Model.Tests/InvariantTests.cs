@@ -24,8 +24,12 @@ public class InvariantTests
                     1 => new GompertzMakehamSurvival(0.0003, 3e-6, 1.12, 110),
                     _ => new TabulatedSurvival(new double[] { 0, 40, 80, 100 }, new[] { 1.0, 0.97, 0.6, 0.0 }),
                 };
-                ReturnSchedule returns = schedule switch { 0 => new ConstantReturn(r), 1 => BracketReturns
-                    .HallJones, _ => new PowerReturn(0.32, 0.58) };
+                ReturnSchedule returns = schedule switch
+                {
+                    0 => new ConstantReturn(r),
+                    1 => BracketReturns.HallJones,
+                    _ => new PowerReturn(0.32, 0.58),
+                };
                 var d = new Demography(n, entry, Math.Min(retire, survival.MaxAge), survival, p);
                 return (
                     d,

@@ -46,8 +46,9 @@ public class FuzzTests
         {
             case 0: lines.RemoveAt(line); return string.Join('\n', lines);
             case 1: lines.Insert(line, lines[other % lines.Count]); return string.Join('\n', lines);
-            case 2: (lines[line], lines[other % lines.Count]) = (lines[other % lines.Count], lines[line]); return string
-                .Join('\n', lines);
+            case 2:
+                (lines[line], lines[other % lines.Count]) = (lines[other % lines.Count], lines[line]);
+                return string.Join('\n', lines);
             case 3: return text[..at] + Tokens[token] + text[at..];
             case 4: return text.Remove(at, Math.Min(1 + other % 5, text.Length - at));
             case 5: return text[..at];

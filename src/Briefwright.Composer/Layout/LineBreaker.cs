@@ -37,8 +37,8 @@ public static class LineBreaker
                 lineHasWord = false;
             }
             string text = word;
-            if (w > width
-                && text.Length > 1) (text, w) = BreakLongWord(text, width, font, run.Link, lines, ref spans, measurer);
+            if (w > width && text.Length > 1)
+                (text, w) = BreakLongWord(text, width, font, run.Link, lines, ref spans, measurer);
             spans.Add(new LineSpan(text, x + space, w, font, run.Link));
             x += space + w;
             lineHasWord = true;
@@ -93,8 +93,8 @@ public static class LineBreaker
         var joined = new List<TextRun>();
         foreach (var run in runs)
         {
-            if (joined.Count > 0 && joined[^1].Style == run.Style
-                && joined[^1].Link == run.Link) joined[^1] = joined[^1] with { Text = joined[^1].Text + run.Text };
+            if (joined.Count > 0 && joined[^1].Style == run.Style && joined[^1].Link == run.Link)
+                joined[^1] = joined[^1] with { Text = joined[^1].Text + run.Text };
             else joined.Add(run);
         }
         foreach (var run in joined)

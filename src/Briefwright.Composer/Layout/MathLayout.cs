@@ -158,8 +158,8 @@ public static class MathNotation
         }
         if (Greek.TryGetValue(name, out var g)) return new Sym(g.Char, Spoken: " " + g.Name + " ");
         if (Symbols.TryGetValue(name, out var sym)) return new Sym(sym.Char, Spoken: sym.Spoken);
-        if (Functions
-            .Contains(name)) return new Seq(new Node[] { new Sym(name, Spoken: " " + name + " "), new Space(0.17) });
+        if (Functions.Contains(name))
+            return new Seq(new Node[] { new Sym(name, Spoken: " " + name + " "), new Space(0.17) });
         throw new ComposeException($"an equation has an unknown command '\\{name}'. Got '{Short(s)}'.", line, s);
     }
 
@@ -181,8 +181,9 @@ public static class MathNotation
             case Seq q: foreach (var n in q.Items) Speak(n, sb); break;
             case Space: sb.Append(' '); break;
             case Hat h: sb.Append(' '); Speak(h.Body, sb); sb.Append(" hat "); break;
-            case Frac f: sb.Append(" the fraction "); Speak(f.Num, sb); sb.Append(" over "); Speak(f.Den, sb); sb
-                .Append(", "); break;
+            case Frac f:
+                sb.Append(" the fraction "); Speak(f.Num, sb); sb.Append(" over "); Speak(f.Den, sb); sb.Append(", ");
+                break;
             case BigOp b: sb.Append(' ').Append(b.Spoken).Append(' '); break;
             case Script sc when sc.Base is BigOp op:
                 sb.Append(' ').Append(op.Spoken);

@@ -77,8 +77,8 @@ public static class Paginator
                 // The page is as full as the text allows: the waiting float opens the next page (and a table that
                 // continues after it repeats its header row).
                 PlaceWaiting();
-                if (!atom.BreakBefore && atom.RepeatHeader is { } header && !ReferenceEquals(header, atom)) Place(
-                    header);
+                if (!atom.BreakBefore && atom.RepeatHeader is { } header && !ReferenceEquals(header, atom))
+                    Place(header);
                 continue;
             }
             if (y > 0 && (atom.BreakBefore || y + chain > pageHeight)) NewPage(atom);

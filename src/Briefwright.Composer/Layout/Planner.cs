@@ -69,8 +69,13 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         double width,
         StructTag tag = StructTag.P)
     {
-        double size = role switch { ParagraphRole.Subtitle => 12.5, ParagraphRole.Meta => 9, ParagraphRole.Note => theme
-            .CaptionSize, _ => theme.BodySize };
+        double size = role switch
+        {
+            ParagraphRole.Subtitle => 12.5,
+            ParagraphRole.Meta => 9,
+            ParagraphRole.Note => theme.CaptionSize,
+            _ => theme.BodySize,
+        };
         var lines = LineBreaker.Break(runs, size, width, measurer);
         double lh = LineHeight(size);
         double ascent = measurer.Ascent(new FontSpec(RunStyle.Regular, size)) + (lh - size * 1.15) / 2;
@@ -202,8 +207,8 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
             double h = lines.Max(l => l.Count) * lh + 2 * pad;
             return new TableRowAtom
             {
-                Cells = lines, ColumnX = xs, ColumnWidth = widths, Align = t
-                    .Align, LineHeight = lh, Ascent = ascent, Padding = pad,
+                Cells = lines, ColumnX = xs, ColumnWidth = widths, Align = t.Align,
+                LineHeight = lh, Ascent = ascent, Padding = pad,
                 IsHeader = header, Striped = index % 2 == 1, Height = h, Group = group, GroupTag = StructTag.Table,
                 SpaceBefore = header ? 4 : 0, KeepWithNext = header, RepeatHeader = headerAtom,
             };

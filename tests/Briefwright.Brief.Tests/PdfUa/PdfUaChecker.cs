@@ -215,8 +215,8 @@ public sealed partial class PdfUaChecker
             }
             else if (childKind == "/OBJR")
             {
-                if (Get(child, "/Obj") is { } obj
-                    && obj.ValueKind == JsonValueKind.String) annotationParents[obj.GetString()!] = type;
+                if (Get(child, "/Obj") is { } obj && obj.ValueKind == JsonValueKind.String)
+                    annotationParents[obj.GetString()!] = type;
             }
             else
             {
@@ -375,8 +375,8 @@ public sealed partial class PdfUaChecker
         if (list.Count == 0) return;
         var tabs = Get(page, "/Tabs");
         if (tabs is null) Fail("28-008", $"page {index} has annotations and no Tabs entry");
-        else if (Str(tabs
-            .Value) != "/S") Fail("28-009", $"page {index} has annotations and Tabs {Str(tabs.Value)}, not /S");
+        else if (Str(tabs.Value) != "/S")
+            Fail("28-009", $"page {index} has annotations and Tabs {Str(tabs.Value)}, not /S");
         foreach (var aRef in list)
         {
             var a = Resolve(aRef);
@@ -398,8 +398,8 @@ public sealed partial class PdfUaChecker
                 if (parent != "Annot") Fail(
                     "28-002",
                     $"page {index}: a {subtype} annotation is not inside an Annot structure element");
-                if (contents.Trim()
-                    .Length == 0) Fail("28-004", $"page {index}: a {subtype} annotation has no Contents");
+                if (contents.Trim().Length == 0)
+                    Fail("28-004", $"page {index}: a {subtype} annotation has no Contents");
             }
         }
     }
@@ -545,7 +545,8 @@ public sealed partial class PdfUaChecker
                     int? mcid = null;
                     int at = operands.IndexOf("/MCID");
                     if (token.Text == "BDC" && at >= 0 && at + 1 < operands.Count
-                        && int.TryParse(operands[at + 1], CultureInfo.InvariantCulture, out int id)) mcid = id;
+                        && int.TryParse(operands[at + 1], CultureInfo.InvariantCulture, out int id))
+                        mcid = id;
                     bool insideArtifact = stack.Any(s => s.Artifact), insideTagged = stack.Any(s => s.Tagged);
                     if (artifact && insideTagged) artifactInTagged++;
                     if (mcid is not null && insideArtifact) taggedInArtifact++;
@@ -635,7 +636,8 @@ public sealed partial class PdfUaChecker
             {
                 // Inline image data: skip to EI.
                 while (i + 2 < n
-                    && !(b[i] is (byte)' ' or (byte)'\n' or (byte)'\r' && b[i + 1] == 'E' && b[i + 2] == 'I')) i++;
+                    && !(b[i] is (byte)' ' or (byte)'\n' or (byte)'\r' && b[i + 1] == 'E' && b[i + 2] == 'I'))
+                    i++;
                 i++;
             }
         }
@@ -655,13 +657,13 @@ public sealed partial class PdfUaChecker
         void Resources(JsonElement? resRef)
         {
             if (resRef is null) return;
-            if (resRef.Value.ValueKind == JsonValueKind.String
-                && !visitedResources.Add(resRef.Value.GetString()!)) return;
+            if (resRef.Value.ValueKind == JsonValueKind.String && !visitedResources.Add(resRef.Value.GetString()!))
+                return;
             var res = Resolve(resRef.Value);
             if (Get(res, "/Font") is { } fonts)
                 foreach (var f in Resolve(fonts).EnumerateObject())
-                    if (f.Value.ValueKind != JsonValueKind.String
-                        || seen.Add(f.Value.GetString()!)) CheckFont(Resolve(f.Value), f.Name);
+                    if (f.Value.ValueKind != JsonValueKind.String || seen.Add(f.Value.GetString()!))
+                        CheckFont(Resolve(f.Value), f.Name);
             if (Get(res, "/XObject") is { } xo)
                 foreach (var x in Resolve(xo).EnumerateObject())
                 {
