@@ -33,10 +33,10 @@ public static class MathNotation
 
     private static readonly Dictionary<string, (string Char, string Spoken)> Symbols = new()
     {
-        ["cdot"] = ("·", " times "), ["times"] = ("×", " times "), ["le"] = ("≤", " at most "), ["ge"]
-            = ("≥", " at least "),
-        ["infty"] = ("∞", "infinity"), ["to"] = ("→", " to "), ["approx"] = ("≈", " approximately "), ["ldots"]
-            = ("…", "..."),
+        ["cdot"] = ("·", " times "), ["times"] = ("×", " times "),
+        ["le"] = ("≤", " at most "), ["ge"] = ("≥", " at least "),
+        ["infty"] = ("∞", "infinity"), ["to"] = ("→", " to "),
+        ["approx"] = ("≈", " approximately "), ["ldots"] = ("…", "..."),
     };
 
     private static readonly string[] Functions = { "ln", "exp", "max", "min", "log", "arg" };
@@ -76,10 +76,8 @@ public static class MathNotation
                 atom = new Sym("\u2212", Spoken: "minus ");
             if (atom is not null) items.Add(atom);
         }
-        if (closing is not null) throw new ComposeException(
-            $"an equation has an unclosed '{{'. Got '{Short(s)}'.",
-            line,
-            s);
+        if (closing is not null)
+            throw new ComposeException($"an equation has an unclosed '{{'. Got '{Short(s)}'.", line, s);
         return new Seq(items);
     }
 
@@ -95,10 +93,8 @@ public static class MathNotation
         char c = s[i];
         if (c == ' ') { i++; return null; }
         if (c == '{') { i++; return ParseSeq(s, ref i, line, '}'); }
-        if (c == '}') throw new ComposeException(
-            $"an equation has a '}}' without its '{{'. Got '{Short(s)}'.",
-            line,
-            s);
+        if (c == '}')
+            throw new ComposeException($"an equation has a '}}' without its '{{'. Got '{Short(s)}'.", line, s);
         if (c != '\\')
         {
             i++;
@@ -119,9 +115,7 @@ public static class MathNotation
                 ' ' => new Space(0.25),
                 '{' or '}' or '\\' or '_' or '^' or '$' => new Sym(e.ToString()),
                 _ => throw new ComposeException(
-                    $"an equation has an unknown command '\\{e}'. Got '{Short(s)}'.",
-                    line,
-                    s),
+                    $"an equation has an unknown command '\\{e}'. Got '{Short(s)}'.", line, s),
             };
         }
         int start = i;
@@ -141,15 +135,11 @@ public static class MathNotation
                 return new BigOp("∑", "the sum", true);
             case "text":
                 while (i < s.Length && s[i] == ' ') i++;
-                if (i >= s.Length || s[i] != '{') throw new ComposeException(
-                    $"\\text needs its text in braces. Got '{Short(s)}'.",
-                    line,
-                    s);
+                if (i >= s.Length || s[i] != '{')
+                    throw new ComposeException($"\\text needs its text in braces. Got '{Short(s)}'.", line, s);
                 int end = s.IndexOf('}', i);
-                if (end < 0) throw new ComposeException(
-                    $"an equation has an unclosed '{{'. Got '{Short(s)}'.",
-                    line,
-                    s);
+                if (end < 0)
+                    throw new ComposeException($"an equation has an unclosed '{{'. Got '{Short(s)}'.", line, s);
                 string text = s[(i + 1)..end];
                 i = end + 1;
                 return new Sym(text, Spoken: " " + text + " ");
@@ -338,20 +328,8 @@ public sealed class MathAtom : Atom
         {
             double thickness = r.Thickness == 0 ? 0.55 : 0.6;
             // A rule with a thickness other than 0 is a slanted stroke (the hat): Thickness is its rise.
-            if (r.Thickness == 0) surface.Line(
-                left + r.X1,
-                baseline + r.Dy,
-                left + r.X2,
-                baseline + r.Dy,
-                theme.Text,
-                thickness);
-            else surface.Line(
-                left + r.X1,
-                baseline + r.Dy,
-                left + r.X2,
-                baseline + r.Dy + r.Thickness,
-                theme.Text,
-                thickness);
+            double y2 = r.Thickness == 0 ? baseline + r.Dy : baseline + r.Dy + r.Thickness;
+            surface.Line(left + r.X1, baseline + r.Dy, left + r.X2, y2, theme.Text, thickness);
         }
         surface.EndTag();
     }

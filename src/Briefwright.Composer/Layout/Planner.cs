@@ -155,10 +155,9 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
     {
         figures++;
         var atoms = new List<Atom>();
-        atoms.AddRange(Caption(theme.FigureLabel.Replace(
-            "{0}",
-            figures.ToString(System.Globalization.CultureInfo.InvariantCulture),
-            StringComparison.Ordinal), f.Caption, width, 12));
+        string label = theme.FigureLabel.Replace(
+            "{0}", figures.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal);
+        atoms.AddRange(Caption(label, f.Caption, width, 12));
         double w = Math.Min(width, f.WidthPt);
         double h = f.HeightPt * w / f.WidthPt;
         double maxH = theme.ContentHeight * 0.6;
@@ -183,10 +182,12 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
     {
         tables++;
         var atoms = new List<Atom>();
-        if (t.Caption is not null) atoms.AddRange(Caption(theme.TableLabel.Replace(
-            "{0}",
-            tables.ToString(System.Globalization.CultureInfo.InvariantCulture),
-            StringComparison.Ordinal), t.Caption, width, 12));
+        if (t.Caption is not null)
+        {
+            string label = theme.TableLabel.Replace(
+                "{0}", tables.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal);
+            atoms.AddRange(Caption(label, t.Caption, width, 12));
+        }
         double size = theme.TableSize, lh = size * 1.3, pad = 3.5;
         var regular = new FontSpec(RunStyle.Regular, size);
         int cols = t.Header.Count;

@@ -71,9 +71,9 @@ public static partial class MarkdownReader
                 string plain = string.Concat(runs.Select(r => r.Text)).Trim();
                 // A directive is written as [[...]] in the template itself; escaped brackets (\[\[, as text from a
                 // scenario is written) read back as the same characters but are text, never a directive.
-                bool written = p.Span.Start >= 0 && p.Span.End < markdown.Length && markdown.AsSpan(
-                    p.Span.Start,
-                    p.Span.Length).TrimStart().StartsWith("[[", StringComparison.Ordinal);
+                bool written = p.Span.Start >= 0 && p.Span.End < markdown.Length
+                    && markdown.AsSpan(p.Span.Start, p.Span.Length).TrimStart()
+                        .StartsWith("[[", StringComparison.Ordinal);
                 // A display equation: a paragraph written $$ … $$ in the template, read from its source text so that
                 // Markdown never touches its backslashes, underscores and stars.
                 string raw = p.Span.Start >= 0 && p.Span.End < markdown.Length
