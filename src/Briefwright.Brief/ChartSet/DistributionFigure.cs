@@ -12,12 +12,12 @@ public sealed class DistributionFigure : IChartDefinition
         var a = c.Solved.Analysis;
         if (a.MonteCarlo is not { } mc) yield break;
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
-        int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
-        yield return new ChartSpec("distribution", AnalysisCharts.Distribution(c.Drawing, mc, k, headline,
-            c.Styles[a.HeadlineOptionId]),
+        var h = c.Solved.Outcomes.Headline.Uncertainty!;
+        yield return new ChartSpec("distribution",
+            AnalysisCharts.Distribution(c.Drawing, mc, h, headline, c.Styles[a.HeadlineOptionId]),
             w.T("chart.distribution.caption", headline, w.Big(mc.Draws)),
-            w.T("chart.distribution.alt", w.Change(mc.Options[k].LongRunChangePct.P5),
-                w.Change(mc.Options[k].LongRunChangePct.P95), w.Change(mc.Options[k].LongRunChangePct.P50)),
+            w.T("chart.distribution.alt", w.Change(h.LongRunChangePct.P5),
+                w.Change(h.LongRunChangePct.P95), w.Change(h.LongRunChangePct.P50)),
             c.Source);
     }
 }

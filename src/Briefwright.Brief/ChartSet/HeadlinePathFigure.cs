@@ -12,11 +12,12 @@ public sealed class HeadlinePathFigure : IChartDefinition
         var w = c.Texts;
         var a = c.Solved.Analysis;
         var scenario = c.Solved.Scenario;
-        var facts = HeadlineFacts.From(c.Solved.BalancedGrowth, a);
+        var headline = c.Solved.Outcomes.Headline;
+        var facts = HeadlineFacts.From(headline, a.Reform);
         string label = scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int years = Math.Min(HeadlinePathChart.Years, a.Reform.HorizonYears);
-        yield return new ChartSpec("headline-path", HeadlinePathChart.Build(c.Drawing, a.Reform, a.HeadlineOptionId,
-            label, a.MonteCarlo, c.Styles),
+        yield return new ChartSpec("headline-path",
+            HeadlinePathChart.Build(c.Drawing, headline.Path, label, a.MonteCarlo, c.Styles[headline.Id]),
             w.T(a.MonteCarlo is null ? "chart.headline.caption" : "chart.headline.caption_band", label,
                 a.Reform.ReformYear, a.Reform.ReformYear + years),
             w.T("chart.headline.alt", w.Wording.Arrival(facts, a.Reform.ReformYear))

@@ -13,12 +13,13 @@ public sealed class ReformPathFigure : IChartDefinition
         var solved = c.Solved;
         var a = solved.Analysis;
         var labels = solved.Scenario.Inputs.Options.ToDictionary(o => o.Id, o => o.Label);
-        var path = a.Reform.Options.First(o => o.OptionId == a.HeadlineOptionId).Path;
+        var headline = solved.Outcomes.Headline;
+        var path = headline.Path;
         yield return new ChartSpec("reform-path", AnalysisCharts.ReformPath(c.Drawing, a.Reform, a.HeadlineOptionId,
             labels, a.MonteCarlo, styles: c.Styles),
             w.T("chart.reform.caption", a.Reform.ReformYear, a.Reform.ReformYear + 80),
             w.T("chart.reform.alt", solved.Scenario.OptionName(a.HeadlineOptionId),
-                w.Wording.Arrival(HeadlineFacts.From(solved.BalancedGrowth, a), a.Reform.ReformYear),
+                w.Wording.Arrival(HeadlineFacts.From(headline, a.Reform), a.Reform.ReformYear),
                 w.Change(100 * path.BalancedGrowthGain))
                 + (a.MonteCarlo is null ? "" : w.T("chart.reform.alt_band")),
             c.Source);

@@ -12,12 +12,12 @@ public sealed class TornadoFigure : IChartDefinition
         var a = c.Solved.Analysis;
         if (a.Tornado.Count == 0) yield break;
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
-        int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
-        double central = c.Solved.BalancedGrowth.Options.First(o => o.Id == a.HeadlineOptionId).ChangeVsBaselinePct;
-        yield return new ChartSpec("tornado", AnalysisCharts.Tornado(c.Drawing, a.Tornado, k, central, headline),
+        var h = c.Solved.Outcomes.Headline;
+        double central = h.BalancedGrowth.ChangeVsBaselinePct;
+        yield return new ChartSpec("tornado", AnalysisCharts.Tornado(c.Drawing, h.Swings, central, headline),
             w.T("chart.tornado.caption", headline),
             w.T("chart.tornado.alt", w.ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label),
-                w.Change(a.Tornado[0].AtLow.LongRunChangePct[k]), w.Change(a.Tornado[0].AtHigh.LongRunChangePct[k]),
+                w.Change(h.Swings[0].AtLowPct), w.Change(h.Swings[0].AtHighPct),
                 w.Change(central)),
             c.Source);
     }

@@ -20,7 +20,8 @@ public static class Paginator
         foreach (var atom in atoms)
             if (atom.Height > pageHeight + 1e-6)
                 throw new ComposeException(
-                    $"{Capitalise(atom.Describe())} is {atom.Height:0} pt tall and cannot fit on a page ({pageHeight:0} pt of content height): shorten it or split it.");
+                    $"{Capitalise(atom.Describe())} is {atom.Height:0} pt tall and cannot fit on a page " +
+                    $"({pageHeight:0} pt of content height): shorten it or split it.");
 
         var pages = new List<List<Placement>> { new() };
         double y = 0;
@@ -76,7 +77,8 @@ public static class Paginator
                 // The page is as full as the text allows: the waiting float opens the next page (and a table that
                 // continues after it repeats its header row).
                 PlaceWaiting();
-                if (!atom.BreakBefore && atom.RepeatHeader is { } header && !ReferenceEquals(header, atom)) Place(header);
+                if (!atom.BreakBefore && atom.RepeatHeader is { } header && !ReferenceEquals(header, atom))
+                    Place(header);
                 continue;
             }
             if (y > 0 && (atom.BreakBefore || y + chain > pageHeight)) NewPage(atom);
@@ -87,7 +89,9 @@ public static class Paginator
         return pages;
     }
 
-    /// <summary>The height of an atom with the atoms it must stay with; just its own when the chain cannot fit on any page.</summary>
+    /// <summary>
+    /// The height of an atom with the atoms it must stay with; just its own when the chain cannot fit on any page.
+    /// </summary>
     private static double Chain(IReadOnlyList<Atom> atoms, int i, double space, double pageHeight)
     {
         double chain = space + atoms[i].Height;

@@ -6,7 +6,9 @@ using System.Text.RegularExpressions;
 
 namespace Briefwright.Brief.Tests.PdfUa;
 
-/// <summary>One failed check: the Matterhorn Protocol checkpoint (or the standard's clause) and what was found.</summary>
+/// <summary>
+/// One failed check: the Matterhorn Protocol checkpoint (or the standard's clause) and what was found.
+/// </summary>
 public sealed record Finding(string Checkpoint, string Message)
 {
     public override string ToString() => $"{Checkpoint}: {Message}";
@@ -32,7 +34,8 @@ public sealed partial class PdfUaChecker
 
     // Per page (object reference): MCIDs in structure-tree order, with the element that holds each.
     private readonly Dictionary<string, List<(int Mcid, string Element)>> treeMcids = new();
-    private readonly Dictionary<string, string> annotationParents = new(); // annotation ref → structure type holding its OBJR
+    // annotation ref → structure type holding its OBJR
+    private readonly Dictionary<string, string> annotationParents = new();
     private readonly List<int> headingLevels = new();
     private bool usesPlainH;
 
@@ -53,7 +56,9 @@ public sealed partial class PdfUaChecker
         File.WriteAllBytes(path, pdf);
         try
         {
-            var psi = new ProcessStartInfo("qpdf", ["--json", "--json-stream-data=inline", "--decode-level=generalized", path])
+            var psi = new ProcessStartInfo(
+                "qpdf",
+                ["--json", "--json-stream-data=inline", "--decode-level=generalized", path])
             {
                 RedirectStandardOutput = true, RedirectStandardError = true,
             };
@@ -62,7 +67,8 @@ public sealed partial class PdfUaChecker
             string stderr = p.StandardError.ReadToEnd();
             string json = stdout.Result;
             p.WaitForExit();
-            if (p.ExitCode is not (0 or 3)) throw new InvalidOperationException($"qpdf --json failed ({p.ExitCode}): {stderr}");
+            if (p.ExitCode is not (0 or 3)) throw new InvalidOperationException(
+                $"qpdf --json failed ({p.ExitCode}): {stderr}");
             using var doc = JsonDocument.Parse(json);
             var checker = new PdfUaChecker(doc.RootElement.GetProperty("qpdf")[1]);
             checker.Run();
@@ -209,7 +215,8 @@ public sealed partial class PdfUaChecker
             }
             else if (childKind == "/OBJR")
             {
-                if (Get(child, "/Obj") is { } obj && obj.ValueKind == JsonValueKind.String) annotationParents[obj.GetString()!] = type;
+                if (Get(child, "/Obj") is { } obj && obj.ValueKind == JsonValueKind.String)
+                    annotationParents[obj.GetString()!] = type;
             }
             else
             {
@@ -220,7 +227,8 @@ public sealed partial class PdfUaChecker
             }
         }
         if (type == "Table" && childTypes.Any(t => t is not ("TR" or "THead" or "TBody" or "TFoot" or "Caption")))
-            Fail("09-004", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a table holds rows, row groups and a caption");
+            Fail("09-004", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a table holds rows, row " +
+                "groups and a caption");
         if (type == "L" && childTypes.Any(t => t is not ("LI" or "Caption" or "L")))
             Fail("09-005", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a list holds list items");
         if (type == "Table") CheckHeaderScopes(kid, where);
@@ -262,10 +270,12 @@ public sealed partial class PdfUaChecker
             string checkpoint = type == "Figure" ? "13-004" : "17-002";
             if (alt.Trim().Length == 0) Fail(checkpoint, $"{where} has no alternative text");
             else if (FileName().IsMatch(alt.Trim()))
-                Fail(checkpoint, $"{where}: the alternative text is a file name ('{alt}'); needs a description (human check beyond this)");
+                Fail(checkpoint, $"{where}: the alternative text is a file name ('{alt}'); needs a description " +
+                    "(human check beyond this)");
             CheckBoundingBox(element, where, page);
         }
-        if (type == "Link" && !Items(Get(element, "/K") ?? default).Any(k => Str(Get(Resolve(k), "/Type") ?? default) == "/OBJR"))
+        if (type == "Link"
+            && !Items(Get(element, "/K") ?? default).Any(k => Str(Get(Resolve(k), "/Type") ?? default) == "/OBJR"))
             Fail("28-011", $"{where} holds no link annotation (OBJR)");
     }
 
@@ -279,7 +289,9 @@ public sealed partial class PdfUaChecker
     /// </summary>
     private void CheckBoundingBox(JsonElement element, string where, string? page)
     {
-        var bbox = Get(element, "/A") is { } a ? Items(a).Select(Resolve).Select(x => Get(x, "/BBox")).FirstOrDefault(b => b is not null) : null;
+        var bbox = Get(element, "/A") is { } a
+            ? Items(a).Select(Resolve).Select(x => Get(x, "/BBox")).FirstOrDefault(b => b is not null)
+            : null;
         if (bbox is null)
         {
             Fail("ISO 32000-1 14.8.5.4.3", $"{where} has no BBox layout attribute");
@@ -289,7 +301,9 @@ public sealed partial class PdfUaChecker
         if (page is null || box.Length != 4) return;
         if (Get(Obj(page), "/MediaBox") is not { } mediaBox) return;
         var media = Items(mediaBox).Select(v => v.GetDouble()).ToArray();
-        if (box[0] < media[0] - 1 || box[1] < media[1] - 1 || box[2] > media[2] + 1 || box[3] > media[3] + 1 || box[2] <= box[0] || box[3] <= box[1])
+        if (box[0] < media[0] - 1 || box[1] < media[1] - 1 || box[2] > media[2] + 1 || box[3] > media[3] + 1
+            || box[2] <= box[0]
+            || box[3] <= box[1])
             Fail("ISO 32000-1 14.8.5.4.3", $"{where}: BBox [{string.Join(' ', box)}] does not lie on the page");
     }
 
@@ -312,7 +326,9 @@ public sealed partial class PdfUaChecker
         if (usesHeaders) return;
         int missing = cells.Count(c => TypeOf(c) == "TH" && Attribute(c, "/Scope") is not { } s
             || TypeOf(c) == "TH" && Str(Attribute(c, "/Scope")!.Value) is not ("/Row" or "/Column" or "/Both"));
-        if (missing > 0) Fail("15-003", $"{where}: {missing} header cell(s) (TH) without a Scope attribute, in a table without Headers and IDs");
+        if (missing > 0) Fail(
+            "15-003",
+            $"{where}: {missing} header cell(s) (TH) without a Scope attribute, in a table without Headers and IDs");
     }
 
     private JsonElement? Attribute(JsonElement element, string key)
@@ -326,7 +342,9 @@ public sealed partial class PdfUaChecker
         return null;
     }
 
-    /// <summary>14-002, 14-003, 14-007: numbered headings start at H1, do not skip levels going down, and are not mixed with H.</summary>
+    /// <summary>
+    /// 14-002, 14-003, 14-007: numbered headings start at H1, do not skip levels going down, and are not mixed with H.
+    /// </summary>
     private void CheckHeadings()
     {
         if (usesPlainH && headingLevels.Count > 0) Fail("14-007", "the document uses both H and numbered headings");
@@ -357,7 +375,8 @@ public sealed partial class PdfUaChecker
         if (list.Count == 0) return;
         var tabs = Get(page, "/Tabs");
         if (tabs is null) Fail("28-008", $"page {index} has annotations and no Tabs entry");
-        else if (Str(tabs.Value) != "/S") Fail("28-009", $"page {index} has annotations and Tabs {Str(tabs.Value)}, not /S");
+        else if (Str(tabs.Value) != "/S")
+            Fail("28-009", $"page {index} has annotations and Tabs {Str(tabs.Value)}, not /S");
         foreach (var aRef in list)
         {
             var a = Resolve(aRef);
@@ -367,13 +386,20 @@ public sealed partial class PdfUaChecker
             string contents = Get(a, "/Contents") is { } c ? Str(c) : "";
             if (subtype == "/Link")
             {
-                if (parent != "Link") Fail("28-011", $"page {index}: a link annotation is not inside a Link structure element");
-                if (contents.Trim().Length == 0) Fail("28-012", $"page {index}: a link annotation has no alternative description (Contents)");
+                if (parent != "Link") Fail(
+                    "28-011",
+                    $"page {index}: a link annotation is not inside a Link structure element");
+                if (contents.Trim().Length == 0) Fail(
+                    "28-012",
+                    $"page {index}: a link annotation has no alternative description (Contents)");
             }
             else if (subtype is not ("/Widget" or "/PrinterMark" or "/Popup"))
             {
-                if (parent != "Annot") Fail("28-002", $"page {index}: a {subtype} annotation is not inside an Annot structure element");
-                if (contents.Trim().Length == 0) Fail("28-004", $"page {index}: a {subtype} annotation has no Contents");
+                if (parent != "Annot") Fail(
+                    "28-002",
+                    $"page {index}: a {subtype} annotation is not inside an Annot structure element");
+                if (contents.Trim().Length == 0)
+                    Fail("28-004", $"page {index}: a {subtype} annotation has no Contents");
             }
         }
     }
@@ -391,7 +417,8 @@ public sealed partial class PdfUaChecker
                 {
                     var value = Resolve(items[i + 1]);
                     map[(int)items[i].GetDouble()] = value.ValueKind == JsonValueKind.Array
-                        ? value.EnumerateArray().Select(e => e.ValueKind == JsonValueKind.String ? e.GetString() : null).ToList()
+                        ? value.EnumerateArray().Select(e => e.ValueKind == JsonValueKind.String ? e.GetString() : null)
+                            .ToList()
                         : new List<string?> { items[i + 1].GetString() };
                 }
             }
@@ -407,34 +434,46 @@ public sealed partial class PdfUaChecker
         var content = new List<byte>();
         foreach (var c in Items(Get(page, "/Contents") ?? default))
         {
-            content.AddRange(Data(c) ?? throw new InvalidOperationException($"page {index}: content stream not decoded"));
+            content.AddRange(
+                Data(c) ?? throw new InvalidOperationException($"page {index}: content stream not decoded"));
             content.Add((byte)'\n');
         }
         var forms = FormXObjects(Get(page, "/Resources"));
         var scan = ScanContent(content.ToArray(), forms);
         foreach (var f in scan.Findings) Fail(f.Checkpoint, $"page {index}: {f.Message}");
         foreach (var (form, count) in scan.FormUses)
-            if (count > 1 && FormHasMcid(form)) Fail("30-002", $"page {index}: a form XObject with marked content IDs is drawn {count} times");
+            if (count > 1 && FormHasMcid(form)) Fail(
+                "30-002",
+                $"page {index}: a form XObject with marked content IDs is drawn {count} times");
 
         treeMcids.TryGetValue(pageRef, out var inTree);
         inTree ??= new();
         var treeSet = inTree.Select(x => x.Mcid).ToHashSet();
         var untagged = scan.Mcids.Where(m => !treeSet.Contains(m)).ToList();
         if (untagged.Count > 0)
-            Fail("01-005", $"page {index}: marked content {string.Join(", ", untagged.Take(5))} is in no structure element");
+            Fail(
+                "01-005",
+                $"page {index}: marked content {string.Join(", ", untagged.Take(5))} is in no structure element");
         var dangling = treeSet.Where(m => !scan.Mcids.Contains(m)).ToList();
         if (dangling.Count > 0)
-            Fail("ISO 32000-1 14.7.4.2", $"page {index}: structure elements point at marked content {string.Join(", ", dangling.Take(5))} that the page does not have");
+            Fail("ISO 32000-1 14.7.4.2",
+                $"page {index}: structure elements point at marked content {string.Join(", ", dangling.Take(5))} " +
+                "that the page does not have");
 
         // The parent tree must lead each MCID back to the element that holds it (what assistive technology follows).
         if (inTree.Count > 0)
         {
-            if (Get(page, "/StructParents") is not { } sp || !parentTree.TryGetValue((int)sp.GetDouble(), out var parents))
-                Fail("ISO 32000-1 14.7.4.4", $"page {index} has tagged content but no parent tree entry (StructParents)");
+            if (Get(page, "/StructParents") is not { } sp
+                || !parentTree.TryGetValue((int)sp.GetDouble(), out var parents))
+                Fail(
+                    "ISO 32000-1 14.7.4.4",
+                    $"page {index} has tagged content but no parent tree entry (StructParents)");
             else
                 foreach (var (mcid, element) in inTree)
                     if (mcid >= parents.Count || parents[mcid] != element)
-                        Fail("ISO 32000-1 14.7.4.4", $"page {index}: the parent tree does not lead MCID {mcid} back to its element");
+                        Fail(
+                            "ISO 32000-1 14.7.4.4",
+                            $"page {index}: the parent tree does not lead MCID {mcid} back to its element");
         }
 
         // 09-001 needs a person (does the order make sense?); what a machine can see: the structure tree visits the
@@ -454,7 +493,9 @@ public sealed partial class PdfUaChecker
             if (Str(Get(Resolve(entry.Value), "/Subtype") ?? default) == "/Form")
             {
                 forms[entry.Name] = entry.Value.GetString()!;
-                if (Get(Resolve(entry.Value), "/Ref") is not null) Fail("30-001", $"the form XObject {entry.Name} is a reference XObject");
+                if (Get(Resolve(entry.Value), "/Ref") is not null) Fail(
+                    "30-001",
+                    $"the form XObject {entry.Name} is a reference XObject");
             }
         return forms;
     }
@@ -463,7 +504,10 @@ public sealed partial class PdfUaChecker
         Data(formRef) is { } d && Encoding.Latin1.GetString(d).Contains("/MCID", StringComparison.Ordinal);
 
     /// <summary>What a page's content stream shows about marked content.</summary>
-    public sealed record ContentScan(IReadOnlyList<Finding> Findings, IReadOnlyList<int> Mcids, IReadOnlyDictionary<string, int> FormUses);
+    public sealed record ContentScan(
+        IReadOnlyList<Finding> Findings,
+        IReadOnlyList<int> Mcids,
+        IReadOnlyDictionary<string, int> FormUses);
 
     private static readonly HashSet<string> PaintingOperators = new(StringComparer.Ordinal)
     {
@@ -500,7 +544,9 @@ public sealed partial class PdfUaChecker
                     bool artifact = tag == "/Artifact";
                     int? mcid = null;
                     int at = operands.IndexOf("/MCID");
-                    if (token.Text == "BDC" && at >= 0 && at + 1 < operands.Count && int.TryParse(operands[at + 1], CultureInfo.InvariantCulture, out int id)) mcid = id;
+                    if (token.Text == "BDC" && at >= 0 && at + 1 < operands.Count
+                        && int.TryParse(operands[at + 1], CultureInfo.InvariantCulture, out int id))
+                        mcid = id;
                     bool insideArtifact = stack.Any(s => s.Artifact), insideTagged = stack.Any(s => s.Tagged);
                     if (artifact && insideTagged) artifactInTagged++;
                     if (mcid is not null && insideArtifact) taggedInArtifact++;
@@ -509,30 +555,38 @@ public sealed partial class PdfUaChecker
                     break;
                 }
                 case "EMC":
-                    if (stack.Count == 0) found.Add(new Finding("ISO 32000-1 14.6", "EMC without a matching BMC or BDC"));
+                    if (stack.Count == 0) found.Add(
+                        new Finding("ISO 32000-1 14.6", "EMC without a matching BMC or BDC"));
                     else stack.RemoveAt(stack.Count - 1);
                     break;
                 default:
                     if (PaintingOperators.Contains(token.Text))
                     {
                         if (!stack.Any(s => s.Artifact || s.Tagged)) untagged++;
-                        if (token.Text == "Do" && operands.Count > 0 && forms is not null && forms.TryGetValue(operands[^1], out var form))
+                        if (token.Text == "Do" && operands.Count > 0 && forms is not null
+                            && forms.TryGetValue(operands[^1], out var form))
                             formUses[form] = formUses.GetValueOrDefault(form) + 1;
                     }
                     break;
             }
             operands.Clear();
         }
-        if (untagged > 0) found.Add(new Finding("01-005", $"{untagged} drawing operation(s) neither tagged nor marked as artifact"));
-        if (taggedInArtifact > 0) found.Add(new Finding("01-004", $"{taggedInArtifact} tagged marked-content sequence(s) inside an artifact"));
-        if (artifactInTagged > 0) found.Add(new Finding("01-003", $"{artifactInTagged} artifact(s) inside tagged content"));
-        if (stack.Count > 0) found.Add(new Finding("ISO 32000-1 14.6", $"{stack.Count} marked-content sequence(s) not closed"));
+        if (untagged > 0) found.Add(
+            new Finding("01-005", $"{untagged} drawing operation(s) neither tagged nor marked as artifact"));
+        if (taggedInArtifact > 0) found.Add(
+            new Finding("01-004", $"{taggedInArtifact} tagged marked-content sequence(s) inside an artifact"));
+        if (artifactInTagged > 0) found.Add(
+            new Finding("01-003", $"{artifactInTagged} artifact(s) inside tagged content"));
+        if (stack.Count > 0) found.Add(
+            new Finding("ISO 32000-1 14.6", $"{stack.Count} marked-content sequence(s) not closed"));
         return new ContentScan(found, mcids, formUses);
     }
 
     private readonly record struct Token(string Text, bool IsOperator);
 
-    /// <summary>Content stream tokens: operands (numbers, names, strings, arrays and dictionaries flattened) and operators.</summary>
+    /// <summary>
+    /// Content stream tokens: operands (numbers, names, strings, arrays and dictionaries flattened) and operators.
+    /// </summary>
     private static IEnumerable<Token> Tokens(byte[] b)
     {
         int i = 0, n = b.Length;
@@ -563,18 +617,27 @@ public sealed partial class PdfUaChecker
                 yield return new Token(Encoding.Latin1.GetString(b, start, i - start), false);
                 continue;
             }
-            if (c is (byte)'[' or (byte)']' or (byte)'{' or (byte)'}') { i++; yield return new Token(((char)c).ToString(), false); continue; }
+            if (c is (byte)'[' or (byte)']' or (byte)'{' or (byte)'}')
+            {
+                i++;
+                yield return new Token(((char)c).ToString(), false);
+                continue;
+            }
             int s = i;
             if (c == '/') i++;
             while (i < n && b[i] is not ((byte)' ' or (byte)'\n' or (byte)'\r' or (byte)'\t' or (byte)'\f' or 0
-                or (byte)'(' or (byte)')' or (byte)'<' or (byte)'>' or (byte)'[' or (byte)']' or (byte)'{' or (byte)'}' or (byte)'/' or (byte)'%')) i++;
+                or (byte)'(' or (byte)')' or (byte)'<' or (byte)'>' or (byte)'[' or (byte)']' or (byte)'{' or (byte)'}'
+                or (byte)'/' or (byte)'%')) i++;
             string word = Encoding.Latin1.GetString(b, s, i - s);
-            bool isOperand = c == '/' || c is (byte)'+' or (byte)'-' or (byte)'.' || char.IsAsciiDigit((char)c) || word is "true" or "false" or "null";
+            bool isOperand = c == '/' || c is (byte)'+' or (byte)'-' or (byte)'.' || char.IsAsciiDigit((char)c)
+                || word is "true" or "false" or "null";
             yield return new Token(word, !isOperand);
             if (word == "ID")
             {
                 // Inline image data: skip to EI.
-                while (i + 2 < n && !(b[i] is (byte)' ' or (byte)'\n' or (byte)'\r' && b[i + 1] == 'E' && b[i + 2] == 'I')) i++;
+                while (i + 2 < n
+                    && !(b[i] is (byte)' ' or (byte)'\n' or (byte)'\r' && b[i + 1] == 'E' && b[i + 2] == 'I'))
+                    i++;
                 i++;
             }
         }
@@ -594,11 +657,13 @@ public sealed partial class PdfUaChecker
         void Resources(JsonElement? resRef)
         {
             if (resRef is null) return;
-            if (resRef.Value.ValueKind == JsonValueKind.String && !visitedResources.Add(resRef.Value.GetString()!)) return;
+            if (resRef.Value.ValueKind == JsonValueKind.String && !visitedResources.Add(resRef.Value.GetString()!))
+                return;
             var res = Resolve(resRef.Value);
             if (Get(res, "/Font") is { } fonts)
                 foreach (var f in Resolve(fonts).EnumerateObject())
-                    if (f.Value.ValueKind != JsonValueKind.String || seen.Add(f.Value.GetString()!)) CheckFont(Resolve(f.Value), f.Name);
+                    if (f.Value.ValueKind != JsonValueKind.String || seen.Add(f.Value.GetString()!))
+                        CheckFont(Resolve(f.Value), f.Name);
             if (Get(res, "/XObject") is { } xo)
                 foreach (var x in Resolve(xo).EnumerateObject())
                 {
@@ -614,13 +679,19 @@ public sealed partial class PdfUaChecker
         string subtype = Str(Get(font, "/Subtype") ?? default);
         string baseFont = Str(Get(font, "/BaseFont") ?? default);
         if (subtype == "/Type3") return; // glyphs are content streams; nothing to embed
-        var described = subtype == "/Type0" && Get(font, "/DescendantFonts") is { } df ? Resolve(Items(Resolve(df)).First()) : font;
+        var described = subtype == "/Type0" && Get(font, "/DescendantFonts") is { } df
+            ? Resolve(Items(Resolve(df)).First())
+            : font;
         var descriptor = Get(described, "/FontDescriptor") is { } fd ? Resolve(fd) : (JsonElement?)null;
-        if (descriptor is null || (Get(descriptor.Value, "/FontFile") ?? Get(descriptor.Value, "/FontFile2") ?? Get(descriptor.Value, "/FontFile3")) is null)
+        if (descriptor is null || (Get(descriptor.Value, "/FontFile")
+            ?? Get(descriptor.Value, "/FontFile2") ?? Get(descriptor.Value, "/FontFile3")) is null)
             Fail("31-009", $"font {name} ({baseFont}) is not embedded");
-        bool standardEncoding = Get(font, "/Encoding") is { } enc && Str(enc) is "/WinAnsiEncoding" or "/MacRomanEncoding" or "/StandardEncoding";
+        bool standardEncoding = Get(font, "/Encoding") is { } enc
+            && Str(enc) is "/WinAnsiEncoding" or "/MacRomanEncoding" or "/StandardEncoding";
         if (Get(font, "/ToUnicode") is null && (subtype == "/Type0" || !standardEncoding))
-            Fail("10-001", $"font {name} ({baseFont}) has no ToUnicode map: its character codes cannot be mapped to Unicode");
+            Fail(
+                "10-001",
+                $"font {name} ({baseFont}) has no ToUnicode map: its character codes cannot be mapped to Unicode");
     }
 
     // ---- qpdf JSON helpers ----------------------------------------------------------------------------------
@@ -638,7 +709,8 @@ public sealed partial class PdfUaChecker
     private JsonElement Resolve(JsonElement e) =>
         e.ValueKind == JsonValueKind.String && Reference().IsMatch(e.GetString()!) ? Obj(e.GetString()!) : e;
 
-    private byte[]? Data(JsonElement reference) => reference.ValueKind == JsonValueKind.String ? Data(reference.GetString()!) : null;
+    private byte[]? Data(JsonElement reference)
+        => reference.ValueKind == JsonValueKind.String ? Data(reference.GetString()!) : null;
 
     private byte[]? Data(string reference)
     {
@@ -648,7 +720,8 @@ public sealed partial class PdfUaChecker
     }
 
     private static JsonElement? Get(JsonElement dict, string key) =>
-        dict.ValueKind == JsonValueKind.Object && dict.TryGetProperty(key, out var v) && v.ValueKind != JsonValueKind.Null ? v : null;
+        dict.ValueKind == JsonValueKind.Object && dict.TryGetProperty(key, out var v)
+            && v.ValueKind != JsonValueKind.Null ? v : null;
 
     private static IEnumerable<JsonElement> Items(JsonElement e) => e.ValueKind switch
     {
@@ -666,7 +739,9 @@ public sealed partial class PdfUaChecker
         if (s.StartsWith("b:", StringComparison.Ordinal))
         {
             var bytes = Convert.FromHexString(s[2..]);
-            return bytes.Length >= 2 && bytes[0] == 0xFE && bytes[1] == 0xFF ? Encoding.BigEndianUnicode.GetString(bytes, 2, bytes.Length - 2) : Encoding.Latin1.GetString(bytes);
+            return bytes.Length >= 2 && bytes[0] == 0xFE && bytes[1] == 0xFF
+                ? Encoding.BigEndianUnicode.GetString(bytes, 2, bytes.Length - 2)
+                : Encoding.Latin1.GetString(bytes);
         }
         return s;
     }
