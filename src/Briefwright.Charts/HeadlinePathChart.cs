@@ -14,7 +14,8 @@ public static class HeadlinePathChart
     /// <summary>Years shown: the first 80 after the reform, or the whole horizon if shorter.</summary>
     public const int Years = 80;
 
-    public static Plot Build(ChartDrawing d, ReformPath path, string label, MonteCarloResults? mc, OptionStyle? style = null)
+    public static Plot Build(
+        ChartDrawing d, ReformPath path, string label, MonteCarloResults? mc, OptionStyle? style = null)
     {
         style ??= new OptionStyles([path.OptionId])[path.OptionId];
         var plot = new Plot();

@@ -46,7 +46,8 @@ internal sealed class AnalysisModel(BriefLanguage language) : TemplateFunctions(
         }
         var d = reform.Optimum;
         model["reform"] = Obj(("year", reform.ReformYear), ("horizon", reform.HorizonYears), ("end_year", reform.ReformYear + reform.HorizonYears),
-            ("valuation_year", reform.ValuationYear), ("price_base", ResultWords.Brief(this).PriceBase(reform.ValuationYear)),
+            ("valuation_year", reform.ValuationYear),
+            ("price_base", ResultWords.Brief(this).PriceBase(reform.ValuationYear)),
             ("phase_in", reform.PhaseInCohorts), ("options", new ScriptArray(reform.Options.Select(OptionPath))),
             ("headline", OptionPath(headline.Appraisal!)),
             ("discounted_optimum", Obj(("years", d.SchoolingYears), ("pv", d.PresentValue),

@@ -39,7 +39,8 @@ public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language
             list.Add(T("caveat.shrinking", Pct(inputs.Demography.GrowthRate)));
         if (opt.ClosedFormNotApplicable is { } why)
             list.Add(T(opt.Diagnostics.Converged ? "caveat.numerical" : "caveat.numerical_not_converged",
-                ResultWords.Brief(this).ClosedFormReason(why), opt.Diagnostics.GridPoints, Small(opt.Diagnostics.Tolerance)));
+                ResultWords.Brief(this).ClosedFormReason(why), opt.Diagnostics.GridPoints,
+                Small(opt.Diagnostics.Tolerance)));
         if (opt.LocalMaxima.Count > 1)
             list.Add(T("caveat.maxima", opt.LocalMaxima.Count));
         foreach (var (label, get, low, high, percent) in UsualRanges)

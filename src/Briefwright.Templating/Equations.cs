@@ -29,7 +29,8 @@ public sealed class Equations(BriefLanguage language) : TemplateFunctions(langua
             ? T("eq.closed_form")
             : T(r.Optimum.Diagnostics.Converged ? "eq.search" : "eq.search_not_converged",
                 r.Optimum.Diagnostics.GridPoints,
-                ResultWords.Brief(this).Refinement(r.Optimum.Diagnostics.Refinement), Small(r.Optimum.Diagnostics.Tolerance)))
+                ResultWords.Brief(this).Refinement(r.Optimum.Diagnostics.Refinement),
+                Small(r.Optimum.Diagnostics.Tolerance)))
           .Append(' ');
         sb.Append(T("eq.band", Years(r.Optimum.Within1Pct[0]), Years(r.Optimum.Within1Pct[1]))).Append('\n');
         return sb.ToString();
