@@ -48,7 +48,8 @@ public static class Harness
         Time("  six charts", 10, () => BriefBuilder.RenderCharts(solved));
         var charts = BriefBuilder.RenderCharts(solved);
         Time("  six charts with SVG and PNG copies (annex)", 5, () => BriefBuilder.RenderCharts(solved, withImages: true));
-        var plot = Charts.SchoolingCharts.OutputCurve(solved.BalancedGrowth);
+        var plot = Charts.SchoolingCharts.OutputCurve(BriefBuilder.ChartDrawingFor(solved.Scenario),
+            solved.BalancedGrowth);
         Time("    one chart as PNG", 5, () => Charts.ChartRenderer.ToPng(plot));
         Time("    one chart as SVG", 5, () => Charts.ChartRenderer.ToSvg(plot));
         Time("  results JSON", 10, () => ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis)));

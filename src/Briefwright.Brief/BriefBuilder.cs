@@ -33,15 +33,14 @@ public static class BriefBuilder
         options ??= BuildOptions.Default;
         var scenario = solved.Scenario;
         var language = GlyphCheck.LanguageOf(scenario);
-        using var languageScope = BriefLanguage.Use(language);
+        var words = new TemplateFunctions(language);
         GlyphCheck.Check(scenario, template, language, options.Fonts);
-        string? family = null;
-        if (options.Fonts is { } fonts)
-        {
-            family = BundledFonts.Register(fonts.Regular, fonts.Bold, fonts.Italic, fonts.BoldItalic);
-            ChartFont.Register(family, fonts.Regular, fonts.Bold);
-        }
-        var specs = ChartSpecs(solved, family, options.Theme.ChartColours);
+        // The brief's own fonts and words for its pages and its charts, made here and passed down; nothing is kept
+        // beyond this brief.
+        var fonts = options.Fonts is { } f ? new FontFaces(f.Regular, f.Bold, f.Italic, f.BoldItalic) : null;
+        var session = new RenderSession(fonts);
+        var drawing = ChartDrawingFor(scenario, fonts);
+        var specs = ChartSpecs(solved, drawing, options.Theme.ChartColours);
         var figureRefs = specs.Select(c => new FigureRef(c.Id, c.Caption)).ToList();
         // The results data and the filled template need the charts' ids and captions, not their drawings; the data annex
         // needs the drawn charts, not the brief. The caller's runner decides where they are made (in order here, or on
@@ -51,7 +50,8 @@ public static class BriefBuilder
         {
             string json = ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis));
             var changes = options.PreviousEdition is { } previous
-                ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json)) with { Causes = options.EditionCauses, Edition = scenario.Brief.Edition }
+                ? EditionSnapshot.Compare(previous, EditionSnapshot.FromJson(json, language), language)
+                    with { Causes = options.EditionCauses, Edition = scenario.Brief.Edition }
                 : null;
             return (Json: json, Changes: changes, Markdown: FillTemplate(solved, figureRefs, template, changes));
         });
@@ -59,7 +59,7 @@ public static class BriefBuilder
         // The web page needs each chart as SVG and the editable document as PNG: the same copies as the data annex's.
         var formats = options.Formats;
         bool copies = options.ChartImages || (formats & (OutputFormat.Html | OutputFormat.Docx)) != 0;
-        var imaged = runner.Start(() => copies ? ChartSpec.AddImages(charts, specs, runner.Threads) : charts);
+        var imaged = runner.Start(() => copies ? ChartSpec.AddImages(charts, specs, drawing, runner.Threads) : charts);
         var annex = runner.Start(() => AnnexFiles.Build(solved, options.ChartImages ? imaged.GetAwaiter().GetResult() : charts));
         var (json, changes, markdown) = text.GetAwaiter().GetResult();
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
@@ -68,24 +68,28 @@ public static class BriefBuilder
         var document = new BriefDocument(
             new DocumentInfo(
                 info.Title, info.ShortTitle, info.Author ?? info.Organisation,
-                T("doc.subject"), T("doc.keywords"),
-                language.Tag, info.Date, T("doc.edition", info.Edition) + (info.Status == "final" ? "" : $" ({T("status." + info.Status)})"),
-                options.Theme.Footer ?? T("doc.footer", info.Organisation))
+                words.T("doc.subject"), words.T("doc.keywords"),
+                language.Tag, info.Date,
+                words.T("doc.edition", info.Edition)
+                + (info.Status == "final" ? "" : $" ({words.T("status." + info.Status)})"),
+                options.Theme.Footer ?? words.T("doc.footer", info.Organisation))
             {
                 Logo = options.Logo,
-                Marker = info.Status switch { "final" => null, "consultation" => T("marker.consultation"), _ => T("marker.draft") },
-                PageLabel = T("page.label", "{0}", "{1}"),
+                Marker = info.Status switch { "final" => null, "consultation" => words.T("marker.consultation"),
+                    _ => words.T("marker.draft") },
+                PageLabel = words.T("page.label", "{0}", "{1}"),
                 DateText = language.Date(info.Date),
             },
             blocks)
         {
-            Theme = options.PageTheme() with { FigureLabel = T("layout.figure"), TableLabel = T("layout.table"), SourceLabel = T("layout.source") },
-            FontFamily = family,
+            Theme = options.PageTheme() with { FigureLabel = words.T("layout.figure"),
+                TableLabel = words.T("layout.table"), SourceLabel = words.T("layout.source") },
+            FontFamily = fonts?.Family,
         };
         // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid out.
         var others = runner.Start(() => OutputWriters.For(formats).Select(w => new AnnexFile(w.Suffix,
             w.Write(new BriefContent(document, imaged.GetAwaiter().GetResult(), solved, json, info.Organisation)))).ToList());
-        var pdf = DocumentComposer.WritePdf(document, new RenderSession(family));
+        var pdf = DocumentComposer.WritePdf(document, session);
         var annexFiles = annex.GetAwaiter().GetResult().Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
         return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes) { Formats = others.GetAwaiter().GetResult() };
     }
@@ -111,38 +115,52 @@ public static class BriefBuilder
     public static string FillTemplate(SolvedScenario solved, IReadOnlyList<FigureRef> figures, BriefTemplate template, EditionChanges? changes = null)
     {
         var scenario = solved.Scenario;
-        using var languageScope = BriefLanguage.Use(GlyphCheck.LanguageOf(scenario));
+        var language = GlyphCheck.LanguageOf(scenario);
         var inputs = new BriefInputs(scenario, solved.BalancedGrowth, solved.Analysis, figures,
             scenario.InputHash, ToolInfo.Version, Path.GetFileName(template.Path), template.Hash);
-        var model = BriefModelBuilder.Build(inputs);
-        ChangesModel.Add(model, changes);
+        var model = new BriefModelBuilder(language).Build(inputs);
+        new ChangesModel(language).Add(model, changes);
         return template.Render(model);
     }
 
-    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false, string? family = null) =>
-        ChartSpec.RenderAll(ChartSpecs(solved, family), withImages);
-
-    /// <summary>
-    /// The brief's charts (<see cref="ChartCatalogue"/>), built but not yet drawn, in the bundled font or the theme's
-    /// <paramref name="family"/>, each option in its style for this brief (from the theme's <paramref name="chartColours"/>
-    /// when given).
-    /// </summary>
-    public static IReadOnlyList<ChartSpec> ChartSpecs(SolvedScenario solved, string? family = null, IReadOnlyList<string>? chartColours = null)
+    public static IReadOnlyList<RenderedChart> RenderCharts(SolvedScenario solved, bool withImages = false,
+        FontFaces? fonts = null)
     {
-        InstallChartFont();
-        var scenario = solved.Scenario;
-        var language = GlyphCheck.LanguageOf(scenario);
-        using var languageScope = BriefLanguage.Use(language);
-        ChartFont.Use(ChartFont.Variant(family ?? ChartFont.Family, GlyphCheck.ChartCharacters(scenario, language)));
-        ChartWords.Use(new ChartWords.Language(key => language.Texts.TryGetValue(key, out var t) ? t.Text : null, language.Decimal));
-        string source = T("chart.source", scenario.Brief.Id);
-        return ChartCatalogue.Build(new ChartContext(solved, ChartCatalogue.Styles(solved, chartColours), source));
+        var drawing = ChartDrawingFor(solved.Scenario, fonts);
+        return ChartSpec.RenderAll(ChartSpecs(solved, drawing), drawing, withImages);
     }
 
-    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
-    private static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
+    /// <summary>
+    /// The brief's charts (<see cref="ChartCatalogue"/>), built but not yet drawn, with <paramref name="drawing"/> (the
+    /// scenario's own in the bundled font when null), each option in its style for this brief (from the theme's
+    /// <paramref name="chartColours"/> when given).
+    /// </summary>
+    public static IReadOnlyList<ChartSpec> ChartSpecs(
+        SolvedScenario solved, ChartDrawing? drawing = null, IReadOnlyList<string>? chartColours = null)
+    {
+        var scenario = solved.Scenario;
+        var texts = new ChartTexts(GlyphCheck.LanguageOf(scenario));
+        string source = texts.T("chart.source", scenario.Brief.Id);
+        var context = new ChartContext(solved, ChartCatalogue.Styles(solved, chartColours), source,
+            drawing ?? ChartDrawingFor(scenario), texts);
+        return ChartCatalogue.Build(context);
+    }
 
-    /// <summary>Makes the bundled font the one charts are drawn in (once per process; before any chart is built).</summary>
-    public static void InstallChartFont() => ChartFont.Install(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold));
+    /// <summary>
+    /// What the scenario's charts are drawn with: the theme's regular and bold <paramref name="fonts"/> (the bundled
+    /// ones when null), cut to the characters its chart texts use, and the words of its language.
+    /// </summary>
+    public static ChartDrawing ChartDrawingFor(ScenarioDocument scenario, FontFaces? fonts = null)
+    {
+        var language = GlyphCheck.LanguageOf(scenario);
+        var font = fonts is null ? BundledChartFont.Value
+            : ChartFont.FromBytes(fonts.Faces[RunStyle.Regular], fonts.Faces[RunStyle.Bold]);
+        return new ChartDrawing(font.Variant(GlyphCheck.ChartCharacters(scenario, language)),
+            new ChartWords(key => language.Texts.TryGetValue(key, out var t) ? t.Text : null, language.Decimal));
+    }
+
+    /// <summary>The bundled regular and bold faces as a chart font: made from bytes that never change, once.</summary>
+    private static readonly Lazy<ChartFont> BundledChartFont =
+        new(() => ChartFont.FromBytes(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold)));
 
 }

@@ -4,10 +4,11 @@ using Scriban.Runtime;
 
 namespace Briefwright.Brief;
 
-/// <summary>Template data for the "changes since the previous edition" section: <c>changes</c> and <c>changes_table</c>.</summary>
-public static class ChangesModel
+/// <summary>Template data for the "changes since the previous edition" section: <c>changes</c> and
+/// <c>changes_table</c>, in the brief's language.</summary>
+public sealed class ChangesModel(BriefLanguage language) : TemplateFunctions(language)
 {
-    public static void Add(ScriptObject model, EditionChanges? changes)
+    public void Add(ScriptObject model, EditionChanges? changes)
     {
         if (changes is null)
         {
@@ -25,7 +26,7 @@ public static class ChangesModel
         model.AddFunction("changes_table", new Func<string>(() => Table(changes)));
     }
 
-    public static string Table(EditionChanges changes)
+    public string Table(EditionChanges changes)
     {
         var text = "";
         if (changes.Assumptions.Count > 0)
@@ -46,7 +47,7 @@ public static class ChangesModel
     /// The reasons for a new edition that the tables do not show, in words: a changed template, other content of the
     /// scenario (its title, question, options' wording or notes), the edition <c>brief.edition</c> asks for, a new tool.
     /// </summary>
-    public static IReadOnlyList<string> Causes(EditionChanges changes, bool tables)
+    public IReadOnlyList<string> Causes(EditionChanges changes, bool tables)
     {
         var words = new List<string>();
         foreach (var cause in changes.Causes)
@@ -71,7 +72,5 @@ public static class ChangesModel
         return words;
     }
 
-    private static string Join(IReadOnlyList<string> words) => Wording.List(words);
-
-    private static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
+    private string Join(IReadOnlyList<string> words) => Wording.List(words);
 }

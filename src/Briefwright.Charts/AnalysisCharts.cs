@@ -19,23 +19,28 @@ public static class AnalysisCharts
         band.LegendText = legend;
     }
 
-    private static string F(double v, string f = "0.0") => ChartRenderer.Number(v, f);
+    private static string F(ChartDrawing d, double v, string f = "0.0") => ChartRenderer.Number(d, v, f);
 
-    private static string Pct => ChartWords.Text("number.percent", "%");
+    private static string Pct(ChartDrawing d) => d.Text("number.percent", "%");
 
     /// <summary>Output per person relative to no reform, by calendar year, one line per option; the headline option's
     /// Monte Carlo band (5–95% and 25–75%), its dip and its break-even year are marked.</summary>
-    public static Plot ReformPath(AppraisalResults reform, string headlineId, IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null, OptionStyles? styles = null)
+    public static Plot ReformPath(ChartDrawing d, AppraisalResults reform, string headlineId,
+        IReadOnlyDictionary<string, string> labels, MonteCarloResults? mc, int? years = null,
+        OptionStyles? styles = null)
     {
         styles ??= new OptionStyles(reform.Options.Select(o => o.OptionId));
         var plot = new Plot();
-        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.year", "Year"), ChartWords.Text("chart.axis.vs_no_reform", "Output per person vs no reform (%)"));
+        ChartRenderer.Style(plot, d, d.Text("chart.axis.year", "Year"), d.Text("chart.axis.vs_no_reform",
+            "Output per person vs no reform (%)"));
         int n = Math.Min(years ?? 80, reform.HorizonYears) + 1;
         double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
         if (mc is not null)
         {
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, ChartWords.Text("chart.legend.p5_p95", "{0}: 5–95% of draws", labels[headlineId]));
-            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.3, ChartWords.Text("chart.legend.p25_p75", "25–75% of draws"));
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, d.Text("chart.legend.p5_p95",
+                "{0}: 5–95% of draws", labels[headlineId]));
+            FanBand(plot, xs, mc.HeadlineFan, n, p => p.P25, p => p.P75, 0.3, d.Text("chart.legend.p25_p75",
+                "25–75% of draws"));
         }
         var zero = plot.Add.HorizontalLine(0, 1, Palette.Neutral);
         zero.LinePattern = LinePattern.Solid;
@@ -55,7 +60,8 @@ public static class AnalysisCharts
                 dip.MarkerShape = MarkerShape.FilledTriangleDown;
                 dip.MarkerSize = 9;
                 dip.Color = Palette.Neutral;
-                dip.LegendText = ChartWords.Text("chart.legend.dip", "Deepest dip, {0}: {1}", reform.ReformYear + dy, F(100 * depth, "0.00") + Pct);
+                dip.LegendText = d.Text("chart.legend.dip", "Deepest dip, {0}: {1}", reform.ReformYear + dy,
+                    F(d, 100 * depth, "0.00") + Pct(d));
             }
             if (o.PresentValues[0].BreakEvenYear is { } be && be < n)
             {
@@ -63,21 +69,23 @@ public static class AnalysisCharts
                 v.Color = Palette.Neutral;
                 v.LinePattern = LinePattern.Dotted;
                 v.LineWidth = 1.2f;
-                v.LegendText = ChartWords.Text("chart.legend.break_even", "Break-even ({0}): {1}", o.PresentValues[0].ScheduleLabel, reform.ReformYear + be);
+                v.LegendText = d.Text("chart.legend.break_even", "Break-even ({0}): {1}",
+                    o.PresentValues[0].ScheduleLabel, reform.ReformYear + be);
             }
         }
         plot.Axes.SetLimitsX(xs[0], xs[^1]);
-        plot.Axes.Bottom.TickGenerator = ChartRenderer.Ticks("0");
+        plot.Axes.Bottom.TickGenerator = ChartRenderer.Ticks(d, "0");
         ChartRenderer.LegendInside(plot, Alignment.UpperLeft);
         return plot;
     }
 
     /// <summary>Tornado: the headline option's long-run change with each parameter at the low and high end of its range.</summary>
-    public static Plot Tornado(IReadOnlyList<OptionSwing> rows, double central, string optionLabel)
+    public static Plot Tornado(ChartDrawing d, IReadOnlyList<OptionSwing> rows, double central, string optionLabel)
     {
         // Not options: the two ends of each range are drawn in the neutral tones.
         var plot = new Plot();
-        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"), "");
+        ChartRenderer.Style(plot, d, d.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"),
+            "");
         var bars = new List<Bar>();
         var ticks = new List<Tick>();
         for (int i = 0; i < rows.Count; i++)
@@ -87,7 +95,7 @@ public static class AnalysisCharts
             double lo = rows[i].AtLowPct, hi = rows[i].AtHighPct;
             bars.Add(new Bar { Position = pos, ValueBase = central, Value = lo, FillColor = Palette.NeutralLight, Size = 0.6, Orientation = Orientation.Horizontal });
             bars.Add(new Bar { Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Neutral, Size = 0.6, Orientation = Orientation.Horizontal });
-            ticks.Add(new Tick(pos, ChartWords.Text("parameter." + r.Parameter, r.Label)));
+            ticks.Add(new Tick(pos, d.Text("parameter." + r.Parameter, r.Label)));
         }
         var plotBars = plot.Add.Bars(bars);
         plotBars.Horizontal = true;
@@ -95,15 +103,16 @@ public static class AnalysisCharts
         var c = plot.Add.VerticalLine(central);
         c.Color = Palette.Ink;
         c.LineWidth = 1;
-        c.LegendText = ChartWords.Text("chart.legend.central", "{0}, central assumptions: {1}", optionLabel, F(central, "0.00") + Pct);
+        c.LegendText = d.Text("chart.legend.central", "{0}, central assumptions: {1}", optionLabel,
+            F(d, central, "0.00") + Pct(d));
         var lowKey = plot.Add.Marker(double.NaN, double.NaN);
         lowKey.MarkerShape = MarkerShape.FilledSquare;
         lowKey.Color = Palette.NeutralLight;
-        lowKey.LegendText = ChartWords.Text("chart.legend.low_end", "Parameter at the low end of its range");
+        lowKey.LegendText = d.Text("chart.legend.low_end", "Parameter at the low end of its range");
         var highKey = plot.Add.Marker(double.NaN, double.NaN);
         highKey.MarkerShape = MarkerShape.FilledSquare;
         highKey.Color = Palette.Neutral;
-        highKey.LegendText = ChartWords.Text("chart.legend.high_end", "Parameter at the high end of its range");
+        highKey.LegendText = d.Text("chart.legend.high_end", "Parameter at the high end of its range");
         // Room below the shortest bars for the legend.
         plot.Axes.SetLimitsY(-3.2, rows.Count - 0.3);
         ChartRenderer.LegendInside(plot, Alignment.LowerRight);
@@ -111,10 +120,11 @@ public static class AnalysisCharts
     }
 
     /// <summary>Heat map of a grid result (E* or the long-run change) over two parameters; cells that break a model rule are left blank.</summary>
-    public static Plot Heatmap(GridResult grid, string xLabel, string yLabel, string valueLabel, double xScale = 1, double yScale = 1)
+    public static Plot Heatmap(ChartDrawing d, GridResult grid, string xLabel, string yLabel, string valueLabel,
+        double xScale = 1, double yScale = 1)
     {
         var plot = new Plot();
-        ChartRenderer.Style(plot, xLabel, yLabel);
+        ChartRenderer.Style(plot, d, xLabel, yLabel);
         int nx = grid.X.Length, ny = grid.Y.Length;
         var data = new double[ny, nx];
         for (int i = 0; i < nx; i++)
@@ -131,9 +141,11 @@ public static class AnalysisCharts
         plot.Axes.Margins(0, 0);
         var bar = plot.Add.ColorBar(hm, Edge.Right);
         bar.Label = valueLabel;
+        ChartRenderer.SetFont(bar.LabelStyle, d.Family);
+        ChartRenderer.SetFont(bar.Axis.TickLabelStyle, d.Family);
         bar.LabelStyle.FontSize = ChartRenderer.TitleSize;
         bar.Axis.TickLabelStyle.FontSize = ChartRenderer.TickSize;
-        bar.Axis.TickGenerator = ChartRenderer.Ticks();
+        bar.Axis.TickGenerator = ChartRenderer.Ticks(d);
         return plot;
     }
 
@@ -151,11 +163,12 @@ public static class AnalysisCharts
 
     /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
     public static Plot Distribution(
-        MonteCarloResults mc, OptionUncertainty option, string optionLabel, OptionStyle? style = null)
+        ChartDrawing d, MonteCarloResults mc, OptionUncertainty option, string optionLabel, OptionStyle? style = null)
     {
         var colour = style?.Color ?? Palette.Options[0];
         var plot = new Plot();
-        ChartRenderer.Style(plot, ChartWords.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"), ChartWords.Text("chart.axis.share_of_draws", "Share of draws (%)"));
+        ChartRenderer.Style(plot, d, d.Text("chart.axis.long_run_change", "Long-run change in output per person (%)"),
+            d.Text("chart.axis.share_of_draws", "Share of draws (%)"));
         var sample = mc.HeadlineChangeSample;
         double lo = sample.Min(), hi = sample.Max();
         const int bins = 30;
@@ -168,15 +181,20 @@ public static class AnalysisCharts
             Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92, FillColor = colour.WithAlpha(0.7),
         }).ToList();
         var histogram = plot.Add.Bars(bars);
-        histogram.LegendText = ChartWords.Text("chart.legend.share_of_draws", "{0}: share of draws", optionLabel);
+        histogram.LegendText = d.Text("chart.legend.share_of_draws", "{0}: share of draws", optionLabel);
         var p = option.LongRunChangePct;
-        foreach (var (x, name, pattern) in new[] { (p.P5, ChartWords.Text("table.p5", "5th percentile"), LinePattern.Dashed), (p.P50, ChartWords.Text("table.median", "Median"), LinePattern.Solid), (p.P95, ChartWords.Text("table.p95", "95th percentile"), LinePattern.Dashed) })
+        foreach (var (x, name, pattern) in new[]
+                 {
+                     (p.P5, d.Text("table.p5", "5th percentile"), LinePattern.Dashed),
+                     (p.P50, d.Text("table.median", "Median"), LinePattern.Solid),
+                     (p.P95, d.Text("table.p95", "95th percentile"), LinePattern.Dashed),
+                 })
         {
             var v = plot.Add.VerticalLine(x);
             v.Color = Palette.Ink;
             v.LinePattern = pattern;
             v.LineWidth = 1.4f;
-            v.LegendText = ChartWords.Text("chart.legend.percentile", "{0}: {1}", name, F(x, "0.00") + Pct);
+            v.LegendText = d.Text("chart.legend.percentile", "{0}: {1}", name, F(d, x, "0.00") + Pct(d));
         }
         plot.Axes.SetLimitsY(0, bars.Max(b => b.Value) * 1.15);
         ChartRenderer.LegendInside(plot, Alignment.UpperLeft);

@@ -1,92 +1,98 @@
+using System.Collections.Concurrent;
+using System.Security.Cryptography;
 using ScottPlot;
 using SkiaSharp;
 
 namespace Briefwright.Charts;
 
 /// <summary>
-/// Serves the brief's body font to ScottPlot from bytes (no host fonts). ScottPlot caches typefaces by name,
-/// so the resolver registers one fixed family name per process.
+/// A font charts are drawn in, from TrueType bytes (no host fonts): made by the caller for one brief and carried in
+/// its <see cref="ChartDrawing"/>. Its <see cref="Family"/> name is derived from the bytes (and, for a
+/// <see cref="Variant"/>, from the extra characters), so the same name always stands for the same typefaces, whichever
+/// brief made it first.
 /// </summary>
-public sealed class ChartFont : ScottPlot.IFontResolver
+public sealed class ChartFont
 {
-    public const string Family = "Briefwright Chart Sans";
-    private static readonly object Gate = new();
-    private static readonly ChartFont Resolver = new();
-    private static bool installed;
-    private readonly Dictionary<string, (SKTypeface Regular, SKTypeface Bold)> families = new();
-    private readonly Dictionary<string, (byte[] Regular, byte[] Bold)> sources = new();
+    private readonly byte[] regular, bold;
 
-    private static readonly AsyncLocal<string?> CurrentFamily = new();
+    private ChartFont(string family, byte[] regular, byte[] bold)
+    {
+        Family = family;
+        this.regular = regular;
+        this.bold = bold;
+    }
+
+    /// <summary>The name ScottPlot knows this font by.</summary>
+    public string Family { get; }
+
+    /// <summary>The font of these TrueType files, cut to <see cref="FontSubsetter.ChartCharacters"/>.</summary>
+    public static ChartFont FromBytes(byte[] regularTtf, byte[] boldTtf)
+    {
+        using var sha = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
+        foreach (var part in new[] { regularTtf, boldTtf })
+        {
+            sha.AppendData(BitConverter.GetBytes((long)part.Length));
+            sha.AppendData(part);
+        }
+        string family = "Briefwright Chart " + Convert.ToHexStringLower(sha.GetHashAndReset())[..16];
+        ChartFontResolver.Register(family, () => (Typeface(regularTtf), Typeface(boldTtf)));
+        return new ChartFont(family, regularTtf, boldTtf);
+    }
 
     /// <summary>
-    /// The family charts are drawn in on this thread of work (a theme's fonts replace the bundled one); other
-    /// threads, such as a warm-up running beside a real brief, keep their own.
+    /// The font to draw charts in when their texts use <paramref name="characters"/>: this one when they all lie in
+    /// <see cref="FontSubsetter.ChartCharacters"/>, else a variant of it cut to those ranges plus every other character
+    /// used, whatever its script. Characters the font does not carry are left out here; <c>GlyphCheck</c> refuses them
+    /// before any chart is drawn.
     /// </summary>
-    public static string Current => CurrentFamily.Value ?? Family;
+    public ChartFont Variant(IEnumerable<int> characters)
+    {
+        var extra = characters.Where(c => c >= 0x20 && !FontSubsetter.IsChartCharacter(c)).Distinct().Order().ToList();
+        if (extra.Count == 0) return this;
+        string name = Family + " " + Convert.ToHexStringLower(SHA256.HashData(
+            System.Text.Encoding.UTF8.GetBytes(string.Join(",", extra))))[..12];
+        ChartFontResolver.Register(name, () => (Typeface(regular, extra), Typeface(bold, extra)));
+        return new ChartFont(name, regular, bold);
+    }
 
     private static SKTypeface Typeface(byte[] ttf, IReadOnlyCollection<int>? extra = null)
     {
-        var ranges = extra is null ? FontSubsetter.ChartCharacters : FontSubsetter.ChartCharacters.Concat(extra.Select(c => (c, c))).ToArray();
+        var ranges = extra is null
+            ? FontSubsetter.ChartCharacters
+            : FontSubsetter.ChartCharacters.Concat(extra.Select(c => (c, c))).ToArray();
         return SKTypeface.FromData(SKData.CreateCopy(FontSubsetter.Subset(ttf, ranges)));
     }
+}
 
-    public static void Install(byte[] regularTtf, byte[] boldTtf) => Register(Family, regularTtf, boldTtf);
-
-    /// <summary>Whether <see cref="Install"/> has run in this process.</summary>
-    public static bool IsInstalled
+/// <summary>
+/// The one piece of process-wide state in the chart library, because ScottPlot keeps its font resolvers in a static
+/// list (<c>Fonts.FontResolvers</c>) and draws text by family name: an append-only, thread-safe table from a family
+/// name to its typefaces. Every name is derived from the font bytes (<see cref="ChartFont"/>), so an entry never
+/// changes meaning once added, and briefs drawn at the same time cannot see each other's choices: which font a chart
+/// uses is set on the plot itself from its brief's <see cref="ChartDrawing"/>.
+/// </summary>
+internal sealed class ChartFontResolver : IFontResolver
+{
+    private static readonly ConcurrentDictionary<string, Lazy<(SKTypeface Regular, SKTypeface Bold)>> Families = new();
+    private static readonly Lazy<ChartFontResolver> Installed = new(() =>
     {
-        get { lock (Gate) return installed; }
-    }
+        var resolver = new ChartFontResolver();
+        Fonts.FontResolvers.Insert(0, resolver);
+        return resolver;
+    });
 
-    /// <summary>Registers a family by name (once) and makes ScottPlot resolve it from these bytes.</summary>
-    public static void Register(string family, byte[] regularTtf, byte[] boldTtf)
+    /// <summary>Adds <paramref name="family"/> (once; its typefaces are made when first used) and installs the
+    /// resolver.</summary>
+    public static void Register(string family, Func<(SKTypeface Regular, SKTypeface Bold)> typefaces)
     {
-        lock (Gate)
-        {
-            if (!installed)
-            {
-                Fonts.FontResolvers.Insert(0, Resolver);
-                Fonts.Default = Family;
-                installed = true;
-            }
-            if (!Resolver.families.ContainsKey(family))
-            {
-                Resolver.families[family] = (Typeface(regularTtf), Typeface(boldTtf));
-                Resolver.sources[family] = (regularTtf, boldTtf);
-            }
-        }
+        Families.TryAdd(family, new Lazy<(SKTypeface, SKTypeface)>(typefaces));
+        _ = Installed.Value;
     }
-
-    /// <summary>
-    /// The family to draw charts in when their texts use <paramref name="characters"/>: <paramref name="family"/>
-    /// itself when they all lie in <see cref="FontSubsetter.ChartCharacters"/>, else a variant of it (registered here,
-    /// once per set) cut to those ranges plus every other character used, whatever its script. Characters the font
-    /// does not carry are left out here; <c>GlyphCheck</c> refuses them before any chart is drawn.
-    /// </summary>
-    public static string Variant(string family, IEnumerable<int> characters)
-    {
-        var extra = characters.Where(c => c >= 0x20 && !FontSubsetter.IsChartCharacter(c)).Distinct().Order().ToList();
-        if (extra.Count == 0) return family;
-        string name = family + " " + Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(
-            System.Text.Encoding.UTF8.GetBytes(string.Join(",", extra))))[..12];
-        lock (Gate)
-        {
-            if (!Resolver.families.ContainsKey(name))
-            {
-                if (!Resolver.sources.TryGetValue(family, out var bytes))
-                    throw new InvalidOperationException($"The chart font family '{family}' is not registered.");
-                Resolver.families[name] = (Typeface(bytes.Regular, extra), Typeface(bytes.Bold, extra));
-            }
-        }
-        return name;
-    }
-
-    /// <summary>Draws this thread of work's charts in <paramref name="family"/> (registered before) from now on.</summary>
-    public static void Use(string family) => CurrentFamily.Value = family;
 
     public SKTypeface? CreateTypeface(string fontName, FontWeight weight, FontSlant slant, FontSpacing spacing) =>
-        families.TryGetValue(fontName, out var f) ? (weight >= FontWeight.SemiBold ? f.Bold : f.Regular) : null;
+        Families.TryGetValue(fontName, out var f)
+            ? (weight >= FontWeight.SemiBold ? f.Value.Bold : f.Value.Regular) : null;
 
     public SKTypeface? CreateTypeface(string fontName, bool bold, bool italic) =>
-        families.TryGetValue(fontName, out var f) ? (bold ? f.Bold : f.Regular) : null;
+        Families.TryGetValue(fontName, out var f) ? (bold ? f.Value.Bold : f.Value.Regular) : null;
 }

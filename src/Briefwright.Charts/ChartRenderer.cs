@@ -15,19 +15,20 @@ public static partial class ChartRenderer
     /// <summary>The brief's minus sign (U+2212), used on every axis in place of the hyphen.</summary>
     public const char Minus = '\u2212';
 
-    public static void Style(Plot plot, string xLabel, string yLabel)
+    /// <summary>
+    /// The house style, in <paramref name="drawing"/>'s font: set on every text of the plot itself (axis titles, ticks,
+    /// legend), never through ScottPlot's process-wide default font, so that briefs drawn at the same time in other
+    /// fonts cannot change this plot.
+    /// </summary>
+    public static void Style(Plot plot, ChartDrawing drawing, string xLabel, string yLabel)
     {
-        // ScottPlot remembers the typeface a family name first resolved to: drawing before the bundled font is
-        // installed would fix a host font for the whole process, so that is refused outright.
-        if (!ChartFont.IsInstalled)
-            throw new InvalidOperationException("The chart font is not installed: call ChartFont.Install before building charts.");
-        plot.Font.Set(ChartFont.Current);
+        SetFont(plot, drawing.Family);
         plot.XLabel(xLabel, TitleSize);
         plot.YLabel(yLabel, TitleSize);
         foreach (var axis in new IAxis[] { plot.Axes.Bottom, plot.Axes.Left, plot.Axes.Right })
         {
             axis.TickLabelStyle.FontSize = TickSize;
-            axis.TickGenerator = Ticks();
+            axis.TickGenerator = Ticks(drawing);
         }
         plot.Grid.MajorLineColor = Palette.Grid;
         plot.FigureBackground.Color = Colors.White;
@@ -39,16 +40,43 @@ public static partial class ChartRenderer
         plot.Legend.SymbolWidth = 30;
     }
 
-    /// <summary>Automatic ticks labelled with a true minus sign, and <paramref name="format"/> when given.</summary>
-    public static ScottPlot.TickGenerators.NumericAutomatic Ticks(string? format = null)
+    /// <summary>
+    /// The family on the plot's title, axis titles, tick labels and legend, set on the plot itself. ScottPlot's own
+    /// way (<c>plot.Font.Set</c>) also writes process-wide defaults (<c>Fonts.Default</c>,
+    /// <c>Fonts.DefaultFontStyle</c>) that every text made later in the process starts from, so a brief drawn at the
+    /// same time would change this one's legend; those defaults are never written here. Labels get the regular face,
+    /// as <c>plot.Font.Set</c> gave them; the legend's items, made when it is drawn, get the family's regular face by
+    /// name.
+    /// </summary>
+    private static void SetFont(Plot plot, string family)
     {
-        // The decimal mark of the brief being built now: ticks are labelled later, maybe on another thread of work.
-        string? mark = ChartWords.DecimalMark;
+        SetFont(plot.Axes.Title.Label, family);
+        foreach (var axis in plot.Axes.GetAxes())
+        {
+            SetFont(axis.Label, family);
+            SetFont(axis.TickLabelStyle, family);
+        }
+        plot.Legend.FontName = family;
+    }
+
+    /// <summary>The family's regular face on one text of a plot.</summary>
+    internal static void SetFont(LabelStyle label, string family)
+    {
+        label.FontName = family;
+        label.Font = Fonts.GetTypeface(family, FontWeight.Normal, FontSlant.Upright, FontSpacing.Normal);
+    }
+
+    /// <summary>Automatic ticks labelled with a true minus sign, the brief's decimal mark, and
+    /// <paramref name="format"/> when given.</summary>
+    public static ScottPlot.TickGenerators.NumericAutomatic Ticks(ChartDrawing drawing, string? format = null)
+    {
+        string? mark = drawing.Words.DecimalMark;
         return new() { LabelFormatter = v => Number(v, format, mark) };
     }
 
     /// <summary>A tick label: invariant digits, the brief's decimal mark, the minus sign U+2212, no "−0".</summary>
-    public static string Number(double v, string? format = null) => Number(v, format, ChartWords.DecimalMark);
+    public static string Number(ChartDrawing drawing, double v, string? format = null) =>
+        Number(v, format, drawing.Words.DecimalMark);
 
     private static string Number(double v, string? format, string? mark)
     {
@@ -107,11 +135,25 @@ public static partial class ChartRenderer
         return output.ToArray();
     }
 
+    /// <summary>A tiny chart in <paramref name="drawing"/>'s font, as PDF: it goes through every step a brief's charts
+    /// take (typefaces, subsetting, layout, PDF), for a caller that wants the library started before a brief needs
+    /// it.</summary>
+    public static byte[] SamplePdf(ChartDrawing drawing)
+    {
+        var plot = new Plot();
+        Style(plot, drawing, "x", "y");
+        var line = plot.Add.ScatterLine(new double[] { 0, 1, 2 }, new double[] { 1, 3, 2 });
+        line.LegendText = "sample";
+        return ToPdf(plot);
+    }
+
     /// <summary>The width of the PNG copies in pixels: enough for a full-width slide.</summary>
     public const int PngWidth = 1600;
 
     /// <summary>A figure's title above a copy and its source line below: what a slide or report needs with it.</summary>
-    public sealed record CopyTexts(string Title, string Source);
+    /// <summary>A figure's title above a copy and its source line below, in <paramref name="Family"/> (the chart's
+    /// font: <see cref="ChartDrawing.Family"/>).</summary>
+    public sealed record CopyTexts(string Title, string Source, string Family);
 
     private const float CopyMargin = 10, CopyTitleSize = 11, CopySourceSize = 8;
 
@@ -119,7 +161,7 @@ public static partial class ChartRenderer
     private static (List<string> Lines, float Above, float Below) CopyLayout(CopyTexts? texts, float width)
     {
         if (texts is null) return (new List<string>(), 0, 0);
-        using var font = new SKFont(Fonts.GetTypeface(ChartFont.Current, true, false), CopyTitleSize);
+        using var font = new SKFont(Fonts.GetTypeface(texts.Family, true, false), CopyTitleSize);
         var lines = new List<string>();
         string line = "";
         foreach (var word in texts.Title.Split(' ', StringSplitOptions.RemoveEmptyEntries))
@@ -139,10 +181,10 @@ public static partial class ChartRenderer
         if (texts is not null)
         {
             using var paint = new SKPaint { IsAntialias = true, Color = new SKColor(0x1A, 0x1A, 0x1A) };
-            using var bold = new SKFont(Fonts.GetTypeface(ChartFont.Current, true, false), CopyTitleSize);
+            using var bold = new SKFont(Fonts.GetTypeface(texts.Family, true, false), CopyTitleSize);
             for (int i = 0; i < layout.Lines.Count; i++)
                 canvas.DrawText(layout.Lines[i], CopyMargin, CopyMargin + CopyTitleSize + i * CopyTitleSize * 1.3f, SKTextAlign.Left, bold, paint);
-            using var regular = new SKFont(Fonts.GetTypeface(ChartFont.Current, false, false), CopySourceSize);
+            using var regular = new SKFont(Fonts.GetTypeface(texts.Family, false, false), CopySourceSize);
             paint.Color = new SKColor(0x55, 0x5B, 0x66);
             canvas.DrawText("Source: " + texts.Source, CopyMargin, layout.Above + height + CopySourceSize + 2, SKTextAlign.Left, regular, paint);
         }

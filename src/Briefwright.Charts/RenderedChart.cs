@@ -14,11 +14,13 @@ public sealed record RenderedChart(string Id, byte[] Pdf, int Page, double Width
 /// <summary>A chart before rendering: the plot and the texts that go with it.</summary>
 public sealed record ChartSpec(string Id, ChartPanels Plot, string Caption, string AltText, string Source)
 {
-    /// <summary>Renders all charts into one multi-page PDF (one embedded font for all of them), and SVG and PNG copies if asked.</summary>
-    public static IReadOnlyList<RenderedChart> RenderAll(IReadOnlyList<ChartSpec> specs, bool withImages)
+    /// <summary>Renders all charts into one multi-page PDF (one embedded font for all of them), and SVG and PNG copies
+    /// (their title and source in <paramref name="drawing"/>'s font) if asked.</summary>
+    public static IReadOnlyList<RenderedChart> RenderAll(IReadOnlyList<ChartSpec> specs, ChartDrawing drawing,
+        bool withImages)
     {
         var charts = RenderPdf(specs);
-        return withImages ? AddImages(charts, specs) : charts;
+        return withImages ? AddImages(charts, specs, drawing) : charts;
     }
 
     /// <summary>Renders all charts into one multi-page PDF (one embedded font for all of them).</summary>
@@ -31,14 +33,16 @@ public sealed record ChartSpec(string Id, ChartPanels Plot, string Caption, stri
     /// <summary>
     /// The same charts with their SVG and PNG copies, drawn from <paramref name="specs"/> (in the same order), on up to
     /// <paramref name="threads"/> threads: each chart is drawn by one thread, so the copies do not depend on the count.
+    /// Their titles and source lines are written in <paramref name="drawing"/>'s font.
     /// </summary>
-    public static IReadOnlyList<RenderedChart> AddImages(IReadOnlyList<RenderedChart> charts, IReadOnlyList<ChartSpec> specs, int threads = 1)
+    public static IReadOnlyList<RenderedChart> AddImages(
+        IReadOnlyList<RenderedChart> charts, IReadOnlyList<ChartSpec> specs, ChartDrawing drawing, int threads = 1)
     {
         var copies = new RenderedChart[charts.Count];
         Parallel.For(0, charts.Count, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, threads) },
             i =>
             {
-                var texts = new ChartRenderer.CopyTexts(specs[i].Caption, specs[i].Source);
+                var texts = new ChartRenderer.CopyTexts(specs[i].Caption, specs[i].Source, drawing.Family);
                 copies[i] = charts[i] with { Svg = ChartRenderer.ToSvg(specs[i].Plot, texts), Png = ChartRenderer.ToPng(specs[i].Plot, texts) };
             });
         return copies;

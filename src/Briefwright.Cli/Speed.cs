@@ -37,7 +37,7 @@ public static class Speed
     }
 
     /// <summary>The first brief a process will build: its output libraries start up on a spare core meanwhile.</summary>
-    public static void WarmUp() => Brief.WarmUp.Start();
+    public static void WarmUp() => global::Briefwright.Cli.WarmUp.Start();
 
     /// <summary>
     /// The options a batch builds with: several briefs at once already keep the cores busy, so the model's loops stay

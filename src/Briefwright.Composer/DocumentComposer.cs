@@ -114,12 +114,15 @@ public sealed class DocumentComposer
     }
 
     /// <summary>The whole brief as PDF bytes; the same document gives the same bytes.</summary>
-    /// <param name="session">The build's render session (its fonts and measurer); a new one for the document's font
-    /// family when null.</param>
+    /// <param name="session">The build's render session (its fonts and measurer); a new one in the bundled fonts when
+    /// null, which a document set in a theme's fonts cannot use.</param>
     public static ComposedPdf WritePdf(BriefDocument brief, RenderSession? session = null)
     {
         var theme = brief.Theme ?? Theme.For(brief.Paper);
-        var measurer = (session ?? new RenderSession(brief.FontFamily)).Measurer;
+        session ??= brief.FontFamily is null ? new RenderSession()
+            : throw new ArgumentNullException(nameof(session),
+                "A document in a theme's fonts needs their render session.");
+        var measurer = session.Measurer;
         var pages = Layout(brief, theme, measurer);
 
         using var document = new PdfDocument();

@@ -289,7 +289,7 @@ public static class ScenarioFields
 
     /// <summary>The fields written as keys of a mapping, by the mapping's path (a list's item and a parameter map's
     /// entry are not keys).</summary>
-    private static readonly Dictionary<string, ScenarioField[]> ByParent = All
+    private static readonly IReadOnlyDictionary<string, ScenarioField[]> ByParent = All
         .Where(f => !f.Path.EndsWith("[]", StringComparison.Ordinal) && !f.Path.EndsWith(".*", StringComparison.Ordinal))
         .GroupBy(f => f.Parent).ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
 

@@ -3,15 +3,13 @@ using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 using Scriban.Runtime;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
 /// <summary>Template data and block placeholders for the reform over time, sensitivity and uncertainty.</summary>
-internal static class AnalysisModel
+internal sealed class AnalysisModel(BriefLanguage language) : TemplateFunctions(language)
 {
-    public static void Add(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
+    public void Add(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
     {
         string Label(string id) => s.Inputs.Options.First(o => o.Id == id).Label;
         var outcomes = OptionOutcomes.From(r, a);
@@ -29,7 +27,7 @@ internal static class AnalysisModel
     }
 
     /// <summary>The reform over time: every option's path and present values, and the discounted optimum.</summary>
-    private static void AddReform(ScriptObject model, ScenarioDocument s, AnalysisResults a, OptionOutcome headline)
+    private void AddReform(ScriptObject model, ScenarioDocument s, AnalysisResults a, OptionOutcome headline)
     {
         var reform = a.Reform;
         ScriptObject OptionPath(OptionAppraisal o)
@@ -48,18 +46,19 @@ internal static class AnalysisModel
         }
         var d = reform.Optimum;
         model["reform"] = Obj(("year", reform.ReformYear), ("horizon", reform.HorizonYears), ("end_year", reform.ReformYear + reform.HorizonYears),
-            ("valuation_year", reform.ValuationYear), ("price_base", ResultWords.Brief.PriceBase(reform.ValuationYear)),
+            ("valuation_year", reform.ValuationYear),
+            ("price_base", ResultWords.Brief(this).PriceBase(reform.ValuationYear)),
             ("phase_in", reform.PhaseInCohorts), ("options", new ScriptArray(reform.Options.Select(OptionPath))),
             ("headline", OptionPath(headline.Appraisal!)),
             ("discounted_optimum", Obj(("years", d.SchoolingYears), ("pv", d.PresentValue),
-                ("explanation", ResultWords.Brief.Explanation(d)),
+                ("explanation", ResultWords.Brief(this).Explanation(d)),
                 ("schedule", Md.Escape(s.Analysis.Headline.Label)), ("balanced_growth", d.BalancedGrowthOptimum), ("tail_included", d.TailIncluded),
                 ("by_horizon", new ScriptArray(d.ByHorizon.Select(x => Obj(("horizon", x.HorizonYears), ("years", x.SchoolingYears), ("pv", x.PresentValue))))),
                 ("tail_text", TailText(d, reform.HorizonYears)))));
     }
 
     /// <summary>The tornado of the headline option's long-run change.</summary>
-    private static void AddSensitivity(ScriptObject model, AnalysisResults a, OptionOutcome headline)
+    private void AddSensitivity(ScriptObject model, AnalysisResults a, OptionOutcome headline)
     {
         model["sensitivity_available"] = a.Tornado.Count > 0 || a.MonteCarlo is not null;
         model["tornado"] = new ScriptArray(headline.Swings.Select(w => Obj(("parameter", w.Row.Parameter),
@@ -73,7 +72,7 @@ internal static class AnalysisModel
         model["has_grid"] = a.Grids.Count > 0;
     }
 
-    private static ScriptObject MonteCarloSummary(MonteCarloResults mc, OptionUncertainty o) =>
+    private ScriptObject MonteCarloSummary(MonteCarloResults mc, OptionUncertainty o) =>
         Obj(("draws", mc.Draws), ("rejected", mc.Rejected), ("seed", mc.Seed.ToString()),
             ("p5", o.LongRunChangePct.P5), ("p50", o.LongRunChangePct.P50), ("p95", o.LongRunChangePct.P95),
             ("prob_gain", o.ProbabilityGain.Estimate), ("prob_gain_low", o.ProbabilityGain.Low),
@@ -85,7 +84,7 @@ internal static class AnalysisModel
             ("optimum_p5", mc.OptimumYears.P5), ("optimum_p50", mc.OptimumYears.P50),
             ("optimum_p95", mc.OptimumYears.P95));
 
-    private static ScriptObject SobolSummary(GlobalSensitivity sobol)
+    private ScriptObject SobolSummary(GlobalSensitivity sobol)
     {
         var idx = sobol.Indices[0];
         int top = Enumerable.Range(0, idx.Inputs.Count).MaxBy(i => idx.Total[i]);
@@ -98,7 +97,7 @@ internal static class AnalysisModel
     }
 
     /// <summary>The headline option: its facts and the sentences page 1 is made of, each chosen from those facts.</summary>
-    private static ScriptObject Headline(
+    private ScriptObject Headline(
         ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a, OptionOutcome headline)
     {
         var h = HeadlineFacts.From(headline, a.Reform);
@@ -108,7 +107,8 @@ internal static class AnalysisModel
         int y0 = a.Reform.ReformYear;
         string lead = T("headline.lead", Wording.Capitalise(s.OptionName(h.OptionId)), Wording.Effect(h.LongRunChangePct), baseline["name"]);
         var decomposition = r.Levers.FirstOrDefault(l => l.OptionId == h.OptionId);
-        string? split = decomposition is { IsCombined: true } ? T("headline.split", DecompositionText(decomposition)) : null;
+        string? split = decomposition is { IsCombined: true }
+            ? T("headline.split", BriefModelBuilder.DecompositionText(decomposition)) : null;
         var others = ((ScriptArray)model["alternatives"]!).Cast<ScriptObject>().Where(o => (string)o["id"]! != h.OptionId).Select(o =>
         {
             string line = T("headline.other", o["label"], Wording.Effect((double)o["change_pct"]!));
@@ -124,9 +124,9 @@ internal static class AnalysisModel
             ("present_value", h.PresentValue), ("is_combined", decomposition?.IsCombined ?? false), ("others", new ScriptArray(others)));
     }
 
-    private static string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";
+    private string Year(int reformYear, int? t) => t is { } y ? (reformYear + y).ToString() : "–";
 
-    private static string ReformTable(AnalysisResults a, Func<string, string> label)
+    private string ReformTable(AnalysisResults a, Func<string, string> label)
     {
         var r = a.Reform;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
@@ -140,7 +140,7 @@ internal static class AnalysisModel
             rows, new HashSet<int> { 1, 2, 3, 4, 5, 6 });
     }
 
-    private static string AppraisalTable(AnalysisResults a, Func<string, string> label)
+    private string AppraisalTable(AnalysisResults a, Func<string, string> label)
     {
         var schedules = a.Reform.Options[0].PresentValues;
         var header = new List<string> { T("table.option") };
@@ -150,7 +150,7 @@ internal static class AnalysisModel
             header, rows, Enumerable.Range(1, schedules.Count).ToHashSet());
     }
 
-    private static string UncertaintyTable(AnalysisResults a, Func<string, string> label)
+    private string UncertaintyTable(AnalysisResults a, Func<string, string> label)
     {
         if (a.MonteCarlo is not { } mc) return "";
         var rows = mc.Options.Select(o => (IReadOnlyList<string>)new[]
@@ -163,7 +163,7 @@ internal static class AnalysisModel
             rows, new HashSet<int> { 1, 2, 3, 4, 5 });
     }
 
-    private static string SobolTable(AnalysisResults a)
+    private string SobolTable(AnalysisResults a)
     {
         if (a.Sobol is not { } s) return "";
         var idx = s.Indices;
@@ -181,7 +181,7 @@ internal static class AnalysisModel
     }
 
     /// <summary>How the discounted optimum treats the value beyond the horizon, in words chosen from the result.</summary>
-    private static string TailText(Model.Dynamics.DiscountedOptimum d, int horizon)
+    private string TailText(Model.Dynamics.DiscountedOptimum d, int horizon)
     {
         if (d.TailIncluded)
             return T("tail.included", horizon);
@@ -190,9 +190,9 @@ internal static class AnalysisModel
     }
 
     /// <summary>A parameter's label in the brief's language (key <c>parameter.&lt;name&gt;</c>), else the model's.</summary>
-    internal static string ParameterLabel(string name, string fallback) =>
-        BriefLanguage.Current.Texts.TryGetValue("parameter." + name, out var t) ? t.Text : fallback;
+    internal string ParameterLabel(string name, string fallback) =>
+        L.Texts.TryGetValue("parameter." + name, out var t) ? t.Text : fallback;
 
     /// <summary>A label as it reads inside a sentence: lower case, except German nouns (key <c>list.lower_case</c>).</summary>
-    internal static string InSentence(string label) => BriefLanguage.Current.Get("list.lower_case") == "yes" ? label.ToLowerInvariant() : label;
+    internal string InSentence(string label) => L.Get("list.lower_case") == "yes" ? label.ToLowerInvariant() : label;
 }

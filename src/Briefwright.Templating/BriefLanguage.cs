@@ -15,7 +15,6 @@ public sealed record LanguageText(string Text, int Line);
 /// </summary>
 public sealed class BriefLanguage
 {
-    private static readonly AsyncLocal<BriefLanguage?> current = new();
     private static readonly Lazy<IReadOnlyDictionary<string, BriefLanguage>> builtIn = new(LoadBuiltIn);
 
     private readonly IReadOnlyDictionary<string, LanguageText> texts;
@@ -63,25 +62,6 @@ public sealed class BriefLanguage
 
     /// <summary>The languages shipped with the tool, by code.</summary>
     public static IReadOnlyDictionary<string, BriefLanguage> BuiltIn => builtIn.Value;
-
-    /// <summary>
-    /// The language the brief being made on this thread of work is written in (English outside one). Set with
-    /// <see cref="Use"/> around one brief's text-making steps; work started inside it (tasks) inherits it.
-    /// </summary>
-    public static BriefLanguage Current => current.Value ?? English;
-
-    /// <summary>Makes <paramref name="language"/> current until the returned scope is disposed.</summary>
-    public static IDisposable Use(BriefLanguage language)
-    {
-        var before = current.Value;
-        current.Value = language;
-        return new Scope(before);
-    }
-
-    private sealed class Scope(BriefLanguage? before) : IDisposable
-    {
-        public void Dispose() => current.Value = before;
-    }
 
     /// <summary>The language for a tag such as "fr-FR" or "de": by its language subtag; null when none is shipped.</summary>
     public static BriefLanguage? ForTag(string tag)

@@ -4,18 +4,17 @@ using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 using Scriban.Runtime;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
 /// <summary>Builds the data a template sees: plain values, formatting functions and block placeholders.</summary>
-public static class BriefModelBuilder
+public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunctions(language)
 {
-    public static ScriptObject Build(BriefInputs b)
+    public ScriptObject Build(BriefInputs b)
     {
         var model = new ScriptObject();
-        model.AddFunctions(typeof(TemplateFunctions));
-        var language = BriefLanguage.Current;
+        AddTo(model);
+        var language = L;
         model.AddFunction("say", new Say(language.Format));
         model["language"] = Obj(("code", language.Code), ("tag", language.Tag));
         var s = b.Scenario;
@@ -64,20 +63,11 @@ public static class BriefModelBuilder
         return model;
     }
 
-    /// <summary>A text of the brief's language, filled with <paramref name="args"/>.</summary>
-    internal static string T(string key, params object?[] args) => BriefLanguage.Current.Format(key, args);
-
     /// <summary>The template function <c>say "key" values…</c>: a text of the brief's language.</summary>
     public delegate string Say(string key, params object?[] values);
 
-    internal static ScriptObject Obj(params (string Key, object? Value)[] pairs)
-    {
-        var o = new ScriptObject();
-        foreach (var (k, v) in pairs) o[k] = v;
-        return o;
-    }
-
-    private static ScriptObject OptionObject(ScenarioDocument s, OptionResult o, OptionResult baseline, Model.Core.LeverDecomposition? levers)
+    private ScriptObject OptionObject(ScenarioDocument s, OptionResult o, OptionResult baseline,
+        Model.Core.LeverDecomposition? levers)
     {
         var decomposition = levers?.Levers ?? [];
         double delta = o.SchoolingYears - baseline.SchoolingYears;
@@ -93,11 +83,11 @@ public static class BriefModelBuilder
     }
 
     /// <summary>"schooling +8.2 points and the retirement age +4.0 points".</summary>
-    public static string DecompositionText(Model.Core.LeverDecomposition d) =>
+    public string DecompositionText(Model.Core.LeverDecomposition d) =>
         Wording.List(d.Levers.Select(l => T("lever.points", Wording.LeverName(l.Lever), Wording.Points(l.ChangePct))).ToList());
 
     /// <summary>What the options that change schooling alone show about the two opposing forces, chosen from their signs.</summary>
-    private static string ResultsSummary(ScenarioDocument s, BalancedGrowthResults r)
+    private string ResultsSummary(ScenarioDocument s, BalancedGrowthResults r)
     {
         var alone = r.Levers.Where(l => l.Levers.Count == 1 && l.Levers[0].Lever == Model.Core.Levers.Schooling).ToList();
         var baseYears = r.Options.First(o => o.IsBaseline).SchoolingYears;
@@ -123,7 +113,7 @@ public static class BriefModelBuilder
         return string.Join(" ", parts);
     }
 
-    public static string LeversTable(ScenarioDocument s, BalancedGrowthResults r)
+    public string LeversTable(ScenarioDocument s, BalancedGrowthResults r)
     {
         var combined = r.Levers.Where(l => l.IsCombined).ToList();
         if (combined.Count == 0) return "";
@@ -141,7 +131,7 @@ public static class BriefModelBuilder
         return Md.Table(T("table.levers_caption"), T("source.model_results"), header, rows, Enumerable.Range(1, names.Count + 1).ToHashSet());
     }
 
-    public static string SurvivalText(Survival s) => s switch
+    public string SurvivalText(Survival s) => s switch
     {
         RectangularSurvival r => T("survival.rectangular", Num(r.MaxAge, 0)),
         GompertzMakehamSurvival g => $"Gompertz–Makeham (A = {Sig(g.A, 3)}, B = {Sig(g.B, 3)}, c = {Sig(g.C, 4)})",
@@ -149,9 +139,10 @@ public static class BriefModelBuilder
         _ => s.GetType().Name,
     };
 
-    private static readonly HashSet<int> RightOfFirst = new() { 1 };
+    private static readonly System.Collections.Frozen.FrozenSet<int> RightOfFirst =
+        System.Collections.Frozen.FrozenSet.ToFrozenSet([1]);
 
-    public static string AssumptionsTable(ScenarioDocument s)
+    public string AssumptionsTable(ScenarioDocument s)
     {
         var rows = s.Assumptions.Select(a => (IReadOnlyList<string>)new[]
         {
@@ -161,7 +152,7 @@ public static class BriefModelBuilder
     }
 
     /// <summary>The source column: an option without a source of its own is defined in the scenario.</summary>
-    public static string SourceText(Assumption a) => a.Source switch
+    public string SourceText(Assumption a) => a.Source switch
     {
         null => a.Path.StartsWith("options[", StringComparison.Ordinal) ? T("source.defined_here") : T("source.none_given"),
         BriefDateSource => T("source.brief_date"),
@@ -172,27 +163,29 @@ public static class BriefModelBuilder
     private const string BriefDateSource = "the brief's date";
 
     /// <summary>An assumption's value as the table shows it: the reader's text, except brackets of returns, written in the brief's language.</summary>
-    public static string ValueText(ScenarioDocument s, Assumption a) =>
+    public string ValueText(ScenarioDocument s, Assumption a) =>
         a.Path == "human_capital.returns.brackets" && s.Inputs.HumanCapital.Returns is BracketReturns b
-            ? string.Join("; ", b.Brackets.Select(x => T("value.bracket", Localise((x.Rate * 100).ToString("0.0##", CultureInfo.InvariantCulture)) + BriefLanguage.Current.PercentSign, Num(x.FromYear, 0))))
+            ? string.Join("; ", b.Brackets.Select(x => T("value.bracket",
+                Localise((x.Rate * 100).ToString("0.0##", CultureInfo.InvariantCulture)) + L.PercentSign,
+                Num(x.FromYear, 0))))
             : a.Text ?? FormatValue(a);
 
     /// <summary>
     /// An assumption's label in the brief's language: the scenario's own label for an option, else the language's
     /// name for the field (key <c>field.&lt;path&gt;</c>), else the label the scenario reader gave it.
     /// </summary>
-    public static string Label(Assumption a)
+    public string Label(Assumption a)
     {
         string path = System.Text.RegularExpressions.Regex.Replace(a.Path, @"\[[0-9]+\]", "[]");
-        if (!BriefLanguage.Current.Texts.TryGetValue("field." + path, out var t)) return a.Label;
+        if (!L.Texts.TryGetValue("field." + path, out var t)) return a.Label;
         // An option's row is labelled "Schooling: <the option's own label>": only the first part is the tool's.
         const string optionRow = "Schooling: ";
         return path == "options[].schooling_years" && a.Label.StartsWith(optionRow, StringComparison.Ordinal)
-            ? BriefLanguage.Current.Format("field." + path, a.Label[optionRow.Length..]) : t.Text;
+            ? L.Format("field." + path, a.Label[optionRow.Length..]) : t.Text;
     }
 
     /// <summary>A value with its unit, once: rates as percentages, years with "years", ages bare.</summary>
-    public static string FormatValue(Assumption a) => a.Value is not { } v ? "" : a.Unit switch
+    public string FormatValue(Assumption a) => a.Value is not { } v ? "" : a.Unit switch
     {
         ValueUnit.Rate => Pct(v, Math.Abs(v * 100 - Math.Round(v * 100, 1)) < 1e-9 ? 1 : 2),
         ValueUnit.Years => Years(v),
@@ -200,7 +193,7 @@ public static class BriefModelBuilder
         _ => Sig(v, 4),
     };
 
-    public static string ResultsTable(BalancedGrowthResults r, ScenarioDocument? s = null)
+    public string ResultsTable(BalancedGrowthResults r, ScenarioDocument? s = null)
     {
         var baseY = r.Options.First(o => o.IsBaseline).OutputPerPerson;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
@@ -213,6 +206,6 @@ public static class BriefModelBuilder
             rows, new HashSet<int> { 1, 2, 3, 4, 5 });
     }
 
-    private static string Reproducibility(BriefInputs b) =>
+    private string Reproducibility(BriefInputs b) =>
         T("annex.reproducibility", b.InputHash, Md.Escape(b.TemplateName), b.TemplateHash, b.ToolVersion);
 }

@@ -2,16 +2,15 @@ using Briefwright.Model.Inputs;
 using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
 /// <summary>The cautions every brief carries, and those the scenario and its results call for.</summary>
-public static class Caveats
+public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language)
 {
     /// <summary>The cautions every brief carries, in the brief's language.</summary>
-    public static IReadOnlyList<string> Fixed => new[] { T("caveat.not_forecasts"), T("caveat.optimum"), T("caveat.official") };
+    public IReadOnlyList<string> Fixed => new[] { T("caveat.not_forecasts"), T("caveat.optimum"),
+        T("caveat.official") };
 
     /// <summary>Usual ranges for a parameter check; the bounds are common practice in growth accounting, not rules.</summary>
     private static readonly (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
@@ -26,7 +25,8 @@ public static class Caveats
         ("caveat.name.return", i => (i.HumanCapital.Returns as ConstantReturn)?.Rate, 0.04, 0.15, true),
     };
 
-    public static IReadOnlyList<string> Generated(ScenarioDocument scenario, BalancedGrowthResults results, AnalysisResults? analysis = null)
+    public IReadOnlyList<string> Generated(ScenarioDocument scenario, BalancedGrowthResults results,
+        AnalysisResults? analysis = null)
     {
         var list = new List<string>();
         var inputs = scenario.Inputs;
@@ -39,7 +39,8 @@ public static class Caveats
             list.Add(T("caveat.shrinking", Pct(inputs.Demography.GrowthRate)));
         if (opt.ClosedFormNotApplicable is { } why)
             list.Add(T(opt.Diagnostics.Converged ? "caveat.numerical" : "caveat.numerical_not_converged",
-                ResultWords.Brief.ClosedFormReason(why), opt.Diagnostics.GridPoints, Small(opt.Diagnostics.Tolerance)));
+                ResultWords.Brief(this).ClosedFormReason(why), opt.Diagnostics.GridPoints,
+                Small(opt.Diagnostics.Tolerance)));
         if (opt.LocalMaxima.Count > 1)
             list.Add(T("caveat.maxima", opt.LocalMaxima.Count));
         foreach (var (label, get, low, high, percent) in UsualRanges)
@@ -52,7 +53,7 @@ public static class Caveats
         return list;
     }
 
-    private static IEnumerable<string> FromAnalysis(ScenarioDocument scenario, AnalysisResults a)
+    private IEnumerable<string> FromAnalysis(ScenarioDocument scenario, AnalysisResults a)
     {
         string Label(string id) => Md.Escape(scenario.OptionName(id));
         if (a.MonteCarlo is { } mc)

@@ -1,15 +1,13 @@
 using System.Text;
 using Briefwright.Model.Inputs;
 using Briefwright.Model.Results;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
 /// <summary>The technical annex: the model's equations and how each number was computed.</summary>
-public static class Equations
+public sealed class Equations(BriefLanguage language) : TemplateFunctions(language)
 {
-    public static string Annex(ModelInputs inputs, BalancedGrowthResults r)
+    public string Annex(ModelInputs inputs, BalancedGrowthResults r)
     {
         var sb = new StringBuilder();
         sb.Append(T("eq.intro")).Append("\n\n");
@@ -31,13 +29,14 @@ public static class Equations
             ? T("eq.closed_form")
             : T(r.Optimum.Diagnostics.Converged ? "eq.search" : "eq.search_not_converged",
                 r.Optimum.Diagnostics.GridPoints,
-                ResultWords.Brief.Refinement(r.Optimum.Diagnostics.Refinement), Small(r.Optimum.Diagnostics.Tolerance)))
+                ResultWords.Brief(this).Refinement(r.Optimum.Diagnostics.Refinement),
+                Small(r.Optimum.Diagnostics.Tolerance)))
           .Append(' ');
         sb.Append(T("eq.band", Years(r.Optimum.Within1Pct[0]), Years(r.Optimum.Within1Pct[1]))).Append('\n');
         return sb.ToString();
     }
 
-    private static string ScheduleText(HumanCapital hc)
+    private string ScheduleText(HumanCapital hc)
     {
         string schooling = hc.Returns switch
         {

@@ -1,16 +1,14 @@
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
 /// <summary>The short assumptions table for the body: the assumptions that move the headline most, ranked by the tornado.</summary>
-public static class KeyAssumptions
+public sealed class KeyAssumptions(BriefLanguage language) : TemplateFunctions(language)
 {
     public const int MaxRows = 8;
 
-    private static readonly Dictionary<string, string> Paths = new()
+    private static readonly IReadOnlyDictionary<string, string> Paths = new Dictionary<string, string>
     {
         ["population_growth"] = "demography.population_growth", ["school_entry_age"] = "demography.school_entry_age",
         ["retirement_age"] = "demography.retirement_age", ["participation"] = "demography.participation",
@@ -22,10 +20,10 @@ public static class KeyAssumptions
     /// <summary>Shown when the scenario gives no sensitivity ranges: the assumptions the model's answer rests on, unranked.</summary>
     private static readonly string[] Core = { "human_capital.returns", "demography.population_growth", "demography.retirement_age", "demography.participation", "production.saving_rate", "production.capital_share" };
 
-    private static Assumption? Find(ScenarioDocument s, string path) =>
+    private Assumption? Find(ScenarioDocument s, string path) =>
         s.Assumptions.FirstOrDefault(a => a.Path == path) ?? s.Assumptions.FirstOrDefault(a => a.Path.StartsWith(path + ".", StringComparison.Ordinal));
 
-    public static string Table(ScenarioDocument s, AnalysisResults a)
+    public string Table(ScenarioDocument s, AnalysisResults a)
     {
         string headline = s.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         if (a.Tornado.Count > 0)

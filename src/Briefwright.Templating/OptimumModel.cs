@@ -2,8 +2,6 @@ using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
 using Briefwright.Scenario;
 using Scriban.Runtime;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
@@ -11,12 +9,12 @@ namespace Briefwright.Templating;
 /// The output-maximising schooling length as template data, with sentences chosen from its shape: inside the
 /// range, at a corner (never called a peak), flat, or with several local maxima; and the discounted optimum beside it.
 /// </summary>
-internal static class OptimumModel
+internal sealed class OptimumModel(BriefLanguage language) : TemplateFunctions(language)
 {
     /// <summary>A 1% band at least this wide (years) is called flat.</summary>
     public const double FlatBandYears = 5;
 
-    public static ScriptObject Build(ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
+    public ScriptObject Build(ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
     {
         var opt = r.Optimum;
         var baseline = r.Options.First(o => o.IsBaseline);
@@ -49,7 +47,7 @@ internal static class OptimumModel
             ("method", opt.Method == OptimumMethod.ClosedForm ? "closed form" : "numerical search"), ("at_boundary", opt.AtBoundary),
             ("output_per_person", opt.OutputPerPerson),
             ("closed_form_reason",
-                opt.ClosedFormNotApplicable is { } why ? ResultWords.Brief.ClosedFormReason(why) : null),
+                opt.ClosedFormNotApplicable is { } why ? ResultWords.Brief(this).ClosedFormReason(why) : null),
             ("local_maxima", opt.LocalMaxima.Count),
             ("gain_vs_baseline_pct", 100 * (opt.OutputPerPerson / baseline.OutputPerPerson - 1)),
             ("shape", shape), ("is_corner", opt.AtBoundary), ("is_flat", flat), ("summary", summary), ("band_text", band), ("maxima_text", maxima),

@@ -24,10 +24,9 @@ public sealed class ResultWords
         this.percent = percent;
     }
 
-    /// <summary>The brief's language and number format (<see cref="BriefLanguage.Current"/>, as every text of the
+    /// <summary>The brief's language and number format, those of <paramref name="words"/> (as every text of the
     /// brief).</summary>
-    public static ResultWords Brief { get; } =
-        new(() => BriefLanguage.Current, TemplateFunctions.Num, TemplateFunctions.Pct);
+    public static ResultWords Brief(TemplateFunctions words) => new(() => words.L, words.Num, words.Pct);
 
     /// <summary>English with invariant numbers: the results JSON and the console.</summary>
     public static ResultWords Data { get; } =

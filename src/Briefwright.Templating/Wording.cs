@@ -1,7 +1,5 @@
 using Briefwright.Model.Results;
 using Briefwright.Model.Uncertainty;
-using static Briefwright.Templating.BriefModelBuilder;
-using static Briefwright.Templating.TemplateFunctions;
 
 namespace Briefwright.Templating;
 
@@ -9,13 +7,13 @@ namespace Briefwright.Templating;
 /// Words chosen from numbers: every direction, comparison or conclusion the brief states is picked here from a
 /// computed fact, so that no sentence says "rise" beside a fall or "peak" at a corner.
 /// </summary>
-public static class Wording
+public sealed class Wording(BriefLanguage language) : TemplateFunctions(language)
 {
     /// <summary>What the brief measures, as it reads inside a sentence ("long-run output per person").</summary>
-    public static string Outcome => T("outcome");
+    public string Outcome => T("outcome");
 
     /// <summary>"rise", "fall" or "none" for a percentage change as shown to one decimal.</summary>
-    public static string DirectionWord(double changePct) => HeadlineFacts.Of(changePct) switch
+    public string DirectionWord(double changePct) => HeadlineFacts.Of(changePct) switch
     {
         Direction.Rise => "rise",
         Direction.Fall => "fall",
@@ -23,36 +21,36 @@ public static class Wording
     };
 
     /// <summary>"would raise long-run output per person by 4.1%", "would lower … by 2.7%" or "would leave … unchanged (to one decimal)".</summary>
-    public static string Effect(double changePct) => HeadlineFacts.Of(changePct) switch
+    public string Effect(double changePct) => HeadlineFacts.Of(changePct) switch
     {
         Direction.Rise => T("effect.raise", Outcome, Magnitude(changePct)),
         Direction.Fall => T("effect.lower", Outcome, Magnitude(changePct)),
-        _ => T("effect.none", Outcome, Localise("0.05") + BriefLanguage.Current.PercentSign),
+        _ => T("effect.none", Outcome, Localise("0.05") + L.PercentSign),
     };
 
     /// <summary>A percentage change without its sign, for use after a direction word: −2.74 → "2.7%".</summary>
-    public static string Magnitude(double changePct) => Change(Math.Abs(changePct)).TrimStart('+');
+    public string Magnitude(double changePct) => Change(Math.Abs(changePct)).TrimStart('+');
 
     /// <summary>A change in percentage points with its sign: "+8.2 points", "−0.3 points", "0.0 points".</summary>
-    public static string Points(double points)
+    public string Points(double points)
     {
-        string pct = BriefLanguage.Current.PercentSign;
+        string pct = L.PercentSign;
         string s = Change(points);
         s = s.EndsWith(pct, StringComparison.Ordinal) ? s[..^pct.Length] : s;
         return T(Math.Abs(Math.Round(points, 1)) == 1.0 ? "unit.point" : "unit.points", s);
     }
 
-    public static string Capitalise(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];
+    public string Capitalise(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];
 
     /// <summary>How a lever reads inside a sentence.</summary>
-    public static string LeverName(string lever) => lever switch
+    public string LeverName(string lever) => lever switch
     {
         Model.Core.Levers.Schooling or Model.Core.Levers.RetirementAge or Model.Core.Levers.Participation => T("lever." + lever),
         _ => lever.Replace('_', ' '),
     };
 
     /// <summary>"schooling", "schooling and the retirement age", "a, b and c".</summary>
-    public static string List(IReadOnlyList<string> items) => items.Count switch
+    public string List(IReadOnlyList<string> items) => items.Count switch
     {
         0 => "",
         1 => items[0],
@@ -60,7 +58,7 @@ public static class Wording
     };
 
     /// <summary>The shape of a sequence of values: "rises", "falls", "stays the same", "rises, then falls", "falls, then rises" or "rises and falls more than once".</summary>
-    public static string Trend(IReadOnlyList<double> values)
+    public string Trend(IReadOnlyList<double> values)
     {
         var steps = new List<int>();
         double scale = values.Select(Math.Abs).DefaultIfEmpty(0).Max();
@@ -84,7 +82,7 @@ public static class Wording
     /// When the headline option's effect arrives, from its path against no reform: the deepest dip and the first
     /// year above, or the early gain and the first year below, or that it stays on one side throughout.
     /// </summary>
-    public static string Arrival(HeadlineFacts h, int reformYear)
+    public string Arrival(HeadlineFacts h, int reformYear)
     {
         string end = h.HorizonEndYear.ToString();
         bool dipFirst = h.DeepestDipPct is not null && (h.PeakYear is null || h.DipCalendarYear < h.PeakYear);
@@ -103,11 +101,11 @@ public static class Wording
         return T("arrival.within_rounding", end);
     }
 
-    private static string UpTo(double pct) => HeadlineFacts.Of(pct) == Direction.None
-        ? T("arrival.by_less", Localise("0.05") + BriefLanguage.Current.PercentSign) : T("arrival.by_up_to", Magnitude(pct));
+    private string UpTo(double pct) => HeadlineFacts.Of(pct) == Direction.None
+        ? T("arrival.by_less", Localise("0.05") + L.PercentSign) : T("arrival.by_up_to", Magnitude(pct));
 
     /// <summary>Whether and when the headline option pays back under the first appraisal rule.</summary>
-    public static string Payback(HeadlineFacts h, string rule, int reformYear)
+    public string Payback(HeadlineFacts h, string rule, int reformYear)
     {
         string end = h.HorizonEndYear.ToString();
         bool lossesFirst = h.DeepestDipPct is not null;
@@ -125,11 +123,11 @@ public static class Wording
     }
 
     /// <summary>The 90% range sentence, or null without Monte Carlo draws.</summary>
-    public static string? Range(HeadlineFacts h)
+    public string? Range(HeadlineFacts h)
     {
         if (h.RangeLowPct is not { } lo || h.RangeHighPct is not { } hi) return null;
         if (HeadlineFacts.Of(lo) == Direction.None && HeadlineFacts.Of(hi) == Direction.None)
-            return T("range.within_zero", Localise("0.05") + BriefLanguage.Current.PercentSign);
+            return T("range.within_zero", Localise("0.05") + L.PercentSign);
         string s = T("range.between", Change(lo), Change(hi));
         bool straddles = HeadlineFacts.Of(lo) != HeadlineFacts.Of(hi);
         return straddles && h.ProbabilityGain is { } p ? T("range.with_chance", s, Prob(p)) : T("arrival.sentence", s);

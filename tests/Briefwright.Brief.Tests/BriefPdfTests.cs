@@ -8,6 +8,9 @@ namespace Briefwright.Brief.Tests;
 /// <summary>The demo brief read back from its PDF and checked against its own results data and PDF checkers.</summary>
 public class BriefPdfTests
 {
+    /// <summary>The formatting functions in English, the demo brief's language.</summary>
+    private static readonly TemplateFunctions TemplateFunctions = new(BriefLanguage.English);
+
     private const string Name = "auroria-national";
 
     private static string Squash(string s) => Regex.Replace(s, @"\s+", "");

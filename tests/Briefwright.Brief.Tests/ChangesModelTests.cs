@@ -5,6 +5,9 @@ namespace Briefwright.Brief.Tests;
 /// <summary>The "changes since the previous edition" section says truthfully why there is a new edition.</summary>
 public class ChangesModelTests
 {
+    /// <summary>The section in English.</summary>
+    private static readonly ChangesModel ChangesModel = new(Templating.BriefLanguage.English);
+
     private static readonly ChangedValue Saving = new(
         "production.saving_rate",
         "Saving rate",

@@ -88,7 +88,7 @@ public class ChartConsistencyTests
                 {
                     if (axis.Label.Text.Length == 0) continue;
                     using var font = new SKFont(
-                        Fonts.GetTypeface(ChartFont.Current, axis.Label.Bold, false),
+                        Fonts.GetTypeface(axis.Label.FontName, axis.Label.Bold, false),
                         axis.Label.FontSize);
                     float width = font.MeasureText(axis.Label.Text);
                     Assert.True(

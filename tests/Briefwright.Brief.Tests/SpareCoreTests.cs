@@ -42,4 +42,45 @@ public class SpareCoreTests
             a.Bytes.AsSpan().SequenceEqual(b.Bytes),
             a.Suffix);
     }
+
+    [Fact]
+    public async Task Briefs_in_other_languages_and_fonts_built_at_once_are_byte_identical_to_ones_built_in_turn()
+    {
+        // Each brief brings its own language, fonts, measurer and chart drawing: nothing of one may reach the other. A
+        // French brief in the bundled font and an English one in a theme's fonts (the bundled faces in another order,
+        // so another family with other chart typefaces), built one after the other, then both at once, each with the
+        // spare-core runner as well, must give the same files.
+        string Font(string face) => Path.Combine(Demo.Root, "fonts", $"LiberationSans-{face}.ttf");
+        var theme = (File.ReadAllBytes(Font("Italic")), File.ReadAllBytes(Font("BoldItalic")),
+            File.ReadAllBytes(Font("Regular")), File.ReadAllBytes(Font("Bold")));
+        var french = ScenarioSolver.Solve(Demo.Load("auroria-valdoree"), 1);
+        var english = ScenarioSolver.Solve(Demo.Load("auroria-national"), 1);
+        var options = BuildOptions.Default with
+        {
+            ChartImages = true, ModelThreads = 1,
+            Formats = Brief.Formats.OutputFormat.Pdf | Brief.Formats.OutputFormat.Html,
+        };
+        BuiltBrief French(WorkRunner runner) => BriefBuilder.Compose(french, StandardTemplate.Template,
+            options with { Runner = runner });
+        BuiltBrief English(WorkRunner runner) =>
+            BriefBuilder.Compose(english, StandardTemplate.Template, options with { Runner = runner, Fonts = theme });
+
+        var inTurn = new[] { French(WorkRunner.Sequential), English(WorkRunner.Sequential) };
+        using var start = new Barrier(2);
+        var atOnce = await Task.WhenAll(
+            Task.Run(() => { start.SignalAndWait(); return French(new Spare()); }),
+            Task.Run(() => { start.SignalAndWait(); return English(new Spare()); }));
+
+        Assert.NotEqual(inTurn[0].Pdf, inTurn[1].Pdf);
+        foreach (var (a, b) in inTurn.Zip(atOnce))
+        {
+            Assert.Equal(a.Pdf, b.Pdf);
+            Assert.Equal(a.Markdown, b.Markdown);
+            Assert.Equal(a.Annex.Select(x => x.Suffix), b.Annex.Select(x => x.Suffix));
+            foreach (var (x, y) in a.Annex.Zip(b.Annex)) Assert.True(x.Bytes.AsSpan().SequenceEqual(y.Bytes), x.Suffix);
+            Assert.Equal(a.Formats.Select(x => x.Suffix), b.Formats.Select(x => x.Suffix));
+            foreach (var (x, y) in a.Formats.Zip(b.Formats))
+                Assert.True(x.Bytes.AsSpan().SequenceEqual(y.Bytes), x.Suffix);
+        }
+    }
 }

@@ -9,13 +9,10 @@ namespace Briefwright.Charts.Tests;
 /// </summary>
 public class HeatmapTests
 {
-    static HeatmapTests()
-    {
-        string fonts = Path.Combine(RepositoryRoot.Path, "fonts");
-        ChartFont.Install(
-            File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Regular.ttf")),
-            File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Bold.ttf")));
-    }
+    /// <summary>The bundled faces, read from the repository, and each chart's English words.</summary>
+    private static readonly ChartDrawing Drawing = new(ChartFont.FromBytes(
+        File.ReadAllBytes(Path.Combine(RepositoryRoot.Path, "fonts", "LiberationSans-Regular.ttf")),
+        File.ReadAllBytes(Path.Combine(RepositoryRoot.Path, "fonts", "LiberationSans-Bold.ttf"))), ChartWords.English);
 
     /// <summary>A checkerboard, so any two neighbouring cells differ in colour.</summary>
     private static GridResult Checkerboard(int nx, int ny)
@@ -33,7 +30,7 @@ public class HeatmapTests
     public void Cells_sit_on_their_tick_values_and_the_edge_cells_are_whole(int nx, int ny)
     {
         var grid = Checkerboard(nx, ny);
-        var plot = AnalysisCharts.Heatmap(grid, "x (%)", "y", "value", xScale: 100);
+        var plot = AnalysisCharts.Heatmap(Drawing, grid, "x (%)", "y", "value", xScale: 100);
         const int scale = 4;
         var png = ChartRenderer.ToPng(plot, pixelWidth: ChartRenderer.Width * scale);
         using var bitmap = SKBitmap.Decode(png);

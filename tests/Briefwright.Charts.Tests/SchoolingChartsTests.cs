@@ -14,19 +14,16 @@ public class SchoolingChartsTests
         new[] { new PolicyOption("base", "Base", 11), new PolicyOption("more", "More", 12) },
         "base"));
 
-    static SchoolingChartsTests()
-    {
-        string fonts = Path.Combine(RepositoryRoot.Path, "fonts");
-        ChartFont.Install(
-            File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Regular.ttf")),
-            File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Bold.ttf")));
-    }
+    /// <summary>The bundled faces, read from the repository, and each chart's English words.</summary>
+    private static readonly ChartDrawing Drawing = new(ChartFont.FromBytes(
+        File.ReadAllBytes(Path.Combine(RepositoryRoot.Path, "fonts", "LiberationSans-Regular.ttf")),
+        File.ReadAllBytes(Path.Combine(RepositoryRoot.Path, "fonts", "LiberationSans-Bold.ttf"))), ChartWords.English);
 
     [Fact]
     public void Output_curve_marks_every_option_the_optimum_and_the_band()
     {
         var r = Results();
-        var plot = SchoolingCharts.OutputCurve(r);
+        var plot = SchoolingCharts.OutputCurve(Drawing, r);
         Assert.Equal(r.Options.Count, plot.GetPlottables<ScottPlot.Plottables.Marker>().Count());
         var line = Assert.Single(plot.GetPlottables<ScottPlot.Plottables.VerticalLine>());
         Assert.Equal(r.Optimum.SchoolingYears, line.X, 12);
@@ -38,7 +35,7 @@ public class SchoolingChartsTests
     [Fact]
     public void Opposing_forces_are_two_aligned_panels_without_a_second_y_axis()
     {
-        var chart = SchoolingCharts.OpposingForces(Results());
+        var chart = SchoolingCharts.OpposingForces(Drawing, Results());
         Assert.Equal(2, chart.Plots.Count);
         Assert.Equal(1.0, chart.Shares.Sum(), 9);
         foreach (var plot in chart.Plots)
@@ -63,8 +60,8 @@ public class SchoolingChartsTests
     [Fact]
     public void Renders_to_the_same_vector_pdf_bytes_every_time()
     {
-        var a = ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Results()));
-        var b = ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Results()));
+        var a = ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Drawing, Results()));
+        var b = ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Drawing, Results()));
         Assert.Equal("%PDF-", System.Text.Encoding.ASCII.GetString(a, 0, 5));
         Assert.Equal(a, b);
     }
@@ -72,7 +69,8 @@ public class SchoolingChartsTests
     [Fact]
     public void Uses_the_bundled_font_not_a_host_font()
     {
-        var pdf = System.Text.Encoding.Latin1.GetString(ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Results())));
+        var pdf = System.Text.Encoding.Latin1.GetString(
+            ChartRenderer.ToPdf(SchoolingCharts.OutputCurve(Drawing, Results())));
         Assert.Contains("LiberationSans", pdf);
         Assert.DoesNotContain("DejaVu", pdf);
     }
@@ -80,8 +78,8 @@ public class SchoolingChartsTests
     [Fact]
     public void Png_copy_is_wide_enough_for_a_slide_and_the_same_every_time()
     {
-        var a = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()));
-        var b = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()));
+        var a = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Drawing, Results()));
+        var b = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Drawing, Results()));
         // PNG signature, then the IHDR chunk: width and height as big-endian 32-bit integers (PNG specification,
         // 11.2.2).
         Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A }, a[..8]);
@@ -98,9 +96,9 @@ public class SchoolingChartsTests
     [Fact]
     public void Svg_copy_is_the_same_however_many_charts_the_process_drew_before()
     {
-        string first = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Results()));
-        ChartRenderer.ToSvg(SchoolingCharts.OpposingForces(Results()));
-        string again = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Results()));
+        string first = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Drawing, Results()));
+        ChartRenderer.ToSvg(SchoolingCharts.OpposingForces(Drawing, Results()));
+        string again = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Drawing, Results()));
         Assert.Contains("clip-path=\"url(#cl_1)\"", first);
         Assert.Equal(first, again);
     }
@@ -110,7 +108,7 @@ public class SchoolingChartsTests
     {
         // Dashed lines are drawn solid in a stand-in colour for the SVG copy (Skia's SVG backend has no dashes), then
         // given their colour and a stroke-dasharray; the plot must come back with its dashes and colours.
-        var plot = SchoolingCharts.OutputCurve(Results());
+        var plot = SchoolingCharts.OutputCurve(Drawing, Results());
         (float[], Color)[] Lines() => plot.GetPlottables().OfType<IHasLine>()
             .Select(p => (p.LineStyle.Pattern.Intervals ?? Array.Empty<float>(), p.LineStyle.Color))
             .ToArray();
@@ -132,11 +130,11 @@ public class SchoolingChartsTests
     {
         var texts = new ChartRenderer.CopyTexts(
             "Output per person against years of schooling",
-            "briefwright model, scenario test");
-        string svg = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Results()), texts);
+            "briefwright model, scenario test", Drawing.Family);
+        string svg = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Drawing, Results()), texts);
         Assert.Contains("Output per person against years of schooling", svg);
         Assert.Contains("Source: briefwright model, scenario test", svg);
-        var png = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()), texts);
+        var png = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Drawing, Results()), texts);
         int height = System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(png.AsSpan(20));
         Assert.True(
             height > ChartRenderer.Height * (double)ChartRenderer.PngWidth / ChartRenderer.Width + 40,
@@ -147,7 +145,7 @@ public class SchoolingChartsTests
     public void Every_axis_writes_a_true_minus_sign()
     {
         var plot = new Plot();
-        ChartRenderer.Style(plot, "x", "y");
+        ChartRenderer.Style(plot, Drawing, "x", "y");
         plot.Add.Scatter(new double[] { -3, 0, 3 }, new double[] { -2, 0, 2 });
         ChartRenderer.ToPdf(plot);
         var labels = new IAxis[] { plot.Axes.Bottom, plot.Axes.Left }.SelectMany(a => a.TickGenerator.Ticks)
@@ -156,7 +154,7 @@ public class SchoolingChartsTests
             .ToList();
         Assert.Contains(labels, l => l.StartsWith('\u2212'));
         Assert.DoesNotContain(labels, l => l.Contains('-'));
-        Assert.Equal("0", ChartRenderer.Number(-0.0));
-        Assert.Equal("\u22122.5", ChartRenderer.Number(-2.5));
+        Assert.Equal("0", ChartRenderer.Number(Drawing, -0.0));
+        Assert.Equal("\u22122.5", ChartRenderer.Number(Drawing, -2.5));
     }
 }

@@ -60,14 +60,8 @@ public class ArchitectureTests
     [Fact]
     public void Skia_and_ScottPlot_are_used_only_in_Charts()
     {
-        var allowed = new Dictionary<string, string>
-        {
-            // Start-up warm-up draws a throw-away plot to load ScottPlot early; issue 16 (point 2/3) moves the speed
-            // scheduling into the command line and the chart library.
-            ["Briefwright.Brief.WarmUp"] = "throw-away plot that pays ScottPlot's start-up on a spare core",
-        };
         var offenders = Projects.Where(p => p != "Briefwright.Charts")
-            .SelectMany(p => Offenders(p, ["SkiaSharp", "ScottPlot"], allowed));
+            .SelectMany(p => Offenders(p, ["SkiaSharp", "ScottPlot"], allowed: None));
         Assert.Empty(offenders);
     }
 
@@ -77,6 +71,83 @@ public class ArchitectureTests
         var offenders = Projects.Where(p => p != "Briefwright.Composer")
             .SelectMany(p => Offenders(p, ["PdfSharp"], allowed: None));
         Assert.Empty(offenders);
+    }
+
+    /// <summary>
+    /// The libraries keep no state of their own between calls: what one brief is built with (its language, fonts,
+    /// measurer, chart font and words) is made by the caller and passed down, so briefs built at the same time cannot
+    /// see each other. A static field must be readonly, and of no type that is mutable state by nature; a field marked
+    /// [ThreadStatic] counts as mutable too. Compiler-generated types (lambda caches, generated regular expressions and
+    /// JSON metadata) are not ours to shape and are skipped.
+    /// </summary>
+    [Fact]
+    public void The_libraries_keep_no_static_mutable_state()
+    {
+        var allowed = new Dictionary<string, string>
+        {
+            // ScottPlot finds typefaces through its static resolver list by family name: one append-only table from a
+            // name derived from the font bytes to its typefaces; which font a chart uses is set on the plot itself.
+            ["Briefwright.Charts.ChartFontResolver.Families"] = "ScottPlot's resolvers are process-wide",
+            // PDFsharp takes one global font resolver and asks it for faces by name: one append-only table from a
+            // name derived from the font bytes to those bytes; which family a brief is set in is its RenderSession's.
+            ["Briefwright.Composer.Drawing.PdfFontResolver.Registered"] = "PDFsharp's resolver is process-wide",
+            // Memos: each value is a pure function of its key, and every key is immutable content (a schedule and
+            // horizon, font bytes, a survival curve), so a memo gives every brief the answer it would compute itself.
+            ["Briefwright.Model.Dynamics.PresentValue.FactorCache"] = "memo of discount factors, at most 256 entries",
+            ["Briefwright.Model.Numerics.TiltedKernel.Cache"] =
+                "memo of at most 16 kernels per survival curve, curves held weakly",
+            ["Briefwright.Charts.FontSubsetter.Coverage"] = "memo of a font's characters, held weakly per font",
+            ["Briefwright.Brief.GlyphCheck.Passed"] = "memo of template and language texts found in a font, at most 64",
+        };
+        var state = StaticMutableState(["Briefwright.Model", "Briefwright.Scenario", "Briefwright.Templating",
+            "Briefwright.Charts", "Briefwright.Composer", "Briefwright.Brief"], allowed);
+        Assert.True(state.Count == 0, "static state in the libraries:\n" + string.Join("\n", state));
+    }
+
+    /// <summary>Generic types that hold changing state, whether or not the field holding them is readonly.</summary>
+    private static readonly Type[] MutableByNature =
+    [
+        typeof(AsyncLocal<>), typeof(ThreadLocal<>), typeof(System.Collections.Concurrent.ConcurrentDictionary<,>),
+        typeof(System.Collections.Concurrent.ConcurrentBag<>), typeof(System.Collections.Concurrent.ConcurrentQueue<>),
+        typeof(Dictionary<,>), typeof(List<>), typeof(HashSet<>), typeof(Queue<>), typeof(Stack<>),
+        typeof(System.Runtime.CompilerServices.ConditionalWeakTable<,>),
+    ];
+
+    /// <summary>"Type.field: why" for every static field of the assemblies that is state, minus the allowed ones.
+    /// </summary>
+    private static List<string> StaticMutableState(string[] assemblies, IReadOnlyDictionary<string, string> allowed)
+    {
+        const BindingFlags statics = BindingFlags.Static | BindingFlags.Public | BindingFlags.NonPublic
+                                     | BindingFlags.DeclaredOnly;
+        var hits = new List<string>();
+        foreach (var type in assemblies.SelectMany(a => Load(a).GetTypes()))
+        {
+            if (IsGenerated(type)) continue;
+            foreach (var field in type.GetFields(statics))
+            {
+                if (field.IsLiteral) continue;
+                string name = $"{type.FullName}.{field.Name}";
+                var fieldType = field.FieldType.IsGenericType ? field.FieldType.GetGenericTypeDefinition()
+                    : field.FieldType;
+                string? why = !field.IsInitOnly ? "not readonly"
+                    : field.IsDefined(typeof(ThreadStaticAttribute)) ? "[ThreadStatic]"
+                    : MutableByNature.Contains(fieldType) ? $"holds a {field.FieldType.Name}"
+                    : null;
+                if (why is not null && !allowed.ContainsKey(name)) hits.Add($"{name}: {why}");
+            }
+        }
+        return hits;
+    }
+
+    /// <summary>A type the compiler or a source generator made (or one nested in it).</summary>
+    private static bool IsGenerated(Type type)
+    {
+        for (var t = type; t is not null; t = t.DeclaringType)
+            if (t.IsDefined(typeof(System.Runtime.CompilerServices.CompilerGeneratedAttribute), false)
+                || t.IsDefined(typeof(System.CodeDom.Compiler.GeneratedCodeAttribute), false)
+                || t.Name.StartsWith('<'))
+                return true;
+        return type.Namespace?.StartsWith("System.Text.RegularExpressions.Generated", StringComparison.Ordinal) == true;
     }
 
     private static readonly Dictionary<string, string> FileAccessAllowed = new()

@@ -7,7 +7,7 @@ public class BriefTemplateTests
     private static ScriptObject Model()
     {
         var m = new ScriptObject();
-        m.Import(typeof(TemplateFunctions));
+        new TemplateFunctions(BriefLanguage.English).AddTo(m);
         m["brief"] = new ScriptObject { ["title"] = "A title" };
         m.Import("recurse", new Func<int, int>(n => n));
         return m;

@@ -4,6 +4,9 @@ namespace Briefwright.Templating.Tests;
 
 public class ProbabilityWordsTests
 {
+    /// <summary>The words in English, the default language.</summary>
+    private static readonly ProbabilityWords ProbabilityWords = new(BriefLanguage.English);
+
     [Fact]
     public void All_draws_showing_a_gain_is_said_as_the_lower_bound_of_its_interval_never_as_a_certainty()
     {

@@ -41,13 +41,12 @@ public class ResultWordsTests
         Assert.Equal("the return to schooling does not exceed population growth",
             ResultWords.Data.ClosedFormReason(ClosedFormObstacle.ReturnBelowGrowth));
         Assert.Equal("golden section", ResultWords.Data.Refinement(RefinementMethod.GoldenSection));
-        using (BriefLanguage.Use(BriefLanguage.BuiltIn["fr"]))
-        {
-            Assert.Equal("section dorée", ResultWords.Brief.Refinement(RefinementMethod.GoldenSection));
-            var notFinite = new TailBasis(TailTreatment.NotFinite, 0.01, 0.015, 0);
-            Assert.Contains("1,0\u202F%", ResultWords.Brief.TailNote(notFinite));
-            Assert.StartsWith("années de production par personne de 2026", ResultWords.Brief.PriceBase(2026));
-        }
-        Assert.Equal(ResultWords.Data.PriceBase(2026), ResultWords.Brief.PriceBase(2026));
+        var french = ResultWords.Brief(new TemplateFunctions(BriefLanguage.BuiltIn["fr"]));
+        Assert.Equal("section dorée", french.Refinement(RefinementMethod.GoldenSection));
+        var notFinite = new TailBasis(TailTreatment.NotFinite, 0.01, 0.015, 0);
+        Assert.Contains("1,0\u202F%", french.TailNote(notFinite));
+        Assert.StartsWith("années de production par personne de 2026", french.PriceBase(2026));
+        Assert.Equal(ResultWords.Data.PriceBase(2026),
+            ResultWords.Brief(new TemplateFunctions(BriefLanguage.English)).PriceBase(2026));
     }
 }

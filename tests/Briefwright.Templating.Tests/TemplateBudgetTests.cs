@@ -11,7 +11,7 @@ public class TemplateBudgetTests
     private static ScriptObject Model()
     {
         var m = new ScriptObject();
-        m.Import(typeof(TemplateFunctions));
+        new TemplateFunctions(BriefLanguage.English).AddTo(m);
         m["brief"] = new ScriptObject { ["title"] = "A title" };
         return m;
     }
@@ -96,7 +96,7 @@ public class TemplateBudgetFuzzTests
     {
         var rng = new Random(20261202);
         var model = new Scriban.Runtime.ScriptObject();
-        model.Import(typeof(TemplateFunctions));
+        new TemplateFunctions(BriefLanguage.English).AddTo(model);
         model["brief"] = new Scriban.Runtime.ScriptObject { ["title"] = "A title" };
         int stopped = 0, filled = 0;
         for (int i = 0; i < 150; i++)

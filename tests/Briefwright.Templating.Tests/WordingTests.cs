@@ -5,6 +5,9 @@ namespace Briefwright.Templating.Tests;
 /// <summary>Words chosen from numbers: each branch of the sentences page 1 is made of.</summary>
 public class WordingTests
 {
+    /// <summary>The words in English, the default language.</summary>
+    private static readonly Wording Wording = new(BriefLanguage.English);
+
     private static HeadlineFacts Facts(
         double change,
         double? dip = null,

@@ -30,8 +30,11 @@ public sealed record EditionSnapshot(
     IReadOnlyDictionary<string, (string Label, string Value, string? Source)> Assumptions,
     IReadOnlyDictionary<string, (string Label, double Value, string Unit)> Results)
 {
-    public static EditionSnapshot FromJson(string json)
+    /// <summary>The snapshot of a results file, its assumptions' values written in <paramref name="language"/> (English
+    /// when null).</summary>
+    public static EditionSnapshot FromJson(string json, BriefLanguage? language = null)
     {
+        var words = new TemplateFunctions(language ?? BriefLanguage.English);
         using var doc = JsonDocument.Parse(json);
         var root = doc.RootElement;
         var assumptions = new Dictionary<string, (string, string, string?)>(StringComparer.Ordinal);
@@ -41,7 +44,7 @@ public sealed record EditionSnapshot(
                 string unit = a.GetProperty("unit").GetString()!;
                 string value = a.GetProperty("text").ValueKind == JsonValueKind.String
                     ? a.GetProperty("text").GetString()!
-                    : Display(a.GetProperty("value").GetDouble(), unit);
+                    : Display(words, a.GetProperty("value").GetDouble(), unit);
                 string? source = a.GetProperty("source").ValueKind == JsonValueKind.String ? a.GetProperty("source").GetString() : null;
                 assumptions[a.GetProperty("path").GetString()!] = (a.GetProperty("label").GetString()!, value, source);
             }
@@ -67,16 +70,18 @@ public sealed record EditionSnapshot(
         return new EditionSnapshot(root.GetProperty("edition").GetInt32(), root.GetProperty("date").GetString()!, assumptions, results);
     }
 
-    private static string Display(double v, string unit) => unit switch
+    private static string Display(TemplateFunctions words, double v, string unit) => unit switch
     {
-        "rate" => TemplateFunctions.Pct(v, 2),
-        "years" or "age" => TemplateFunctions.Num(v, v == Math.Floor(v) ? 0 : 1),
-        _ => TemplateFunctions.Sig(v, 4),
+        "rate" => words.Pct(v, 2),
+        "years" or "age" => words.Num(v, v == Math.Floor(v) ? 0 : 1),
+        _ => words.Sig(v, 4),
     };
 
-    /// <summary>Changed, added and removed assumptions; headline results that moved by more than rounding.</summary>
-    public static EditionChanges Compare(EditionSnapshot old, EditionSnapshot now)
+    /// <summary>Changed, added and removed assumptions; headline results that moved by more than rounding, written in
+    /// <paramref name="language"/> (English when null).</summary>
+    public static EditionChanges Compare(EditionSnapshot old, EditionSnapshot now, BriefLanguage? language = null)
     {
+        var words = new TemplateFunctions(language ?? BriefLanguage.English);
         var assumptions = new List<ChangedValue>();
         foreach (var (path, n) in now.Assumptions)
         {
@@ -91,8 +96,9 @@ public sealed record EditionSnapshot(
             if (!old.Results.TryGetValue(key, out var o)) continue;
             double diff = n.Value - o.Value;
             if (Math.Abs(diff) < 5e-4 * Math.Max(1, Math.Abs(o.Value))) continue;
-            string F(double v) => n.Unit == "%" ? TemplateFunctions.Change(v, 2) : TemplateFunctions.Num(v, 2);
-            results.Add(new ChangedValue(key, n.Label, F(o.Value), F(n.Value), (diff >= 0 ? "+" : "−") + TemplateFunctions.Num(Math.Abs(diff), 2) + (n.Unit == "%" ? " points" : "")));
+            string F(double v) => n.Unit == "%" ? words.Change(v, 2) : words.Num(v, 2);
+            results.Add(new ChangedValue(key, n.Label, F(o.Value), F(n.Value),
+                (diff >= 0 ? "+" : "−") + words.Num(Math.Abs(diff), 2) + (n.Unit == "%" ? " points" : "")));
         }
         return new EditionChanges(old.Edition, old.Date, assumptions, results);
     }

@@ -2,8 +2,11 @@ using Briefwright.Charts;
 
 namespace Briefwright.Brief.ChartSet;
 
-/// <summary>What every chart definition is given: the solved scenario, the options' styles for this brief, the source line.</summary>
-public sealed record ChartContext(SolvedScenario Solved, OptionStyles Styles, string Source);
+/// <summary>What every chart definition is given: the solved scenario, the options' styles for this brief, the source
+/// line, what the brief's charts are drawn with (their font and words), and the brief's words for captions and
+/// alternative texts.</summary>
+public sealed record ChartContext(
+    SolvedScenario Solved, OptionStyles Styles, string Source, ChartDrawing Drawing, ChartTexts Texts);
 
 /// <summary>
 /// One chart of the brief, defined in one place: its id, plot, caption, alternative text and source. A definition

@@ -1,8 +1,6 @@
 using Briefwright.Charts;
 using Briefwright.Templating;
 
-using static Briefwright.Brief.ChartSet.ChartTexts;
-
 namespace Briefwright.Brief.ChartSet;
 
 /// <summary>The two opposing forces, in two aligned panels over schooling length.</summary>
@@ -10,13 +8,16 @@ public sealed class OpposingForcesFigure : IChartDefinition
 {
     public IEnumerable<ChartSpec> Build(ChartContext c)
     {
+        var w = c.Texts;
         var results = c.Solved.BalancedGrowth;
         var curve = results.SchoolingCurve;
         var baseline = results.Options.First(o => o.IsBaseline);
-        yield return new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(results, c.Styles),
-            T("chart.forces.caption"),
-            T("chart.forces.alt", Wording.Trend(curve.Select(x => x.WorkerShare).ToList()), Wording.Trend(curve.Select(x => x.HumanCapitalPerWorker).ToList()),
-                TemplateFunctions.Years(baseline.SchoolingYears), TemplateFunctions.Num(baseline.WorkerShare, 3), TemplateFunctions.Num(baseline.HumanCapitalPerWorker, 2)),
+        yield return new ChartSpec("opposing-forces", SchoolingCharts.OpposingForces(c.Drawing, results, c.Styles),
+            w.T("chart.forces.caption"),
+            w.T("chart.forces.alt", w.Wording.Trend(curve.Select(x => x.WorkerShare).ToList()),
+                w.Wording.Trend(curve.Select(x => x.HumanCapitalPerWorker).ToList()),
+                w.Years(baseline.SchoolingYears), w.Num(baseline.WorkerShare, 3),
+                w.Num(baseline.HumanCapitalPerWorker, 2)),
             c.Source);
     }
 }

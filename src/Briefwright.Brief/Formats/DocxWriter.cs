@@ -22,11 +22,11 @@ public sealed class DocxWriter : IBriefWriter
     private const string Rel = "http://schemas.openxmlformats.org/officeDocument/2006/relationships/";
     private const string Doc = "/word/document.xml";
 
-    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
-    private static string T(string key) => Templating.BriefLanguage.Current.Format(key);
 
     public byte[] Write(BriefContent content)
     {
+        // A text of the brief's language (templates/languages/*.texts), by key.
+        string T(string key) => content.Language.Format(key);
         var doc = content.Document;
         var theme = content.Theme;
         var package = new OfficePackage(doc.Info.Date);

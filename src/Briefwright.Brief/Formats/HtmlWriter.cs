@@ -20,6 +20,8 @@ public sealed partial class HtmlWriter : IBriefWriter
 
     public static string Render(BriefContent content)
     {
+        // A text of the brief's language (templates/languages/*.texts), by key.
+        string T(string key) => content.Language.Format(key);
         var doc = content.Document;
         var info = doc.Info;
         var theme = content.Theme;
@@ -104,8 +106,6 @@ public sealed partial class HtmlWriter : IBriefWriter
         return sb.ToString();
     }
 
-    /// <summary>A text of the brief's language (templates/languages/*.texts), by key.</summary>
-    private static string T(string key) => Templating.BriefLanguage.Current.Format(key);
 
     private sealed class State(IReadOnlyDictionary<string, Charts.RenderedChart> charts, Composer.Layout.Theme theme)
     {

@@ -68,6 +68,9 @@ public sealed record BriefContent(
     string OrganisationName)
 {
     public Composer.Layout.Theme Theme => Document.Theme ?? Composer.Layout.Theme.For(Document.Paper);
+
+    /// <summary>The brief's language (its scenario's <c>brief.language</c>).</summary>
+    public Templating.BriefLanguage Language => GlyphCheck.LanguageOf(Solved.Scenario);
 }
 
 /// <summary>A writer of one output format: returns the file's bytes; the command line writes them.</summary>

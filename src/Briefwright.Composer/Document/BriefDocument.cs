@@ -36,6 +36,7 @@ public sealed record BriefDocument(DocumentInfo Info, IReadOnlyList<Block> Block
     /// <summary>The page theme; null means the standard one for the paper size.</summary>
     public Layout.Theme? Theme { get; init; }
 
-    /// <summary>A font family registered with <see cref="Drawing.BundledFonts.Register"/>; null for the bundled one.</summary>
+    /// <summary>The family of the theme's <see cref="Drawing.FontFaces"/> (its <see cref="RenderSession"/>); null for
+    /// the bundled one.</summary>
     public string? FontFamily { get; init; }
 }

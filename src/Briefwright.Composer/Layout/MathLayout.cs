@@ -22,7 +22,8 @@ public static class MathNotation
     public sealed record Hat(Node Body) : Node;
     public sealed record Space(double Em) : Node;
 
-    private static readonly Dictionary<string, (string Char, string Name)> Greek = new()
+    private static readonly IReadOnlyDictionary<string, (string Char, string Name)> Greek =
+        new Dictionary<string, (string Char, string Name)>
     {
         ["alpha"] = ("α", "alpha"), ["beta"] = ("β", "beta"), ["gamma"] = ("γ", "gamma"), ["delta"] = ("δ", "delta"),
         ["epsilon"] = ("ε", "epsilon"), ["theta"] = ("θ", "theta"), ["lambda"] = ("λ", "lambda"), ["mu"] = ("μ", "mu"),
@@ -31,7 +32,8 @@ public static class MathNotation
         ["Delta"] = ("Δ", "capital delta"), ["Sigma"] = ("Σ", "capital sigma"), ["Phi"] = ("Φ", "capital phi"),
     };
 
-    private static readonly Dictionary<string, (string Char, string Spoken)> Symbols = new()
+    private static readonly IReadOnlyDictionary<string, (string Char, string Spoken)> Symbols =
+        new Dictionary<string, (string Char, string Spoken)>
     {
         ["cdot"] = ("·", " times "), ["times"] = ("×", " times "),
         ["le"] = ("≤", " at most "), ["ge"] = ("≥", " at least "),

@@ -1,3 +1,4 @@
+using Briefwright.Brief;
 using Briefwright.Charts;
 using Briefwright.Composer;
 using Briefwright.Composer.Document;
@@ -5,16 +6,16 @@ using Briefwright.Composer.Drawing;
 using Briefwright.Composer.Markdown;
 using Briefwright.Templating;
 
-namespace Briefwright.Brief;
+namespace Briefwright.Cli;
 
 /// <summary>
-/// The chart, template and PDF libraries each pay a one-time start-up in a new process (loading and compiling their
-/// code, reading font tables). <see cref="Start"/> pays it on a spare core with a tiny throw-away brief while the
-/// first real brief's model runs, so that a single brief built by a fresh process finishes sooner. It writes nothing,
-/// touches no setting a real brief reads (the chart font family in use is left alone), and its failures are ignored:
-/// the real brief then simply pays the start-up itself.
+/// A speed decision (see <see cref="Speed"/>): the chart, template and PDF libraries each pay a one-time start-up in a
+/// new process (loading and compiling their code, reading font tables). <see cref="Start"/> pays it on a spare core
+/// with a tiny throw-away brief while the first real brief's model runs, so that a single brief built by a fresh
+/// process finishes sooner. It writes nothing and shares nothing with a real brief (it makes its own chart drawing and
+/// render session), and its failures are ignored: the real brief then simply pays the start-up itself.
 /// </summary>
-public static class WarmUp
+internal static class WarmUp
 {
     private static readonly Lazy<Task> Started = new(() => Task.Run(() => Run()));
 
@@ -26,18 +27,19 @@ public static class WarmUp
     {
         try
         {
-            BriefBuilder.InstallChartFont();
-            var plot = new ScottPlot.Plot();
-            plot.Add.Scatter(new double[] { 0, 1, 2 }, new double[] { 1, 3, 2 });
-            plot.XLabel("x");
-            byte[] chart = ChartRenderer.ToPdf(plot);
+            var drawing = new ChartDrawing(
+                ChartFont.FromBytes(BundledFonts.Bytes(RunStyle.Regular), BundledFonts.Bytes(RunStyle.Bold)),
+                ChartWords.English);
+            byte[] chart = ChartRenderer.SamplePdf(drawing);
 
-            string markdown = BriefTemplate.Parse("# {{ title }}\n\nText with **bold** and *italic*.\n\n| a | b |\n|---|--:|\n| {{ title }} | 1.0 |\n\n[[figure: warm]]\n", "warm-up")
+            string markdown = BriefTemplate.Parse(
+                    "# {{ title }}\n\nText with **bold** and *italic*.\n\n"
+                    + "| a | b |\n|---|--:|\n| {{ title }} | 1.0 |\n\n[[figure: warm]]\n", "warm-up")
                 .Render(new Scriban.Runtime.ScriptObject { ["title"] = "Warm-up" });
             var figure = new FigureBlock("warm", chart, 1, ChartRenderer.Width, ChartRenderer.Height, "Warm-up", null, "Warm-up");
             var blocks = MarkdownReader.Read(markdown, new Dictionary<string, FigureBlock> { ["warm"] = figure });
             var info = new DocumentInfo("Warm-up", "Warm-up", "briefwright", "", "", "en-GB", new DateOnly(2000, 1, 1), "", "");
-            return DocumentComposer.WritePdf(new BriefDocument(info, blocks)).PageCount == 1;
+            return DocumentComposer.WritePdf(new BriefDocument(info, blocks), new RenderSession()).PageCount == 1;
         }
         catch (Exception)
         {
