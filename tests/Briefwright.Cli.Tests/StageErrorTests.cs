@@ -18,31 +18,10 @@ public class StageErrorTests
 
     /// <summary>An invented scenario whose population growth is drawn so that most draws break n + g + δ ≥ 0.1%: Monte
     /// Carlo survives by redrawing, the Sobol samples (never redrawn) do not.</summary>
-    private const string SobolStarved = """
-        brief:
-          id: sobol-starved
-          title: Starved Sobol indices (invented)
-          organisation: Test Institute (invented)
-          date: 2026-11-30
-        demography:
-          population_growth: 1%
-          school_entry_age: 6
-          retirement_age: 65
-          survival:
-            form: rectangular
-            max_age: 80
-        production:
-          saving_rate: 0.2
-          capital_share: 0.33
-          depreciation: 3%
-          technology_growth: 2%
-        options:
-          - id: base
-            label: Base
-            schooling_years: 11
-          - id: more
-            label: More
-            schooling_years: 12
+    private static readonly string SobolStarved = ValidScenario.Text
+        .Replace("id: test-brief", "id: sobol-starved")
+        .Replace("title: Test brief", "title: Starved Sobol indices (invented)") + """
+
         uncertainty:
           draws: 200
           seed: 7
