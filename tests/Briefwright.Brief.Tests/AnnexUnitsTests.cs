@@ -32,10 +32,15 @@ public class AnnexUnitsTests
             {
                 Assert.Equal(2026, pv.GetProperty("valuation_year").GetInt32());
                 if (pv.GetProperty("break_even_years_after_reform").ValueKind == JsonValueKind.Number)
-                    Assert.Equal(reformYear + pv.GetProperty("break_even_years_after_reform").GetInt32(), pv.GetProperty("break_even_calendar_year").GetInt32());
+                    Assert.Equal(
+                        reformYear + pv.GetProperty("break_even_years_after_reform").GetInt32(),
+                        pv.GetProperty("break_even_calendar_year").GetInt32());
                 // US OMB Circular A-4 (2003): 3% a year, two years from 2026 to the reform in 2028.
                 if (pv.GetProperty("schedule_id").GetString() == "omb-3")
-                    Assert.Equal(Math.Pow(1.03, -(reformYear - 2026)), pv.GetProperty("discount_factor_to_reform").GetDouble(), 12);
+                    Assert.Equal(
+                        Math.Pow(1.03, -(reformYear - 2026)),
+                        pv.GetProperty("discount_factor_to_reform").GetDouble(),
+                        12);
             }
         // Names whose meaning was ambiguous (offset in the JSON, calendar year in the CSV) are gone.
         var names = PropertyNames(doc.RootElement).ToHashSet();
@@ -53,24 +58,33 @@ public class AnnexUnitsTests
         foreach (var o in a.GetProperty("monte_carlo").GetProperty("options").EnumerateArray())
         {
             var p = o.GetProperty("probability_gain");
-            double estimate = p.GetProperty("estimate").GetDouble(), low = p.GetProperty("low").GetDouble(), high = p.GetProperty("high").GetDouble();
+            double estimate = p.GetProperty("estimate").GetDouble();
+            double low = p.GetProperty("low").GetDouble(), high = p.GetProperty("high").GetDouble();
             Assert.True(low <= estimate && estimate <= high && low < high, $"{low} ≤ {estimate} ≤ {high}");
             var change = o.GetProperty("long_run_change_pct");
-            Assert.True(change.GetProperty("p5_interval").GetProperty("low").GetDouble() <= change.GetProperty("p5").GetDouble());
+            Assert.True(
+                change.GetProperty("p5_interval").GetProperty("low").GetDouble()
+                <= change.GetProperty("p5").GetDouble());
         }
-        // The default base sample size was chosen so that the headline's 95% intervals are at most ±0.05 (docs/model.md).
+        // The default base sample size was chosen so that the headline's 95% intervals are at most ±0.05
+        // (docs/model.md).
         var headline = a.GetProperty("sobol").GetProperty("indices")[0];
         double[] Arr(string name) => headline.GetProperty(name).EnumerateArray().Select(x => x.GetDouble()).ToArray();
-        var (first, firstLow, firstHigh, total, totalLow, totalHigh) = (Arr("first_order"), Arr("first_order_low"), Arr("first_order_high"), Arr("total"), Arr("total_low"), Arr("total_high"));
+        var (first, firstLow, firstHigh) = (Arr("first_order"), Arr("first_order_low"), Arr("first_order_high"));
+        var (total, totalLow, totalHigh) = (Arr("total"), Arr("total_low"), Arr("total_high"));
         for (int i = 0; i < first.Length; i++)
         {
             Assert.InRange(first[i], firstLow[i], firstHigh[i]);
             Assert.InRange(total[i], totalLow[i], totalHigh[i]);
-            Assert.True(firstHigh[i] - firstLow[i] <= 0.1 && totalHigh[i] - totalLow[i] <= 0.1, $"input {i}: [{firstLow[i]}, {firstHigh[i]}], [{totalLow[i]}, {totalHigh[i]}]");
+            Assert.True(
+                firstHigh[i] - firstLow[i] <= 0.1 && totalHigh[i] - totalLow[i] <= 0.1,
+                $"input {i}: [{firstLow[i]}, {firstHigh[i]}], [{totalLow[i]}, {totalHigh[i]}]");
         }
     }
 
-    private static readonly Regex UnitSuffix = new(@"(_pct|_fraction|_share|_years|_year|_years_after_reform|_index|_years_of_output|_draws|^draws|^base_samples|^resamples|^discount_factor_to_reform|^years_after_reform)$");
+    private static readonly Regex UnitSuffix = new(
+        "(_pct|_fraction|_share|_years|_year|_years_after_reform|_index|_years_of_output|_draws|^draws|^base_samples"
+        + "|^resamples|^discount_factor_to_reform|^years_after_reform)$");
 
     [Fact]
     public void Every_numeric_CSV_column_says_its_unit_and_numbers_are_written_in_their_shortest_round_trip_form()
@@ -84,12 +98,17 @@ public class AnnexUnitsTests
             for (int c = 0; c < header.Length; c++)
             {
                 var values = rows.Select(r => r[c]).Where(v => v.Length > 0).ToList();
-                bool numeric = values.Count > 0 && values.All(v => double.TryParse(v, NumberStyles.Float, CultureInfo.InvariantCulture, out _));
+                bool numeric = values.Count > 0
+                    && values.All(v => double.TryParse(v, NumberStyles.Float, CultureInfo.InvariantCulture, out _));
                 if (!numeric) continue;
                 foreach (var v in values)
-                    Assert.Equal(v, double.Parse(v, CultureInfo.InvariantCulture).ToString("R", CultureInfo.InvariantCulture));
+                    Assert.Equal(
+                        v,
+                        double.Parse(v, CultureInfo.InvariantCulture).ToString("R", CultureInfo.InvariantCulture));
                 if (unitColumn && !UnitSuffix.IsMatch(header[c])) continue;
-                Assert.True(UnitSuffix.IsMatch(header[c]) || file.Suffix == "assumptions.csv", $"{file.Suffix}: column '{header[c]}' does not say its unit");
+                Assert.True(
+                    UnitSuffix.IsMatch(header[c]) || file.Suffix == "assumptions.csv",
+                    $"{file.Suffix}: column '{header[c]}' does not say its unit");
             }
         }
     }

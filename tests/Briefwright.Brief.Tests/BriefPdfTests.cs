@@ -42,11 +42,18 @@ public class BriefPdfTests
             if (option.GetProperty("is_baseline").GetBoolean()) continue;
             string change = TemplateFunctions.Change(option.GetProperty("change_vs_baseline_pct").GetDouble());
             Assert.Contains(Squash(change), Squash(text));
-            double baseY = json.RootElement.GetProperty("options").EnumerateArray().First(o => o.GetProperty("is_baseline").GetBoolean()).GetProperty("output_per_person").GetDouble();
-            Assert.Contains(Squash(TemplateFunctions.Num(100 * option.GetProperty("output_per_person").GetDouble() / baseY, 1)), Squash(text));
+            double baseY = json.RootElement.GetProperty("options").EnumerateArray()
+                .First(o => o.GetProperty("is_baseline").GetBoolean())
+                .GetProperty("output_per_person")
+                .GetDouble();
+            Assert.Contains(
+                Squash(TemplateFunctions.Num(100 * option.GetProperty("output_per_person").GetDouble() / baseY, 1)),
+                Squash(text));
         }
         var optimum = json.RootElement.GetProperty("optimum");
-        Assert.Contains(Squash(TemplateFunctions.Years(optimum.GetProperty("schooling_years").GetDouble())), Squash(text));
+        Assert.Contains(
+            Squash(TemplateFunctions.Years(optimum.GetProperty("schooling_years").GetDouble())),
+            Squash(text));
         var band = optimum.GetProperty("within_1pct");
         Assert.Contains(Squash(TemplateFunctions.Years(band[0].GetDouble())), Squash(text));
         Assert.Contains(Squash(TemplateFunctions.Years(band[1].GetDouble())), Squash(text));
@@ -58,7 +65,9 @@ public class BriefPdfTests
         var (pdf, text) = Open();
         using var _ = pdf;
         string markdown = Demo.Build(Name).Markdown;
-        var tables = Regex.Matches(markdown, @"^\[\[table: ([^|\]]+)", RegexOptions.Multiline).Select(m => m.Groups[1].Value.Trim()).ToList();
+        var tables = Regex.Matches(markdown, @"^\[\[table: ([^|\]]+)", RegexOptions.Multiline)
+            .Select(m => m.Groups[1].Value.Trim())
+            .ToList();
         int figures = Regex.Matches(markdown, @"^\[\[figure: ", RegexOptions.Multiline).Count;
         Assert.Equal(8, tables.Count);
         Assert.Equal(7, figures);

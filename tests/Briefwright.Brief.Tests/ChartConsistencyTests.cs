@@ -4,7 +4,9 @@ using SkiaSharp;
 
 namespace Briefwright.Brief.Tests;
 
-/// <summary>The demo brief's charts, drawn: one style per option across figures, one set of type sizes, axis titles that fit.</summary>
+/// <summary>
+/// The demo brief's charts, drawn: one style per option across figures, one set of type sizes, axis titles that fit.
+/// </summary>
 public class ChartConsistencyTests
 {
     private static IReadOnlyList<ChartSpec> DemoCharts()
@@ -26,19 +28,30 @@ public class ChartConsistencyTests
         foreach (var spec in specs)
             foreach (var plottable in spec.Plot.Plottables)
             {
-                string? legend = plottable switch { ScottPlot.Plottables.Scatter s => s.LegendText, ScottPlot.Plottables.Marker m => m.LegendText, _ => null };
+                string? legend = plottable switch
+                {
+                    ScottPlot.Plottables.Scatter s => s.LegendText,
+                    ScottPlot.Plottables.Marker m => m.LegendText,
+                    _ => null,
+                };
                 if (legend is null) continue;
                 string label = legend.Replace(" (baseline)", "");
                 if (!labels.TryGetValue(label, out var id)) continue;
-                var colour = plottable is ScottPlot.Plottables.Scatter sc ? sc.Color : ((ScottPlot.Plottables.Marker)plottable).Color;
-                if (seen.TryGetValue(id, out var before)) Assert.True(before == colour, $"{spec.Id}: {label} is drawn in {colour}, elsewhere in {before}");
+                var colour = plottable is ScottPlot.Plottables.Scatter sc
+                    ? sc.Color
+                    : ((ScottPlot.Plottables.Marker)plottable).Color;
+                if (seen.TryGetValue(id, out var before)) Assert.True(
+                    before == colour,
+                    $"{spec.Id}: {label} is drawn in {colour}, elsewhere in {before}");
                 else seen[id] = colour;
                 checkedItems++;
             }
         Assert.Equal(solved.Scenario.Inputs.Options.Count, seen.Count);
         Assert.Equal(seen.Count, seen.Values.Distinct().Count());
         Assert.True(checkedItems > seen.Count, "options appear in more than one figure");
-        var headline = specs.Single(s => s.Id == "headline-path").Plot.Plots[0].GetPlottables<ScottPlot.Plottables.Scatter>().Single();
+        var headline = specs.Single(s => s.Id == "headline-path").Plot.Plots[0]
+            .GetPlottables<ScottPlot.Plottables.Scatter>()
+            .Single();
         Assert.Equal(seen[solved.Analysis.HeadlineOptionId], headline.Color);
     }
 
@@ -69,12 +82,18 @@ public class ChartConsistencyTests
             foreach (var plot in spec.Plot.Plots)
             {
                 var area = plot.RenderManager.LastRender.DataRect;
-                foreach (var (axis, length) in new (IAxis, float)[] { (plot.Axes.Bottom, area.Width), (plot.Axes.Left, area.Height) })
+                foreach (var (axis, length) in new (IAxis, float)[] {
+                    (plot.Axes.Bottom, area.Width),
+                    (plot.Axes.Left, area.Height) })
                 {
                     if (axis.Label.Text.Length == 0) continue;
-                    using var font = new SKFont(Fonts.GetTypeface(ChartFont.Current, axis.Label.Bold, false), axis.Label.FontSize);
+                    using var font = new SKFont(
+                        Fonts.GetTypeface(ChartFont.Current, axis.Label.Bold, false),
+                        axis.Label.FontSize);
                     float width = font.MeasureText(axis.Label.Text);
-                    Assert.True(width <= length, $"{spec.Id}: '{axis.Label.Text}' is {width:0} pt long on an axis of {length:0} pt");
+                    Assert.True(
+                        width <= length,
+                        $"{spec.Id}: '{axis.Label.Text}' is {width:0} pt long on an axis of {length:0} pt");
                 }
             }
     }
@@ -93,9 +112,14 @@ public class ChartConsistencyTests
         var solved = ScenarioSolver.Solve(Demo.Load("auroria-national"));
         var colours = new[] { "#112233", "#445566", "#778899", "#AA5500" };
         var specs = BriefBuilder.ChartSpecs(solved, chartColours: colours);
-        var headline = specs.Single(s => s.Id == "headline-path").Plot.Plots[0].GetPlottables<ScottPlot.Plottables.Scatter>().Single();
+        var headline = specs.Single(s => s.Id == "headline-path").Plot.Plots[0]
+            .GetPlottables<ScottPlot.Plottables.Scatter>()
+            .Single();
         Assert.Equal(Color.FromHex("#112233"), headline.Color);
-        var markers = specs.Single(s => s.Id == "output-curve").Plot.Plots[0].GetPlottables<ScottPlot.Plottables.Marker>().Select(m => m.Color).ToHashSet();
+        var markers = specs.Single(s => s.Id == "output-curve").Plot.Plots[0]
+            .GetPlottables<ScottPlot.Plottables.Marker>()
+            .Select(m => m.Color)
+            .ToHashSet();
         Assert.Equal(colours.Select(Color.FromHex).ToHashSet(), markers);
     }
 }

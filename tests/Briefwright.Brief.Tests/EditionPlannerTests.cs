@@ -10,9 +10,14 @@ namespace Briefwright.Brief.Tests;
 public class EditionPlannerTests
 {
     private const string Old = "old-fingerprint", New = "new-fingerprint";
-    private static readonly string[] Files = ["b-2026-11-30.results.json", "b-2026-11-30.pdf", "b-2026-11-30.options.csv"];
+    private static readonly string[] Files
+        = ["b-2026-11-30.results.json", "b-2026-11-30.pdf", "b-2026-11-30.options.csv"];
 
-    private static CurrentEdition Valid(int edition = 3, string[]? missing = null, string[]? changed = null, int archived = 2) =>
+    private static CurrentEdition Valid(
+        int edition = 3,
+        string[]? missing = null,
+        string[]? changed = null,
+        int archived = 2) =>
         new(ManifestCondition.Valid, edition, Old, "b-2026-11-30", Files, missing ?? [], changed ?? [], archived);
 
     public class Given_a_valid_manifest
@@ -27,7 +32,8 @@ public class EditionPlannerTests
         [Fact]
         public void Forced_rebuild_of_unchanged_inputs_keeps_the_edition_and_archives_nothing()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(Old, 1, Force: true), Valid()));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(Old, 1, Force: true), Valid()));
             Assert.Equal(3, plan.Edition);
             Assert.False(plan.NewEdition);
             Assert.Null(plan.Archive);
@@ -36,7 +42,8 @@ public class EditionPlannerTests
         [Fact]
         public void Changed_inputs_start_edition_n_plus_1_and_keep_edition_n_verified_first()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(New, 1, false), Valid()));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(New, 1, false), Valid()));
             Assert.Equal(4, plan.Edition);
             Assert.True(plan.NewEdition);
             Assert.Equal("edition-3", plan.Archive!.Folder);
@@ -50,21 +57,25 @@ public class EditionPlannerTests
         [Fact]
         public void The_scenario_may_ask_for_a_higher_edition_but_never_a_lower_one()
         {
-            Assert.Equal(7, Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(New, 7, false), Valid())).Edition);
-            Assert.Equal(4, Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(New, 2, false), Valid())).Edition);
+            Assert.Equal(7, Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(New, 7, false), Valid())).Edition);
+            Assert.Equal(4, Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(New, 2, false), Valid())).Edition);
         }
 
         [Fact]
         public void A_new_edition_number_is_above_every_archived_one_so_no_archive_folder_is_reused()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(New, 1, false), Valid(edition: 3, archived: 5)));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(New, 1, false), Valid(edition: 3, archived: 5)));
             Assert.Equal(6, plan.Edition);
         }
 
         [Fact]
         public void A_missing_file_with_changed_inputs_keeps_the_rest_as_found_marked_recovered()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(New, 1, false), Valid(missing: ["b-2026-11-30.options.csv"])));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(New, 1, false), Valid(missing: ["b-2026-11-30.options.csv"])));
             Assert.Equal(4, plan.Edition);
             var archive = plan.Archive!;
             Assert.True(archive.Recovered);
@@ -76,7 +87,8 @@ public class EditionPlannerTests
         [Fact]
         public void A_missing_file_with_unchanged_inputs_is_rebuilt_in_place_when_the_others_match()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(Old, 1, false), Valid(missing: ["b-2026-11-30.pdf"])));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(Old, 1, false), Valid(missing: ["b-2026-11-30.pdf"])));
             Assert.Equal(3, plan.Edition);
             Assert.Null(plan.Archive); // the rebuild writes the very bytes the manifest recorded
         }
@@ -84,7 +96,8 @@ public class EditionPlannerTests
         [Fact]
         public void An_edited_file_is_kept_as_found_even_when_the_inputs_are_unchanged()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(Old, 1, false), Valid(changed: ["b-2026-11-30.pdf"])));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(Old, 1, false), Valid(changed: ["b-2026-11-30.pdf"])));
             Assert.Equal(3, plan.Edition);
             Assert.True(plan.Archive!.Recovered);
             Assert.Contains("not as the manifest recorded it: b-2026-11-30.pdf", plan.Archive.Reasons);
@@ -93,7 +106,8 @@ public class EditionPlannerTests
         [Fact]
         public void A_changed_results_file_is_not_compared_with()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(New, 1, false), Valid(changed: ["b-2026-11-30.results.json"])));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(New, 1, false), Valid(changed: ["b-2026-11-30.results.json"])));
             Assert.Null(plan.CompareWith);
         }
     }
@@ -103,7 +117,8 @@ public class EditionPlannerTests
         [Fact]
         public void An_empty_folder_builds_the_edition_the_scenario_names()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(New, 1, false), CurrentEdition.None()));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(New, 1, false), CurrentEdition.None()));
             Assert.Equal(new EditionPlan.Build(1, false, null, null), plan with { Changed = [] });
             Assert.Equal(["new"], plan.Changed);
         }
@@ -111,7 +126,8 @@ public class EditionPlannerTests
         [Fact]
         public void Current_files_deleted_but_an_archive_kept_continue_after_the_archived_editions()
         {
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(New, 1, false), CurrentEdition.None(highestArchived: 4)));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(New, 1, false), CurrentEdition.None(highestArchived: 4)));
             Assert.Equal(5, plan.Edition);
             Assert.Null(plan.Archive);
         }
@@ -122,7 +138,8 @@ public class EditionPlannerTests
             var found = new CurrentEdition(ManifestCondition.Damaged, 3, null, null, Files, [], [], 2);
             foreach (var fingerprint in new[] { Old, New })
             {
-                var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(fingerprint, 1, false), found));
+                var plan = Assert.IsType<EditionPlan.Build>(
+                    EditionPlanner.Plan(new EditionRequest(fingerprint, 1, false), found));
                 Assert.Equal(4, plan.Edition);
                 Assert.Equal("edition-3-recovered", plan.Archive!.Folder);
                 Assert.True(plan.Archive.Recovered);
@@ -146,15 +163,17 @@ public class EditionPlannerTests
         public void Force_never_skips_the_archive_of_found_files()
         {
             var found = new CurrentEdition(ManifestCondition.Damaged, null, null, null, Files, [], [], 0);
-            var plan = Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(new EditionRequest(Old, 1, Force: true), found));
+            var plan = Assert.IsType<EditionPlan.Build>(
+                EditionPlanner.Plan(new EditionRequest(Old, 1, Force: true), found));
             Assert.NotNull(plan.Archive);
         }
     }
 
     /// <summary>
-    /// The edition rule, on named inputs (the manifest's <c>inputs</c> and <c>outputs</c>). The rule is the project's own
-    /// (README, "Rebuilds, editions and the data annex"); that a reprint under a new date keeps its edition number and that
-    /// a new edition gets a name of its own is common practice for numbered documents, not taken from a source.
+    /// The edition rule, on named inputs (the manifest's <c>inputs</c> and <c>outputs</c>). The rule is the project's
+    /// own (README, "Rebuilds, editions and the data annex"); that a reprint under a new date keeps its edition number
+    /// and that a new edition gets a name of its own is common practice for numbered documents, not taken from a
+    /// source.
     /// </summary>
     public class Given_named_inputs
     {
@@ -164,21 +183,47 @@ public class EditionPlannerTests
             ["fonts"] = "fonts-1", ["tool"] = "0.2.0", ["date"] = "2026-11-30",
         };
 
-        private static readonly Dictionary<string, string> Outputs = new() { ["chart_copies"] = "yes", ["csv_byte_order_mark"] = "no" };
+        private static readonly Dictionary<string, string> Outputs = new() {
+            ["chart_copies"] = "yes",
+            ["csv_byte_order_mark"] = "no" };
 
-        private static string Fingerprint(IReadOnlyDictionary<string, string> inputs, IReadOnlyDictionary<string, string> outputs) =>
-            string.Join(";", inputs.OrderBy(kv => kv.Key).Concat(outputs.OrderBy(kv => kv.Key)).Select(kv => kv.Key + "=" + kv.Value));
+        private static string Fingerprint(
+            IReadOnlyDictionary<string, string> inputs,
+            IReadOnlyDictionary<string, string> outputs) =>
+            string.Join(
+                ";",
+                inputs.OrderBy(kv => kv.Key)
+                    .Concat(outputs.OrderBy(kv => kv.Key))
+                    .Select(kv => kv.Key + "=" + kv.Value));
 
-        private static CurrentEdition Current(int edition = 3, int archived = 2, int? requested = 1, string[]? missing = null) =>
-            new(ManifestCondition.Valid, edition, Fingerprint(Inputs, Outputs), "b-2026-11-30-edition-3", Files3, missing ?? [], [], archived)
+        private static CurrentEdition Current(
+            int edition = 3,
+            int archived = 2,
+            int? requested = 1,
+            string[]? missing = null) =>
+            new(
+                ManifestCondition.Valid,
+                edition,
+                Fingerprint(Inputs, Outputs),
+                "b-2026-11-30-edition-3",
+                Files3,
+                missing ?? [],
+                [],
+                archived)
             {
                 Inputs = Inputs, Outputs = Outputs, RequestedEdition = requested,
             };
 
         private static readonly string[] Files3 = ["b-2026-11-30-edition-3.results.json", "b-2026-11-30-edition-3.pdf"];
 
-        /// <summary>A request with some inputs or outputs changed from <see cref="Inputs"/> and <see cref="Outputs"/>.</summary>
-        private static EditionRequest Ask(int requested = 1, bool force = false, Dictionary<string, string>? inputs = null, Dictionary<string, string>? outputs = null)
+        /// <summary>
+        /// A request with some inputs or outputs changed from <see cref="Inputs"/> and <see cref="Outputs"/>.
+        /// </summary>
+        private static EditionRequest Ask(
+            int requested = 1,
+            bool force = false,
+            Dictionary<string, string>? inputs = null,
+            Dictionary<string, string>? outputs = null)
         {
             var i = new Dictionary<string, string>(Inputs);
             foreach (var (k, v) in inputs ?? []) i[k] = v;
@@ -191,14 +236,17 @@ public class EditionPlannerTests
             Assert.IsType<EditionPlan.Build>(EditionPlanner.Plan(request, current ?? Current()));
 
         [Fact]
-        public void Nothing_changed_is_skipped() => Assert.Equal(new EditionPlan.Skip(3), EditionPlanner.Plan(Ask(), Current()));
+        public void Nothing_changed_is_skipped()
+            => Assert.Equal(new EditionPlan.Skip(3), EditionPlanner.Plan(Ask(), Current()));
 
         [Theory]
         [InlineData("content")]
         [InlineData("template")]
         public void An_assumption_or_the_template_starts_a_new_edition_and_keeps_the_current_one_verified(string input)
         {
-            var plan = Build(Ask(inputs: input == "content" ? new() { [input] = "changed", ["scenario"] = "text-2" } : new() { [input] = "changed" }));
+            var plan = Build(Ask(inputs: input == "content"
+                ? new() { [input] = "changed", ["scenario"] = "text-2" }
+                : new() { [input] = "changed" }));
             Assert.Equal(4, plan.Edition);
             Assert.True(plan.NewEdition);
             Assert.False(plan.Redated);
@@ -261,9 +309,15 @@ public class EditionPlannerTests
             var plan = Build(Ask(outputs: new() { ["chart_copies"] = "no" }));
             var hashes = Files3.ToDictionary(f => f, f => "hash-of-" + f);
             // Every current file comes back byte for byte (a file only added): no copy.
-            Assert.Null(EditionPlanner.KeepReplaced(plan, Current(), hashes, hashes.Append(new("b.fig-x.svg", "s")).ToDictionary()).Archive);
+            Assert.Null(EditionPlanner.KeepReplaced(
+                plan,
+                Current(),
+                hashes,
+                hashes.Append(new("b.fig-x.svg", "s")).ToDictionary()).Archive);
             // One dropped, or one changed: the whole edition is kept first, verified.
-            Assert.Equal("edition-3", EditionPlanner.KeepReplaced(plan, Current(), hashes, hashes.Skip(1).ToDictionary()).Archive!.Folder);
+            Assert.Equal(
+                "edition-3",
+                EditionPlanner.KeepReplaced(plan, Current(), hashes, hashes.Skip(1).ToDictionary()).Archive!.Folder);
             var changed = hashes.ToDictionary(kv => kv.Key, kv => kv.Value + "-with-a-byte-order-mark");
             Assert.False(EditionPlanner.KeepReplaced(plan, Current(), hashes, changed).Archive!.Recovered);
             // No hashes recorded: nothing can be shown to come back.
@@ -294,7 +348,9 @@ public class EditionPlannerTests
         [Fact]
         public void A_new_tool_without_the_current_results_to_compare_with_is_a_new_edition()
         {
-            var plan = Build(Ask(inputs: new() { ["tool"] = "0.3.0" }), Current(missing: ["b-2026-11-30-edition-3.results.json"]));
+            var plan = Build(
+                Ask(inputs: new() { ["tool"] = "0.3.0" }),
+                Current(missing: ["b-2026-11-30-edition-3.results.json"]));
             Assert.True(plan.NewEdition);
             Assert.True(plan.Archive!.Recovered);
         }
@@ -334,7 +390,9 @@ public class EditionPlannerTests
         [Fact]
         public void Brief_edition_written_below_an_edition_already_issued_is_refused()
         {
-            Assert.Equal(new EditionPlan.Refuse(2, 3), EditionPlanner.Plan(Ask(requested: 2, inputs: new() { ["scenario"] = "text-2" }), Current()));
+            Assert.Equal(
+                new EditionPlan.Refuse(2, 3),
+                EditionPlanner.Plan(Ask(requested: 2, inputs: new() { ["scenario"] = "text-2" }), Current()));
             Assert.Equal(new EditionPlan.Refuse(2, 6), EditionPlanner.Plan(Ask(requested: 2), Current(archived: 6)));
         }
 
@@ -343,7 +401,9 @@ public class EditionPlannerTests
         {
             // edition 2 was asked for and built; editions 3 followed from changes; the scenario still says 2
             Assert.Equal(new EditionPlan.Skip(3), EditionPlanner.Plan(Ask(requested: 2), Current(requested: 2)));
-            Assert.Equal(4, Build(Ask(requested: 2, inputs: new() { ["content"] = "content-2" }), Current(requested: 2)).Edition);
+            Assert.Equal(
+                4,
+                Build(Ask(requested: 2, inputs: new() { ["content"] = "content-2" }), Current(requested: 2)).Edition);
             // equal to the current edition: nothing asked beyond what is issued
             Assert.IsType<EditionPlan.Skip>(EditionPlanner.Plan(Ask(requested: 3), Current()));
         }
@@ -366,8 +426,10 @@ public class EditionPlannerTests
             var day = new DateOnly(2026, 11, 30);
             Assert.Equal("b-2026-11-30", BriefBuilder.FileStem("b", day, 1));
             Assert.Equal("b-2026-11-30-edition-2", BriefBuilder.FileStem("b", day, 2));
-            // Any two editions differ in name, whatever their dates; a re-dated edition differs from its earlier copy by date.
-            var names = new[] { (day, 1), (day, 2), (day.AddDays(31), 2), (day.AddDays(31), 3) }.Select(e => BriefBuilder.FileStem("b", e.Item1, e.Item2)).ToList();
+            // Any two editions differ in name, whatever their dates; a re-dated edition differs from its earlier copy
+            // by date.
+            var names = new[] { (day, 1), (day, 2), (day.AddDays(31), 2), (day.AddDays(31), 3) }.Select(
+                e => BriefBuilder.FileStem("b", e.Item1, e.Item2)).ToList();
             Assert.Equal(names.Count, names.Distinct().Count());
         }
     }

@@ -13,7 +13,8 @@ namespace Briefwright.Brief.Tests;
 /// </summary>
 public class LanguageTests
 {
-    private static readonly Lazy<SolvedScenario> National = new(() => ScenarioSolver.Solve(Demo.Load("auroria-national")));
+    private static readonly Lazy<SolvedScenario> National = new(
+        () => ScenarioSolver.Solve(Demo.Load("auroria-national")));
     private static readonly Dictionary<string, BuiltBrief> Built = new();
 
     private static BuiltBrief BuildIn(string tag)
@@ -35,7 +36,8 @@ public class LanguageTests
         File.WriteAllBytes(path, pdf);
         try
         {
-            var psi = new System.Diagnostics.ProcessStartInfo("pdftotext", $"-enc UTF-8 \"{path}\" \"{txt}\"") { RedirectStandardError = true };
+            var psi = new System.Diagnostics.ProcessStartInfo("pdftotext", $"-enc UTF-8 \"{path}\" \"{txt}\"") {
+                RedirectStandardError = true };
             using var p = System.Diagnostics.Process.Start(psi)!;
             p.WaitForExit();
             Assert.Equal(0, p.ExitCode);
@@ -49,12 +51,42 @@ public class LanguageTests
     }
 
     [Theory]
-    //           tag      date                       page label        words the tool writes                                   decimal   percent
-    [InlineData("en-GB", "30 November 2026", "Page 1 of", new[] { "Key findings", "Caveats", "Technical annex", "Figure 1.", "Table 1.", "Source:" }, "100.0", "%")]
-    [InlineData("fr-FR", "30 novembre 2026", "Page 1 sur", new[] { "Principaux résultats", "Mises en garde", "Annexe technique", "Figure 1.", "Tableau 1.", "Source :" }, "100,0", " %")]
-    [InlineData("es-ES", "30 de noviembre de 2026", "Página 1 de", new[] { "Conclusiones principales", "Advertencias", "Anexo técnico", "Figura 1.", "Tabla 1.", "Fuente:" }, "100,0", " %")]
-    [InlineData("de-DE", "30. November 2026", "Seite 1 von", new[] { "Wichtigste Ergebnisse", "Vorbehalte", "Technischer Anhang", "Abbildung 1.", "Tabelle 1.", "Quelle:" }, "100,0", " %")]
-    public void Brief_follows_its_language(string tag, string date, string pageLabel, string[] words, string baselineIndex, string percent)
+    // Each case: the language tag, the date, the page label, words the tool writes, the decimal sign, the percent.
+    [InlineData(
+        "en-GB",
+        "30 November 2026",
+        "Page 1 of",
+        new[] { "Key findings", "Caveats", "Technical annex", "Figure 1.", "Table 1.", "Source:" },
+        "100.0",
+        "%")]
+    [InlineData(
+        "fr-FR",
+        "30 novembre 2026",
+        "Page 1 sur",
+        new[] { "Principaux résultats", "Mises en garde", "Annexe technique", "Figure 1.", "Tableau 1.", "Source :" },
+        "100,0",
+        " %")]
+    [InlineData(
+        "es-ES",
+        "30 de noviembre de 2026",
+        "Página 1 de",
+        new[] { "Conclusiones principales", "Advertencias", "Anexo técnico", "Figura 1.", "Tabla 1.", "Fuente:" },
+        "100,0",
+        " %")]
+    [InlineData(
+        "de-DE",
+        "30. November 2026",
+        "Seite 1 von",
+        new[] { "Wichtigste Ergebnisse", "Vorbehalte", "Technischer Anhang", "Abbildung 1.", "Tabelle 1.", "Quelle:" },
+        "100,0",
+        " %")]
+    public void Brief_follows_its_language(
+        string tag,
+        string date,
+        string pageLabel,
+        string[] words,
+        string baselineIndex,
+        string percent)
     {
         var brief = BuildIn(tag);
         string text = PdfText(brief.Pdf);
@@ -65,13 +97,22 @@ public class LanguageTests
         // The baseline's index in the results table is 100 to one decimal, written with the language's decimal mark.
         Assert.Contains(baselineIndex, text);
         if (baselineIndex.Contains(',')) Assert.DoesNotContain("100.0", text);
-        // The headline change is +4.1% for the national scenario (DESIGN.md's demo check value), in the language's format.
+        // The headline change is +4.1% for the national scenario (DESIGN.md's demo check value), in the language's
+        // format.
         string change = "+4" + baselineIndex[3] + "1" + percent;
         Assert.Contains(change, text);
         // The PDF's language tag.
         Assert.Contains($"/Lang({tag})", Encoding.Latin1.GetString(brief.Pdf));
         // The cautions every brief carries: the not-a-forecast line is there in every language.
-        Assert.Contains(tag switch { "fr-FR" => "pas des prévisions", "es-ES" => "no previsiones", "de-DE" => "keine Prognosen", _ => "not forecasts" }, text);
+        Assert.Contains(
+            tag switch
+            {
+                "fr-FR" => "pas des prévisions",
+                "es-ES" => "no previsiones",
+                "de-DE" => "keine Prognosen",
+                _ => "not forecasts",
+            },
+            text);
     }
 
     [Theory]
@@ -103,7 +144,9 @@ public class LanguageTests
                 Assert.True(language.Texts.ContainsKey(key), $"{code}: {key} is missing");
                 for (int i = 0; i < 8; i++)
                     if (text.Text.Contains("{" + i + "}"))
-                        Assert.True(language.Texts[key].Text.Contains("{" + i + "}"), $"{code}: {key} does not use {{{i}}}");
+                        Assert.True(
+                            language.Texts[key].Text.Contains("{" + i + "}"),
+                            $"{code}: {key} does not use {{{i}}}");
             }
     }
 
@@ -112,7 +155,9 @@ public class LanguageTests
     {
         string dir = Path.Combine(Path.GetTempPath(), $"bw-lang-{Guid.NewGuid():N}");
         Directory.CreateDirectory(dir);
-        File.Copy(Path.Combine(Demo.Root, "briefs-demo", "auroria-national.yaml"), Path.Combine(dir, "auroria-national.yaml"));
+        File.Copy(
+            Path.Combine(Demo.Root, "briefs-demo", "auroria-national.yaml"),
+            Path.Combine(dir, "auroria-national.yaml"));
         string path = Path.Combine(dir, "test.yaml");
         File.WriteAllText(path, "# INVENTED SCENARIO for a test.\nextends: auroria-national.yaml\n" + yaml);
         return path;
@@ -180,7 +225,8 @@ public class LanguageTests
             """);
         var result = Load(path);
         Assert.True(result.Ok, string.Join("\n", result.Problems));
-        var ex = Assert.Throws<BriefTextException>(() => BriefBuilder.Build(result.Document!, StandardTemplate.Template));
+        var ex = Assert.Throws<BriefTextException>(
+            () => BriefBuilder.Build(result.Document!, StandardTemplate.Template));
         string message = Assert.Single(ex.Errors);
         Assert.StartsWith($"{path}:6:", message);
         Assert.Contains("options[0].label", message);

@@ -22,7 +22,9 @@ public class ResultsGuardTests
         var first = reform.Options[0];
         var gain = (double[])first.Path.Gain.Clone();
         gain[10] = double.PositiveInfinity;
-        var broken = solved.Analysis with { Reform = reform with { Options = reform.Options.Skip(1).Prepend(first with { Path = first.Path with { Gain = gain } }).ToList() } };
+        var broken = solved.Analysis with { Reform = reform with { Options = reform.Options.Skip(1)
+            .Prepend(first with { Path = first.Path with { Gain = gain } })
+            .ToList() } };
         Assert.Throws<NonFiniteResultException>(() => ResultsGuard.EnsureFinite(broken));
     }
 }

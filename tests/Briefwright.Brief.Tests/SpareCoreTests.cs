@@ -23,8 +23,14 @@ public class SpareCoreTests
         // cores while the charts and the PDF are laid out; a batch building several briefs at once uses one thread
         // per brief. Both must give the same files, byte for byte.
         var solved = ScenarioSolver.Solve(Demo.Load("auroria-national"));
-        var one = BriefBuilder.Compose(solved, StandardTemplate.Template, BuildOptions.Default with { ChartImages = true, ModelThreads = 1 });
-        var many = BriefBuilder.Compose(solved, StandardTemplate.Template, BuildOptions.Default with { ChartImages = true, Runner = new Spare() });
+        var one = BriefBuilder.Compose(
+            solved,
+            StandardTemplate.Template,
+            BuildOptions.Default with { ChartImages = true, ModelThreads = 1 });
+        var many = BriefBuilder.Compose(
+            solved,
+            StandardTemplate.Template,
+            BuildOptions.Default with { ChartImages = true, Runner = new Spare() });
         Assert.True(Spare.Started >= 2, "the pieces ran on the spare runner");
         Assert.Equal(one.Pdf, many.Pdf);
         Assert.Equal(one.ResultsJson, many.ResultsJson);
@@ -32,6 +38,8 @@ public class SpareCoreTests
         Assert.Equal(one.Annex.Select(a => a.Suffix), many.Annex.Select(a => a.Suffix));
         Assert.Contains(many.Annex, a => a.Suffix.EndsWith(".png", StringComparison.Ordinal));
         Assert.Contains(many.Annex, a => a.Suffix.EndsWith(".svg", StringComparison.Ordinal));
-        foreach (var (a, b) in one.Annex.Zip(many.Annex)) Assert.True(a.Bytes.AsSpan().SequenceEqual(b.Bytes), a.Suffix);
+        foreach (var (a, b) in one.Annex.Zip(many.Annex)) Assert.True(
+            a.Bytes.AsSpan().SequenceEqual(b.Bytes),
+            a.Suffix);
     }
 }

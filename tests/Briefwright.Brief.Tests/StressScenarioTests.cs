@@ -17,7 +17,8 @@ public class StressScenarioTests
     public static TheoryData<string> Scenarios()
     {
         var data = new TheoryData<string>();
-        foreach (var f in Directory.GetFiles(Path.Combine(Demo.Root, "tests", "stress"), "*.yaml").Order()) data.Add(Path.GetFileNameWithoutExtension(f));
+        foreach (var f in Directory.GetFiles(Path.Combine(Demo.Root, "tests", "stress"), "*.yaml").Order()) data.Add(
+            Path.GetFileNameWithoutExtension(f));
         return data;
     }
 
@@ -30,9 +31,11 @@ public class StressScenarioTests
         {
             if (!Cache.TryGetValue(name, out built))
             {
-                var result = new ScenarioLoader(new Demo.DiskReader()).Load(Path.Combine(Demo.Root, "tests", "stress", name + ".yaml"));
+                var result = new ScenarioLoader(new Demo.DiskReader()).Load(
+                    Path.Combine(Demo.Root, "tests", "stress", name + ".yaml"));
                 Assert.True(result.Ok, string.Join("\n", result.Problems));
-                Cache[name] = built = (BriefBuilder.Build(result.Document!, StandardTemplate.Template), result.Document!);
+                Cache[name] = built =
+                    (BriefBuilder.Build(result.Document!, StandardTemplate.Template), result.Document!);
             }
         }
         using var pdf = PdfDocument.Open(built.Item1.Pdf);
@@ -52,8 +55,10 @@ public class StressScenarioTests
     public void There_is_a_stress_scenario_for_every_branch_the_issue_names() =>
         Assert.True(Directory.GetFiles(Path.Combine(Demo.Root, "tests", "stress"), "*.yaml").Length >= 12);
 
-    private static readonly Regex Rising = new(@"\b(raise|raises|rise|rises|increase|increases|higher|above)\b[^.;:()]{0,50}?(−\d[\d.,]*%)");
-    private static readonly Regex Falling = new(@"\b(lower|lowers|fall|falls|decrease|decreases|below|dip)\b[^.;:()]{0,50}?(\+\d[\d.,]*%)");
+    private static readonly Regex Rising = new(
+        @"\b(raise|raises|rise|rises|increase|increases|higher|above)\b[^.;:()]{0,50}?(−\d[\d.,]*%)");
+    private static readonly Regex Falling = new(
+        @"\b(lower|lowers|fall|falls|decrease|decreases|below|dip)\b[^.;:()]{0,50}?(\+\d[\d.,]*%)");
 
     [Theory]
     [MemberData(nameof(Scenarios))]
@@ -65,11 +70,15 @@ public class StressScenarioTests
         Assert.DoesNotMatch(Falling, text);
         // Each option's sentence on page 1 uses the verb its own change calls for.
         string page1 = pages[0];
-        foreach (var o in json.GetProperty("options").EnumerateArray().Where(o => !o.GetProperty("is_baseline").GetBoolean()))
+        foreach (var o in json.GetProperty("options").EnumerateArray()
+            .Where(o => !o.GetProperty("is_baseline").GetBoolean()))
         {
             double change = o.GetProperty("change_vs_baseline_pct").GetDouble();
-            string expected = Math.Round(change, 1) > 0 ? "would raise" : Math.Round(change, 1) < 0 ? "would lower" : "would leave";
-            string who = o.GetProperty("id").GetString() == json.GetProperty("headline").GetProperty("option_id").GetString()
+            string expected = Math.Round(change, 1) > 0
+                ? "would raise"
+                : Math.Round(change, 1) < 0 ? "would lower" : "would leave";
+            string who = o.GetProperty("id").GetString() == json.GetProperty("headline").GetProperty("option_id")
+                .GetString()
                 ? Regex.Escape(Squash(Wording(scenario.OptionName(o.GetProperty("id").GetString()!))))
                 : Regex.Escape(Squash(o.GetProperty("label").GetString()!)) + ":";
             var m = Regex.Match(Squash(page1), who + @"would(raise|lower|leave)");
@@ -78,7 +87,9 @@ public class StressScenarioTests
         }
         // The headline direction in the results data agrees with the lead sentence.
         var direction = json.GetProperty("headline").GetProperty("direction").GetString();
-        Assert.Contains(direction switch { "rise" => "wouldraise", "fall" => "wouldlower", _ => "wouldleave" }, Squash(page1));
+        Assert.Contains(
+            direction switch { "rise" => "wouldraise", "fall" => "wouldlower", _ => "wouldleave" },
+            Squash(page1));
     }
 
     private static string Wording(string name) => char.ToUpperInvariant(name[0]) + name[1..];
@@ -97,17 +108,29 @@ public class StressScenarioTests
     public void The_stress_set_reaches_the_corner_the_falling_and_the_several_maxima_branches()
     {
         Assert.True(Build("s02-corner-at-zero").Json.GetProperty("optimum").GetProperty("at_boundary").GetBoolean());
-        Assert.Equal(0, Build("s02-corner-at-zero").Json.GetProperty("optimum").GetProperty("schooling_years").GetDouble());
-        Assert.Equal("fall", Build("s01-falling-output").Json.GetProperty("headline").GetProperty("direction").GetString());
+        Assert.Equal(
+            0,
+            Build("s02-corner-at-zero").Json.GetProperty("optimum").GetProperty("schooling_years").GetDouble());
+        Assert.Equal(
+            "fall",
+            Build("s01-falling-output").Json.GetProperty("headline").GetProperty("direction").GetString());
         Assert.Equal("none", Build("s13-no-change").Json.GetProperty("headline").GetProperty("direction").GetString());
-        Assert.True(Build("s10-several-maxima").Json.GetProperty("optimum").GetProperty("local_maxima").GetArrayLength() > 1);
-        Assert.Contains(Build("s08-combined-option").Json.GetProperty("lever_decomposition").EnumerateArray(), l => l.GetProperty("is_combined").GetBoolean());
-        Assert.Equal(JsonValueKind.Null, Build("s07-never-pays-back").Json.GetProperty("headline").GetProperty("break_even_calendar_year").ValueKind);
-        // At the longest feasible schooling nobody works, so output per person is zero there: the optimum can come close
-        // to that edge (s03) but never sit on it.
+        Assert.True(
+            Build("s10-several-maxima").Json.GetProperty("optimum").GetProperty("local_maxima").GetArrayLength() > 1);
+        Assert.Contains(
+            Build("s08-combined-option").Json.GetProperty("lever_decomposition").EnumerateArray(),
+            l => l.GetProperty("is_combined").GetBoolean());
+        Assert.Equal(
+            JsonValueKind.Null,
+            Build("s07-never-pays-back").Json.GetProperty("headline").GetProperty("break_even_calendar_year")
+                .ValueKind);
+        // At the longest feasible schooling nobody works, so output per person is zero there: the optimum can come
+        // close to that edge (s03) but never sit on it.
         var near = Build("s03-optimum-near-maximum").Json.GetProperty("optimum");
         Assert.False(near.GetProperty("at_boundary").GetBoolean());
-        Assert.True(near.GetProperty("feasible_max_schooling").GetDouble() - near.GetProperty("schooling_years").GetDouble() < 2);
+        Assert.True(
+            near.GetProperty("feasible_max_schooling").GetDouble()
+            - near.GetProperty("schooling_years").GetDouble() < 2);
     }
 
     [Theory]
@@ -119,7 +142,9 @@ public class StressScenarioTests
             Assert.Equal(scenario.Brief.Status != "final", page.Contains("DRAFT", StringComparison.Ordinal));
     }
 
-    /// <summary>Numbers the template writes itself ("In 90% of the model runs", "less than 0.05%"), not results.</summary>
+    /// <summary>
+    /// Numbers the template writes itself ("In 90% of the model runs", "less than 0.05%"), not results.
+    /// </summary>
     private static readonly string[] Constants = { "90%", "0.05%" };
 
     [Theory]
@@ -128,11 +153,14 @@ public class StressScenarioTests
     {
         var (_, scenario, json, pages) = Build(name);
         string page1 = pages[0];
-        int start = page1.IndexOf("Key findings", StringComparison.Ordinal), end = page1.IndexOf("Figure 1.", StringComparison.Ordinal);
+        int start = page1.IndexOf("Key findings", StringComparison.Ordinal), end = page1.IndexOf(
+            "Figure 1.",
+            StringComparison.Ordinal);
         Assert.True(start >= 0 && end > start, $"{name}: key findings box or Figure 1 not found on page 1:\n{page1}");
         string box = page1[start..end];
         // Names of options and appraisal rules are the scenario's own words, not results.
-        var names = scenario.Inputs.Options.SelectMany(o => new[] { o.Label, scenario.OptionName(o.Id), Wording(scenario.OptionName(o.Id)) })
+        var names = scenario.Inputs.Options
+            .SelectMany(o => new[] { o.Label, scenario.OptionName(o.Id), Wording(scenario.OptionName(o.Id)) })
             .Concat(scenario.Analysis.Discounts.SelectMany(d => new[] { d.Label, scenario.RuleName(d.Id) }))
             .OrderByDescending(n => n.Length);
         foreach (var n in names) box = box.Replace(n, " ");
@@ -145,12 +173,17 @@ public class StressScenarioTests
             string digits = token.TrimStart('+', '−', '-').TrimEnd('%').Replace(",", "");
             int decimals = digits.Contains('.') ? digits.Length - digits.IndexOf('.') - 1 : 0;
             double shown = double.Parse(digits, CultureInfo.InvariantCulture);
-            Assert.True(facts.Any(f => Math.Abs(Math.Abs(Math.Round(f, decimals, MidpointRounding.AwayFromZero)) - shown) < 1e-9 || Math.Abs(Math.Abs(Math.Round(f, decimals)) - shown) < 1e-9),
+            Assert.True(
+                facts.Any(f =>
+                    Math.Abs(Math.Abs(Math.Round(f, decimals, MidpointRounding.AwayFromZero)) - shown) < 1e-9
+                    || Math.Abs(Math.Abs(Math.Round(f, decimals)) - shown) < 1e-9),
                 $"{name}: '{token}' on page 1 is not a page-1 fact of the results data. Box:\n{box}");
         }
     }
 
-    /// <summary>The results data page 1 may quote: the headline block, each option's change and schooling, and the lever split.</summary>
+    /// <summary>
+    /// The results data page 1 may quote: the headline block, each option's change and schooling, and the lever split.
+    /// </summary>
     private static List<double> PageOneFacts(JsonElement json)
     {
         var facts = new List<double>();
@@ -164,7 +197,8 @@ public class StressScenarioTests
             }
         }
         Collect(json.GetProperty("headline"));
-        if (json.GetProperty("headline").GetProperty("probability_gain") is { ValueKind: JsonValueKind.Number } p) facts.Add(100 * p.GetDouble());
+        if (json.GetProperty("headline").GetProperty("probability_gain") is { ValueKind: JsonValueKind.Number } p)
+            facts.Add(100 * p.GetDouble());
         Collect(json.GetProperty("lever_decomposition"));
         foreach (var o in json.GetProperty("options").EnumerateArray())
         {

@@ -4,13 +4,17 @@ using SkiaSharp;
 
 namespace Briefwright.Charts.Tests;
 
-/// <summary>The heat map's cells, read back from the drawn pixels: one per grid value, centred on it, edge cells whole.</summary>
+/// <summary>
+/// The heat map's cells, read back from the drawn pixels: one per grid value, centred on it, edge cells whole.
+/// </summary>
 public class HeatmapTests
 {
     static HeatmapTests()
     {
         string fonts = Path.Combine(RepositoryRoot.Path, "fonts");
-        ChartFont.Install(File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Regular.ttf")), File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Bold.ttf")));
+        ChartFont.Install(
+            File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Regular.ttf")),
+            File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Bold.ttf")));
     }
 
     /// <summary>A checkerboard, so any two neighbouring cells differ in colour.</summary>
@@ -18,7 +22,8 @@ public class HeatmapTests
     {
         double[] xs = Enumerable.Range(0, nx).Select(i => 0.01 + 0.005 * i).ToArray();
         double[] ys = Enumerable.Range(0, ny).Select(j => 10.0 + 2 * j).ToArray();
-        var values = Enumerable.Range(0, nx).Select(i => Enumerable.Range(0, ny).Select(j => (double?)((i + j) % 2 == 0 ? 1.0 : 5.0)).ToArray()).ToArray();
+        var values = Enumerable.Range(0, nx).Select(
+            i => Enumerable.Range(0, ny).Select(j => (double?)((i + j) % 2 == 0 ? 1.0 : 5.0)).ToArray()).ToArray();
         return new GridResult(new GridSpec("x", xs[0], xs[^1], "y", ys[0], ys[^1], nx, "optimum"), xs, ys, values, 0);
     }
 
@@ -52,10 +57,20 @@ public class HeatmapTests
                 double x = grid.X[i] * 100, y = grid.Y[j];
                 var centre = At(x, y);
                 // The whole cell, edge cells included, has the centre's colour (0.4 of a step each way)...
-                foreach (var (ox, oy) in new[] { (-0.4, 0.0), (0.4, 0.0), (0.0, -0.4), (0.0, 0.4), (-0.4, -0.4), (0.4, 0.4) })
-                    Assert.True(At(x + ox * dx, y + oy * dy) == centre, $"cell ({i}, {j}) is not whole or not centred at offset ({ox}, {oy})");
+                foreach (var (ox, oy) in new[] {
+                    (-0.4, 0.0),
+                    (0.4, 0.0),
+                    (0.0, -0.4),
+                    (0.0, 0.4),
+                    (-0.4, -0.4),
+                    (0.4, 0.4) })
+                    Assert.True(
+                        At(x + ox * dx, y + oy * dy) == centre,
+                        $"cell ({i}, {j}) is not whole or not centred at offset ({ox}, {oy})");
                 // ...and the neighbour's colour starts past the half step.
-                if (i + 1 < nx) Assert.True(At(x + 0.6 * dx, y) != centre, $"cell ({i}, {j}) runs into its right neighbour");
+                if (i + 1 < nx) Assert.True(
+                    At(x + 0.6 * dx, y) != centre,
+                    $"cell ({i}, {j}) runs into its right neighbour");
                 if (j + 1 < ny) Assert.True(At(x, y + 0.6 * dy) != centre, $"cell ({i}, {j}) runs into the cell above");
             }
     }

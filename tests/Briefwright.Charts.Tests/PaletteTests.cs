@@ -31,7 +31,9 @@ public class PaletteTests
     /// </summary>
     private const double MinDeltaE = 20;
 
-    /// <summary>Minimum difference in CIELAB lightness L* between any two options, the only thing left in greyscale.</summary>
+    /// <summary>
+    /// Minimum difference in CIELAB lightness L* between any two options, the only thing left in greyscale.
+    /// </summary>
     private const double MinGreyDelta = 8;
 
     // sRGB transfer function and D65 matrices: IEC 61966-2-1 (sRGB); CIELAB: CIE 15:2004.
@@ -80,7 +82,9 @@ public class PaletteTests
             for (int j = i + 1; j < colours.Length; j++)
             {
                 double d = DeltaE(View(colours[i], matrix), View(colours[j], matrix));
-                Assert.True(d >= MinDeltaE, $"{view}: options {i + 1} and {j + 1} differ by {d:0.0} (CIE76), below {MinDeltaE}");
+                Assert.True(
+                    d >= MinDeltaE,
+                    $"{view}: options {i + 1} and {j + 1} differ by {d:0.0} (CIE76), below {MinDeltaE}");
             }
     }
 
@@ -92,7 +96,9 @@ public class PaletteTests
             for (int j = i + 1; j < colours.Length; j++)
             {
                 double d = Math.Abs(View(colours[i], null).L - View(colours[j], null).L);
-                Assert.True(d >= MinGreyDelta, $"options {i + 1} and {j + 1} differ by {d:0.0} in lightness, below {MinGreyDelta}");
+                Assert.True(
+                    d >= MinGreyDelta,
+                    $"options {i + 1} and {j + 1} differ by {d:0.0} in lightness, below {MinGreyDelta}");
             }
     }
 

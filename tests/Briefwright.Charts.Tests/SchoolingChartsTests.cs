@@ -17,7 +17,9 @@ public class SchoolingChartsTests
     static SchoolingChartsTests()
     {
         string fonts = Path.Combine(RepositoryRoot.Path, "fonts");
-        ChartFont.Install(File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Regular.ttf")), File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Bold.ttf")));
+        ChartFont.Install(
+            File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Regular.ttf")),
+            File.ReadAllBytes(Path.Combine(fonts, "LiberationSans-Bold.ttf")));
     }
 
     [Fact]
@@ -42,7 +44,9 @@ public class SchoolingChartsTests
         foreach (var plot in chart.Plots)
         {
             var line = Assert.Single(plot.GetPlottables<ScottPlot.Plottables.Scatter>());
-            Assert.True(line.Axes.YAxis is null || ReferenceEquals(line.Axes.YAxis, plot.Axes.Left), "the line is on the left axis");
+            Assert.True(
+                line.Axes.YAxis is null || ReferenceEquals(line.Axes.YAxis, plot.Axes.Left),
+                "the line is on the left axis");
             Assert.Equal("", plot.Axes.Right.Label.Text);
         }
         Assert.Contains("Worker share", chart.Plots[0].Axes.Left.Label.Text);
@@ -78,12 +82,16 @@ public class SchoolingChartsTests
     {
         var a = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()));
         var b = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()));
-        // PNG signature, then the IHDR chunk: width and height as big-endian 32-bit integers (PNG specification, 11.2.2).
+        // PNG signature, then the IHDR chunk: width and height as big-endian 32-bit integers (PNG specification,
+        // 11.2.2).
         Assert.Equal(new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A }, a[..8]);
         Assert.Equal("IHDR", System.Text.Encoding.ASCII.GetString(a, 12, 4));
         Assert.True(ChartRenderer.PngWidth >= 1600);
         Assert.Equal(ChartRenderer.PngWidth, System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(a.AsSpan(16)));
-        Assert.Equal(Math.Ceiling(ChartRenderer.Height * (double)ChartRenderer.PngWidth / ChartRenderer.Width), System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(a.AsSpan(20)), 0);
+        Assert.Equal(
+            Math.Ceiling(ChartRenderer.Height * (double)ChartRenderer.PngWidth / ChartRenderer.Width),
+            System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(a.AsSpan(20)),
+            0);
         Assert.Equal(a, b);
     }
 
@@ -103,7 +111,9 @@ public class SchoolingChartsTests
         // Dashed lines are drawn solid in a stand-in colour for the SVG copy (Skia's SVG backend has no dashes), then
         // given their colour and a stroke-dasharray; the plot must come back with its dashes and colours.
         var plot = SchoolingCharts.OutputCurve(Results());
-        (float[], Color)[] Lines() => plot.GetPlottables().OfType<IHasLine>().Select(p => (p.LineStyle.Pattern.Intervals ?? Array.Empty<float>(), p.LineStyle.Color)).ToArray();
+        (float[], Color)[] Lines() => plot.GetPlottables().OfType<IHasLine>()
+            .Select(p => (p.LineStyle.Pattern.Intervals ?? Array.Empty<float>(), p.LineStyle.Color))
+            .ToArray();
         var before = Lines();
         Assert.Contains(before, i => i.Item1.Length > 0);
         string svg = ChartRenderer.ToSvg(plot);
@@ -111,20 +121,26 @@ public class SchoolingChartsTests
         // The E* line and its legend sample, both dashed, in the line's own colour; no stand-in colour left.
         var optimum = plot.GetPlottables<ScottPlot.Plottables.VerticalLine>().Single();
         string hex = $"#{optimum.Color.R:X2}{optimum.Color.G:X2}{optimum.Color.B:X2}";
-        Assert.True(System.Text.RegularExpressions.Regex.Matches(svg, $"stroke=\"{hex}\" stroke-dasharray=").Count >= 2, svg.Length.ToString());
+        Assert.True(
+            System.Text.RegularExpressions.Regex.Matches(svg, $"stroke=\"{hex}\" stroke-dasharray=").Count >= 2,
+            svg.Length.ToString());
         Assert.DoesNotContain("#FE01", svg);
     }
 
     [Fact]
     public void Copies_carry_the_figure_title_and_source_line()
     {
-        var texts = new ChartRenderer.CopyTexts("Output per person against years of schooling", "briefwright model, scenario test");
+        var texts = new ChartRenderer.CopyTexts(
+            "Output per person against years of schooling",
+            "briefwright model, scenario test");
         string svg = ChartRenderer.ToSvg(SchoolingCharts.OutputCurve(Results()), texts);
         Assert.Contains("Output per person against years of schooling", svg);
         Assert.Contains("Source: briefwright model, scenario test", svg);
         var png = ChartRenderer.ToPng(SchoolingCharts.OutputCurve(Results()), texts);
         int height = System.Buffers.Binary.BinaryPrimitives.ReadInt32BigEndian(png.AsSpan(20));
-        Assert.True(height > ChartRenderer.Height * (double)ChartRenderer.PngWidth / ChartRenderer.Width + 40, $"{height} px leaves no room for title and source");
+        Assert.True(
+            height > ChartRenderer.Height * (double)ChartRenderer.PngWidth / ChartRenderer.Width + 40,
+            $"{height} px leaves no room for title and source");
     }
 
     [Fact]
@@ -134,7 +150,10 @@ public class SchoolingChartsTests
         ChartRenderer.Style(plot, "x", "y");
         plot.Add.Scatter(new double[] { -3, 0, 3 }, new double[] { -2, 0, 2 });
         ChartRenderer.ToPdf(plot);
-        var labels = new IAxis[] { plot.Axes.Bottom, plot.Axes.Left }.SelectMany(a => a.TickGenerator.Ticks).Select(t => t.Label).Where(l => l.Length > 0).ToList();
+        var labels = new IAxis[] { plot.Axes.Bottom, plot.Axes.Left }.SelectMany(a => a.TickGenerator.Ticks)
+            .Select(t => t.Label)
+            .Where(l => l.Length > 0)
+            .ToList();
         Assert.Contains(labels, l => l.StartsWith('\u2212'));
         Assert.DoesNotContain(labels, l => l.Contains('-'));
         Assert.Equal("0", ChartRenderer.Number(-0.0));

@@ -31,8 +31,20 @@ public class BuildCommandTests
         foreach (var id in new[] { "auroria-eastmark", "auroria-national", "auroria-northport", "auroria-silverdale" })
         {
             string stem = id + "-2026-11-30";
-            foreach (var suffix in new[] { ".pdf", ".results.json", ".assumptions.csv", ".options.csv", ".reform-path.csv", ".present-values.csv",
-                         ".sensitivity.csv", ".montecarlo.csv", ".brief.md", ".fig-output-curve.svg", ".fig-output-curve.png", ".fig-reform-path.svg", ".fig-distribution.png" })
+            foreach (var suffix in new[] {
+                ".pdf",
+                ".results.json",
+                ".assumptions.csv",
+                ".options.csv",
+                ".reform-path.csv",
+                ".present-values.csv",
+                ".sensitivity.csv",
+                ".montecarlo.csv",
+                ".brief.md",
+                ".fig-output-curve.svg",
+                ".fig-output-curve.png",
+                ".fig-reform-path.svg",
+                ".fig-distribution.png" })
                 Assert.Contains(stem + suffix, files);
             Assert.Contains(id + ".manifest.json", files);
         }
@@ -50,15 +62,22 @@ public class BuildCommandTests
         Assert.True(second.Code == 0, second.Err);
         Assert.Equal("", first.Out);
         string name = "auroria-northport-2026-11-30";
-        Assert.Equal(File.ReadAllBytes(Path.Combine(a, name + ".pdf")), File.ReadAllBytes(Path.Combine(b, name + ".pdf")));
-        Assert.Equal(File.ReadAllBytes(Path.Combine(a, name + ".results.json")), File.ReadAllBytes(Path.Combine(b, name + ".results.json")));
+        Assert.Equal(
+            File.ReadAllBytes(Path.Combine(a, name + ".pdf")),
+            File.ReadAllBytes(Path.Combine(b, name + ".pdf")));
+        Assert.Equal(
+            File.ReadAllBytes(Path.Combine(a, name + ".results.json")),
+            File.ReadAllBytes(Path.Combine(b, name + ".results.json")));
     }
 
     [Fact]
     public void The_date_option_replaces_the_scenario_date_in_the_file_name()
     {
         string dir = TempDir();
-        int code = CliApp.Run(new[] { "build", CliAppTests.Demo("auroria-national.yaml"), "-o", dir, "--date", "2027-01-15" }, new StringWriter(), new StringWriter());
+        int code = CliApp.Run(
+            new[] { "build", CliAppTests.Demo("auroria-national.yaml"), "-o", dir, "--date", "2027-01-15" },
+            new StringWriter(),
+            new StringWriter());
         Assert.Equal(0, code);
         Assert.True(File.Exists(Path.Combine(dir, "auroria-national-2027-01-15.pdf")));
     }
@@ -71,10 +90,14 @@ public class BuildCommandTests
         File.WriteAllText(template, "# {{ brief.title }}\n\n{{ brief.no_such_field }}\n");
         var error = new StringWriter();
         string outDir = Path.Combine(dir, "out");
-        int code = CliApp.Run(new[] { "build", CliAppTests.Demo("auroria-national.yaml"), "-t", template, "-o", outDir }, new StringWriter(), error);
+        int code = CliApp.Run(
+            new[] { "build", CliAppTests.Demo("auroria-national.yaml"), "-t", template, "-o", outDir },
+            new StringWriter(),
+            error);
         Assert.Equal(2, code);
         Assert.Contains($"{template}:3:", error.ToString());
-        Assert.False(Directory.Exists(outDir) && Directory.EnumerateFiles(outDir).Any(f => !f.EndsWith("build-log.jsonl")));
+        Assert.False(
+            Directory.Exists(outDir) && Directory.EnumerateFiles(outDir).Any(f => !f.EndsWith("build-log.jsonl")));
     }
 
     [Fact]
@@ -84,7 +107,10 @@ public class BuildCommandTests
         string bad = Path.Combine(dir, "bad.yaml");
         File.WriteAllText(bad, "brief: [\n");
         string outDir = Path.Combine(dir, "out");
-        int code = CliApp.Run(new[] { "build", bad, CliAppTests.Demo("auroria-national.yaml"), "-o", outDir, "-q" }, new StringWriter(), new StringWriter());
+        int code = CliApp.Run(
+            new[] { "build", bad, CliAppTests.Demo("auroria-national.yaml"), "-o", outDir, "-q" },
+            new StringWriter(),
+            new StringWriter());
         Assert.Equal(2, code);
         Assert.True(File.Exists(Path.Combine(outDir, "auroria-national-2026-11-30.pdf")));
         Assert.DoesNotContain(Directory.GetFiles(outDir), f => Path.GetFileName(f).StartsWith("bad"));

@@ -4,7 +4,9 @@ using Briefwright.Cli.Project;
 
 namespace Briefwright.Cli.Tests;
 
-/// <summary><c>build --plan</c>: what a build would do and why, from the same planner, writing nothing at all.</summary>
+/// <summary>
+/// <c>build --plan</c>: what a build would do and why, from the same planner, writing nothing at all.
+/// </summary>
 public class BuildPlanTests
 {
     private static (int Code, string Out, string Err) Run(params string[] args) => ReissueTests.Run(args);
@@ -12,7 +14,9 @@ public class BuildPlanTests
     /// <summary>Every file (by SHA-256) and folder under <paramref name="dir"/>, the output folder included.</summary>
     private static SortedDictionary<string, string> Tree(string dir) =>
         new(Directory.GetFileSystemEntries(dir, "*", SearchOption.AllDirectories)
-            .ToDictionary(p => Path.GetRelativePath(dir, p), p => Directory.Exists(p) ? "folder" : EditionFolder.Sha256(p)), StringComparer.Ordinal);
+            .ToDictionary(
+                p => Path.GetRelativePath(dir, p),
+                p => Directory.Exists(p) ? "folder" : EditionFolder.Sha256(p)), StringComparer.Ordinal);
 
     private static (int Code, string Out, string Err) PlanWritingNothing(Workspace w, params string[] args)
     {
@@ -56,7 +60,9 @@ public class BuildPlanTests
         // Chart copies switched on: the same edition, nothing archived.
         var copies = Json(PlanWritingNothing(w, "--json").Out)[0];
         Assert.Equal("rewrite", copies.GetProperty("action").GetString());
-        Assert.Equal(["outputs.chart_copies"], copies.GetProperty("changed").EnumerateArray().Select(e => e.GetString()));
+        Assert.Equal(
+            ["outputs.chart_copies"],
+            copies.GetProperty("changed").EnumerateArray().Select(e => e.GetString()));
         Assert.False(copies.TryGetProperty("archive", out _));
 
         // An assumption changed: new edition 2 under its own name, and the build does exactly that.
@@ -64,12 +70,15 @@ public class BuildPlanTests
         var (code2, text, _) = PlanWritingNothing(w, "--no-chart-images");
         Assert.Equal(0, code2);
         Assert.Contains("auroria-national  new edition        2  auroria-national-2026-11-30-edition-2.pdf", text);
-        Assert.Contains("changed: the scenario's content: a new edition 2 after edition 1; the current files are kept first in archive/auroria-national/edition-1.", text);
+        Assert.Contains("changed: the scenario's content: a new edition 2 after edition 1; the current files are " +
+            "kept first in archive/auroria-national/edition-1.", text);
         var planned = Json(PlanWritingNothing(w, "--no-chart-images", "--json").Out)[0];
         Assert.Equal(["content"], planned.GetProperty("changed").EnumerateArray().Select(e => e.GetString()));
         Assert.Equal(0, w.Build().Code);
         var built = Snapshot.AssertWhole(w.Out);
-        Assert.Equal((planned.GetProperty("edition").GetInt32(), planned.GetProperty("files").GetString()), (built.Edition, built.Stem));
+        Assert.Equal(
+            (planned.GetProperty("edition").GetInt32(), planned.GetProperty("files").GetString()),
+            (built.Edition, built.Stem));
     }
 
     [Fact]
@@ -81,7 +90,9 @@ public class BuildPlanTests
         var m = Snapshot.AssertWhole(w.Out);
         var inputs = m.Inputs.ToDictionary();
         inputs["tool"] = "0.1.0";
-        File.WriteAllBytes(Manifest.PathFor(w.Out, m.Id), (m with { Inputs = inputs, Hash = "fingerprint-of-an-earlier-release" }).ToBytes());
+        File.WriteAllBytes(
+            Manifest.PathFor(w.Out, m.Id),
+            (m with { Inputs = inputs, Hash = "fingerprint-of-an-earlier-release" }).ToBytes());
 
         var plan = Json(PlanWritingNothing(w, "--no-chart-images", "--json").Out)[0];
         Assert.Equal("rewrite", plan.GetProperty("action").GetString());
@@ -104,7 +115,8 @@ public class BuildPlanTests
         Assert.Equal(2, PlanWritingNothing(w, "--jobs", "0").Code);
 
         // An interrupted build's staging folder is left for the next build, and the plan says so.
-        Directory.CreateDirectory(Path.Combine(w.Out, EditionFolder.TempFolderName, "auroria-national.0123456789abcdef", "new"));
+        Directory.CreateDirectory(
+            Path.Combine(w.Out, EditionFolder.TempFolderName, "auroria-national.0123456789abcdef", "new"));
         var (code, output, _) = PlanWritingNothing(w, "--no-chart-images");
         Assert.Equal(0, code);
         Assert.Contains("is running or was interrupted", output);
@@ -113,7 +125,9 @@ public class BuildPlanTests
         w.Edit("auroria-national.yaml", "value: 22%", "value: 122%");
         var (bad, json, err) = PlanWritingNothing(w, "--json");
         Assert.Equal(2, bad);
-        Assert.Contains($"{yaml}:52:12: production.saving_rate.value: must be at least 0.1% and less than 100%. Got '122%'.", err);
+        Assert.Contains(
+            $"{yaml}:52:12: production.saving_rate.value: must be at least 0.1% and less than 100%. Got '122%'.",
+            err);
         var entry = Json(json)[0];
         Assert.Equal("invalid", entry.GetProperty("action").GetString());
         Assert.StartsWith($"{yaml}:52:12:", entry.GetProperty("messages")[0].GetString());
@@ -136,7 +150,9 @@ public class BuildPlanTests
     public void Uses_the_project_settings_as_a_build_would_and_json_is_only_for_plans()
     {
         var w = new Workspace("auroria-national");
-        File.WriteAllText(Path.Combine(w.Dir, ProjectSettings.FileName), "out: briefs\ndate: 2027-03-01\nchart_copies: false\n");
+        File.WriteAllText(
+            Path.Combine(w.Dir, ProjectSettings.FileName),
+            "out: briefs\ndate: 2027-03-01\nchart_copies: false\n");
         var plan = Json(PlanWritingNothing(w, "--json").Out)[0];
         Assert.Equal("auroria-national-2027-03-01", plan.GetProperty("files").GetString());
         Assert.Equal(Path.Combine(w.Dir, "briefs"), plan.GetProperty("out").GetString());

@@ -4,7 +4,9 @@ using Briefwright.Cli.Batch;
 
 namespace Briefwright.Cli.Tests;
 
-/// <summary>Builds run at the same time into one folder, as separate processes (as on machines sharing a folder).</summary>
+/// <summary>
+/// Builds run at the same time into one folder, as separate processes (as on machines sharing a folder).
+/// </summary>
 public class ConcurrentBuildTests
 {
     private static List<(int Code, string Err)> RunAtOnce(IEnumerable<string[]> commands)
@@ -33,13 +35,17 @@ public class ConcurrentBuildTests
         foreach (var id in new[] { "auroria-national", "auroria-silverdale" })
         {
             Assert.Equal(2, Snapshot.AssertWhole(w.Out, id).Edition);
-            Assert.Equal(["edition-1"], Directory.GetDirectories(Path.Combine(w.Out, "archive", id)).Select(Path.GetFileName));
+            Assert.Equal(
+                ["edition-1"],
+                Directory.GetDirectories(Path.Combine(w.Out, "archive", id)).Select(Path.GetFileName));
             var archived = Snapshot.AssertWhole(Path.Combine(w.Out, "archive", id, "edition-1"), id);
             Assert.Equal(1, archived.Edition);
         }
         Assert.Equal(national1, Snapshot.Of(Path.Combine(w.Out, "archive", "auroria-national", "edition-1")));
         var log = Snapshot.Log(w.Out);
-        Assert.Equal(2, log.Count(l => l.GetProperty("status").GetString() == "built" && l.GetProperty("edition").GetInt32() == 2));
+        Assert.Equal(
+            2,
+            log.Count(l => l.GetProperty("status").GetString() == "built" && l.GetProperty("edition").GetInt32() == 2));
     }
 
     [Fact]
@@ -49,7 +55,8 @@ public class ConcurrentBuildTests
         string yaml = Path.Combine(w.Dir, "auroria-national.yaml");
         Assert.Equal(0, Snapshot.Run("build", yaml, "--no-chart-images", "-q").Code);
         var edition1 = Snapshot.Of(w.Out);
-        var results = RunAtOnce(new[] { "2026-12-01", "2026-12-02", "2026-12-03" }.Select(d => new[] { "build", yaml, "--no-chart-images", "-q", "--date", d }));
+        var results = RunAtOnce(new[] { "2026-12-01", "2026-12-02", "2026-12-03" }.Select(
+            d => new[] { "build", yaml, "--no-chart-images", "-q", "--date", d }));
         Assert.All(results, r => Assert.True(r.Code == 0, r.Err));
         var current = Snapshot.AssertWhole(w.Out);
         Assert.Equal(1, current.Edition); // a new date alone is no new edition
@@ -58,7 +65,9 @@ public class ConcurrentBuildTests
         Assert.Equal(3, kept.Count);
         Assert.All(kept, m => Assert.Equal(1, m.Edition));
         // Every dated copy is somewhere: three in the archive, one current.
-        Assert.Equal(["auroria-national-2026-11-30", "auroria-national-2026-12-01", "auroria-national-2026-12-02", "auroria-national-2026-12-03"],
+        Assert.Equal(
+            ["auroria-national-2026-11-30", "auroria-national-2026-12-01", "auroria-national-2026-12-02",
+             "auroria-national-2026-12-03"],
             kept.Select(m => m.Stem).Append(current.Stem).Order());
         Assert.Equal(edition1, Snapshot.Of(Path.Combine(root, "edition-1")));
         Assert.False(Directory.Exists(Path.Combine(w.Out, EditionFolder.TempFolderName)));
@@ -73,12 +82,14 @@ public class LockTests
         string temp = Path.Combine(outDir, EditionFolder.TempFolderName);
         Directory.CreateDirectory(temp);
         string path = Path.Combine(temp, Snapshot.Id + ".lock");
-        File.WriteAllBytes(path, JsonSerializer.SerializeToUtf8Bytes(new LockInfo(host, pid, "0123456789abcdef", DateTime.UtcNow), BatchJsonContext.Default.LockInfo));
+        File.WriteAllBytes(path, JsonSerializer.SerializeToUtf8Bytes(
+            new LockInfo(host, pid, "0123456789abcdef", DateTime.UtcNow),
+            BatchJsonContext.Default.LockInfo));
         return path;
     }
 
     [Fact]
-    public void A_lock_held_by_a_build_on_another_machine_is_waited_for_with_a_message_and_nothing_is_written_meanwhile()
+    public void A_lock_held_by_a_build_on_another_machine_is_waited_for_with_a_message_and_nothing_written_meanwhile()
     {
         var w = new Workspace("auroria-national");
         string yaml = Path.Combine(w.Dir, "auroria-national.yaml");
@@ -103,11 +114,14 @@ public class LockTests
     {
         var w = new Workspace("auroria-national");
         Directory.CreateDirectory(w.Out);
-        string path = WriteLock(w.Out, Environment.MachineName, Environment.ProcessId); // even this very process: age decides
+        // even this very process: age decides
+        string path = WriteLock(w.Out, Environment.MachineName, Environment.ProcessId);
         File.SetLastWriteTimeUtc(path, DateTime.UtcNow - BriefLock.StaleAfter - TimeSpan.FromSeconds(30));
-        var (code, _, err) = Snapshot.Run("build", Path.Combine(w.Dir, "auroria-national.yaml"), "--no-chart-images", "-q");
+        var (code, _, err) = Snapshot.Run("build", Path.Combine(w.Dir, "auroria-national.yaml"), "--no-chart-images",
+            "-q");
         Assert.True(code == 0, err);
-        Assert.Contains("took over the lock of a build that showed no sign of life", Snapshot.Log(w.Out).Single().GetProperty("recovered").GetString());
+        Assert.Contains("took over the lock of a build that showed no sign of life",
+            Snapshot.Log(w.Out).Single().GetProperty("recovered").GetString());
         Assert.False(File.Exists(path));
     }
 }

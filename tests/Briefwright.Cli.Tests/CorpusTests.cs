@@ -16,7 +16,9 @@ public class CorpusTests
     {
         var data = new TheoryData<string>();
         foreach (var f in Directory.GetFiles(Dir).Select(f => Path.GetFileName(f)!).Order(StringComparer.Ordinal))
-            if ((f.EndsWith(".yaml") || f.EndsWith(".md")) && f != "good-parent.yaml" && !f.StartsWith("extends-cycle-b")) data.Add(f);
+            if ((f.EndsWith(".yaml") || f.EndsWith(".md")) && f != "good-parent.yaml"
+                && !f.StartsWith("extends-cycle-b"))
+                data.Add(f);
         return data;
     }
 
@@ -42,7 +44,9 @@ public class CorpusTests
         var cases = ((IEnumerable<object[]>)Cases()).Select(c => (string)c[0]).ToList();
         Assert.True(cases.Count >= 100, $"{cases.Count} files");
         if (Environment.GetEnvironmentVariable("BRIEFWRIGHT_UPDATE_CORPUS") == "1")
-            File.WriteAllLines(Path.Combine(Dir, "expected.tsv"), cases.Select(c => $"{c}\t{Run(c).Error.Split('\n')[0]}").Prepend("# file\tfirst message (paths relative to this folder)"));
+            File.WriteAllLines(Path.Combine(Dir, "expected.tsv"), cases.Select(
+                c => $"{c}\t{Run(c).Error.Split('\n')[0]}").Prepend("# file\tfirst message (paths relative to this " +
+                    "folder)"));
         Assert.Equal(cases.Order(), Expected().Keys.Order());
     }
 

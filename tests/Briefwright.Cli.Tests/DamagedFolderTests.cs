@@ -30,7 +30,9 @@ public class DamagedFolderTests
         foreach (var (name, hash) in damaged) Assert.Equal(hash, archived[name]);
         Assert.Contains("the manifest was damaged", File.ReadAllText(Path.Combine(kept, "RECOVERED.txt")));
         Assert.Equal(2, Snapshot.AssertWhole(w.Out).Edition);
-        Assert.Equal(edition1.Where(kv => !kv.Key.EndsWith("manifest.json")), archived.Where(kv => edition1.ContainsKey(kv.Key) && !kv.Key.EndsWith("manifest.json")));
+        Assert.Equal(
+            edition1.Where(kv => !kv.Key.EndsWith("manifest.json")),
+            archived.Where(kv => edition1.ContainsKey(kv.Key) && !kv.Key.EndsWith("manifest.json")));
     }
 
     [Fact]
@@ -53,11 +55,20 @@ public class DamagedFolderTests
         string victim = Path.Combine(w.Dir, "victim.txt");
         File.WriteAllText(victim, "keep me");
         var real = Manifest.Parse(File.ReadAllText(ManifestPath(w)))!;
-        var forged = real with { Files = real.Files.Append("../victim.txt").ToList(), Sizes = null, Sha256 = null, Check = null };
+        var forged = real with
+        {
+            Files = real.Files.Append("../victim.txt").ToList(), Sizes = null, Sha256 = null, Check = null,
+        };
         byte[] bytes = withCheck
-            ? (forged with { Sizes = forged.Files.ToDictionary(f => f, _ => 7L), Sha256 = forged.Files.ToDictionary(f => f, _ => "0") }).ToBytes()
+            ? (forged with
+            {
+                Sizes = forged.Files.ToDictionary(f => f, _ => 7L),
+                Sha256 = forged.Files.ToDictionary(f => f, _ => "0"),
+            }).ToBytes()
             : forged.ToBytes();
-        if (!withCheck) bytes = System.Text.Encoding.UTF8.GetBytes(System.Text.RegularExpressions.Regex.Replace(System.Text.Encoding.UTF8.GetString(bytes), ",\\s*\"check\": \"[0-9a-f]*\"", ""));
+        if (!withCheck)
+            bytes = System.Text.Encoding.UTF8.GetBytes(System.Text.RegularExpressions.Regex.Replace(
+                System.Text.Encoding.UTF8.GetString(bytes), ",\\s*\"check\": \"[0-9a-f]*\"", ""));
         File.WriteAllBytes(ManifestPath(w), bytes);
         Assert.Null(Manifest.Parse(File.ReadAllText(ManifestPath(w))));
         w.Edit("auroria-national.yaml", "value: 22%", "value: 23%");
@@ -97,7 +108,9 @@ public class DamagedFolderTests
         foreach (var f in Directory.GetFiles(w.Out).Where(f => !f.EndsWith("build-log.jsonl"))) File.Delete(f);
         Assert.Equal(0, Snapshot.Run("build", yaml, "--no-chart-images", "-q", "--date", "2026-12-20").Code);
         Assert.Equal(2, Snapshot.AssertWhole(w.Out).Edition);
-        Assert.Equal(["edition-1"], Directory.GetDirectories(Path.Combine(w.Out, "archive", Snapshot.Id)).Select(Path.GetFileName));
+        Assert.Equal(
+            ["edition-1"],
+            Directory.GetDirectories(Path.Combine(w.Out, "archive", Snapshot.Id)).Select(Path.GetFileName));
     }
 }
 
@@ -106,7 +119,9 @@ public class DiskFaultTests
 {
     private static bool Root => Environment.UserName == "root";
 
-    /// <summary>Runs <paramref name="test"/> with an output folder on a tmpfs of the given size, unmounted afterwards.</summary>
+    /// <summary>
+    /// Runs <paramref name="test"/> with an output folder on a tmpfs of the given size, unmounted afterwards.
+    /// </summary>
     private static void OnSmallDisk(string size, Action<Workspace, string, string> test)
     {
         Skip.IfNot(Root && OperatingSystem.IsLinux(), "needs root on Linux to mount a small tmpfs");
@@ -169,7 +184,9 @@ public class DiskFaultTests
             Assert.Equal(edition1, Snapshot.Of(mount));
             Assert.False(Directory.Exists(Path.Combine(mount, EditionFolder.TempFolderName)));
             Assert.Equal(0, Snapshot.Run("build", yaml, "--no-chart-images", "-q", "-o", mount).Code);
-            Assert.Equal(edition1.Where(kv => kv.Key != "filler"), Snapshot.Of(Path.Combine(mount, "archive", Snapshot.Id, "edition-1")));
+            Assert.Equal(
+                edition1.Where(kv => kv.Key != "filler"),
+                Snapshot.Of(Path.Combine(mount, "archive", Snapshot.Id, "edition-1")));
         });
 
     [SkippableFact]
@@ -191,7 +208,8 @@ public class DiskFaultTests
             w.Edit("auroria-national.yaml", "value: 22%", "value: 23%");
             var (code, _, err) = Snapshot.Run("build", yaml, "--no-chart-images", "-q");
             Assert.Equal(1, code);
-            Assert.True(err.Contains("the switch was undone: the previous files are back in place (and kept in archive/auroria-national/edition-1)"), err);
+            Assert.True(err.Contains("the switch was undone: the previous files are back in place " +
+                "(and kept in archive/auroria-national/edition-1)"), err);
             Assert.Equal(edition1, Snapshot.Of(w.Out));
             Assert.Equal(edition1, Snapshot.Of(Path.Combine(w.Out, "archive", Snapshot.Id, "edition-1")));
         }
@@ -200,7 +218,9 @@ public class DiskFaultTests
             Process.Start("chattr", ["-i", pdf])!.WaitForExit();
         }
         Assert.Equal(0, Snapshot.Run("build", yaml, "--no-chart-images", "-q").Code);
-        Assert.Equal(["edition-1"], Directory.GetDirectories(Path.Combine(w.Out, "archive", Snapshot.Id)).Select(Path.GetFileName));
+        Assert.Equal(
+            ["edition-1"],
+            Directory.GetDirectories(Path.Combine(w.Out, "archive", Snapshot.Id)).Select(Path.GetFileName));
         Assert.Equal(2, Snapshot.AssertWhole(w.Out).Edition);
     }
 }

@@ -5,8 +5,8 @@ namespace Briefwright.Cli.Tests;
 
 /// <summary>
 /// The edition rule with real builds in a temporary folder, path by path, and what each brief's "changes" section says
-/// (read from its filled template, <c>.brief.md</c>). The rule is the project's own (README, "Rebuilds, editions and the
-/// data annex"); numbering reprints and new editions this way is common practice for numbered documents.
+/// (read from its filled template, <c>.brief.md</c>). The rule is the project's own (README, "Rebuilds, editions and
+/// the data annex"); numbering reprints and new editions this way is common practice for numbered documents.
 /// </summary>
 public class EditionRuleTests
 {
@@ -38,7 +38,7 @@ public class EditionRuleTests
     private static JsonElement LastLogLine(Workspace w) => Snapshot.Log(w.Out)[^1];
 
     [Fact]
-    public void A_same_date_rebuild_with_nothing_changed_is_skipped_and_forced_keeps_the_edition_without_a_changes_section()
+    public void Same_date_rebuild_with_nothing_changed_is_skipped_and_forced_keeps_the_edition_with_no_changes_section()
     {
         var w = Built();
         var before = Snapshot.Of(w.Out);
@@ -105,14 +105,17 @@ public class EditionRuleTests
     {
         var w = Built();
         string template = Path.Combine(w.Dir, "brief-template.md");
-        File.WriteAllText(template, File.ReadAllText(Path.Combine(RepositoryRoot.Path, "templates", "standard-brief.md")));
+        File.WriteAllText(
+            template,
+            File.ReadAllText(Path.Combine(RepositoryRoot.Path, "templates", "standard-brief.md")));
         Assert.Equal(0, w.Build("-t", template).Code); // the standard template's own text, named: the same template
         Assert.Equal(1, Current(w).Edition);
         File.AppendAllText(template, "\nA closing line added to the template.\n");
         Assert.Equal(0, w.Build("-t", template).Code);
         Assert.Equal(2, Current(w).Edition);
         string section = ChangesSection(Md(w))!;
-        Assert.Contains("No assumption or headline result changed; this edition follows a change of the template (the brief's wording and layout).", section);
+        Assert.Contains("No assumption or headline result changed; this edition follows a change of the template " +
+            "(the brief's wording and layout).", section);
     }
 
     [Fact]
@@ -142,7 +145,11 @@ public class EditionRuleTests
         var edition1 = Snapshot.Of(w.Out);
         string theme = Path.Combine(w.Dir, "auroria-institute.theme.yaml");
         File.Copy(CliAppTests.Demo("auroria-institute.theme.yaml"), theme);
-        File.Copy(CliAppTests.Demo("auroria-institute-logo.png"), Path.Combine(w.Dir, "auroria-institute-logo.png"), overwrite: true); // the workspace copies text only
+        // the workspace copies text only
+        File.Copy(
+            CliAppTests.Demo("auroria-institute-logo.png"),
+            Path.Combine(w.Dir, "auroria-institute-logo.png"),
+            overwrite: true);
         var (code, _, err) = w.Build("--theme", theme);
         Assert.True(code == 0, err);
         Assert.Equal((1, Stem1), (Current(w).Edition, Current(w).Stem));
@@ -161,14 +168,16 @@ public class EditionRuleTests
         w.Edit("auroria-national.yaml", "edition: 1", "edition: 5");
         Assert.Equal(0, w.Build().Code);
         Assert.Equal((5, "auroria-national-2026-11-30-edition-5"), (Current(w).Edition, Current(w).Stem));
-        Assert.Contains("No assumption or headline result changed; this edition follows the scenario's request for edition 5 (brief.edition).", ChangesSection(Md(w)));
+        Assert.Contains("No assumption or headline result changed; this edition follows the scenario's request for " +
+            "edition 5 (brief.edition).", ChangesSection(Md(w)));
 
         // Written below edition 5: refused at its position, nothing written but the log line.
         w.Edit("auroria-national.yaml", "edition: 5", "edition: 2");
         var before = Snapshot.Of(w.Out);
         var (code, _, err) = w.Build();
         Assert.Equal(2, code);
-        Assert.Contains($"{yaml}:11:12: brief.edition: must not be below edition 5, already issued in {w.Out}; remove it, or give at least 6 to start a new edition. Got '2'.", err);
+        Assert.Contains($"{yaml}:11:12: brief.edition: must not be below edition 5, already issued in {w.Out}; " +
+            "remove it, or give at least 6 to start a new edition. Got '2'.", err);
         Assert.Contains("^", err);
         Assert.Equal(before, Snapshot.Of(w.Out));
         var line = LastLogLine(w);
@@ -198,6 +207,8 @@ public class EditionRuleTests
         w.Edit("auroria-national.yaml", "value: 23%", "value: 24%");
         Next("--date", "2026-12-31"); // edition 3, same date as the re-dated edition 2
         Assert.Equal("auroria-national-2026-12-31-edition-3", Current(w).Stem);
-        Assert.Equal(["edition-1", "edition-2", "edition-2-2"], Directory.GetDirectories(Path.Combine(w.Out, "archive", Id)).Select(Path.GetFileName).Order());
+        Assert.Equal(
+            ["edition-1", "edition-2", "edition-2-2"],
+            Directory.GetDirectories(Path.Combine(w.Out, "archive", Id)).Select(Path.GetFileName).Order());
     }
 }

@@ -11,19 +11,25 @@ internal static class Snapshot
 
     public static Dictionary<string, string> Of(string dir) =>
         Directory.Exists(dir)
-            ? Directory.GetFiles(dir).Where(f => !f.EndsWith("build-log.jsonl")).ToDictionary(f => Path.GetFileName(f)!, EditionFolder.Sha256)
+            ? Directory.GetFiles(dir).Where(f => !f.EndsWith("build-log.jsonl"))
+                .ToDictionary(f => Path.GetFileName(f)!, EditionFolder.Sha256)
             : [];
 
-    /// <summary>Every file of an edition, by the hashes taken before anything happened: in place, or in its archive folder.</summary>
+    /// <summary>
+    /// Every file of an edition, by the hashes taken before anything happened: in place, or in its archive folder.
+    /// </summary>
     public static void AssertKept(Dictionary<string, string> edition, string dir, string archive)
     {
         var here = Of(dir);
         var kept = Of(archive);
         foreach (var (name, hash) in edition)
-            Assert.True(here.GetValueOrDefault(name) == hash || kept.GetValueOrDefault(name) == hash, $"{name} of the previous edition was lost");
+            Assert.True(here.GetValueOrDefault(name) == hash || kept.GetValueOrDefault(name) == hash,
+                $"{name} of the previous edition was lost");
     }
 
-    /// <summary>The edition in the folder is complete: its manifest checks, and every file matches the manifest's SHA-256.</summary>
+    /// <summary>
+    /// The edition in the folder is complete: its manifest checks, and every file matches the manifest's SHA-256.
+    /// </summary>
     public static Manifest AssertWhole(string dir, string id = Id)
     {
         var manifest = Manifest.Parse(File.ReadAllText(Manifest.PathFor(dir, id)));
@@ -44,7 +50,8 @@ internal static class Snapshot
     {
         string temp = Path.Combine(outDir, EditionFolder.TempFolderName);
         if (!Directory.Exists(temp)) return;
-        foreach (var l in Directory.GetFiles(temp, "*.lock")) File.SetLastWriteTimeUtc(l, DateTime.UtcNow - BriefLock.StaleAfter - TimeSpan.FromMinutes(1));
+        foreach (var l in Directory.GetFiles(temp, "*.lock"))
+            File.SetLastWriteTimeUtc(l, DateTime.UtcNow - BriefLock.StaleAfter - TimeSpan.FromMinutes(1));
     }
 
     public static Process Start(IReadOnlyDictionary<string, string> env, params string[] args)
@@ -65,7 +72,9 @@ internal static class Snapshot
     }
 
     public static List<JsonElement> Log(string outDir) =>
-        File.ReadAllLines(Path.Combine(outDir, "build-log.jsonl")).Select(l => JsonDocument.Parse(l).RootElement.Clone()).ToList();
+        File.ReadAllLines(Path.Combine(outDir, "build-log.jsonl"))
+            .Select(l => JsonDocument.Parse(l).RootElement.Clone())
+            .ToList();
 }
 
 /// <summary>
@@ -77,10 +86,13 @@ public class KillAfterEveryStepOfASameDateRebuildTests
 {
     [Fact]
     public void A_same_date_rebuild_killed_after_any_step_loses_nothing_and_the_next_build_finishes_it() =>
-        KillAfterEveryStepTests.KillEachStep(w => w.Edit("auroria-national.yaml", "value: 22%", "value: 23%"), [], edition: 2);
+        KillAfterEveryStepTests.KillEachStep(w => w.Edit("auroria-national.yaml", "value: 22%", "value: 23%"), [],
+            edition: 2);
 }
 
-/// <summary>The same for a rebuild with a new date (edition 1 re-dated: new file names; the previous dated files are removed).</summary>
+/// <summary>
+/// The same for a rebuild with a new date (edition 1 re-dated: new file names; the previous dated files are removed).
+/// </summary>
 public class KillAfterEveryStepTests
 {
     [Fact]
@@ -101,7 +113,11 @@ public class KillAfterEveryStepTests
         Snapshot.CopyTree(w.Dir, reference);
         var steps = new List<string>();
         FaultSeam.Hook = steps.Add;
-        try { Assert.Equal(0, Snapshot.Run(args.Select(a => a == yaml ? Path.Combine(reference, "auroria-national.yaml") : a).ToArray()).Code); }
+        try
+        {
+            Assert.Equal(0, Snapshot.Run(
+                args.Select(a => a == yaml ? Path.Combine(reference, "auroria-national.yaml") : a).ToArray()).Code);
+        }
         finally { FaultSeam.Hook = null; }
         var expected = Snapshot.Of(Path.Combine(reference, "out"));
         Assert.Contains($"{Snapshot.Id}/journal", steps);
@@ -112,31 +128,47 @@ public class KillAfterEveryStepTests
         {
             string trial = w.Dir + "-" + step.Replace('/', '-');
             Snapshot.CopyTree(w.Dir, trial);
-            string outDir = Path.Combine(trial, "out"), archive = Path.Combine(outDir, "archive", Snapshot.Id, "edition-1");
+            string outDir = Path.Combine(trial, "out");
+            string archive = Path.Combine(outDir, "archive", Snapshot.Id, "edition-1");
             using (var p = Snapshot.Start(new Dictionary<string, string> { ["BRIEFWRIGHT_FAULT"] = step + "=kill" },
                        args.Select(a => a == yaml ? Path.Combine(trial, "auroria-national.yaml") : a).ToArray()))
             {
                 p.WaitForExit();
-                Assert.True(p.ExitCode == 137, $"{step}: the build was not killed there (exit {p.ExitCode}): {p.StandardError.ReadToEnd()}");
+                Assert.True(p.ExitCode == 137,
+                    $"{step}: the build was not killed there (exit {p.ExitCode}): {p.StandardError.ReadToEnd()}");
             }
             Snapshot.AssertKept(edition1, outDir, archive);
 
             bool locked = File.Exists(Path.Combine(outDir, EditionFolder.TempFolderName, Snapshot.Id + ".lock"));
             Snapshot.AgeLocks(outDir);
-            var (code, output, err) = Snapshot.Run(args.Select(a => a == yaml ? Path.Combine(trial, "auroria-national.yaml") : a).Where(a => a != "-q").ToArray());
+            var (code, output, err) = Snapshot.Run(args
+                .Select(a => a == yaml ? Path.Combine(trial, "auroria-national.yaml") : a)
+                .Where(a => a != "-q").ToArray());
             Assert.True(code == 0, $"{step}: {err}");
-            bool switching = steps.IndexOf(step) >= steps.IndexOf($"{Snapshot.Id}/journal") && steps.IndexOf(step) < steps.IndexOf($"{Snapshot.Id}/committed");
-            if (switching) Assert.True(output.Contains($"finished the switch to edition {edition} that an interrupted build had begun"), $"{step}: {output}");
-            if (locked) Assert.True(output.Contains("recovered: took over the lock of a build that showed no sign of life"), $"{step}: {output}");
+            bool switching = steps.IndexOf(step) >= steps.IndexOf($"{Snapshot.Id}/journal")
+                && steps.IndexOf(step) < steps.IndexOf($"{Snapshot.Id}/committed");
+            if (switching)
+                Assert.True(
+                    output.Contains($"finished the switch to edition {edition} that an interrupted build had begun"),
+                    $"{step}: {output}");
+            if (locked)
+                Assert.True(output.Contains("recovered: took over the lock of a build that showed no sign of life"),
+                    $"{step}: {output}");
             Assert.Equal(expected, Snapshot.Of(outDir));
             Assert.Equal(edition1, Snapshot.Of(archive));
-            Assert.Equal(["edition-1"], Directory.GetDirectories(Path.Combine(outDir, "archive", Snapshot.Id)).Select(Path.GetFileName));
-            Assert.False(Directory.Exists(Path.Combine(outDir, EditionFolder.TempFolderName)), $"{step}: temporary files left");
+            Assert.Equal(
+                ["edition-1"],
+                Directory.GetDirectories(Path.Combine(outDir, "archive", Snapshot.Id)).Select(Path.GetFileName));
+            Assert.False(
+                Directory.Exists(Path.Combine(outDir, EditionFolder.TempFolderName)),
+                $"{step}: temporary files left");
         }
     }
 }
 
-/// <summary>A step that fails (as a write would) is reported truthfully, and leaves the previous edition in place.</summary>
+/// <summary>
+/// A step that fails (as a write would) is reported truthfully, and leaves the previous edition in place.
+/// </summary>
 public class FailAfterEveryStepTests
 {
     [Fact]
@@ -166,11 +198,17 @@ public class FailAfterEveryStepTests
             Assert.Equal(1, r.Code);
             Assert.Contains($"fault injected after step {step}", r.Err);
             bool switching = steps.IndexOf(step) >= steps.IndexOf($"{Snapshot.Id}/journal");
-            Assert.Contains(switching ? "the switch was undone: the previous files are back in place" : "nothing was replaced: the previous files are untouched", r.Err);
+            Assert.Contains(switching
+                ? "the switch was undone: the previous files are back in place"
+                : "nothing was replaced: the previous files are untouched", r.Err);
             var now = Snapshot.Of(outDir);
             Assert.Equal(edition1, now); // the previous edition is current, byte for byte
-            Assert.False(Directory.Exists(Path.Combine(outDir, EditionFolder.TempFolderName)), $"{step}: temporary files left");
-            Assert.Equal(0, Snapshot.Run("build", Path.Combine(trial, "auroria-national.yaml"), "--no-chart-images", "-q").Code);
+            Assert.False(
+                Directory.Exists(Path.Combine(outDir, EditionFolder.TempFolderName)),
+                $"{step}: temporary files left");
+            Assert.Equal(
+                0,
+                Snapshot.Run("build", Path.Combine(trial, "auroria-national.yaml"), "--no-chart-images", "-q").Code);
             Assert.Equal(edition1, Snapshot.Of(Path.Combine(outDir, "archive", Snapshot.Id, "edition-1")));
             Assert.Equal(2, Snapshot.AssertWhole(outDir).Edition);
         }
@@ -184,7 +222,14 @@ public class SignalTests
     public void Sigterm_lets_the_brief_in_progress_finish_and_starts_no_other()
     {
         var w = new Workspace("auroria-silverdale", "auroria-eastmark");
-        using var p = Snapshot.Start(new Dictionary<string, string> { ["BRIEFWRIGHT_FAULT"] = "*/staged=term" }, "build", w.Dir, "--no-chart-images", "-q", "--jobs", "1");
+        using var p = Snapshot.Start(
+            new Dictionary<string, string> { ["BRIEFWRIGHT_FAULT"] = "*/staged=term" },
+            "build",
+            w.Dir,
+            "--no-chart-images",
+            "-q",
+            "--jobs",
+            "1");
         string err = p.StandardError.ReadToEnd();
         p.WaitForExit();
         Assert.Equal(1, p.ExitCode);

@@ -3,8 +3,8 @@ using Briefwright.Cli.Project;
 
 namespace Briefwright.Cli.Tests;
 
-/// <summary>Which formats a build writes: chosen on the command line or in the project settings, covered by the manifest,
-/// listed in the summary, and never a new edition of the brief.</summary>
+/// <summary>Which formats a build writes: chosen on the command line or in the project settings, covered by the
+/// manifest, listed in the summary, and never a new edition of the brief.</summary>
 public class FormatsTests
 {
     private const string Stem = "auroria-silverdale-2026-11-30";
@@ -12,14 +12,18 @@ public class FormatsTests
     private static (int Edition, List<string> Files) Manifest(string outDir)
     {
         using var m = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "auroria-silverdale.manifest.json")));
-        return (m.RootElement.GetProperty("edition").GetInt32(), m.RootElement.GetProperty("files").EnumerateArray().Select(f => f.GetString()!).ToList());
+        return (m.RootElement.GetProperty("edition").GetInt32(), m.RootElement.GetProperty("files").EnumerateArray()
+            .Select(f => f.GetString()!)
+            .ToList());
     }
 
     private static (int Code, string Out, string Err) Build(Workspace w, params string[] extra)
     {
         var output = new StringWriter();
         var error = new StringWriter();
-        int code = CliApp.Run(new[] { "build", Path.Combine(w.Dir, "auroria-silverdale.yaml"), "--no-chart-images" }.Concat(extra).ToArray(), output, error);
+        int code = CliApp.Run(new[] { "build", Path.Combine(w.Dir, "auroria-silverdale.yaml"), "--no-chart-images" }
+            .Concat(extra)
+            .ToArray(), output, error);
         return (code, output.ToString(), error.ToString());
     }
 
@@ -33,7 +37,8 @@ public class FormatsTests
         Assert.Equal((1, false), (Manifest(w.Out).Edition, File.Exists(Path.Combine(w.Out, Stem + ".html"))));
         byte[] pdf = File.ReadAllBytes(Path.Combine(w.Out, Stem + ".pdf"));
 
-        // When every format is switched on, then the same edition is rebuilt with them, in the manifest, nothing archived
+        // When every format is switched on, then the same edition is rebuilt with them, in the manifest, nothing
+        // archived
         var all = Build(w, "--formats", "pdf,html,xlsx,docx");
         Assert.True(all.Code == 0, all.Err);
         Assert.Matches(@"auroria-silverdale\s+built\s+1\s.*pdf html xlsx docx", all.Out);
@@ -59,7 +64,9 @@ public class FormatsTests
         Assert.DoesNotContain(files, f => f.EndsWith(".html") || f.EndsWith(".xlsx") || f.EndsWith(".docx"));
         Assert.False(File.Exists(Path.Combine(w.Out, Stem + ".html")));
         // A file dropped by an output switch is kept first, as the edition rule says (EditionPlanner.KeepReplaced).
-        Assert.Contains(Directory.GetFiles(Path.Combine(w.Out, "archive"), Stem + ".html", SearchOption.AllDirectories), f => f.Contains("edition-1", StringComparison.Ordinal));
+        Assert.Contains(
+            Directory.GetFiles(Path.Combine(w.Out, "archive"), Stem + ".html", SearchOption.AllDirectories),
+            f => f.Contains("edition-1", StringComparison.Ordinal));
         Assert.Equal(pdf, File.ReadAllBytes(Path.Combine(w.Out, Stem + ".pdf")));
     }
 
@@ -96,7 +103,9 @@ public class FormatsTests
         File.WriteAllText(settings, "formats: [html, odt]\n");
         var badSettings = Build(w);
         Assert.Equal(2, badSettings.Code);
-        Assert.Contains($"{settings}:1:17: formats: must be a list of format names (pdf, html, xlsx, docx). Got 'odt'.", badSettings.Err);
+        Assert.Contains(
+            $"{settings}:1:17: formats: must be a list of format names (pdf, html, xlsx, docx). Got 'odt'.",
+            badSettings.Err);
         File.WriteAllText(settings, "formats: html\n");
         Assert.Equal(2, Build(w).Code);
     }

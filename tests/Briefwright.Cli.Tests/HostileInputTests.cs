@@ -41,13 +41,19 @@ public class HostileInputTests
         MakeFifo(Path.Combine(dir, "pipe.yaml"));
         MakeFifo(Path.Combine(dir, "pipe.csv"));
         File.WriteAllText(Path.Combine(dir, "child.yaml"), "extends: pipe.yaml\n");
-        File.WriteAllText(Path.Combine(dir, "table.yaml"), File.ReadAllText(Good).Replace("    form: rectangular\n    max_age: 80", "    form: life_table\n    file: pipe.csv"));
-        var run = Task.Run(() => (Run("check", Path.Combine(dir, "pipe.yaml")), Run("check", Path.Combine(dir, "child.yaml")), Run("check", Path.Combine(dir, "table.yaml"))));
-        var (top, child, table) = await run.WaitAsync(TimeSpan.FromMinutes(2)); // a TimeoutException means a named pipe blocked
+        File.WriteAllText(Path.Combine(dir, "table.yaml"), File.ReadAllText(Good)
+            .Replace("    form: rectangular\n    max_age: 80", "    form: life_table\n    file: pipe.csv"));
+        var run = Task.Run(() => (Run("check", Path.Combine(dir, "pipe.yaml")), Run(
+            "check",
+            Path.Combine(dir, "child.yaml")), Run("check", Path.Combine(dir, "table.yaml"))));
+        // a TimeoutException means a named pipe blocked
+        var (top, child, table) = await run.WaitAsync(TimeSpan.FromMinutes(2));
         Assert.Equal((2, 2, 2), (top.Code, child.Code, table.Code));
         Assert.Contains("pipe.yaml:1:1: cannot read the scenario (it is a named pipe, not a regular file).", top.Err);
-        Assert.Contains("child.yaml:1:10: extends: cannot read the extended scenario (it is a named pipe, not a regular file). Got 'pipe.yaml'.", child.Err);
-        Assert.Contains("table.yaml:13:11: demography.survival.file: cannot read the life table (it is a named pipe, not a regular file). Got 'pipe.csv'.", table.Err);
+        Assert.Contains("child.yaml:1:10: extends: cannot read the extended scenario (it is a named pipe, not a " +
+            "regular file). Got 'pipe.yaml'.", child.Err);
+        Assert.Contains("table.yaml:13:11: demography.survival.file: cannot read the life table (it is a named pipe, " +
+            "not a regular file). Got 'pipe.csv'.", table.Err);
     }
 
     [Fact]
@@ -58,7 +64,10 @@ public class HostileInputTests
         File.CreateSymbolicLink(Path.Combine(dir, "zero.yaml"), "/dev/zero");
         File.CreateSymbolicLink(Path.Combine(dir, "passwd.yaml"), "/etc/passwd");
         File.CreateSymbolicLink(Path.Combine(dir, "env.yaml"), "/proc/self/environ");
-        foreach (var (target, reason) in new[] { ("zero.yaml", "it is a device, not a regular file"), ("passwd.yaml", "a symbolic link leads it out of the project folder"), ("env.yaml", "it is a system file (under /proc, /sys or /dev), not a regular file") })
+        foreach (var (target, reason) in new[] {
+            ("zero.yaml", "it is a device, not a regular file"),
+            ("passwd.yaml", "a symbolic link leads it out of the project folder"),
+            ("env.yaml", "it is a system file (under /proc, /sys or /dev), not a regular file") })
         {
             File.WriteAllText(Path.Combine(dir, "child.yaml"), $"extends: {target}\n");
             var (code, _, err) = Run("check", Path.Combine(dir, "child.yaml"));
@@ -87,8 +96,10 @@ public class HostileInputTests
         File.CreateSymbolicLink(Path.Combine(dir, "sub"), outside);
         string[] targets =
         {
-            "pipe.yaml", "zero.yaml", "out.yaml", "sub/secret.yaml", "../" + Path.GetFileName(outside) + "/secret.yaml", Path.Combine(outside, "secret.yaml"),
-            "/proc/self/environ", "/dev/zero", "base.yaml", "pipe.csv", "zero.csv", "env.csv", "sub/x.csv", "/etc/passwd", "nothing.yaml", ".", "..", "",
+            "pipe.yaml", "zero.yaml", "out.yaml", "sub/secret.yaml", "../" + Path.GetFileName(outside)
+                + "/secret.yaml", Path.Combine(outside, "secret.yaml"),
+            "/proc/self/environ", "/dev/zero", "base.yaml", "pipe.csv", "zero.csv", "env.csv", "sub/x.csv",
+            "/etc/passwd", "nothing.yaml", ".", "..", "",
         };
         string good = File.ReadAllText(Good);
         var rng = new Random(20261202);
@@ -100,8 +111,11 @@ public class HostileInputTests
                 string text = rng.Next(3) switch
                 {
                     0 => $"extends: \"{target}\"\nbrief:\n  id: x{i}\n",
-                    1 => good.Replace("    form: rectangular\n    max_age: 80", $"    form: life_table\n    file: \"{target}\""),
-                    _ => $"extends: base.yaml\ndemography:\n  survival:\n    form: life_table\n    file: \"{target}\"\n",
+                    1 => good.Replace(
+                        "    form: rectangular\n    max_age: 80",
+                        $"    form: life_table\n    file: \"{target}\""),
+                    _ => "extends: base.yaml\ndemography:\n  survival:\n    form: life_table\n" +
+                        $"    file: \"{target}\"\n",
                 };
                 string file = Path.Combine(dir, "case.yaml");
                 File.WriteAllText(file, text);
@@ -137,7 +151,9 @@ public class HostileInputTests
         File.WriteAllText(big, new string('#', (1 << 20) + 1));
         var (code, _, err) = Run("check", big);
         Assert.Equal(2, code);
-        Assert.Contains("cannot read the scenario (the file is 1,048,577 bytes, over the limit of 1,048,576 bytes).", err);
+        Assert.Contains(
+            "cannot read the scenario (the file is 1,048,577 bytes, over the limit of 1,048,576 bytes).",
+            err);
     }
 
     [Theory]
@@ -177,7 +193,9 @@ public class HostileInputTests
     {
         string dir = Project();
         string many = Path.Combine(dir, "many.yaml");
-        File.WriteAllText(many, File.ReadAllText(Good) + string.Concat(Enumerable.Range(0, 20_000).Select(i => $"k{i}: 1\n")));
+        File.WriteAllText(
+            many,
+            File.ReadAllText(Good) + string.Concat(Enumerable.Range(0, 20_000).Select(i => $"k{i}: 1\n")));
         var (code, _, err) = Run("check", many);
         Assert.Equal(2, code);
         Assert.Equal(100, err.Split('\n').Count(l => l.Contains(": unknown key")));
@@ -190,13 +208,17 @@ public class HostileInputTests
     {
         string dir = Project();
         string q = Path.Combine(dir, "q.yaml");
-        File.WriteAllText(q, File.ReadAllText(Good).Replace("  date: 2026-11-30\n", "  date: 2026-11-30\n  question: \"[memo](file:///etc/passwd) [[pagebreak]] <div> [[figure: nope]]\"\n"));
+        File.WriteAllText(q, File.ReadAllText(Good).Replace(
+            "  date: 2026-11-30\n",
+            "  date: 2026-11-30\n  question: \"[memo](file:///etc/passwd) [[pagebreak]] <div> [[figure: nope]]\"\n"));
         string outDir = Path.Combine(dir, "out");
         var (code, _, err) = Run("build", q, "-o", outDir, "-q", "--no-chart-images");
         Assert.True(code == 0, err);
         var pdf = File.ReadAllBytes(Directory.GetFiles(outDir, "*.pdf").Single());
         Assert.DoesNotContain("/URI", System.Text.Encoding.Latin1.GetString(pdf));
         string filled = File.ReadAllText(Directory.GetFiles(outDir, "*.brief.md").Single());
-        Assert.Contains("\\[memo\\](file:///etc/passwd) \\[\\[pagebreak\\]\\] \\<div\\> \\[\\[figure: nope\\]\\]", filled);
+        Assert.Contains(
+            "\\[memo\\](file:///etc/passwd) \\[\\[pagebreak\\]\\] \\<div\\> \\[\\[figure: nope\\]\\]",
+            filled);
     }
 }

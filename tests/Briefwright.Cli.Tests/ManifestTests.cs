@@ -5,7 +5,13 @@ namespace Briefwright.Cli.Tests;
 /// <summary>The manifest's own check and path rules.</summary>
 public class ManifestTests
 {
-    private static Manifest Sample() => new("b", "b-2026-11-30", 2, "f", new Dictionary<string, string> { ["tool"] = "1" }, ["b-2026-11-30.pdf"])
+    private static Manifest Sample() => new(
+        "b",
+        "b-2026-11-30",
+        2,
+        "f",
+        new Dictionary<string, string> { ["tool"] = "1" },
+        ["b-2026-11-30.pdf"])
     {
         Sizes = new Dictionary<string, long> { ["b-2026-11-30.pdf"] = 10 },
         Sha256 = new Dictionary<string, string> { ["b-2026-11-30.pdf"] = new string('a', 64) },
@@ -40,7 +46,8 @@ public class ManifestTests
     [InlineData("a\\b")]
     public void A_path_that_is_not_a_plain_file_name_in_the_folder_is_refused(string name)
     {
-        var m = Sample() with { Files = [name], Sizes = new Dictionary<string, long> { [name] = 1 }, Sha256 = new Dictionary<string, string> { [name] = "0" } };
+        var m = Sample() with { Files = [name], Sizes = new Dictionary<string, long> {
+            [name] = 1 }, Sha256 = new Dictionary<string, string> { [name] = "0" } };
         Assert.False(Manifest.Confined(name));
         Assert.Null(Manifest.Parse(System.Text.Encoding.UTF8.GetString(m.ToBytes())));
     }
@@ -48,6 +55,9 @@ public class ManifestTests
     [Fact]
     public void A_manifest_of_an_earlier_release_without_hashes_is_still_read()
     {
-        Assert.NotNull(Manifest.Parse("""{"id":"a","stem":"a-2000-01-01","edition":1,"hash":"0","inputs":{"tool":"0"},"files":["a-2000-01-01.pdf"]}"""));
+        const string Old = """
+            {"id":"a","stem":"a-2000-01-01","edition":1,"hash":"0","inputs":{"tool":"0"},"files":["a-2000-01-01.pdf"]}
+            """;
+        Assert.NotNull(Manifest.Parse(Old));
     }
 }

@@ -11,7 +11,10 @@ namespace Briefwright.Cli.Tests;
 /// shards, solve's JSON shape and the CSV annex.</summary>
 public class ReissueTests
 {
-    internal static (int Code, string Out, string Err) Run(string[] args, string? stdin = null, TimeProvider? clock = null)
+    internal static (int Code, string Out, string Err) Run(
+        string[] args,
+        string? stdin = null,
+        TimeProvider? clock = null)
     {
         var output = new StringWriter();
         var error = new StringWriter();
@@ -22,7 +25,8 @@ public class ReissueTests
     private static string[] A(params string[] args) => args;
 
     private static IReadOnlyList<JsonElement> LogLines(string dir) =>
-        File.ReadAllLines(Path.Combine(dir, BuildLog.FileName)).Select(l => JsonDocument.Parse(l).RootElement.Clone()).ToList();
+        File.ReadAllLines(Path.Combine(dir, BuildLog.FileName)).Select(l => JsonDocument.Parse(l).RootElement.Clone())
+            .ToList();
 
     /// <summary>A clock stopped at one instant, so the log's time can be asserted.</summary>
     private sealed class FixedClock(DateTimeOffset now) : TimeProvider
@@ -33,7 +37,7 @@ public class ReissueTests
     public class DuplicateIds
     {
         [Fact]
-        public void A_variant_that_keeps_its_parents_id_is_refused_on_each_file_by_check_and_build_and_nothing_is_written_for_them()
+        public void A_variant_keeping_its_parents_id_is_refused_per_file_by_check_and_build_and_nothing_is_written()
         {
             // Given a variant written with extends that keeps its parent's brief.id
             var w = new Workspace("auroria-silverdale");
@@ -44,8 +48,11 @@ public class ReissueTests
             // When the folder is checked, then both files get a positioned error and the exit code is 2
             var (code, output, error) = Run(A("check", w.Dir));
             Assert.Equal(2, code);
-            Assert.Contains($"{variant}:1:10: brief.id: must be unique within the batch; this scenario keeps the id of the scenario it extends, which '{parent}' also uses: give it its own brief.id. Got 'auroria-silverdale'.", error);
-            Assert.Contains($"{parent}:5:7: brief.id: must be unique within the batch; '{variant}' also uses it, and their briefs would overwrite each other. Got 'auroria-silverdale'.", error);
+            Assert.Contains($"{variant}:1:10: brief.id: must be unique within the batch; this scenario keeps the id " +
+                $"of the scenario it extends, which '{parent}' also uses: give it its own brief.id. Got " +
+                "'auroria-silverdale'.", error);
+            Assert.Contains($"{parent}:5:7: brief.id: must be unique within the batch; '{variant}' also uses it, and " +
+                "their briefs would overwrite each other. Got 'auroria-silverdale'.", error);
             Assert.Contains("^", error);
             Assert.Contains("auroria-national.yaml: ok", output);
 
@@ -57,7 +64,9 @@ public class ReissueTests
             Assert.DoesNotContain(Directory.GetFiles(w.Out), f => Path.GetFileName(f).StartsWith("auroria-silverdale"));
             var invalid = LogLines(w.Out).Where(l => l.GetProperty("status").GetString() == "invalid").ToList();
             Assert.Equal(2, invalid.Count);
-            Assert.All(invalid, l => Assert.Contains("brief.id: must be unique within the batch", l.GetProperty("messages")[0].GetString()));
+            Assert.All(invalid, l => Assert.Contains(
+                "brief.id: must be unique within the batch",
+                l.GetProperty("messages")[0].GetString()));
         }
 
         [Fact]
@@ -74,11 +83,16 @@ public class ReissueTests
         [InlineData("build", "--qiet", "'--qiet' is not an option of build (did you mean '--quiet'?).")]
         [InlineData("check", "--jsn", "'--jsn' is not an option of check.")]
         [InlineData("solve", "--jsn", "'--jsn' is not an option of solve (did you mean '--json'?).")]
-        public void An_unknown_option_is_a_usage_error_exit_2_with_a_suggestion_never_a_path(string command, string option, string message)
+        public void An_unknown_option_is_a_usage_error_exit_2_with_a_suggestion_never_a_path(
+            string command,
+            string option,
+            string message)
         {
             string outDir = Directory.CreateTempSubdirectory("bw-usage-").FullName;
-            var (code, output, error) = Run(A(command, CliAppTests.Demo("auroria-silverdale.yaml"), option, "-o", outDir));
-            if (command != "build") (code, output, error) = Run(A(command, CliAppTests.Demo("auroria-silverdale.yaml"), option));
+            var (code, output, error) = Run(
+                A(command, CliAppTests.Demo("auroria-silverdale.yaml"), option, "-o", outDir));
+            if (command != "build") (code, output, error) = Run(
+                A(command, CliAppTests.Demo("auroria-silverdale.yaml"), option));
             Assert.Equal(2, code);
             Assert.Equal("", output);
             Assert.Contains($"briefwright {command}: {message}", error);
@@ -98,7 +112,9 @@ public class ReissueTests
         {
             var none = Run(A());
             Assert.Equal(2, none.Code);
-            Assert.Contains("briefwright: no command given. Commands: check, solve, build, diff, schema, init.", none.Err);
+            Assert.Contains(
+                "briefwright: no command given. Commands: check, solve, build, diff, schema, init.",
+                none.Err);
             var typo = Run(A("bulid", "regions"));
             Assert.Equal(2, typo.Code);
             Assert.Contains("briefwright: unknown command 'bulid' (did you mean 'build'?).", typo.Err);
@@ -137,7 +153,9 @@ public class ReissueTests
 
             var bad = Run(A("check", "-"), national.Replace("value: 22%", "value: 122%"));
             Assert.Equal(2, bad.Code);
-            Assert.Contains("<stdin>:52:12: production.saving_rate.value: must be at least 0.1% and less than 100%. Got '122%'.", bad.Err);
+            Assert.Contains(
+                "<stdin>:52:12: production.saving_rate.value: must be at least 0.1% and less than 100%. Got '122%'.",
+                bad.Err);
         }
 
         [Fact]
@@ -147,7 +165,9 @@ public class ReissueTests
             Assert.Equal(0, w.Build("-o", Path.Combine(w.Dir, "a")).Code);
             Assert.Equal(0, w.Build("-o", Path.Combine(w.Dir, "b"), "--skip-flush").Code);
             string pdf = "auroria-silverdale-2026-11-30.pdf";
-            Assert.Equal(File.ReadAllBytes(Path.Combine(w.Dir, "a", pdf)), File.ReadAllBytes(Path.Combine(w.Dir, "b", pdf)));
+            Assert.Equal(
+                File.ReadAllBytes(Path.Combine(w.Dir, "a", pdf)),
+                File.ReadAllBytes(Path.Combine(w.Dir, "b", pdf)));
             Assert.Equal(2, w.Build("--no-sync").Code); // the old spelling is gone
         }
     }
@@ -161,7 +181,13 @@ public class ReissueTests
             string dir = Path.Combine(Directory.CreateTempSubdirectory("bw-init-").FullName, "briefs");
             var (code, output, error) = Run(A("init", dir));
             Assert.True(code == 0, error);
-            foreach (var f in new[] { InitCommand.ExampleScenario, InitCommand.Theme, InitCommand.Template, ProjectSettings.FileName, "scheduled/crontab.example", "scheduled/rebuild-briefs.yml" })
+            foreach (var f in new[] {
+                InitCommand.ExampleScenario,
+                InitCommand.Theme,
+                InitCommand.Template,
+                ProjectSettings.FileName,
+                "scheduled/crontab.example",
+                "scheduled/rebuild-briefs.yml" })
                 Assert.True(File.Exists(Path.Combine(dir, f)), f);
             Assert.Contains("INVENTED", File.ReadAllText(Path.Combine(dir, InitCommand.ExampleScenario)));
             Assert.Contains("briefwright build", File.ReadAllText(Path.Combine(dir, "scheduled/crontab.example")));
@@ -173,11 +199,15 @@ public class ReissueTests
             Assert.Contains("ok (theme 'Example house style (invented)'", check.Out);
 
             // And a plain build uses the settings: its theme, template and output folder
-            File.WriteAllText(Path.Combine(dir, InitCommand.ExampleScenario), File.ReadAllText(Path.Combine(dir, InitCommand.ExampleScenario))
-                .Replace("draws: 2000", "draws: 60").Replace("sobol_samples: 256", "sobol_samples: 0").Replace("steps: 9", "steps: 3"));
+            File.WriteAllText(Path.Combine(dir, InitCommand.ExampleScenario), File.ReadAllText(
+                Path.Combine(dir, InitCommand.ExampleScenario))
+                .Replace("draws: 2000", "draws: 60").Replace("sobol_samples: 256", "sobol_samples: 0").Replace(
+                    "steps: 9",
+                    "steps: 3"));
             var build = Run(A("build", dir, "-q", "--no-chart-images"));
             Assert.True(build.Code == 0, build.Err);
-            using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(dir, "out", "auroria-example.manifest.json")));
+            using var manifest = JsonDocument.Parse(
+                File.ReadAllText(Path.Combine(dir, "out", "auroria-example.manifest.json")));
             Assert.NotEqual("standard", manifest.RootElement.GetProperty("inputs").GetProperty("theme").GetString());
             Assert.True(File.Exists(Path.Combine(dir, "out", "auroria-example-2026-11-30.pdf")));
 
@@ -195,7 +225,9 @@ public class ReissueTests
             string project = Directory.CreateTempSubdirectory("bw-project-").FullName;
             string regions = Path.Combine(project, "regions");
             Directory.Move(w.Dir, regions);
-            File.WriteAllText(Path.Combine(project, ProjectSettings.FileName), "out: briefs\ndate: 2027-03-01\nchart_copies: false\njobs: 1\n");
+            File.WriteAllText(
+                Path.Combine(project, ProjectSettings.FileName),
+                "out: briefs\ndate: 2027-03-01\nchart_copies: false\njobs: 1\n");
 
             // When built from inside the folder, then the settings apply
             var (code, _, error) = Run(A("build", regions, "-q"));
@@ -205,7 +237,9 @@ public class ReissueTests
 
             // When options are given, then they win
             string other = Path.Combine(project, "other");
-            var (code2, _, error2) = Run(A("build", Path.Combine(regions, "auroria-silverdale.yaml"), "-q", "-o", other, "--date", "2027-04-01"));
+            var (code2, _, error2) = Run(
+                A("build", Path.Combine(regions, "auroria-silverdale.yaml"), "-q", "-o", other,
+                    "--date", "2027-04-01"));
             Assert.True(code2 == 0, error2);
             Assert.True(File.Exists(Path.Combine(other, "auroria-silverdale-2027-04-01.pdf")));
         }
@@ -230,11 +264,14 @@ public class ReissueTests
     public class Log
     {
         [Fact]
-        public void Each_attempt_is_one_line_with_utc_time_tool_version_input_hash_shard_outcome_and_every_positioned_message()
+        public void Each_attempt_is_one_line_with_utc_time_version_input_hash_shard_outcome_and_positioned_messages()
         {
             // Given a folder with one good and one bad scenario, and a clock stopped at a known instant
             var w = new Workspace("auroria-silverdale");
-            w.Edit("auroria-silverdale.yaml", "short_title: Silverdale schooling brief", "short_title: Silverdale schooling brief\nproduction:\n  saving_rate: 122%\n  depreciation: -1%");
+            w.Edit(
+                "auroria-silverdale.yaml",
+                "short_title: Silverdale schooling brief",
+                "short_title: Silverdale schooling brief\nproduction:\n  saving_rate: 122%\n  depreciation: -1%");
             var clock = new FixedClock(new DateTimeOffset(2030, 1, 2, 3, 4, 5, TimeSpan.FromHours(2)));
 
             // When it is built as shard 1 of 1
@@ -252,13 +289,19 @@ public class ReissueTests
                 Assert.Equal("brief", l.GetProperty("kind").GetString());
             });
             var built = lines.Single(l => l.GetProperty("status").GetString() == "built");
-            using var manifest = JsonDocument.Parse(File.ReadAllText(Path.Combine(w.Out, "auroria-national.manifest.json")));
-            Assert.Equal(manifest.RootElement.GetProperty("hash").GetString(), built.GetProperty("input_hash").GetString());
+            using var manifest = JsonDocument.Parse(
+                File.ReadAllText(Path.Combine(w.Out, "auroria-national.manifest.json")));
+            Assert.Equal(
+                manifest.RootElement.GetProperty("hash").GetString(),
+                built.GetProperty("input_hash").GetString());
             var failed = lines.Single(l => l.GetProperty("status").GetString() == "invalid");
             var messages = failed.GetProperty("messages").EnumerateArray().Select(m => m.GetString()!).ToList();
             Assert.Equal(2, messages.Count);
-            Assert.Contains(messages, m => m.StartsWith(Path.Combine(w.Dir, "auroria-silverdale.yaml") + ":") && m.Contains("production.saving_rate: must be at least 0.1% and less than 100%. Got '122%'."));
-            Assert.Contains(messages, m => m.Contains("production.depreciation: must be at least 0% and less than 100%. Got '-1%'."));
+            Assert.Contains(messages, m => m.StartsWith(Path.Combine(w.Dir, "auroria-silverdale.yaml") + ":")
+                && m.Contains("production.saving_rate: must be at least 0.1% and less than 100%. Got '122%'."));
+            Assert.Contains(
+                messages,
+                m => m.Contains("production.depreciation: must be at least 0% and less than 100%. Got '-1%'."));
 
             // And nothing else the build writes carries a clock time
             foreach (var f in Directory.GetFiles(w.Out).Where(f => !f.EndsWith(BuildLog.FileName)))
@@ -275,7 +318,9 @@ public class ReissueTests
             var line = Assert.Single(LogLines(w.Out));
             Assert.Equal("run", line.GetProperty("kind").GetString());
             Assert.Equal("theme", line.GetProperty("stage").GetString());
-            Assert.StartsWith(Path.Combine(w.Dir, "bad.theme.yaml") + ":2:8: paper: must be one of a4, letter", line.GetProperty("messages")[0].GetString());
+            Assert.StartsWith(
+                Path.Combine(w.Dir, "bad.theme.yaml") + ":2:8: paper: must be one of a4, letter",
+                line.GetProperty("messages")[0].GetString());
         }
     }
 
@@ -286,7 +331,11 @@ public class ReissueTests
         {
             string dir = Directory.CreateTempSubdirectory("bw-shard-").FullName;
             string regions = Path.Combine(dir, "regions");
-            var spellings = new[] { Path.Combine(regions, "north.yaml"), regions + "/./north.yaml", Path.Combine(dir, "x", "..", "regions", "north.yaml"), regions + "//north.yaml" };
+            var spellings = new[] {
+                Path.Combine(regions, "north.yaml"),
+                regions + "/./north.yaml",
+                Path.Combine(dir, "x", "..", "regions", "north.yaml"),
+                regions + "//north.yaml" };
             Assert.Single(spellings.Select(s => Shards.Key(s, null)).Distinct());
             Assert.Single(spellings.Select(s => Shards.Key(s, dir)).Distinct());
             Assert.Equal("regions/north.yaml", Shards.Key(spellings[1], dir));
@@ -304,13 +353,30 @@ public class ReissueTests
             string outDir = Path.Combine(w.Dir, "shared-out");
             var spellings = new[] { w.Dir + "/", w.Dir + "/./" };
             var runs = Enumerable.Range(1, 2).Select(k => Task.Run(() =>
-                Run(A("build", spellings[k - 1], "-o", outDir, "-q", "--no-chart-images", "--jobs", "1", "--shard", $"{k}/2")))).ToArray();
+                Run(A(
+                    "build",
+                    spellings[k - 1],
+                    "-o",
+                    outDir,
+                    "-q",
+                    "--no-chart-images",
+                    "--jobs",
+                    "1",
+                    "--shard",
+                    $"{k}/2")))).ToArray();
             await Task.WhenAll(runs);
 
             // Then every job succeeds and every brief was built once, by one shard
             foreach (var r in runs) Assert.True((await r).Code == 0, (await r).Err);
-            var built = LogLines(outDir).Where(l => l.GetProperty("status").GetString() == "built").Select(l => l.GetProperty("id").GetString()).ToList();
-            Assert.Equal(new[] { "auroria-eastmark", "auroria-national", "auroria-northport", "auroria-silverdale", "auroria-valdoree" }, built.Order());
+            var built = LogLines(outDir).Where(l => l.GetProperty("status").GetString() == "built")
+                .Select(l => l.GetProperty("id").GetString())
+                .ToList();
+            Assert.Equal(new[] {
+                "auroria-eastmark",
+                "auroria-national",
+                "auroria-northport",
+                "auroria-silverdale",
+                "auroria-valdoree" }, built.Order());
             Assert.Equal(5, Directory.GetFiles(outDir, "*.pdf").Length);
             Assert.Equal(2, LogLines(outDir).Select(l => l.GetProperty("shard").GetString()).Distinct().Count());
         }
@@ -322,7 +388,11 @@ public class ReissueTests
         public void Prints_a_list_whatever_the_number_of_files()
         {
             var one = Run(A("solve", "--json", CliAppTests.Demo("auroria-silverdale.yaml")));
-            var two = Run(A("solve", "--json", CliAppTests.Demo("auroria-silverdale.yaml"), CliAppTests.Demo("auroria-eastmark.yaml")));
+            var two = Run(A(
+                "solve",
+                "--json",
+                CliAppTests.Demo("auroria-silverdale.yaml"),
+                CliAppTests.Demo("auroria-eastmark.yaml")));
             using var a = JsonDocument.Parse(one.Out);
             using var b = JsonDocument.Parse(two.Out);
             Assert.Equal(JsonValueKind.Array, a.RootElement.ValueKind);
@@ -370,7 +440,9 @@ public class ReissueTests
             Assert.Equal(new byte[] { 0xEF, 0xBB, 0xBF }, bom[..3]);
             Assert.Equal(plain, bom[3..]);
             // The PDF and results do not change with the byte order mark.
-            Assert.Equal(File.ReadAllBytes(Path.Combine(w.Dir, "plain", "auroria-national-2026-11-30.pdf")), File.ReadAllBytes(Path.Combine(w.Dir, "bom", "auroria-national-2026-11-30.pdf")));
+            Assert.Equal(
+                File.ReadAllBytes(Path.Combine(w.Dir, "plain", "auroria-national-2026-11-30.pdf")),
+                File.ReadAllBytes(Path.Combine(w.Dir, "bom", "auroria-national-2026-11-30.pdf")));
         }
     }
 }

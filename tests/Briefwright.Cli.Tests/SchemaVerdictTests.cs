@@ -19,9 +19,15 @@ public class SchemaVerdictTests
 {
     private static readonly string Corpus = Path.Combine(CliAppTests.RepoRoot(), "tests", "corpus");
 
-    private static readonly Lazy<JsonSchema> Scenario = new(() => JsonSchema.FromText(SchemaCommand.Text("scenario"), baseUri: new Uri("https://schemas.invalid/briefwright/scenario.json")));
-    private static readonly Lazy<JsonSchema> Theme = new(() => JsonSchema.FromText(SchemaCommand.Text("theme"), baseUri: new Uri("https://schemas.invalid/briefwright/theme.json")));
-    private static readonly Lazy<JsonSchema> Settings = new(() => JsonSchema.FromText(SchemaCommand.Text("settings"), baseUri: new Uri("https://schemas.invalid/briefwright/settings.json")));
+    private static readonly Lazy<JsonSchema> Scenario = new(() => JsonSchema.FromText(
+        SchemaCommand.Text("scenario"),
+        baseUri: new Uri("https://schemas.invalid/briefwright/scenario.json")));
+    private static readonly Lazy<JsonSchema> Theme = new(() => JsonSchema.FromText(
+        SchemaCommand.Text("theme"),
+        baseUri: new Uri("https://schemas.invalid/briefwright/theme.json")));
+    private static readonly Lazy<JsonSchema> Settings = new(() => JsonSchema.FromText(
+        SchemaCommand.Text("settings"),
+        baseUri: new Uri("https://schemas.invalid/briefwright/settings.json")));
 
     /// <summary>
     /// Corpus files that <c>check</c> refuses for a reason a schema of one file cannot express, by the rule in their
@@ -57,17 +63,21 @@ public class SchemaVerdictTests
     private static readonly string[] LostInJson = ["quoted-number.yaml", "overlong-number.yaml"];
 
     /// <summary>A YAML tree as JSON, typed by the YAML 1.2 core schema (as editors' YAML support reads it): plain
-    /// true/false are booleans, plain numbers are numbers, plain null/~/empty is null, everything else a string.</summary>
+    /// true/false are booleans, plain numbers are numbers, plain null/~/empty is null, everything else a
+    /// string.</summary>
     public static JsonNode? ToJson(YNode node) => node switch
     {
-        YMapping m => new JsonObject(m.Entries.GroupBy(e => e.Key.Value).Select(g => new KeyValuePair<string, JsonNode?>(g.Key, ToJson(g.Last().Value)))),
+        YMapping m => new JsonObject(m.Entries.GroupBy(e => e.Key.Value)
+            .Select(g => new KeyValuePair<string, JsonNode?>(g.Key, ToJson(g.Last().Value)))),
         YSequence s => new JsonArray(s.Items.Select(ToJson).ToArray()),
         YScalar { Quoted: true } q => JsonValue.Create(q.Value),
         YScalar { IsNull: true } => null,
         YScalar { Value: "true" or "True" or "TRUE" } => JsonValue.Create(true),
         YScalar { Value: "false" or "False" or "FALSE" } => JsonValue.Create(false),
-        YScalar p when Regex.IsMatch(p.Value, "^[-+]?[0-9]+$") && long.TryParse(p.Value, out long l) => JsonValue.Create(l),
-        YScalar p when Regex.IsMatch(p.Value, "^[-+]?(\\.[0-9]+|[0-9]+(\\.[0-9]*)?)([eE][-+]?[0-9]+)?$") => JsonValue.Create(double.Parse(p.Value, System.Globalization.CultureInfo.InvariantCulture)),
+        YScalar p when Regex.IsMatch(p.Value, "^[-+]?[0-9]+$") && long.TryParse(p.Value, out long l)
+            => JsonValue.Create(l),
+        YScalar p when Regex.IsMatch(p.Value, "^[-+]?(\\.[0-9]+|[0-9]+(\\.[0-9]*)?)([eE][-+]?[0-9]+)?$")
+            => JsonValue.Create(double.Parse(p.Value, System.Globalization.CultureInfo.InvariantCulture)),
         YScalar p => JsonValue.Create(p.Value),
         _ => throw new InvalidOperationException(node.Kind),
     };
@@ -83,7 +93,9 @@ public class SchemaVerdictTests
     {
         var (root, problems) = YamlTreeReader.Read(file, File.ReadAllText(file));
         if (root is null || problems.Count > 0) return null; // not YAML a validator could read
-        var schema = file.EndsWith(".theme.yaml") ? Theme.Value : Path.GetFileName(file) == Project.ProjectSettings.FileName ? Settings.Value : Scenario.Value;
+        var schema = file.EndsWith(".theme.yaml")
+            ? Theme.Value
+            : Path.GetFileName(file) == Project.ProjectSettings.FileName ? Settings.Value : Scenario.Value;
         return SchemaAccepts(schema, ToJson(root));
     }
 
@@ -97,7 +109,9 @@ public class SchemaVerdictTests
     [Fact]
     public void Every_demo_and_corpus_file_gets_the_same_verdict_from_the_schema_as_from_check_where_a_schema_can_tell()
     {
-        var files = Directory.GetFiles(CliAppTests.Demo(), "*.yaml").Concat(Directory.GetFiles(Corpus, "*.yaml")).Order(StringComparer.Ordinal).ToList();
+        var files = Directory.GetFiles(CliAppTests.Demo(), "*.yaml").Concat(Directory.GetFiles(Corpus, "*.yaml"))
+            .Order(StringComparer.Ordinal)
+            .ToList();
         Assert.True(files.Count > 140, $"{files.Count} files");
         var disagreements = new List<string>();
         int compared = 0, checkRefusals = 0, schemaRefusals = 0;
@@ -114,16 +128,23 @@ public class SchemaVerdictTests
             compared++;
             if (schema == false) schemaRefusals++;
             string first = error.Split('\n')[0];
-            string rule = Regex.Match(first, @"^.*?:\d+:\d+: (?:[^\s:]+: )?(.*)$") is { Success: true } m ? m.Groups[1].Value : first;
+            string rule = Regex.Match(first, @"^.*?:\d+:\d+: (?:[^\s:]+: )?(.*)$") is { Success: true } m
+                ? m.Groups[1].Value
+                : first;
             if (schema == false && ok) disagreements.Add($"{Path.GetFileName(file)}: schema refuses, check accepts");
-            else if (schema == true && !ok && !first.StartsWith(file + ":") && Path.GetFileName(file) is var name && !LostInJson.Contains(name))
+            else if (schema == true && !ok && !first.StartsWith(file + ":") && Path.GetFileName(file) is var name
+                && !LostInJson.Contains(name))
                 continue; // the problem is in another file it names (a life table): beyond a schema of this one
-            else if (schema == true && !ok && !BeyondTheSchema.Any(r => rule.Contains(r, StringComparison.OrdinalIgnoreCase)) && !LostInJson.Contains(Path.GetFileName(file)))
+            else if (schema == true && !ok
+                && !BeyondTheSchema.Any(r => rule.Contains(r, StringComparison.OrdinalIgnoreCase))
+                && !LostInJson.Contains(Path.GetFileName(file)))
                 disagreements.Add($"{Path.GetFileName(file)}: schema accepts, check refuses: {first}");
         }
         Assert.True(disagreements.Count == 0, string.Join("\n", disagreements));
         Assert.True(compared > 120, $"{compared} compared");
-        Assert.True(schemaRefusals > 80, $"the schema refused only {schemaRefusals} of {checkRefusals} files check refuses");
+        Assert.True(
+            schemaRefusals > 80,
+            $"the schema refused only {schemaRefusals} of {checkRefusals} files check refuses");
     }
 
     [Fact]
@@ -132,15 +153,21 @@ public class SchemaVerdictTests
         string national = File.ReadAllText(CliAppTests.Demo("auroria-national.yaml"));
         JsonNode? Json(string yaml) => ToJson(YamlTreeReader.Read("x.yaml", yaml).Root!);
         // An extends child (the demo's Silverdale) is valid on its own.
-        Assert.True(SchemaAccepts(Scenario.Value, Json(File.ReadAllText(CliAppTests.Demo("auroria-silverdale.yaml")))), "extends child");
+        Assert.True(
+            SchemaAccepts(Scenario.Value, Json(File.ReadAllText(CliAppTests.Demo("auroria-silverdale.yaml")))),
+            "extends child");
         // An unquoted date, read as a string by a YAML 1.2 reader, is valid.
         Assert.True(SchemaAccepts(Scenario.Value, Json(national)), "demo with unquoted date");
         // The README's own error example: a saving rate of 122% is refused, as check refuses it.
         Assert.False(SchemaAccepts(Scenario.Value, Json(national.Replace("value: 22%", "value: 122%"))), "122%");
         // A typo in a key is refused.
-        Assert.False(SchemaAccepts(Scenario.Value, Json(national.Replace("form: gompertz_makeham", "form: gompertz_makeham\n    maxage: 110"))), "maxage");
+        Assert.False(SchemaAccepts(
+            Scenario.Value,
+            Json(national.Replace("form: gompertz_makeham", "form: gompertz_makeham\n    maxage: 110"))), "maxage");
         // A date that is not YYYY-MM-DD is refused.
-        Assert.False(SchemaAccepts(Scenario.Value, Json(national.Replace("date: 2026-11-30", "date: 30/11/2026"))), "date");
+        Assert.False(
+            SchemaAccepts(Scenario.Value, Json(national.Replace("date: 2026-11-30", "date: 30/11/2026"))),
+            "date");
     }
 
     [Theory]
@@ -177,15 +204,21 @@ public class SchemaVerdictTests
     {
         var output = new StringWriter();
         Assert.Equal(0, CliApp.Run(new[] { "schema", kind }, output, new StringWriter()));
-        Assert.Equal(File.ReadAllText(Path.Combine(CliAppTests.RepoRoot(), "docs", $"{kind}.schema.json")), output.ToString());
+        Assert.Equal(
+            File.ReadAllText(Path.Combine(CliAppTests.RepoRoot(), "docs", $"{kind}.schema.json")),
+            output.ToString());
     }
 
     [Fact]
     public void The_settings_schema_follows_the_settings_fields()
     {
         using var doc = JsonDocument.Parse(SchemaCommand.Text("settings"));
-        Assert.Equal(Project.ProjectSettings.Fields.Select(f => f.Key), doc.RootElement.GetProperty("properties").EnumerateObject().Select(p => p.Name));
-        Assert.True(SchemaAccepts(Settings.Value, JsonNode.Parse("""{"out":"briefs","date":"2027-01-01","jobs":2,"chart_copies":false}""")));
+        Assert.Equal(
+            Project.ProjectSettings.Fields.Select(f => f.Key),
+            doc.RootElement.GetProperty("properties").EnumerateObject().Select(p => p.Name));
+        Assert.True(SchemaAccepts(
+            Settings.Value,
+            JsonNode.Parse("""{"out":"briefs","date":"2027-01-01","jobs":2,"chart_copies":false}""")));
         Assert.False(SchemaAccepts(Settings.Value, JsonNode.Parse("""{"jobs":0}""")));
         Assert.False(SchemaAccepts(Settings.Value, JsonNode.Parse("""{"them":"x.theme.yaml"}""")));
     }

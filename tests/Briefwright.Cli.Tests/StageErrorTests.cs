@@ -69,7 +69,8 @@ public class StageErrorTests
         Assert.Contains($"{file}: the model cannot solve this scenario: Monte Carlo: ", error.ToString());
         Assert.Contains("narrow the distributions", error.ToString());
         Assert.DoesNotContain(Report, error.ToString());
-        Assert.False(Directory.Exists(Path.Combine(Path.GetDirectoryName(file)!, "out", "sobol-starved-2026-11-30.pdf")));
+        Assert.False(
+            Directory.Exists(Path.Combine(Path.GetDirectoryName(file)!, "out", "sobol-starved-2026-11-30.pdf")));
 
         var ex = Assert.Throws<UnsolvableScenarioException>(() => ScenarioSolver.Solve(loaded.Document!));
         Assert.IsType<ModelRuleException>(ex.InnerException);
@@ -96,11 +97,16 @@ public class StageErrorTests
         foreach (var command in new[] { "check", "solve", "build" })
         {
             var error = new StringWriter();
-            int code = CliApp.Run([command, file, .. command == "build" ? new[] { "-q", "--no-chart-images" } : []], new StringWriter(), error);
+            int code = CliApp.Run(
+                [command, file, .. command == "build" ? new[] { "-q", "--no-chart-images" } : []],
+                new StringWriter(),
+                error);
             Assert.Equal(ExitCodes.InvalidInput, code);
             int line = SobolStarved.Split('\n').ToList().FindIndex(l => l.Contains("sobol_samples")) + 1;
             Assert.Contains($"{file}:{line}:", error.ToString());
-            Assert.Contains("uncertainty.sobol_samples: the distributions break a model rule too often for the Sobol indices", error.ToString());
+            Assert.Contains(
+                "uncertainty.sobol_samples: the distributions break a model rule too often for the Sobol indices",
+                error.ToString());
             Assert.DoesNotContain(Report, error.ToString());
         }
     }
@@ -120,11 +126,23 @@ public class StageErrorTests
 
     public static TheoryData<string, Exception, Stage?, int> Failures => new()
     {
-        { "model", new UnsolvableScenarioException("Monte Carlo: too few draws", new ModelRuleException("x")), Stage.Model, ExitCodes.InvalidInput },
+        {
+            "model", new UnsolvableScenarioException("Monte Carlo: too few draws", new ModelRuleException("x")),
+            Stage.Model, ExitCodes.InvalidInput
+        },
         { "model rule", new ModelRuleException("Sobol indices: only 0 of 64"), Stage.Model, ExitCodes.InvalidInput },
-        { "template", new TemplateException([new TemplateError("t.md", 3, 4, "unknown field")]), Stage.Template, ExitCodes.InvalidInput },
-        { "layout", new ComposeException("links in a brief must start with http:", 3), Stage.Layout, ExitCodes.InvalidInput },
-        { "write", new EditionWriteException("disk full; nothing was replaced", new IOException("disk full")), Stage.Write, ExitCodes.Failed },
+        {
+            "template", new TemplateException([new TemplateError("t.md", 3, 4, "unknown field")]),
+            Stage.Template, ExitCodes.InvalidInput
+        },
+        {
+            "layout", new ComposeException("links in a brief must start with http:", 3),
+            Stage.Layout, ExitCodes.InvalidInput
+        },
+        {
+            "write", new EditionWriteException("disk full; nothing was replaced", new IOException("disk full")),
+            Stage.Write, ExitCodes.Failed
+        },
         { "folder", new UnauthorizedAccessException("read-only"), Stage.Write, ExitCodes.Failed },
         { "tool", new NullReferenceException("a bug"), null, ExitCodes.Failed },
     };
@@ -139,6 +157,8 @@ public class StageErrorTests
         Assert.Equal(exitCode, failure.ExitCode);
         Assert.Equal(exitCode == ExitCodes.InvalidInput ? OutcomeStatus.Invalid : OutcomeStatus.Failed, failure.Status);
         Assert.Equal(stage is null, failure.Lines.Any(l => l.Contains(Report)));
-        Assert.All(failure.Lines, l => Assert.True(l.StartsWith("s.yaml", StringComparison.Ordinal) || l.StartsWith("t.md:3:4", StringComparison.Ordinal), $"{name}: {l}"));
+        Assert.All(failure.Lines, l => Assert.True(
+            l.StartsWith("s.yaml", StringComparison.Ordinal) || l.StartsWith("t.md:3:4", StringComparison.Ordinal),
+            $"{name}: {l}"));
     }
 }

@@ -2,7 +2,9 @@ using System.Diagnostics;
 
 namespace Briefwright.Cli.Tests;
 
-/// <summary>A temporary copy of the demo scenarios with light Monte Carlo settings, so batch tests run quickly.</summary>
+/// <summary>
+/// A temporary copy of the demo scenarios with light Monte Carlo settings, so batch tests run quickly.
+/// </summary>
 internal sealed class Workspace
 {
     public string Dir { get; } = Directory.CreateTempSubdirectory("bw-batch-").FullName;
@@ -13,8 +15,12 @@ internal sealed class Workspace
         foreach (var f in Directory.GetFiles(CliAppTests.Demo()))
         {
             string name = Path.GetFileName(f);
-            if (name.EndsWith(".yaml") && names.Length > 0 && !names.Contains(Path.GetFileNameWithoutExtension(name)) && name != "auroria-national.yaml") continue;
-            string text = File.ReadAllText(f).Replace("draws: 2000", "draws: 60").Replace("sobol_samples: 2560", "sobol_samples: 0").Replace("steps: 9", "steps: 3");
+            if (name.EndsWith(".yaml") && names.Length > 0 && !names.Contains(Path.GetFileNameWithoutExtension(name))
+                && name != "auroria-national.yaml")
+                continue;
+            string text = File.ReadAllText(f).Replace("draws: 2000", "draws: 60")
+                .Replace("sobol_samples: 2560", "sobol_samples: 0")
+                .Replace("steps: 9", "steps: 3");
             File.WriteAllText(Path.Combine(Dir, name), text);
         }
     }

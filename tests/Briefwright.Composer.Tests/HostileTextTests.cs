@@ -37,7 +37,9 @@ public class HostileTextTests
         Assert.Equal(length, lines.Skip(1).Sum(l => l.Spans.Sum(s => s.Text.Count(c => c == 'w'))));
         Assert.All(lines, l => Assert.True(l.Width <= 100 + 1e-6));
         // Each character is measured a bounded number of times (once alone, once in its piece, once in its word).
-        Assert.True(measurer.Measured < 4L * length + 100, $"{measurer.Measured} characters measured for a word of {length}");
+        Assert.True(
+            measurer.Measured < 4L * length + 100,
+            $"{measurer.Measured} characters measured for a word of {length}");
     }
 
     [Fact]
@@ -56,7 +58,8 @@ public class HostileTextTests
     [InlineData("<file:///etc/passwd>", "file:///etc/passwd")]
     public void A_link_with_another_scheme_is_refused(string markdown, string url)
     {
-        var ex = Assert.Throws<ComposeException>(() => MarkdownReader.Read("# T\n\n" + markdown + "\n", new Dictionary<string, FigureBlock>()));
+        var ex = Assert.Throws<ComposeException>(
+            () => MarkdownReader.Read("# T\n\n" + markdown + "\n", new Dictionary<string, FigureBlock>()));
         Assert.Contains($"links in a brief must start with http:, https: or mailto:. Got '{url}'.", ex.Message);
         Assert.Equal(3, ex.Line);
     }
@@ -64,15 +67,22 @@ public class HostileTextTests
     [Fact]
     public void Http_https_and_mailto_links_are_kept()
     {
-        var blocks = MarkdownReader.Read("[a](https://example.org) [b](http://example.org) [c](mailto:x@example.org) <https://example.org/d>\n", new Dictionary<string, FigureBlock>());
-        var links = ((ParagraphBlock)Assert.Single(blocks)).Runs.Where(r => r.Link is not null).Select(r => r.Link).ToList();
-        Assert.Equal(new[] { "https://example.org", "http://example.org", "mailto:x@example.org", "https://example.org/d" }, links);
+        var blocks = MarkdownReader.Read(
+            "[a](https://example.org) [b](http://example.org) [c](mailto:x@example.org) <https://example.org/d>\n",
+            new Dictionary<string, FigureBlock>());
+        var links = ((ParagraphBlock)Assert.Single(blocks)).Runs.Where(r => r.Link is not null).Select(r => r.Link)
+            .ToList();
+        Assert.Equal(
+            new[] { "https://example.org", "http://example.org", "mailto:x@example.org", "https://example.org/d" },
+            links);
     }
 
     [Fact]
     public void Escaped_brackets_are_text_and_a_written_directive_still_works()
     {
-        var blocks = MarkdownReader.Read("\\[\\[pagebreak\\]\\]\n\n\\[\\[figure: nope\\]\\]\n\n[[pagebreak]]\n", new Dictionary<string, FigureBlock>());
+        var blocks = MarkdownReader.Read(
+            "\\[\\[pagebreak\\]\\]\n\n\\[\\[figure: nope\\]\\]\n\n[[pagebreak]]\n",
+            new Dictionary<string, FigureBlock>());
         Assert.Equal("[[pagebreak]]", string.Concat(((ParagraphBlock)blocks[0]).Runs.Select(r => r.Text)));
         Assert.Equal("[[figure: nope]]", string.Concat(((ParagraphBlock)blocks[1]).Runs.Select(r => r.Text)));
         Assert.IsType<PageBreakBlock>(blocks[2]);

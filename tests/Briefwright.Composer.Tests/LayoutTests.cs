@@ -18,7 +18,9 @@ public class LayoutTests
 
     private static RecordingSurface Draw(params Block[] blocks)
     {
-        var brief = new BriefDocument(new DocumentInfo("T", "Short", "A", "S", "K", "en-GB", new DateOnly(2026, 11, 30), "Edition 1", "Footer"), blocks);
+        var brief = new BriefDocument(
+            new DocumentInfo("T", "Short", "A", "S", "K", "en-GB", new DateOnly(2026, 11, 30), "Edition 1", "Footer"),
+            blocks);
         var measurer = new FixedMeasurer();
         var pages = DocumentComposer.Layout(brief, Theme, measurer);
         var surface = new RecordingSurface();
@@ -36,7 +38,13 @@ public class LayoutTests
     public void A_table_split_across_pages_repeats_its_header_row()
     {
         var rows = Enumerable.Range(1, 40).Select(i => (IReadOnlyList<string>)new[] { $"row {i}", $"{i}.0" }).ToList();
-        var s = Draw(new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, "Caption", null));
+        var s = Draw(
+            new TableBlock(
+                new[] { "Name", "Value" },
+                rows,
+                new[] { CellAlign.Left, CellAlign.Right },
+                "Caption",
+                null));
         Assert.True(s.PageCount >= 2);
         for (int page = 0; page < s.PageCount; page++)
         {
@@ -51,7 +59,8 @@ public class LayoutTests
     public void Numbers_in_a_right_aligned_column_end_at_the_same_x()
     {
         var rows = new[] { (IReadOnlyList<string>)new[] { "a", "1.5" }, new[] { "b", "12345.5" } };
-        var s = Draw(new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, null, null));
+        var s = Draw(
+            new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, null, null));
         var ends = BodyText(s).Where(o => o.Text is "1.5" or "12345.5").Select(o => o.X + o.Text.Length * 5.0).ToList();
         Assert.Equal(ends[0], ends[1], 6);
     }
@@ -106,7 +115,11 @@ public class LayoutTests
     [Fact]
     public void Headings_are_numbered_and_recorded_for_the_outline()
     {
-        var s = Draw(new HeadingBlock(1, "Title"), new HeadingBlock(2, "First"), new HeadingBlock(3, "Sub"), new HeadingBlock(2, "Second"));
+        var s = Draw(
+            new HeadingBlock(1, "Title"),
+            new HeadingBlock(2, "First"),
+            new HeadingBlock(3, "Sub"),
+            new HeadingBlock(2, "Second"));
         var outline = s.Ops.Where(o => o.Kind == "outline").Select(o => o.Text).ToList();
         Assert.Equal(new[] { "Title", "1  First", "1.1  Sub", "2  Second" }, outline);
     }
@@ -116,7 +129,9 @@ public class LayoutTests
     {
         var s = Draw(Words(200), new ParagraphBlock(new[] { new TextRun(new string('x', 300)) }));
         double right = Theme.PageWidth - Theme.MarginRight;
-        Assert.All(BodyText(s), o => Assert.True(o.X + o.Text.Length * 5.0 <= right + 1e-6, $"'{o.Text}' ends at {o.X + o.Text.Length * 5.0}"));
+        Assert.All(BodyText(s), o => Assert.True(
+            o.X + o.Text.Length * 5.0 <= right + 1e-6,
+            $"'{o.Text}' ends at {o.X + o.Text.Length * 5.0}"));
     }
 
     [Fact]
@@ -131,7 +146,8 @@ public class LayoutTests
     /// <summary>The lowest point drawn in the content area of each page (text baselines and figure bottoms).</summary>
     private static double[] Filled(RecordingSurface s) => Enumerable.Range(0, s.PageCount).Select(p => s.Ops
         .Where(o => o.Page == p && o.Y > Theme.MarginTop && o.Y < Bottom + 1 && o.Kind is "text" or "figure")
-        .Select(o => o.Kind == "figure" ? o.Y + o.Height : o.Y).DefaultIfEmpty(Theme.MarginTop).Max() - Theme.MarginTop).ToArray();
+        .Select(o => o.Kind == "figure" ? o.Y + o.Height : o.Y)
+        .DefaultIfEmpty(Theme.MarginTop).Max() - Theme.MarginTop).ToArray();
 
     [Fact]
     public void A_figure_that_does_not_fit_waits_while_the_text_after_it_fills_the_page()
@@ -152,7 +168,9 @@ public class LayoutTests
         Assert.True(caption.Y - Theme.MarginTop < 20);
         var filled = Filled(s);
         for (int p = 0; p < s.PageCount - 1; p++)
-            Assert.True(filled[p] > Theme.ContentHeight * 2 / 3, $"page {p + 1} is filled to {filled[p]:0} of {Theme.ContentHeight:0} pt");
+            Assert.True(
+                filled[p] > Theme.ContentHeight * 2 / 3,
+                $"page {p + 1} is filled to {filled[p]:0} of {Theme.ContentHeight:0} pt");
     }
 
     [Fact]
@@ -161,8 +179,12 @@ public class LayoutTests
         double lh = Theme.BodySize * Theme.LineFactor;
         int wordsPerLine = (int)Math.Floor((Theme.ContentWidth + 5) / 25);
         // Leaves room for the heading and about one line, not for the heading and the two lines it keeps with.
-        int firstLines = (int)Math.Floor((Theme.ContentHeight - Theme.ParagraphGap - 16 - 13.5 * 1.25 - 3 - Theme.ParagraphGap - 1.2 * lh) / lh);
-        var s = Draw(Words(firstLines * wordsPerLine), new HeadingBlock(2, "Next section"), Words(wordsPerLine * 6, 'v'));
+        int firstLines = (int)Math.Floor(
+            (Theme.ContentHeight - Theme.ParagraphGap - 16 - 13.5 * 1.25 - 3 - Theme.ParagraphGap - 1.2 * lh) / lh);
+        var s = Draw(
+            Words(firstLines * wordsPerLine),
+            new HeadingBlock(2, "Next section"),
+            Words(wordsPerLine * 6, 'v'));
         var heading = s.Ops.Single(o => o.Kind == "text" && o.Text.EndsWith("Next section"));
         var firstAfter = BodyText(s).First(o => o.Text.StartsWith('v'));
         Assert.Equal(1, heading.Page);
@@ -179,11 +201,15 @@ public class LayoutTests
         // Every fill of the first page, so that one of them leaves room for the lead-in line but not the equation.
         for (int fill = 1; fill < most; fill++)
         {
-            var s = Draw(Words(fill * wordsPerLine), new ParagraphBlock(new[] { new TextRun("Lead-in, the working years are:") }),
+            var s = Draw(
+                Words(fill * wordsPerLine),
+                new ParagraphBlock(new[] { new TextRun("Lead-in, the working years are:") }),
                 new MathBlock(@"W^{*} = \frac{Q}{Z}"));
             var lead = s.Ops.Single(o => o.Kind == "text" && o.Text.StartsWith("Lead-in", StringComparison.Ordinal));
             var equation = s.Ops.First(o => o.Kind == "text" && o.Text.Contains('Q'));
-            Assert.True(lead.Page == equation.Page, $"fill {fill}: the lead-in is on page {lead.Page + 1}, its equation on {equation.Page + 1}");
+            Assert.True(
+                lead.Page == equation.Page,
+                $"fill {fill}: the lead-in is on page {lead.Page + 1}, its equation on {equation.Page + 1}");
         }
     }
 
@@ -192,7 +218,12 @@ public class LayoutTests
     {
         string longText = string.Join(" ", Enumerable.Repeat("explanation", 30));
         var rows = new[] { (IReadOnlyList<string>)new[] { longText, "63 to 67", "+4.1% to +4.3%" } };
-        var s = Draw(new TableBlock(new[] { "Assumption", "Range tested", "Change" }, rows, new[] { CellAlign.Left, CellAlign.Right, CellAlign.Right }, null, null));
+        var s = Draw(new TableBlock(
+            new[] { "Assumption", "Range tested", "Change" },
+            rows,
+            new[] { CellAlign.Left, CellAlign.Right, CellAlign.Right },
+            null,
+            null));
         Assert.Contains(BodyText(s), o => o.Text == "63 to 67");
         Assert.Contains(BodyText(s), o => o.Text == "+4.1% to +4.3%");
         Assert.Contains(BodyText(s), o => o.Text == "Range tested");
@@ -201,8 +232,10 @@ public class LayoutTests
     [Fact]
     public void A_block_that_can_never_fit_on_a_page_is_an_error_that_names_it()
     {
-        var rows = new[] { (IReadOnlyList<string>)new[] { "Overlong row " + string.Join(" ", Enumerable.Repeat("word", 3000)), "1" } };
-        var e = Assert.Throws<ComposeException>(() => Draw(new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, null, null)));
+        var rows = new[] {
+            (IReadOnlyList<string>)new[] { "Overlong row " + string.Join(" ", Enumerable.Repeat("word", 3000)), "1" } };
+        var e = Assert.Throws<ComposeException>(() => Draw(
+            new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, null, null)));
         Assert.Contains("table row 'Overlong row", e.Message);
         Assert.Contains("cannot fit on a page", e.Message);
     }
@@ -212,10 +245,17 @@ public class LayoutTests
     {
         var figure = new FigureBlock("chart", Array.Empty<byte>(), 1, 400, 200, "A chart", "Model", "Alt text");
         var rows = Enumerable.Range(1, 30).Select(i => (IReadOnlyList<string>)new[] { $"row {i}", $"{i}.0" }).ToList();
-        var s = Draw(Words(100), figure, new HeadingBlock(2, "H"), Words(200), new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, "Caption", "Source"), figure, Words(50));
+        var s = Draw(Words(100), figure, new HeadingBlock(2, "H"), Words(200), new TableBlock(
+            new[] { "Name", "Value" },
+            rows,
+            new[] { CellAlign.Left, CellAlign.Right },
+            "Caption",
+            "Source"), figure, Words(50));
         Assert.All(s.Ops.Where(o => o.Kind == "figure"), f => Assert.True(f.Y + f.Height <= Bottom + 1e-6));
         // The footer's baseline is 30 pt below the content area; anything between is content drawn too low.
-        Assert.All(s.Ops.Where(o => o.Kind == "text" && o.Y > Theme.MarginTop && o.Y < Bottom + 25), t => Assert.True(t.Y <= Bottom, $"'{t.Text}' at {t.Y}"));
+        Assert.All(
+            s.Ops.Where(o => o.Kind == "text" && o.Y > Theme.MarginTop && o.Y < Bottom + 25),
+            t => Assert.True(t.Y <= Bottom, $"'{t.Text}' at {t.Y}"));
         Assert.Equal(0, s.OpenTags);
     }
 }

@@ -5,7 +5,10 @@ using Briefwright.Composer.Markdown;
 
 namespace Briefwright.Composer.Tests;
 
-/// <summary>The math notation: parsed, laid out with sizes and baselines, drawn inside a Formula element with spoken alternative text.</summary>
+/// <summary>
+/// The math notation: parsed, laid out with sizes and baselines, drawn inside a Formula element with spoken alternative
+/// text.
+/// </summary>
 public class MathTests
 {
     /// <summary>Every character 0.5 of the font size wide, so sizes show in widths.</summary>
@@ -17,7 +20,8 @@ public class MathTests
 
     private static readonly ScaledMeasurer Measurer = new();
 
-    private static MathBox Lay(string source, double size = 10) => MathBox.Layout(MathNotation.Parse(source), size, Measurer);
+    private static MathBox Lay(string source, double size = 10)
+        => MathBox.Layout(MathNotation.Parse(source), size, Measurer);
 
     [Fact]
     public void A_superscript_is_smaller_and_raised_and_a_subscript_smaller_and_lowered()
@@ -46,7 +50,9 @@ public class MathTests
         Assert.True(rule.Dy < 0, "the rule is on the maths axis, above the baseline");
         // The rule spans the wider part; the denominator is centred under it.
         double cCentre = c.X + 0.5 * c.Font.Size * 0.5;
-        Assert.True(Math.Abs((rule.X1 + rule.X2) / 2 - cCentre) < 0.5, $"denominator centred at {cCentre}, rule at {(rule.X1 + rule.X2) / 2}");
+        Assert.True(
+            Math.Abs((rule.X1 + rule.X2) / 2 - cCentre) < 0.5,
+            $"denominator centred at {cCentre}, rule at {(rule.X1 + rule.X2) / 2}");
         Assert.True(box.Ascent > 10 && box.Descent > 5, "a fraction is taller than a line of text");
     }
 
@@ -98,11 +104,14 @@ public class MathTests
     [Fact]
     public void A_display_equation_in_the_text_is_drawn_inside_a_formula_element_with_alternative_text()
     {
-        string markdown = "Before.\n\n$$\\omega(E) = p \\cdot \\frac{\\int_{a_0}^{R} l(a)\\, da}{\\int_{0}^{\\Omega} l(a)\\, da}$$\n\nAfter *this*.\n";
+        string markdown = "Before.\n\n$$\\omega(E) = p \\cdot \\frac{\\int_{a_0}^{R} l(a)\\, da}{\\int_{0}^{\\Omega} " +
+            "l(a)\\, da}$$\n\nAfter *this*.\n";
         var blocks = MarkdownReader.Read(markdown, new Dictionary<string, FigureBlock>());
         var math = Assert.Single(blocks.OfType<MathBlock>());
         Assert.StartsWith("\\omega(E)", math.Source);
-        var brief = new BriefDocument(new DocumentInfo("T", "S", "A", "S", "K", "en-GB", new DateOnly(2026, 11, 30), "E", "F"), blocks);
+        var brief = new BriefDocument(
+            new DocumentInfo("T", "S", "A", "S", "K", "en-GB", new DateOnly(2026, 11, 30), "E", "F"),
+            blocks);
         var theme = new Theme();
         var pages = DocumentComposer.Layout(brief, theme, Measurer);
         var surface = new AltRecordingSurface();
@@ -137,9 +146,11 @@ public class MathTests
         public void EndTag() => inner.EndTag();
         public void BeginArtifact() => inner.BeginArtifact();
         public void EndArtifact() => inner.EndArtifact();
-        public void Text(string text, double x, double baseline, FontSpec font, Rgb color) => inner.Text(text, x, baseline, font, color);
+        public void Text(string text, double x, double baseline, FontSpec font, Rgb color)
+            => inner.Text(text, x, baseline, font, color);
         public void FillRect(Box box, Rgb color) => inner.FillRect(box, color);
-        public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) => inner.Line(x1, y1, x2, y2, color, width);
+        public void Line(double x1, double y1, double x2, double y2, Rgb color, double width)
+            => inner.Line(x1, y1, x2, y2, color, width);
         public void Figure(string id, byte[] pdf, int page, Box box) => inner.Figure(id, pdf, page, box);
         public void BeginLink(Box box, string url, string text) => inner.BeginLink(box, url, text);
         public void EndLink() => inner.EndLink();

@@ -27,7 +27,8 @@ public class ReproducibleBytesTests
     private static byte[] StoredDeflate(string text)
     {
         using var packed = new MemoryStream();
-        using (var z = new ZLibStream(packed, CompressionLevel.NoCompression, leaveOpen: true)) z.Write(Encoding.ASCII.GetBytes(text));
+        using (var z = new ZLibStream(packed, CompressionLevel.NoCompression, leaveOpen: true)) z.Write(
+            Encoding.ASCII.GetBytes(text));
         return packed.ToArray();
     }
 
@@ -39,11 +40,14 @@ public class ReproducibleBytesTests
         return output.ToArray();
     }
 
-    /// <summary>A small PDFsharp document (random subset tag, /ID and XMP uuids) with one extra compressed stream.</summary>
+    /// <summary>
+    /// A small PDFsharp document (random subset tag, /ID and XMP uuids) with one extra compressed stream.
+    /// </summary>
     private static byte[] Sample(byte[] compressed)
     {
         using var doc = new PdfDocument();
-        doc.Options.CompressContentStreams = false; // PDFsharp's own deflate output draws a qpdf warning (see DocumentComposer)
+        // PDFsharp's own deflate output draws a qpdf warning (see DocumentComposer)
+        doc.Options.CompressContentStreams = false;
         doc.Info.Title = "Sample (invented)";
         doc.Info.CreationDate = new DateTime(2026, 11, 30, 0, 0, 0, DateTimeKind.Utc);
         var page = doc.AddPage();
@@ -64,7 +68,8 @@ public class ReproducibleBytesTests
     {
         BundledFonts.Install();
         byte[] compressed = StoredDeflate(Lookalikes);
-        Assert.True(compressed.AsSpan().IndexOf(Encoding.ASCII.GetBytes("/NM(abc-123)")) >= 0); // the pattern is in the raw bytes
+        // the pattern is in the raw bytes
+        Assert.True(compressed.AsSpan().IndexOf(Encoding.ASCII.GetBytes("/NM(abc-123)")) >= 0);
 
         byte[] fixedPdf = ReproducibleBytes.Fix(Sample(compressed), new DateOnly(2026, 11, 30));
 
@@ -98,14 +103,18 @@ public class ReproducibleBytesTests
     {
         byte[] pdf = Encoding.Latin1.GetBytes(
             "%PDF-1.7\n1 0 obj\n<</Length 2 0 R>>\nstream\nabc\nendstream\nendobj\n2 0 obj\n3\nendobj\nxref\n0 3\n" +
-            "0000000000 65535 f \n0000000009 00000 n \n0000000063 00000 n \ntrailer\n<</Size 3>>\nstartxref\n80\n%%EOF\n");
+            "0000000000 65535 f \n0000000009 00000 n \n0000000063 00000 n \ntrailer\n<</Size 3>>\nstartxref\n80\n" +
+            "%%EOF\n");
         Assert.Throws<InvalidDataException>(() => ReproducibleBytes.Fix(pdf, new DateOnly(2026, 11, 30)));
     }
 
     private static int CountOf(string s, string what)
     {
         int n = 0;
-        for (int i = s.IndexOf(what, StringComparison.Ordinal); i >= 0; i = s.IndexOf(what, i + 1, StringComparison.Ordinal)) n++;
+        for (
+            int i = s.IndexOf(what, StringComparison.Ordinal);
+            i >= 0;
+            i = s.IndexOf(what, i + 1, StringComparison.Ordinal)) n++;
         return n;
     }
 
@@ -115,7 +124,9 @@ public class ReproducibleBytesTests
         File.WriteAllBytes(path, pdf);
         try
         {
-            var psi = new ProcessStartInfo("qpdf", $"{args} \"{path}\"") { RedirectStandardOutput = true, RedirectStandardError = true };
+            var psi = new ProcessStartInfo("qpdf", $"{args} \"{path}\"") {
+                RedirectStandardOutput = true,
+                RedirectStandardError = true };
             using var p = Process.Start(psi)!;
             string output = p.StandardOutput.ReadToEnd() + p.StandardError.ReadToEnd();
             p.WaitForExit();

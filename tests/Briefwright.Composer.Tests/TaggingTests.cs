@@ -20,7 +20,9 @@ public class TaggingTests
 
     private static RecordingSurface Draw(params Block[] blocks)
     {
-        var brief = new BriefDocument(new DocumentInfo("T", "Short", "A", "S", "K", "en-GB", new DateOnly(2026, 11, 30), "Edition 1", "Footer"), blocks);
+        var brief = new BriefDocument(
+            new DocumentInfo("T", "Short", "A", "S", "K", "en-GB", new DateOnly(2026, 11, 30), "Edition 1", "Footer"),
+            blocks);
         var measurer = new FixedMeasurer();
         var pages = DocumentComposer.Layout(brief, Theme, measurer);
         var surface = new RecordingSurface();
@@ -29,13 +31,20 @@ public class TaggingTests
         return surface;
     }
 
-    private static int Tags(RecordingSurface s, StructTag tag) => s.Ops.Count(o => o.Kind == "tag" && o.Text == tag.ToString());
+    private static int Tags(RecordingSurface s, StructTag tag)
+        => s.Ops.Count(o => o.Kind == "tag" && o.Text == tag.ToString());
 
     [Fact]
     public void A_table_over_two_pages_is_one_table_with_its_header_row_once()
     {
         var rows = Enumerable.Range(1, 40).Select(i => (IReadOnlyList<string>)new[] { $"row {i}", $"{i}.0" }).ToList();
-        var s = Draw(new TableBlock(new[] { "Name", "Value" }, rows, new[] { CellAlign.Left, CellAlign.Right }, "Caption", null));
+        var s = Draw(
+            new TableBlock(
+                new[] { "Name", "Value" },
+                rows,
+                new[] { CellAlign.Left, CellAlign.Right },
+                "Caption",
+                null));
         Assert.True(s.PageCount >= 2);
         Assert.True(s.Ops.Count(o => o.Kind == "text" && o.Text == "Name") >= 2); // drawn on every page...
         Assert.Equal(1, Tags(s, StructTag.Table));
@@ -55,7 +64,9 @@ public class TaggingTests
     [Fact]
     public void A_link_is_opened_before_its_text_so_the_text_is_inside_the_link()
     {
-        var s = Draw(new ParagraphBlock(new[] { new TextRun("See "), new TextRun("the note", Link: "https://example.org/note") }));
+        var s = Draw(
+            new ParagraphBlock(
+                new[] { new TextRun("See "), new TextRun("the note", Link: "https://example.org/note") }));
         var ops = s.Ops.Select(o => (o.Kind, o.Text)).ToList();
         int link = ops.IndexOf(("link", "https://example.org/note"));
         Assert.True(link >= 0);

@@ -23,7 +23,10 @@ public class BalancedGrowthTests
             new Demography(n, 6, 65, new RectangularSurvival(80), 0.7),
             new HumanCapital(BracketReturns.HallJones, null),
             Fixtures.MankiwRomerWeil,
-            new[] { new PolicyOption("base", "Base", 10), new PolicyOption("more", "More", 12), new PolicyOption("late", "Later retirement", 10, RetirementAge: 67) },
+            new[] {
+                new PolicyOption("base", "Base", 10),
+                new PolicyOption("more", "More", 12),
+                new PolicyOption("late", "Later retirement", 10, RetirementAge: 67) },
             "base");
 
         [Fact]
@@ -32,7 +35,10 @@ public class BalancedGrowthTests
             var r = BalancedGrowth.Solve(Inputs(0.01));
             var more = r.Options.Single(o => o.Id == "more");
             var baseline = r.Options.Single(o => o.IsBaseline);
-            Assert.Equal(more.OutputPerEffectiveWorker * more.HumanCapitalPerWorker * more.WorkerShare, more.OutputPerPerson, 12);
+            Assert.Equal(
+                more.OutputPerEffectiveWorker * more.HumanCapitalPerWorker * more.WorkerShare,
+                more.OutputPerPerson,
+                12);
             Assert.Equal(0.0, baseline.ChangeVsBaselinePct);
             Assert.Equal(100 * (more.OutputPerPerson / baseline.OutputPerPerson - 1), more.ChangeVsBaselinePct, 10);
         }
@@ -41,7 +47,8 @@ public class BalancedGrowthTests
         public void A_later_retirement_age_raises_the_worker_share()
         {
             var r = BalancedGrowth.Solve(Inputs(0.01));
-            Assert.True(r.Options.Single(o => o.Id == "late").WorkerShare > r.Options.Single(o => o.Id == "base").WorkerShare);
+            Assert.True(
+                r.Options.Single(o => o.Id == "late").WorkerShare > r.Options.Single(o => o.Id == "base").WorkerShare);
         }
 
         [Fact]
@@ -49,7 +56,9 @@ public class BalancedGrowthTests
         {
             var r = BalancedGrowth.Solve(Inputs(-0.01));
             Assert.Equal(OptimumMethod.Numerical, r.Optimum.Method);
-            Assert.True(r.Optimum.Within1Pct[0] < r.Optimum.SchoolingYears && r.Optimum.SchoolingYears < r.Optimum.Within1Pct[1]);
+            Assert.True(
+                r.Optimum.Within1Pct[0] < r.Optimum.SchoolingYears
+                && r.Optimum.SchoolingYears < r.Optimum.Within1Pct[1]);
             Assert.True(r.Optimum.Diagnostics.Converged);
         }
     }

@@ -10,5 +10,6 @@ internal static class Fixtures
 
     public static HumanCapital Constant(double r) => new(new ConstantReturn(r), null);
 
-    public static Production MankiwRomerWeil => new(SavingRate: 0.2, CapitalShare: 1.0 / 3, Depreciation: 0.03, TechnologyGrowth: 0.02);
+    public static Production MankiwRomerWeil
+        => new(SavingRate: 0.2, CapitalShare: 1.0 / 3, Depreciation: 0.03, TechnologyGrowth: 0.02);
 }

@@ -7,7 +7,8 @@ public class InputsTests
     [Fact]
     public void Gompertz_Makeham_survival_from_20_to_65_matches_the_Standard_Ultimate_Life_Table()
     {
-        // Society of Actuaries Standard Ultimate Life Table: A = 0.00022, B = 2.7e-6, c = 1.124; l(65)/l(20) = 0.945797.
+        // Society of Actuaries Standard Ultimate Life Table: A = 0.00022, B = 2.7e-6, c = 1.124; l(65)/l(20) =
+        // 0.945797.
         var s = new GompertzMakehamSurvival(0.00022, 2.7e-6, 1.124, 120);
         Assert.Equal(0.945797, s.At(65) / s.At(20), 6);
     }
@@ -38,14 +39,21 @@ public class InputsTests
     public void Power_form_log_human_capital_is_the_integral_of_its_marginal_return(double years)
     {
         // Bils & Klenow (2000), AER 90(5): the Mincerian return to the s-th year is θ·s^(−ψ), so
-        // φ(E) = ∫₀^E θ·s^(−ψ) ds. Independent route: that integral by double-exponential quadrature (Math.NET) after the
-        // substitution s = x⁴, which removes the singularity at 0. θ = 0.32, ψ = 0.58 are recalled from memory.
+        // φ(E) = ∫₀^E θ·s^(−ψ) ds. Independent route: that integral by double-exponential quadrature (Math.NET) after
+        // the substitution s = x⁴, which removes the singularity at 0. θ = 0.32, ψ = 0.58 are recalled from memory.
         var p = new PowerReturn(0.32, 0.58);
-        double integral = MathNet.Numerics.Integrate.DoubleExponential(x => 0.32 * Math.Pow(x * x * x * x, -0.58) * 4 * x * x * x, 0, Math.Pow(years, 0.25), 1e-13);
+        double integral = MathNet.Numerics.Integrate.DoubleExponential(
+            x => 0.32 * Math.Pow(x * x * x * x, -0.58) * 4 * x * x * x,
+            0,
+            Math.Pow(years, 0.25),
+            1e-13);
         Assert.Equal(integral, p.Phi(years), 8);
         // The marginal return is the slope of φ (central difference) and falls with schooling.
         double h = 1e-5;
-        Assert.Equal((p.Phi(years + h) - p.Phi(years - Math.Min(h, years / 2))) / (h + Math.Min(h, years / 2)), p.MarginalReturn(years), 6);
+        Assert.Equal(
+            (p.Phi(years + h) - p.Phi(years - Math.Min(h, years / 2))) / (h + Math.Min(h, years / 2)),
+            p.MarginalReturn(years),
+            6);
         Assert.True(p.MarginalReturn(years) > p.MarginalReturn(years + 1));
     }
 }

@@ -20,7 +20,9 @@ public class LeverDecompositionTests
         "base");
 
     /// <summary>Output per person with the levers in <paramref name="on"/> at the option's values.</summary>
-    private static double Y(ModelInputs inputs, ISet<string> on) => BalancedGrowth.OutputPerPerson(inputs, new PolicyOption("x", "x",
+    private static double Y(
+        ModelInputs inputs,
+        ISet<string> on) => BalancedGrowth.OutputPerPerson(inputs, new PolicyOption("x", "x",
         on.Contains(Levers.Schooling) ? All3.SchoolingYears : 11,
         on.Contains(Levers.RetirementAge) ? All3.RetirementAge : 65,
         on.Contains(Levers.Participation) ? All3.Participation : 0.7));
@@ -32,7 +34,10 @@ public class LeverDecompositionTests
         double y0 = Y(inputs, new HashSet<string>());
         var orders = new[]
         {
-            new[] { 0, 1, 2 }, new[] { 0, 2, 1 }, new[] { 1, 0, 2 }, new[] { 1, 2, 0 }, new[] { 2, 0, 1 }, new[] { 2, 1, 0 },
+            new[] { 0, 1, 2 }, new[] { 0, 2, 1 }, new[] { 1, 0, 2 }, new[] { 1, 2, 0 }, new[] { 2, 0, 1 }, new[] {
+                2,
+                1,
+                0 },
         };
         var sums = new double[3];
         foreach (var order in orders)

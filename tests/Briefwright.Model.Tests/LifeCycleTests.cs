@@ -39,7 +39,12 @@ public class LifeCycleTests
         [InlineData(-0.015)]
         public void Quadrature_agrees_with_the_closed_form_for_rectangular_survival(double n)
         {
-            var d = new Demography(n, EntryAge: 6, RetirementAge: 64.5, new RectangularSurvival(82.3), Participation: 0.8);
+            var d = new Demography(
+                n,
+                EntryAge: 6,
+                RetirementAge: 64.5,
+                new RectangularSurvival(82.3),
+                Participation: 0.8);
             var cycle = new LifeCycle(d, Fixtures.Constant(0.1));
             Assert.Equal(cycle.WorkerShare(12.25), cycle.WorkerShareByQuadrature(12.25), 12);
         }

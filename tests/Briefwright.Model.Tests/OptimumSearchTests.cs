@@ -53,12 +53,18 @@ public class OptimumSearchTests
     public void Hall_Jones_with_Gompertz_Makeham_uses_the_numerical_search_and_converges()
     {
         var d = new Demography(0.01, 6, 65, new GompertzMakehamSurvival(0.00022, 2.7e-6, 1.124, 120), 0.75);
-        var result = OptimumSearch.Find(d, new HumanCapital(BracketReturns.HallJones, new ExperienceProfile(0.081, 0.0012)), 1.0);
+        var result = OptimumSearch.Find(
+            d,
+            new HumanCapital(BracketReturns.HallJones, new ExperienceProfile(0.081, 0.0012)),
+            1.0);
         Assert.Equal(OptimumMethod.Numerical, result.Method);
         Assert.True(result.Diagnostics.Converged);
         var cycle = new LifeCycle(d, new HumanCapital(BracketReturns.HallJones, new ExperienceProfile(0.081, 0.0012)));
         double best = cycle.Objective(result.SchoolingYears);
-        for (double e = 0; e < result.FeasibleMaxSchooling; e += 0.01) Assert.True(cycle.Objective(e) <= best * (1 + 1e-12));
+        for (
+            double e = 0;
+            e < result.FeasibleMaxSchooling;
+            e += 0.01) Assert.True(cycle.Objective(e) <= best * (1 + 1e-12));
     }
 }
 

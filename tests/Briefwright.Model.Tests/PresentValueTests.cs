@@ -39,9 +39,15 @@ public class PresentValueTests
         // Independent route: sum a constant gain year by year to 20,000 years.
         double g = 0.015;
         var path = Constant(0.05, 100);
-        var pv = PresentValue.Compute(path, DiscountSchedule.GreenBook with { Steps = DiscountSchedule.GreenBook.Steps.Take(4).ToList() }, g);
+        var pv = PresentValue.Compute(
+            path,
+            DiscountSchedule.GreenBook with { Steps = DiscountSchedule.GreenBook.Steps.Take(4).ToList() },
+            g);
         var longPath = Constant(0.05, 20_000);
-        var brute = PresentValue.Compute(longPath, DiscountSchedule.GreenBook with { Steps = DiscountSchedule.GreenBook.Steps.Take(4).ToList() }, g);
+        var brute = PresentValue.Compute(
+            longPath,
+            DiscountSchedule.GreenBook with { Steps = DiscountSchedule.GreenBook.Steps.Take(4).ToList() },
+            g);
         Assert.Equal(brute.ToHorizon, pv.Total!.Value, 8);
     }
 
@@ -58,7 +64,10 @@ public class PresentValueTests
     {
         var gain = new double[31];
         for (int t = 0; t < 31; t++) gain[t] = t < 10 ? -0.01 : 0.03;
-        var pv = PresentValue.Compute(new ReformPath("x", gain, 0.02, 0.02, -0.01, 0, 10), DiscountSchedule.Constant("zero", "0%", 0.0), 0.0);
+        var pv = PresentValue.Compute(
+            new ReformPath("x", gain, 0.02, 0.02, -0.01, 0, 10),
+            DiscountSchedule.Constant("zero", "0%", 0.0),
+            0.0);
         // Cumulative: −0.10 after year 9, then +0.03 a year: −0.07, −0.04, −0.01, +0.02 at year 13.
         Assert.Equal(13, pv.BreakEvenYear);
     }
@@ -69,12 +78,18 @@ public class PresentValueTests
         // Monte Carlo and Sobol runs ask only for the value to the horizon; it must be the very number the brief's
         // present-value table shows (same sum, same order), for every schedule and for paths with a dip.
         var inputs = ReformSimulatorTests.Inputs(experience: new ExperienceProfile(0.081, 0.0012));
-        var schedules = new[] { DiscountSchedule.GreenBook, DiscountSchedule.Omb3, DiscountSchedule.Omb7, DiscountSchedule.Constant("zero", "0%", 0.0) };
+        var schedules = new[] {
+            DiscountSchedule.GreenBook,
+            DiscountSchedule.Omb3,
+            DiscountSchedule.Omb7,
+            DiscountSchedule.Constant("zero", "0%", 0.0) };
         foreach (var option in inputs.Options.Where(o => o.Id != "base"))
         {
             var path = ReformSimulator.Simulate(inputs, option, new ReformSettings(2027, 2, 150));
             foreach (var schedule in schedules)
-                Assert.Equal(PresentValue.Compute(path, schedule, 0.015).ToHorizon, PresentValue.ToHorizonOnly(path, schedule, 0.015));
+                Assert.Equal(
+                    PresentValue.Compute(path, schedule, 0.015).ToHorizon,
+                    PresentValue.ToHorizonOnly(path, schedule, 0.015));
         }
     }
 }
@@ -86,11 +101,15 @@ public class ValuationDateTests
     /// <summary>A path with an early dip and a later gain, as a reform gives.</summary>
     private static ReformPath Path(int reformYear, int horizon = 120)
     {
-        var gain = Enumerable.Range(0, horizon + 1).Select(t => t < 15 ? -0.004 * t / 15.0 : 0.02 * (1 - Math.Exp(-(t - 15) / 25.0))).ToArray();
+        var gain = Enumerable.Range(0, horizon + 1)
+            .Select(t => t < 15 ? -0.004 * t / 15.0 : 0.02 * (1 - Math.Exp(-(t - 15) / 25.0)))
+            .ToArray();
         return new ReformPath("x", gain, gain[^1], 0.02, gain.Min(), 14, 16) { ReformYear = reformYear };
     }
 
-    /// <summary>Independent route: each calendar year's flow discounted year by year at the rates written out here.</summary>
+    /// <summary>
+    /// Independent route: each calendar year's flow discounted year by year at the rates written out here.
+    /// </summary>
     private static double BruteForce(ReformPath path, Func<int, double> rateInYear, int offset)
     {
         double pv = 0;
@@ -105,12 +124,14 @@ public class ValuationDateTests
     }
 
     // HM Treasury Green Book (2003, Table 6.1; kept in 2018/2020), years counted from the valuation date.
-    private static double GreenBookRate(int y) => y <= 30 ? 0.035 : y <= 75 ? 0.030 : y <= 125 ? 0.025 : y <= 200 ? 0.020 : y <= 300 ? 0.015 : 0.010;
+    private static double GreenBookRate(int y)
+        => y <= 30 ? 0.035 : y <= 75 ? 0.030 : y <= 125 ? 0.025 : y <= 200 ? 0.020 : y <= 300 ? 0.015 : 0.010;
 
     [Theory]
     [InlineData(0.03)]
     [InlineData(0.07)]
-    public void Moving_the_reform_later_lowers_every_constant_rate_present_value_by_the_discount_factor_between_the_years(double rate)
+    public void Moving_the_reform_later_lowers_each_constant_rate_present_value_by_the_discount_factor_between_years(
+        double rate)
     {
         // US OMB Circular A-4 (2003) rates. Valued at 2026, a reform in 2060 instead of 2028 is the same path 32 years
         // later: at a constant rate every flow is worth (e^g/(1 + r))^32 as much, and so is the sum and its tail.
@@ -179,7 +200,9 @@ public class ValuationDateTests
     {
         var path = Path(2030);
         foreach (int offset in new[] { 0, 1, 7, 40 })
-            Assert.Equal(PresentValue.Compute(path, DiscountSchedule.GreenBook, G, offset).ToHorizon, PresentValue.ToHorizonOnly(path, DiscountSchedule.GreenBook, G, offset));
+            Assert.Equal(
+                PresentValue.Compute(path, DiscountSchedule.GreenBook, G, offset).ToHorizon,
+                PresentValue.ToHorizonOnly(path, DiscountSchedule.GreenBook, G, offset));
     }
 }
 
@@ -189,7 +212,11 @@ public class DiscountedOptimumTests
     {
         var option = inputs.Baseline with { Id = "probe", SchoolingYears = e };
         var trial = inputs with { Options = inputs.Options.Append(option).ToList() };
-        var pv = PresentValue.Compute(ReformSimulator.Simulate(trial, option, reform), schedule, trial.Production.TechnologyGrowth, reform.ValuationOffset);
+        var pv = PresentValue.Compute(
+            ReformSimulator.Simulate(trial, option, reform),
+            schedule,
+            trial.Production.TechnologyGrowth,
+            reform.ValuationOffset);
         return pv.Total ?? pv.ToHorizon;
     }
 
@@ -197,7 +224,10 @@ public class DiscountedOptimumTests
     public void With_a_finite_tail_the_optimum_maximises_the_value_including_the_tail()
     {
         // A declining 4% → 3% schedule: its last rate exceeds technology growth (1.5%), so the tail is finite.
-        var schedule = new DiscountSchedule("d", "4% then 3%", new[] { new DiscountStep(1, 0.04), new DiscountStep(41, 0.03) });
+        var schedule = new DiscountSchedule(
+            "d",
+            "4% then 3%",
+            new[] { new DiscountStep(1, 0.04), new DiscountStep(41, 0.03) });
         var inputs = ReformSimulatorTests.Inputs();
         var reform = new ReformSettings(2028, 1, 80, ValuationYear: 2026);
         double eStar = Core.BalancedGrowth.Solve(inputs).Optimum.SchoolingYears;
@@ -208,13 +238,17 @@ public class DiscountedOptimumTests
         // Independent check of optimality: an exhaustive one-year grid from the baseline to E* finds nothing higher,
         // and half a year either side (inside the range) is lower.
         for (double e = 12; e <= eStar; e += 1)
-            Assert.True(at >= Counted(inputs, reform, schedule, e), $"{e} years beats the optimum {opt.SchoolingYears}");
+            Assert.True(
+                at >= Counted(inputs, reform, schedule, e),
+                $"{e} years beats the optimum {opt.SchoolingYears}");
         Assert.True(at >= Counted(inputs, reform, schedule, opt.SchoolingYears - 0.5), "lower half a year below");
         if (opt.SchoolingYears + 0.5 <= eStar)
             Assert.True(at >= Counted(inputs, reform, schedule, opt.SchoolingYears + 0.5), "lower half a year above");
         // The tail counts gains the cut-off value ignores, so the optimum with the tail is at least as long.
         var cut = opt.ByHorizon.Single(x => x.HorizonYears == 80);
-        Assert.True(opt.SchoolingYears >= cut.SchoolingYears - 0.01, $"{opt.SchoolingYears} with the tail, {cut.SchoolingYears} without");
+        Assert.True(
+            opt.SchoolingYears >= cut.SchoolingYears - 0.01,
+            $"{opt.SchoolingYears} with the tail, {cut.SchoolingYears} without");
         Assert.True(opt.PresentValue > cut.PresentValue);
     }
 
@@ -231,7 +265,8 @@ public class DiscountedOptimumTests
         Assert.Equal(opt.SchoolingYears, atHorizon.SchoolingYears);
         Assert.Equal(opt.PresentValue, atHorizon.PresentValue);
         // A longer count adds later gains of longer schooling: the optimum does not shorten as the cut moves out.
-        Assert.True(opt.ByHorizon[0].SchoolingYears <= opt.ByHorizon[1].SchoolingYears + 0.01 && opt.ByHorizon[1].SchoolingYears <= opt.ByHorizon[2].SchoolingYears + 0.01,
+        Assert.True(opt.ByHorizon[0].SchoolingYears <= opt.ByHorizon[1].SchoolingYears + 0.01
+            && opt.ByHorizon[1].SchoolingYears <= opt.ByHorizon[2].SchoolingYears + 0.01,
             string.Join(", ", opt.ByHorizon.Select(x => $"{x.HorizonYears}: {x.SchoolingYears}")));
         Assert.Contains("cut at 80 years", opt.Explanation);
     }

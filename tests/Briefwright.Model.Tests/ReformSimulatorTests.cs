@@ -5,14 +5,21 @@ namespace Briefwright.Model.Tests;
 
 public class ReformSimulatorTests
 {
-    internal static ModelInputs Inputs(Survival? survival = null, ExperienceProfile? experience = null, double n = 0.01) => new(
+    internal static ModelInputs Inputs(
+        Survival? survival = null,
+        ExperienceProfile? experience = null,
+        double n = 0.01) => new(
         new Demography(n, 6, 65, survival ?? new GompertzMakehamSurvival(0.0004, 3e-6, 1.12, 110), 0.76),
         new HumanCapital(BracketReturns.HallJones, experience),
         new Production(0.22, 0.33, 0.035, 0.015),
         new[]
         {
             new PolicyOption("base", "Base", 11), new PolicyOption("plus1", "Plus one", 12),
-            new PolicyOption("plus2", "Plus two", 13), new PolicyOption("retire", "Retire later", 11, RetirementAge: 67),
+            new PolicyOption("plus2", "Plus two", 13), new PolicyOption(
+                "retire",
+                "Retire later",
+                11,
+                RetirementAge: 67),
         },
         "base");
 
@@ -27,8 +34,13 @@ public class ReformSimulatorTests
         // Independent route: the balanced-growth ratio from the stable-population integrals (BalancedGrowth),
         // against the end of a 400-year cohort simulation with capital accumulation.
         var inputs = Inputs(n: n, experience: new ExperienceProfile(0.081, 0.0012));
-        var path = ReformSimulator.Simulate(inputs, inputs.Options.Single(o => o.Id == option), new ReformSettings(2027, 1, 400));
-        Assert.True(Math.Abs(path.LongRunGain - path.BalancedGrowthGain) < 1e-4, $"{path.LongRunGain} vs {path.BalancedGrowthGain}");
+        var path = ReformSimulator.Simulate(
+            inputs,
+            inputs.Options.Single(o => o.Id == option),
+            new ReformSettings(2027, 1, 400));
+        Assert.True(
+            Math.Abs(path.LongRunGain - path.BalancedGrowthGain) < 1e-4,
+            $"{path.LongRunGain} vs {path.BalancedGrowthGain}");
     }
 
     [Fact]
@@ -36,7 +48,10 @@ public class ReformSimulatorTests
     {
         var inputs = Inputs();
         var same = new PolicyOption("same", "Same as baseline", 11);
-        var path = ReformSimulator.Simulate(inputs with { Options = inputs.Options.Append(same).ToList() }, same, new ReformSettings(2027, 1, 120));
+        var path = ReformSimulator.Simulate(
+            inputs with { Options = inputs.Options.Append(same).ToList() },
+            same,
+            new ReformSettings(2027, 1, 120));
         Assert.All(path.Gain, g => Assert.True(Math.Abs(g) < 1e-12, g.ToString()));
     }
 
@@ -44,7 +59,9 @@ public class ReformSimulatorTests
     [InlineData(1, 0.01)]
     [InlineData(5, 0.0)]
     [InlineData(3, -0.005)]
-    public void Labour_is_evaluated_once_after_the_last_reform_cohort_reaches_retirement_without_changing_the_path(int phaseIn, double n)
+    public void Labour_is_evaluated_once_after_the_last_reform_cohort_reaches_retirement_without_changing_the_path(
+        int phaseIn,
+        double n)
     {
         // Once every cohort of working age entered school after the phase-in, x(t) is constant; the simulator reuses
         // it there. The path must be identical, digit for digit, to evaluating x(t) at every step.
@@ -62,10 +79,14 @@ public class ReformSimulatorTests
     public void Longer_schooling_dips_first_then_turns_positive()
     {
         var inputs = Inputs();
-        var path = ReformSimulator.Simulate(inputs, inputs.Options.Single(o => o.Id == "plus1"), new ReformSettings(2027, 1, 150));
+        var path = ReformSimulator.Simulate(
+            inputs,
+            inputs.Options.Single(o => o.Id == "plus1"),
+            new ReformSettings(2027, 1, 150));
         Assert.NotNull(path.DipDepth);
         Assert.True(path.DipDepth < 0);
-        Assert.InRange(path.DipYear!.Value, 10, 14); // the first reform cohort would have started work after E₀ = 11 years
+        // the first reform cohort would have started work after E₀ = 11 years
+        Assert.InRange(path.DipYear!.Value, 10, 14);
         Assert.True(path.FirstPositiveYear > path.DipYear);
         Assert.True(path.LongRunGain > 0);
     }
@@ -74,7 +95,10 @@ public class ReformSimulatorTests
     public void A_later_retirement_age_raises_output_from_the_first_year()
     {
         var inputs = Inputs();
-        var path = ReformSimulator.Simulate(inputs, inputs.Options.Single(o => o.Id == "retire"), new ReformSettings(2027, 1, 100));
+        var path = ReformSimulator.Simulate(
+            inputs,
+            inputs.Options.Single(o => o.Id == "retire"),
+            new ReformSettings(2027, 1, 100));
         Assert.Null(path.DipDepth);
         Assert.True(path.Gain[1] > 0);
     }

@@ -9,7 +9,8 @@ public class StageFailureTests
     [Fact]
     public void Sobol_with_every_base_sample_rejected_throws_a_model_rule_exception_not_an_index_error()
     {
-        var ex = Assert.Throws<ModelRuleException>(() => Sobol.Estimate(2, 16, 1, ["a", "b"], _ => null, maxThreads: 1));
+        var ex = Assert.Throws<ModelRuleException>(
+            () => Sobol.Estimate(2, 16, 1, ["a", "b"], _ => null, maxThreads: 1));
         Assert.Contains("only 0 of 16 base samples", ex.Message);
     }
 
@@ -18,7 +19,8 @@ public class StageFailureTests
     {
         // f accepts a row when its first uniform is below the cut: about that share of the rows survive.
         Func<double[], double[]?> Cut(double cut) => u => u[0] < cut ? [u[0] + 2 * u[1]] : null;
-        Assert.Throws<ModelRuleException>(() => Sobol.Estimate(2, 200, 5, ["a", "b"], Cut(0.3), maxThreads: 1, resamples: 10));
+        Assert.Throws<ModelRuleException>(
+            () => Sobol.Estimate(2, 200, 5, ["a", "b"], Cut(0.3), maxThreads: 1, resamples: 10));
         var indices = Sobol.Estimate(2, 200, 5, ["a", "b"], u => [u[0] + 2 * u[1]], maxThreads: 1, resamples: 10);
         Assert.Equal(200, Assert.Single(indices).Samples);
     }
@@ -41,12 +43,18 @@ public class CacheBoundTests
     public void Present_value_factors_are_kept_for_at_most_the_bound_and_give_the_same_sums_after_a_reset()
     {
         var inputs = ReformSimulatorTests.Inputs();
-        var path = Briefwright.Model.Dynamics.ReformSimulator.Simulate(inputs, inputs.Options[1], new Briefwright.Model.Dynamics.ReformSettings(2027, 1, 40));
-        double first = Briefwright.Model.Dynamics.PresentValue.ToHorizonOnly(path, Briefwright.Model.Dynamics.DiscountSchedule.GreenBook, 0.02);
+        var path = Briefwright.Model.Dynamics.ReformSimulator
+            .Simulate(inputs, inputs.Options[1], new Briefwright.Model.Dynamics.ReformSettings(2027, 1, 40));
+        double first = Briefwright.Model.Dynamics.PresentValue
+            .ToHorizonOnly(path, Briefwright.Model.Dynamics.DiscountSchedule.GreenBook, 0.02);
         for (int i = 0; i < Briefwright.Model.Dynamics.PresentValue.MaxCachedFactors + 10; i++)
             Briefwright.Model.Dynamics.PresentValue.ToHorizonOnly(path,
                 Briefwright.Model.Dynamics.DiscountSchedule.Constant($"r{i}", $"r{i}", 0.01 + i * 1e-5), 0.02);
-        Assert.InRange(Briefwright.Model.Dynamics.PresentValue.CachedFactors, 1, Briefwright.Model.Dynamics.PresentValue.MaxCachedFactors);
-        Assert.Equal(first, Briefwright.Model.Dynamics.PresentValue.ToHorizonOnly(path, Briefwright.Model.Dynamics.DiscountSchedule.GreenBook, 0.02));
+        Assert.InRange(
+            Briefwright.Model.Dynamics.PresentValue.CachedFactors,
+            1,
+            Briefwright.Model.Dynamics.PresentValue.MaxCachedFactors);
+        Assert.Equal(first, Briefwright.Model.Dynamics.PresentValue
+            .ToHorizonOnly(path, Briefwright.Model.Dynamics.DiscountSchedule.GreenBook, 0.02));
     }
 }

@@ -28,12 +28,24 @@ public class TiltedKernelTests
             double b2 = rng.NextDouble() * 0.001, lambda = -0.03 + rng.NextDouble() * 0.12;
             double c0 = rng.NextDouble(), c1 = -0.01 * rng.NextDouble();
             // Whole-year and fractional limits, so both the cached and the direct panels are exercised.
-            double lo = rng.Next(0, 30) + (rng.Next(2) == 0 ? 0 : rng.NextDouble()), hi = lo + 10 + rng.NextDouble() * 60;
+            double lo = rng.Next(0, 30) + (rng.Next(2) == 0
+                ? 0
+                : rng.NextDouble()), hi = lo + 10 + rng.NextDouble() * 60;
             var kernel = TiltedKernel.For(survival, b2)!;
             double tilted = kernel.Integrate(lo, hi, lambda, survival.Breakpoints, fast, c0, c1);
-            double direct = Quadrature.Integrate(a => survival.At(a) * Math.Exp(-b2 * a * a + lambda * a) * (c0 + c1 * a), lo, hi, survival.Breakpoints, fast);
+            double direct = Quadrature.Integrate(
+                a => survival.At(a) * Math.Exp(-b2 * a * a + lambda * a) * (c0 + c1 * a),
+                lo,
+                hi,
+                survival.Breakpoints,
+                fast);
             // Relative to the integral of |f|: c₀ + c₁a may change sign, and then the sum itself can be small.
-            double size = Quadrature.Integrate(a => Math.Abs(survival.At(a) * Math.Exp(-b2 * a * a + lambda * a) * (c0 + c1 * a)), lo, hi, survival.Breakpoints, fast);
+            double size = Quadrature.Integrate(
+                a => Math.Abs(survival.At(a) * Math.Exp(-b2 * a * a + lambda * a) * (c0 + c1 * a)),
+                lo,
+                hi,
+                survival.Breakpoints,
+                fast);
             Assert.Equal(direct, tilted, size * 1e-12);
         }
     }

@@ -11,21 +11,28 @@ public class UncertaintyTests
         // Ishigami & Homma (1990): f = sin x₁ + a·sin² x₂ + b·x₃⁴·sin x₁, xᵢ ~ U(−π, π), a = 7, b = 0.1. Analytic
         // variances (Saltelli et al. 2008, Global Sensitivity Analysis: The Primer): V = a²/8 + bπ⁴/5 + b²π⁸/18 + 1/2,
         // V₁ = (1 + bπ⁴/5)²/2, V₂ = a²/8, V₃ = 0, V₁₃ = 8b²π⁸/225. The published indices S₁ = 0.3139, S₂ = 0.4424,
-        // S₃ = 0, S_T1 = 0.5576, S_T2 = 0.4424, S_T3 = 0.2437 are recalled from memory and checked against the formulas.
+        // S₃ = 0, S_T1 = 0.5576, S_T2 = 0.4424, S_T3 = 0.2437 are recalled from memory and checked against the
+        // formulas.
         private const double A = 7, B = 0.1;
-        private static readonly double V = A * A / 8 + B * Math.Pow(Math.PI, 4) / 5 + B * B * Math.Pow(Math.PI, 8) / 18 + 0.5;
-        private static readonly double V1 = 0.5 * Math.Pow(1 + B * Math.Pow(Math.PI, 4) / 5, 2), V2 = A * A / 8, V13 = 8 * B * B * Math.Pow(Math.PI, 8) / 225;
+        private static readonly double V = A * A / 8 + B * Math.Pow(Math.PI, 4) / 5 + B * B * Math.Pow(Math.PI, 8) / 18
+            + 0.5;
+        private static readonly double V1 = 0.5 * Math.Pow(1 + B * Math.Pow(Math.PI, 4) / 5, 2), V2 = A * A / 8, V13 = 8
+            * B
+            * B
+            * Math.Pow(Math.PI, 8) / 225;
         private static readonly double[] First = { V1 / V, V2 / V, 0 };
         private static readonly double[] Total = { (V1 + V13) / V, V2 / V, V13 / V };
 
         private static double[] Ishigami(double[] u)
         {
-            double x1 = -Math.PI + 2 * Math.PI * u[0], x2 = -Math.PI + 2 * Math.PI * u[1], x3 = -Math.PI + 2 * Math.PI * u[2];
+            double x1 = -Math.PI + 2 * Math.PI * u[0], x2 = -Math.PI + 2 * Math.PI * u[1], x3 = -Math.PI
+                + 2 * Math.PI * u[2];
             return new[] { Math.Sin(x1) + A * Math.Pow(Math.Sin(x2), 2) + B * Math.Pow(x3, 4) * Math.Sin(x1) };
         }
 
         private static SobolIndices Run(int n, ulong seed, int resamples = 200) =>
-            Model.Uncertainty.Sobol.Estimate(3, n, seed, new[] { "x1", "x2", "x3" }, Ishigami, maxThreads: 1, resamples: resamples)[0];
+            Model.Uncertainty.Sobol
+                .Estimate(3, n, seed, new[] { "x1", "x2", "x3" }, Ishigami, maxThreads: 1, resamples: resamples)[0];
 
         [Fact]
         public void The_closed_form_gives_the_published_Ishigami_indices()
@@ -45,7 +52,9 @@ public class UncertaintyTests
             {
                 Assert.InRange(First[i], s.FirstOrderLow[i] - 1e-3, s.FirstOrderHigh[i] + 1e-3);
                 Assert.InRange(Total[i], s.TotalLow[i] - 1e-3, s.TotalHigh[i] + 1e-3);
-                Assert.True(Math.Abs(s.FirstOrder[i] - First[i]) < 0.03, $"S{i + 1} = {s.FirstOrder[i]}, analytic {First[i]}");
+                Assert.True(
+                    Math.Abs(s.FirstOrder[i] - First[i]) < 0.03,
+                    $"S{i + 1} = {s.FirstOrder[i]}, analytic {First[i]}");
                 Assert.True(Math.Abs(s.Total[i] - Total[i]) < 0.03, $"ST{i + 1} = {s.Total[i]}, analytic {Total[i]}");
             }
         }
@@ -57,14 +66,15 @@ public class UncertaintyTests
             double Rms(int n) => Math.Sqrt(Enumerable.Range(0, 24).Average(seed =>
             {
                 var s = Run(n, (ulong)(100 + seed), resamples: 1);
-                return Enumerable.Range(0, 3).Sum(i => Math.Pow(s.FirstOrder[i] - First[i], 2) + Math.Pow(s.Total[i] - Total[i], 2)) / 6;
+                return Enumerable.Range(0, 3)
+                    .Sum(i => Math.Pow(s.FirstOrder[i] - First[i], 2) + Math.Pow(s.Total[i] - Total[i], 2)) / 6;
             }));
             double small = Rms(250), large = Rms(4000);
             Assert.InRange(small / large, 2.8, 5.6);
         }
 
         [Fact]
-        public void The_interval_width_shrinks_like_one_over_root_N_and_covers_the_analytic_value_about_95_percent_of_the_time()
+        public void Interval_width_shrinks_like_one_over_root_N_and_covers_the_analytic_value_95_percent_of_the_time()
         {
             int covered = 0, cases = 0;
             double widthSmall = 0, widthLarge = 0;
@@ -94,7 +104,14 @@ public class UncertaintyTests
             var negatives = 0;
             for (int seed = 0; seed < 30; seed++)
             {
-                var s = Model.Uncertainty.Sobol.Estimate(3, 200, (ulong)seed, new[] { "a", "b", "c" }, u => new[] { u[0] + 0.02 * u[1] + 0 * u[2] }, maxThreads: 1, resamples: 200)[0];
+                var s = Model.Uncertainty.Sobol.Estimate(
+                    3,
+                    200,
+                    (ulong)seed,
+                    new[] { "a", "b", "c" },
+                    u => new[] { u[0] + 0.02 * u[1] + 0 * u[2] },
+                    maxThreads: 1,
+                    resamples: 200)[0];
                 Assert.Equal(0.0, s.FirstOrder[2]);
                 Assert.Equal(0.0, s.Total[2]);
                 Assert.Equal(0.0, s.FirstOrderLow[2]);
@@ -108,8 +125,12 @@ public class UncertaintyTests
         [Fact]
         public void The_same_seed_gives_the_same_intervals_on_one_thread_or_all_cores()
         {
-            var one = Model.Uncertainty.Sobol.Estimate(3, 300, 5, new[] { "x1", "x2", "x3" }, Ishigami, maxThreads: 1)[0];
-            var all = Model.Uncertainty.Sobol.Estimate(3, 300, 5, new[] { "x1", "x2", "x3" }, Ishigami, maxThreads: ModelThreads.AllCores)[0];
+            var one = Model.Uncertainty.Sobol.Estimate(3, 300, 5, new[] {
+                "x1",
+                "x2",
+                "x3" }, Ishigami, maxThreads: 1)[0];
+            var all = Model.Uncertainty.Sobol
+                .Estimate(3, 300, 5, new[] { "x1", "x2", "x3" }, Ishigami, maxThreads: ModelThreads.AllCores)[0];
             Assert.Equal(one.FirstOrderLow, all.FirstOrderLow);
             Assert.Equal(one.TotalHigh, all.TotalHigh);
         }
@@ -125,7 +146,9 @@ public class UncertaintyTests
             { new UniformDistribution(0.1, 0.4), new MathNet.Numerics.Distributions.ContinuousUniform(0.1, 0.4) },
             { new TriangularDistribution(60, 63, 70), new MathNet.Numerics.Distributions.Triangular(60, 70, 63) },
             { new LognormalDistribution(1.0, 0.2), new MathNet.Numerics.Distributions.LogNormal(Math.Log(1.0), 0.2) },
-            { new LognormalDistribution(0.76, 0.03), new MathNet.Numerics.Distributions.LogNormal(Math.Log(0.76), 0.03) },
+            {
+                new LognormalDistribution(0.76, 0.03),
+                new MathNet.Numerics.Distributions.LogNormal(Math.Log(0.76), 0.03) },
         };
 
         private static double SampleMean(Distribution d, int n, ulong seed)
@@ -138,7 +161,9 @@ public class UncertaintyTests
 
         [Theory]
         [MemberData(nameof(Pairs))]
-        public void Mean_and_quantiles_match_Math_NET(Distribution ours, MathNet.Numerics.Distributions.IContinuousDistribution reference)
+        public void Mean_and_quantiles_match_Math_NET(
+            Distribution ours,
+            MathNet.Numerics.Distributions.IContinuousDistribution reference)
         {
             Assert.Equal(reference.Mean, ours.Mean, 12);
             foreach (double u in new[] { 0.001, 0.05, 0.3, 0.5, 0.7, 0.95, 0.999 })
@@ -157,21 +182,28 @@ public class UncertaintyTests
 
         [Theory]
         [MemberData(nameof(Pairs))]
-        public void Sample_mean_of_draws_through_the_quantile_approaches_Math_NET_s_mean(Distribution ours, MathNet.Numerics.Distributions.IContinuousDistribution reference)
+        public void Sample_mean_of_draws_through_the_quantile_approaches_Math_NET_s_mean(
+            Distribution ours,
+            MathNet.Numerics.Distributions.IContinuousDistribution reference)
         {
             // Within four standard errors of the mean (Math.NET's standard deviation over √n).
             int n = 200_000;
-            Assert.InRange(SampleMean(ours, n, 11), reference.Mean - 4 * reference.StdDev / Math.Sqrt(n), reference.Mean + 4 * reference.StdDev / Math.Sqrt(n));
+            Assert.InRange(
+                SampleMean(ours, n, 11),
+                reference.Mean - 4 * reference.StdDev / Math.Sqrt(n),
+                reference.Mean + 4 * reference.StdDev / Math.Sqrt(n));
         }
 
         [Fact]
         public void Truncated_normal_mean_and_quantiles_match_numerical_integration_of_the_density()
         {
-            // Independent route: the normal density of Math.NET integrated over [low, high] (double-exponential quadrature).
+            // Independent route: the normal density of Math.NET integrated over [low, high] (double-exponential
+            // quadrature).
             var d = new TruncatedNormalDistribution(0.2, 0.05, 0.15, 0.3);
             var normal = new MathNet.Numerics.Distributions.Normal(0.2, 0.05);
             double mass = MathNet.Numerics.Integrate.DoubleExponential(normal.Density, 0.15, 0.3, 1e-14);
-            double mean = MathNet.Numerics.Integrate.DoubleExponential(x => x * normal.Density(x), 0.15, 0.3, 1e-14) / mass;
+            double mean = MathNet.Numerics.Integrate.DoubleExponential(x => x * normal.Density(x), 0.15, 0.3, 1e-14)
+                / mass;
             Assert.Equal(mean, d.Mean, 9);
             foreach (double u in new[] { 0.05, 0.5, 0.9 })
             {
@@ -184,7 +216,9 @@ public class UncertaintyTests
         public void Error_shrinks_roughly_as_one_over_root_n()
         {
             var d = new UniformDistribution(0, 1);
-            double Rms(int n) => Math.Sqrt(Enumerable.Range(0, 200).Average(s => Math.Pow(SampleMean(d, n, (ulong)(1000 + s)) - 0.5, 2)));
+            double Rms(int n) =>
+                Math.Sqrt(Enumerable.Range(0, 200)
+                    .Average(s => Math.Pow(SampleMean(d, n, (ulong)(1000 + s)) - 0.5, 2)));
             double ratio = Rms(250) / Rms(4000); // √16 = 4 expected
             Assert.InRange(ratio, 3.0, 5.3);
         }
@@ -235,7 +269,8 @@ public class UncertaintyTests
             for (int r = 0; r < runs; r++)
             {
                 var rng = SplitMix64.ForStream(77, (ulong)r);
-                var sample = Enumerable.Range(0, 1000).Select(_ => NormalQuantile.Standard(rng.NextOpenUnit())).ToArray();
+                var sample = Enumerable.Range(0, 1000).Select(_ => NormalQuantile.Standard(rng.NextOpenUnit()))
+                    .ToArray();
                 var s = PercentileSummary.Of(sample);
                 var intervals = new[] { s.P5Interval, s.P25Interval, s.P50Interval, s.P75Interval, s.P95Interval };
                 for (int k = 0; k < levels.Length; k++)
@@ -258,14 +293,17 @@ public class UncertaintyTests
     public class MonteCarloRuns
     {
         private static AnalysisSettings Settings(params UncertainParameter[] parameters) => new(
-            new ReformSettings(2027, 1, 80), "plus1", new[] { DiscountSchedule.GreenBook }, Array.Empty<SensitivityRange>(), Array.Empty<GridSpec>(),
+            new ReformSettings(2027, 1, 80), "plus1", new[] {
+                DiscountSchedule.GreenBook }, Array.Empty<SensitivityRange>(), Array.Empty<GridSpec>(),
             new MonteCarloSpec(300, 2026, parameters, 64));
 
         [Fact]
         public void Same_seed_gives_identical_numbers_to_the_last_digit()
         {
             var inputs = ReformSimulatorTests.Inputs();
-            var settings = Settings(new UncertainParameter("saving_rate", new NormalDistribution(0.22, 0.02)), new UncertainParameter("return_scale", new UniformDistribution(0.8, 1.2)));
+            var settings = Settings(
+                new UncertainParameter("saving_rate", new NormalDistribution(0.22, 0.02)),
+                new UncertainParameter("return_scale", new UniformDistribution(0.8, 1.2)));
             var a = MonteCarlo.Run(inputs, settings, 34);
             var b = MonteCarlo.Run(inputs, settings, 34);
             Assert.Equal(a.HeadlineChangeSample, b.HeadlineChangeSample);
@@ -279,7 +317,9 @@ public class UncertaintyTests
             // Batches run the model on one thread per brief; a single brief uses every core. Each draw has its own
             // random stream and results are gathered in draw order, so the numbers must not differ in any digit.
             var inputs = ReformSimulatorTests.Inputs();
-            var settings = Settings(new UncertainParameter("saving_rate", new NormalDistribution(0.22, 0.02)), new UncertainParameter("population_growth", new UniformDistribution(-0.005, 0.015)))
+            var settings = Settings(
+                new UncertainParameter("saving_rate", new NormalDistribution(0.22, 0.02)),
+                new UncertainParameter("population_growth", new UniformDistribution(-0.005, 0.015)))
                 with { Ranges = new[] { new SensitivityRange("saving_rate", 0.18, 0.26) } };
             var bgp = Core.BalancedGrowth.Solve(inputs);
             var one = AnalysisRunner.Run(inputs, settings, bgp, maxThreads: 1);
@@ -303,11 +343,16 @@ public class UncertaintyTests
                 Ranges = new[]
                 {
                     new SensitivityRange("saving_rate", 0.18, 0.26), new SensitivityRange("depreciation", 0.02, 0.05),
-                    new SensitivityRange("population_growth", 0.0, 0.02), new SensitivityRange("capital_share", 0.28, 0.38),
+                    new SensitivityRange("population_growth", 0.0, 0.02), new SensitivityRange(
+                        "capital_share",
+                        0.28,
+                        0.38),
                 },
             };
             var rows = Sensitivity.Tornado(inputs, settings, 34);
-            Assert.Equal(new[] { "population_growth", "capital_share", "depreciation", "saving_rate" }, rows.Select(r => r.Parameter));
+            Assert.Equal(
+                new[] { "population_growth", "capital_share", "depreciation", "saving_rate" },
+                rows.Select(r => r.Parameter));
             Assert.All(rows.Skip(1), r => Assert.True(r.Swing < 1e-9));
         }
 
@@ -342,14 +387,20 @@ public class UncertaintyTests
             // With the return to schooling scaled by k ~ U(low, high) and nothing else uncertain, the long-run change
             // is positive exactly when k exceeds the threshold k* where it crosses zero (found here by Brent's
             // method on the deterministic model), so P(gain) = (high − k*)/(high − low). The Monte Carlo estimate must
-            // agree within its own 95% interval (widened by a draw for rounding), and a distribution of higher returns must give a
-            // higher probability.
+            // agree within its own 95% interval (widened by a draw for rounding), and a distribution of higher returns
+            // must give a higher probability.
             var inputs = ReformSimulatorTests.Inputs();
             var settings = Settings();
-            double Change(double k) => KeyResultsEvaluator.Evaluate(Parameters.Find("return_scale")!.Set(inputs, k), settings, 34).LongRunChangePct[0];
+            double Change(double k) =>
+                KeyResultsEvaluator.Evaluate(Parameters.Find("return_scale")!.Set(inputs, k), settings, 34)
+                    .LongRunChangePct[0];
             double threshold = MathNet.Numerics.RootFinding.Brent.FindRoot(Change, 0.05, 1.0, 1e-10);
-            Probability Run(double low, double high) => MonteCarlo.Run(inputs, Settings(new UncertainParameter("return_scale", new UniformDistribution(low, high))), 34)
-                .Options.Single(o => o.OptionId == "plus1").ProbabilityGain;
+            Probability Run(double low, double high)
+            {
+                var parameter = new UncertainParameter("return_scale", new UniformDistribution(low, high));
+                return MonteCarlo.Run(inputs, Settings(parameter), 34)
+                    .Options.Single(o => o.OptionId == "plus1").ProbabilityGain;
+            }
             var lower = Run(0.0, 1.0);
             var higher = Run(0.3, 1.3);
             foreach (var (p, low, high) in new[] { (lower, 0.0, 1.0), (higher, 0.3, 1.3) })
@@ -357,7 +408,9 @@ public class UncertaintyTests
                 double exact = (high - threshold) / (high - low);
                 Assert.InRange(exact, p.Low - 1.0 / p.Draws, p.High + 1.0 / p.Draws);
             }
-            Assert.True(higher.Estimate > lower.Estimate, $"{higher.Estimate} with higher returns, {lower.Estimate} with lower");
+            Assert.True(
+                higher.Estimate > lower.Estimate,
+                $"{higher.Estimate} with higher returns, {lower.Estimate} with lower");
             Assert.True(lower.Low < lower.Estimate && lower.Estimate < lower.High);
         }
     }

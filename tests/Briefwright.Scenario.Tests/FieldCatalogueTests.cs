@@ -13,7 +13,9 @@ public class FieldCatalogueTests
     {
         string path = Path.Combine(RepositoryRoot.Path, "docs", "scenario-format.md");
         string page = File.ReadAllText(path);
-        int from = page.IndexOf(Begin, StringComparison.Ordinal) + Begin.Length, to = page.IndexOf(End, StringComparison.Ordinal);
+        int from = page.IndexOf(Begin, StringComparison.Ordinal) + Begin.Length, to = page.IndexOf(
+            End,
+            StringComparison.Ordinal);
         Assert.True(from >= Begin.Length && to >= from, "the page has no field-reference markers");
         string expected = ScenarioFields.ReferenceTable();
         if (Environment.GetEnvironmentVariable("BRIEFWRIGHT_UPDATE_DOCS") == "1")
@@ -40,7 +42,9 @@ public class FieldCatalogueTests
                     Assert.Equal(keys.Distinct().Count(), keys.Count);
                 }
                 // Every field of the mapping belongs to a variant its selector offers.
-                Assert.All(ScenarioFields.Children(f.Path), c => Assert.All(c.Variants, v => Assert.Contains(v, selector.Choices)));
+                Assert.All(
+                    ScenarioFields.Children(f.Path),
+                    c => Assert.All(c.Variants, v => Assert.Contains(v, selector.Choices)));
             }
         }
         Assert.Equal(ScenarioBinder.TopLevelKeys, ScenarioFields.Keys(""));
@@ -68,9 +72,13 @@ public class FieldCatalogueTests
         if (f.Whole) step = 1;
         foreach (double v in new[] { f.Bounds.Min, f.Bounds.Max, f.Bounds.Min - step, f.Bounds.Max + step })
         {
-            string text = string.Format(System.Globalization.CultureInfo.InvariantCulture, yaml, v.ToString("R", System.Globalization.CultureInfo.InvariantCulture));
+            string text = string.Format(
+                System.Globalization.CultureInfo.InvariantCulture,
+                yaml,
+                v.ToString("R", System.Globalization.CultureInfo.InvariantCulture));
             var r = MemoryReader.Load("extends: base.yaml\n" + text, ("base.yaml", MemoryReader.Valid));
-            var own = r.Problems.Where(p => p.Message.Contains(" " + path + ": must be ", StringComparison.Ordinal)).ToList();
+            var own = r.Problems.Where(p => p.Message.Contains(" " + path + ": must be ", StringComparison.Ordinal))
+                .ToList();
             if (f.Bounds.Contains(v)) Assert.Empty(own);
             else Assert.Contains(own, p => p.Message.Contains(f.Bounds.Rule(false), StringComparison.Ordinal));
         }

@@ -21,10 +21,14 @@ public class ScenarioContentTests
     [InlineData("title: Test brief", "title: Test brief   # a comment")] // a comment
     [InlineData("depreciation: 3%", "depreciation:    3%")] // layout
     [InlineData("  saving_rate: 0.2\n  capital_share: 0.33", "  capital_share: 0.33\n  saving_rate: 0.2")] // key order
-    public void Stays_the_same_when_only_the_date_edition_comments_layout_or_key_order_change(string find, string replace)
+    public void Stays_the_same_when_only_the_date_edition_comments_layout_or_key_order_change(
+        string find,
+        string replace)
     {
         Assert.Equal(Base, Content(MemoryReader.With(find, replace)));
-        Assert.NotEqual(MemoryReader.Load(MemoryReader.Valid).Document!.InputHash, MemoryReader.Load(MemoryReader.With(find, replace)).Document!.InputHash);
+        Assert.NotEqual(
+            MemoryReader.Load(MemoryReader.Valid).Document!.InputHash,
+            MemoryReader.Load(MemoryReader.With(find, replace)).Document!.InputHash);
     }
 
     [Theory]

@@ -5,8 +5,8 @@ namespace Briefwright.Scenario.Tests;
 
 /// <summary>
 /// A theme's logo and fonts are read and checked whole before any brief uses them: damaged, truncated, oversized or
-/// unsupported files are positioned theme errors (exit code 2), not failures while drawing. PNG layout, chunk CRC-32 and
-/// zlib image data per the PNG specification (ISO/IEC 15948); TrueType tables per the OpenType specification.
+/// unsupported files are positioned theme errors (exit code 2), not failures while drawing. PNG layout, chunk CRC-32
+/// and zlib image data per the PNG specification (ISO/IEC 15948); TrueType tables per the OpenType specification.
 /// </summary>
 public class ThemeAssetsTests
 {
@@ -22,7 +22,9 @@ public class ThemeAssetsTests
         return b;
     }
 
-    /// <summary>CRC-32 bit by bit, as the PNG specification's Annex D defines it (reflected polynomial 0xEDB88320).</summary>
+    /// <summary>
+    /// CRC-32 bit by bit, as the PNG specification's Annex D defines it (reflected polynomial 0xEDB88320).
+    /// </summary>
     private static uint Crc(ReadOnlySpan<byte> bytes)
     {
         uint c = 0xFFFFFFFF;
@@ -41,10 +43,15 @@ public class ThemeAssetsTests
         BinaryPrimitives.WriteUInt32BigEndian(ihdr, (uint)w);
         BinaryPrimitives.WriteUInt32BigEndian(ihdr.AsSpan(4), (uint)h);
         ihdr[8] = depth; ihdr[9] = 6; ihdr[12] = interlace;
-        var raw = rows ?? Enumerable.Range(0, h).SelectMany(_ => new byte[] { 0 }.Concat(Enumerable.Repeat((byte)0x80, w * 4 * depth / 8))).ToArray();
+        var raw = rows ?? Enumerable.Range(0, h)
+            .SelectMany(_ => new byte[] { 0 }.Concat(Enumerable.Repeat((byte)0x80, w * 4 * depth / 8)))
+            .ToArray();
         var z = new MemoryStream();
         using (var zs = new ZLibStream(z, CompressionLevel.Fastest, leaveOpen: true)) zs.Write(raw);
-        return new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A }.Concat(Chunk("IHDR", ihdr)).Concat(Chunk("IDAT", z.ToArray())).Concat(Chunk("IEND", Array.Empty<byte>())).ToArray();
+        return new byte[] { 0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A }.Concat(Chunk("IHDR", ihdr))
+            .Concat(Chunk("IDAT", z.ToArray()))
+            .Concat(Chunk("IEND", Array.Empty<byte>()))
+            .ToArray();
     }
 
     [Fact]
@@ -118,34 +125,45 @@ public class ThemeAssetsTests
     {
         var (theme, problems, _) = ThemeLoader.Load("t.theme.yaml", new MemoryReader(new() { ["t.theme.yaml"] = "" }));
         Assert.Null(theme);
-        Assert.Equal("t.theme.yaml:1:1: file is empty; a theme needs at least a name. Got nothing.", Assert.Single(problems).Message);
+        Assert.Equal(
+            "t.theme.yaml:1:1: file is empty; a theme needs at least a name. Got nothing.",
+            Assert.Single(problems).Message);
     }
 
     [Theory]
     [InlineData("logo: /etc/logo.png", "t.theme.yaml:2:7: logo: must be a path relative to the file that names it")]
     [InlineData("logo: ../logo.png", "t.theme.yaml:2:7: logo: must stay inside the project folder")]
-    [InlineData("fonts:\n  regular: /usr/share/fonts/x.ttf", "t.theme.yaml:3:12: fonts.regular: must be a path relative to the file that names it")]
+    [InlineData(
+        "fonts:\n  regular: /usr/share/fonts/x.ttf",
+        "t.theme.yaml:3:12: fonts.regular: must be a path relative to the file that names it")]
     public void Theme_files_stay_inside_the_project_folder(string line, string expected)
     {
-        var (_, problems, _) = ThemeLoader.Load("t.theme.yaml", new MemoryReader(new() { ["t.theme.yaml"] = "name: T\n" + line + "\n" }));
+        var (_, problems, _) = ThemeLoader.Load(
+            "t.theme.yaml",
+            new MemoryReader(new() { ["t.theme.yaml"] = "name: T\n" + line + "\n" }));
         Assert.StartsWith(expected, Assert.Single(problems).Message);
     }
 
     [Fact]
     public void A_theme_may_set_the_chart_colours_in_option_order()
     {
-        var (theme, problems, _) = ThemeLoader.Load("t.theme.yaml", new MemoryReader(new() { ["t.theme.yaml"] = "name: T\nchart_colours: [\"#112233\", \"#AABBCC\", \"#445566\"]\n" }));
+        var (theme, problems, _) = ThemeLoader.Load("t.theme.yaml", new MemoryReader(
+            new() { ["t.theme.yaml"] = "name: T\nchart_colours: [\"#112233\", \"#AABBCC\", \"#445566\"]\n" }));
         Assert.Empty(problems);
         Assert.Equal(new[] { "#112233", "#AABBCC", "#445566" }, theme!.ChartColours);
     }
 
     [Theory]
-    [InlineData("chart_colours: [\"#112233\", red]", "t.theme.yaml:2:28: chart_colours[1]: must be a colour written #RRGGBB")]
+    [InlineData(
+        "chart_colours: [\"#112233\", red]",
+        "t.theme.yaml:2:28: chart_colours[1]: must be a colour written #RRGGBB")]
     [InlineData("chart_colours: [\"#112233\"]", "t.theme.yaml:2:16: chart_colours: must be a list of 2 to 8 colours")]
     [InlineData("chart_colours: \"#112233\"", "t.theme.yaml:2:16: chart_colours: must be a list of 2 to 8 colours")]
     public void Chart_colours_are_a_short_list_of_colours(string line, string expected)
     {
-        var (theme, problems, _) = ThemeLoader.Load("t.theme.yaml", new MemoryReader(new() { ["t.theme.yaml"] = "name: T\n" + line + "\n" }));
+        var (theme, problems, _) = ThemeLoader.Load(
+            "t.theme.yaml",
+            new MemoryReader(new() { ["t.theme.yaml"] = "name: T\n" + line + "\n" }));
         Assert.Null(theme);
         Assert.StartsWith(expected, Assert.Single(problems).Message);
     }

@@ -22,7 +22,9 @@ public class BriefTemplateTests
     [Fact]
     public void Renders_values_and_formatting_functions()
     {
-        Assert.Equal("# A title 4.1%", BriefTemplate.Parse("# {{ brief.title }} {{ pct 0.0412 }}", "t.md").Render(Model()));
+        Assert.Equal(
+            "# A title 4.1%",
+            BriefTemplate.Parse("# {{ brief.title }} {{ pct 0.0412 }}", "t.md").Render(Model()));
     }
 
     [Fact]

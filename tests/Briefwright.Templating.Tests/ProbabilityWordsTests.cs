@@ -18,7 +18,9 @@ public class ProbabilityWordsTests
     public void No_draw_showing_the_event_is_said_as_the_upper_bound()
     {
         // 0 of 20: upper bound z²/(n + z²) = 0.1611 (Newcombe 1998, Table II; recalled from memory).
-        Assert.Equal("16.1% or less (none of 20 draws; 95% interval)", ProbabilityWords.Sentence(Probability.Of(0, 20)));
+        Assert.Equal(
+            "16.1% or less (none of 20 draws; 95% interval)",
+            ProbabilityWords.Sentence(Probability.Of(0, 20)));
     }
 
     [Fact]

@@ -12,8 +12,10 @@ public class ScenarioTextTests
 {
     public static TheoryData<string> Hostile() => new()
     {
-        "[memo](file:///etc/passwd)", "# Fake", "[[pagebreak]]", "<div>", "[[figure: nope]]", "- item", "1. item", "2) item",
-        "> quote", "---", "===", "**bold** _it_ `code`", "![img](x.png)", "<https://example.org>", "&copy; &#169;", "a | b",
+        "[memo](file:///etc/passwd)", "# Fake", "[[pagebreak]]", "<div>", "[[figure: nope]]", "- item", "1. item",
+        "2) item",
+        "> quote", "---", "===", "**bold** _it_ `code`", "![img](x.png)", "<https://example.org>", "&copy; &#169;",
+        "a | b",
         "line one\nline two", "back\\slash", "    indented", "~~~", "```", "+ plus", "* star", "\\[[pagebreak]]",
     };
 

@@ -31,7 +31,9 @@ public class TemplateBudgetTests
     [InlineData("{{ [1] | array.insert_at 900000000 1 | array.size }}", "Got 900,000,000")]
     [InlineData("{{ (1..1000000000) | array.size }}", "Got 1,000,000,000")]
     [InlineData("{{ (1..99999) | array.size }}", "Range expression exceeds LoopLimit")]
-    [InlineData("{{ x = 'abcdefgh'; for i in 1..40; x = x + x; end; x | string.size }}", "The template made a text of 2,097,15")]
+    [InlineData(
+        "{{ x = 'abcdefgh'; for i in 1..40; x = x + x; end; x | string.size }}",
+        "The template made a text of 2,097,15")]
     public void Oversized_numbers_texts_and_lists_stop_the_template(string text, string expected)
     {
         Assert.Contains(expected, Error(text).Message);
@@ -48,7 +50,8 @@ public class TemplateBudgetTests
     public void A_doubly_recursive_function_under_the_depth_limit_is_stopped_by_the_step_or_time_budget()
     {
         var e = Error("# T\n{{ func f(n); if n > 0; f(n - 1); f(n - 1); end; end; f 40 }}");
-        Assert.Equal("t.md:2:55: This statement ran past the budget for one brief (1,000,000 steps or 5 s), as an endless or exploding loop or recursion would.", e.ToString());
+        Assert.Equal("t.md:2:55: This statement ran past the budget for one brief (1,000,000 steps or 5 s), as an " +
+            "endless or exploding loop or recursion would.", e.ToString());
     }
 
     [Fact]
@@ -76,11 +79,16 @@ public class TemplateBudgetFuzzTests
 {
     private static readonly string[] Pieces =
     {
-        "# {{ brief.title }}\n", "{{ for i in 1..100 }}{{ i }} {{ end }}\n", "{{ while true }}x{{ end }}", "{{ func f(n); if n > 0; f(n - 1); f(n - 1); end; end; f 30 }}",
-        "{{ 'ab' * 99999 }}", "{{ x = 'abcd'; for i in 1..30; x = x + x; end; x | string.size }}", "{{ (1..200000) | array.size }}",
-        "{{ 'x' | string.pad_left 99999 }}", "{{ big 1 99999 }}", "{{ pct 0.5 999999 }}", "{{ [1, 2] | array.insert_at 99999 3 | array.size }}",
-        "{{ for i in 1..9999; for j in 1..9999; end; end }}", "text\n", "{{ func g; ret g; end }}{{ g }}", "{{ (1..9999) | array.join ',' | string.size }}",
-        "{{ capture c; for i in 1..9999; 'abcdefghij'; end; end; c | string.size }}", "{{ brief.title | string.replace 'A' ('B' * 50000) }}",
+        "# {{ brief.title }}\n", "{{ for i in 1..100 }}{{ i }} {{ end }}\n", "{{ while true }}x{{ end }}",
+        "{{ func f(n); if n > 0; f(n - 1); f(n - 1); end; end; f 30 }}",
+        "{{ 'ab' * 99999 }}", "{{ x = 'abcd'; for i in 1..30; x = x + x; end; x | string.size }}",
+        "{{ (1..200000) | array.size }}",
+        "{{ 'x' | string.pad_left 99999 }}", "{{ big 1 99999 }}", "{{ pct 0.5 999999 }}",
+        "{{ [1, 2] | array.insert_at 99999 3 | array.size }}",
+        "{{ for i in 1..9999; for j in 1..9999; end; end }}", "text\n", "{{ func g; ret g; end }}{{ g }}",
+        "{{ (1..9999) | array.join ',' | string.size }}",
+        "{{ capture c; for i in 1..9999; 'abcdefghij'; end; end; c | string.size }}",
+        "{{ brief.title | string.replace 'A' ('B' * 50000) }}",
     };
 
     [Fact]
@@ -93,7 +101,8 @@ public class TemplateBudgetFuzzTests
         int stopped = 0, filled = 0;
         for (int i = 0; i < 150; i++)
         {
-            string text = string.Concat(Enumerable.Range(0, 1 + rng.Next(4)).Select(_ => Pieces[rng.Next(Pieces.Length)]));
+            string text = string.Concat(
+                Enumerable.Range(0, 1 + rng.Next(4)).Select(_ => Pieces[rng.Next(Pieces.Length)]));
             try
             {
                 string output = BriefTemplate.Parse(text, "t.md").Render(model);
@@ -102,7 +111,9 @@ public class TemplateBudgetFuzzTests
             }
             catch (TemplateException ex)
             {
-                Assert.All(ex.Errors, e => Assert.True(e.Line >= 1 && e.Column >= 1 && e.File == "t.md", $"case {i}: {e}"));
+                Assert.All(
+                    ex.Errors,
+                    e => Assert.True(e.Line >= 1 && e.Column >= 1 && e.File == "t.md", $"case {i}: {e}"));
                 stopped++;
             }
         }

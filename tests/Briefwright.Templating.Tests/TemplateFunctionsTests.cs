@@ -33,7 +33,8 @@ public class TemplateFunctionsTests
     [InlineData(34.51, "34.5 years")]
     [InlineData(28, "28.0 years")]
     [InlineData(12, "12.0 years")]
-    public void Years_are_always_shown_to_one_decimal_with_their_unit(double value, string expected) => Assert.Equal(expected, Years(value));
+    public void Years_are_always_shown_to_one_decimal_with_their_unit(double value, string expected)
+        => Assert.Equal(expected, Years(value));
 
     // The formatting policy of docs/templates.md (common practice in official statistics publications: present values
     // to two significant figures, sample proportions never printed as certainties).
@@ -47,7 +48,8 @@ public class TemplateFunctionsTests
     [InlineData(-0.004, "> −0.01")]
     [InlineData(-0.35, "−0.35")]
     [InlineData(0, "0")]
-    public void Pv_keeps_two_significant_figures_and_says_below_a_hundredth(double value, string expected) => Assert.Equal(expected, Pv(value));
+    public void Pv_keeps_two_significant_figures_and_says_below_a_hundredth(double value, string expected)
+        => Assert.Equal(expected, Pv(value));
 
     [Theory]
     [InlineData(1.0, "> 99.9%")]
@@ -55,13 +57,15 @@ public class TemplateFunctionsTests
     [InlineData(0.0, "< 0.1%")]
     [InlineData(0.0004, "< 0.1%")]
     [InlineData(0.27, "27.0%")]
-    public void Prob_never_prints_a_certainty_from_a_sample(double value, string expected) => Assert.Equal(expected, Prob(value));
+    public void Prob_never_prints_a_certainty_from_a_sample(double value, string expected)
+        => Assert.Equal(expected, Prob(value));
 
     [Theory]
     [InlineData(1e-10, "less than a billionth")]
     [InlineData(1e-6, "less than a millionth")]
     [InlineData(0.5, "0.5")]
-    public void Small_writes_tolerances_without_exponents(double value, string expected) => Assert.Equal(expected, Small(value));
+    public void Small_writes_tolerances_without_exponents(double value, string expected)
+        => Assert.Equal(expected, Small(value));
 
     [Fact]
     public void Date_is_written_out_in_full() => Assert.Equal("30 November 2026", Date("2026-11-30"));

@@ -9,7 +9,8 @@ internal static class RepositoryRoot
     private static string Find()
     {
         var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(System.IO.Path.Combine(dir.FullName, "ReportBuilder.sln"))) dir = dir.Parent;
+        while (dir is not null && !File.Exists(System.IO.Path.Combine(dir.FullName, "ReportBuilder.sln")))
+            dir = dir.Parent;
         return dir?.FullName ?? throw new InvalidOperationException("Repository root (ReportBuilder.sln) not found.");
     }
 }

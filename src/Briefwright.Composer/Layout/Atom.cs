@@ -13,10 +13,14 @@ public abstract class Atom
     /// <summary>Vertical space above; dropped at the top of a page.</summary>
     public double SpaceBefore { get; init; }
 
-    /// <summary>Must stay on the same page as the next atom (headings, first and last lines of a paragraph, captions).</summary>
+    /// <summary>
+    /// Must stay on the same page as the next atom (headings, first and last lines of a paragraph, captions).
+    /// </summary>
     public bool KeepWithNext { get; set; }
 
-    /// <summary>Consecutive atoms with the same group share one structure element (a paragraph, a list, a table) on a page.</summary>
+    /// <summary>
+    /// Consecutive atoms with the same group share one structure element (a paragraph, a list, a table) on a page.
+    /// </summary>
     public object? Group { get; init; }
 
     public StructTag GroupTag { get; init; } = StructTag.P;

@@ -38,7 +38,15 @@ public sealed class LinesAtom : Atom
         }
     }
 
-    public static void DrawLines(IDrawingSurface surface, IReadOnlyList<TextLine> lines, double x, double y, double lineHeight, double ascent, Rgb color, Theme theme)
+    public static void DrawLines(
+        IDrawingSurface surface,
+        IReadOnlyList<TextLine> lines,
+        double x,
+        double y,
+        double lineHeight,
+        double ascent,
+        Rgb color,
+        Theme theme)
     {
         for (int i = 0; i < lines.Count; i++)
         {
@@ -52,11 +60,20 @@ public sealed class LinesAtom : Atom
                 else
                 {
                     // The link's text goes inside its Link structure element, with the annotation.
-                    surface.BeginLink(new Box(x + span.X, y + i * lineHeight, span.Width, lineHeight), span.Link, span.Text);
+                    surface.BeginLink(
+                        new Box(x + span.X, y + i * lineHeight, span.Width, lineHeight),
+                        span.Link,
+                        span.Text);
                     surface.Text(span.Text, x + span.X, baseline, span.Font, theme.Accent);
                     surface.EndLink();
                     surface.BeginArtifact();
-                    surface.Line(x + span.X, baseline + 1.2, x + span.X + span.Width, baseline + 1.2, theme.Accent, 0.4);
+                    surface.Line(
+                        x + span.X,
+                        baseline + 1.2,
+                        x + span.X + span.Width,
+                        baseline + 1.2,
+                        theme.Accent,
+                        0.4);
                     surface.EndArtifact();
                 }
             }
@@ -127,7 +144,12 @@ public sealed class TableRowAtom : Atom
                     _ => 0,
                 };
                 foreach (var span in lines[i].Spans)
-                    surface.Text(span.Text, x + ColumnX[c] + Padding + offset + span.X, y + Padding + i * LineHeight + Ascent, span.Font, theme.Text);
+                    surface.Text(
+                        span.Text,
+                        x + ColumnX[c] + Padding + offset + span.X,
+                        y + Padding + i * LineHeight + Ascent,
+                        span.Font,
+                        theme.Text);
             }
             surface.EndTag();
         }
@@ -161,7 +183,8 @@ public sealed class BoxAtom : Atom
     public required IReadOnlyList<(Atom Atom, double Y)> Content { get; init; }
     public required double Padding { get; init; }
 
-    public override string Describe() => Content.Count == 0 ? "an empty box" : $"the box starting with {Content[0].Atom.Describe()}";
+    public override string Describe()
+        => Content.Count == 0 ? "an empty box" : $"the box starting with {Content[0].Atom.Describe()}";
 
     public override void Draw(IDrawingSurface surface, Theme theme, double x, double y)
     {

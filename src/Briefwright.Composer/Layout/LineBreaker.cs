@@ -7,10 +7,16 @@ public sealed record LineSpan(string Text, double X, double Width, FontSpec Font
 
 public sealed record TextLine(IReadOnlyList<LineSpan> Spans, double Width);
 
-/// <summary>Greedy line breaking of styled runs at spaces; words longer than the line are broken by character.</summary>
+/// <summary>
+/// Greedy line breaking of styled runs at spaces; words longer than the line are broken by character.
+/// </summary>
 public static class LineBreaker
 {
-    public static IReadOnlyList<TextLine> Break(IReadOnlyList<TextRun> runs, double size, double width, ITextMeasurer measurer)
+    public static IReadOnlyList<TextLine> Break(
+        IReadOnlyList<TextRun> runs,
+        double size,
+        double width,
+        ITextMeasurer measurer)
     {
         var lines = new List<TextLine>();
         var spans = new List<LineSpan>();
@@ -31,7 +37,8 @@ public static class LineBreaker
                 lineHasWord = false;
             }
             string text = word;
-            if (w > width && text.Length > 1) (text, w) = BreakLongWord(text, width, font, run.Link, lines, ref spans, measurer);
+            if (w > width && text.Length > 1)
+                (text, w) = BreakLongWord(text, width, font, run.Link, lines, ref spans, measurer);
             spans.Add(new LineSpan(text, x + space, w, font, run.Link));
             x += space + w;
             lineHasWord = true;
@@ -43,9 +50,17 @@ public static class LineBreaker
     /// <summary>
     /// A word wider than the line, broken at the margin: one pass over its characters, each measured once, and each
     /// piece measured once, so the time is linear in the word's length (re-measuring ever shorter prefixes made a
-    /// 20,000-character word take tens of seconds). Surrogate pairs stay whole. Returns the last piece, which starts a line.
+    /// 20,000-character word take tens of seconds). Surrogate pairs stay whole. Returns the last piece, which starts a
+    /// line.
     /// </summary>
-    private static (string Last, double Width) BreakLongWord(string word, double width, FontSpec font, string? link, List<TextLine> lines, ref List<LineSpan> spans, ITextMeasurer measurer)
+    private static (string Last, double Width) BreakLongWord(
+        string word,
+        double width,
+        FontSpec font,
+        string? link,
+        List<TextLine> lines,
+        ref List<LineSpan> spans,
+        ITextMeasurer measurer)
     {
         int start = 0;
         double acc = 0;
@@ -78,7 +93,8 @@ public static class LineBreaker
         var joined = new List<TextRun>();
         foreach (var run in runs)
         {
-            if (joined.Count > 0 && joined[^1].Style == run.Style && joined[^1].Link == run.Link) joined[^1] = joined[^1] with { Text = joined[^1].Text + run.Text };
+            if (joined.Count > 0 && joined[^1].Style == run.Style && joined[^1].Link == run.Link)
+                joined[^1] = joined[^1] with { Text = joined[^1].Text + run.Text };
             else joined.Add(run);
         }
         foreach (var run in joined)

@@ -33,13 +33,17 @@ public static class MathNotation
 
     private static readonly Dictionary<string, (string Char, string Spoken)> Symbols = new()
     {
-        ["cdot"] = ("·", " times "), ["times"] = ("×", " times "), ["le"] = ("≤", " at most "), ["ge"] = ("≥", " at least "),
-        ["infty"] = ("∞", "infinity"), ["to"] = ("→", " to "), ["approx"] = ("≈", " approximately "), ["ldots"] = ("…", "..."),
+        ["cdot"] = ("·", " times "), ["times"] = ("×", " times "),
+        ["le"] = ("≤", " at most "), ["ge"] = ("≥", " at least "),
+        ["infty"] = ("∞", "infinity"), ["to"] = ("→", " to "),
+        ["approx"] = ("≈", " approximately "), ["ldots"] = ("…", "..."),
     };
 
     private static readonly string[] Functions = { "ln", "exp", "max", "min", "log", "arg" };
 
-    /// <summary>Parses an equation; an unknown command or an unclosed brace is a <see cref="ComposeException"/>.</summary>
+    /// <summary>
+    /// Parses an equation; an unknown command or an unclosed brace is a <see cref="ComposeException"/>.
+    /// </summary>
     public static Node Parse(string source, int line = 0)
     {
         int i = 0;
@@ -67,11 +71,13 @@ public static class MathNotation
             }
             var atom = ParseAtom(s, ref i, line);
             // A minus that opens a group or follows an operator or a bracket is a sign: no operator spacing.
-            if (atom is Sym { Text: "\u2212" } && (items.Count == 0 || items[^1] is Sym { Text: "(" or "[" } || items[^1] is Sym { Spoken: [' ', ..] }))
+            if (atom is Sym { Text: "\u2212" } && (items.Count == 0 || items[^1] is Sym { Text: "(" or "[" }
+                || items[^1] is Sym { Spoken: [' ', ..] }))
                 atom = new Sym("\u2212", Spoken: "minus ");
             if (atom is not null) items.Add(atom);
         }
-        if (closing is not null) throw new ComposeException($"an equation has an unclosed '{{'. Got '{Short(s)}'.", line, s);
+        if (closing is not null)
+            throw new ComposeException($"an equation has an unclosed '{{'. Got '{Short(s)}'.", line, s);
         return new Seq(items);
     }
 
@@ -87,7 +93,8 @@ public static class MathNotation
         char c = s[i];
         if (c == ' ') { i++; return null; }
         if (c == '{') { i++; return ParseSeq(s, ref i, line, '}'); }
-        if (c == '}') throw new ComposeException($"an equation has a '}}' without its '{{'. Got '{Short(s)}'.", line, s);
+        if (c == '}')
+            throw new ComposeException($"an equation has a '}}' without its '{{'. Got '{Short(s)}'.", line, s);
         if (c != '\\')
         {
             i++;
@@ -107,7 +114,8 @@ public static class MathNotation
                 ';' => new Space(0.28),
                 ' ' => new Space(0.25),
                 '{' or '}' or '\\' or '_' or '^' or '$' => new Sym(e.ToString()),
-                _ => throw new ComposeException($"an equation has an unknown command '\\{e}'. Got '{Short(s)}'.", line, s),
+                _ => throw new ComposeException(
+                    $"an equation has an unknown command '\\{e}'. Got '{Short(s)}'.", line, s),
             };
         }
         int start = i;
@@ -127,9 +135,11 @@ public static class MathNotation
                 return new BigOp("∑", "the sum", true);
             case "text":
                 while (i < s.Length && s[i] == ' ') i++;
-                if (i >= s.Length || s[i] != '{') throw new ComposeException($"\\text needs its text in braces. Got '{Short(s)}'.", line, s);
+                if (i >= s.Length || s[i] != '{')
+                    throw new ComposeException($"\\text needs its text in braces. Got '{Short(s)}'.", line, s);
                 int end = s.IndexOf('}', i);
-                if (end < 0) throw new ComposeException($"an equation has an unclosed '{{'. Got '{Short(s)}'.", line, s);
+                if (end < 0)
+                    throw new ComposeException($"an equation has an unclosed '{{'. Got '{Short(s)}'.", line, s);
                 string text = s[(i + 1)..end];
                 i = end + 1;
                 return new Sym(text, Spoken: " " + text + " ");
@@ -138,7 +148,8 @@ public static class MathNotation
         }
         if (Greek.TryGetValue(name, out var g)) return new Sym(g.Char, Spoken: " " + g.Name + " ");
         if (Symbols.TryGetValue(name, out var sym)) return new Sym(sym.Char, Spoken: sym.Spoken);
-        if (Functions.Contains(name)) return new Seq(new Node[] { new Sym(name, Spoken: " " + name + " "), new Space(0.17) });
+        if (Functions.Contains(name))
+            return new Seq(new Node[] { new Sym(name, Spoken: " " + name + " "), new Space(0.17) });
         throw new ComposeException($"an equation has an unknown command '\\{name}'. Got '{Short(s)}'.", line, s);
     }
 
@@ -160,7 +171,9 @@ public static class MathNotation
             case Seq q: foreach (var n in q.Items) Speak(n, sb); break;
             case Space: sb.Append(' '); break;
             case Hat h: sb.Append(' '); Speak(h.Body, sb); sb.Append(" hat "); break;
-            case Frac f: sb.Append(" the fraction "); Speak(f.Num, sb); sb.Append(" over "); Speak(f.Den, sb); sb.Append(", "); break;
+            case Frac f:
+                sb.Append(" the fraction "); Speak(f.Num, sb); sb.Append(" over "); Speak(f.Den, sb); sb.Append(", ");
+                break;
             case BigOp b: sb.Append(' ').Append(b.Spoken).Append(' '); break;
             case Script sc when sc.Base is BigOp op:
                 sb.Append(' ').Append(op.Spoken);
@@ -178,7 +191,9 @@ public static class MathNotation
     }
 }
 
-/// <summary>Lays out a parsed equation: glyphs and rules relative to the baseline, with width, ascent and descent.</summary>
+/// <summary>
+/// Lays out a parsed equation: glyphs and rules relative to the baseline, with width, ascent and descent.
+/// </summary>
 public sealed class MathBox
 {
     public readonly record struct Glyph(string Text, double X, double Dy, FontSpec Font);
@@ -314,7 +329,9 @@ public sealed class MathBox
     }
 }
 
-/// <summary>A display equation, centred, drawn inside a Formula structure element with its spoken form as alternative text.</summary>
+/// <summary>
+/// A display equation, centred, drawn inside a Formula structure element with its spoken form as alternative text.
+/// </summary>
 public sealed class MathAtom : Atom
 {
     public required MathBox Box { get; init; }
@@ -333,8 +350,8 @@ public sealed class MathAtom : Atom
         {
             double thickness = r.Thickness == 0 ? 0.55 : 0.6;
             // A rule with a thickness other than 0 is a slanted stroke (the hat): Thickness is its rise.
-            if (r.Thickness == 0) surface.Line(left + r.X1, baseline + r.Dy, left + r.X2, baseline + r.Dy, theme.Text, thickness);
-            else surface.Line(left + r.X1, baseline + r.Dy, left + r.X2, baseline + r.Dy + r.Thickness, theme.Text, thickness);
+            double y2 = r.Thickness == 0 ? baseline + r.Dy : baseline + r.Dy + r.Thickness;
+            surface.Line(left + r.X1, baseline + r.Dy, left + r.X2, y2, theme.Text, thickness);
         }
         surface.EndTag();
     }

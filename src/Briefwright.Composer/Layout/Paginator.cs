@@ -20,7 +20,8 @@ public static class Paginator
         foreach (var atom in atoms)
             if (atom.Height > pageHeight + 1e-6)
                 throw new ComposeException(
-                    $"{Capitalise(atom.Describe())} is {atom.Height:0} pt tall and cannot fit on a page ({pageHeight:0} pt of content height): shorten it or split it.");
+                    $"{Capitalise(atom.Describe())} is {atom.Height:0} pt tall and cannot fit on a page " +
+                    $"({pageHeight:0} pt of content height): shorten it or split it.");
 
         var pages = new Pages();
         int i = 0;
@@ -103,7 +104,9 @@ public static class Paginator
         return waits ? end : null;
     }
 
-    /// <summary>The height of an atom with the atoms it must stay with; just its own when the chain cannot fit on any page.</summary>
+    /// <summary>
+    /// The height of an atom with the atoms it must stay with; just its own when the chain cannot fit on any page.
+    /// </summary>
     private static double Chain(IReadOnlyList<Atom> atoms, int i, double space, double pageHeight)
     {
         double chain = space + atoms[i].Height;

@@ -63,9 +63,19 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         };
     }
 
-    private IEnumerable<Atom> Paragraph(IReadOnlyList<TextRun> runs, ParagraphRole role, double width, StructTag tag = StructTag.P)
+    private IEnumerable<Atom> Paragraph(
+        IReadOnlyList<TextRun> runs,
+        ParagraphRole role,
+        double width,
+        StructTag tag = StructTag.P)
     {
-        double size = role switch { ParagraphRole.Subtitle => 12.5, ParagraphRole.Meta => 9, ParagraphRole.Note => theme.CaptionSize, _ => theme.BodySize };
+        double size = role switch
+        {
+            ParagraphRole.Subtitle => 12.5,
+            ParagraphRole.Meta => 9,
+            ParagraphRole.Note => theme.CaptionSize,
+            _ => theme.BodySize,
+        };
         var lines = LineBreaker.Break(runs, size, width, measurer);
         double lh = LineHeight(size);
         double ascent = measurer.Ascent(new FontSpec(RunStyle.Regular, size)) + (lh - size * 1.15) / 2;
@@ -134,7 +144,10 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
 
     private IEnumerable<Atom> SourceLine(string source, double width)
     {
-        var atoms = Paragraph(new[] { new TextRun(theme.SourceLabel, RunStyle.Italic), new TextRun(source) }, ParagraphRole.Note, width).ToList();
+        var atoms = Paragraph(
+            new[] { new TextRun(theme.SourceLabel, RunStyle.Italic), new TextRun(source) },
+            ParagraphRole.Note,
+            width).ToList();
         return atoms.Select((a, i) => i == 0 ? Clone(a, 3) : a);
     }
 
@@ -142,12 +155,22 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
     {
         figures++;
         var atoms = new List<Atom>();
-        atoms.AddRange(Caption(theme.FigureLabel.Replace("{0}", figures.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal), f.Caption, width, 12));
+        string label = theme.FigureLabel.Replace(
+            "{0}", figures.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal);
+        atoms.AddRange(Caption(label, f.Caption, width, 12));
         double w = Math.Min(width, f.WidthPt);
         double h = f.HeightPt * w / f.WidthPt;
         double maxH = theme.ContentHeight * 0.6;
         if (h > maxH) { w *= maxH / h; h = maxH; }
-        atoms.Add(new FigureAtom { Id = f.Id, Pdf = f.Pdf, Page = f.Page, Width = w, Height = h, SpaceBefore = 4, AltText = f.AltText, KeepWithNext = f.Source is not null });
+        atoms.Add(new FigureAtom {
+            Id = f.Id,
+            Pdf = f.Pdf,
+            Page = f.Page,
+            Width = w,
+            Height = h,
+            SpaceBefore = 4,
+            AltText = f.AltText,
+            KeepWithNext = f.Source is not null });
         if (f.Source is not null) atoms.AddRange(SourceLine(f.Source, width));
         // Caption, chart and source move as one float: text after them may fill a page they do not fit on.
         var float_ = new object();
@@ -159,7 +182,12 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
     {
         tables++;
         var atoms = new List<Atom>();
-        if (t.Caption is not null) atoms.AddRange(Caption(theme.TableLabel.Replace("{0}", tables.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal), t.Caption, width, 12));
+        if (t.Caption is not null)
+        {
+            string label = theme.TableLabel.Replace(
+                "{0}", tables.ToString(System.Globalization.CultureInfo.InvariantCulture), StringComparison.Ordinal);
+            atoms.AddRange(Caption(label, t.Caption, width, 12));
+        }
         double size = theme.TableSize, lh = size * 1.3, pad = 3.5;
         var regular = new FontSpec(RunStyle.Regular, size);
         int cols = t.Header.Count;
@@ -172,11 +200,16 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
 
         TableRowAtom Row(IReadOnlyList<string> cells, bool header, int index)
         {
-            var lines = cells.Select((cell, c) => LineBreaker.Break(new[] { new TextRun(cell, header ? RunStyle.Bold : RunStyle.Regular) }, size, widths[c] - 2 * pad, measurer)).ToList();
+            var lines = cells.Select((cell, c) => LineBreaker.Break(
+                new[] { new TextRun(cell, header ? RunStyle.Bold : RunStyle.Regular) },
+                size,
+                widths[c] - 2 * pad,
+                measurer)).ToList();
             double h = lines.Max(l => l.Count) * lh + 2 * pad;
             return new TableRowAtom
             {
-                Cells = lines, ColumnX = xs, ColumnWidth = widths, Align = t.Align, LineHeight = lh, Ascent = ascent, Padding = pad,
+                Cells = lines, ColumnX = xs, ColumnWidth = widths, Align = t.Align,
+                LineHeight = lh, Ascent = ascent, Padding = pad,
                 IsHeader = header, Striped = index % 2 == 1, Height = h, Group = group, GroupTag = StructTag.Table,
                 SpaceBefore = header ? 4 : 0, KeepWithNext = header, RepeatHeader = headerAtom,
             };
@@ -228,14 +261,22 @@ public sealed class Planner(Theme theme, ITextMeasurer measurer)
         return min.Select((m, c) => m + spare * (want[c] - m) / extraWant).ToArray();
     }
 
-    /// <summary>Display equations are set a little larger than body text, centred, and kept with the line before them.</summary>
+    /// <summary>
+    /// Display equations are set a little larger than body text, centred, and kept with the line before them.
+    /// </summary>
     private Atom Equation(MathBlock m, double width)
     {
         var node = MathNotation.Parse(m.Source, m.Line);
         var box = MathBox.Layout(node, theme.BodySize * 1.1, measurer);
         if (box.Width > width)
-            throw new ComposeException($"the equation '{(m.Source.Length <= 40 ? m.Source : m.Source[..40] + "…")}' is {box.Width:0} pt wide and does not fit the {width:0} pt line: split it.", m.Line, m.Source);
-        return new MathAtom { Box = box, AltText = MathNotation.Spoken(node), Source = m.Source, Height = box.Ascent + box.Descent + 6, SpaceBefore = theme.ParagraphGap };
+            throw new ComposeException($"the equation '{(m.Source.Length <= 40 ? m.Source : m.Source[..40] + "…")}' " +
+                $"is {box.Width:0} pt wide and does not fit the {width:0} pt line: split it.", m.Line, m.Source);
+        return new MathAtom {
+            Box = box,
+            AltText = MathNotation.Spoken(node),
+            Source = m.Source,
+            Height = box.Ascent + box.Descent + 6,
+            SpaceBefore = theme.ParagraphGap };
     }
 
     private Atom Box(BoxBlock b, double width)

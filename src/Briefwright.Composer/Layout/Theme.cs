@@ -5,7 +5,8 @@ namespace Briefwright.Composer.Layout;
 /// <summary>An sRGB colour.</summary>
 public readonly record struct Rgb(byte R, byte G, byte B)
 {
-    public static Rgb Hex(string hex) => new(Convert.ToByte(hex[1..3], 16), Convert.ToByte(hex[3..5], 16), Convert.ToByte(hex[5..7], 16));
+    public static Rgb Hex(string hex)
+        => new(Convert.ToByte(hex[1..3], 16), Convert.ToByte(hex[3..5], 16), Convert.ToByte(hex[5..7], 16));
 }
 
 /// <summary>A font: style and size in points.</summary>
@@ -43,5 +44,6 @@ public sealed record Theme
     public double ContentWidth => PageWidth - MarginLeft - MarginRight;
     public double ContentHeight => PageHeight - MarginTop - MarginBottom;
 
-    public static Theme For(PaperSize paper) => paper == PaperSize.Letter ? new Theme { PageWidth = 612, PageHeight = 792 } : new Theme();
+    public static Theme For(PaperSize paper)
+        => paper == PaperSize.Letter ? new Theme { PageWidth = 612, PageHeight = 792 } : new Theme();
 }

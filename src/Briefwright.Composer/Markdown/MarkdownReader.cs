@@ -37,7 +37,9 @@ public static partial class MarkdownReader
         return blocks;
     }
 
-    /// <summary>Schemes a link in a brief may use; anything else (file:, javascript:, a relative path) is refused.</summary>
+    /// <summary>
+    /// Schemes a link in a brief may use; anything else (file:, javascript:, a relative path) is refused.
+    /// </summary>
     public static readonly string[] LinkSchemes = { "http", "https", "mailto" };
 
     private static string CheckedLink(string? url, int line)
@@ -46,10 +48,18 @@ public static partial class MarkdownReader
         int colon = u.IndexOf(':', StringComparison.Ordinal);
         string scheme = colon > 0 ? u[..colon] : "";
         if (LinkSchemes.Contains(scheme, StringComparer.OrdinalIgnoreCase)) return u;
-        throw new ComposeException($"links in a brief must start with http:, https: or mailto:. Got '{(u.Length > 60 ? u[..60] + "…" : u)}'.", line, u.Length > 0 ? u : null);
+        throw new ComposeException(
+            $"links in a brief must start with http:, https: or mailto:. Got '{(u.Length > 60 ? u[..60] + "…" : u)}'.",
+            line,
+            u.Length > 0 ? u : null);
     }
 
-    private static void Convert(string markdown, Markdig.Syntax.Block node, List<Block> blocks, IReadOnlyDictionary<string, FigureBlock> figures, ref (string Caption, string? Source)? caption)
+    private static void Convert(
+        string markdown,
+        Markdig.Syntax.Block node,
+        List<Block> blocks,
+        IReadOnlyDictionary<string, FigureBlock> figures,
+        ref (string Caption, string? Source)? caption)
     {
         switch (node)
         {
@@ -61,11 +71,16 @@ public static partial class MarkdownReader
                 string plain = string.Concat(runs.Select(r => r.Text)).Trim();
                 // A directive is written as [[...]] in the template itself; escaped brackets (\[\[, as text from a
                 // scenario is written) read back as the same characters but are text, never a directive.
-                bool written = p.Span.Start >= 0 && p.Span.End < markdown.Length && markdown.AsSpan(p.Span.Start, p.Span.Length).TrimStart().StartsWith("[[", StringComparison.Ordinal);
+                bool written = p.Span.Start >= 0 && p.Span.End < markdown.Length
+                    && markdown.AsSpan(p.Span.Start, p.Span.Length).TrimStart()
+                        .StartsWith("[[", StringComparison.Ordinal);
                 // A display equation: a paragraph written $$ … $$ in the template, read from its source text so that
                 // Markdown never touches its backslashes, underscores and stars.
-                string raw = p.Span.Start >= 0 && p.Span.End < markdown.Length ? markdown.Substring(p.Span.Start, p.Span.Length).Trim() : "";
-                if (raw.Length >= 4 && raw.StartsWith("$$", StringComparison.Ordinal) && raw.EndsWith("$$", StringComparison.Ordinal))
+                string raw = p.Span.Start >= 0 && p.Span.End < markdown.Length
+                    ? markdown.Substring(p.Span.Start, p.Span.Length).Trim()
+                    : "";
+                if (raw.Length >= 4 && raw.StartsWith("$$", StringComparison.Ordinal)
+                    && raw.EndsWith("$$", StringComparison.Ordinal))
                 {
                     blocks.Add(new Document.MathBlock(raw[2..^2].Replace('\n', ' ').Trim(), p.Line + 1));
                     break;
@@ -79,8 +94,11 @@ public static partial class MarkdownReader
                 blocks.Add(new Document.ParagraphBlock(runs));
                 break;
             case ListBlock l:
-                var items = l.OfType<ListItemBlock>().Select(item => (IReadOnlyList<TextRun>)item.OfType<ParagraphBlock>()
-                    .SelectMany((para, i) => i == 0 ? Runs(para.Inline) : Runs(para.Inline).Prepend(new TextRun(" "))).ToList()).ToList();
+                var items = l.OfType<ListItemBlock>().Select(item => (IReadOnlyList<TextRun>)item
+                    .OfType<ParagraphBlock>()
+                    .SelectMany(
+                        (para, i) => i == 0 ? Runs(para.Inline) : Runs(para.Inline).Prepend(new TextRun(" ")))
+                    .ToList()).ToList();
                 blocks.Add(new Document.ListBlock(items, l.IsOrdered));
                 break;
             case Table t:
@@ -92,7 +110,8 @@ public static partial class MarkdownReader
                 (string, string?)? none = null;
                 foreach (var child in q) Convert(markdown, child, inner, figures, ref none);
                 string? title = null;
-                if (inner.FirstOrDefault() is Document.ParagraphBlock first && first.Runs.All(r => r.Style == RunStyle.Bold))
+                if (inner.FirstOrDefault() is Document.ParagraphBlock first
+                    && first.Runs.All(r => r.Style == RunStyle.Bold))
                 {
                     title = string.Concat(first.Runs.Select(r => r.Text));
                     inner.RemoveAt(0);
@@ -102,17 +121,30 @@ public static partial class MarkdownReader
             case ThematicBreakBlock:
                 break;
             default:
-                throw new ComposeException($"the brief's text holds a {node.GetType().Name.Replace("Block", " block").ToLowerInvariant()}, which briefs do not support; use paragraphs, lists, tables, headings or a quote.", node.Line + 1);
+                throw new ComposeException("the brief's text holds a " +
+                    $"{node.GetType().Name.Replace("Block", " block").ToLowerInvariant()}, which briefs do not " +
+                    "support; use paragraphs, lists, tables, headings or a quote.", node.Line + 1);
         }
     }
 
-    private static void Apply(string name, string argument, string text, int line, List<Block> blocks, IReadOnlyDictionary<string, FigureBlock> figures, ref (string Caption, string? Source)? caption)
+    private static void Apply(
+        string name,
+        string argument,
+        string text,
+        int line,
+        List<Block> blocks,
+        IReadOnlyDictionary<string, FigureBlock> figures,
+        ref (string Caption, string? Source)? caption)
     {
         switch (name)
         {
             case "figure":
                 if (!figures.TryGetValue(argument.Trim(), out var figure))
-                    throw new ComposeException($"unknown figure '{argument.Trim()}'. Known figures: {string.Join(", ", figures.Keys.Order())}.", line, text);
+                    throw new ComposeException(
+                        $"unknown figure '{argument.Trim()}'. Known figures: " +
+                        $"{string.Join(", ", figures.Keys.Order())}.",
+                        line,
+                        text);
                 blocks.Add(figure);
                 break;
             case "table":
@@ -123,7 +155,8 @@ public static partial class MarkdownReader
                 blocks.Add(new PageBreakBlock());
                 break;
             default:
-                throw new ComposeException($"unknown directive [[{name}]]; known: [[figure: id]], [[table: caption | source]], [[pagebreak]]. Got {text}.", line, text);
+                throw new ComposeException($"unknown directive [[{name}]]; known: [[figure: id]], [[table: caption | " +
+                    $"source]], [[pagebreak]]. Got {text}.", line, text);
         }
     }
 
@@ -151,7 +184,10 @@ public static partial class MarkdownReader
 
     private static string PlainText(ContainerInline? inline) => string.Concat(Runs(inline).Select(r => r.Text));
 
-    private static List<TextRun> Runs(ContainerInline? container, RunStyle style = RunStyle.Regular, string? link = null)
+    private static List<TextRun> Runs(
+        ContainerInline? container,
+        RunStyle style = RunStyle.Regular,
+        string? link = null)
     {
         var runs = new List<TextRun>();
         if (container is null) return runs;
@@ -165,7 +201,8 @@ public static partial class MarkdownReader
                 case EmphasisInline em:
                     var next = (style, em.DelimiterCount >= 2) switch
                     {
-                        (RunStyle.Italic, true) or (RunStyle.Bold, false) or (RunStyle.BoldItalic, _) => RunStyle.BoldItalic,
+                        (RunStyle.Italic, true) or (RunStyle.Bold, false) or (RunStyle.BoldItalic, _)
+                            => RunStyle.BoldItalic,
                         (_, true) => RunStyle.Bold,
                         _ => RunStyle.Italic,
                     };

@@ -7,9 +7,9 @@ using SkiaSharp;
 namespace Briefwright.Brief.Tests.Formats;
 
 /// <summary>
-/// The web page in a real browser: headless Chromium (Debian's <c>chromium</c>, installed by test.sh) takes a screenshot
-/// of the national demo page, and axe-core (from the npm registry, installed by test.sh into <c>.tools/</c>) checks it
-/// for accessibility. The rule: no violation that axe rates serious or critical (axe's impact levels).
+/// The web page in a real browser: headless Chromium (Debian's <c>chromium</c>, installed by test.sh) takes a
+/// screenshot of the national demo page, and axe-core (from the npm registry, installed by test.sh into <c>.tools/</c>)
+/// checks it for accessibility. The rule: no violation that axe rates serious or critical (axe's impact levels).
 /// </summary>
 public class BrowserTests
 {
@@ -20,16 +20,29 @@ public class BrowserTests
         get
         {
             string path = Path.Combine(RepositoryRoot.Path, ".tools", "node_modules", "axe-core", "axe.min.js");
-            Assert.True(File.Exists(path), $"{path} is missing; test.sh installs it (npm install --prefix .tools axe-core).");
+            Assert.True(
+                File.Exists(path),
+                $"{path} is missing; test.sh installs it (npm install --prefix .tools axe-core).");
             return File.ReadAllText(path);
         }
     }
 
-    /// <summary>Runs headless Chromium on a page and returns what it printed; a missing browser fails with how to install it.</summary>
+    /// <summary>
+    /// Runs headless Chromium on a page and returns what it printed; a missing browser fails with how to install it.
+    /// </summary>
     internal static string RunChromium(string dir, params string[] args)
     {
-        var psi = new ProcessStartInfo(Chromium) { RedirectStandardOutput = true, RedirectStandardError = true, WorkingDirectory = dir };
-        foreach (var a in new[] { "--headless", "--no-sandbox", "--disable-gpu", "--hide-scrollbars", "--no-first-run", $"--user-data-dir={Path.Combine(dir, "profile")}" }.Concat(args))
+        var psi = new ProcessStartInfo(Chromium) {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            WorkingDirectory = dir };
+        foreach (var a in new[] {
+            "--headless",
+            "--no-sandbox",
+            "--disable-gpu",
+            "--hide-scrollbars",
+            "--no-first-run",
+            $"--user-data-dir={Path.Combine(dir, "profile")}" }.Concat(args))
             psi.ArgumentList.Add(a);
         try
         {
@@ -42,7 +55,8 @@ public class BrowserTests
         }
         catch (System.ComponentModel.Win32Exception)
         {
-            throw new InvalidOperationException("chromium is not installed; test.sh installs it (apt-get install chromium).");
+            throw new InvalidOperationException(
+                "chromium is not installed; test.sh installs it (apt-get install chromium).");
         }
     }
 
@@ -88,16 +102,22 @@ public class BrowserTests
         }
     }
 
-    /// <summary>axe-core's violations for a page, run inside headless Chromium: the page with axe inlined writes them into itself.</summary>
+    /// <summary>
+    /// axe-core's violations for a page, run inside headless Chromium: the page with axe inlined writes them into
+    /// itself.
+    /// </summary>
     internal static List<(string Id, string Impact, int Nodes, string Help)> Axe(string html)
     {
         string dir = TempDir();
         try
         {
             string runner = "<script>" + AxeScript + "</script><script>" +
-                "axe.run(document, { resultTypes: ['violations'] }).then(function (r) { var p = document.createElement('pre'); p.id = 'axe-results';" +
-                " p.textContent = JSON.stringify(r.violations.map(function (v) { return { id: v.id, impact: v.impact || '', nodes: v.nodes.length, help: v.help }; })); document.body.appendChild(p); })" +
-                ".catch(function (e) { var p = document.createElement('pre'); p.id = 'axe-results'; p.textContent = 'ERROR ' + e; document.body.appendChild(p); });</script>";
+                "axe.run(document, { resultTypes: ['violations'] }).then(function (r) { var p = " +
+                "document.createElement('pre'); p.id = 'axe-results';" +
+                " p.textContent = JSON.stringify(r.violations.map(function (v) { return { id: v.id, impact: v.impact " +
+                "|| '', nodes: v.nodes.length, help: v.help }; })); document.body.appendChild(p); })" +
+                ".catch(function (e) { var p = document.createElement('pre'); p.id = 'axe-results'; p.textContent = " +
+                "'ERROR ' + e; document.body.appendChild(p); });</script>";
             int end = html.LastIndexOf("</body>", StringComparison.Ordinal);
             string page = Path.Combine(dir, "axe.html");
             File.WriteAllText(page, html[..end] + runner + html[end..]);
@@ -106,7 +126,8 @@ public class BrowserTests
             Assert.True(m.Success, "axe wrote no results: " + dom[Math.Max(0, dom.Length - 500)..]);
             string json = WebUtility.HtmlDecode(m.Groups[1].Value);
             Assert.False(json.StartsWith("ERROR", StringComparison.Ordinal), json);
-            return JsonDocument.Parse(json).RootElement.EnumerateArray().Select(v => (v.GetProperty("id").GetString()!, v.GetProperty("impact").GetString()!,
+            return JsonDocument.Parse(json).RootElement.EnumerateArray().Select(v => (v.GetProperty("id")
+                .GetString()!, v.GetProperty("impact").GetString()!,
                 v.GetProperty("nodes").GetInt32(), v.GetProperty("help").GetString()!)).ToList();
         }
         finally
@@ -120,15 +141,21 @@ public class BrowserTests
     {
         var violations = Axe(System.Text.Encoding.UTF8.GetString(FormatsDemo.File(FormatsDemo.National, "html")));
         var serious = violations.Where(v => v.Impact is "serious" or "critical").ToList();
-        Assert.True(serious.Count == 0, string.Join("\n", serious.Select(v => $"{v.Impact} {v.Id} ({v.Nodes}): {v.Help}")));
+        Assert.True(
+            serious.Count == 0,
+            string.Join("\n", serious.Select(v => $"{v.Impact} {v.Id} ({v.Nodes}): {v.Help}")));
     }
 
     [Fact]
     public void Axe_run_this_way_reports_what_is_wrong()
     {
-        // The same page with an unlabelled image and a table header without a scope that fits: the harness must see them.
+        // The same page with an unlabelled image and a table header without a scope that fits: the harness must see
+        // them.
         string html = System.Text.Encoding.UTF8.GetString(FormatsDemo.File(FormatsDemo.National, "html"))
-            .Replace("<main id=\"main\">", "<main id=\"main\"><img src=\"data:image/png;base64,iVBORw0KGgo=\">", StringComparison.Ordinal)
+            .Replace(
+                "<main id=\"main\">",
+                "<main id=\"main\"><img src=\"data:image/png;base64,iVBORw0KGgo=\">",
+                StringComparison.Ordinal)
             .Replace("<html lang=\"en-GB\">", "<html>", StringComparison.Ordinal);
         var violations = Axe(html);
         Assert.Contains(violations, v => v.Id == "image-alt" && v.Impact == "critical");

@@ -16,7 +16,9 @@ public class DocxTests
     {
         using var doc = WordprocessingDocument.Open(new MemoryStream(Bytes), false);
         var errors = new OpenXmlValidator(DocumentFormat.OpenXml.FileFormatVersions.Office2019).Validate(doc).ToList();
-        Assert.True(errors.Count == 0, string.Join("\n", errors.Take(20).Select(e => $"{e.Part?.Uri} {e.Path?.XPath}: {e.Description}")));
+        Assert.True(
+            errors.Count == 0,
+            string.Join("\n", errors.Take(20).Select(e => $"{e.Part?.Uri} {e.Path?.XPath}: {e.Description}")));
     }
 
     [Fact]
@@ -32,9 +34,12 @@ public class DocxTests
             Assert.Equal(level - 1, style.StyleParagraphProperties!.OutlineLevel!.Val!.Value);
         }
         var headings = main.Document!.Body!.Elements<Paragraph>()
-            .Where(p => p.ParagraphProperties?.ParagraphStyleId?.Val?.Value?.StartsWith("Heading", StringComparison.Ordinal) == true)
+            .Where(p => p.ParagraphProperties?.ParagraphStyleId?.Val?.Value?
+                .StartsWith("Heading", StringComparison.Ordinal) == true)
             .Select(p => p.InnerText).ToList();
-        var expected = FormatsDemo.National.Markdown.Split('\n').Where(l => l.StartsWith('#')).Select(l => l.TrimStart('#').Trim()).ToList();
+        var expected = FormatsDemo.National.Markdown.Split('\n').Where(l => l.StartsWith('#'))
+            .Select(l => l.TrimStart('#').Trim())
+            .ToList();
         Assert.Equal(expected.Count, headings.Count);
         for (int i = 0; i < expected.Count; i++) Assert.EndsWith(expected[i], headings[i]);
         Assert.Equal("1  " + expected[1], headings[1]);
@@ -45,8 +50,11 @@ public class DocxTests
     {
         using var doc = WordprocessingDocument.Open(new MemoryStream(Bytes), false);
         var body = doc.MainDocumentPart!.Document!.Body!;
-        var tables = body.Elements<Table>().Where(t => t.GetFirstChild<TableProperties>()?.TableStyle?.Val?.Value == "BriefTable").ToList();
-        int expected = FormatsDemo.National.Markdown.Split('\n').Count(l => l.StartsWith("|---", StringComparison.Ordinal));
+        var tables = body.Elements<Table>()
+            .Where(t => t.GetFirstChild<TableProperties>()?.TableStyle?.Val?.Value == "BriefTable")
+            .ToList();
+        int expected = FormatsDemo.National.Markdown.Split('\n')
+            .Count(l => l.StartsWith("|---", StringComparison.Ordinal));
         Assert.Equal(expected, tables.Count);
         foreach (var t in tables)
         {
@@ -54,11 +62,16 @@ public class DocxTests
             var caption = t.PreviousSibling<Paragraph>()!;
             Assert.Equal("Caption", caption.ParagraphProperties!.ParagraphStyleId!.Val!.Value);
             Assert.StartsWith("Table ", caption.InnerText);
-            Assert.Contains(caption.Descendants<SimpleField>(), f => f.Instruction!.Value!.Contains("SEQ Table", StringComparison.Ordinal));
+            Assert.Contains(
+                caption.Descendants<SimpleField>(),
+                f => f.Instruction!.Value!.Contains("SEQ Table", StringComparison.Ordinal));
         }
         // The options table reads back as the PDF prints it.
-        var options = tables.First(t => t.PreviousSibling<Paragraph>()!.InnerText.Contains("by option", StringComparison.Ordinal));
-        string text = string.Join("|", options.Elements<TableRow>().Skip(1).First().Elements<TableCell>().Select(c => c.InnerText));
+        var options = tables.First(
+            t => t.PreviousSibling<Paragraph>()!.InnerText.Contains("by option", StringComparison.Ordinal));
+        string text = string.Join(
+            "|",
+            options.Elements<TableRow>().Skip(1).First().Elements<TableCell>().Select(c => c.InnerText));
         Assert.Matches(@"^Current law, 11 years \(baseline\)\|11\.0\|0\.\d{3}\|", text);
     }
 
@@ -68,7 +81,8 @@ public class DocxTests
         using var doc = WordprocessingDocument.Open(new MemoryStream(Bytes), false);
         var main = doc.MainDocumentPart!;
         var drawings = main.Document!.Body!.Descendants<DW.DocProperties>().ToList();
-        int figures = FormatsDemo.National.Markdown.Split('\n').Count(l => l.StartsWith("[[figure:", StringComparison.Ordinal));
+        int figures = FormatsDemo.National.Markdown.Split('\n')
+            .Count(l => l.StartsWith("[[figure:", StringComparison.Ordinal));
         Assert.Equal(figures, drawings.Count);
         Assert.Equal(figures, main.ImageParts.Count());
         foreach (var image in main.ImageParts)
@@ -97,7 +111,10 @@ public class DocxTests
         Assert.Equal("en-GB", defaults.Languages!.Val!.Value);
         var theme = FormatsDemo.Theme();
         var heading = styles.Elements<Style>().Single(s => s.StyleId == "Heading2");
-        Assert.Equal(theme.Colours["accent"].TrimStart('#'), heading.StyleRunProperties!.Color!.Val!.Value, ignoreCase: true);
+        Assert.Equal(
+            theme.Colours["accent"].TrimStart('#'),
+            heading.StyleRunProperties!.Color!.Val!.Value,
+            ignoreCase: true);
         Assert.Equal(theme.Colours["text"].TrimStart('#'), defaults.Color!.Val!.Value, ignoreCase: true);
     }
 
@@ -105,7 +122,9 @@ public class DocxTests
     public void Text_reads_back_with_the_key_findings_and_the_cautions()
     {
         using var doc = WordprocessingDocument.Open(new MemoryStream(Bytes), false);
-        string text = string.Join("\n", doc.MainDocumentPart!.Document!.Body!.Descendants<Paragraph>().Select(p => p.InnerText));
+        string text = string.Join(
+            "\n",
+            doc.MainDocumentPart!.Document!.Body!.Descendants<Paragraph>().Select(p => p.InnerText));
         var box = FormatsDemo.National.Markdown.Split('\n').Where(l => l.StartsWith("> - ", StringComparison.Ordinal))
             .Select(l => l[4..].Replace("**", "", StringComparison.Ordinal)).ToList();
         Assert.NotEmpty(box);

@@ -4,7 +4,9 @@ using Briefwright.Scenario;
 
 namespace Briefwright.Brief.Tests.Formats;
 
-/// <summary>The invented national demo brief built once with every format, in the demo's theme (colours and logo).</summary>
+/// <summary>
+/// The invented national demo brief built once with every format, in the demo's theme (colours and logo).
+/// </summary>
 internal static class FormatsDemo
 {
     private static readonly Lazy<BuiltBrief> Lazy = new(() => Build("auroria-national"));
@@ -13,7 +15,9 @@ internal static class FormatsDemo
 
     public static BuiltBrief Build(string name, int threads = 0)
     {
-        var (theme, problems, _) = ThemeLoader.Load(Path.Combine(Demo.Root, "briefs-demo", "auroria-institute.theme.yaml"), new ThemeReader());
+        var (theme, problems, _) = ThemeLoader.Load(
+            Path.Combine(Demo.Root, "briefs-demo", "auroria-institute.theme.yaml"),
+            new ThemeReader());
         Assert.True(theme is not null, string.Join("\n", problems));
         var options = new BuildOptions { Theme = theme!, Logo = theme!.Logo, Formats = OutputFormats.All };
         if (threads > 0) options = options with { ModelThreads = threads };
@@ -23,7 +27,8 @@ internal static class FormatsDemo
     /// <summary>Reads the theme and its logo from the disk.</summary>
     internal sealed class ThemeReader : ISourceReader
     {
-        public bool TryRead(string path, out string text, out string error) => new Demo.DiskReader().TryRead(path, out text, out error);
+        public bool TryRead(string path, out string text, out string error)
+            => new Demo.DiskReader().TryRead(path, out text, out error);
 
         public bool TryReadBytes(string path, string root, long maxBytes, out byte[] bytes, out string error)
         {
@@ -34,7 +39,8 @@ internal static class FormatsDemo
     }
 
     public static ThemeSpec Theme() =>
-        ThemeLoader.Load(Path.Combine(Demo.Root, "briefs-demo", "auroria-institute.theme.yaml"), new ThemeReader()).Theme!;
+        ThemeLoader.Load(Path.Combine(Demo.Root, "briefs-demo", "auroria-institute.theme.yaml"), new ThemeReader())
+            .Theme!;
 
     public static byte[] File(BuiltBrief brief, string suffix) => brief.Formats.Single(f => f.Suffix == suffix).Bytes;
 

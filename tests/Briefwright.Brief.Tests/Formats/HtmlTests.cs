@@ -25,7 +25,9 @@ public class HtmlTests
         Assert.DoesNotContain("<iframe", html, StringComparison.OrdinalIgnoreCase);
         // Every resource the page loads is inline: images as data URIs, SVG references within the page.
         foreach (Match m in Regex.Matches(html, @"\s(?:src|xlink:href)=""([^""]*)"""))
-            Assert.True(m.Groups[1].Value.StartsWith("data:", StringComparison.Ordinal) || m.Groups[1].Value.StartsWith('#'), m.Value);
+            Assert.True(
+                m.Groups[1].Value.StartsWith("data:", StringComparison.Ordinal) || m.Groups[1].Value.StartsWith('#'),
+                m.Value);
         foreach (Match m in Regex.Matches(html, @"url\(([^)]*)\)"))
             Assert.StartsWith("#", m.Groups[1].Value.Trim('"', '\''));
     }
@@ -35,15 +37,22 @@ public class HtmlTests
     {
         string html = Html;
         Assert.Contains("<html lang=\"en-GB\">", html);
-        foreach (var landmark in new[] { "<header", "<nav aria-label=", "<main id=\"main\">", "<footer>" }) Assert.Contains(landmark, html);
+        foreach (var landmark in new[] {
+            "<header",
+            "<nav aria-label=",
+            "<main id=\"main\">",
+            "<footer>" }) Assert.Contains(landmark, html);
         Assert.Single(Regex.Matches(html, "<h1[ >]"));
         // The numbered sections of the PDF, in order, each a labelled region.
-        var sections = Regex.Matches(html, @"<h2 id=""(s-\d+)""><span class=""num"">(\d+)</span> ").Select(m => int.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture)).ToList();
+        var sections = Regex.Matches(html, @"<h2 id=""(s-\d+)""><span class=""num"">(\d+)</span> ")
+            .Select(m => int.Parse(m.Groups[2].Value, CultureInfo.InvariantCulture))
+            .ToList();
         Assert.True(sections.Count >= 6, $"{sections.Count} sections");
         Assert.Equal(Enumerable.Range(1, sections.Count), sections);
         foreach (Match m in Regex.Matches(html, @"<h2 id=""(s-\d+)"""))
             Assert.Contains($"<section aria-labelledby=\"{m.Groups[1].Value}\">", html);
-        var markdownSections = FormatsDemo.National.Markdown.Split('\n').Count(l => l.StartsWith("## ", StringComparison.Ordinal));
+        var markdownSections = FormatsDemo.National.Markdown.Split('\n')
+            .Count(l => l.StartsWith("## ", StringComparison.Ordinal));
         Assert.Equal(markdownSections, sections.Count);
         Assert.Contains("@media print", html);
         Assert.Contains("not forecasts", html);
@@ -70,7 +79,9 @@ public class HtmlTests
     {
         string html = Html;
         var brief = FormatsDemo.National;
-        var svgs = Regex.Matches(html, "<svg [^>]*role=\"img\" aria-labelledby=\"([^ ]+)-title \\1-desc\">\\s*<title id=\"\\1-title\">([^<]+)</title><desc id=\"\\1-desc\">([^<]+)</desc>");
+        var svgs = Regex.Matches(html,
+            "<svg [^>]*role=\"img\" aria-labelledby=\"([^ ]+)-title \\1-desc\">\\s*<title " +
+            "id=\"\\1-title\">([^<]+)</title><desc id=\"\\1-desc\">([^<]+)</desc>");
         int figures = brief.Markdown.Split('\n').Count(l => l.StartsWith("[[figure:", StringComparison.Ordinal));
         Assert.Equal(figures, svgs.Count);
         Assert.Equal(figures, Regex.Matches(html, "<svg ").Count);
@@ -97,7 +108,12 @@ public class HtmlTests
         string html = Html;
         var json = FormatsDemo.Json(FormatsDemo.National);
         // A digit changed in the options table, and one in the key findings: each is caught.
-        string changedRow = Regex.Replace(html, @"(<td class=""r"">)(\d+\.\d)(%?</td>)", m => m.Groups[1].Value + "99.9" + m.Groups[3].Value, RegexOptions.None, TimeSpan.FromSeconds(1));
+        string changedRow = Regex.Replace(
+            html,
+            @"(<td class=""r"">)(\d+\.\d)(%?</td>)",
+            m => m.Groups[1].Value + "99.9" + m.Groups[3].Value,
+            RegexOptions.None,
+            TimeSpan.FromSeconds(1));
         Assert.NotEqual(html, changedRow);
         Assert.NotEmpty(NumberCheck.Check(changedRow, json));
         int box = html.IndexOf("<section class=\"box\"", StringComparison.Ordinal);
@@ -106,7 +122,9 @@ public class HtmlTests
         Assert.NotEmpty(NumberCheck.Check(changedFinding, json));
     }
 
-    /// <summary>Reads numbers off the page and compares each with the results data rounded to the digits printed.</summary>
+    /// <summary>
+    /// Reads numbers off the page and compares each with the results data rounded to the digits printed.
+    /// </summary>
     internal static class NumberCheck
     {
         private static readonly Regex Number = new(@"[+\-−]?\d[\d,]*(?:\.\d+)?", RegexOptions.Compiled);
@@ -114,8 +132,11 @@ public class HtmlTests
         public static string Plain(string html) =>
             WebUtility.HtmlDecode(Regex.Replace(html, "<[^>]+>", "")).Trim();
 
-        /// <summary>The numbers in a text with the digits after the point: "−0.7%" is (-0.7, 1); "2,000" is (2000, 0).</summary>
-        public static List<(double Value, int Decimals, string Text)> Numbers(string text) => Number.Matches(text).Select(m =>
+        /// <summary>
+        /// The numbers in a text with the digits after the point: "−0.7%" is (-0.7, 1); "2,000" is (2000, 0).
+        /// </summary>
+        public static List<(double Value, int Decimals, string Text)> Numbers(
+            string text) => Number.Matches(text).Select(m =>
         {
             string s = m.Value.Replace("−", "-", StringComparison.Ordinal).Replace(",", "", StringComparison.Ordinal);
             int dot = s.IndexOf('.', StringComparison.Ordinal);
@@ -128,13 +149,20 @@ public class HtmlTests
 
         public static List<List<string>> Rows(string html, string captionStart)
         {
-            var table = Regex.Match(html, "<table id=\"table-\\d+\">\\s*<caption[^>]*><span class=\"label\">Table \\d+\\.</span> " + Regex.Escape(captionStart) + ".*?</table>", RegexOptions.Singleline);
+            var table = Regex.Match(html,
+                "<table id=\"table-\\d+\">\\s*<caption[^>]*><span class=\"label\">Table " +
+                "\\d+\\.</span> " + Regex.Escape(captionStart) + ".*?</table>", RegexOptions.Singleline);
             Assert.True(table.Success, $"no table whose caption starts '{captionStart}'");
             return Regex.Matches(table.Value, "<tr>(.*?)</tr>", RegexOptions.Singleline)
-                .Select(r => Regex.Matches(r.Groups[1].Value, "<t[hd][^>]*>(.*?)</t[hd]>", RegexOptions.Singleline).Select(c => Plain(c.Groups[1].Value)).ToList()).ToList();
+                .Select(r => Regex.Matches(r.Groups[1].Value, "<t[hd][^>]*>(.*?)</t[hd]>", RegexOptions.Singleline)
+                    .Select(c => Plain(c.Groups[1].Value))
+                    .ToList()).ToList();
         }
 
-        /// <summary>One printed cell against the value it shows (a percent in points, a year, an index); "–" and "none" stand for no value.</summary>
+        /// <summary>
+        /// One printed cell against the value it shows (a percent in points, a year, an index); "–" and "none" stand
+        /// for no value.
+        /// </summary>
         private static void Cell(List<string> problems, string where, string cell, double? exact, double scale = 1)
         {
             var numbers = Numbers(cell);
@@ -144,7 +172,8 @@ public class HtmlTests
                 if (exact is not null && numbers.Count > 0) problems.Add($"{where}: '{cell}' but the data has {exact}");
                 return;
             }
-            if (cell.StartsWith('<') && numbers.Count == 1) { if (exact * scale >= numbers[0].Value) problems.Add($"{where}: '{cell}' but the data has {exact * scale}"); return; }
+            if (cell.StartsWith('<') && numbers.Count == 1) { if (exact * scale >= numbers[0].Value) problems.Add(
+                $"{where}: '{cell}' but the data has {exact * scale}"); return; }
             if (numbers.Count != 1 || !Rounds(exact.Value * scale, numbers[0].Value, numbers[0].Decimals))
                 problems.Add($"{where}: shows '{cell}', the results data has {exact.Value * scale}");
         }
@@ -157,39 +186,62 @@ public class HtmlTests
 
             // Results by option: schooling, workers per person, human capital, output index (baseline = 100), change.
             var optionRows = Rows(html, "Long-run output per person by option");
-            double baseOutput = options.Single(o => o.GetProperty("is_baseline").GetBoolean()).GetProperty("output_per_person").GetDouble();
+            double baseOutput = options.Single(o => o.GetProperty("is_baseline").GetBoolean())
+                .GetProperty("output_per_person")
+                .GetDouble();
             foreach (var row in optionRows.Skip(1))
             {
                 string label = row[0].Replace(" (baseline)", "", StringComparison.Ordinal);
-                if (!labels.TryGetValue(label, out var o)) { problems.Add($"options table: unknown option '{row[0]}'"); continue; }
+                if (!labels.TryGetValue(label, out var o)) { problems.Add(
+                    $"options table: unknown option '{row[0]}'"); continue; }
                 Cell(problems, $"options/{label}/schooling", row[1], o.GetProperty("schooling_years").GetDouble());
                 Cell(problems, $"options/{label}/workers", row[2], o.GetProperty("worker_share").GetDouble());
-                Cell(problems, $"options/{label}/human capital", row[3], o.GetProperty("human_capital_per_worker").GetDouble());
-                Cell(problems, $"options/{label}/output", row[4], o.GetProperty("output_per_person").GetDouble() / baseOutput * 100);
-                Cell(problems, $"options/{label}/change", row[5], o.GetProperty("is_baseline").GetBoolean() ? null : o.GetProperty("change_vs_baseline_pct").GetDouble());
+                Cell(
+                    problems,
+                    $"options/{label}/human capital",
+                    row[3],
+                    o.GetProperty("human_capital_per_worker").GetDouble());
+                Cell(
+                    problems,
+                    $"options/{label}/output",
+                    row[4],
+                    o.GetProperty("output_per_person").GetDouble() / baseOutput * 100);
+                Cell(problems, $"options/{label}/change", row[5], o.GetProperty("is_baseline").GetBoolean()
+                    ? null
+                    : o.GetProperty("change_vs_baseline_pct").GetDouble());
             }
-            if (optionRows.Count != options.Count + 1) problems.Add($"options table has {optionRows.Count - 1} rows, the data {options.Count}");
+            if (optionRows.Count != options.Count + 1) problems.Add(
+                $"options table has {optionRows.Count - 1} rows, the data {options.Count}");
 
-            // The reform over time: deepest dip, its year, first year above, payback, change at the horizon, once adjusted.
+            // The reform over time: deepest dip, its year, first year above, payback, change at the horizon, once
+            // adjusted.
             var reform = json.GetProperty("analysis").GetProperty("reform");
             var paths = reform.GetProperty("options").EnumerateArray().ToDictionary(
-                r => options.Single(o => o.GetProperty("id").GetString() == r.GetProperty("option_id").GetString()).GetProperty("label").GetString()!, r => r);
+                r => options.Single(o => o.GetProperty("id").GetString() == r.GetProperty("option_id").GetString())
+                    .GetProperty("label")
+                    .GetString()!, r => r);
             var reformRows = Rows(html, "The reform over time");
             foreach (var row in reformRows.Skip(1))
             {
                 var r = paths[row[0]];
                 var path = r.GetProperty("path");
-                double? Opt(JsonElement e, string name) => e.TryGetProperty(name, out var v) && v.ValueKind == JsonValueKind.Number ? v.GetDouble() : null;
+                double? Opt(JsonElement e, string name)
+                    => e.TryGetProperty(name, out var v) && v.ValueKind == JsonValueKind.Number ? v.GetDouble() : null;
                 var gains = path.GetProperty("gain").EnumerateArray().Select(g => g.GetDouble()).ToList();
                 double? dip = Opt(path, "dip_depth");
                 Cell(problems, $"reform/{row[0]}/dip", row[1], dip is < 0 ? dip : null, 100);
                 Cell(problems, $"reform/{row[0]}/dip year", row[2], dip is < 0 ? Opt(path, "dip_calendar_year") : null);
                 Cell(problems, $"reform/{row[0]}/above from", row[3], Opt(path, "first_positive_calendar_year"));
-                Cell(problems, $"reform/{row[0]}/pays back", row[4], Opt(r.GetProperty("present_values")[0], "break_even_calendar_year"));
+                Cell(
+                    problems,
+                    $"reform/{row[0]}/pays back",
+                    row[4],
+                    Opt(r.GetProperty("present_values")[0], "break_even_calendar_year"));
                 Cell(problems, $"reform/{row[0]}/at horizon", row[5], gains[^1], 100);
                 Cell(problems, $"reform/{row[0]}/once adjusted", row[6], Opt(path, "balanced_growth_gain"), 100);
             }
-            if (reformRows.Count != paths.Count + 1) problems.Add($"reform table has {reformRows.Count - 1} rows, the data {paths.Count}");
+            if (reformRows.Count != paths.Count + 1) problems.Add(
+                $"reform table has {reformRows.Count - 1} rows, the data {paths.Count}");
 
             // Present values: one column per discount schedule, in years of output per person.
             var pvRows = Rows(html, "Present value of the gain");
@@ -199,13 +251,20 @@ public class HtmlTests
                 for (int c = 1; c < row.Count; c++)
                 {
                     var pv = pvs.Single(p => p.GetProperty("schedule_label").GetString() == pvRows[0][c]);
-                    Cell(problems, $"present values/{row[0]}/{pvRows[0][c]}", row[c], pv.GetProperty("to_horizon").GetDouble());
+                    Cell(
+                        problems,
+                        $"present values/{row[0]}/{pvRows[0][c]}",
+                        row[c],
+                        pv.GetProperty("to_horizon").GetDouble());
                 }
             }
 
             // Monte Carlo: 5th percentile, median, 95th percentile of the long-run change; the probability of a gain.
-            var mc = json.GetProperty("analysis").GetProperty("monte_carlo").GetProperty("options").EnumerateArray().ToDictionary(
-                m => options.Single(o => o.GetProperty("id").GetString() == m.GetProperty("option_id").GetString()).GetProperty("label").GetString()!, m => m);
+            var mc = json.GetProperty("analysis").GetProperty("monte_carlo").GetProperty("options").EnumerateArray()
+                .ToDictionary(
+                    m => options.Single(o => o.GetProperty("id").GetString() == m.GetProperty("option_id").GetString())
+                    .GetProperty("label")
+                    .GetString()!, m => m);
             foreach (var row in Rows(html, "Uncertainty: long-run change").Skip(1))
             {
                 var change = mc[row[0]].GetProperty("long_run_change_pct");
@@ -213,27 +272,36 @@ public class HtmlTests
                 Cell(problems, $"monte carlo/{row[0]}/median", row[2], change.GetProperty("p50").GetDouble());
                 Cell(problems, $"monte carlo/{row[0]}/p95", row[3], change.GetProperty("p95").GetDouble());
                 var p = mc[row[0]].GetProperty("probability_gain");
-                double estimate = (p.ValueKind == JsonValueKind.Object ? p.GetProperty("estimate") : p).GetDouble() * 100;
+                double estimate = (p.ValueKind == JsonValueKind.Object ? p.GetProperty("estimate") : p).GetDouble()
+                    * 100;
                 var shown = Numbers(row[4]);
-                if (row[4].Contains("or more", StringComparison.Ordinal) ? estimate < shown[0].Value : !Rounds(estimate, shown[0].Value, shown[0].Decimals))
+                if (row[4].Contains("or more", StringComparison.Ordinal)
+                    ? estimate < shown[0].Value
+                    : !Rounds(estimate, shown[0].Value, shown[0].Decimals))
                     problems.Add($"monte carlo/{row[0]}/probability: shows '{row[4]}', the data has {estimate}");
             }
 
-            // Key findings: every number is one of the headline facts, an option's schooling or change, a lever's share, or
-            // a number written in an option's or schedule's label (scenario text); "90%" is the width of the range shown
-            // (5th to 95th percentile, fixed by the method).
+            // Key findings: every number is one of the headline facts, an option's schooling or change, a lever's
+            // share, or a number written in an option's or schedule's label (scenario text); "90%" is the width of the
+            // range shown (5th to 95th percentile, fixed by the method).
             var candidates = new List<double> { 90 };
             foreach (var p in json.GetProperty("headline").EnumerateObject())
-                if (p.Value.ValueKind == JsonValueKind.Number) { candidates.Add(p.Value.GetDouble()); candidates.Add(Math.Abs(p.Value.GetDouble())); }
-            foreach (var o in options) { candidates.Add(o.GetProperty("schooling_years").GetDouble()); candidates.Add(o.GetProperty("change_vs_baseline_pct").GetDouble()); }
+                if (p.Value.ValueKind == JsonValueKind.Number) { candidates.Add(p.Value.GetDouble()); candidates.Add(
+                    Math.Abs(p.Value.GetDouble())); }
+            foreach (var o in options) { candidates.Add(o.GetProperty("schooling_years").GetDouble()); candidates.Add(
+                o.GetProperty("change_vs_baseline_pct").GetDouble()); }
             foreach (var d in json.GetProperty("lever_decomposition").EnumerateArray())
-                foreach (var l in d.GetProperty("levers").EnumerateArray()) candidates.Add(l.GetProperty("change_pct").GetDouble());
+                foreach (var l in d.GetProperty("levers").EnumerateArray()) candidates.Add(
+                    l.GetProperty("change_pct").GetDouble());
             var labelTexts = options.Select(o => o.GetProperty("label").GetString()!)
-                .Concat(paths.Values.SelectMany(r => r.GetProperty("present_values").EnumerateArray().Select(p => p.GetProperty("schedule_label").GetString()!))).ToList();
+                .Concat(paths.Values.SelectMany(r => r.GetProperty("present_values").EnumerateArray()
+                    .Select(p => p.GetProperty("schedule_label").GetString()!))).ToList();
             foreach (var label in labelTexts) candidates.AddRange(Numbers(label).Select(n => Math.Abs(n.Value)));
             var box = Regex.Match(html, "<section class=\"box\".*?</section>", RegexOptions.Singleline);
             if (!box.Success) problems.Add("no key findings box");
-            var items = Regex.Matches(box.Value, "<li>(.*?)</li>", RegexOptions.Singleline).Select(m => Plain(m.Groups[1].Value)).ToList();
+            var items = Regex.Matches(box.Value, "<li>(.*?)</li>", RegexOptions.Singleline)
+                .Select(m => Plain(m.Groups[1].Value))
+                .ToList();
             if (items.Count < 3) problems.Add($"{items.Count} key findings");
             foreach (var item in items)
                 foreach (var n in Numbers(item))
@@ -265,7 +333,13 @@ public class FrenchFormatsTests
         Assert.Contains("<em>Source :</em>", html);
         Assert.Contains("30 novembre 2026", html);
         Assert.Contains("pas des prévisions", html);
-        foreach (var english in new[] { "Contents", "Skip to the brief", "not forecasts", "<em>Source:</em>", "Table 1.", "November" })
+        foreach (var english in new[] {
+            "Contents",
+            "Skip to the brief",
+            "not forecasts",
+            "<em>Source:</em>",
+            "Table 1.",
+            "November" })
             Assert.DoesNotContain(english, html);
     }
 

@@ -10,7 +10,10 @@ namespace Briefwright.Brief.Tests.Formats;
 /// <summary>The spreadsheet annex read back with the Open XML SDK and compared with the results data.</summary>
 public class WorkbookTests
 {
-    private sealed record Book(Dictionary<string, List<List<Cell>>> Sheets, Dictionary<string, Worksheet> Worksheets, Stylesheet Styles);
+    private sealed record Book(
+        Dictionary<string, List<List<Cell>>> Sheets,
+        Dictionary<string, Worksheet> Worksheets,
+        Stylesheet Styles);
 
     private static Book Read(byte[] bytes)
     {
@@ -22,12 +25,15 @@ public class WorkbookTests
         {
             var ws = ((WorksheetPart)part.GetPartById(s.Id!)).Worksheet;
             worksheets[s.Name!] = (Worksheet)ws.CloneNode(true);
-            sheets[s.Name!] = ws.Descendants<Row>().Select(r => r.Elements<Cell>().Select(c => (Cell)c.CloneNode(true)).ToList()).ToList();
+            sheets[s.Name!] = ws.Descendants<Row>()
+                .Select(r => r.Elements<Cell>().Select(c => (Cell)c.CloneNode(true)).ToList())
+                .ToList();
         }
         return new Book(sheets, worksheets, (Stylesheet)part.WorkbookStylesPart!.Stylesheet.CloneNode(true));
     }
 
-    private static string Text(Cell c) => c.DataType?.Value == CellValues.InlineString ? c.InlineString!.InnerText : c.CellValue?.Text ?? "";
+    private static string Text(Cell c)
+        => c.DataType?.Value == CellValues.InlineString ? c.InlineString!.InnerText : c.CellValue?.Text ?? "";
 
     private static double Number(Cell c)
     {
@@ -35,13 +41,16 @@ public class WorkbookTests
         return double.Parse(c.CellValue!.Text, CultureInfo.InvariantCulture);
     }
 
-    private static Cell At(List<Cell> row, string column) => row.Single(c => c.CellReference!.Value!.TrimEnd("0123456789".ToCharArray()) == column);
+    private static Cell At(List<Cell> row, string column)
+        => row.Single(c => c.CellReference!.Value!.TrimEnd("0123456789".ToCharArray()) == column);
 
     private static string FormatCode(Book book, Cell c)
     {
         var xf = book.Styles.CellFormats!.Elements<CellFormat>().ElementAt((int)(c.StyleIndex?.Value ?? 0));
         uint id = xf.NumberFormatId!.Value;
-        return book.Styles.NumberingFormats?.Elements<NumberingFormat>().FirstOrDefault(f => f.NumberFormatId!.Value == id)?.FormatCode!.Value
+        return book.Styles.NumberingFormats?.Elements<NumberingFormat>()
+            .FirstOrDefault(f => f.NumberFormatId!.Value == id)?.FormatCode!
+            .Value
             ?? id switch { 0 => "General", 1 => "0", 10 => "0.00%", 49 => "@", _ => $"builtin {id}" };
     }
 
@@ -56,10 +65,20 @@ public class WorkbookTests
     public void Workbook_is_valid_and_has_a_sheet_per_table_after_the_about_sheet()
     {
         var (book, _, bytes) = National.Value;
-        Assert.Equal(new[] { "About", "Assumptions", "Options", "Reform paths", "Present values", "Sensitivity", "Monte Carlo", "Sobol" }, book.Sheets.Keys);
+        Assert.Equal(new[] {
+            "About",
+            "Assumptions",
+            "Options",
+            "Reform paths",
+            "Present values",
+            "Sensitivity",
+            "Monte Carlo",
+            "Sobol" }, book.Sheets.Keys);
         using var doc = SpreadsheetDocument.Open(new MemoryStream(bytes), false);
         var errors = new OpenXmlValidator(DocumentFormat.OpenXml.FileFormatVersions.Office2019).Validate(doc).ToList();
-        Assert.True(errors.Count == 0, string.Join("\n", errors.Take(20).Select(e => $"{e.Part?.Uri} {e.Path?.XPath}: {e.Description}")));
+        Assert.True(
+            errors.Count == 0,
+            string.Join("\n", errors.Take(20).Select(e => $"{e.Part?.Uri} {e.Path?.XPath}: {e.Description}")));
     }
 
     [Fact]
@@ -69,7 +88,9 @@ public class WorkbookTests
         var about = book.Sheets["About"].Skip(1).ToDictionary(r => Text(r[0]), r => Text(r[1]));
         Assert.Equal(json.GetProperty("scenario_id").GetString(), about["Scenario"]);
         Assert.Equal(json.GetProperty("input_hash").GetString(), about["Input hash (SHA-256)"]);
-        Assert.StartsWith(json.GetProperty("edition").GetInt32().ToString(CultureInfo.InvariantCulture) + " (", about["Edition"]);
+        Assert.StartsWith(
+            json.GetProperty("edition").GetInt32().ToString(CultureInfo.InvariantCulture) + " (",
+            about["Edition"]);
         Assert.Equal(json.GetProperty("date").GetString(), about["Date"]);
         Assert.Contains("not forecasts", about["Caution"]);
     }
@@ -86,16 +107,26 @@ public class WorkbookTests
             Assert.Equal("A2", pane.TopLeftCell!.Value);
             Assert.Empty(ws.Descendants<CellFormula>());
             foreach (var c in ws.Descendants<Cell>())
-                Assert.True(c.DataType is null || c.DataType.Value == CellValues.InlineString, $"{name}!{c.CellReference}: {c.DataType?.Value}");
+                Assert.True(
+                    c.DataType is null || c.DataType.Value == CellValues.InlineString,
+                    $"{name}!{c.CellReference}: {c.DataType?.Value}");
         }
     }
 
     [Fact]
     public void Text_that_looks_like_a_formula_stays_text()
     {
-        var table = new SheetTable("T", "a test sheet", [new("Label", ColumnKind.Text), new("Value (%)", ColumnKind.Percent)],
+        var table = new SheetTable(
+            "T",
+            "a test sheet",
+            [new("Label", ColumnKind.Text), new("Value (%)", ColumnKind.Percent)],
             [new object?[] { "=SUM(1,2)", 0.5 }, new object?[] { "-1+2", -0.25 }]);
-        var book = Read(WorkbookWriter.Write([table], new DateOnly(2026, 11, 30), "Invented org", "t", new Composer.Layout.Rgb(1, 2, 3)));
+        var book = Read(WorkbookWriter.Write(
+            [table],
+            new DateOnly(2026, 11, 30),
+            "Invented org",
+            "t",
+            new Composer.Layout.Rgb(1, 2, 3)));
         var rows = book.Sheets["T"];
         Assert.Equal("=SUM(1,2)", Text(rows[1][0]));
         Assert.Equal(CellValues.InlineString, rows[1][0].DataType!.Value);
@@ -139,7 +170,8 @@ public class WorkbookTests
         int reformYear = reform.GetProperty("reform_year").GetInt32();
         for (int k = 0; k < paths.Count; k++)
         {
-            var gains = paths[k].GetProperty("path").GetProperty("gain").EnumerateArray().Select(g => g.GetDouble()).ToList();
+            var gains = paths[k].GetProperty("path").GetProperty("gain").EnumerateArray().Select(g => g.GetDouble())
+                .ToList();
             Assert.Equal(gains.Count, rows.Count - 1);
             for (int t = 0; t < gains.Count; t++)
             {
@@ -151,7 +183,8 @@ public class WorkbookTests
         }
 
         var pvRows = book.Sheets["Present values"].Skip(1).ToList();
-        var pvs = paths.SelectMany(p => p.GetProperty("present_values").EnumerateArray().Select(v => (Id: p.GetProperty("option_id").GetString(), V: v))).ToList();
+        var pvs = paths.SelectMany(p => p.GetProperty("present_values").EnumerateArray()
+            .Select(v => (Id: p.GetProperty("option_id").GetString(), V: v))).ToList();
         Assert.Equal(pvs.Count, pvRows.Count);
         for (int i = 0; i < pvs.Count; i++)
         {
@@ -162,7 +195,8 @@ public class WorkbookTests
                 Assert.Equal(pvs[i].V.GetProperty("break_even_calendar_year").GetDouble(), Number(At(pvRows[i], "I")));
         }
 
-        var mc = json.GetProperty("analysis").GetProperty("monte_carlo").GetProperty("options").EnumerateArray().ToList();
+        var mc = json.GetProperty("analysis").GetProperty("monte_carlo").GetProperty("options").EnumerateArray()
+            .ToList();
         var mcRows = book.Sheets["Monte Carlo"].Skip(1).ToList();
         for (int k = 0; k < mc.Count; k++)
         {

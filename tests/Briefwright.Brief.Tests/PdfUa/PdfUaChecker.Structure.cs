@@ -67,7 +67,8 @@ public sealed partial class PdfUaChecker
             }
             else if (childKind == "/OBJR")
             {
-                if (Get(child, "/Obj") is { } obj && obj.ValueKind == JsonValueKind.String) annotationParents[obj.GetString()!] = type;
+                if (Get(child, "/Obj") is { } obj && obj.ValueKind == JsonValueKind.String)
+                    annotationParents[obj.GetString()!] = type;
             }
             else
             {
@@ -78,7 +79,8 @@ public sealed partial class PdfUaChecker
             }
         }
         if (type == "Table" && childTypes.Any(t => t is not ("TR" or "THead" or "TBody" or "TFoot" or "Caption")))
-            Fail("09-004", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a table holds rows, row groups and a caption");
+            Fail("09-004", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a table holds rows, row " +
+                "groups and a caption");
         if (type == "L" && childTypes.Any(t => t is not ("LI" or "Caption" or "L")))
             Fail("09-005", $"{where} holds {string.Join(", ", childTypes.Distinct())}: a list holds list items");
         if (type == "Table") CheckHeaderScopes(kid, where);
@@ -120,10 +122,12 @@ public sealed partial class PdfUaChecker
             string checkpoint = type == "Figure" ? "13-004" : "17-002";
             if (alt.Trim().Length == 0) Fail(checkpoint, $"{where} has no alternative text");
             else if (FileName().IsMatch(alt.Trim()))
-                Fail(checkpoint, $"{where}: the alternative text is a file name ('{alt}'); needs a description (human check beyond this)");
+                Fail(checkpoint, $"{where}: the alternative text is a file name ('{alt}'); needs a description " +
+                    "(human check beyond this)");
             CheckBoundingBox(element, where, page);
         }
-        if (type == "Link" && !Items(Get(element, "/K") ?? default).Any(k => Str(Get(Resolve(k), "/Type") ?? default) == "/OBJR"))
+        if (type == "Link"
+            && !Items(Get(element, "/K") ?? default).Any(k => Str(Get(Resolve(k), "/Type") ?? default) == "/OBJR"))
             Fail("28-011", $"{where} holds no link annotation (OBJR)");
     }
 
@@ -137,7 +141,9 @@ public sealed partial class PdfUaChecker
     /// </summary>
     private void CheckBoundingBox(JsonElement element, string where, string? page)
     {
-        var bbox = Get(element, "/A") is { } a ? Items(a).Select(Resolve).Select(x => Get(x, "/BBox")).FirstOrDefault(b => b is not null) : null;
+        var bbox = Get(element, "/A") is { } a
+            ? Items(a).Select(Resolve).Select(x => Get(x, "/BBox")).FirstOrDefault(b => b is not null)
+            : null;
         if (bbox is null)
         {
             Fail("ISO 32000-1 14.8.5.4.3", $"{where} has no BBox layout attribute");
@@ -147,7 +153,9 @@ public sealed partial class PdfUaChecker
         if (page is null || box.Length != 4) return;
         if (Get(Obj(page), "/MediaBox") is not { } mediaBox) return;
         var media = Items(mediaBox).Select(v => v.GetDouble()).ToArray();
-        if (box[0] < media[0] - 1 || box[1] < media[1] - 1 || box[2] > media[2] + 1 || box[3] > media[3] + 1 || box[2] <= box[0] || box[3] <= box[1])
+        if (box[0] < media[0] - 1 || box[1] < media[1] - 1 || box[2] > media[2] + 1 || box[3] > media[3] + 1
+            || box[2] <= box[0]
+            || box[3] <= box[1])
             Fail("ISO 32000-1 14.8.5.4.3", $"{where}: BBox [{string.Join(' ', box)}] does not lie on the page");
     }
 
@@ -170,7 +178,9 @@ public sealed partial class PdfUaChecker
         if (usesHeaders) return;
         int missing = cells.Count(c => TypeOf(c) == "TH" && Attribute(c, "/Scope") is not { } s
             || TypeOf(c) == "TH" && Str(Attribute(c, "/Scope")!.Value) is not ("/Row" or "/Column" or "/Both"));
-        if (missing > 0) Fail("15-003", $"{where}: {missing} header cell(s) (TH) without a Scope attribute, in a table without Headers and IDs");
+        if (missing > 0) Fail(
+            "15-003",
+            $"{where}: {missing} header cell(s) (TH) without a Scope attribute, in a table without Headers and IDs");
     }
 
     private JsonElement? Attribute(JsonElement element, string key)
@@ -184,7 +194,9 @@ public sealed partial class PdfUaChecker
         return null;
     }
 
-    /// <summary>14-002, 14-003, 14-007: numbered headings start at H1, do not skip levels going down, and are not mixed with H.</summary>
+    /// <summary>
+    /// 14-002, 14-003, 14-007: numbered headings start at H1, do not skip levels going down, and are not mixed with H.
+    /// </summary>
     private void CheckHeadings()
     {
         if (usesPlainH && headingLevels.Count > 0) Fail("14-007", "the document uses both H and numbered headings");

@@ -6,7 +6,9 @@ using System.Text.RegularExpressions;
 
 namespace Briefwright.Brief.Tests.PdfUa;
 
-/// <summary>One failed check: the Matterhorn Protocol checkpoint (or the standard's clause) and what was found.</summary>
+/// <summary>
+/// One failed check: the Matterhorn Protocol checkpoint (or the standard's clause) and what was found.
+/// </summary>
 public sealed record Finding(string Checkpoint, string Message)
 {
     public override string ToString() => $"{Checkpoint}: {Message}";
@@ -32,7 +34,8 @@ public sealed partial class PdfUaChecker
 
     // Per page (object reference): MCIDs in structure-tree order, with the element that holds each.
     private readonly Dictionary<string, List<(int Mcid, string Element)>> treeMcids = new();
-    private readonly Dictionary<string, string> annotationParents = new(); // annotation ref → structure type holding its OBJR
+    // annotation ref → structure type holding its OBJR
+    private readonly Dictionary<string, string> annotationParents = new();
     private readonly List<int> headingLevels = new();
     private bool usesPlainH;
 
@@ -53,7 +56,9 @@ public sealed partial class PdfUaChecker
         File.WriteAllBytes(path, pdf);
         try
         {
-            var psi = new ProcessStartInfo("qpdf", ["--json", "--json-stream-data=inline", "--decode-level=generalized", path])
+            var psi = new ProcessStartInfo(
+                "qpdf",
+                ["--json", "--json-stream-data=inline", "--decode-level=generalized", path])
             {
                 RedirectStandardOutput = true, RedirectStandardError = true,
             };
@@ -62,7 +67,8 @@ public sealed partial class PdfUaChecker
             string stderr = p.StandardError.ReadToEnd();
             string json = stdout.Result;
             p.WaitForExit();
-            if (p.ExitCode is not (0 or 3)) throw new InvalidOperationException($"qpdf --json failed ({p.ExitCode}): {stderr}");
+            if (p.ExitCode is not (0 or 3)) throw new InvalidOperationException(
+                $"qpdf --json failed ({p.ExitCode}): {stderr}");
             using var doc = JsonDocument.Parse(json);
             var checker = new PdfUaChecker(doc.RootElement.GetProperty("qpdf")[1]);
             checker.Run();
@@ -164,7 +170,8 @@ public sealed partial class PdfUaChecker
     private JsonElement Resolve(JsonElement e) =>
         e.ValueKind == JsonValueKind.String && Reference().IsMatch(e.GetString()!) ? Obj(e.GetString()!) : e;
 
-    private byte[]? Data(JsonElement reference) => reference.ValueKind == JsonValueKind.String ? Data(reference.GetString()!) : null;
+    private byte[]? Data(JsonElement reference)
+        => reference.ValueKind == JsonValueKind.String ? Data(reference.GetString()!) : null;
 
     private byte[]? Data(string reference)
     {
@@ -174,7 +181,8 @@ public sealed partial class PdfUaChecker
     }
 
     private static JsonElement? Get(JsonElement dict, string key) =>
-        dict.ValueKind == JsonValueKind.Object && dict.TryGetProperty(key, out var v) && v.ValueKind != JsonValueKind.Null ? v : null;
+        dict.ValueKind == JsonValueKind.Object && dict.TryGetProperty(key, out var v)
+            && v.ValueKind != JsonValueKind.Null ? v : null;
 
     private static IEnumerable<JsonElement> Items(JsonElement e) => e.ValueKind switch
     {
@@ -192,7 +200,9 @@ public sealed partial class PdfUaChecker
         if (s.StartsWith("b:", StringComparison.Ordinal))
         {
             var bytes = Convert.FromHexString(s[2..]);
-            return bytes.Length >= 2 && bytes[0] == 0xFE && bytes[1] == 0xFF ? Encoding.BigEndianUnicode.GetString(bytes, 2, bytes.Length - 2) : Encoding.Latin1.GetString(bytes);
+            return bytes.Length >= 2 && bytes[0] == 0xFE && bytes[1] == 0xFF
+                ? Encoding.BigEndianUnicode.GetString(bytes, 2, bytes.Length - 2)
+                : Encoding.Latin1.GetString(bytes);
         }
         return s;
     }

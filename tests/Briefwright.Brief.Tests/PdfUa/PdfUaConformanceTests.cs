@@ -14,7 +14,8 @@ namespace Briefwright.Brief.Tests.PdfUa;
 /// </summary>
 public class PdfUaConformanceTests
 {
-    public static TheoryData<string> DemoBriefs => new() { "auroria-national", "auroria-eastmark", "auroria-northport", "auroria-silverdale" };
+    public static TheoryData<string> DemoBriefs
+        => new() { "auroria-national", "auroria-eastmark", "auroria-northport", "auroria-silverdale" };
 
     private static string Report(IEnumerable<Finding> findings) => string.Join("\n", findings);
 
@@ -76,7 +77,10 @@ public class PdfUaConformanceTests
         string text = Encoding.Latin1.GetString(pdf);
         var contents = Regex.Match(text, @"/Contents\((?:[^()\\]|\\.)*\)");
         Assert.True(contents.Success);
-        byte[] noContents = ReplaceFirst(pdf, contents.Value, "/Contents()" + new string(' ', contents.Length - "/Contents()".Length));
+        byte[] noContents = ReplaceFirst(
+            pdf,
+            contents.Value,
+            "/Contents()" + new string(' ', contents.Length - "/Contents()".Length));
         Assert.Contains(PdfUaChecker.Check(noContents), f => f.Checkpoint == "28-012");
     }
 
@@ -95,7 +99,12 @@ public class PdfUaConformanceTests
         using var doc = new PdfSharp.Pdf.PdfDocument();
         var page = doc.AddPage();
         using (var g = PdfSharp.Drawing.XGraphics.FromPdfPage(page))
-            g.DrawString("Untagged", new PdfSharp.Drawing.XFont(BundledFonts.Family, 12), PdfSharp.Drawing.XBrushes.Black, 50, 50);
+            g.DrawString(
+                "Untagged",
+                new PdfSharp.Drawing.XFont(BundledFonts.Family, 12),
+                PdfSharp.Drawing.XBrushes.Black,
+                50,
+                50);
         using var stream = new MemoryStream();
         doc.Save(stream);
         var checkpoints = PdfUaChecker.Check(stream.ToArray()).Select(f => f.Checkpoint).ToList();
@@ -118,7 +127,8 @@ public class PdfUaConformanceTests
     public void Content_scan_accepts_tagged_content_artifacts_and_strings_that_look_like_operators()
     {
         var scan = PdfUaChecker.ScanContent(Encoding.ASCII.GetBytes(
-            "/Artifact BMC 0 0 5 5 re f EMC /P <</MCID 0>> BDC BT (EMC Tj \\) BDC) Tj ET EMC /Figure <</MCID 1>> BDC q /Fm0 Do Q EMC"));
+            "/Artifact BMC 0 0 5 5 re f EMC /P <</MCID 0>> BDC BT (EMC Tj \\) BDC) Tj ET EMC /Figure <</MCID 1>> BDC " +
+            "q /Fm0 Do Q EMC"));
         Assert.Empty(scan.Findings);
         Assert.Equal([0, 1], scan.Mcids);
     }
@@ -141,30 +151,62 @@ public class PdfUaConformanceTests
         var blocks = new List<Block>
         {
             new HeadingBlock(1, "Stress brief for the accessibility check (invented)"),
-            new ParagraphBlock([new TextRun("An invented document for the Republic of Auroria.", RunStyle.Italic)], ParagraphRole.Subtitle),
+            new ParagraphBlock(
+                [new TextRun("An invented document for the Republic of Auroria.", RunStyle.Italic)],
+                ParagraphRole.Subtitle),
             new BoxBlock("Key findings", [
-                new ParagraphBlock([new TextRun("Results are model illustrations, not forecasts; official statistics prevail.")]),
-                new ListBlock([[new TextRun("First finding with a "), new TextRun("method note", Link: "https://example.org/auroria/method")], [new TextRun("Second finding.")]], false),
+                new ParagraphBlock(
+                    [new TextRun("Results are model illustrations, not forecasts; official statistics prevail.")]),
+                new ListBlock([[new TextRun("First finding with a "), new TextRun(
+                    "method note",
+                    Link: "https://example.org/auroria/method")], [new TextRun("Second finding.")]], false),
             ]),
             new HeadingBlock(2, "Question"),
             new ParagraphBlock([
-                new TextRun("The question is set out in the "), new TextRun("terms of reference", RunStyle.Bold, "https://example.org/auroria/terms"),
+                new TextRun("The question is set out in the "), new TextRun(
+                    "terms of reference",
+                    RunStyle.Bold,
+                    "https://example.org/auroria/terms"),
                 new TextRun(" and answered below; see also https://example.org/auroria.", RunStyle.Regular),
             ]),
             new HeadingBlock(3, "Detail"),
-            new ListBlock(Enumerable.Range(1, 5).Select(i => (IReadOnlyList<TextRun>)[new TextRun($"Ordered point {i}.")]).ToList(), true),
+            new ListBlock(Enumerable.Range(1, 5)
+                .Select(i => (IReadOnlyList<TextRun>)[new TextRun($"Ordered point {i}.")])
+                .ToList(), true),
             new TableBlock(["Year", "Output per person", "Worker share", "Note"],
-                Enumerable.Range(2026, 70).Select(y => (IReadOnlyList<string>)[$"{y}", $"{100 + (y - 2026) * 0.7:F1}", $"{0.42 - (y - 2026) * 0.0005:F3}", y % 7 == 0 ? "census year (invented)" : ""]).ToList(),
-                [CellAlign.Left, CellAlign.Right, CellAlign.Right, CellAlign.Left], "An invented long table", "Invented for the test."),
-            new FigureBlock("stress", ChartPdf(), 1, 470, 290, "An invented chart with a shaded background", "Invented.",
+                Enumerable.Range(2026, 70)
+                    .Select(y => (IReadOnlyList<string>)[$"{y}", $"{100 + (y - 2026) * 0.7:F1}",
+                        $"{0.42 - (y - 2026) * 0.0005:F3}", y % 7 == 0 ? "census year (invented)" : ""])
+                    .ToList(),
+                [CellAlign.Left, CellAlign.Right, CellAlign.Right, CellAlign.Left],
+                "An invented long table",
+                "Invented for the test."),
+            new FigureBlock(
+                "stress",
+                ChartPdf(),
+                1,
+                470,
+                290,
+                "An invented chart with a shaded background",
+                "Invented.",
                 "Bar chart of three invented values rising from 2 to 6."),
-            new ParagraphBlock([new TextRun(string.Join(" ", Enumerable.Repeat("A long paragraph that runs over the page break to test continued structure elements.", 40)))]),
+            new ParagraphBlock([new TextRun(string.Join(" ", Enumerable.Repeat(
+                "A long paragraph that runs over the page break to test continued structure elements.",
+                40)))]),
             new PageBreakBlock(),
             new HeadingBlock(2, "Annex"),
             new ParagraphBlock([new TextRun("Last page.")], ParagraphRole.Note),
         };
-        var info = new DocumentInfo("Stress brief (invented)", "Stress", "Test author (invented)", "Accessibility check", "test",
-            "en-GB", new DateOnly(2026, 11, 30), "Edition 1", "Invented document for tests.")
+        var info = new DocumentInfo(
+            "Stress brief (invented)",
+            "Stress",
+            "Test author (invented)",
+            "Accessibility check",
+            "test",
+            "en-GB",
+            new DateOnly(2026, 11, 30),
+            "Edition 1",
+            "Invented document for tests.")
         {
             Logo = Logo(),
         };
@@ -178,7 +220,9 @@ public class PdfUaConformanceTests
         return (png, Read(16), Read(20)); // IHDR width and height
     }
 
-    /// <summary>A one-page vector chart drawn with Skia, as the chart library does: a background, bars and a label.</summary>
+    /// <summary>
+    /// A one-page vector chart drawn with Skia, as the chart library does: a background, bars and a label.
+    /// </summary>
     private static byte[] ChartPdf()
     {
         using var stream = new MemoryStream();
