@@ -105,6 +105,13 @@ public static class MathNotation
             return new Sym(c.ToString(), char.IsAsciiLetter(c));
         }
         i++;
+        return ParseCommand(s, ref i, line);
+    }
+
+    /// <summary>A command after its backslash: an escaped character or space, or a named command (fraction, hat,
+    /// large operator, text, space, Greek letter, symbol or function name).</summary>
+    private static Node ParseCommand(string s, ref int i, int line)
+    {
         if (i < s.Length && !char.IsAsciiLetter(s[i]))
         {
             char e = s[i++];
