@@ -6,7 +6,14 @@ using Briefwright.Scenario;
 namespace Briefwright.Brief;
 
 /// <summary>Everything the model computes for one scenario.</summary>
-public sealed record SolvedScenario(ScenarioDocument Scenario, BalancedGrowthResults BalancedGrowth, AnalysisResults Analysis);
+public sealed record SolvedScenario(
+    ScenarioDocument Scenario, BalancedGrowthResults BalancedGrowth, AnalysisResults Analysis)
+{
+    private OptionOutcomes? outcomes;
+
+    /// <summary>The results per option, with the headline option at hand.</summary>
+    public OptionOutcomes Outcomes => outcomes ??= OptionOutcomes.From(BalancedGrowth, Analysis);
+}
 
 /// <summary>The one place that runs the model for a scenario: balanced growth, then the reform path and uncertainty.</summary>
 public static class ScenarioSolver

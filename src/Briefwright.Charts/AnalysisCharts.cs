@@ -73,7 +73,7 @@ public static class AnalysisCharts
     }
 
     /// <summary>Tornado: the headline option's long-run change with each parameter at the low and high end of its range.</summary>
-    public static Plot Tornado(IReadOnlyList<TornadoRow> rows, int optionIndex, double central, string optionLabel)
+    public static Plot Tornado(IReadOnlyList<OptionSwing> rows, double central, string optionLabel)
     {
         // Not options: the two ends of each range are drawn in the neutral tones.
         var plot = new Plot();
@@ -82,9 +82,9 @@ public static class AnalysisCharts
         var ticks = new List<Tick>();
         for (int i = 0; i < rows.Count; i++)
         {
-            var r = rows[i];
+            var r = rows[i].Row;
             double pos = rows.Count - 1 - i;
-            double lo = r.AtLow.LongRunChangePct[optionIndex], hi = r.AtHigh.LongRunChangePct[optionIndex];
+            double lo = rows[i].AtLowPct, hi = rows[i].AtHighPct;
             bars.Add(new Bar { Position = pos, ValueBase = central, Value = lo, FillColor = Palette.NeutralLight, Size = 0.6, Orientation = Orientation.Horizontal });
             bars.Add(new Bar { Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Neutral, Size = 0.6, Orientation = Orientation.Horizontal });
             ticks.Add(new Tick(pos, ChartWords.Text("parameter." + r.Parameter, r.Label)));
@@ -150,7 +150,8 @@ public static class AnalysisCharts
     }
 
     /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
-    public static Plot Distribution(MonteCarloResults mc, int optionIndex, string optionLabel, OptionStyle? style = null)
+    public static Plot Distribution(
+        MonteCarloResults mc, OptionUncertainty option, string optionLabel, OptionStyle? style = null)
     {
         var colour = style?.Color ?? Palette.Options[0];
         var plot = new Plot();
@@ -168,7 +169,7 @@ public static class AnalysisCharts
         }).ToList();
         var histogram = plot.Add.Bars(bars);
         histogram.LegendText = ChartWords.Text("chart.legend.share_of_draws", "{0}: share of draws", optionLabel);
-        var p = mc.Options[optionIndex].LongRunChangePct;
+        var p = option.LongRunChangePct;
         foreach (var (x, name, pattern) in new[] { (p.P5, ChartWords.Text("table.p5", "5th percentile"), LinePattern.Dashed), (p.P50, ChartWords.Text("table.median", "Median"), LinePattern.Solid), (p.P95, ChartWords.Text("table.p95", "95th percentile"), LinePattern.Dashed) })
         {
             var v = plot.Add.VerticalLine(x);

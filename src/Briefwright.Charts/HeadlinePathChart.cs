@@ -14,19 +14,17 @@ public static class HeadlinePathChart
     /// <summary>Years shown: the first 80 after the reform, or the whole horizon if shorter.</summary>
     public const int Years = 80;
 
-    public static Plot Build(AppraisalResults reform, string headlineId, string label, MonteCarloResults? mc, OptionStyles? styles = null)
+    public static Plot Build(ReformPath path, string label, MonteCarloResults? mc, OptionStyle? style = null)
     {
-        styles ??= new OptionStyles(reform.Options.Select(o => o.OptionId));
-        var style = styles[headlineId];
+        style ??= new OptionStyles([path.OptionId])[path.OptionId];
         var plot = new Plot();
         ChartRenderer.Style(plot, ChartWords.Text("chart.axis.year", "Year"), ChartWords.Text("chart.axis.vs_no_reform", "Output per person vs no reform (%)"));
-        int n = Math.Min(Years, reform.HorizonYears) + 1;
-        double[] xs = Enumerable.Range(0, n).Select(t => (double)(reform.ReformYear + t)).ToArray();
+        int n = Math.Min(Years, path.Horizon) + 1;
+        double[] xs = Enumerable.Range(0, n).Select(t => (double)(path.ReformYear + t)).ToArray();
         if (mc is not null)
             AnalysisCharts.FanBand(plot, xs, mc.HeadlineFan, n, p => p.P5, p => p.P95, 0.16, ChartWords.Text("chart.legend.band_90", "90% of model runs with uncertain assumptions"));
         var zero = plot.Add.HorizontalLine(0, 1, Palette.Neutral);
         zero.LinePattern = LinePattern.Solid;
-        var path = reform.Options.First(o => o.OptionId == headlineId).Path;
         var line = plot.Add.ScatterLine(xs, path.Gain.Take(n).Select(g => 100 * g).ToArray());
         line.Color = style.Color;
         line.LinePattern = style.Pattern;

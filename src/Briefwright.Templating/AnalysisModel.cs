@@ -14,60 +14,13 @@ internal static class AnalysisModel
     public static void Add(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
     {
         string Label(string id) => s.Inputs.Options.First(o => o.Id == id).Label;
-        var reform = a.Reform;
-        model["headline"] = Headline(model, s, r, a);
-        ScriptObject OptionPath(OptionAppraisal o)
-        {
-            var headlinePv = o.PresentValues[0];
-            return Obj(("id", o.OptionId), ("label", Md.Escape(Label(o.OptionId))), ("name", Md.Escape(s.OptionName(o.OptionId))), ("schedule_name", Md.Escape(s.RuleName(headlinePv.ScheduleId))),
-                ("lengthens_schooling", s.Inputs.Options.First(x => x.Id == o.OptionId).SchoolingYears > s.Inputs.Baseline.SchoolingYears), ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
-                ("has_dip", o.Path.DipDepth is not null), ("first_positive_year", reform.ReformYear + o.Path.FirstPositiveYear),
-                ("long_run", o.Path.LongRunGain), ("balanced_growth", o.Path.BalancedGrowthGain), ("pv", headlinePv.ToHorizon), ("pv_total", headlinePv.Total),
-                ("break_even_year", reform.ReformYear + headlinePv.BreakEvenYear), ("schedule", Md.Escape(headlinePv.ScheduleLabel)));
-        }
-        var paths = reform.Options.Select(OptionPath).ToList();
-        var d = reform.Optimum;
-        model["reform"] = Obj(("year", reform.ReformYear), ("horizon", reform.HorizonYears), ("end_year", reform.ReformYear + reform.HorizonYears),
-            ("valuation_year", reform.ValuationYear), ("price_base", reform.PriceBase),
-            ("phase_in", reform.PhaseInCohorts), ("options", new ScriptArray(paths)), ("headline", paths.First(p => (string)p["id"]! == a.HeadlineOptionId)),
-            ("discounted_optimum", Obj(("years", d.SchoolingYears), ("pv", d.PresentValue), ("explanation", d.Explanation),
-                ("schedule", Md.Escape(s.Analysis.Headline.Label)), ("balanced_growth", d.BalancedGrowthOptimum), ("tail_included", d.TailIncluded),
-                ("by_horizon", new ScriptArray(d.ByHorizon.Select(x => Obj(("horizon", x.HorizonYears), ("years", x.SchoolingYears), ("pv", x.PresentValue))))),
-                ("tail_text", TailText(d, reform.HorizonYears)))));
+        var outcomes = OptionOutcomes.From(r, a);
+        model["headline"] = Headline(model, s, r, a, outcomes.Headline);
+        AddReform(model, s, a, outcomes.Headline);
         model["dynamics_available"] = true;
-
-        int k = reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
-        model["sensitivity_available"] = a.Tornado.Count > 0 || a.MonteCarlo is not null;
-        model["tornado"] = new ScriptArray(a.Tornado.Select(t => Obj(("parameter", t.Parameter), ("label", ParameterLabel(t.Parameter, t.Label)),
-            ("at_low", t.AtLow.LongRunChangePct[k]), ("at_high", t.AtHigh.LongRunChangePct[k]), ("swing", t.Swing),
-            ("optimum_low", t.AtLow.OptimumYears), ("optimum_high", t.AtHigh.OptimumYears))));
-        // Parameters whose whole range moves the headline change by less than 0.05 points: named, not assumed.
-        var still = a.Tornado.Where(t => Math.Abs(t.AtHigh.LongRunChangePct[k] - t.AtLow.LongRunChangePct[k]) < 0.05).Select(t => InSentence(ParameterLabel(t.Parameter, t.Label))).ToList();
-        model["tornado_still"] = still.Count == 0 ? null : Wording.List(still);
-        model["has_grid"] = a.Grids.Count > 0;
-        if (a.MonteCarlo is { } mc)
-        {
-            var o = mc.Options[k];
-            model["mc"] = Obj(("draws", mc.Draws), ("rejected", mc.Rejected), ("seed", mc.Seed.ToString()),
-                ("p5", o.LongRunChangePct.P5), ("p50", o.LongRunChangePct.P50), ("p95", o.LongRunChangePct.P95),
-                ("prob_gain", o.ProbabilityGain.Estimate), ("prob_gain_low", o.ProbabilityGain.Low), ("prob_gain_high", o.ProbabilityGain.High),
-                ("prob_gain_text", ProbabilityWords.Sentence(o.ProbabilityGain)),
-                ("prob_pv", o.ProbabilityPositivePv.Estimate), ("prob_pv_low", o.ProbabilityPositivePv.Low), ("prob_pv_high", o.ProbabilityPositivePv.High),
-                ("prob_pv_text", ProbabilityWords.Sentence(o.ProbabilityPositivePv)),
-                ("optimum_p5", mc.OptimumYears.P5), ("optimum_p50", mc.OptimumYears.P50), ("optimum_p95", mc.OptimumYears.P95));
-        }
-        else model["mc"] = null;
-        if (a.Sobol is { } sobol)
-        {
-            var idx = sobol.Indices[0];
-            int top = Enumerable.Range(0, idx.Inputs.Count).MaxBy(i => idx.Total[i]);
-            model["sobol"] = Obj(("top_parameter", ParameterLabel(idx.Inputs[top], Parameters.Find(idx.Inputs[top])!.Label)), ("top_total", idx.Total[top]),
-                ("top_total_low", idx.TotalLow[top]), ("top_total_high", idx.TotalHigh[top]), ("top_first", idx.FirstOrder[top]),
-                ("top_first_low", idx.FirstOrderLow[top]), ("top_first_high", idx.FirstOrderHigh[top]),
-                ("samples", idx.Samples), ("resamples", idx.Resamples), ("level", idx.Level),
-                ("top_share", T(idx.Total[top] > 0.5 ? "sobol.most" : "sobol.largest_share")));
-        }
-        else model["sobol"] = null;
+        AddSensitivity(model, a, outcomes.Headline);
+        model["mc"] = a.MonteCarlo is { } mc ? MonteCarloSummary(mc, outcomes.Headline.Uncertainty!) : null;
+        model["sobol"] = a.Sobol is { } sobol ? SobolSummary(sobol) : null;
 
         model.AddFunction("reform_table", new Func<string>(() => ReformTable(a, Label)));
         model.AddFunction("appraisal_table", new Func<string>(() => AppraisalTable(a, Label)));
@@ -75,10 +28,80 @@ internal static class AnalysisModel
         model.AddFunction("sobol_table", new Func<string>(() => SobolTable(a)));
     }
 
-    /// <summary>The headline option: its facts and the sentences page 1 is made of, each chosen from those facts.</summary>
-    private static ScriptObject Headline(ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a)
+    /// <summary>The reform over time: every option's path and present values, and the discounted optimum.</summary>
+    private static void AddReform(ScriptObject model, ScenarioDocument s, AnalysisResults a, OptionOutcome headline)
     {
-        var h = HeadlineFacts.From(r, a);
+        var reform = a.Reform;
+        ScriptObject OptionPath(OptionAppraisal o)
+        {
+            var headlinePv = o.PresentValues[0];
+            var option = s.Inputs.Options.First(x => x.Id == o.OptionId);
+            return Obj(("id", o.OptionId), ("label", Md.Escape(option.Label)),
+                ("name", Md.Escape(s.OptionName(o.OptionId))),
+                ("schedule_name", Md.Escape(s.RuleName(headlinePv.ScheduleId))),
+                ("lengthens_schooling", option.SchoolingYears > s.Inputs.Baseline.SchoolingYears),
+                ("dip_depth", o.Path.DipDepth), ("dip_year", reform.ReformYear + o.Path.DipYear),
+                ("has_dip", o.Path.DipDepth is not null), ("first_positive_year", reform.ReformYear + o.Path.FirstPositiveYear),
+                ("long_run", o.Path.LongRunGain), ("balanced_growth", o.Path.BalancedGrowthGain),
+                ("pv", headlinePv.ToHorizon), ("pv_total", headlinePv.Total),
+                ("break_even_year", reform.ReformYear + headlinePv.BreakEvenYear), ("schedule", Md.Escape(headlinePv.ScheduleLabel)));
+        }
+        var d = reform.Optimum;
+        model["reform"] = Obj(("year", reform.ReformYear), ("horizon", reform.HorizonYears), ("end_year", reform.ReformYear + reform.HorizonYears),
+            ("valuation_year", reform.ValuationYear), ("price_base", ResultWords.Brief.PriceBase(reform.ValuationYear)),
+            ("phase_in", reform.PhaseInCohorts), ("options", new ScriptArray(reform.Options.Select(OptionPath))),
+            ("headline", OptionPath(headline.Appraisal!)),
+            ("discounted_optimum", Obj(("years", d.SchoolingYears), ("pv", d.PresentValue),
+                ("explanation", ResultWords.Brief.Explanation(d)),
+                ("schedule", Md.Escape(s.Analysis.Headline.Label)), ("balanced_growth", d.BalancedGrowthOptimum), ("tail_included", d.TailIncluded),
+                ("by_horizon", new ScriptArray(d.ByHorizon.Select(x => Obj(("horizon", x.HorizonYears), ("years", x.SchoolingYears), ("pv", x.PresentValue))))),
+                ("tail_text", TailText(d, reform.HorizonYears)))));
+    }
+
+    /// <summary>The tornado of the headline option's long-run change.</summary>
+    private static void AddSensitivity(ScriptObject model, AnalysisResults a, OptionOutcome headline)
+    {
+        model["sensitivity_available"] = a.Tornado.Count > 0 || a.MonteCarlo is not null;
+        model["tornado"] = new ScriptArray(headline.Swings.Select(w => Obj(("parameter", w.Row.Parameter),
+            ("label", ParameterLabel(w.Row.Parameter, w.Row.Label)), ("at_low", w.AtLowPct), ("at_high", w.AtHighPct),
+            ("swing", w.Row.Swing),
+            ("optimum_low", w.Row.AtLow.OptimumYears), ("optimum_high", w.Row.AtHigh.OptimumYears))));
+        // Parameters whose whole range moves the headline change by less than 0.05 points: named, not assumed.
+        var still = headline.Swings.Where(w => Math.Abs(w.AtHighPct - w.AtLowPct) < 0.05)
+            .Select(w => InSentence(ParameterLabel(w.Row.Parameter, w.Row.Label))).ToList();
+        model["tornado_still"] = still.Count == 0 ? null : Wording.List(still);
+        model["has_grid"] = a.Grids.Count > 0;
+    }
+
+    private static ScriptObject MonteCarloSummary(MonteCarloResults mc, OptionUncertainty o) =>
+        Obj(("draws", mc.Draws), ("rejected", mc.Rejected), ("seed", mc.Seed.ToString()),
+            ("p5", o.LongRunChangePct.P5), ("p50", o.LongRunChangePct.P50), ("p95", o.LongRunChangePct.P95),
+            ("prob_gain", o.ProbabilityGain.Estimate), ("prob_gain_low", o.ProbabilityGain.Low),
+            ("prob_gain_high", o.ProbabilityGain.High),
+            ("prob_gain_text", ProbabilityWords.Sentence(o.ProbabilityGain)),
+            ("prob_pv", o.ProbabilityPositivePv.Estimate), ("prob_pv_low", o.ProbabilityPositivePv.Low),
+            ("prob_pv_high", o.ProbabilityPositivePv.High),
+            ("prob_pv_text", ProbabilityWords.Sentence(o.ProbabilityPositivePv)),
+            ("optimum_p5", mc.OptimumYears.P5), ("optimum_p50", mc.OptimumYears.P50),
+            ("optimum_p95", mc.OptimumYears.P95));
+
+    private static ScriptObject SobolSummary(GlobalSensitivity sobol)
+    {
+        var idx = sobol.Indices[0];
+        int top = Enumerable.Range(0, idx.Inputs.Count).MaxBy(i => idx.Total[i]);
+        return Obj(("top_parameter", ParameterLabel(idx.Inputs[top], Parameters.Find(idx.Inputs[top])!.Label)),
+            ("top_total", idx.Total[top]), ("top_total_low", idx.TotalLow[top]), ("top_total_high", idx.TotalHigh[top]),
+            ("top_first", idx.FirstOrder[top]),
+            ("top_first_low", idx.FirstOrderLow[top]), ("top_first_high", idx.FirstOrderHigh[top]),
+            ("samples", idx.Samples), ("resamples", idx.Resamples), ("level", idx.Level),
+            ("top_share", T(idx.Total[top] > 0.5 ? "sobol.most" : "sobol.largest_share")));
+    }
+
+    /// <summary>The headline option: its facts and the sentences page 1 is made of, each chosen from those facts.</summary>
+    private static ScriptObject Headline(
+        ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a, OptionOutcome headline)
+    {
+        var h = HeadlineFacts.From(headline, a.Reform);
         var option = ((ScriptArray)model["options"]!).Cast<ScriptObject>().First(o => (string)o["id"]! == h.OptionId);
         var baseline = (ScriptObject)model["baseline"]!;
         string rule = s.RuleName(h.ScheduleId);

@@ -37,8 +37,9 @@ public static class Caveats
             list.Add(T("caveat.far_beyond", Years(opt.SchoolingYears)));
         if (inputs.Demography.GrowthRate < 0)
             list.Add(T("caveat.shrinking", Pct(inputs.Demography.GrowthRate)));
-        if (opt.ClosedFormNotApplicable is not null && Model.Core.OptimumSearch.ClosedFormObstacleCode(inputs.Demography, inputs.HumanCapital) is { } why)
-            list.Add(T(opt.Diagnostics.Converged ? "caveat.numerical" : "caveat.numerical_not_converged", T("reason." + why), opt.Diagnostics.GridPoints, Small(opt.Diagnostics.Tolerance)));
+        if (opt.ClosedFormNotApplicable is { } why)
+            list.Add(T(opt.Diagnostics.Converged ? "caveat.numerical" : "caveat.numerical_not_converged",
+                ResultWords.Brief.ClosedFormReason(why), opt.Diagnostics.GridPoints, Small(opt.Diagnostics.Tolerance)));
         if (opt.LocalMaxima.Count > 1)
             list.Add(T("caveat.maxima", opt.LocalMaxima.Count));
         foreach (var (label, get, low, high, percent) in UsualRanges)

@@ -29,7 +29,10 @@ public static class Equations
         sb.Append(inputs.Demography.Survival is RectangularSurvival ? T("eq.rectangular") : T("eq.quadrature")).Append(' ');
         sb.Append(r.Optimum.Method == OptimumMethod.ClosedForm
             ? T("eq.closed_form")
-            : T(r.Optimum.Diagnostics.Converged ? "eq.search" : "eq.search_not_converged", r.Optimum.Diagnostics.GridPoints, RefinementName(r.Optimum.Diagnostics.Refinement), Small(r.Optimum.Diagnostics.Tolerance))).Append(' ');
+            : T(r.Optimum.Diagnostics.Converged ? "eq.search" : "eq.search_not_converged",
+                r.Optimum.Diagnostics.GridPoints,
+                ResultWords.Brief.Refinement(r.Optimum.Diagnostics.Refinement), Small(r.Optimum.Diagnostics.Tolerance)))
+          .Append(' ');
         sb.Append(T("eq.band", Years(r.Optimum.Within1Pct[0]), Years(r.Optimum.Within1Pct[1]))).Append('\n');
         return sb.ToString();
     }
@@ -45,8 +48,4 @@ public static class Equations
         };
         return hc.Experience is { } e ? T("eq.experience", schooling, Sig(e.Linear, 3), Sig(e.Quadratic, 3)) : schooling;
     }
-
-    /// <summary>How the search refined each maximum, in the brief's language (the model names it in English).</summary>
-    private static string RefinementName(string refinement) =>
-        BriefLanguage.Current.Texts.TryGetValue("eq.refinement." + refinement.Replace(' ', '_'), out var t) ? t.Text : refinement;
 }

@@ -30,7 +30,6 @@ public static class KeyAssumptions
         string headline = s.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         if (a.Tornado.Count > 0)
         {
-            int k = a.Tornado[0].AtLow.OptionIds.ToList().IndexOf(a.HeadlineOptionId);
             var rows = a.Tornado.Take(MaxRows).Select(t =>
             {
                 var def = Parameters.Find(t.Parameter)!;
@@ -39,7 +38,9 @@ public static class KeyAssumptions
                 string range = t.Parameter == "return_scale" ? T("key.range", "×" + Sig(t.Low, 3), "×" + Sig(t.High, 3)) : def.IsRate ? T("key.range", Pct(t.Low), Pct(t.High)) : T("key.range", Sig(t.Low, 3), Sig(t.High, 3));
                 return (IReadOnlyList<string>)new[]
                 {
-                    AnalysisModel.ParameterLabel(t.Parameter, t.Label), value, range, T("key.range", Change(t.AtLow.LongRunChangePct[k]), Change(t.AtHigh.LongRunChangePct[k])),
+                    AnalysisModel.ParameterLabel(t.Parameter, t.Label), value, range,
+                    T("key.range", Change(t.AtLow.LongRunChangeOf(a.HeadlineOptionId)),
+                        Change(t.AtHigh.LongRunChangeOf(a.HeadlineOptionId))),
                 };
             });
             return Md.Table(T("key.caption_ranked", headline), T("key.source", s.Brief.Id),

@@ -47,7 +47,10 @@ internal static class OptimumModel
         return Obj(
             ("schooling_years", opt.SchoolingYears), ("low", opt.Within1Pct[0]), ("high", opt.Within1Pct[1]),
             ("method", opt.Method == OptimumMethod.ClosedForm ? "closed form" : "numerical search"), ("at_boundary", opt.AtBoundary),
-            ("output_per_person", opt.OutputPerPerson), ("closed_form_reason", opt.ClosedFormNotApplicable), ("local_maxima", opt.LocalMaxima.Count),
+            ("output_per_person", opt.OutputPerPerson),
+            ("closed_form_reason",
+                opt.ClosedFormNotApplicable is { } why ? ResultWords.Brief.ClosedFormReason(why) : null),
+            ("local_maxima", opt.LocalMaxima.Count),
             ("gain_vs_baseline_pct", 100 * (opt.OutputPerPerson / baseline.OutputPerPerson - 1)),
             ("shape", shape), ("is_corner", opt.AtBoundary), ("is_flat", flat), ("summary", summary), ("band_text", band), ("maxima_text", maxima),
             ("discounted_text", discounted), ("discounted_years", d.SchoolingYears), ("discounted_rule", rule));

@@ -42,16 +42,9 @@ public class ArchitectureTests
     [Fact]
     public void Model_depends_on_no_drawing_pdf_yaml_or_json_library()
     {
-        var allowed = new Dictionary<string, string>
-        {
-            // JSON names on result records: the results writer should own them (issue 16, point 4 moves them out).
-            ["Briefwright.Model.Results.OptimumResult"] = "[JsonPropertyName(\"within_1pct\")] on a result field",
-            ["Briefwright.Model.Uncertainty.MonteCarloResults"] = "[JsonIgnore] on the raw headline sample",
-            ["Briefwright.Model.Dynamics.ReformPath"] = "[JsonPropertyName] on the dip and first-positive years",
-            ["Briefwright.Model.Dynamics.PresentValue"] = "[JsonPropertyName] on the break-even year, [JsonIgnore]",
-        };
+        // The results data's names live with its writer (Brief/Annex/ResultsJson.cs, ResultsNaming).
         Assert.Empty(Offenders("Briefwright.Model",
-            ["SkiaSharp", "ScottPlot", "PdfSharp", "YamlDotNet", "System.Text.Json"], allowed));
+            ["SkiaSharp", "ScottPlot", "PdfSharp", "YamlDotNet", "System.Text.Json"], allowed: None));
     }
 
     [Fact]

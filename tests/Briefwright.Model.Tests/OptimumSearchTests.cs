@@ -46,7 +46,7 @@ public class OptimumSearchTests
         var result = OptimumSearch.Find(Fixtures.Classic(60, 0.03), Fixtures.Constant(0.02), 1.0);
         Assert.Equal(0.0, result.SchoolingYears);
         Assert.True(result.AtBoundary);
-        Assert.Equal("the return to schooling does not exceed population growth", result.ClosedFormNotApplicable);
+        Assert.Equal(ClosedFormObstacle.ReturnBelowGrowth, result.ClosedFormNotApplicable);
     }
 
     [Fact]

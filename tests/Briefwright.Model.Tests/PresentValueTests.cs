@@ -56,7 +56,7 @@ public class PresentValueTests
     {
         var pv = PresentValue.Compute(Constant(0.05, 100), DiscountSchedule.GreenBook, 0.015);
         Assert.Null(pv.Total);
-        Assert.Contains("no finite value", pv.TailNote);
+        Assert.Equal(new TailBasis(TailTreatment.NotFinite, 0.01, 0.015, 0.05), pv.TailBasis with { HeldGain = 0.05 });
     }
 
     [Fact]
@@ -268,6 +268,7 @@ public class DiscountedOptimumTests
         Assert.True(opt.ByHorizon[0].SchoolingYears <= opt.ByHorizon[1].SchoolingYears + 0.01
             && opt.ByHorizon[1].SchoolingYears <= opt.ByHorizon[2].SchoolingYears + 0.01,
             string.Join(", ", opt.ByHorizon.Select(x => $"{x.HorizonYears}: {x.SchoolingYears}")));
-        Assert.Contains("cut at 80 years", opt.Explanation);
+        Assert.Equal(80, opt.HorizonYears);
+        Assert.Equal(DiscountSchedule.GreenBook.Label, opt.ScheduleLabel);
     }
 }

@@ -13,10 +13,12 @@ public sealed class DistributionFigure : IChartDefinition
         var a = c.Solved.Analysis;
         if (a.MonteCarlo is not { } mc) yield break;
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
-        int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
-        yield return new ChartSpec("distribution", AnalysisCharts.Distribution(mc, k, headline, c.Styles[a.HeadlineOptionId]),
+        var h = c.Solved.Outcomes.Headline.Uncertainty!;
+        yield return new ChartSpec("distribution",
+            AnalysisCharts.Distribution(mc, h, headline, c.Styles[a.HeadlineOptionId]),
             T("chart.distribution.caption", headline, TemplateFunctions.Big(mc.Draws)),
-            T("chart.distribution.alt", TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P5), TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P95), TemplateFunctions.Change(mc.Options[k].LongRunChangePct.P50)),
+            T("chart.distribution.alt", TemplateFunctions.Change(h.LongRunChangePct.P5),
+                TemplateFunctions.Change(h.LongRunChangePct.P95), TemplateFunctions.Change(h.LongRunChangePct.P50)),
             c.Source);
     }
 }

@@ -13,10 +13,12 @@ public sealed class HeadlinePathFigure : IChartDefinition
     {
         var a = c.Solved.Analysis;
         var scenario = c.Solved.Scenario;
-        var facts = HeadlineFacts.From(c.Solved.BalancedGrowth, a);
+        var headline = c.Solved.Outcomes.Headline;
+        var facts = HeadlineFacts.From(headline, a.Reform);
         string label = scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
         int years = Math.Min(HeadlinePathChart.Years, a.Reform.HorizonYears);
-        yield return new ChartSpec("headline-path", HeadlinePathChart.Build(a.Reform, a.HeadlineOptionId, label, a.MonteCarlo, c.Styles),
+        yield return new ChartSpec("headline-path",
+            HeadlinePathChart.Build(headline.Path, label, a.MonteCarlo, c.Styles[headline.Id]),
             T(a.MonteCarlo is null ? "chart.headline.caption" : "chart.headline.caption_band", label, a.Reform.ReformYear, a.Reform.ReformYear + years),
             T("chart.headline.alt", Wording.Arrival(facts, a.Reform.ReformYear)) + (a.MonteCarlo is null ? "" : T("chart.headline.alt_band")),
             c.Source);

@@ -14,10 +14,14 @@ public sealed class ReformPathFigure : IChartDefinition
         var solved = c.Solved;
         var a = solved.Analysis;
         var labels = solved.Scenario.Inputs.Options.ToDictionary(o => o.Id, o => o.Label);
-        var path = a.Reform.Options.First(o => o.OptionId == a.HeadlineOptionId).Path;
+        var headline = solved.Outcomes.Headline;
+        var path = headline.Path;
         yield return new ChartSpec("reform-path", AnalysisCharts.ReformPath(a.Reform, a.HeadlineOptionId, labels, a.MonteCarlo, styles: c.Styles),
             T("chart.reform.caption", a.Reform.ReformYear, a.Reform.ReformYear + 80),
-            T("chart.reform.alt", solved.Scenario.OptionName(a.HeadlineOptionId), Wording.Arrival(HeadlineFacts.From(solved.BalancedGrowth, a), a.Reform.ReformYear), TemplateFunctions.Change(100 * path.BalancedGrowthGain)) + (a.MonteCarlo is null ? "" : T("chart.reform.alt_band")),
+            T("chart.reform.alt", solved.Scenario.OptionName(a.HeadlineOptionId),
+                Wording.Arrival(HeadlineFacts.From(headline, a.Reform), a.Reform.ReformYear),
+                TemplateFunctions.Change(100 * path.BalancedGrowthGain))
+                + (a.MonteCarlo is null ? "" : T("chart.reform.alt_band")),
             c.Source);
     }
 }

@@ -13,11 +13,13 @@ public sealed class TornadoFigure : IChartDefinition
         var a = c.Solved.Analysis;
         if (a.Tornado.Count == 0) yield break;
         string headline = c.Solved.Scenario.Inputs.Options.First(o => o.Id == a.HeadlineOptionId).Label;
-        int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
-        double central = c.Solved.BalancedGrowth.Options.First(o => o.Id == a.HeadlineOptionId).ChangeVsBaselinePct;
-        yield return new ChartSpec("tornado", AnalysisCharts.Tornado(a.Tornado, k, central, headline),
+        var h = c.Solved.Outcomes.Headline;
+        double central = h.BalancedGrowth.ChangeVsBaselinePct;
+        yield return new ChartSpec("tornado", AnalysisCharts.Tornado(h.Swings, central, headline),
             T("chart.tornado.caption", headline),
-            T("chart.tornado.alt", ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label), TemplateFunctions.Change(a.Tornado[0].AtLow.LongRunChangePct[k]), TemplateFunctions.Change(a.Tornado[0].AtHigh.LongRunChangePct[k]), TemplateFunctions.Change(central)),
+            T("chart.tornado.alt", ParameterLabel(a.Tornado[0].Parameter, a.Tornado[0].Label),
+                TemplateFunctions.Change(h.Swings[0].AtLowPct), TemplateFunctions.Change(h.Swings[0].AtHighPct),
+                TemplateFunctions.Change(central)),
             c.Source);
     }
 }

@@ -36,9 +36,13 @@ public static class AnalysisSummary
         if (a.Tornado.Count > 0)
         {
             sb.AppendLine($"Sensitivity of {a.HeadlineOptionId}'s long-run change (largest swing first):");
-            int k = a.Reform.Options.Select(o => o.OptionId).ToList().IndexOf(a.HeadlineOptionId);
             foreach (var t in a.Tornado)
-                sb.AppendLine($"  {t.Parameter,-20} {N(t.AtLow.LongRunChangePct[k], "0.00")}% .. {N(t.AtHigh.LongRunChangePct[k], "0.00")}%   E* {N(t.AtLow.OptimumYears, "0.0")} .. {N(t.AtHigh.OptimumYears, "0.0")}");
+            {
+                string low = N(t.AtLow.LongRunChangeOf(a.HeadlineOptionId), "0.00");
+                string high = N(t.AtHigh.LongRunChangeOf(a.HeadlineOptionId), "0.00");
+                sb.AppendLine($"  {t.Parameter,-20} {low}% .. {high}%   E* {N(t.AtLow.OptimumYears, "0.0")} .. "
+                    + $"{N(t.AtHigh.OptimumYears, "0.0")}");
+            }
         }
         if (a.MonteCarlo is { } mc)
         {

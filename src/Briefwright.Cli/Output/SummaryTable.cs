@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Text;
 using Briefwright.Model.Results;
 using Briefwright.Scenario;
+using Briefwright.Templating;
 
 namespace Briefwright.Cli.Output;
 
@@ -33,10 +34,14 @@ public static class SummaryTable
         sb.AppendLine();
         sb.AppendLine($"Output-maximising schooling E*: {N(opt.SchoolingYears, "0.00")} years ({(opt.Method == OptimumMethod.ClosedForm ? "closed form" : "numerical search")}{(opt.AtBoundary ? ", at the boundary of the feasible range" : "")})");
         sb.AppendLine($"  within 1% of the maximum: {N(opt.Within1Pct[0], "0.0")} to {N(opt.Within1Pct[1], "0.0")} years; output per person at E*: {N(opt.OutputPerPerson, "0.0000")}");
-        if (opt.ClosedFormNotApplicable is { } why) sb.AppendLine($"  closed form not used: {why}");
+        if (opt.ClosedFormNotApplicable is { } why)
+            sb.AppendLine($"  closed form not used: {ResultWords.Data.ClosedFormReason(why)}");
         if (opt.LocalMaxima.Count > 1)
             sb.AppendLine("  local maxima: " + string.Join(", ", opt.LocalMaxima.Select(m => N(m.SchoolingYears, "0.00") + " y")));
-        sb.AppendLine($"  solver: {opt.Diagnostics.GridPoints} grid points, {opt.Diagnostics.RefinementIterations} refinement steps ({opt.Diagnostics.Refinement}), {(opt.Diagnostics.Converged ? "converged" : "DID NOT CONVERGE")}");
+        string refinement = ResultWords.Data.Refinement(opt.Diagnostics.Refinement);
+        sb.AppendLine($"  solver: {opt.Diagnostics.GridPoints} grid points, "
+            + $"{opt.Diagnostics.RefinementIterations} refinement steps ({refinement}), "
+            + (opt.Diagnostics.Converged ? "converged" : "DID NOT CONVERGE"));
         return sb.ToString();
     }
 }

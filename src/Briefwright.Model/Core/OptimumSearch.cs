@@ -22,7 +22,7 @@ public static class OptimumSearch
         var maxima = new List<LocalMaximum>();
         int iterations = 0;
         bool converged = true;
-        string refinement = "derivative bisection";
+        var refinement = RefinementMethod.DerivativeBisection;
         if (grid[0] >= grid[1]) maxima.Add(new LocalMaximum(0.0, grid[0], AtBoundary: true));
         for (int i = 1; i < gridPoints; i++)
         {
@@ -39,7 +39,7 @@ public static class OptimumSearch
         double bestE = best.SchoolingYears;
         bool atBoundary = best.AtBoundary;
         var method = OptimumMethod.Numerical;
-        string? whyNot = ClosedFormObstacle(demography, humanCapital);
+        var whyNot = WhyNotClosedForm(demography, humanCapital);
         if (whyNot is null)
         {
             bestE = ClosedForm(demography, ((ConstantReturn)humanCapital.Returns).Rate, eMax);
@@ -91,26 +91,14 @@ public static class OptimumSearch
         return 0.5 * (lo + hi);
     }
 
-    /// <summary>Why the closed form E* = R − a₀ + ln(1 − n/r)/n does not apply, or null when it does.</summary>
-    public static string? ClosedFormObstacle(Demography demography, HumanCapital humanCapital) => ClosedFormObstacleCode(demography, humanCapital) switch
+    /// <summary>Why the closed form E* = R − a₀ + ln(1 − n/r)/n does not apply, or null when it does (the brief and
+    /// the results writer word it).</summary>
+    public static ClosedFormObstacle? WhyNotClosedForm(Demography demography, HumanCapital humanCapital)
     {
-        "return_not_constant" => "the return to schooling is not constant",
-        "survival_not_rectangular" => "survival is not rectangular",
-        "experience_profile" => "an experience profile is used",
-        "return_below_growth" => "the return to schooling does not exceed population growth",
-        _ => null,
-    };
-
-    /// <summary>
-    /// Why the closed form does not apply, as a code (return_not_constant, survival_not_rectangular,
-    /// experience_profile, return_below_growth), or null: the brief words it in its own language.
-    /// </summary>
-    public static string? ClosedFormObstacleCode(Demography demography, HumanCapital humanCapital)
-    {
-        if (humanCapital.Returns is not ConstantReturn c) return "return_not_constant";
-        if (demography.Survival is not RectangularSurvival) return "survival_not_rectangular";
-        if (humanCapital.Experience is not null) return "experience_profile";
-        if (!(c.Rate > demography.GrowthRate)) return "return_below_growth";
+        if (humanCapital.Returns is not ConstantReturn c) return ClosedFormObstacle.ReturnNotConstant;
+        if (demography.Survival is not RectangularSurvival) return ClosedFormObstacle.SurvivalNotRectangular;
+        if (humanCapital.Experience is not null) return ClosedFormObstacle.ExperienceProfile;
+        if (!(c.Rate > demography.GrowthRate)) return ClosedFormObstacle.ReturnBelowGrowth;
         return null;
     }
 
@@ -123,7 +111,8 @@ public static class OptimumSearch
         return Math.Clamp(end - demography.EntryAge - working, 0.0, maxSchooling);
     }
 
-    private static (double E, int Iterations, bool Converged, string How) Refine(LifeCycle cycle, double lo, double hi)
+    private static (double E, int Iterations, bool Converged, RefinementMethod How) Refine(
+        LifeCycle cycle, double lo, double hi)
     {
         if (cycle.ObjectiveLogSlope(lo) > 0 && cycle.ObjectiveLogSlope(hi) < 0)
         {
@@ -134,15 +123,16 @@ public static class OptimumSearch
                 if (cycle.ObjectiveLogSlope(mid) > 0) lo = mid; else hi = mid;
                 it++;
             }
-            return (0.5 * (lo + hi), it, hi - lo <= Tolerance, "derivative bisection");
+            return (0.5 * (lo + hi), it, hi - lo <= Tolerance, RefinementMethod.DerivativeBisection);
         }
         return GoldenSection(cycle, lo, hi);
     }
 
-    private static (double E, int Iterations, bool Converged, string How) GoldenSection(LifeCycle cycle, double lo, double hi)
+    private static (double E, int Iterations, bool Converged, RefinementMethod How) GoldenSection(
+        LifeCycle cycle, double lo, double hi)
     {
         var (a, b, it) = Numerics.GoldenSection.Maximise(cycle.Objective, lo, hi, 1e-8);
-        return (0.5 * (a + b), it, b - a <= 1e-8, "golden section");
+        return (0.5 * (a + b), it, b - a <= 1e-8, RefinementMethod.GoldenSection);
     }
 
     /// <summary>[low, high]: the connected range around E* where h·ω stays at or above the threshold.</summary>

@@ -4,7 +4,14 @@ using Briefwright.Model.Numerics;
 namespace Briefwright.Model.Dynamics;
 
 /// <summary>One option's path over time and its present values under every discount schedule.</summary>
-public sealed record OptionAppraisal(string OptionId, ReformPath Path, IReadOnlyList<PresentValue> PresentValues);
+public sealed record OptionAppraisal(string OptionId, ReformPath Path, IReadOnlyList<PresentValue> PresentValues)
+{
+    public bool Equals(OptionAppraisal? other) =>
+        other is not null && OptionId == other.OptionId && Path.Equals(other.Path)
+        && Same.Items(PresentValues, other.PresentValues);
+
+    public override int GetHashCode() => HashCode.Combine(OptionId, Path, Same.Hash(PresentValues));
+}
 
 /// <summary>The discounted optimum when value is counted only to <see cref="HorizonYears"/> after the reform (no tail).</summary>
 public sealed record HorizonOptimum(int HorizonYears, double SchoolingYears, double PresentValue);
@@ -14,8 +21,12 @@ public sealed record HorizonOptimum(int HorizonYears, double SchoolingYears, dou
 /// balanced-growth E*. The value maximised includes the tail beyond the horizon when it is finite
 /// (<see cref="TailIncluded"/>); otherwise it is cut at the horizon, and <see cref="ByHorizon"/> shows how the
 /// optimum moves when the cut moves (half and twice the horizon; always reported). Discounting weighs the early dip and
-/// the decades before the gain arrives, so the discounted optimum is far shorter than E*.
+/// the decades before the gain arrives, so the discounted optimum is far shorter than E*. The reasons are worded by
+/// the brief (Templating) and the results writer from <see cref="LongerSchoolingPays"/>, <see cref="TailIncluded"/>,
+/// <see cref="ScheduleLabel"/>, <see cref="HorizonYears"/> and <see cref="ByHorizon"/>.
 /// </summary>
+/// <param name="LongerSchoolingPays">False when no schooling longer than the baseline's has a positive present
+/// value.</param>
 public sealed record DiscountedOptimum(
     string ScheduleId,
     double SchoolingYears,
@@ -23,18 +34,40 @@ public sealed record DiscountedOptimum(
     bool TailIncluded,
     double BalancedGrowthOptimum,
     IReadOnlyList<HorizonOptimum> ByHorizon,
-    string Explanation);
+    string ScheduleLabel,
+    int HorizonYears,
+    bool LongerSchoolingPays)
+{
+    public bool Equals(DiscountedOptimum? other) =>
+        other is not null && ScheduleId == other.ScheduleId && SchoolingYears.Equals(other.SchoolingYears)
+        && PresentValue.Equals(other.PresentValue) && TailIncluded == other.TailIncluded
+        && BalancedGrowthOptimum.Equals(other.BalancedGrowthOptimum) && Same.Items(ByHorizon, other.ByHorizon)
+        && ScheduleLabel == other.ScheduleLabel && HorizonYears == other.HorizonYears
+        && LongerSchoolingPays == other.LongerSchoolingPays;
 
-/// <param name="ValuationYear">Calendar year present values are valued at: technology level 1 and discount factor 1 there.</param>
-/// <param name="PriceBase">What one unit of a present value is.</param>
+    public override int GetHashCode() =>
+        HashCode.Combine(ScheduleId, SchoolingYears, PresentValue, Same.Hash(ByHorizon));
+}
+
+/// <param name="ValuationYear">Calendar year present values are valued at: technology level 1 and discount factor 1
+/// there; one unit of a present value is a year of that year's output per person (worded by the brief and the
+/// results writer).</param>
 public sealed record AppraisalResults(
     int ReformYear,
     int ValuationYear,
-    string PriceBase,
     int HorizonYears,
     int PhaseInCohorts,
     IReadOnlyList<OptionAppraisal> Options,
-    DiscountedOptimum Optimum);
+    DiscountedOptimum Optimum)
+{
+    public bool Equals(AppraisalResults? other) =>
+        other is not null && ReformYear == other.ReformYear && ValuationYear == other.ValuationYear
+        && HorizonYears == other.HorizonYears && PhaseInCohorts == other.PhaseInCohorts
+        && Same.Items(Options, other.Options) && Optimum.Equals(other.Optimum);
+
+    public override int GetHashCode() =>
+        HashCode.Combine(ReformYear, ValuationYear, HorizonYears, Same.Hash(Options), Optimum);
+}
 
 public static class Appraisal
 {
@@ -48,12 +81,9 @@ public static class Appraisal
             var path = ReformSimulator.Simulate(inputs, x, reform, cache);
             return new OptionAppraisal(x.Id, path, schedules.Select(s => PresentValue.Compute(path, s, g, o)).ToList());
         }).ToList();
-        return new AppraisalResults(reform.Year, reform.ValuedAt, PriceBase(reform.ValuedAt), reform.HorizonYears, reform.PhaseInCohorts, options,
+        return new AppraisalResults(reform.Year, reform.ValuedAt, reform.HorizonYears, reform.PhaseInCohorts, options,
             FindDiscountedOptimum(inputs, reform, schedules[0], balancedGrowthOptimum, cache));
     }
-
-    public static string PriceBase(int valuationYear) =>
-        $"years of {valuationYear} output per person: real terms, technology level and discount factor 1 in {valuationYear}; flows of calendar year c are discounted by D(c − {valuationYear})";
 
     /// <summary>
     /// Grid over E₁ from the baseline to the balanced-growth E* (half-year steps), then golden-section refinement,
@@ -92,16 +122,9 @@ public static class Appraisal
         var found = Enumerable.Range(0, cuts.Length + 1).Select(k => Maximise(e => Value(e, k), baseline.SchoolingYears, maxE)).ToList();
         var (bestE, bestPv) = found[0];
         var byHorizon = cuts.Select((c, k) => new HorizonOptimum(c, found[k + 1].E, found[k + 1].Value)).ToList();
-        string cut = tailFinite
-            ? $"The value maximised includes the gain beyond the horizon ({h} years), held at its balanced-growth level and discounted to infinity."
-            : $"The long-run discount rate does not exceed technology growth, so the gain beyond the horizon has no finite value: the value maximised is cut at {h} years after the reform, and the optimum moves with that cut ({string.Join(", ", byHorizon.Select((x, i) => $"{F(x.SchoolingYears)} years {(i == 0 ? "when the value is cut " : "at ")}{x.HorizonYears}{(i == 0 ? " years after the reform" : "")}"))}).";
-        string why = bestE <= baseline.SchoolingYears
-            ? "No longer schooling has a positive present value at this discount rate: the early loss of workers outweighs the discounted later gain. " + cut
-            : $"Discounting at {schedule.Label} weighs the early dip (fewer workers while the longer-schooled cohorts are still studying) against gains that arrive only as those cohorts replace older workers over decades; the balanced-growth optimum counts a gain fifty years away the same as one today. " + cut;
-        return new DiscountedOptimum(schedule.Id, bestE, bestPv, tailFinite, bgpOptimum, byHorizon, why);
+        return new DiscountedOptimum(schedule.Id, bestE, bestPv, tailFinite, bgpOptimum, byHorizon, schedule.Label, h,
+            LongerSchoolingPays: bestE > baseline.SchoolingYears);
     }
-
-    private static string F(double v) => v.ToString("0.0", System.Globalization.CultureInfo.InvariantCulture);
 
     /// <summary>The best of a half-year grid above <paramref name="lo"/> (f(lo) = 0), refined by golden section to 0.01 years.</summary>
     private static (double E, double Value) Maximise(Func<double, double> f, double lo0, double maxE)

@@ -1,7 +1,17 @@
-using System.Globalization;
-using System.Text.Json.Serialization;
-
 namespace Briefwright.Model.Dynamics;
+
+/// <summary>How the value beyond the horizon is treated.</summary>
+public enum TailTreatment
+{
+    /// <summary>The gain is held at its balanced-growth value and discounted to infinity (a finite tail).</summary>
+    HeldAtBalancedGrowth,
+
+    /// <summary>The long-run discount rate does not exceed technology growth: no finite value, not counted.</summary>
+    NotFinite,
+}
+
+/// <summary>The tail's treatment with the numbers a description of it needs (fractions).</summary>
+public sealed record TailBasis(TailTreatment Treatment, double LongRunRate, double TechnologyGrowth, double HeldGain);
 
 /// <summary>
 /// Present value of a reform's gain in output per person, valued at a stated calendar year V (the valuation date,
@@ -20,14 +30,13 @@ public sealed record PresentValue(
     double ToHorizon,
     double? Tail,
     double? Total,
-    [property: JsonPropertyName("break_even_years_after_reform")] int? BreakEvenYear,
+    int? BreakEvenYear,
     int? BreakEvenCalendarYear,
-    string TailNote)
+    TailBasis TailBasis)
 {
     private static readonly System.Collections.Concurrent.ConcurrentDictionary<(DiscountSchedule Schedule, int Horizon), double[]> FactorCache = new();
 
     /// <summary>The value to the horizon plus the tail where it is finite, else the value to the horizon.</summary>
-    [JsonIgnore]
     public double Counted => Total ?? ToHorizon;
 
     /// <param name="valuationOffset">Years from the valuation date to the reform year (0: valued at the reform year).</param>
@@ -82,13 +91,14 @@ public sealed record PresentValue(
     }
 
     /// <param name="dH">D at the horizon, <paramref name="h"/> years after the valuation date.</param>
-    private static (double? Tail, string Note) TailValue(DiscountSchedule schedule, double dH, int h, double g, double longRunGain)
+    private static (double? Tail, TailBasis Basis) TailValue(
+        DiscountSchedule schedule, double dH, int h, double g, double longRunGain)
     {
         int lastStart = schedule.Steps[^1].FromYear;
         double lastRate = schedule.Steps[^1].Rate;
         double q = Math.Exp(g) / (1 + lastRate);
         if (q >= 1)
-            return (null, $"the long-run discount rate ({(lastRate * 100).ToString("0.0", CultureInfo.InvariantCulture)}%) does not exceed technology growth ({(g * 100).ToString("0.0", CultureInfo.InvariantCulture)}%), so the gain beyond the horizon has no finite value and is not counted");
+            return (null, new TailBasis(TailTreatment.NotFinite, lastRate, g, longRunGain));
         double sum = 0, factor = dH;
         int t = h;
         while (t + 1 < lastStart)
@@ -99,6 +109,6 @@ public sealed record PresentValue(
         }
         // From year t + 1 on the rate is the last one: Σ_{j≥1} factor·e^(gt)·q^j = factor·e^(gt)·q/(1 − q).
         sum += factor * Math.Exp(g * t) * longRunGain * q / (1 - q);
-        return (sum, $"beyond the horizon the gain is held at its balanced-growth value ({(longRunGain * 100).ToString("0.00", CultureInfo.InvariantCulture)}%) and discounted to infinity");
+        return (sum, new TailBasis(TailTreatment.HeldAtBalancedGrowth, lastRate, g, longRunGain));
     }
 }

@@ -1,5 +1,3 @@
-using System.Text.Json.Serialization;
-
 namespace Briefwright.Model.Dynamics;
 
 /// <summary>
@@ -13,9 +11,17 @@ public sealed record ReformPath(
     double LongRunGain,
     double BalancedGrowthGain,
     double? DipDepth,
-    [property: JsonPropertyName("dip_years_after_reform")] int? DipYear,
-    [property: JsonPropertyName("first_positive_years_after_reform")] int? FirstPositiveYear)
+    int? DipYear,
+    int? FirstPositiveYear)
 {
+    public bool Equals(ReformPath? other) =>
+        other is not null && OptionId == other.OptionId && Same.Items(Gain, other.Gain)
+        && LongRunGain.Equals(other.LongRunGain) && BalancedGrowthGain.Equals(other.BalancedGrowthGain)
+        && DipDepth.Equals(other.DipDepth) && DipYear == other.DipYear
+        && FirstPositiveYear == other.FirstPositiveYear && ReformYear == other.ReformYear;
+
+    public override int GetHashCode() => HashCode.Combine(OptionId, Same.Hash(Gain), LongRunGain, DipYear, ReformYear);
+
     /// <summary>Calendar year of t = 0 (0 when the path was built without one).</summary>
     public int ReformYear { get; init; }
 

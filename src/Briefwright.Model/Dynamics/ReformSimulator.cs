@@ -47,35 +47,63 @@ public static class ReformSimulator
     {
         var baseline = inputs.Baseline;
         if (reform.Id == baseline.Id) return ReformPath.Flat(reform.Id, settings.HorizonYears) with { ReformYear = settings.Year };
-        var before = inputs.DemographyFor(baseline);
-        var after = inputs.DemographyFor(reform);
-        var hc = inputs.HumanCapital;
-        var p = inputs.Production;
-        // Tables run to the latest retirement age of any option, so options share them.
-        double lastAge = double.NegativeInfinity;
-        foreach (var o in inputs.Options) lastAge = Math.Max(lastAge, o.RetirementAge ?? inputs.Demography.RetirementAge);
         cache ??= new Cache();
-        double population = cache.Population(inputs);
+        var labour = new Labour(inputs, reform, settings.PhaseInCohorts, cache);
+        double settled = settledShortcut ? labour.SettledFrom : double.PositiveInfinity;
+        var gain = Gains(inputs.Production, labour, settings.HorizonYears, settled);
+        double bgpGain = cache.OutputPerPerson(inputs, reform) / cache.OutputPerPerson(inputs, baseline) - 1;
+        return Landmarks(reform.Id, gain, bgpGain, settings.Year);
+    }
 
-        CohortLabour Table(double e)
+    /// <summary>
+    /// x(t), effective labour per person: the baseline's cohorts, then the reform cohorts phased in over the first
+    /// cohorts entering school from year 0 (the cohort entering school at time s is aged a = t + a₀ − s at time t).
+    /// </summary>
+    private sealed class Labour
+    {
+        private readonly List<Group> groups;
+        private readonly double population;
+
+        public Labour(ModelInputs inputs, PolicyOption reform, int phaseInCohorts, Cache cache)
         {
-            if (!cache.Tables.TryGetValue((e, lastAge), out var table))
-                cache.Tables[(e, lastAge)] = table = new CohortLabour(before, hc, e, lastAge);
-            return table;
+            var baseline = inputs.Baseline;
+            Before = inputs.DemographyFor(baseline);
+            After = inputs.DemographyFor(reform);
+            var hc = inputs.HumanCapital;
+            // Tables run to the latest retirement age of any option, so options share them.
+            double lastAge = double.NegativeInfinity;
+            foreach (var o in inputs.Options)
+                lastAge = Math.Max(lastAge, o.RetirementAge ?? inputs.Demography.RetirementAge);
+            population = cache.Population(inputs);
+            var before = Before;
+            CohortLabour Table(double e)
+            {
+                if (!cache.Tables.TryGetValue((e, lastAge), out var table))
+                    cache.Tables[(e, lastAge)] = table = new CohortLabour(before, hc, e, lastAge);
+                return table;
+            }
+
+            groups = new List<Group> { new(double.NegativeInfinity, 0, Table(baseline.SchoolingYears)) };
+            int k = Math.Max(1, phaseInCohorts);
+            for (int j = 0; j < k; j++)
+            {
+                double e = baseline.SchoolingYears + (reform.SchoolingYears - baseline.SchoolingYears) * (j + 1) / k;
+                groups.Add(new Group(j, j == k - 1 ? double.PositiveInfinity : j + 1, Table(e)));
+            }
+            // From R − a₀ + k years on, every cohort of working age entered school after the phase-in.
+            SettledFrom = After.RetirementAge - After.EntryAge + k;
         }
 
-        var groups = new List<Group> { new(double.NegativeInfinity, 0, Table(baseline.SchoolingYears)) };
-        int k = Math.Max(1, settings.PhaseInCohorts);
-        for (int j = 0; j < k; j++)
-        {
-            double e = baseline.SchoolingYears + (reform.SchoolingYears - baseline.SchoolingYears) * (j + 1) / k;
-            groups.Add(new Group(j, j == k - 1 ? double.PositiveInfinity : j + 1, Table(e)));
-        }
+        public Demography Before { get; }
 
-        // x(t): effective labour per person. Cohort entering school at time s is aged a = t + a₀ − s at time t.
-        double X(double t)
+        public Demography After { get; }
+
+        /// <summary>The time from which x(t) no longer changes.</summary>
+        public double SettledFrom { get; }
+
+        public double At(double t)
         {
-            var dem = t < 0 ? before : after;
+            var dem = t < 0 ? Before : After;
             double sum = 0;
             foreach (var g in groups)
             {
@@ -84,29 +112,35 @@ public static class ReformSimulator
             }
             return dem.Participation * sum / population;
         }
+    }
 
+    /// <summary>
+    /// Output per person relative to no reform, year by year, from capital per person following the labour path.
+    /// </summary>
+    /// <param name="settled">From this time on x(t) is evaluated once instead of at every step (the same numbers,
+    /// fewer table look-ups); +∞ to evaluate it every step.</param>
+    private static double[] Gains(Production p, Labour labour, int horizon, double settled)
+    {
         // Capital: with z = k^(1−α), k̇ = s·k^α·x^(1−α) − λk becomes linear, ż = (1−α)(s·x^(1−α) − λz), and is
         // integrated exactly for forcing that is linear within each time step (an exponential integrator).
-        double alpha = p.CapitalShare, s = p.SavingRate, lambda = BalancedGrowth.EffectiveDepreciation(before, p);
+        double alpha = p.CapitalShare, s = p.SavingRate;
+        double lambda = BalancedGrowth.EffectiveDepreciation(labour.Before, p);
         double beta = 1 - alpha, mu = beta * lambda, h = ReformSettings.TimeStep;
         double decay = Math.Exp(-mu * h);
         // ∫₀^h e^(−μ(h−τ))·(1 − τ/h) dτ and ∫₀^h e^(−μ(h−τ))·τ/h dτ.
         double w1 = (1 - (1 - decay) / (mu * h)) / mu, w0 = (1 - decay) / mu - w1;
         // Forcing and output are written in ln x, which is computed once per step and shared by both.
         double Forcing(double lnX) => s * Math.Exp(beta * lnX);
-        double x0 = X(-1);
+        double x0 = labour.At(-1);
         double z = s * Math.Exp(beta * Math.Log(x0)) / lambda;
         double Output(double zz, double lnX) => Math.Exp(alpha / beta * Math.Log(zz) + beta * lnX);
         double y0 = Output(z, Math.Log(x0));
 
-        int horizon = settings.HorizonYears;
         var gain = new double[horizon + 1];
         int stepsPerYear = (int)Math.Round(1 / h);
-        // From R − a₀ + k years on, every cohort of working age entered school after the phase-in, so x(t) no longer
-        // changes: it is evaluated once there instead of at every step (the same numbers, fewer table look-ups).
-        double settled = settledShortcut ? after.RetirementAge - after.EntryAge + k : double.PositiveInfinity;
-        double xSettled = settledShortcut ? X(settled) : double.NaN, lnSettled = Math.Log(xSettled);
-        double xNow = X(0), lnNow = Math.Log(xNow), fNow = Forcing(lnNow);
+        double xSettled = double.IsPositiveInfinity(settled) ? double.NaN : labour.At(settled);
+        double lnSettled = Math.Log(xSettled);
+        double xNow = labour.At(0), lnNow = Math.Log(xNow), fNow = Forcing(lnNow);
         gain[0] = Output(z, lnNow) / y0 - 1;
         for (int year = 0; year < horizon; year++)
         {
@@ -122,7 +156,7 @@ public static class ReformSimulator
                 }
                 else
                 {
-                    xNow = X(t);
+                    xNow = labour.At(t);
                     lnNow = Math.Log(xNow);
                     fNext = Forcing(lnNow);
                 }
@@ -131,9 +165,7 @@ public static class ReformSimulator
             }
             gain[year + 1] = Output(z, lnNow) / y0 - 1;
         }
-
-        double bgpGain = cache.OutputPerPerson(inputs, reform) / cache.OutputPerPerson(inputs, baseline) - 1;
-        return Landmarks(reform.Id, gain, bgpGain, settings.Year);
+        return gain;
     }
 
     private static ReformPath Landmarks(string id, double[] gain, double bgpGain, int reformYear)

@@ -37,13 +37,15 @@ public sealed record HeadlineFacts(
     public static Direction Of(double changePct, int digits = 1) =>
         Math.Round(changePct, digits) > 0 ? Direction.Rise : Math.Round(changePct, digits) < 0 ? Direction.Fall : Direction.None;
 
-    public static HeadlineFacts From(BalancedGrowthResults results, AnalysisResults analysis)
+    public static HeadlineFacts From(BalancedGrowthResults results, AnalysisResults analysis) =>
+        From(OptionOutcomes.From(results, analysis).Headline, analysis.Reform);
+
+    public static HeadlineFacts From(OptionOutcome headline, Dynamics.AppraisalResults reform)
     {
-        var id = analysis.HeadlineOptionId;
-        var reform = analysis.Reform;
-        var o = reform.Options.First(x => x.OptionId == id);
-        double change = results.Options.First(x => x.Id == id).ChangeVsBaselinePct;
-        var mc = analysis.MonteCarlo?.Options.FirstOrDefault(x => x.OptionId == id);
+        var id = headline.Id;
+        var o = headline;
+        double change = headline.BalancedGrowth.ChangeVsBaselinePct;
+        var mc = headline.Uncertainty;
         var gain = o.Path.Gain;
         int y0 = reform.ReformYear;
         // The first year from which the path stays below no reform to the horizon (a reform that ends in a loss).

@@ -9,7 +9,26 @@ public sealed record KeyResults(
     IReadOnlyList<string> OptionIds,
     double[] LongRunChangePct,
     double[] PresentValue,
-    double OptimumYears);
+    double OptimumYears)
+{
+    public bool Equals(KeyResults? other) =>
+        other is not null && Same.Items(OptionIds, other.OptionIds)
+        && Same.Items(LongRunChangePct, other.LongRunChangePct)
+        && Same.Items(PresentValue, other.PresentValue) && OptimumYears.Equals(other.OptimumYears);
+
+    public override int GetHashCode() =>
+        HashCode.Combine(Same.Hash(OptionIds), Same.Hash(LongRunChangePct), OptimumYears);
+
+    /// <summary>The long-run change (percent) of the option <paramref name="optionId"/>.</summary>
+    public double LongRunChangeOf(string optionId) => LongRunChangePct[IndexOf(optionId)];
+
+    private int IndexOf(string optionId)
+    {
+        for (int i = 0; i < OptionIds.Count; i++)
+            if (OptionIds[i] == optionId) return i;
+        throw new ArgumentException($"No results for option {optionId}.", nameof(optionId));
+    }
+}
 
 /// <summary>Evaluates the key results quickly enough to repeat thousands of times.</summary>
 public static class KeyResultsEvaluator

@@ -31,7 +31,16 @@ public sealed record MonteCarloResults(
     IReadOnlyList<OptionUncertainty> Options,
     PercentileSummary OptimumYears,
     IReadOnlyList<Percentiles> HeadlineFan,
-    [property: System.Text.Json.Serialization.JsonIgnore] double[] HeadlineChangeSample);
+    double[] HeadlineChangeSample)
+{
+    public bool Equals(MonteCarloResults? other) =>
+        other is not null && Draws == other.Draws && Rejected == other.Rejected && Seed == other.Seed
+        && Same.Items(Options, other.Options) && OptimumYears.Equals(other.OptimumYears)
+        && Same.Items(HeadlineFan, other.HeadlineFan) && Same.Items(HeadlineChangeSample, other.HeadlineChangeSample);
+
+    public override int GetHashCode() =>
+        HashCode.Combine(Draws, Rejected, Seed, Same.Hash(Options), Same.Hash(HeadlineChangeSample));
+}
 
 public static class MonteCarlo
 {

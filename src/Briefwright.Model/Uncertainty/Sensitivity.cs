@@ -7,7 +7,14 @@ public sealed record TornadoRow(string Parameter, string Label, double Low, doub
 
 /// <summary>A two-way grid: <see cref="Values"/>[i][j] at X[i], Y[j].</summary>
 /// <summary>Cells whose inputs break a model rule are null.</summary>
-public sealed record GridResult(GridSpec Spec, double[] X, double[] Y, double?[][] Values, int Invalid);
+public sealed record GridResult(GridSpec Spec, double[] X, double[] Y, double?[][] Values, int Invalid)
+{
+    public bool Equals(GridResult? other) =>
+        other is not null && Spec.Equals(other.Spec) && Same.Items(X, other.X) && Same.Items(Y, other.Y)
+        && Same.Items(Values, other.Values, (a, b) => Same.Items(a, b)) && Invalid == other.Invalid;
+
+    public override int GetHashCode() => HashCode.Combine(Spec, Same.Hash(X), Same.Hash(Y), Invalid);
+}
 
 public static class Sensitivity
 {

@@ -18,6 +18,15 @@ public sealed record SobolIndices(
     int Resamples,
     double Level)
 {
+    public bool Equals(SobolIndices? other) =>
+        other is not null && Same.Items(Inputs, other.Inputs) && Same.Items(FirstOrder, other.FirstOrder)
+        && Same.Items(FirstOrderLow, other.FirstOrderLow) && Same.Items(FirstOrderHigh, other.FirstOrderHigh)
+        && Same.Items(Total, other.Total) && Same.Items(TotalLow, other.TotalLow)
+        && Same.Items(TotalHigh, other.TotalHigh) && Variance.Equals(other.Variance) && Samples == other.Samples
+        && Resamples == other.Resamples && Level.Equals(other.Level);
+
+    public override int GetHashCode() => HashCode.Combine(Same.Hash(Inputs), Same.Hash(Total), Variance, Samples);
+
     /// <summary>The widest half-width of any interval, first-order or total.</summary>
     public double WidestHalfWidth()
     {
