@@ -6,9 +6,8 @@ internal static class Demo
 {
     public static ScenarioDocument Load(string name)
     {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "ReportBuilder.sln"))) dir = dir.Parent;
-        var result = new ScenarioLoader(new Reader()).Load(Path.Combine(dir!.FullName, "briefs-demo", name + ".yaml"));
+        string file = Path.Combine(TestSupport.RepositoryRoot.Path, "briefs-demo", name + ".yaml");
+        var result = new ScenarioLoader(new Reader()).Load(file);
         return result.Document ?? throw new InvalidOperationException(string.Join("\n", result.Problems));
     }
 

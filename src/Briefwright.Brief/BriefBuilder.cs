@@ -64,8 +64,28 @@ public static class BriefBuilder
         var (json, changes, markdown) = text.GetAwaiter().GetResult();
         var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
+        var document = DocumentOf(scenario, options, language, words, blocks, fonts);
+        // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid
+        // out.
+        var others = runner.Start(() => OutputWriters.For(formats).Select(w => new AnnexFile(w.Suffix,
+            w.Write(new BriefContent(document, imaged.GetAwaiter().GetResult(), solved, json,
+                scenario.Brief.Organisation)))).ToList());
+        var pdf = DocumentComposer.WritePdf(document, session);
+        var annexFiles = annex.GetAwaiter().GetResult()
+            .Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
+        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes)
+        {
+            Formats = others.GetAwaiter().GetResult(),
+        };
+    }
+
+    /// <summary>The brief's document: its blocks with the metadata, page furniture and labels in its
+    /// language.</summary>
+    private static BriefDocument DocumentOf(ScenarioDocument scenario, BuildOptions options, BriefLanguage language,
+        TemplateFunctions words, IReadOnlyList<Block> blocks, FontFaces? fonts)
+    {
         var info = scenario.Brief;
-        var document = new BriefDocument(
+        return new BriefDocument(
             new DocumentInfo(
                 info.Title, info.ShortTitle, info.Author ?? info.Organisation,
                 words.T("doc.subject"), words.T("doc.keywords"),
@@ -86,12 +106,6 @@ public static class BriefBuilder
                 TableLabel = words.T("layout.table"), SourceLabel = words.T("layout.source") },
             FontFamily = fonts?.Family,
         };
-        // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid out.
-        var others = runner.Start(() => OutputWriters.For(formats).Select(w => new AnnexFile(w.Suffix,
-            w.Write(new BriefContent(document, imaged.GetAwaiter().GetResult(), solved, json, info.Organisation)))).ToList());
-        var pdf = DocumentComposer.WritePdf(document, session);
-        var annexFiles = annex.GetAwaiter().GetResult().Append(new AnnexFile("brief.md", Encoding.UTF8.GetBytes(markdown))).ToList();
-        return new BuiltBrief(FileStem(scenario), pdf.Bytes, json, markdown, pdf.PageCount, annexFiles, changes) { Formats = others.GetAwaiter().GetResult() };
     }
 
     /// <summary>

@@ -54,6 +54,21 @@ public static partial class ThemeLoader
         string paper = ctx.Choice(top, "paper", "", required: false, "a4", "letter") ?? "a4";
         string? footer = ctx.Text(top, "footer", "", required: false, maxLength: ThemeSchema.MaxFooter);
         string? logo = ctx.Text(top, "logo", "", required: false);
+        var colours = ReadColours(ctx, top);
+        var chartColours = ReadChartColours(ctx, top);
+        var (fonts, fontFiles) = ReadFonts(reader, ctx, path, project, top);
+        var (logoImage, logoPath) = ReadLogo(reader, ctx, path, project, top, logo);
+        if (ctx.Problems.Count > 0 || name is null) return (null, ctx.Problems, sources);
+        var theme = new ThemeSpec(name, paper, colours, footer, logoPath)
+        {
+            FontPaths = fonts, FontFiles = fontFiles, Logo = logoImage, ChartColours = chartColours,
+        };
+        return (theme, ctx.Problems, sources);
+    }
+
+    /// <summary><c>colours</c>: each known key's colour written #RRGGBB.</summary>
+    private static Dictionary<string, string> ReadColours(BindContext ctx, YMapping top)
+    {
         var colours = new Dictionary<string, string>();
         if (ctx.Mapping(top, "colours", "", required: false) is { } c)
         {
@@ -65,6 +80,12 @@ public static partial class ThemeLoader
                 else ctx.Report(value.At, $"colours.{key.Value}", "must be a colour written #RRGGBB", BindContext.Show(value));
             }
         }
+        return colours;
+    }
+
+    /// <summary><c>chart_colours</c>: a list of colours written #RRGGBB, one per option in scenario order.</summary>
+    private static List<string> ReadChartColours(BindContext ctx, YMapping top)
+    {
         var chartColours = new List<string>();
         if (top["chart_colours"] is { } cc)
         {
@@ -77,6 +98,14 @@ public static partial class ThemeLoader
                     else ctx.Report(seq.Items[i].At, $"chart_colours[{i}]", "must be a colour written #RRGGBB", BindContext.Show(seq.Items[i]));
                 }
         }
+        return chartColours;
+    }
+
+    /// <summary><c>fonts</c>: each style's TrueType file, inside the project folder and checked whole; its full
+    /// path and its bytes by style.</summary>
+    private static (Dictionary<string, string> Paths, Dictionary<string, byte[]> Files) ReadFonts(ISourceReader reader,
+        BindContext ctx, string path, string project, YMapping top)
+    {
         var fonts = new Dictionary<string, string>();
         var fontFiles = new Dictionary<string, byte[]>();
         if (ctx.Mapping(top, "fonts", "", required: false) is { } f)
@@ -100,6 +129,14 @@ public static partial class ThemeLoader
                 }
             }
         }
+        return (fonts, fontFiles);
+    }
+
+    /// <summary><c>logo</c>: a PNG file inside the project folder, checked whole; its bytes and size, and its full
+    /// path (nulls when none is named or it is refused).</summary>
+    private static ((byte[], int, int)? Image, string? Path) ReadLogo(ISourceReader reader, BindContext ctx,
+        string path, string project, YMapping top, string? logo)
+    {
         (byte[], int, int)? logoImage = null;
         string? logoPath = null;
         if (logo is not null)
@@ -117,8 +154,7 @@ public static partial class ThemeLoader
                 }
             }
         }
-        if (ctx.Problems.Count > 0 || name is null) return (null, ctx.Problems, sources);
-        return (new ThemeSpec(name, paper, colours, footer, logoPath) { FontPaths = fonts, FontFiles = fontFiles, Logo = logoImage, ChartColours = chartColours }, ctx.Problems, sources);
+        return (logoImage, logoPath);
     }
 
     private static byte[]? ReadAsset(ISourceReader reader, BindContext ctx, string theme, string file, string project, SourceSpan at, string field, long maxBytes, string what)

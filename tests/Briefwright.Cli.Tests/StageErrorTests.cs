@@ -18,31 +18,10 @@ public class StageErrorTests
 
     /// <summary>An invented scenario whose population growth is drawn so that most draws break n + g + δ ≥ 0.1%: Monte
     /// Carlo survives by redrawing, the Sobol samples (never redrawn) do not.</summary>
-    private const string SobolStarved = """
-        brief:
-          id: sobol-starved
-          title: Starved Sobol indices (invented)
-          organisation: Test Institute (invented)
-          date: 2026-11-30
-        demography:
-          population_growth: 1%
-          school_entry_age: 6
-          retirement_age: 65
-          survival:
-            form: rectangular
-            max_age: 80
-        production:
-          saving_rate: 0.2
-          capital_share: 0.33
-          depreciation: 3%
-          technology_growth: 2%
-        options:
-          - id: base
-            label: Base
-            schooling_years: 11
-          - id: more
-            label: More
-            schooling_years: 12
+    private static readonly string SobolStarved = ValidScenario.Text
+        .Replace("id: test-brief", "id: sobol-starved")
+        .Replace("title: Test brief", "title: Starved Sobol indices (invented)") + """
+
         uncertainty:
           draws: 200
           seed: 7
@@ -90,7 +69,8 @@ public class StageErrorTests
         Assert.Contains($"{file}: the model cannot solve this scenario: Monte Carlo: ", error.ToString());
         Assert.Contains("narrow the distributions", error.ToString());
         Assert.DoesNotContain(Report, error.ToString());
-        Assert.False(Directory.Exists(Path.Combine(Path.GetDirectoryName(file)!, "out", "sobol-starved-2026-11-30.pdf")));
+        Assert.False(
+            Directory.Exists(Path.Combine(Path.GetDirectoryName(file)!, "out", "sobol-starved-2026-11-30.pdf")));
 
         var ex = Assert.Throws<UnsolvableScenarioException>(() => ScenarioSolver.Solve(loaded.Document!));
         Assert.IsType<ModelRuleException>(ex.InnerException);
@@ -117,11 +97,16 @@ public class StageErrorTests
         foreach (var command in new[] { "check", "solve", "build" })
         {
             var error = new StringWriter();
-            int code = CliApp.Run([command, file, .. command == "build" ? new[] { "-q", "--no-chart-images" } : []], new StringWriter(), error);
+            int code = CliApp.Run(
+                [command, file, .. command == "build" ? new[] { "-q", "--no-chart-images" } : []],
+                new StringWriter(),
+                error);
             Assert.Equal(ExitCodes.InvalidInput, code);
             int line = SobolStarved.Split('\n').ToList().FindIndex(l => l.Contains("sobol_samples")) + 1;
             Assert.Contains($"{file}:{line}:", error.ToString());
-            Assert.Contains("uncertainty.sobol_samples: the distributions break a model rule too often for the Sobol indices", error.ToString());
+            Assert.Contains(
+                "uncertainty.sobol_samples: the distributions break a model rule too often for the Sobol indices",
+                error.ToString());
             Assert.DoesNotContain(Report, error.ToString());
         }
     }
@@ -141,11 +126,23 @@ public class StageErrorTests
 
     public static TheoryData<string, Exception, Stage?, int> Failures => new()
     {
-        { "model", new UnsolvableScenarioException("Monte Carlo: too few draws", new ModelRuleException("x")), Stage.Model, ExitCodes.InvalidInput },
+        {
+            "model", new UnsolvableScenarioException("Monte Carlo: too few draws", new ModelRuleException("x")),
+            Stage.Model, ExitCodes.InvalidInput
+        },
         { "model rule", new ModelRuleException("Sobol indices: only 0 of 64"), Stage.Model, ExitCodes.InvalidInput },
-        { "template", new TemplateException([new TemplateError("t.md", 3, 4, "unknown field")]), Stage.Template, ExitCodes.InvalidInput },
-        { "layout", new ComposeException("links in a brief must start with http:", 3), Stage.Layout, ExitCodes.InvalidInput },
-        { "write", new EditionWriteException("disk full; nothing was replaced", new IOException("disk full")), Stage.Write, ExitCodes.Failed },
+        {
+            "template", new TemplateException([new TemplateError("t.md", 3, 4, "unknown field")]),
+            Stage.Template, ExitCodes.InvalidInput
+        },
+        {
+            "layout", new ComposeException("links in a brief must start with http:", 3),
+            Stage.Layout, ExitCodes.InvalidInput
+        },
+        {
+            "write", new EditionWriteException("disk full; nothing was replaced", new IOException("disk full")),
+            Stage.Write, ExitCodes.Failed
+        },
         { "folder", new UnauthorizedAccessException("read-only"), Stage.Write, ExitCodes.Failed },
         { "tool", new NullReferenceException("a bug"), null, ExitCodes.Failed },
     };
@@ -160,6 +157,8 @@ public class StageErrorTests
         Assert.Equal(exitCode, failure.ExitCode);
         Assert.Equal(exitCode == ExitCodes.InvalidInput ? OutcomeStatus.Invalid : OutcomeStatus.Failed, failure.Status);
         Assert.Equal(stage is null, failure.Lines.Any(l => l.Contains(Report)));
-        Assert.All(failure.Lines, l => Assert.True(l.StartsWith("s.yaml", StringComparison.Ordinal) || l.StartsWith("t.md:3:4", StringComparison.Ordinal), $"{name}: {l}"));
+        Assert.All(failure.Lines, l => Assert.True(
+            l.StartsWith("s.yaml", StringComparison.Ordinal) || l.StartsWith("t.md:3:4", StringComparison.Ordinal),
+            $"{name}: {l}"));
     }
 }

@@ -8,33 +8,8 @@ internal sealed class MemoryReader(Dictionary<string, string> files) : ISourceRe
         return files.TryGetValue(path, out text!);
     }
 
-    /// <summary>A valid scenario; tests replace one line to break one rule.</summary>
-    public const string Valid = """
-        brief:
-          id: test-brief
-          title: Test brief
-          organisation: Test Institute (invented)
-          date: 2026-11-30
-        demography:
-          population_growth: 1%
-          school_entry_age: 6
-          retirement_age: 65
-          survival:
-            form: rectangular
-            max_age: 80
-        production:
-          saving_rate: 0.2
-          capital_share: 0.33
-          depreciation: 3%
-          technology_growth: 2%
-        options:
-          - id: base
-            label: Base
-            schooling_years: 11
-          - id: more
-            label: More
-            schooling_years: 12
-        """;
+    /// <summary>A valid scenario (<see cref="ValidScenario"/>); tests replace one line to break one rule.</summary>
+    public const string Valid = ValidScenario.Text;
 
     public static LoadResult Load(string text, params (string Path, string Text)[] more)
     {

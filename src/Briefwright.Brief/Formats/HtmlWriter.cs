@@ -20,13 +20,28 @@ public sealed partial class HtmlWriter : IBriefWriter
 
     public static string Render(BriefContent content)
     {
+        var doc = content.Document;
+        var charts = content.Charts.ToDictionary(c => c.Id, StringComparer.Ordinal);
+        var sb = new StringBuilder(256 * 1024);
+        Head(sb, content);
+        Masthead(sb, content);
+        var headings = Numbered(doc);
+        Contents(sb, headings, content.Language);
+        sb.Append("<main id=\"main\">\n");
+        Body(sb, doc, headings, new State(charts, content.Theme));
+        sb.Append("</main>\n");
+        Footer(sb, content);
+        return sb.ToString();
+    }
+
+    /// <summary>The page's head (language, title, metadata, styles) and the link that skips to the text.</summary>
+    private static void Head(StringBuilder sb, BriefContent content)
+    {
         // A text of the brief's language (templates/languages/*.texts), by key.
         string T(string key) => content.Language.Format(key);
         var doc = content.Document;
         var info = doc.Info;
         var theme = content.Theme;
-        var charts = content.Charts.ToDictionary(c => c.Id, StringComparer.Ordinal);
-        var sb = new StringBuilder(256 * 1024);
         sb.Append("<!DOCTYPE html>\n<html lang=\"").Append(Attr(info.Language)).Append("\">\n<head>\n<meta charset=\"utf-8\">\n")
           .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
           .Append("<title>").Append(Text(info.Title)).Append("</title>\n")
@@ -36,8 +51,12 @@ public sealed partial class HtmlWriter : IBriefWriter
           .Append("<meta name=\"generator\" content=\"briefwright ").Append(Attr(ToolInfo.Version)).Append("\">\n")
           .Append("<style>\n").Append(Styles(theme, doc.FontFamily, doc.Paper)).Append("</style>\n</head>\n<body>\n")
           .Append("<a class=\"skip\" href=\"#main\">").Append(Text(T("output.skip"))).Append("</a>\n");
+    }
 
-        // Banner: organisation, logo, date and edition, and the draft marker.
+    /// <summary>Banner: organisation, logo, date and edition, and the draft marker.</summary>
+    private static void Masthead(StringBuilder sb, BriefContent content)
+    {
+        var info = content.Document.Info;
         sb.Append("<header class=\"masthead\">\n");
         if (info.Logo is { } logo)
             sb.Append("<img class=\"logo\" src=\"data:image/png;base64,").Append(Convert.ToBase64String(logo.Png))
@@ -46,8 +65,12 @@ public sealed partial class HtmlWriter : IBriefWriter
           .Append("<p class=\"stamp\">").Append(Text(info.DateText ?? info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture))).Append(" · ").Append(Text(info.Edition)).Append("</p>\n");
         if (info.Marker is { } marker) sb.Append("<p class=\"marker\">").Append(Text(marker)).Append("</p>\n");
         sb.Append("</header>\n");
+    }
 
-        // Numbering as in the PDF: sections 1, 1.1; tables and figures in order.
+    /// <summary>Numbering as in the PDF: sections 1, 1.1; tables and figures in order. Each heading's level, number,
+    /// text and anchor.</summary>
+    private static List<(int Level, string Number, string Text, string Id)> Numbered(BriefDocument doc)
+    {
         var headings = new List<(int Level, string Number, string Text, string Id)>();
         int section = 0, subsection = 0;
         foreach (var h in doc.Blocks.OfType<HeadingBlock>())
@@ -57,6 +80,14 @@ public sealed partial class HtmlWriter : IBriefWriter
             else if (h.Level == 3) { subsection++; number = $"{section}.{subsection}"; }
             headings.Add((h.Level, number, h.Text, h.Level == 1 ? "title" : h.Level > 3 ? $"h-{headings.Count}" : "s-" + number.Replace('.', '-')));
         }
+        return headings;
+    }
+
+    /// <summary>The table of contents: the numbered sections, linked.</summary>
+    private static void Contents(StringBuilder sb, List<(int Level, string Number, string Text, string Id)> headings,
+        Briefwright.Templating.BriefLanguage language)
+    {
+        string T(string key) => language.Format(key);
         var sections = headings.Where(h => h.Level == 2).ToList();
         if (sections.Count > 0)
         {
@@ -64,9 +95,13 @@ public sealed partial class HtmlWriter : IBriefWriter
             foreach (var h in sections) sb.Append("<li><a href=\"#").Append(h.Id).Append("\">").Append(Text(h.Text)).Append("</a></li>\n");
             sb.Append("</ol>\n</nav>\n");
         }
+    }
 
-        sb.Append("<main id=\"main\">\n");
-        var state = new State(charts, theme);
+    /// <summary>The blocks, with each numbered heading opening a section (closed by the next heading of its level or
+    /// above).</summary>
+    private static void Body(StringBuilder sb, BriefDocument doc,
+        List<(int Level, string Number, string Text, string Id)> headings, State state)
+    {
         int open = 0; // sections open: 0, 1 (level 2) or 2 (level 3)
         int heading = 0;
         foreach (var block in doc.Blocks)
@@ -96,14 +131,19 @@ public sealed partial class HtmlWriter : IBriefWriter
             Block(sb, block, state);
         }
         while (open-- > 0) sb.Append("</section>\n");
-        sb.Append("</main>\n");
+    }
 
+    /// <summary>The footer: note, cautions, and the scenario, edition, input hash and tool version.</summary>
+    private static void Footer(StringBuilder sb, BriefContent content)
+    {
+        // A text of the brief's language (templates/languages/*.texts), by key.
+        string T(string key) => content.Language.Format(key);
+        var info = content.Document.Info;
         sb.Append("<footer>\n<p>").Append(Text(info.FooterNote)).Append("</p>\n")
           .Append("<p>").Append(Text(T("output.cautions"))).Append("</p>\n")
           .Append("<p class=\"stamp\">").Append(Text(T("output.scenario"))).Append(' ').Append(Text(content.Solved.Scenario.Brief.Id)).Append(" · ").Append(Text(info.Edition))
           .Append(" · ").Append(Text(T("output.input_hash"))).Append(" <code>").Append(Text(content.Solved.Scenario.InputHash)).Append("</code> · briefwright ").Append(Text(ToolInfo.Version)).Append("</p>\n")
           .Append("</footer>\n</body>\n</html>\n");
-        return sb.ToString();
     }
 
 

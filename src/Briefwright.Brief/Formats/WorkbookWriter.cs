@@ -94,6 +94,16 @@ public sealed class WorkbookWriter : IBriefWriter
              new("Output per person (model units)", ColumnKind.Number, 16), new("Change vs baseline (%)", ColumnKind.Percent, 16)],
             solved.BalancedGrowth.Options.Select(o => Row(o.Id, o.Label, o.IsBaseline, o.SchoolingYears, o.WorkerShare, o.HumanCapitalPerWorker, o.OutputPerPerson, o.ChangeVsBaselinePct / 100)).ToList()));
 
+        AddReformSheets(tables, a, sheets, Label);
+        AddUncertaintySheets(tables, a, sheets, Label);
+        return tables;
+    }
+
+    /// <summary>The reform paths, present values and (when the scenario asks for them) sensitivity sheets;
+    /// <paramref name="Label"/> gives an option's label from its id.</summary>
+    private static void AddReformSheets(List<SheetTable> tables, AnalysisResults a, List<(string, string)> sheets,
+        Func<string, string> Label)
+    {
         var reform = a.Reform;
         int years = reform.Options.Count == 0 ? 0 : reform.Options.Max(o => o.Path.Gain.Length);
         tables.Add(new SheetTable("Reform paths", sheets[2].Item2,
@@ -121,7 +131,13 @@ public sealed class WorkbookWriter : IBriefWriter
                     return Row(t.Label, t.Parameter, rate ? new PercentValue(t.Low) : t.Low, rate ? new PercentValue(t.High) : t.High, Label(id),
                         t.AtLow.LongRunChangePct[k] / 100, t.AtHigh.LongRunChangePct[k] / 100, t.AtLow.OptimumYears, t.AtHigh.OptimumYears);
                 })).ToList()));
+    }
 
+    /// <summary>The Monte Carlo and Sobol sheets, when the scenario asks for them; <paramref name="Label"/> gives an
+    /// option's label from its id.</summary>
+    private static void AddUncertaintySheets(List<SheetTable> tables, AnalysisResults a, List<(string, string)> sheets,
+        Func<string, string> Label)
+    {
         if (a.MonteCarlo is { } mc)
         {
             var rows = new List<IReadOnlyList<object?>>();
@@ -149,7 +165,6 @@ public sealed class WorkbookWriter : IBriefWriter
                     var x = sobol.Indices[k];
                     return Row(output, name, x.FirstOrder[i], x.FirstOrderLow[i], x.FirstOrderHigh[i], x.Total[i], x.TotalLow[i], x.TotalHigh[i], x.Level, x.Samples);
                 })).ToList()));
-        return tables;
     }
 
     /// <summary>A value in a number column that is a rate: stored as a fraction, shown as a percent.</summary>

@@ -52,8 +52,7 @@ public static class BuildPlan
             var messages = loaded.Problems.Select(p => p.Message).ToList();
             return new PlannedBrief(file, null, "invalid", null, null, null, null, [], $"{messages.Count} problem(s) in the scenario") { Messages = messages };
         }
-        var scenario = loaded.Document!;
-        if (settings.Date is { } d) scenario = scenario with { Brief = scenario.Brief with { Date = d } };
+        var scenario = settings.Dated(loaded.Document!);
         string id = scenario.Brief.Id, dir = BatchBuilder.DirOf(file, settings);
         var (_, _, request) = BatchBuilder.Request(scenario, settings);
         var folder = new EditionFolder(dir, id);

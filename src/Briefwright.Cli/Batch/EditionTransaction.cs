@@ -84,11 +84,38 @@ public static class EditionTransaction
     public static string? Execute(EditionFolder folder, BriefLock held, EditionPlan.Build plan, Manifest? current, CurrentEdition state,
         IReadOnlyList<(string Name, byte[] Bytes)> files, Manifest manifest, bool durable)
     {
-        string id = folder.Id, token = held.Info.Token;
-        string staging = folder.Staging(token), stagedNew = Path.Combine(staging, "new"), stagedOld = Path.Combine(staging, "old");
+        string token = held.Info.Token, staging = folder.Staging(token);
         byte[] manifestBytes = manifest.ToBytes();
+        string? archived = Stage(folder, held, plan, current, files, manifestBytes, durable);
+        // The commit point: once the journal exists, the next build finishes this switch (or undoes it).
+        var journal = JournalOf(folder, token, plan, state, files, manifestBytes, archived);
+        WriteJournal(folder, journal, staging);
+        Switch(folder, journal, staging, archived);
+        // Switched: from here nothing can make this build fail. A journal left behind finds nothing to do next time.
+        try
+        {
+            FaultSeam.After(folder.Id, "switched");
+            File.Delete(folder.JournalPath);
+            FaultSeam.After(folder.Id, "committed");
+            TryDelete(staging);
+            FaultSeam.After(folder.Id, "cleaned");
+        }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
+        {
+            // the next holder of the lock removes what is left
+        }
+        return archived;
+    }
+
+    /// <summary>Writes the new files and manifest into the staging folder and archives what the plan keeps, after
+    /// checking the space; nothing in the brief's folder is replaced yet. Returns the archive folder written, if
+    /// any.</summary>
+    private static string? Stage(EditionFolder folder, BriefLock held, EditionPlan.Build plan, Manifest? current,
+        IReadOnlyList<(string Name, byte[] Bytes)> files, byte[] manifestBytes, bool durable)
+    {
+        string id = folder.Id, token = held.Info.Token;
+        string staging = folder.Staging(token), stagedNew = Path.Combine(staging, "new");
         string? archived = null;
-        var previous = plan.Archive is { } keep ? keep.Files : state.Files;
         try
         {
             long archiveBytes = plan.Archive is { } a ? a.Files.Sum(f => Length(Path.Combine(folder.Dir, f))) + Length(folder.ManifestPath) : 0;
@@ -110,6 +137,7 @@ public static class EditionTransaction
             }
             if (!held.StillHeld())
                 throw new IOException($"another build took over the lock {held.Path} while this one worked (it judged it abandoned)");
+            return archived;
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
@@ -118,20 +146,33 @@ public static class EditionTransaction
             throw new EditionWriteException($"{ex.Message}; nothing was replaced: the previous files are untouched" +
                 (archived is null ? "" : $" (and kept in {Relative(folder, archived)})"), ex);
         }
+    }
 
-        // The commit point: once the journal exists, the next build finishes this switch (or undoes it).
+    /// <summary>The switch to make: the files to move aside (the manifest first, then the previous edition's files
+    /// and any file the new edition overwrites) and the new ones with their hashes.</summary>
+    private static Journal JournalOf(EditionFolder folder, string token, EditionPlan.Build plan, CurrentEdition state,
+        IReadOnlyList<(string Name, byte[] Bytes)> files, byte[] manifestBytes, string? archived)
+    {
+        var previous = plan.Archive is { } keep ? keep.Files : state.Files;
         var newNames = files.Select(f => f.Name).Append(folder.ManifestName).ToList();
         var old = new List<string>();
         if (File.Exists(folder.ManifestPath)) old.Add(folder.ManifestName);
         foreach (var f in previous.Union(newNames.Where(n => n != folder.ManifestName)))
             if (!old.Contains(f) && File.Exists(Path.Combine(folder.Dir, f))) old.Add(f);
-        var journal = new Journal(id, token, plan.Edition, old, newNames,
+        return new Journal(folder.Id, token, plan.Edition, old, newNames,
             files.ToDictionary(f => f.Name, f => EditionFolder.Sha256(f.Bytes)).Append(new(folder.ManifestName, EditionFolder.Sha256(manifestBytes))).ToDictionary(),
             archived is null ? null : Relative(folder, archived));
+    }
+
+    /// <summary>Writes the journal (the commit point); on failure removes it and the staging folder: nothing
+    /// replaced.</summary>
+    private static void WriteJournal(EditionFolder folder, Journal journal, string staging)
+    {
         try
         {
-            Directory.CreateDirectory(stagedOld);
-            WriteAtomically(folder.JournalPath, JsonSerializer.SerializeToUtf8Bytes(journal, BatchJsonContext.Default.Journal), token);
+            Directory.CreateDirectory(Path.Combine(staging, "old"));
+            WriteAtomically(folder.JournalPath,
+                JsonSerializer.SerializeToUtf8Bytes(journal, BatchJsonContext.Default.Journal), journal.Token);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
         {
@@ -139,9 +180,15 @@ public static class EditionTransaction
             TryDelete(staging);
             throw new EditionWriteException($"{ex.Message}; nothing was replaced: the previous files are untouched", ex);
         }
+    }
+
+    /// <summary>Moves the old files aside and the new ones in; when that fails, moves everything back (or, when even
+    /// that fails, leaves the journal for the next build) and says where the previous files are.</summary>
+    private static void Switch(EditionFolder folder, Journal journal, string staging, string? archived)
+    {
         try
         {
-            FaultSeam.After(id, "journal");
+            FaultSeam.After(folder.Id, "journal");
             Forward(folder, journal);
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -155,26 +202,13 @@ public static class EditionTransaction
             catch (Exception again) when (again is IOException or UnauthorizedAccessException)
             {
                 throw new EditionWriteException($"{ex.Message}; the switch could neither be finished nor undone ({again.Message}): " +
-                    $"{folder.JournalPath} records it and the next build finishes or undoes it; the previous files are in {stagedOld}" +
+                    $"{folder.JournalPath} records it and the next build finishes or undoes it; " +
+                    $"the previous files are in {Path.Combine(staging, "old")}" +
                     (archived is null ? "" : $" and {Relative(folder, archived)}"), ex);
             }
             throw new EditionWriteException($"{ex.Message}; the switch was undone: the previous files are back in place" +
                 (archived is null ? "" : $" (and kept in {Relative(folder, archived)})"), ex);
         }
-        // Switched: from here nothing can make this build fail. A journal left behind finds nothing to do next time.
-        try
-        {
-            FaultSeam.After(id, "switched");
-            File.Delete(folder.JournalPath);
-            FaultSeam.After(id, "committed");
-            TryDelete(staging);
-            FaultSeam.After(id, "cleaned");
-        }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
-        {
-            // the next holder of the lock removes what is left
-        }
-        return archived;
     }
 
     /// <summary>Moves the old files aside (manifest first) and the new ones in (manifest last); safe to repeat after a kill.</summary>

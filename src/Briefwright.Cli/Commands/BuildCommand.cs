@@ -46,92 +46,129 @@ public static class BuildCommand
         {
             paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root, plan, json, formatsOption,
         };
-        command.SetAction(parse =>
-        {
-            var error = io.Err;
-            var given = parse.GetValue(paths)!;
-            if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;
-            string? shardText = parse.GetValue(shard);
-            bool planOnly = parse.GetValue(plan);
-            if (parse.GetValue(json) && !planOnly)
-            {
-                error.WriteLine("briefwright build: --json is for --plan; a build reports in build-log.jsonl (one JSON line per brief).");
-                return ExitCodes.InvalidInput;
-            }
-            // A plan writes nothing, not even a log line.
-            var log = planOnly ? null : new BuildLog(io.Clock, shardText);
-            string? cliOut = parse.GetValue(outDir);
-            if (given.Contains("-"))
-                return Refuse(log, "usage", LogDirs(given, cliOut, null), error,
-                    "briefwright build: '-' (standard input) is for check, solve and diff; build names its files after each scenario, so give the scenario's path.");
-
-            // Project settings: named, or the nearest above each path; every path must belong to the same project.
-            string? settingsPath = parse.GetValue(settingsFile);
-            if (settingsPath is null)
-            {
-                var found = given.Select(ProjectSettings.Find).Distinct().ToList();
-                if (found.Count > 1)
-                    return Refuse(log, "settings", LogDirs(given, cliOut, null), error,
-                        $"briefwright build: the paths belong to different projects ({string.Join(", ", found.Select(f => f ?? "none"))}); build each project on its own or name one with --settings.");
-                settingsPath = found[0];
-            }
-            ProjectSettings? project = null;
-            if (settingsPath is not null)
-            {
-                var loaded = ProjectSettings.Load(settingsPath, new FileSourceReader());
-                if (loaded.Settings is null)
-                {
-                    foreach (var p in loaded.Problems) error.WriteLine(loaded.Sources.Render(p));
-                    return Refuse(log, "settings", LogDirs(given, cliOut, null), TextWriter.Null, loaded.Problems.Select(p => p.Message).ToArray());
-                }
-                project = loaded.Settings;
-            }
-            string? effectiveOut = cliOut ?? project?.Out;
-
-            var files = ScenarioInputs.Expand(given, error, out bool emptyFolder);
-            if (files.Count == 0) return ExitCodes.InvalidInput;
-            var setupErrors = new StringWriter();
-            var setup = Setup(parse.GetValue(template) ?? project?.Template, parse.GetValue(theme) ?? project?.Theme,
-                parse.GetValue(date) ?? project?.Date?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture), shardText, parse.GetValue(jobs), project?.Jobs,
-                parse.GetValue(root), setupErrors, out string stage);
-            if (setup is null)
-            {
-                error.Write(setupErrors.ToString());
-                var messages = setupErrors.ToString().Split('\n').Select(l => l.TrimEnd('\r')).Where(l => l.Length > 0 && !l.StartsWith("    ", StringComparison.Ordinal)).ToArray();
-                return Refuse(log, stage, LogDirs(files, effectiveOut, null, expanded: true), TextWriter.Null, messages);
-            }
-            var (tpl, options, themeHash, day, shardSpec, jobCount) = setup.Value;
-            var formats = project?.Formats ?? OutputFormats.Default;
-            if (parse.GetValue(formatsOption) is { } formatsText)
-            {
-                if (OutputFormats.Parse(formatsText.Split(','), out string? unknown) is not { } parsed)
-                    return Refuse(log, "options", LogDirs(files, effectiveOut, null, expanded: true), error,
-                        $"--formats: must be a comma-separated list of {OutputFormats.Describe(OutputFormats.All)}. Got '{Scenario.Binding.BindContext.Printable(unknown ?? formatsText)}'.");
-                formats = parsed;
-            }
-            options = options with { Formats = formats };
-            if (shardSpec is { } s) files = Shards.Select(files, s.Index, s.Count, project?.Folder);
-            bool images = !parse.GetValue(noImages) && (project?.ChartCopies ?? true);
-            var settings = new BatchSettings(tpl, options, themeHash, effectiveOut, day, parse.GetValue(force), images)
-            {
-                Durable = !parse.GetValue(skipFlush),
-                CsvByteOrderMark = parse.GetValue(csvBom) || (project?.CsvByteOrderMark ?? false),
-                Root = parse.GetValue(root),
-            };
-            if (planOnly)
-            {
-                var plans = BuildPlan.PlanAll(files, settings, jobCount, error);
-                io.Out.Write(parse.GetValue(json) ? BuildPlan.ToJson(plans) : BuildPlan.ToText(plans));
-                return emptyFolder || plans.Any(p => p.Action == "invalid") ? ExitCodes.InvalidInput : ExitCodes.Ok;
-            }
-            bool beQuiet = parse.GetValue(quiet);
-            var progress = new Progress(beQuiet ? TextWriter.Null : io.Out, io.Interactive && !beQuiet, files.Count);
-            var outcomes = Run(files, settings, jobCount, progress, error, log!);
-            if (!beQuiet) io.Out.Write(Summary(outcomes));
-            if (outcomes.Any(o => o.Status is OutcomeStatus.Failed or OutcomeStatus.Stopped)) return ExitCodes.Failed;
-            return emptyFolder || outcomes.Any(o => o.Status == OutcomeStatus.Invalid) ? ExitCodes.InvalidInput : ExitCodes.Ok;
-        });
+        command.SetAction(parse => Execute(io, new Given(
+            parse.GetValue(paths)!, parse.GetValue(template), parse.GetValue(theme), parse.GetValue(outDir),
+            parse.GetValue(date), parse.GetValue(force), parse.GetValue(shard), parse.GetValue(jobs),
+            parse.GetValue(root), parse.GetValue(noImages), parse.GetValue(csvBom), parse.GetValue(skipFlush),
+            parse.GetValue(settingsFile), parse.GetValue(quiet), parse.GetValue(plan), parse.GetValue(json),
+            parse.GetValue(formatsOption))));
         return command;
+    }
+
+    /// <summary>The words given to <c>build</c>, as parsed (null or false where not given).</summary>
+    private sealed record Given(string[] Paths, string? Template, string? Theme, string? Out, string? Date, bool Force,
+        string? Shard, string? Jobs, string? Root, bool NoImages, bool CsvBom, bool SkipFlush, string? Settings,
+        bool Quiet, bool Plan, bool Json, string? Formats);
+
+    /// <summary>Runs <c>build</c>: project settings, then template, theme and options, then the plan or the
+    /// briefs.</summary>
+    private static int Execute(CliIo io, Given given)
+    {
+        var error = io.Err;
+        if (!ScenarioInputs.RootIsValid(given.Root, error)) return ExitCodes.InvalidInput;
+        if (given.Json && !given.Plan)
+        {
+            error.WriteLine("briefwright build: --json is for --plan; a build reports in build-log.jsonl " +
+                "(one JSON line per brief).");
+            return ExitCodes.InvalidInput;
+        }
+        // A plan writes nothing, not even a log line.
+        var log = given.Plan ? null : new BuildLog(io.Clock, given.Shard);
+        if (given.Paths.Contains("-"))
+            return Refuse(log, "usage", LogDirs(given.Paths, given.Out, null), error,
+                "briefwright build: '-' (standard input) is for check, solve and diff; build names its files after " +
+                "each scenario, so give the scenario's path.");
+        if (ReadProject(given, log, error, out var project) is { } refusedSettings) return refusedSettings;
+        string? effectiveOut = given.Out ?? project?.Out;
+
+        var files = ScenarioInputs.Expand(given.Paths, error, out bool emptyFolder);
+        if (files.Count == 0) return ExitCodes.InvalidInput;
+        if (Configure(given, project, effectiveOut, ref files, log, error, out int jobCount) is not { } settings)
+            return ExitCodes.InvalidInput;
+        if (given.Plan)
+        {
+            var plans = BuildPlan.PlanAll(files, settings, jobCount, error);
+            io.Out.Write(given.Json ? BuildPlan.ToJson(plans) : BuildPlan.ToText(plans));
+            return emptyFolder || plans.Any(p => p.Action == "invalid") ? ExitCodes.InvalidInput : ExitCodes.Ok;
+        }
+        var progress = new Progress(given.Quiet ? TextWriter.Null : io.Out, io.Interactive && !given.Quiet,
+            files.Count);
+        var outcomes = Run(files, settings, jobCount, progress, error, log!);
+        if (!given.Quiet) io.Out.Write(Summary(outcomes));
+        if (outcomes.Any(o => o.Status is OutcomeStatus.Failed or OutcomeStatus.Stopped)) return ExitCodes.Failed;
+        return emptyFolder || outcomes.Any(o => o.Status == OutcomeStatus.Invalid)
+            ? ExitCodes.InvalidInput : ExitCodes.Ok;
+    }
+
+    /// <summary>Project settings: named, or the nearest above each path; every path must belong to the same project.
+    /// Returns the exit code of a refusal, or null with <paramref name="project"/> (null when there is none).</summary>
+    private static int? ReadProject(Given given, BuildLog? log, TextWriter error, out ProjectSettings? project)
+    {
+        project = null;
+        string? settingsPath = given.Settings;
+        if (settingsPath is null)
+        {
+            var found = given.Paths.Select(ProjectSettings.Find).Distinct().ToList();
+            if (found.Count > 1)
+                return Refuse(log, "settings", LogDirs(given.Paths, given.Out, null), error,
+                    "briefwright build: the paths belong to different projects " +
+                    $"({string.Join(", ", found.Select(f => f ?? "none"))}); " +
+                    "build each project on its own or name one with --settings.");
+            settingsPath = found[0];
+        }
+        if (settingsPath is null) return null;
+        var loaded = ProjectSettings.Load(settingsPath, new FileSourceReader());
+        if (loaded.Settings is null)
+        {
+            foreach (var p in loaded.Problems) error.WriteLine(loaded.Sources.Render(p));
+            return Refuse(log, "settings", LogDirs(given.Paths, given.Out, null), TextWriter.Null,
+                loaded.Problems.Select(p => p.Message).ToArray());
+        }
+        project = loaded.Settings;
+        return null;
+    }
+
+    /// <summary>The batch's settings from the template, theme and options given (else the project's), with
+    /// <paramref name="files"/> cut to this shard; null after a refusal (printed and logged: exit 2).</summary>
+    private static BatchSettings? Configure(Given given, ProjectSettings? project, string? effectiveOut,
+        ref IReadOnlyList<string> files, BuildLog? log, TextWriter error, out int jobCount)
+    {
+        jobCount = 0;
+        var setupErrors = new StringWriter();
+        var setup = Setup(given.Template ?? project?.Template, given.Theme ?? project?.Theme,
+            given.Date ?? project?.Date?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture), given.Shard, given.Jobs,
+            project?.Jobs, given.Root, setupErrors, out string stage);
+        if (setup is null)
+        {
+            error.Write(setupErrors.ToString());
+            var messages = setupErrors.ToString().Split('\n').Select(l => l.TrimEnd('\r'))
+                .Where(l => l.Length > 0 && !l.StartsWith("    ", StringComparison.Ordinal)).ToArray();
+            Refuse(log, stage, LogDirs(files, effectiveOut, null, expanded: true), TextWriter.Null, messages);
+            return null;
+        }
+        var (tpl, options, themeHash, day, shardSpec, jobs) = setup.Value;
+        var formats = project?.Formats ?? OutputFormats.Default;
+        if (given.Formats is { } formatsText)
+        {
+            if (OutputFormats.Parse(formatsText.Split(','), out string? unknown) is not { } parsed)
+            {
+                Refuse(log, "options", LogDirs(files, effectiveOut, null, expanded: true), error,
+                    $"--formats: must be a comma-separated list of {OutputFormats.Describe(OutputFormats.All)}. " +
+                    $"Got '{Scenario.Binding.BindContext.Printable(unknown ?? formatsText)}'.");
+                return null;
+            }
+            formats = parsed;
+        }
+        options = options with { Formats = formats };
+        if (shardSpec is { } s) files = Shards.Select(files, s.Index, s.Count, project?.Folder);
+        bool images = !given.NoImages && (project?.ChartCopies ?? true);
+        jobCount = jobs;
+        return new BatchSettings(tpl, options, themeHash, effectiveOut, day, given.Force, images)
+        {
+            Durable = !given.SkipFlush,
+            CsvByteOrderMark = given.CsvBom || (project?.CsvByteOrderMark ?? false),
+            Root = given.Root,
+        };
     }
 
     /// <summary>Stops the run before any brief: prints the messages, logs them (one run line per output folder), exit 2.</summary>
@@ -244,68 +281,93 @@ public static class BuildCommand
             jobs = given;
         }
         stage = "template";
-        BriefTemplate tpl;
+        if (ReadTemplate(templatePath, error) is not { } tpl) return null;
+        stage = "theme";
+        if (ReadTheme(themePath, root, error) is not { } theme) return null;
+        var (options, themeHash) = theme;
+        stage = "options";
+        if (!TryParseDate(dateText, error, out DateOnly? day) || !TryParseShard(shardText, error, out var shard))
+            return null;
+        return (tpl, options, themeHash, day, shard, jobs);
+    }
+
+    /// <summary>The template named (the standard one when none is), or null after printing why it cannot be
+    /// used.</summary>
+    private static BriefTemplate? ReadTemplate(string? templatePath, TextWriter error)
+    {
         try
         {
-            if (templatePath is null) tpl = StandardTemplate.Template;
-            else if (!SafeFile.TryReadBytes(templatePath, null, MaxTemplateBytes, out byte[] bytes, out string why))
+            if (templatePath is null) return StandardTemplate.Template;
+            if (!SafeFile.TryReadBytes(templatePath, null, MaxTemplateBytes, out byte[] bytes, out string why))
             {
                 error.WriteLine($"{templatePath}:1:1: cannot read the template ({why}).");
                 return null;
             }
-            else tpl = BriefTemplate.Parse(SafeFile.Decode(bytes), templatePath);
+            return BriefTemplate.Parse(SafeFile.Decode(bytes), templatePath);
         }
         catch (TemplateException ex)
         {
             foreach (var line in StageErrors.Describe(ex, templatePath ?? "template").Lines.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(line);
             return null;
         }
-        stage = "theme";
+    }
+
+    /// <summary>The build options of the theme named (its fonts and logo) and the hash that stands for it in the
+    /// manifest; the defaults and "standard" when none is named; null after printing the theme's problems.</summary>
+    private static (BuildOptions Options, string Hash)? ReadTheme(string? themePath, string? root, TextWriter error)
+    {
         var options = BuildOptions.Default;
         string themeHash = "standard";
-        if (themePath is not null)
+        if (themePath is null) return (options, themeHash);
+        var (spec, problems, sources) = ThemeLoader.Load(themePath, new FileSourceReader(), root);
+        ScenarioInputs.Print(problems, sources, error);
+        if (spec is null) return null;
+        options = options with { Theme = spec };
+        themeHash = sources.Hash(); // the theme text as read by the loader; no second read
+        if (spec.FontFiles.TryGetValue("regular", out byte[]? regular))
         {
-            var (spec, problems, sources) = ThemeLoader.Load(themePath, new FileSourceReader(), root);
-            ScenarioInputs.Print(problems, sources, error);
-            if (spec is null) return null;
-            options = options with { Theme = spec };
-            themeHash = sources.Hash(); // the theme text as read by the loader; no second read
-            if (spec.FontFiles.TryGetValue("regular", out byte[]? regular))
-            {
-                byte[] bold = spec.FontFiles.GetValueOrDefault("bold", regular);
-                var fonts = (regular, bold, spec.FontFiles.GetValueOrDefault("italic", regular), spec.FontFiles.GetValueOrDefault("bold_italic", bold));
-                options = options with { Fonts = fonts };
-                themeHash = Sha256Hex.Of(themeHash + string.Concat(new[] { fonts.regular, fonts.bold, fonts.Item3, fonts.Item4 }
-                    .Select(b => Sha256Hex.Upper(b))));
-            }
-            if (spec.Logo is { } png)
-            {
-                options = options with { Logo = png };
-                themeHash = Sha256Hex.Of(themeHash + Sha256Hex.Upper(png.Png));
-            }
+            byte[] bold = spec.FontFiles.GetValueOrDefault("bold", regular);
+            var fonts = (regular, bold, spec.FontFiles.GetValueOrDefault("italic", regular),
+                spec.FontFiles.GetValueOrDefault("bold_italic", bold));
+            options = options with { Fonts = fonts };
+            themeHash = Sha256Hex.Of(themeHash + string.Concat(
+                new[] { fonts.regular, fonts.bold, fonts.Item3, fonts.Item4 }.Select(b => Sha256Hex.Upper(b))));
         }
-        stage = "options";
-        DateOnly? day = null;
-        if (dateText is not null)
+        if (spec.Logo is { } png)
         {
-            if (!DateOnly.TryParseExact(dateText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var parsed))
-            {
-                error.WriteLine($"--date: must be a date written YYYY-MM-DD. Got '{dateText}'.");
-                return null;
-            }
-            day = parsed;
+            options = options with { Logo = png };
+            themeHash = Sha256Hex.Of(themeHash + Sha256Hex.Upper(png.Png));
         }
-        (int, int)? shard = null;
-        if (shardText is not null)
+        return (options, themeHash);
+    }
+
+    /// <summary>The --date value (null when not given); false after printing why it is not a date.</summary>
+    private static bool TryParseDate(string? dateText, TextWriter error, out DateOnly? day)
+    {
+        day = null;
+        if (dateText is null) return true;
+        if (!DateOnly.TryParseExact(dateText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None,
+                out var parsed))
         {
-            if (!Shards.TryParse(shardText, out int k, out int n))
-            {
-                error.WriteLine($"--shard: must be K/N with 1 ≤ K ≤ N, such as 3/16. Got '{shardText}'.");
-                return null;
-            }
-            shard = (k, n);
+            error.WriteLine($"--date: must be a date written YYYY-MM-DD. Got '{dateText}'.");
+            return false;
         }
-        return (tpl, options, themeHash, day, shard, jobs);
+        day = parsed;
+        return true;
+    }
+
+    /// <summary>The --shard value K/N (null when not given); false after printing why it is not one.</summary>
+    private static bool TryParseShard(string? shardText, TextWriter error, out (int Index, int Count)? shard)
+    {
+        shard = null;
+        if (shardText is null) return true;
+        if (!Shards.TryParse(shardText, out int k, out int n))
+        {
+            error.WriteLine($"--shard: must be K/N with 1 ≤ K ≤ N, such as 3/16. Got '{shardText}'.");
+            return false;
+        }
+        shard = (k, n);
+        return true;
     }
 
     public static string Summary(IReadOnlyList<BriefOutcome> outcomes)

@@ -18,7 +18,14 @@ public static class InitCommand
     public static IReadOnlyList<(string Path, string Text)> Files() =>
     [
         (ExampleScenario, ExampleScenarioText()),
-        (Theme, """
+        (Theme, ThemeText),
+        (Template, StandardTemplate.Text),
+        (ProjectSettings.FileName, SettingsText),
+        ("scheduled/crontab.example", CrontabText),
+        ("scheduled/rebuild-briefs.yml", PipelineText),
+    ];
+
+    private const string ThemeText = """
                 # INVENTED example theme made by `briefwright init`: replace the name, colours and footer with your
                 # organisation's. Fields: docs/themes.md; schema: `briefwright schema theme`.
                 name: Example house style (invented)
@@ -32,9 +39,9 @@ public static class InitCommand
                   header_fill: "#DCE9E3"
                 footer: "Example Institute (invented) · Model illustration, not a forecast"
 
-                """),
-        (Template, StandardTemplate.Text),
-        (ProjectSettings.FileName, $"""
+                """;
+
+    private const string SettingsText = $"""
                 # briefwright project settings: the defaults `briefwright build` uses for the scenarios in this folder
                 # (and folders below it). Options on the command line win. Paths are relative to this file.
                 # Fields: README ("Rebuilds, editions and the data annex"); schema: `briefwright schema settings`.
@@ -47,16 +54,18 @@ public static class InitCommand
                 chart_copies: true
                 csv_byte_order_mark: false
 
-                """),
-        ("scheduled/crontab.example", """
+                """;
+
+    private const string CrontabText = """
                 # Rebuild the briefs of this project at 06:00 UTC on the first day of every month (install with
                 # `crontab -e`; replace /srv/briefs with this folder and /opt/briefwright with where the tool is).
                 # Unchanged briefs are skipped; every attempt is logged in out/build-log.jsonl.
                 CRON_TZ=UTC
                 0 6 1 * * cd /srv/briefs && /opt/briefwright/briefwright build . --quiet || echo "briefwright: exit $?, see out/build-log.jsonl" >&2
 
-                """),
-        ("scheduled/rebuild-briefs.yml", """
+                """;
+
+    private const string PipelineText = """
                 # Example CI pipeline (the common YAML workflow format of hosted CI services): rebuilds the briefs on a
                 # schedule and when a scenario changes, and keeps the output folder as the run's artifact.
                 name: rebuild-briefs
@@ -83,8 +92,7 @@ public static class InitCommand
                           name: briefs
                           path: out/
 
-                """),
-    ];
+                """;
 
     private static string ExampleScenarioText()
     {

@@ -58,6 +58,16 @@ public static partial class ReproducibleBytes
             foreach (Match m in PdfDate().Matches(t.Value))
                 t.Overwrite(m.Groups[1].Index, stamp);
 
+        var fields = RandomFields(texts);
+        var seeds = Mask(fields);
+        Refill(fields, seeds, Sha256Hex.Digest(file.Write()));
+        return file.Write();
+    }
+
+    /// <summary>The random fields in the text of objects and the trailer: font-subset tags, the document /ID, XMP
+    /// uuids and annotation names.</summary>
+    private static List<Field> RandomFields(List<PdfObjects.Text> texts)
+    {
         var fields = new List<Field>();
         foreach (var t in texts)
         {
@@ -71,8 +81,13 @@ public static partial class ReproducibleBytes
             foreach (Match m in Uuid().Matches(s)) fields.Add(new Field(t, m.Groups[1].Index, 36, 'U'));
             foreach (Match m in AnnotationName().Matches(s)) fields.Add(new Field(t, m.Groups[1].Index, m.Groups[1].Length, 'H'));
         }
+        return fields;
+    }
 
-        // Subset tags name the same font in several places: the same tag must map to the same replacement.
+    /// <summary>Overwrites every field with zeros (a uuid keeps its dashes) and returns each field's seed: subset
+    /// tags name the same font in several places, so the same tag gets the same seed (the others get -1).</summary>
+    private static Dictionary<Field, int> Mask(List<Field> fields)
+    {
         var tagMap = new Dictionary<string, int>(StringComparer.Ordinal);
         foreach (var f in fields.Where(f => f.Kind == 'A'))
             tagMap.TryAdd(f.Text.Value.Substring(f.Start, 6), tagMap.Count);
@@ -85,8 +100,13 @@ public static partial class ReproducibleBytes
                 if (f.Kind != 'U' || mask[i] != '-') mask[i] = '0';
             f.Text.Overwrite(f.Start, mask.ToString());
         }
+        return seeds;
+    }
 
-        byte[] digest = Sha256Hex.Digest(file.Write());
+    /// <summary>Fills every masked field from the hash of the masked file, in the order the fields stand in
+    /// it.</summary>
+    private static void Refill(List<Field> fields, Dictionary<Field, int> seeds, byte[] digest)
+    {
         int n = 0;
         foreach (var f in fields.OrderBy(f => f.Text.Order).ThenBy(f => f.Start))
         {
@@ -106,7 +126,6 @@ public static partial class ReproducibleBytes
             }
             f.Text.Overwrite(f.Start, fill.ToString());
         }
-        return file.Write();
     }
 
     /// <summary>Sets the XMP dates to the brief's date and adds the PDF/UA identification if it is missing.</summary>

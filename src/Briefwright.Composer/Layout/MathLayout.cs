@@ -107,6 +107,13 @@ public static class MathNotation
             return new Sym(c.ToString(), char.IsAsciiLetter(c));
         }
         i++;
+        return ParseCommand(s, ref i, line);
+    }
+
+    /// <summary>A command after its backslash: an escaped character or space, or a named command (fraction, hat,
+    /// large operator, text, space, Greek letter, symbol or function name).</summary>
+    private static Node ParseCommand(string s, ref int i, int line)
+    {
         if (i < s.Length && !char.IsAsciiLetter(s[i]))
         {
             char e = s[i++];
@@ -223,19 +230,8 @@ public sealed class MathBox
         switch (node)
         {
             case MathNotation.Sym s:
-            {
-                if (s.Text.Length == 0) break;
-                var font = new FontSpec(s.Italic ? RunStyle.Italic : RunStyle.Regular, size);
-                bool op = s.Spoken is { } sp && sp.StartsWith(' ') && sp.EndsWith(' ') && s.Text.Length == 1
-                    && !char.IsLetter(s.Text[0]);
-                double pad = op ? 0.22 * size : 0;
-                double w = measurer.Width(s.Text, font);
-                box.Glyphs.Add(new Glyph(s.Text, pad, 0, font));
-                box.Width = w + 2 * pad + (s.Italic ? 0.04 * size : 0);
-                box.Ascent = 0.72 * size;
-                box.Descent = 0.21 * size;
+                if (s.Text.Length > 0) box.AddSymbol(s, size, measurer);
                 break;
-            }
             case MathNotation.Space sp:
                 box.Width = sp.Em * size;
                 break;
@@ -243,68 +239,101 @@ public sealed class MathBox
                 foreach (var item in q.Items) box.Add(Layout(item, size, measurer), box.Width, 0);
                 break;
             case MathNotation.Hat h:
-            {
-                var body = Layout(h.Body, size, measurer);
-                box.Add(body, 0, 0);
-                double top = -body.Ascent - 0.12 * size, mid = body.Width / 2 + 0.06 * size, half = 0.22 * size;
-                box.Rules.Add(new Rule(mid - half, mid, top, -0.18 * size));
-                box.Rules.Add(new Rule(mid, mid + half, top - 0.18 * size, 0.18 * size));
-                box.Ascent = Math.Max(box.Ascent, body.Ascent + 0.36 * size);
+                box.AddHat(h, size, measurer);
                 break;
-            }
             case MathNotation.Frac f:
-            {
-                double inner = size * 0.9, axis = 0.27 * size, gap = 0.18 * size, pad = 0.12 * size;
-                var num = Layout(f.Num, inner, measurer);
-                var den = Layout(f.Den, inner, measurer);
-                double w = Math.Max(num.Width, den.Width) + 2 * pad;
-                box.Add(num, (w - num.Width) / 2, -axis - gap - num.Descent);
-                box.Add(den, (w - den.Width) / 2, -axis + gap + den.Ascent);
-                box.Rules.Add(new Rule(0, w, -axis, 0));
-                box.Width = w + 0.1 * size;
+                box.AddFraction(f, size, measurer);
                 break;
-            }
             case MathNotation.BigOp b:
-            {
-                double big = size * (b.LimitsBelow ? 1.5 : 2.0);
-                var font = new FontSpec(RunStyle.Regular, big);
-                double w = measurer.Width(b.Symbol, font);
-                // The glyph spans about 0.75 of its size above its baseline and 0.2 below; its middle goes on the
-                // maths axis, 0.27 of the text size above the text's baseline.
-                double dy = 0.275 * big - 0.27 * size;
-                box.Glyphs.Add(new Glyph(b.Symbol, 0.05 * size, dy, font));
-                box.Width = w + 0.15 * size;
-                box.Ascent = 0.75 * big - dy;
-                box.Descent = 0.2 * big + dy;
+                box.AddBigOperator(b, size, measurer);
                 break;
-            }
             case MathNotation.Script sc:
-            {
-                var baseBox = Layout(sc.Base, size, measurer);
-                box.Add(baseBox, 0, 0);
-                double small = size * 0.7;
-                var sub = sc.Sub is null ? null : Layout(sc.Sub, small, measurer);
-                var sup = sc.Sup is null ? null : Layout(sc.Sup, small, measurer);
-                if (sc.Base is MathNotation.BigOp { LimitsBelow: true })
-                {
-                    double w = Math.Max(baseBox.Width, Math.Max(sub?.Width ?? 0, sup?.Width ?? 0));
-                    box = new MathBox();
-                    box.Add(baseBox, (w - baseBox.Width) / 2, 0);
-                    if (sup is not null) box.Add(sup, (w - sup.Width) / 2, -baseBox.Ascent - 0.1 * size - sup.Descent);
-                    if (sub is not null) box.Add(sub, (w - sub.Width) / 2, baseBox.Descent + 0.1 * size + sub.Ascent);
-                    box.Width = w + 0.15 * size;
-                    break;
-                }
-                bool op = sc.Base is MathNotation.BigOp;
-                double x = baseBox.Width - (op ? 0.1 * size : 0);
-                double up = op ? baseBox.Ascent - 0.55 * small : Math.Max(0.42 * size, baseBox.Ascent - 0.45 * size);
-                double down = op ? baseBox.Descent - 0.05 * small : 0.22 * size;
-                if (sup is not null) box.Add(sup, x + (op ? 0.1 * size : 0), -up);
-                if (sub is not null) box.Add(sub, x - (op ? 0.15 * size : 0), down);
-                box.Width = Math.Max(box.Width, x + Math.Max(sup?.Width ?? 0, sub?.Width ?? 0) + 0.05 * size);
-                break;
-            }
+                return Scripts(sc, size, measurer);
         }
+        return box;
+    }
+
+    /// <summary>A symbol in italic or upright type; an operator (spoken with spaces round it) gets space on both
+    /// sides.</summary>
+    private void AddSymbol(MathNotation.Sym s, double size, ITextMeasurer measurer)
+    {
+        var font = new FontSpec(s.Italic ? RunStyle.Italic : RunStyle.Regular, size);
+        bool op = s.Spoken is { } sp && sp.StartsWith(' ') && sp.EndsWith(' ') && s.Text.Length == 1
+                  && !char.IsLetter(s.Text[0]);
+        double pad = op ? 0.22 * size : 0;
+        double w = measurer.Width(s.Text, font);
+        Glyphs.Add(new Glyph(s.Text, pad, 0, font));
+        Width = w + 2 * pad + (s.Italic ? 0.04 * size : 0);
+        Ascent = 0.72 * size;
+        Descent = 0.21 * size;
+    }
+
+    /// <summary>The body with a circumflex drawn as two rules above it.</summary>
+    private void AddHat(MathNotation.Hat h, double size, ITextMeasurer measurer)
+    {
+        var body = Layout(h.Body, size, measurer);
+        Add(body, 0, 0);
+        double top = -body.Ascent - 0.12 * size, mid = body.Width / 2 + 0.06 * size, half = 0.22 * size;
+        Rules.Add(new Rule(mid - half, mid, top, -0.18 * size));
+        Rules.Add(new Rule(mid, mid + half, top - 0.18 * size, 0.18 * size));
+        Ascent = Math.Max(Ascent, body.Ascent + 0.36 * size);
+    }
+
+    /// <summary>Numerator over denominator, a little smaller, centred about a rule on the maths axis.</summary>
+    private void AddFraction(MathNotation.Frac f, double size, ITextMeasurer measurer)
+    {
+        double inner = size * 0.9, axis = 0.27 * size, gap = 0.18 * size, pad = 0.12 * size;
+        var num = Layout(f.Num, inner, measurer);
+        var den = Layout(f.Den, inner, measurer);
+        double w = Math.Max(num.Width, den.Width) + 2 * pad;
+        Add(num, (w - num.Width) / 2, -axis - gap - num.Descent);
+        Add(den, (w - den.Width) / 2, -axis + gap + den.Ascent);
+        Rules.Add(new Rule(0, w, -axis, 0));
+        Width = w + 0.1 * size;
+    }
+
+    /// <summary>A large operator (sum, integral), its middle on the maths axis.</summary>
+    private void AddBigOperator(MathNotation.BigOp b, double size, ITextMeasurer measurer)
+    {
+        double big = size * (b.LimitsBelow ? 1.5 : 2.0);
+        var font = new FontSpec(RunStyle.Regular, big);
+        double w = measurer.Width(b.Symbol, font);
+        // The glyph spans about 0.75 of its size above its baseline and 0.2 below; its middle goes on the
+        // maths axis, 0.27 of the text size above the text's baseline.
+        double dy = 0.275 * big - 0.27 * size;
+        Glyphs.Add(new Glyph(b.Symbol, 0.05 * size, dy, font));
+        Width = w + 0.15 * size;
+        Ascent = 0.75 * big - dy;
+        Descent = 0.2 * big + dy;
+    }
+
+    /// <summary>A base with a subscript and superscript: beside it, or centred above and below a large operator
+    /// whose limits go below.</summary>
+    private static MathBox Scripts(MathNotation.Script sc, double size, ITextMeasurer measurer)
+    {
+        var box = new MathBox();
+        var baseBox = Layout(sc.Base, size, measurer);
+        box.Add(baseBox, 0, 0);
+        double small = size * 0.7;
+        var sub = sc.Sub is null ? null : Layout(sc.Sub, small, measurer);
+        var sup = sc.Sup is null ? null : Layout(sc.Sup, small, measurer);
+        if (sc.Base is MathNotation.BigOp { LimitsBelow: true })
+        {
+            double w = Math.Max(baseBox.Width, Math.Max(sub?.Width ?? 0, sup?.Width ?? 0));
+            box = new MathBox();
+            box.Add(baseBox, (w - baseBox.Width) / 2, 0);
+            if (sup is not null) box.Add(sup, (w - sup.Width) / 2, -baseBox.Ascent - 0.1 * size - sup.Descent);
+            if (sub is not null) box.Add(sub, (w - sub.Width) / 2, baseBox.Descent + 0.1 * size + sub.Ascent);
+            box.Width = w + 0.15 * size;
+            return box;
+        }
+        bool op = sc.Base is MathNotation.BigOp;
+        double x = baseBox.Width - (op ? 0.1 * size : 0);
+        double up = op ? baseBox.Ascent - 0.55 * small : Math.Max(0.42 * size, baseBox.Ascent - 0.45 * size);
+        double down = op ? baseBox.Descent - 0.05 * small : 0.22 * size;
+        if (sup is not null) box.Add(sup, x + (op ? 0.1 * size : 0), -up);
+        if (sub is not null) box.Add(sub, x - (op ? 0.15 * size : 0), down);
+        box.Width = Math.Max(box.Width, x + Math.Max(sup?.Width ?? 0, sub?.Width ?? 0) + 0.05 * size);
         return box;
     }
 }

@@ -23,70 +23,85 @@ public static class Paginator
                     $"{Capitalise(atom.Describe())} is {atom.Height:0} pt tall and cannot fit on a page " +
                     $"({pageHeight:0} pt of content height): shorten it or split it.");
 
-        var pages = new List<List<Placement>> { new() };
-        double y = 0;
-        List<Atom>? waiting = null;
-
-        void NewPage(Atom? continuing)
-        {
-            pages.Add(new List<Placement>());
-            y = 0;
-            if (continuing?.RepeatHeader is { } header && !ReferenceEquals(header, continuing))
-            {
-                pages[^1].Add(new Placement(header, 0));
-                y = header.Height;
-            }
-        }
-
-        void Place(Atom atom)
-        {
-            double space = y == 0 ? 0 : atom.SpaceBefore;
-            pages[^1].Add(new Placement(atom, y + space));
-            y += space + atom.Height;
-        }
-
-        void PlaceWaiting()
-        {
-            if (y > 0) NewPage(null);
-            foreach (var a in waiting!) Place(a);
-            waiting = null;
-        }
-
+        var pages = new Pages();
         int i = 0;
         while (i < atoms.Count)
         {
             var atom = atoms[i];
-            if (atom.Float is { } f && waiting is null)
+            if (atom.Float is not null && pages.Waiting is null
+                && WaitingFloatEnd(atoms, i, pages.Y, pageHeight) is { } end)
             {
-                int end = i;
-                while (end + 1 < atoms.Count && atoms[end + 1].Float == f) end++;
-                double height = (y == 0 ? 0 : atom.SpaceBefore) + atom.Height;
-                for (int k = i + 1; k <= end; k++) height += atoms[k].SpaceBefore + atoms[k].Height;
-                if (y > 0 && y + height > pageHeight && pageHeight - y > FloatGap * pageHeight && end + 1 < atoms.Count
-                    && !atoms[end + 1].BreakBefore && atoms[end + 1].Float is null)
-                {
-                    waiting = atoms.Skip(i).Take(end - i + 1).ToList();
-                    i = end + 1;
-                    continue;
-                }
+                pages.Waiting = atoms.Skip(i).Take(end - i + 1).ToList();
+                i = end + 1;
+                continue;
             }
 
-            double chain = Chain(atoms, i, y == 0 ? 0 : atom.SpaceBefore, pageHeight);
-            if (waiting is not null && (atom.BreakBefore || atom.Float is not null || y + chain > pageHeight))
+            double chain = Chain(atoms, i, pages.Y == 0 ? 0 : atom.SpaceBefore, pageHeight);
+            if (pages.Waiting is not null
+                && (atom.BreakBefore || atom.Float is not null || pages.Y + chain > pageHeight))
             {
                 // The page is as full as the text allows: the waiting float opens the next page (and a table that
                 // continues after it repeats its header row).
-                PlaceWaiting();
+                pages.PlaceWaiting();
                 if (!atom.BreakBefore && atom.RepeatHeader is { } header && !ReferenceEquals(header, atom))
-                    Place(header);
+                    pages.Place(header);
                 continue;
             }
-            if (y > 0 && (atom.BreakBefore || y + chain > pageHeight)) NewPage(atom);
-            Place(atom);
+            if (pages.Y > 0 && (atom.BreakBefore || pages.Y + chain > pageHeight)) pages.NewPage(atom);
+            pages.Place(atom);
             i++;
         }
-        if (waiting is not null) PlaceWaiting();
-        return pages;
+        if (pages.Waiting is not null) pages.PlaceWaiting();
+        return pages.List;
+    }
+
+    /// <summary>The pages placed so far, the height used on the last one, and the float waiting for the next
+    /// page.</summary>
+    private sealed class Pages
+    {
+        public List<List<Placement>> List { get; } = [new()];
+        public double Y { get; private set; }
+        public List<Atom>? Waiting { get; set; }
+
+        public void NewPage(Atom? continuing)
+        {
+            List.Add(new List<Placement>());
+            Y = 0;
+            if (continuing?.RepeatHeader is { } header && !ReferenceEquals(header, continuing))
+            {
+                List[^1].Add(new Placement(header, 0));
+                Y = header.Height;
+            }
+        }
+
+        public void Place(Atom atom)
+        {
+            double space = Y == 0 ? 0 : atom.SpaceBefore;
+            List[^1].Add(new Placement(atom, Y + space));
+            Y += space + atom.Height;
+        }
+
+        public void PlaceWaiting()
+        {
+            if (Y > 0) NewPage(null);
+            foreach (var a in Waiting!) Place(a);
+            Waiting = null;
+        }
+    }
+
+    /// <summary>The index of the last atom of the float that starts at <paramref name="i"/> when that float waits for
+    /// the next page: it does not fit, more than <see cref="FloatGap"/> of the page is left, and text that can fill
+    /// the page follows it. Null when the float is placed where it stands.</summary>
+    private static int? WaitingFloatEnd(IReadOnlyList<Atom> atoms, int i, double y, double pageHeight)
+    {
+        var atom = atoms[i];
+        int end = i;
+        while (end + 1 < atoms.Count && atoms[end + 1].Float == atom.Float) end++;
+        double height = (y == 0 ? 0 : atom.SpaceBefore) + atom.Height;
+        for (int k = i + 1; k <= end; k++) height += atoms[k].SpaceBefore + atoms[k].Height;
+        bool waits = y > 0 && y + height > pageHeight && pageHeight - y > FloatGap * pageHeight && end + 1 < atoms.Count
+                     && !atoms[end + 1].BreakBefore && atoms[end + 1].Float is null;
+        return waits ? end : null;
     }
 
     /// <summary>

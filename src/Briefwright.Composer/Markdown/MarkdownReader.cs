@@ -67,31 +67,7 @@ public static partial class MarkdownReader
                 blocks.Add(new Document.HeadingBlock(h.Level, PlainText(h.Inline)));
                 break;
             case ParagraphBlock p:
-                var runs = Runs(p.Inline);
-                string plain = string.Concat(runs.Select(r => r.Text)).Trim();
-                // A directive is written as [[...]] in the template itself; escaped brackets (\[\[, as text from a
-                // scenario is written) read back as the same characters but are text, never a directive.
-                bool written = p.Span.Start >= 0 && p.Span.End < markdown.Length
-                    && markdown.AsSpan(p.Span.Start, p.Span.Length).TrimStart()
-                        .StartsWith("[[", StringComparison.Ordinal);
-                // A display equation: a paragraph written $$ … $$ in the template, read from its source text so that
-                // Markdown never touches its backslashes, underscores and stars.
-                string raw = p.Span.Start >= 0 && p.Span.End < markdown.Length
-                    ? markdown.Substring(p.Span.Start, p.Span.Length).Trim()
-                    : "";
-                if (raw.Length >= 4 && raw.StartsWith("$$", StringComparison.Ordinal)
-                    && raw.EndsWith("$$", StringComparison.Ordinal))
-                {
-                    blocks.Add(new Document.MathBlock(raw[2..^2].Replace('\n', ' ').Trim(), p.Line + 1));
-                    break;
-                }
-                var m = Directive().Match(written ? plain : "");
-                if (m.Success)
-                {
-                    Apply(m.Groups[1].Value, m.Groups[2].Value, plain, p.Line + 1, blocks, figures, ref caption);
-                    break;
-                }
-                blocks.Add(new Document.ParagraphBlock(runs));
+                Paragraph(markdown, p, blocks, figures, ref caption);
                 break;
             case ListBlock l:
                 var items = l.OfType<ListItemBlock>().Select(item => (IReadOnlyList<TextRun>)item
@@ -106,17 +82,7 @@ public static partial class MarkdownReader
                 caption = null;
                 break;
             case QuoteBlock q:
-                var inner = new List<Block>();
-                (string, string?)? none = null;
-                foreach (var child in q) Convert(markdown, child, inner, figures, ref none);
-                string? title = null;
-                if (inner.FirstOrDefault() is Document.ParagraphBlock first
-                    && first.Runs.All(r => r.Style == RunStyle.Bold))
-                {
-                    title = string.Concat(first.Runs.Select(r => r.Text));
-                    inner.RemoveAt(0);
-                }
-                blocks.Add(new BoxBlock(title, inner));
+                blocks.Add(Quote(markdown, q, figures));
                 break;
             case ThematicBreakBlock:
                 break;
@@ -125,6 +91,58 @@ public static partial class MarkdownReader
                     $"{node.GetType().Name.Replace("Block", " block").ToLowerInvariant()}, which briefs do not " +
                     "support; use paragraphs, lists, tables, headings or a quote.", node.Line + 1);
         }
+    }
+
+    /// <summary>A paragraph: a display equation ($$ … $$), a directive written [[...]] in the template, or
+    /// text.</summary>
+    private static void Paragraph(
+        string markdown,
+        ParagraphBlock p,
+        List<Block> blocks,
+        IReadOnlyDictionary<string, FigureBlock> figures,
+        ref (string Caption, string? Source)? caption)
+    {
+        var runs = Runs(p.Inline);
+        string plain = string.Concat(runs.Select(r => r.Text)).Trim();
+        // A directive is written as [[...]] in the template itself; escaped brackets (\[\[, as text from a
+        // scenario is written) read back as the same characters but are text, never a directive.
+        bool written = p.Span.Start >= 0 && p.Span.End < markdown.Length
+            && markdown.AsSpan(p.Span.Start, p.Span.Length).TrimStart()
+                .StartsWith("[[", StringComparison.Ordinal);
+        // A display equation: a paragraph written $$ … $$ in the template, read from its source text so that
+        // Markdown never touches its backslashes, underscores and stars.
+        string raw = p.Span.Start >= 0 && p.Span.End < markdown.Length
+            ? markdown.Substring(p.Span.Start, p.Span.Length).Trim()
+            : "";
+        if (raw.Length >= 4 && raw.StartsWith("$$", StringComparison.Ordinal)
+            && raw.EndsWith("$$", StringComparison.Ordinal))
+        {
+            blocks.Add(new Document.MathBlock(raw[2..^2].Replace('\n', ' ').Trim(), p.Line + 1));
+            return;
+        }
+        var m = Directive().Match(written ? plain : "");
+        if (m.Success)
+        {
+            Apply(m.Groups[1].Value, m.Groups[2].Value, plain, p.Line + 1, blocks, figures, ref caption);
+            return;
+        }
+        blocks.Add(new Document.ParagraphBlock(runs));
+    }
+
+    /// <summary>A quote: a box, titled by its first paragraph when that is all bold.</summary>
+    private static BoxBlock Quote(string markdown, QuoteBlock q, IReadOnlyDictionary<string, FigureBlock> figures)
+    {
+        var inner = new List<Block>();
+        (string, string?)? none = null;
+        foreach (var child in q) Convert(markdown, child, inner, figures, ref none);
+        string? title = null;
+        if (inner.FirstOrDefault() is Document.ParagraphBlock first
+            && first.Runs.All(r => r.Style == RunStyle.Bold))
+        {
+            title = string.Concat(first.Runs.Select(r => r.Text));
+            inner.RemoveAt(0);
+        }
+        return new BoxBlock(title, inner);
     }
 
     private static void Apply(

@@ -98,69 +98,86 @@ public static class YamlTreeReader
             switch (ev)
             {
                 case Scalar s:
-                {
-                    // A tag says how to read the scalar: !!str (and the non-specific !) make it text even when it looks
-                    // like a number; !!int, !!float, !!bool and !!null make it a plain value; any other tag is refused.
-                    bool quoted = s.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted or ScalarStyle.Literal or ScalarStyle.Folded;
-                    string tag = s.Tag.IsEmpty ? "" : s.Tag.Value;
-                    switch (tag)
-                    {
-                        case "" or "?":
-                            break;
-                        case "!" or "tag:yaml.org,2002:str":
-                            quoted = true;
-                            break;
-                        case "tag:yaml.org,2002:int" or "tag:yaml.org,2002:float" or "tag:yaml.org,2002:bool" or "tag:yaml.org,2002:null":
-                            quoted = false;
-                            break;
-                        default:
-                            problems.Add(new Diagnostic(Span(s.Start), path, "unsupported YAML tag; only !!str, !!int, !!float, !!bool and !!null are read", $"'{BindingText(tag)}'"));
-                            break;
-                    }
-                    return Remember(s.Anchor, new YScalar(s.Value, quoted, Span(s.Start)));
-                }
+                    return ReadScalar(s, path);
                 case AnchorAlias a:
                     if (++aliases > MaxAliases)
                         throw new LimitException(new Diagnostic(Span(a.Start), "", $"more than {MaxAliases} aliases", $"*{a.Value}"));
                     if (anchors.TryGetValue(a.Value.Value, out var target)) return target;
                     throw new LimitException(new Diagnostic(Span(a.Start), "", "alias refers to an anchor that is not defined before it", $"*{a.Value}"));
                 case SequenceStart ss:
-                {
-                    CheckTag(ss.Tag, "tag:yaml.org,2002:seq", ss.Start, path);
-                    var items = new List<YNode>();
-                    while (parser.Current is not SequenceEnd and not null) items.Add(ReadNode(depth + 1, $"{path}[{items.Count}]"));
-                    parser.MoveNext();
-                    return Remember(ss.Anchor, new YSequence(items, Span(ss.Start)));
-                }
+                    return ReadSequence(ss, depth, path);
                 case MappingStart ms:
-                {
-                    CheckTag(ms.Tag, "tag:yaml.org,2002:map", ms.Start, path);
-                    var entries = new List<KeyValuePair<YScalar, YNode>>();
-                    var seen = new Dictionary<string, YScalar>(StringComparer.Ordinal);
-                    while (parser.Current is not MappingEnd and not null)
-                    {
-                        var keyNode = ReadNode(depth + 1, path);
-                        string childPath = keyNode is YScalar k ? (path.Length == 0 ? k.Value : $"{path}.{k.Value}") : path;
-                        var value = ReadNode(depth + 1, childPath);
-                        if (keyNode is not YScalar key)
-                        {
-                            problems.Add(new Diagnostic(keyNode.At, "", "mapping keys must be plain names", keyNode.Kind));
-                            continue;
-                        }
-                        if (seen.TryGetValue(key.Value, out var first))
-                        {
-                            problems.Add(new Diagnostic(key.At, childPath, $"duplicate key; first given at line {first.At.Line}", $"'{key.Value}' again"));
-                            continue;
-                        }
-                        seen[key.Value] = key;
-                        entries.Add(new(key, value));
-                    }
-                    parser.MoveNext();
-                    return Remember(ms.Anchor, new YMapping(entries, Span(ms.Start)));
-                }
+                    return ReadMapping(ms, depth, path);
                 default:
                     throw new YamlException(ev.Start, ev.End, $"unexpected {ev.GetType().Name}");
             }
+        }
+
+        private YNode ReadScalar(Scalar s, string path)
+        {
+            // A tag says how to read the scalar: !!str (and the non-specific !) make it text even when it looks
+            // like a number; !!int, !!float, !!bool and !!null make it a plain value; any other tag is refused.
+            bool quoted = s.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted or ScalarStyle.Literal
+                or ScalarStyle.Folded;
+            string tag = s.Tag.IsEmpty ? "" : s.Tag.Value;
+            switch (tag)
+            {
+                case "" or "?":
+                    break;
+                case "!" or "tag:yaml.org,2002:str":
+                    quoted = true;
+                    break;
+                case "tag:yaml.org,2002:int" or "tag:yaml.org,2002:float" or "tag:yaml.org,2002:bool"
+                    or "tag:yaml.org,2002:null":
+                    quoted = false;
+                    break;
+                default:
+                    problems.Add(new Diagnostic(Span(s.Start), path,
+                        "unsupported YAML tag; only !!str, !!int, !!float, !!bool and !!null are read",
+                        $"'{BindingText(tag)}'"));
+                    break;
+            }
+            return Remember(s.Anchor, new YScalar(s.Value, quoted, Span(s.Start)));
+        }
+
+        private YNode ReadSequence(SequenceStart ss, int depth, string path)
+        {
+            CheckTag(ss.Tag, "tag:yaml.org,2002:seq", ss.Start, path);
+            var items = new List<YNode>();
+            while (parser.Current is not SequenceEnd and not null)
+                items.Add(ReadNode(depth + 1, $"{path}[{items.Count}]"));
+            parser.MoveNext();
+            return Remember(ss.Anchor, new YSequence(items, Span(ss.Start)));
+        }
+
+        /// <summary>A mapping's entries in order; a key that is not a plain name, or given twice, is reported and
+        /// its entry left out.</summary>
+        private YNode ReadMapping(MappingStart ms, int depth, string path)
+        {
+            CheckTag(ms.Tag, "tag:yaml.org,2002:map", ms.Start, path);
+            var entries = new List<KeyValuePair<YScalar, YNode>>();
+            var seen = new Dictionary<string, YScalar>(StringComparer.Ordinal);
+            while (parser.Current is not MappingEnd and not null)
+            {
+                var keyNode = ReadNode(depth + 1, path);
+                string childPath = keyNode is YScalar k ? (path.Length == 0 ? k.Value : $"{path}.{k.Value}") : path;
+                var value = ReadNode(depth + 1, childPath);
+                if (keyNode is not YScalar key)
+                {
+                    problems.Add(new Diagnostic(keyNode.At, "", "mapping keys must be plain names", keyNode.Kind));
+                    continue;
+                }
+                if (seen.TryGetValue(key.Value, out var first))
+                {
+                    problems.Add(new Diagnostic(key.At, childPath,
+                        $"duplicate key; first given at line {first.At.Line}", $"'{key.Value}' again"));
+                    continue;
+                }
+                seen[key.Value] = key;
+                entries.Add(new(key, value));
+            }
+            parser.MoveNext();
+            return Remember(ms.Anchor, new YMapping(entries, Span(ms.Start)));
         }
 
         private void CheckTag(TagName tag, string allowed, Mark at, string path)
