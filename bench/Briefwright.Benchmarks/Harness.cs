@@ -10,7 +10,9 @@ using Briefwright.Model.Uncertainty;
 
 namespace Briefwright.Benchmarks;
 
-/// <summary>A stopwatch harness: warm up until tiered compilation has settled, then report the best and median of timed batches.</summary>
+/// <summary>
+/// A stopwatch harness: warm up until tiered compilation has settled, then report the best and median of timed batches.
+/// </summary>
 public static class Harness
 {
     public static void Run()
@@ -64,7 +66,9 @@ public static class Harness
         Time("  annex files", 10, () => AnnexFiles.Build(solved, charts));
     }
 
-    /// <summary>The demo scenario's model inputs and analysis settings, with the optimum that starts each draw's search.</summary>
+    /// <summary>
+    /// The demo scenario's model inputs and analysis settings, with the optimum that starts each draw's search.
+    /// </summary>
     private static (BriefBenchmarks Demo, Model.Inputs.ModelInputs Inputs, AnalysisSettings Settings, double Guess) DemoModel()
     {
         var b = new BriefBenchmarks();
@@ -168,7 +172,9 @@ public sealed class AllocationSampler : System.Diagnostics.Tracing.EventListener
         bytes.AddOrUpdate((string)e.Payload[typeName]!, Convert.ToInt64(e.Payload[amount]), (_, b) => b + Convert.ToInt64(e.Payload[amount]));
     }
 
-    /// <summary>Runs <paramref name="work"/> <paramref name="times"/> times and prints the sampled types, largest first.</summary>
+    /// <summary>
+    /// Runs <paramref name="work"/> <paramref name="times"/> times and prints the sampled types, largest first.
+    /// </summary>
     public static void Report(string what, int times, Action work)
     {
         work();

@@ -10,7 +10,9 @@ public static class ProjectRoot
 {
     public const string Rule = "inside the project folder (the folder of the file given on the command line, or --root)";
 
-    /// <summary>The project folder of a top-level input: <paramref name="given"/> when set, else the input's own folder.</summary>
+    /// <summary>
+    /// The project folder of a top-level input: <paramref name="given"/> when set, else the input's own folder.
+    /// </summary>
     public static string For(string topFile, string? given) =>
         Path.GetFullPath(given ?? (Path.GetDirectoryName(Path.GetFullPath(topFile)) ?? "."));
 

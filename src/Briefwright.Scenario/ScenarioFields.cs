@@ -54,13 +54,17 @@ public sealed record ScenarioField(string Path, FieldKind Kind, string Label)
     public string? DefaultText { get; init; }
     public string? Help { get; init; }
     public int MaxLength { get; init; } = 400;
-    /// <summary>For <see cref="FieldKind.Text"/>: a regular expression the whole value must match (the schema says it too).</summary>
+    /// <summary>
+    /// For <see cref="FieldKind.Text"/>: a regular expression the whole value must match (the schema says it too).
+    /// </summary>
     public string? Pattern { get; init; }
     public string[] Choices { get; init; } = [];
     /// <summary>The selector field of a <see cref="FieldKind.Variants"/> mapping.</summary>
     public string? Selector { get; init; }
     public int MinItems { get; init; }
-    /// <summary>Keys of which a mapping must hold at least one (a discount rule's <c>rate</c> or <c>schedule</c>).</summary>
+    /// <summary>
+    /// Keys of which a mapping must hold at least one (a discount rule's <c>rate</c> or <c>schedule</c>).
+    /// </summary>
     public string[] Alternatives { get; init; } = [];
     /// <summary>The binder adds a row with <see cref="Label"/> to the brief's assumptions table.</summary>
     public bool Assumption { get; init; }
@@ -106,7 +110,9 @@ public static class ScenarioFields
     private static ScenarioField C(string path, string label, params string[] choices) =>
         new(path, FieldKind.Choice, label) { Choices = choices };
 
-    /// <summary>Every field, in the order the binder lists a mapping's keys (its messages name them in this order).</summary>
+    /// <summary>
+    /// Every field, in the order the binder lists a mapping's keys (its messages name them in this order).
+    /// </summary>
     public static readonly IReadOnlyList<ScenarioField> All =
     [
         new("extends", FieldKind.Path, "Path of the scenario this one builds on, relative to this file")
@@ -293,7 +299,9 @@ public static class ScenarioFields
         .Where(f => !f.Path.EndsWith("[]", StringComparison.Ordinal) && !f.Path.EndsWith(".*", StringComparison.Ordinal))
         .GroupBy(f => f.Parent).ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
 
-    /// <summary>The field at <paramref name="path"/> (in <paramref name="variant"/>, where the path has several).</summary>
+    /// <summary>
+    /// The field at <paramref name="path"/> (in <paramref name="variant"/>, where the path has several).
+    /// </summary>
     public static ScenarioField Get(string path, string? variant = null) =>
         All.FirstOrDefault(f => f.Path == path && f.In(variant))
         ?? throw new ArgumentException($"no scenario field {path}", nameof(path));
@@ -302,7 +310,9 @@ public static class ScenarioFields
     public static IReadOnlyList<ScenarioField> Children(string path, string? variant = null) =>
         ByParent.TryGetValue(path, out var fields) ? fields.Where(f => f.In(variant)).ToArray() : [];
 
-    /// <summary>The keys the mapping at <paramref name="path"/> (of one variant) may hold, in order, each once.</summary>
+    /// <summary>
+    /// The keys the mapping at <paramref name="path"/> (of one variant) may hold, in order, each once.
+    /// </summary>
     public static string[] Keys(string path, string? variant = null) =>
         Children(path, variant).Select(f => f.Key).Distinct().ToArray();
 

@@ -5,7 +5,9 @@ using Briefwright.Scenario.Yaml;
 
 namespace Briefwright.Scenario;
 
-/// <summary>The outcome of loading a scenario: the document, or every problem found, with the sources to show them.</summary>
+/// <summary>
+/// The outcome of loading a scenario: the document, or every problem found, with the sources to show them.
+/// </summary>
 public sealed record LoadResult(ScenarioDocument? Document, IReadOnlyList<Diagnostic> Problems, SourceSet Sources)
 {
     public bool Ok => Document is not null && Problems.Count == 0;
@@ -122,7 +124,9 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         return parent is null ? null : Merge(parent, map);
     }
 
-    /// <summary>A full path as messages show it: relative to the current folder when it lies below it, else in full.</summary>
+    /// <summary>
+    /// A full path as messages show it: relative to the current folder when it lies below it, else in full.
+    /// </summary>
     public static string Display(string full)
     {
         string cwd = Directory.GetCurrentDirectory();
@@ -130,8 +134,8 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
     }
 
     /// <summary>A section that switches its <c>form</c> (say, from gompertz_makeham to life_table) or a parameter that
-    /// switches its <c>distribution</c> (say, from uniform to normal) is replaced, not merged: the parent's parameters of
-    /// the old form never stick to the child's.</summary>
+    /// switches its <c>distribution</c> (say, from uniform to normal) is replaced, not merged: the parent's parameters
+    /// of the old form never stick to the child's.</summary>
     private static bool FormChanges(YMapping parent, YMapping child) =>
         KindChanges(parent, child, "form") || KindChanges(parent, child, "distribution");
 

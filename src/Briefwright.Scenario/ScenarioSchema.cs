@@ -111,8 +111,9 @@ public static class ScenarioSchema
         return o;
     }
 
-    /// <summary>A mapping whose keys depend on its <c>form</c> (or <c>distribution</c>): each variant lists its own keys;
-    /// a partial one (under extends, merged into the parent's) may give any variant's keys and needs none.</summary>
+    /// <summary>A mapping whose keys depend on its <c>form</c> (or <c>distribution</c>): each variant lists its own
+    /// keys; a partial one (under extends, merged into the parent's) may give any variant's keys and needs
+    /// none.</summary>
     private static JsonObject Variants(string description, string selector, bool strict, params (string Name, JsonObject Props, string[] Required)[] variants)
     {
         if (!strict)
@@ -159,7 +160,9 @@ public static class ScenarioSchema
         return a;
     }
 
-    /// <summary>The schema of one field of the catalogue; list items are always complete (lists are replaced whole).</summary>
+    /// <summary>
+    /// The schema of one field of the catalogue; list items are always complete (lists are replaced whole).
+    /// </summary>
     private static JsonObject Node(ScenarioField f, bool strict)
     {
         var parameterNames = Arr(Parameters.All.Select(p => p.Name).ToArray());

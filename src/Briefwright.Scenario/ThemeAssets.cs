@@ -14,7 +14,8 @@ public static class ThemeAssets
     public const int MaxFontBytes = 16 << 20;
 
     /// <summary>Why <paramref name="png"/> cannot be the logo, or null with its size: a PNG of 8 bits per channel, not
-    /// interlaced, at most <see cref="MaxLogoPixels"/> pixels a side, whose chunks, checksums and image data are whole.</summary>
+    /// interlaced, at most <see cref="MaxLogoPixels"/> pixels a side, whose chunks, checksums and image data are
+    /// whole.</summary>
     public static string? CheckPng(byte[] png, out int width, out int height)
     {
         width = height = 0;

@@ -2,7 +2,10 @@ using System.Text.Json.Nodes;
 
 namespace Briefwright.Scenario;
 
-/// <summary>JSON Schema (draft 2020-12) of a theme file, made from the same key lists and limits <see cref="ThemeLoader"/> checks.</summary>
+/// <summary>
+/// JSON Schema (draft 2020-12) of a theme file, made from the same key lists and limits <see cref="ThemeLoader"/>
+/// checks.
+/// </summary>
 public static class ThemeSchema
 {
     public const int MaxName = 120;

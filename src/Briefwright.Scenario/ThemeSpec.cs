@@ -10,12 +10,16 @@ public sealed record ThemeSpec(string Name, string Paper, IReadOnlyDictionary<st
 {
     public static readonly string[] FontKeys = { "regular", "bold", "italic", "bold_italic" };
 
-    /// <summary>TrueType files by style (regular, bold, italic, bold_italic), resolved to paths; empty for the bundled font.</summary>
+    /// <summary>
+    /// TrueType files by style (regular, bold, italic, bold_italic), resolved to paths; empty for the bundled font.
+    /// </summary>
     public IReadOnlyDictionary<string, string> FontPaths { get; init; } = new Dictionary<string, string>();
 
     public static readonly string[] ColourKeys = { "accent", "text", "muted", "rule", "box_fill", "header_fill" };
 
-    /// <summary>The options' colours in charts, in scenario order (#RRGGBB each); empty for the standard palette.</summary>
+    /// <summary>
+    /// The options' colours in charts, in scenario order (#RRGGBB each); empty for the standard palette.
+    /// </summary>
     public IReadOnlyList<string> ChartColours { get; init; } = Array.Empty<string>();
 
     /// <summary>How many chart colours a theme may give.</summary>

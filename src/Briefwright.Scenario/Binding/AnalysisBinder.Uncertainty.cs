@@ -35,8 +35,9 @@ public sealed partial class AnalysisBinder
         return (lo.Value, hi.Value);
     }
 
-    /// <summary>Whether the scenario with <paramref name="def"/> set to <paramref name="value"/> still meets every model
-    /// rule (the rules Monte Carlo draws are held to); reports the broken rule at <paramref name="node"/> when not.</summary>
+    /// <summary>Whether the scenario with <paramref name="def"/> set to <paramref name="value"/> still meets every
+    /// model rule (the rules Monte Carlo draws are held to); reports the broken rule at <paramref name="node"/> when
+    /// not.</summary>
     private bool Solvable(ModelInputs inputs, Parameters.Definition def, double value, YNode node, string path, (Parameters.Definition Def, double Value)? other = null)
     {
         var trial = def.Set(inputs, value);
@@ -82,7 +83,8 @@ public sealed partial class AnalysisBinder
                 var xr = item["x_range"] is { } xn ? Pair(xn, ip + ".x_range", dx, inputs) : null;
                 var yr = item["y_range"] is { } yn ? Pair(yn, ip + ".y_range", dy, inputs) : null;
                 if (xr is null || yr is null) { if (item["x_range"] is null || item["y_range"] is null) ctx.Report(item.At, ip, "needs x_range and y_range", null); continue; }
-                // Every rule is linear or monotone in each parameter, so the grid's four corners stand for all its points.
+                // Every rule is linear or monotone in each parameter, so the grid's four corners stand for all its
+                // points.
                 bool cornersOk = true;
                 foreach (double xv in new[] { xr.Value.Low, xr.Value.High })
                     foreach (double yv in new[] { yr.Value.Low, yr.Value.High })

@@ -26,10 +26,10 @@ public sealed partial class AnalysisBinder(BindContext ctx)
     private static ScenarioField F(string path, string? variant = null) => ScenarioFields.Get(path, variant);
 
     /// <summary>
-    /// The most simulated years one brief's uncertainty analysis may ask for: (draws + Sobol samples × (parameters + 2))
-    /// × horizon years. Each unit is one year of one simulated reform path, so this bounds the run's time and memory
-    /// whatever the combination of limits (at 150 years: 66,000 draws, or 2,000 draws and the default 2,560 Sobol samples of 9 parameters
-    /// with room to spare).
+    /// The most simulated years one brief's uncertainty analysis may ask for: (draws + Sobol samples × (parameters +
+    /// 2)) × horizon years. Each unit is one year of one simulated reform path, so this bounds the run's time and
+    /// memory whatever the combination of limits (at 150 years: 66,000 draws, or 2,000 draws and the default 2,560
+    /// Sobol samples of 9 parameters with room to spare).
     /// </summary>
     public const long MaxSimulatedYears = 10_000_000;
 
@@ -44,7 +44,10 @@ public sealed partial class AnalysisBinder(BindContext ctx)
             Numbers.Count(years));
     }
 
-    /// <summary>Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a model rule.</summary>
+    /// <summary>
+    /// Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a
+    /// model rule.
+    /// </summary>
     public const int PilotDraws = 500;
 
     /// <summary>In-sentence names of the appraisal rules, by schedule id (filled by <see cref="Bind"/>).</summary>

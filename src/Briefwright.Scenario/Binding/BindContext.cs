@@ -53,7 +53,9 @@ public sealed class BindContext
         return sb.ToString();
     }
 
-    /// <summary>Reports every key not in <paramref name="known"/>, with the closest known key as a suggestion.</summary>
+    /// <summary>
+    /// Reports every key not in <paramref name="known"/>, with the closest known key as a suggestion.
+    /// </summary>
     public void CheckKeys(YMapping map, string path, params string[] known)
     {
         foreach (var (key, _) in map.Entries)
@@ -65,7 +67,9 @@ public sealed class BindContext
         }
     }
 
-    /// <summary>Reports every key that <paramref name="field"/>'s mapping (of <paramref name="variant"/>) may not hold.</summary>
+    /// <summary>
+    /// Reports every key that <paramref name="field"/>'s mapping (of <paramref name="variant"/>) may not hold.
+    /// </summary>
     public void CheckFields(YMapping map, string path, ScenarioField field, string? variant = null) =>
         CheckKeys(map, path, ScenarioFields.Keys(field.Path, variant));
 

@@ -6,7 +6,8 @@ namespace Briefwright.Scenario.Binding;
 
 /// <summary>
 /// Reads a life table CSV: two columns, age and survivors, an optional header row, ages from 0 upwards.
-/// Survivors may be a share (starting at 1) or counts from any radix (starting at, say, 100000); both are scaled to l(0) = 1.
+/// Survivors may be a share (starting at 1) or counts from any radix (starting at, say, 100000); both are scaled to
+/// l(0) = 1.
 /// </summary>
 public static class LifeTableReader
 {

@@ -16,7 +16,9 @@ public static class YamlTreeReader
     public const int MaxDepth = 32;
     public const int MaxAliases = 256;
 
-    /// <summary>Reads <paramref name="text"/>; <paramref name="what"/> ("scenario", "theme") names the kind of file in messages.</summary>
+    /// <summary>
+    /// Reads <paramref name="text"/>; <paramref name="what"/> ("scenario", "theme") names the kind of file in messages.
+    /// </summary>
     public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(string file, string text, string what = "scenario")
     {
         var problems = new List<Diagnostic>();
