@@ -49,7 +49,8 @@ public static class Harness
         var solved = ScenarioSolver.Solve(scenario);
         Time("  six charts", 10, () => BriefBuilder.RenderCharts(solved));
         var charts = BriefBuilder.RenderCharts(solved);
-        Time("  six charts with SVG and PNG copies (annex)", 5, () => BriefBuilder.RenderCharts(solved, withImages: true));
+        Time("  six charts with SVG and PNG copies " +
+            "(annex)", 5, () => BriefBuilder.RenderCharts(solved, withImages: true));
         var plot = Charts.SchoolingCharts.OutputCurve(BriefBuilder.ChartDrawingFor(solved.Scenario),
             solved.BalancedGrowth);
         Time("    one chart as PNG", 5, () => Charts.ChartRenderer.ToPng(plot));
@@ -98,7 +99,8 @@ public static class Harness
         });
         var shared = new ReformSimulator.Cache(true);
         foreach (var o in alternatives) ReformSimulator.Simulate(inputs, o, settings.Reform, shared);
-        Time("one reform path, tables and outputs already cached", 50, () => ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform, shared));
+        Time("one reform path, tables and outputs already " +
+            "cached", 50, () => ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform, shared));
         var path = ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform);
         Time("one present value", 50, () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
         Time("local optimum search", 50, () => OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, guess, new ReformSimulator.Cache(true).Population(inputs), fast: true));
@@ -110,7 +112,8 @@ public static class Harness
     {
         var (_, inputs, settings, guess) = DemoModel();
         AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
-        AllocationSampler.Report("Monte Carlo (2,000 draws, one thread)", 10, () => MonteCarlo.Run(inputs, settings, guess, 1));
+        AllocationSampler.Report("Monte Carlo (2,000 draws, one " +
+            "thread)", 10, () => MonteCarlo.Run(inputs, settings, guess, 1));
     }
 
     /// <summary>The demo's whole model, repeated, with allocation and collection counts.</summary>
@@ -122,7 +125,9 @@ public static class Harness
         int gcs = GC.CollectionCount(0);
         var watch = Stopwatch.StartNew();
         for (int i = 0; i < n; i++) ScenarioSolver.Solve(b.Scenario);
-        Console.WriteLine($"{watch.Elapsed.TotalMilliseconds / n:0.0} ms, {(GC.GetTotalAllocatedBytes(true) - bytes) / n / 1e6:0.0} MB allocated and {(GC.CollectionCount(0) - gcs) / (double)n:0.0} gen-0 collections per solve");
+        Console.WriteLine($"{watch.Elapsed.TotalMilliseconds / n:0.0} ms, " +
+            $"{(GC.GetTotalAllocatedBytes(true) - bytes) / n / 1e6:0.0} MB allocated and " +
+            $"{(GC.CollectionCount(0) - gcs) / (double)n:0.0} gen-0 collections per solve");
     }
 
     public static void Time(string what, int runs, Action action)
@@ -148,7 +153,8 @@ public static class Harness
         bool micro = times[0] < 1;
         double scale = micro ? 1000 : 1;
         string unit = micro ? "µs" : "ms";
-        Console.WriteLine($"{what,-56} best {times[0] * scale,8:0.0} {unit}   median {times[times.Count / 2] * scale,8:0.0} {unit}   {bytes / 1024.0,8:0.0} KB allocated   ({runs} runs)");
+        Console.WriteLine($"{what,-56} best {times[0] * scale,8:0.0} {unit}   median " +
+            $"{times[times.Count / 2] * scale,8:0.0} {unit}   {bytes / 1024.0,8:0.0} KB allocated   ({runs} runs)");
     }
 }
 

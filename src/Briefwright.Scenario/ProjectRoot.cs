@@ -8,7 +8,8 @@ namespace Briefwright.Scenario;
 /// </summary>
 public static class ProjectRoot
 {
-    public const string Rule = "inside the project folder (the folder of the file given on the command line, or --root)";
+    public const string Rule = "inside the project folder (the folder of the file given on the command line, or " +
+        "--root)";
 
     /// <summary>
     /// The project folder of a top-level input: <paramref name="given"/> when set, else the input's own folder.

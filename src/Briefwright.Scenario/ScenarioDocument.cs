@@ -25,7 +25,8 @@ public static class LanguageTag
 {
     public const string Default = "en-GB";
     public const string Pattern = "^[a-z]{2,3}(-[A-Za-z0-9]{2,8})*$";
-    public const string Description = "Language of the brief: a language tag such as en-GB (default), fr-FR, es-ES or de-DE; the tool's texts and number and date formats follow it";
+    public const string Description = "Language of the brief: a language tag such as en-GB (default), fr-FR, es-ES " +
+        "or de-DE; the tool's texts and number and date formats follow it";
 
     /// <summary>Language subtags whose scripts run right to left, which the layout does not write yet.</summary>
     public static readonly IReadOnlySet<string> RightToLeft = new HashSet<string>(StringComparer.Ordinal)

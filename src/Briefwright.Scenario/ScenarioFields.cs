@@ -121,7 +121,8 @@ public static class ScenarioFields
         S("demography", "Stable population", required: true),
         S("human_capital", "Human capital"),
         S("production", "Production", required: true),
-        new("options", FieldKind.List, "Policy options") { Required = true, MinItems = 2, Help = "a baseline and at least one alternative" },
+        new("options", FieldKind.List, "Policy options") { Required = true, MinItems = 2, Help = "a baseline and at " +
+            "least one alternative" },
         S("reform", "Reform simulation"),
         S("appraisal", "Discounting"),
         S("sensitivity", "Sensitivity"),
@@ -145,8 +146,10 @@ public static class ScenarioFields
         T("brief.language", "Language of the brief", 35) with
         {
             DefaultText = LanguageTag.Default, Pattern = LanguageTag.Pattern,
-            Help = "a language tag: en-GB, fr-FR, es-ES, de-DE (any region of en, fr, es, de); the tool's words, the number and "
-                + "date formats and the PDF's language tag follow it; a right-to-left language, or right-to-left text in any "
+            Help = "a language tag: en-GB, fr-FR, es-ES, de-DE (any region of en, fr, es, de); the tool's words, the " +
+                "number and "
+                + "date formats and the PDF's language tag follow it; a right-to-left language, or right-to-left " +
+                    "text in any "
                 + "field, is refused (the layout writes left to right only); see docs/templates.md, \"Languages\"",
         },
 
@@ -192,10 +195,12 @@ public static class ScenarioFields
         N("human_capital.returns.psi", "Power-form curvature ψ", ValueUnit.Number, Bounds.ClosedOpen(0, 1), true)
             with { Variants = ["power"], Assumption = true },
         S("human_capital.returns.brackets[]", "A bracket of returns"),
-        N("human_capital.returns.brackets[].from", "First year of the bracket", ValueUnit.Years, Bounds.Closed(0, 40), true),
+        N("human_capital.returns.brackets[].fro" +
+            "m", "First year of the bracket", ValueUnit.Years, Bounds.Closed(0, 40), true),
         N("human_capital.returns.brackets[].rate", "Return", ValueUnit.Rate, Bounds.ClosedOpen(0, 1), true),
         S("human_capital.experience", "Mincer experience profile") with { Help = "β₁x − β₂x²" },
-        N("human_capital.experience.linear", "Experience premium, linear term β₁", ValueUnit.Number, Bounds.Closed(0, 0.5), true)
+        N("human_capital.experience.linear",
+            "Experience premium, linear term β₁", ValueUnit.Number, Bounds.Closed(0, 0.5), true)
             with { Assumption = true },
         N("human_capital.experience.quadratic", "Experience premium, quadratic term β₂", ValueUnit.Number,
             Bounds.OpenClosed(0, 0.05), true) with { Assumption = true },
@@ -226,12 +231,14 @@ public static class ScenarioFields
         T("options[].source", "Source"),
         T("options[].note", "Note", 1000),
 
-        N("reform.year", "Reform year", ValueUnit.Number, Year) with { Whole = true, DefaultText = "the year after the brief's date" },
+        N("reform.year", "Reform year", ValueUnit.Number, Year) with { Whole = true, DefaultText = "the year after " +
+            "the brief's date" },
         N("reform.phase_in_cohorts", "Cohorts to phase in", ValueUnit.Number, Bounds.Closed(1, 40)) with { Whole = true, Default = 1 },
         N("reform.horizon_years", "Years simulated", ValueUnit.Years, Bounds.Closed(20, AnalysisBinder.MaxHorizon))
             with { Whole = true, Default = 150 },
         T("reform.headline_option", "Option for charts and indices") with
-            { DefaultText = "the first option that differs from the baseline", Help = "an option other than the baseline" },
+            { DefaultText = "the first option that differs from the baseline", Help = "an option other than the " +
+                "baseline" },
 
         new("appraisal.discount_rates", FieldKind.List, "Discount rates")
             { MinItems = 1, DefaultText = "green_book, omb_3, omb_7", Help = "the first is the headline schedule" },
@@ -240,7 +247,8 @@ public static class ScenarioFields
             Whole = true, Assumption = true, DefaultText = "the brief's year", Help = "not after the reform year",
         },
         new("appraisal.discount_rates[]", FieldKind.NameOrSection, "A discount rate")
-            { Choices = ["green_book", "omb_3", "omb_7"], Alternatives = ["rate", "schedule"], Help = "a published schedule's name or a rule of one's own" },
+            { Choices = ["green_book", "omb_3", "omb_7"], Alternatives = ["rate", "schedule"], Help = "a published sc" +
+                "hedule's name or a rule of one's own" },
         T("appraisal.discount_rates[].id", "Id", required: true),
         T("appraisal.discount_rates[].label", "Label", 120, required: true),
         T("appraisal.discount_rates[].in_sentence", "How the rule reads inside a sentence", 120)
@@ -289,7 +297,8 @@ public static class ScenarioFields
             { Variants = ["truncated_normal", "uniform", "triangular"], Required = true, Bounds = AnyValue, ParameterBounds = true },
         new("uncertainty.parameters.*.median", FieldKind.ParameterValue, "Median")
             { Variants = ["lognormal"], Required = true, Bounds = Positive },
-        N("uncertainty.parameters.*.sigma_log", "Standard deviation of the log", ValueUnit.Number, Bounds.OpenClosed(0, 5), true)
+        N("uncertainty.parameters.*.sigma_lo" +
+            "g", "Standard deviation of the log", ValueUnit.Number, Bounds.OpenClosed(0, 5), true)
             with { Variants = ["lognormal"] },
     ];
 
@@ -321,7 +330,8 @@ public static class ScenarioFields
 
     /// <summary>An interval as the reference writes it: [a, b] holds both ends, (a, b) neither.</summary>
     public static string Interval(Bounds b, bool percent) =>
-        $"{(b.MinInclusive ? '[' : '(')}{Number(b.Min, percent)}, {Number(b.Max, percent)}{(b.MaxInclusive ? ']' : ')')}";
+        $"{(b.MinInclusive ? '[' : '(')}{Number(b.Min, percent)}, " +
+        $"{Number(b.Max, percent)}{(b.MaxInclusive ? ']' : ')')}";
 
     private static string UnitText(ScenarioField f) => f.Kind switch
     {
@@ -373,7 +383,8 @@ public static class ScenarioFields
         sb.Append("| field | label | unit | required (default) | rule |\n|---|---|---|---|---|\n");
         foreach (var f in All)
             sb.Append(CultureInfo.InvariantCulture,
-                $"| `{f.Path}` | {f.Label} | {UnitText(f)} | {RequiredText(f)} | {RuleText(f).Replace("|", "\\|")} |\n");
+                $"| `{f.Path}` | {f.Label} | {UnitText(f)} | {RequiredText(f)} | {RuleText(f).Replace("|", "\\|")} " +
+                "|\n");
         return sb.ToString();
     }
 }

@@ -76,19 +76,23 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         if (chain.Contains(key))
         {
             var cycle = string.Join(" → ", chain.Skip(chain.IndexOf(key)).Append(key).Select(Path.GetFileName));
-            problems.Add(new Diagnostic(namedBy!.Value.At, "extends", $"scenarios extend each other in a cycle ({cycle})", $"'{namedBy.Value.Value}'"));
+            problems.Add(new Diagnostic(namedBy!.Value.At, "extends",
+                $"scenarios extend each other in a cycle ({cycle})", $"'{namedBy.Value.Value}'"));
             return null;
         }
         if (chain.Count >= MaxExtendsDepth)
         {
-            problems.Add(new Diagnostic(namedBy!.Value.At, "extends", $"more than {MaxExtendsDepth} levels of extends", $"'{namedBy.Value.Value}'"));
+            problems.Add(new Diagnostic(namedBy!.Value.At, "extends",
+                $"more than {MaxExtendsDepth} levels of extends", $"'{namedBy.Value.Value}'"));
             return null;
         }
         string text, error;
         if (namedBy is null ? !reader.TryRead(path, out text, out error) : !reader.TryReadInside(path, project, out text, out error))
         {
-            if (namedBy is { } by) problems.Add(new Diagnostic(by.At, "extends", $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
-            else problems.Add(new Diagnostic(new SourceSpan(path, 1, 1), "", $"cannot read the scenario ({error})", null));
+            if (namedBy is { } by) problems.Add(new Diagnostic(by.At, "extends",
+                $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
+            else problems.Add(new Diagnostic(new SourceSpan(path, 1, 1), "",
+                $"cannot read the scenario ({error})", null));
             return null;
         }
         // A binary file is not shown: its first line could be anything (a key, the environment of /proc/self/environ).
@@ -99,7 +103,9 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         if (node is null) return null;
         if (node is not YMapping map)
         {
-            problems.Add(new Diagnostic(node.At, "", "a scenario must be a mapping with the sections brief, demography, human_capital, production and options", node.Kind));
+            problems.Add(new Diagnostic(node.At, "",
+                "a scenario must be a mapping with the sections brief, demography, human_capital, production and " +
+                "options", node.Kind));
             return null;
         }
         if (map["extends"] is not { } ext) return map;
@@ -110,7 +116,8 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         }
         if (!parentName.Value.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase) && !parentName.Value.EndsWith(".yml", StringComparison.OrdinalIgnoreCase))
         {
-            problems.Add(new Diagnostic(parentName.At, "extends", "must name a scenario file (.yaml or .yml)", BindContext.Quote(parentName.Value)));
+            problems.Add(new Diagnostic(parentName.At, "extends",
+                "must name a scenario file (.yaml or .yml)", BindContext.Quote(parentName.Value)));
             return null;
         }
         if (ProjectRoot.Resolve(path, parentName.Value, project, out string rule) is not { } parentPath)

@@ -100,7 +100,8 @@ public static class ScenarioSchema
     private static JsonObject Wrap(string description, JsonObject bare)
     {
         var wrapped = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr("value")), ("properties", Obj(
-            ("value", bare.DeepClone()), ("source", Str("Where the value comes from (assumptions table)")), ("note", Str("A note for the assumptions table", 1000)))));
+            ("value", bare.DeepClone()), ("source", Str("Where the value comes from (assumptions " +
+                "table)")), ("note", Str("A note for the assumptions table", 1000)))));
         return Obj(("description", description), ("anyOf", new JsonArray(bare, wrapped)));
     }
 
@@ -234,7 +235,8 @@ public static class ScenarioSchema
     public static JsonObject Build() => Obj(
         ("$schema", "https://json-schema.org/draft/2020-12/schema"),
         ("title", "briefwright scenario"),
-        ("description", "A complete scenario; a file with 'extends' is a partial one, completed by the scenario it names."),
+        ("description", "A complete scenario; a file with 'extends' is a partial one, completed by the scenario it " +
+            "names."),
         ("$defs", Obj(("complete", Sections(strict: true)), ("partial", Sections(strict: false)))),
         ("if", Obj(("type", "object"), ("required", Arr("extends")))),
         ("then", Obj(("$ref", "#/$defs/partial"))),

@@ -23,7 +23,8 @@ public static class ThemeSchema
         var colours = new JsonObject();
         foreach (var key in ThemeSpec.ColourKeys) colours[key] = new JsonObject { ["type"] = "string", ["pattern"] = "^#[0-9A-Fa-f]{6}$" };
         var fonts = new JsonObject();
-        foreach (var key in ThemeSpec.FontKeys) fonts[key] = Text($"TrueType file for {key.Replace('_', ' ')} text, relative to the theme", 400, "\\.[tT][tT][fF]$");
+        foreach (var key in ThemeSpec.FontKeys) fonts[key] = Text($"TrueType file for {key.Replace('_', ' ')} text, " +
+            "relative to the theme", 400, "\\.[tT][tT][fF]$");
         return new JsonObject
         {
             ["$schema"] = "https://json-schema.org/draft/2020-12/schema",
@@ -42,7 +43,9 @@ public static class ThemeSchema
                     ["minItems"] = ThemeSpec.MinChartColours,
                     ["maxItems"] = ThemeSpec.MaxChartColours,
                     ["items"] = new JsonObject { ["type"] = "string", ["pattern"] = "^#[0-9A-Fa-f]{6}$" },
-                    ["description"] = "Colours of the options in charts, one per option in scenario order (cycled when there are more options); default: the standard palette, chosen to stay apart with colour-vision deficiencies and in greyscale",
+                    ["description"] = "Colours of the options in charts, one per option in scenario order (cycled " +
+                        "when there are more options); default: the standard palette, chosen to stay apart with " +
+                        "colour-vision deficiencies and in greyscale",
                 },
                 ["footer"] = Text("Footer text on every page", MaxFooter),
                 ["logo"] = Text("PNG logo, relative to the theme", 400, "\\.[pP][nN][gG]$"),

@@ -46,7 +46,8 @@ public static partial class ThemeLoader
     {
         var sources = new SourceSet();
         if (!reader.TryRead(path, out string text, out string error))
-            return (null, new[] { new Diagnostic(new SourceSpan(path, 1, 1), "", $"cannot read the theme ({error})", null) }, sources);
+            return (null, new[] { new Diagnostic(new SourceSpan(path, 1, 1), "",
+                $"cannot read the theme ({error})", null) }, sources);
         if (!text.Contains('\0')) sources.Add(path, text);
         string project = ProjectRoot.For(path, projectRoot);
         var (root, problems) = YamlTreeReader.Read(path, text, "theme");
@@ -81,7 +82,8 @@ public static partial class ThemeLoader
             {
                 if (!ThemeSpec.ColourKeys.Contains(key.Value)) continue;
                 if (value is YScalar s && Hex().IsMatch(s.Value)) colours[key.Value] = s.Value;
-                else ctx.Report(value.At, $"colours.{key.Value}", "must be a colour written #RRGGBB", BindContext.Show(value));
+                else ctx.Report(value.At, $"colours.{key.Value}",
+                    "must be a colour written #RRGGBB", BindContext.Show(value));
             }
         }
         return colours;
@@ -94,12 +96,15 @@ public static partial class ThemeLoader
         if (top["chart_colours"] is { } cc)
         {
             if (cc is not YSequence seq || seq.Items.Count < ThemeSpec.MinChartColours || seq.Items.Count > ThemeSpec.MaxChartColours)
-                ctx.Report(cc.At, "chart_colours", $"must be a list of {ThemeSpec.MinChartColours} to {ThemeSpec.MaxChartColours} colours written #RRGGBB, one per option in scenario order", BindContext.Show(cc));
+                ctx.Report(cc.At, "chart_colours",
+                    $"must be a list of {ThemeSpec.MinChartColours} to {ThemeSpec.MaxChartColours} colours written " +
+                    "#RRGGBB, one per option in scenario order", BindContext.Show(cc));
             else
                 for (int i = 0; i < seq.Items.Count; i++)
                 {
                     if (seq.Items[i] is YScalar s && Hex().IsMatch(s.Value)) chartColours.Add(s.Value);
-                    else ctx.Report(seq.Items[i].At, $"chart_colours[{i}]", "must be a colour written #RRGGBB", BindContext.Show(seq.Items[i]));
+                    else ctx.Report(seq.Items[i].At, $"chart_colours[{i}]",
+                        "must be a colour written #RRGGBB", BindContext.Show(seq.Items[i]));
                 }
         }
         return chartColours;

@@ -30,7 +30,9 @@ public sealed partial class AnalysisBinder
         double? lo = ctx.Number(wrapper, "low", path + "[0]", unit, bounds);
         double? hi = ctx.Number(wrapper, "high", path + "[1]", unit, bounds);
         if (lo is null || hi is null) return null;
-        if (!(hi > lo)) { ctx.Report(seq.Items[1].At, path + "[1]", $"the high end must be above the low end ({lo.Value.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(seq.Items[1])); return null; }
+        if (!(hi > lo)) { ctx.Report(seq.Items[1].At, path + "[1]",
+            "the high end must be above the low end " +
+            $"({lo.Value.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(seq.Items[1])); return null; }
         if (!Solvable(inputs, def, lo.Value, seq.Items[0], path + "[0]") || !Solvable(inputs, def, hi.Value, seq.Items[1], path + "[1]")) return null;
         return (lo.Value, hi.Value);
     }
@@ -44,7 +46,9 @@ public sealed partial class AnalysisBinder
         if (other is { } o) trial = o.Def.Set(trial, o.Value);
         if (Parameters.Violation(trial) is not { } why) return true;
         string with = other is { } w ? $" and {w.Def.Name} at {Format(w.Def, w.Value)}" : "";
-        ctx.Report(node.At, path, $"with {def.Name} at {Format(def, value)}{with} the scenario breaks a model rule ({why})", BindContext.Show(node));
+        ctx.Report(node.At, path,
+            $"with {def.Name} at {Format(def, value)}{with} the scenario breaks a model rule " +
+            $"({why})", BindContext.Show(node));
         return false;
     }
 
@@ -69,7 +73,8 @@ public sealed partial class AnalysisBinder
             for (int i = 0; i < g.Items.Count; i++)
             {
                 string ip = $"sensitivity.grids[{i}]";
-                if (g.Items[i] is not YMapping item) { ctx.Report(g.Items[i].At, ip, "must be a mapping with x, x_range, y, y_range", g.Items[i].Kind); continue; }
+                if (g.Items[i] is not YMapping item) { ctx.Report(g.Items[i].At, ip,
+                    "must be a mapping with x, x_range, y, y_range", g.Items[i].Kind); continue; }
                 ctx.CheckFields(item, ip, F(gf));
                 var x = item["x"] as YScalar;
                 var y = item["y"] as YScalar;
@@ -110,7 +115,8 @@ public sealed partial class AnalysisBinder
             {
                 string path = $"{p}.parameters.{key.Value}";
                 if (Parameter(key, path) is not { } def) continue;
-                if (value is not YMapping dm) { ctx.Report(value.At, path, "must be a mapping with a distribution and its parameters", value.Kind); continue; }
+                if (value is not YMapping dm) { ctx.Report(value.At, path,
+                    "must be a mapping with a distribution and its parameters", value.Kind); continue; }
                 if (BindDistribution(dm, path, def) is { } dist) parameters.Add(new UncertainParameter(def.Name, dist));
             }
         if (draws is null || seed is null || sobol is null) return null;
@@ -150,7 +156,8 @@ public sealed partial class AnalysisBinder
         }
         if (failed * 3 <= n) return true;
         ctx.Report(at.At, "uncertainty.parameters",
-            $"the distributions break a model rule too often: {failed} of the first {n} draws failed all {MonteCarlo.MaxAttemptsPerDraw} attempts (for example: {why}); narrow the distributions",
+            $"the distributions break a model rule too often: {failed} of the first {n} draws failed all " +
+            $"{MonteCarlo.MaxAttemptsPerDraw} attempts (for example: {why}); narrow the distributions",
             $"{failed} of {n}");
         return false;
     }
@@ -190,7 +197,9 @@ public sealed partial class AnalysisBinder
         if (accepted >= Sobol.MinRows(n)) return true;
         var node = at["sobol_samples"] ?? at["parameters"]!;
         ctx.Report(node.At, node == at["sobol_samples"] ? "uncertainty.sobol_samples" : "uncertainty.parameters",
-            $"the distributions break a model rule too often for the Sobol indices: only {accepted} of the first {n} base samples met every rule in all {d + 2} of their runs (at least {Sobol.MinRows(n)} must; for example: {why}); narrow the distributions, or set sobol_samples to 0",
+            $"the distributions break a model rule too often for the Sobol indices: only {accepted} of the first {n} " +
+            $"base samples met every rule in all {d + 2} of their runs (at least {Sobol.MinRows(n)} must; for " +
+            $"example: {why}); narrow the distributions, or set sobol_samples to 0",
             $"{accepted} of {n}");
         return false;
     }
@@ -234,7 +243,8 @@ public sealed partial class AnalysisBinder
             {
                 double? lo = Value("low"), mode = Value("mode"), hi = Value("high");
                 if (lo is null || mode is null || hi is null) return null;
-                if (!(lo <= mode && mode <= hi && hi > lo)) { ctx.Report(m["mode"]!.At, path + ".mode", "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!)); return null; }
+                if (!(lo <= mode && mode <= hi && hi > lo)) { ctx.Report(m["mode"]!.At, path + ".mode",
+                    "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!)); return null; }
                 return new TriangularDistribution(lo.Value, mode.Value, hi.Value);
             }
             case "lognormal":

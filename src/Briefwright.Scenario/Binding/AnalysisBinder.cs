@@ -40,7 +40,11 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (years <= MaxSimulatedYears) return;
         var u = (YMapping)top["uncertainty"]!;
         var at = u["draws"] ?? u["sobol_samples"] ?? (YNode)u;
-        ctx.Report(at.At, "uncertainty", $"asks for {Numbers.Count(years)} simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × {reform.HorizonYears}); the limit for one brief is {Numbers.Count(MaxSimulatedYears)}; lower draws, sobol_samples or reform.horizon_years",
+        ctx.Report(at.At, "uncertainty",
+            $"asks for {Numbers.Count(years)} simulated years ((draws + sobol_samples × (parameters + 2)) × " +
+            $"reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × " +
+            $"{reform.HorizonYears}); the limit for one brief is {Numbers.Count(MaxSimulatedYears)}; lower draws, " +
+            "sobol_samples or reform.horizon_years",
             Numbers.Count(years));
     }
 
@@ -81,7 +85,9 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if ((m is null || m["year"] is null) && !YearBounds.Contains(defaultYear))
         {
             var date = ((YMapping)top["brief"]!)["date"]!;
-            ctx.Report(date.At, "brief.date", $"the reform starts the year after the brief's date unless reform.year is given, and must start from {YearBounds.Min} to {YearBounds.Max}; give reform.year", BindContext.Show(date));
+            ctx.Report(date.At, "brief.date",
+                "the reform starts the year after the brief's date unless reform.year is given, and must start from " +
+                $"{YearBounds.Min} to {YearBounds.Max}; give reform.year", BindContext.Show(date));
             return null;
         }
         if (m is null) return new ReformSettings(defaultYear);
@@ -95,7 +101,10 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (ctx.Text(m, F("reform.headline_option"), p) is { } h)
         {
             if (inputs.Options.All(o => o.Id != h) || h == inputs.BaselineId)
-                ctx.Report(m["headline_option"]!.At, "reform.headline_option", $"must name an option other than the baseline ({string.Join(", ", inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id))})", $"'{h}'");
+                ctx.Report(m["headline_option"]!.At, "reform.headline_option",
+                    "must name an option other than the baseline " +
+                    $"({string.Join(", ", inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id))}" +
+                    ")", $"'{h}'");
             else headline = h;
         }
         return year is null || phase is null || horizon is null ? null : new ReformSettings((int)year, (int)phase, (int)horizon);
@@ -121,11 +130,15 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (reform is not null && y > reform.Year)
         {
             if (m?["valuation_year"] is { } node)
-                ctx.Report(node.At, "appraisal.valuation_year", $"must not be after the reform year ({reform.Year})", BindContext.Show(node));
+                ctx.Report(node.At, "appraisal.valuation_year",
+                    $"must not be after the reform year ({reform.Year})", BindContext.Show(node));
             else if ((top["reform"] as YMapping)?["year"] is { } reformNode)
-                ctx.Report(reformNode.At, "reform.year", $"must not be before the valuation year ({defaultYear}, the brief's year); set appraisal.valuation_year to value an earlier reform", BindContext.Show(reformNode));
+                ctx.Report(reformNode.At, "reform.year",
+                    $"must not be before the valuation year ({defaultYear}, the brief's year); set " +
+                    "appraisal.valuation_year to value an earlier reform", BindContext.Show(reformNode));
             else
-                ctx.Report(top.At, "appraisal.valuation_year", $"must not be after the reform year ({reform.Year})", $"{defaultYear}");
+                ctx.Report(top.At, "appraisal.valuation_year",
+                    $"must not be after the reform year ({reform.Year})", $"{defaultYear}");
             return null;
         }
         return (int)y;
@@ -150,13 +163,16 @@ public sealed partial class AnalysisBinder(BindContext ctx)
                     result.Add(schedule);
                     break;
                 case YScalar s:
-                    ctx.Report(s.At, ip, $"must be one of {string.Join(", ", known.Keys)} or a mapping with id, label and rate or schedule{(Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "")}", $"'{s.Value}'");
+                    ctx.Report(s.At, ip, $"must be one of {string.Join(", ", known.Keys)} or a mapping with id, " +
+                        "label and rate or " +
+                        $"schedule{(Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "")}", $"'{s.Value}'");
                     break;
                 case YMapping item:
                     if (BindSchedule(item, ip) is { } own) result.Add(own);
                     break;
                 default:
-                    ctx.Report(list.Items[i].At, ip, "must be a published schedule name or a mapping", list.Items[i].Kind);
+                    ctx.Report(list.Items[i].At, ip,
+                        "must be a published schedule name or a mapping", list.Items[i].Kind);
                     break;
             }
         }
@@ -182,13 +198,15 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         for (int j = 0; j < steps.Items.Count; j++)
         {
             string sp = $"{ip}.schedule[{j}]";
-            if (steps.Items[j] is not YMapping s) { ctx.Report(steps.Items[j].At, sp, "must be a mapping with from_year and rate", steps.Items[j].Kind); continue; }
+            if (steps.Items[j] is not YMapping s) { ctx.Report(steps.Items[j].At, sp,
+                "must be a mapping with from_year and rate", steps.Items[j].Kind); continue; }
             const string step = d + ".schedule[]";
             ctx.CheckFields(s, sp, F(step));
             double? from = ctx.Number(s, F(step + ".from_year"), sp);
             double? rate = ctx.Number(s, F(step + ".rate"), sp);
             if (from is null || rate is null) continue;
-            if (j == 0 && from != 1) ctx.Report(s["from_year"]!.At, sp + ".from_year", "the first step must start at year 1", BindContext.Show(s["from_year"]!));
+            if (j == 0 && from != 1) ctx.Report(s["from_year"]!.At, sp + ".from_year",
+                "the first step must start at year 1", BindContext.Show(s["from_year"]!));
             if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(s["from_year"]!.At, sp + ".from_year", $"steps must start at increasing years (previous step starts at {list[^1].FromYear})", BindContext.Show(s["from_year"]!));
             list.Add(new DiscountStep((int)from.Value, rate.Value));
         }
