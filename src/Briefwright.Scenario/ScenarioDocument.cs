@@ -37,7 +37,8 @@ public static class LanguageTag
     /// <summary>
     /// Whether <paramref name="c"/> belongs to a right-to-left script (Hebrew, Arabic, Syriac, Thaana, N'Ko, …).
     /// </summary>
-    public static bool IsRightToLeft(int c) => c is (>= 0x0590 and <= 0x08FF) or (>= 0xFB1D and <= 0xFDFF) or (>= 0xFE70 and <= 0xFEFF)
+    public static bool IsRightToLeft(
+        int c) => c is (>= 0x0590 and <= 0x08FF) or (>= 0xFB1D and <= 0xFDFF) or (>= 0xFE70 and <= 0xFEFF)
         or (>= 0x10800 and <= 0x10FFF) or (>= 0x1E800 and <= 0x1EFFF);
 }
 
@@ -51,7 +52,14 @@ public enum ValueUnit
 }
 
 /// <summary>One row of the assumptions table: a parameter, its value, unit, source and note.</summary>
-public sealed record Assumption(string Path, string Label, double? Value, string? Text, ValueUnit Unit, string? Source, string? Note);
+public sealed record Assumption(
+    string Path,
+    string Label,
+    double? Value,
+    string? Text,
+    ValueUnit Unit,
+    string? Source,
+    string? Note);
 
 /// <summary>
 /// A validated scenario: brief facts, model inputs, provenance of every parameter, and the files it was read from.
@@ -99,10 +107,13 @@ public sealed record ScenarioDocument(
     /// <summary>
     /// The in-sentence name of option <paramref name="id"/> (its label, first letter lower-cased, when none is given).
     /// </summary>
-    public string OptionName(string id) => OptionNames.TryGetValue(id, out var n) ? n : InSentence.FromLabel(Inputs.Options.First(o => o.Id == id).Label);
+    public string OptionName(string id) => OptionNames.TryGetValue(id, out var n)
+        ? n
+        : InSentence.FromLabel(Inputs.Options.First(o => o.Id == id).Label);
 
     /// <summary>The in-sentence name of the appraisal rule <paramref name="id"/>.</summary>
-    public string RuleName(string id) => RuleNames.TryGetValue(id, out var n) ? n : Analysis.Discounts.First(d => d.Id == id).Label;
+    public string RuleName(string id)
+        => RuleNames.TryGetValue(id, out var n) ? n : Analysis.Discounts.First(d => d.Id == id).Label;
 }
 
 /// <summary>Default in-sentence names for options and appraisal rules.</summary>

@@ -96,7 +96,8 @@ public static class ScenarioFields
     private static readonly Bounds DiscountRate = Bounds.Closed(-0.05, 0.5);
     private static readonly Bounds AnyValue = Bounds.Closed(-1000, 1000);
     private static readonly Bounds Positive = Bounds.OpenClosed(0, 1000);
-    private static readonly string[] Distributions = ["normal", "truncated_normal", "uniform", "triangular", "lognormal"];
+    private static readonly string[] Distributions
+        = ["normal", "truncated_normal", "uniform", "triangular", "lognormal"];
 
     private static ScenarioField S(string path, string label, bool required = false) =>
         new(path, FieldKind.Section, label) { Required = required };
@@ -133,7 +134,9 @@ public static class ScenarioFields
         T("brief.short_title", "Running header", 80) with { DefaultText = "the title" },
         T("brief.organisation", "Organisation", 200, required: true),
         T("brief.author", "Author", 200),
-        new("brief.date", FieldKind.Date, "Date of the brief, YYYY-MM-DD") { Required = true, Help = "never taken from the clock" },
+        new("brief.date", FieldKind.Date, "Date of the brief, YYYY-MM-DD") {
+            Required = true,
+            Help = "never taken from the clock" },
         C("brief.status", "Status", "draft", "consultation", "final") with
             { DefaultText = "draft", Help = "a draft or consultation brief carries a DRAFT marker on every page" },
         N("brief.edition", "Edition", ValueUnit.Number, Bounds.Closed(1, 9999)) with
@@ -162,7 +165,12 @@ public static class ScenarioFields
         N("demography.participation", "Labour-force participation", ValueUnit.Rate, Bounds.OpenClosed(0, 1))
             with { Assumption = true, Default = 1, Help = "share of working-age people in the labour force" },
         new("demography.survival", FieldKind.Variants, "Survival curve") { Required = true, Selector = "form" },
-        C("demography.survival.form", "Form of the survival curve", "rectangular", Gm, "life_table") with { Required = true },
+        C(
+            "demography.survival.form",
+            "Form of the survival curve",
+            "rectangular",
+            Gm,
+            "life_table") with { Required = true },
         N("demography.survival.max_age", "Age at death (everyone)", ValueUnit.Age, Age, true)
             with { Variants = ["rectangular"], Assumption = true },
         N("demography.survival.a", "Makeham term A", ValueUnit.Number, Bounds.ClosedOpen(0, 1), true)
@@ -183,11 +191,20 @@ public static class ScenarioFields
 
         new("human_capital.returns", FieldKind.Variants, "Returns to schooling")
             { Selector = "form", DefaultText = "Hall–Jones brackets" },
-        C("human_capital.returns.form", "Form of the returns", "constant", "brackets", "power") with { Required = true },
+        C(
+            "human_capital.returns.form",
+            "Form of the returns",
+            "constant",
+            "brackets",
+            "power") with { Required = true },
         N("human_capital.returns.rate", "Return to a year of schooling", ValueUnit.Rate, Bounds.Open(0, 1), true)
             with { Variants = ["constant"], Assumption = true },
         new("human_capital.returns.brackets", FieldKind.List, "Returns to schooling")
-            { Variants = ["brackets"], MinItems = 1, DefaultText = "Hall–Jones", Help = "first `from` is 0, increasing" },
+            {
+                Variants = ["brackets"],
+                MinItems = 1,
+                DefaultText = "Hall–Jones",
+                Help = "first `from` is 0, increasing" },
         T("human_capital.returns.source", "Source") with { Variants = ["brackets"] },
         T("human_capital.returns.note", "Note", 1000) with { Variants = ["brackets"] },
         N("human_capital.returns.theta", "Power-form scale θ", ValueUnit.Number, Bounds.Open(0, 2), true)
@@ -233,7 +250,11 @@ public static class ScenarioFields
 
         N("reform.year", "Reform year", ValueUnit.Number, Year) with { Whole = true, DefaultText = "the year after " +
             "the brief's date" },
-        N("reform.phase_in_cohorts", "Cohorts to phase in", ValueUnit.Number, Bounds.Closed(1, 40)) with { Whole = true, Default = 1 },
+        N(
+            "reform.phase_in_cohorts",
+            "Cohorts to phase in",
+            ValueUnit.Number,
+            Bounds.Closed(1, 40)) with { Whole = true, Default = 1 },
         N("reform.horizon_years", "Years simulated", ValueUnit.Years, Bounds.Closed(20, AnalysisBinder.MaxHorizon))
             with { Whole = true, Default = 150 },
         T("reform.headline_option", "Option for charts and indices") with
@@ -269,9 +290,17 @@ public static class ScenarioFields
             { Bounds = AnyValue, ParameterBounds = true },
         S("sensitivity.grids[]", "A two-way grid"),
         new("sensitivity.grids[].x", FieldKind.ParameterName, "Parameter across") { Required = true },
-        new("sensitivity.grids[].x_range", FieldKind.Range, "Its range") { Required = true, Bounds = AnyValue, ParameterBounds = true },
-        new("sensitivity.grids[].y", FieldKind.ParameterName, "Parameter down") { Required = true, Help = "differs from x" },
-        new("sensitivity.grids[].y_range", FieldKind.Range, "Its range") { Required = true, Bounds = AnyValue, ParameterBounds = true },
+        new("sensitivity.grids[].x_range", FieldKind.Range, "Its range") {
+            Required = true,
+            Bounds = AnyValue,
+            ParameterBounds = true },
+        new("sensitivity.grids[].y", FieldKind.ParameterName, "Parameter down") {
+            Required = true,
+            Help = "differs from x" },
+        new("sensitivity.grids[].y_range", FieldKind.Range, "Its range") {
+            Required = true,
+            Bounds = AnyValue,
+            ParameterBounds = true },
         N("sensitivity.grids[].steps", "Steps per axis", ValueUnit.Number, Bounds.Closed(2, 41)) with { Default = 9 },
         C("sensitivity.grids[].output", "What the grid shows", "optimum", "change") with { DefaultText = "optimum" },
 
@@ -279,7 +308,11 @@ public static class ScenarioFields
             with { Default = 2000 },
         N("uncertainty.seed", "Random seed", ValueUnit.Number, Bounds.Closed(0, 9_007_199_254_740_991), true)
             with { Help = "the same seed gives the same numbers" },
-        N("uncertainty.sobol_samples", "Sobol base samples", ValueUnit.Number, Bounds.Closed(0, AnalysisBinder.MaxSobolSamples))
+        N(
+            "uncertainty.sobol_samples",
+            "Sobol base samples",
+            ValueUnit.Number,
+            Bounds.Closed(0, AnalysisBinder.MaxSobolSamples))
             with { Default = AnalysisBinder.DefaultSobolSamples, Help = "0 skips the Sobol indices" },
         new("uncertainty.parameters", FieldKind.ParameterMap, "Distributions of the uncertain parameters")
             { Required = true, MinItems = 1 },
@@ -290,11 +323,19 @@ public static class ScenarioFields
         new("uncertainty.parameters.*.sd", FieldKind.ParameterValue, "Standard deviation")
             { Variants = ["normal", "truncated_normal"], Required = true, Bounds = Positive },
         new("uncertainty.parameters.*.low", FieldKind.ParameterValue, "Lower bound")
-            { Variants = ["truncated_normal", "uniform", "triangular"], Required = true, Bounds = AnyValue, ParameterBounds = true },
+            {
+                Variants = ["truncated_normal", "uniform", "triangular"],
+                Required = true,
+                Bounds = AnyValue,
+                ParameterBounds = true },
         new("uncertainty.parameters.*.mode", FieldKind.ParameterValue, "Most likely value")
             { Variants = ["triangular"], Required = true, Bounds = AnyValue, ParameterBounds = true },
         new("uncertainty.parameters.*.high", FieldKind.ParameterValue, "Upper bound")
-            { Variants = ["truncated_normal", "uniform", "triangular"], Required = true, Bounds = AnyValue, ParameterBounds = true },
+            {
+                Variants = ["truncated_normal", "uniform", "triangular"],
+                Required = true,
+                Bounds = AnyValue,
+                ParameterBounds = true },
         new("uncertainty.parameters.*.median", FieldKind.ParameterValue, "Median")
             { Variants = ["lognormal"], Required = true, Bounds = Positive },
         N("uncertainty.parameters.*.sigma_lo" +
@@ -305,7 +346,8 @@ public static class ScenarioFields
     /// <summary>The fields written as keys of a mapping, by the mapping's path (a list's item and a parameter map's
     /// entry are not keys).</summary>
     private static readonly IReadOnlyDictionary<string, ScenarioField[]> ByParent = All
-        .Where(f => !f.Path.EndsWith("[]", StringComparison.Ordinal) && !f.Path.EndsWith(".*", StringComparison.Ordinal))
+        .Where(
+            f => !f.Path.EndsWith("[]", StringComparison.Ordinal) && !f.Path.EndsWith(".*", StringComparison.Ordinal))
         .GroupBy(f => f.Parent).ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
 
     /// <summary>
@@ -359,7 +401,8 @@ public static class ScenarioFields
     private static string RequiredText(ScenarioField f)
     {
         string when = f.Variants.Length == 0 ? "" : string.Join(", ", f.Variants.Select(v => $"`{v}`")) + ": ";
-        if (f.Path.EndsWith("[]", StringComparison.Ordinal) || f.Path.EndsWith(".*", StringComparison.Ordinal)) return "each item";
+        if (f.Path.EndsWith("[]", StringComparison.Ordinal)
+            || f.Path.EndsWith(".*", StringComparison.Ordinal)) return "each item";
         if (f.Required) return when + "yes";
         return when + (DefaultOf(f) is { } d ? $"no ({d})" : "no");
     }

@@ -34,15 +34,26 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
 
         var ctx = new BindContext();
         var tables = new List<string>();
-        var binder = new ScenarioBinder(ctx, (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
+        var binder = new ScenarioBinder(
+            ctx,
+            (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
         var document = binder.Bind(tree, files);
         return new LoadResult(document is null ? null : document with
         {
-            InputHash = sources.Hash(), ContentHash = ScenarioContent.Hash(tree, tables), EditionAt = ScenarioContent.EditionAt(tree),
+            InputHash = sources.Hash(), ContentHash = ScenarioContent.Hash(tree, tables), EditionAt = ScenarioContent
+                .EditionAt(tree),
         }, ctx.Problems, sources);
     }
 
-    private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, string project, BindContext ctx, SourceSet sources, List<string> files, List<string> tables)
+    private TabulatedSurvival? LoadLifeTable(
+        string file,
+        SourceSpan at,
+        string fieldPath,
+        string project,
+        BindContext ctx,
+        SourceSet sources,
+        List<string> files,
+        List<string> tables)
     {
         if (!file.EndsWith(".csv", StringComparison.OrdinalIgnoreCase))
         {
@@ -70,7 +81,14 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         return LifeTableReader.Read(full, text, fieldPath, ctx);
     }
 
-    private YMapping? LoadTree(string path, string project, List<string> chain, SourceSet sources, List<Diagnostic> problems, List<string> files, (SourceSpan At, string Value)? namedBy)
+    private YMapping? LoadTree(
+        string path,
+        string project,
+        List<string> chain,
+        SourceSet sources,
+        List<Diagnostic> problems,
+        List<string> files,
+        (SourceSpan At, string Value)? namedBy)
     {
         string key = Path.GetFullPath(path);
         if (chain.Contains(key))
@@ -87,7 +105,9 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
             return null;
         }
         string text, error;
-        if (namedBy is null ? !reader.TryRead(path, out text, out error) : !reader.TryReadInside(path, project, out text, out error))
+        if (namedBy is null
+            ? !reader.TryRead(path, out text, out error)
+            : !reader.TryReadInside(path, project, out text, out error))
         {
             if (namedBy is { } by) problems.Add(new Diagnostic(by.At, "extends",
                 $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
@@ -114,7 +134,8 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
             problems.Add(new Diagnostic(ext.At, "extends", "must be the path of another scenario file", ext.Kind));
             return null;
         }
-        if (!parentName.Value.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase) && !parentName.Value.EndsWith(".yml", StringComparison.OrdinalIgnoreCase))
+        if (!parentName.Value.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase)
+            && !parentName.Value.EndsWith(".yml", StringComparison.OrdinalIgnoreCase))
         {
             problems.Add(new Diagnostic(parentName.At, "extends",
                 "must name a scenario file (.yaml or .yml)", BindContext.Quote(parentName.Value)));

@@ -22,9 +22,11 @@ public static class ThemeAssets
         ReadOnlySpan<byte> signature = [0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A];
         if (png.Length < 8 || !png.AsSpan(0, 8).SequenceEqual(signature)) return "must be a PNG image; the file is " +
             "another kind of file";
-        if (png.Length < 33 || BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(8)) != 13 || !png.AsSpan(12, 4).SequenceEqual("IHDR"u8))
+        if (png.Length < 33 || BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(8)) != 13
+            || !png.AsSpan(12, 4).SequenceEqual("IHDR"u8))
             return "must be a whole PNG image; its header is missing or cut short";
-        long w = BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(16)), h = BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(20));
+        long w = BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(16)), h = BinaryPrimitives.ReadUInt32BigEndian(
+            png.AsSpan(20));
         int depth = png[24], colour = png[25], interlace = png[28];
         if (w == 0 || h == 0) return "must have a size; the image is 0 pixels wide or high";
         if (w > MaxLogoPixels || h > MaxLogoPixels) return $"must be at most {MaxLogoPixels} × {MaxLogoPixels} " +
@@ -97,7 +99,16 @@ public static class ThemeAssets
         return c ^ 0xFFFFFFFFu;
     }
 
-    private static readonly string[] RequiredTables = { "cmap", "glyf", "head", "hhea", "hmtx", "loca", "maxp", "name", "post" };
+    private static readonly string[] RequiredTables = {
+        "cmap",
+        "glyf",
+        "head",
+        "hhea",
+        "hmtx",
+        "loca",
+        "maxp",
+        "name",
+        "post" };
 
     /// <summary>Why <paramref name="ttf"/> cannot be a theme font, or null: a TrueType font (glyf outlines) whose table
     /// directory, required tables, glyph index and character map are whole and consistent.</summary>
@@ -116,7 +127,8 @@ public static class ThemeAssets
         {
             var entry = ttf.AsSpan(12 + 16 * i, 16);
             string tag = System.Text.Encoding.ASCII.GetString(entry[..4]);
-            long offset = BinaryPrimitives.ReadUInt32BigEndian(entry[8..]), length = BinaryPrimitives.ReadUInt32BigEndian(entry[12..]);
+            long offset = BinaryPrimitives.ReadUInt32BigEndian(entry[8..]), length = BinaryPrimitives
+                .ReadUInt32BigEndian(entry[12..]);
             if (offset + length > ttf.Length) return $"must be a whole TrueType font; its '{BindingSafe(tag)}' table " +
                 "runs past the end of the file";
             tables[tag] = ((int)offset, (int)length);
@@ -124,7 +136,8 @@ public static class ThemeAssets
         foreach (var name in RequiredTables)
             if (!tables.ContainsKey(name)) return $"must be a whole TrueType font; it has no '{name}' table";
         var head = Table(ttf, tables["head"]);
-        if (head.Length < 54 || BinaryPrimitives.ReadUInt32BigEndian(head[12..]) != 0x5F0F3CF5u) return "must be an undamaged TrueType font; its 'head' table is damaged";
+        if (head.Length < 54 || BinaryPrimitives.ReadUInt32BigEndian(
+            head[12..]) != 0x5F0F3CF5u) return "must be an undamaged TrueType font; its 'head' table is damaged";
         int unitsPerEm = BinaryPrimitives.ReadUInt16BigEndian(head[18..]);
         int locFormat = BinaryPrimitives.ReadInt16BigEndian(head[50..]);
         if (unitsPerEm is < 16 or > 16384 || locFormat is not (0 or 1)) return "must be an undamaged TrueType font; " +
@@ -136,7 +149,8 @@ public static class ThemeAssets
         if (glyphs == 0 || hhea.Length < 36) return "must be an undamaged TrueType font; it has no glyphs or its " +
             "'hhea' table is damaged";
         int metrics = BinaryPrimitives.ReadUInt16BigEndian(hhea[34..]);
-        if (metrics == 0 || metrics > glyphs || Table(ttf, tables["hmtx"]).Length < 4L * metrics + 2L * (glyphs - metrics))
+        if (metrics == 0 || metrics > glyphs
+            || Table(ttf, tables["hmtx"]).Length < 4L * metrics + 2L * (glyphs - metrics))
             return "must be an undamaged TrueType font; its glyph widths ('hmtx') do not match its glyph count";
         var loca = Table(ttf, tables["loca"]);
         int step = locFormat == 0 ? 2 : 4;
@@ -145,7 +159,9 @@ public static class ThemeAssets
         long previous = 0, glyf = tables["glyf"].Length;
         for (int g = 0; g <= glyphs; g++)
         {
-            long offset = step == 2 ? BinaryPrimitives.ReadUInt16BigEndian(loca[(2 * g)..]) * 2L : BinaryPrimitives.ReadUInt32BigEndian(loca[(4 * g)..]);
+            long offset = step == 2
+                ? BinaryPrimitives.ReadUInt16BigEndian(loca[(2 * g)..]) * 2L
+                : BinaryPrimitives.ReadUInt32BigEndian(loca[(4 * g)..]);
             if (offset < previous || offset > glyf) return "must be an undamaged TrueType font; its glyph index " +
                 "('loca') points outside the glyphs";
             previous = offset;
@@ -158,7 +174,8 @@ public static class ThemeAssets
         bool unicode = false;
         for (int i = 0; i < maps; i++)
         {
-            int platform = BinaryPrimitives.ReadUInt16BigEndian(cmap[(4 + 8 * i)..]), encoding = BinaryPrimitives.ReadUInt16BigEndian(cmap[(6 + 8 * i)..]);
+            int platform = BinaryPrimitives.ReadUInt16BigEndian(cmap[(4 + 8 * i)..]), encoding = BinaryPrimitives
+                .ReadUInt16BigEndian(cmap[(6 + 8 * i)..]);
             long offset = BinaryPrimitives.ReadUInt32BigEndian(cmap[(8 + 8 * i)..]);
             if (offset + 4 > cmap.Length) return "must be an undamaged TrueType font; its character map ('cmap') " +
                 "points outside itself";
@@ -169,5 +186,6 @@ public static class ThemeAssets
 
     private static ReadOnlySpan<byte> Table(byte[] ttf, (int Offset, int Length) t) => ttf.AsSpan(t.Offset, t.Length);
 
-    private static string BindingSafe(string tag) => new(tag.Select(c => c is >= ' ' and < (char)127 ? c : '?').ToArray());
+    private static string BindingSafe(string tag)
+        => new(tag.Select(c => c is >= ' ' and < (char)127 ? c : '?').ToArray());
 }

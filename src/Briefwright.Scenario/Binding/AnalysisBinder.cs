@@ -79,7 +79,8 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         // The headline option: the one the scenario names, else the first that differs from the baseline.
         var b = inputs.Baseline;
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
-        headline = (alternatives.FirstOrDefault(o => inputs.DemographyFor(o) != inputs.DemographyFor(b) || o.SchoolingYears != b.SchoolingYears) ?? alternatives[0]).Id;
+        headline = (alternatives.FirstOrDefault(
+            o => inputs.DemographyFor(o) != inputs.DemographyFor(b) || o.SchoolingYears != b.SchoolingYears) ?? alternatives[0]).Id;
         var m = ctx.Mapping(top, F("reform"), "");
         int defaultYear = brief.Date.Year + 1;
         if ((m is null || m["year"] is null) && !YearBounds.Contains(defaultYear))
@@ -97,7 +98,11 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         double? phase = ctx.Number(m, F("reform.phase_in_cohorts"), p);
         double? horizon = ctx.Number(m, F("reform.horizon_years"), p);
         foreach (var (key, v) in new[] { ("year", year), ("phase_in_cohorts", phase), ("horizon_years", horizon) })
-            if (v is { } x && x != Math.Floor(x)) ctx.Report(m[key]!.At, $"{p}.{key}", "must be a whole number", BindContext.Show(m[key]!));
+            if (v is { } x && x != Math.Floor(x)) ctx.Report(
+                m[key]!.At,
+                $"{p}.{key}",
+                "must be a whole number",
+                BindContext.Show(m[key]!));
         if (ctx.Text(m, F("reform.headline_option"), p) is { } h)
         {
             if (inputs.Options.All(o => o.Id != h) || h == inputs.BaselineId)
@@ -107,7 +112,9 @@ public sealed partial class AnalysisBinder(BindContext ctx)
                     ")", $"'{h}'");
             else headline = h;
         }
-        return year is null || phase is null || horizon is null ? null : new ReformSettings((int)year, (int)phase, (int)horizon);
+        return year is null || phase is null || horizon is null
+            ? null
+            : new ReformSettings((int)year, (int)phase, (int)horizon);
     }
 
     /// <summary>
@@ -124,7 +131,11 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (year is not { } y) return null;
         if (y != Math.Floor(y))
         {
-            ctx.Report(m!["valuation_year"]!.At, "appraisal.valuation_year", "must be a whole number", BindContext.Show(m["valuation_year"]!));
+            ctx.Report(
+                m!["valuation_year"]!.At,
+                "appraisal.valuation_year",
+                "must be a whole number",
+                BindContext.Show(m["valuation_year"]!));
             return null;
         }
         if (reform is not null && y > reform.Year)
@@ -176,7 +187,11 @@ public sealed partial class AnalysisBinder(BindContext ctx)
                     break;
             }
         }
-        if (result.Count < F("appraisal.discount_rates").MinItems) ctx.Report(list.At, "appraisal.discount_rates", "must list at least one discount rate", "an empty list");
+        if (result.Count < F("appraisal.discount_rates").MinItems) ctx.Report(
+            list.At,
+            "appraisal.discount_rates",
+            "must list at least one discount rate",
+            "an empty list");
         return result;
     }
 
@@ -190,7 +205,9 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (item["rate"] is not null)
         {
             double? rate = ctx.Number(item, F(d + ".rate"), ip);
-            return id is null || label is null || rate is null ? null : DiscountSchedule.Constant(id, label, rate.Value);
+            return id is null || label is null || rate is null
+                ? null
+                : DiscountSchedule.Constant(id, label, rate.Value);
         }
         var steps = ctx.Sequence(item, F(d + ".schedule"), ip, required: true);
         if (steps is null) return null;
@@ -207,7 +224,11 @@ public sealed partial class AnalysisBinder(BindContext ctx)
             if (from is null || rate is null) continue;
             if (j == 0 && from != 1) ctx.Report(s["from_year"]!.At, sp + ".from_year",
                 "the first step must start at year 1", BindContext.Show(s["from_year"]!));
-            if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(s["from_year"]!.At, sp + ".from_year", $"steps must start at increasing years (previous step starts at {list[^1].FromYear})", BindContext.Show(s["from_year"]!));
+            if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(
+                s["from_year"]!.At,
+                sp + ".from_year",
+                $"steps must start at increasing years (previous step starts at {list[^1].FromYear})",
+                BindContext.Show(s["from_year"]!));
             list.Add(new DiscountStep((int)from.Value, rate.Value));
         }
         return id is null || label is null || list.Count == 0 ? null : new DiscountSchedule(id, label, list);

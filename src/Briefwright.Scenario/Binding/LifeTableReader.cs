@@ -32,8 +32,13 @@ public static class LifeTableReader
                     "survivors", $"{cells.Length} columns");
                 continue;
             }
-            bool ageOk = double.TryParse(cells[0].Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out double age) && double.IsFinite(age);
-            bool lOk = double.TryParse(cells[1].Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out double l) && double.IsFinite(l);
+            bool ageOk = double.TryParse(
+                cells[0].Trim(),
+                NumberStyles.Float,
+                CultureInfo.InvariantCulture,
+                out double age) && double.IsFinite(age);
+            bool lOk = double.TryParse(cells[1].Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out double l)
+                && double.IsFinite(l);
             if (!ageOk && !lOk && ages.Count == 0) continue; // header row
             if (!ageOk) { ctx.Report(at, path, "age must be a number", $"'{cells[0].Trim()}'"); continue; }
             var lAt = at with { Column = cells[0].Length + 2 };
@@ -63,7 +68,9 @@ public static class LifeTableReader
         if (ages.Count < 2)
         {
             ctx.Report(new SourceSpan(file, 1, 1), path,
-                "a life table needs at least two rows of age and survivors", ages.Count == 1 ? "1 row" : $"{ages.Count} rows");
+                "a life table needs at least two rows of age and survivors", ages.Count == 1
+                    ? "1 row"
+                    : $"{ages.Count} rows");
             return null;
         }
         if (ctx.Problems.Count > before) return null;

@@ -7,7 +7,9 @@ using Briefwright.Scenario.Yaml;
 namespace Briefwright.Scenario.Binding;
 
 /// <summary>Turns the merged YAML tree of a scenario into validated model inputs, reporting every problem.</summary>
-public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceSpan, string, TabulatedSurvival?> loadLifeTable)
+public sealed partial class ScenarioBinder(
+    BindContext ctx,
+    Func<string, SourceSpan, string, TabulatedSurvival?> loadLifeTable)
 {
     public static readonly string[] TopLevelKeys = ScenarioFields.Keys("");
 
@@ -33,13 +35,17 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         var humanCapital = BindHumanCapital(top);
         var production = BindProduction(top);
         var options = BindOptions(top, out string? baselineId, out var optionNames);
-        if (brief is null || demography is null || humanCapital is null || production is null || options is null || baselineId is null || ctx.Problems.Count > 0)
+        if (brief is null || demography is null || humanCapital is null || production is null || options is null
+            || baselineId is null
+            || ctx.Problems.Count > 0)
             return null;
         var inputs = new ModelInputs(demography, humanCapital, production, options, baselineId);
         CrossFieldRules.Check(top, inputs, ctx);
         var analysisBinder = new AnalysisBinder(ctx);
         var analysis = analysisBinder.Bind(top, inputs, brief);
-        return ctx.Problems.Count > 0 || analysis is null ? null : new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
+        return ctx.Problems.Count > 0 || analysis is null
+            ? null
+            : new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
         {
             Analysis = analysis, OptionNames = optionNames!, RuleNames = analysisBinder.RuleNames, Texts = ctx.Texts,
         };
@@ -67,7 +73,12 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         DateOnly? date = null;
         if (dateText is not null)
         {
-            if (DateOnly.TryParseExact(dateText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)) date = d;
+            if (DateOnly.TryParseExact(
+                dateText,
+                "yyyy-MM-dd",
+                CultureInfo.InvariantCulture,
+                DateTimeStyles.None,
+                out var d)) date = d;
             else ctx.Report(m["date"]!.At, "brief.date", "must be a date written YYYY-MM-DD", $"'{dateText}'");
         }
         string status = ctx.Choice(m, F("brief.status"), p) ?? F("brief.status").DefaultText!;
@@ -93,7 +104,17 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             language = null;
         }
         if (id is null || title is null || organisation is null || date is null || edition is null) return null;
-        return new BriefInfo(id, title, shortTitle ?? title, organisation, author, date.Value, status, (int)edition.Value, question, language ?? LanguageTag.Default);
+        return new BriefInfo(
+            id,
+            title,
+            shortTitle ?? title,
+            organisation,
+            author,
+            date.Value,
+            status,
+            (int)edition.Value,
+            question,
+            language ?? LanguageTag.Default);
     }
 
     private Demography? BindDemography(YMapping top)
@@ -131,7 +152,9 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
                 double? b = ctx.Number(m, F(p + ".b"), p);
                 double? c = ctx.Number(m, F(p + ".c"), p);
                 double? max = ctx.Number(m, F(p + ".max_age", form), p);
-                return a is null || b is null || c is null || max is null ? null : new GompertzMakehamSurvival(a.Value, b.Value, c.Value, max.Value);
+                return a is null || b is null || c is null || max is null
+                    ? null
+                    : new GompertzMakehamSurvival(a.Value, b.Value, c.Value, max.Value);
             }
             case "life_table":
             {
@@ -279,7 +302,10 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         return new Production(s.Value, alpha.Value, delta.Value, g.Value);
     }
 
-    private IReadOnlyList<PolicyOption>? BindOptions(YMapping top, out string? baselineId, out Dictionary<string, string>? names)
+    private IReadOnlyList<PolicyOption>? BindOptions(
+        YMapping top,
+        out string? baselineId,
+        out Dictionary<string, string>? names)
     {
         baselineId = null;
         names = null;
@@ -321,7 +347,10 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
 
     /// <summary>One option (its id checked against <paramref name="ids"/>, the ids seen before it); null when it has a
     /// problem, which is reported.</summary>
-    private (PolicyOption Option, string? InSentence, bool IsBaseline)? BindOption(YNode node, int i, Dictionary<string, int> ids)
+    private (PolicyOption Option, string? InSentence, bool IsBaseline)? BindOption(
+        YNode node,
+        int i,
+        Dictionary<string, int> ids)
     {
         string ip = $"options[{i}]";
         if (node is not YMapping item)

@@ -19,7 +19,10 @@ public static class YamlTreeReader
     /// <summary>
     /// Reads <paramref name="text"/>; <paramref name="what"/> ("scenario", "theme") names the kind of file in messages.
     /// </summary>
-    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(string file, string text, string what = "scenario")
+    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(
+        string file,
+        string text,
+        string what = "scenario")
     {
         var problems = new List<Diagnostic>();
         var start = new SourceSpan(file, 1, 1);
@@ -91,7 +94,10 @@ public static class YamlTreeReader
         public void Expect<T>() where T : ParsingEvent
         {
             if (parser.Current is null) parser.MoveNext();
-            if (parser.Current is not T) throw new YamlException(parser.Current!.Start, parser.Current.End, $"expected {typeof(T).Name}");
+            if (parser.Current is not T) throw new YamlException(
+                parser.Current!.Start,
+                parser.Current.End,
+                $"expected {typeof(T).Name}");
             parser.MoveNext();
         }
 
@@ -198,7 +204,9 @@ public static class YamlTreeReader
         }
 
         private static string BindingText(string tag) =>
-            Briefwright.Scenario.Binding.BindContext.Printable(tag.StartsWith("tag:yaml.org,2002:", StringComparison.Ordinal) ? "!!" + tag["tag:yaml.org,2002:".Length..] : tag);
+            Briefwright.Scenario.Binding.BindContext.Printable(tag.StartsWith(
+                "tag:yaml.org,2002:",
+                StringComparison.Ordinal) ? "!!" + tag["tag:yaml.org,2002:".Length..] : tag);
 
         private YNode Remember(AnchorName anchor, YNode node)
         {
