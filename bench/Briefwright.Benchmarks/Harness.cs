@@ -55,14 +55,18 @@ public static class Harness
             solved.BalancedGrowth);
         Time("    one chart as PNG", 5, () => Charts.ChartRenderer.ToPng(plot));
         Time("    one chart as SVG", 5, () => Charts.ChartRenderer.ToSvg(plot));
-        Time("  results JSON", 10, () => ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis)));
+        Time("  results JSON", 10,
+            () => ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis)));
         Time("  fill template", 10, () => BriefBuilder.FillTemplate(solved, charts, StandardTemplate.Template));
         string markdown = BriefBuilder.FillTemplate(solved, charts, StandardTemplate.Template);
-        var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
+        var figures = charts.ToDictionary(
+            c => c.Id,
+            c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         Time("  read Markdown", 10, () => MarkdownReader.Read(markdown, figures));
         var info = new DocumentInfo("t", "t", "a", "s", "k", "en-GB", scenario.Brief.Date, "Edition 1", "footer");
         var doc = new BriefDocument(info, MarkdownReader.Read(markdown, figures));
-        Time("  layout", 10, () => DocumentComposer.Layout(doc, Composer.Layout.Theme.For(doc.Paper), new RenderSession().Measurer));
+        Time("  layout", 10,
+            () => DocumentComposer.Layout(doc, Composer.Layout.Theme.For(doc.Paper), new RenderSession().Measurer));
         Time("  layout + write PDF", 10, () => DocumentComposer.WritePdf(doc));
         Time("  annex files", 10, () => AnnexFiles.Build(solved, charts));
     }
@@ -102,16 +106,20 @@ public static class Harness
         Time("one reform path, tables and outputs already " +
             "cached", 50, () => ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform, shared));
         var path = ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform);
-        Time("one present value", 50, () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
-        Time("local optimum search", 50, () => OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, guess, new ReformSimulator.Cache(true).Population(inputs), fast: true));
-        Time("whole draw (key results)", 50, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
+        Time("one present value", 50,
+            () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
+        Time("local optimum search", 50, () => OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline),
+            inputs.HumanCapital, guess, new ReformSimulator.Cache(true).Population(inputs), fast: true));
+        Time("whole draw (key results)", 50, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess,
+            headlinePath: new double[settings.Reform.HorizonYears + 1]));
     }
 
     /// <summary>What one Monte Carlo draw and the demo's whole Monte Carlo allocate, by type (sampled).</summary>
     public static void Allocations()
     {
         var (_, inputs, settings, guess) = DemoModel();
-        AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
+        AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings,
+            guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
         AllocationSampler.Report("Monte Carlo (2,000 draws, one " +
             "thread)", 10, () => MonteCarlo.Run(inputs, settings, guess, 1));
     }
@@ -166,16 +174,19 @@ public sealed class AllocationSampler : System.Diagnostics.Tracing.EventListener
     protected override void OnEventSourceCreated(System.Diagnostics.Tracing.EventSource source)
     {
         if (source.Name == "Microsoft-Windows-DotNETRuntime")
-            EnableEvents(source, System.Diagnostics.Tracing.EventLevel.Verbose, (System.Diagnostics.Tracing.EventKeywords)0x1);
+            EnableEvents(source, System.Diagnostics.Tracing.EventLevel.Verbose,
+                (System.Diagnostics.Tracing.EventKeywords)0x1);
     }
 
     protected override void OnEventWritten(System.Diagnostics.Tracing.EventWrittenEventArgs e)
     {
-        if (e.EventName is null || !e.EventName.StartsWith("GCAllocationTick", StringComparison.Ordinal) || e.Payload is null) return;
+        if (e.EventName is null || !e.EventName.StartsWith("GCAllocationTick", StringComparison.Ordinal)
+            || e.Payload is null) return;
         int typeName = e.PayloadNames!.IndexOf("TypeName");
         int amount = e.PayloadNames.IndexOf("AllocationAmount64");
         if (typeName < 0 || amount < 0) return;
-        bytes.AddOrUpdate((string)e.Payload[typeName]!, Convert.ToInt64(e.Payload[amount]), (_, b) => b + Convert.ToInt64(e.Payload[amount]));
+        bytes.AddOrUpdate((string)e.Payload[typeName]!, Convert.ToInt64(e.Payload[amount]),
+            (_, b) => b + Convert.ToInt64(e.Payload[amount]));
     }
 
     /// <summary>

@@ -52,13 +52,7 @@ public enum ValueUnit
 }
 
 /// <summary>One row of the assumptions table: a parameter, its value, unit, source and note.</summary>
-public sealed record Assumption(
-    string Path,
-    string Label,
-    double? Value,
-    string? Text,
-    ValueUnit Unit,
-    string? Source,
+public sealed record Assumption(string Path, string Label, double? Value, string? Text, ValueUnit Unit, string? Source,
     string? Note);
 
 /// <summary>

@@ -45,15 +45,8 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         }, ctx.Problems, sources);
     }
 
-    private TabulatedSurvival? LoadLifeTable(
-        string file,
-        SourceSpan at,
-        string fieldPath,
-        string project,
-        BindContext ctx,
-        SourceSet sources,
-        List<string> files,
-        List<string> tables)
+    private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, string project,
+        BindContext ctx, SourceSet sources, List<string> files, List<string> tables)
     {
         if (!file.EndsWith(".csv", StringComparison.OrdinalIgnoreCase))
         {
@@ -81,14 +74,8 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         return LifeTableReader.Read(full, text, fieldPath, ctx);
     }
 
-    private YMapping? LoadTree(
-        string path,
-        string project,
-        List<string> chain,
-        SourceSet sources,
-        List<Diagnostic> problems,
-        List<string> files,
-        (SourceSpan At, string Value)? namedBy)
+    private YMapping? LoadTree(string path, string project, List<string> chain, SourceSet sources,
+        List<Diagnostic> problems, List<string> files, (SourceSpan At, string Value)? namedBy)
     {
         string key = Path.GetFullPath(path);
         if (chain.Contains(key))

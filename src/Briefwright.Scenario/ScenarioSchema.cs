@@ -112,10 +112,7 @@ public static class ScenarioSchema
 
     private static JsonObject Section(string description, JsonObject properties, bool strict, params string[] required)
     {
-        var o = Obj(
-            ("type", "object"),
-            ("description", description),
-            ("additionalProperties", false),
+        var o = Obj(("type", "object"), ("description", description), ("additionalProperties", false),
             ("properties", properties));
         if (strict && required.Length > 0) o["required"] = Arr(required);
         return o;
@@ -124,10 +121,7 @@ public static class ScenarioSchema
     /// <summary>A mapping whose keys depend on its <c>form</c> (or <c>distribution</c>): each variant lists its own
     /// keys; a partial one (under extends, merged into the parent's) may give any variant's keys and needs
     /// none.</summary>
-    private static JsonObject Variants(
-        string description,
-        string selector,
-        bool strict,
+    private static JsonObject Variants(string description, string selector, bool strict,
         params (string Name, JsonObject Props, string[] Required)[] variants)
     {
         if (!strict)
@@ -135,10 +129,7 @@ public static class ScenarioSchema
             var union = Obj((selector, Obj(("enum", Arr(variants.Select(v => v.Name).ToArray())))));
             foreach (var v in variants)
                 foreach (var (k, n) in v.Props) union[k] ??= n!.DeepClone();
-            return Obj(
-                ("type", "object"),
-                ("description", description),
-                ("additionalProperties", false),
+            return Obj(("type", "object"), ("description", description), ("additionalProperties", false),
                 ("properties", union));
         }
         var all = new JsonArray();
@@ -218,10 +209,7 @@ public static class ScenarioSchema
                 return Obj(("description", description), ("anyOf", new JsonArray(Obj(("enum", Arr(f.Choices))), own)));
             }
             case FieldKind.Text when f.Pattern is { } pattern:
-                return Obj(
-                    ("type", "string"),
-                    ("maxLength", f.MaxLength),
-                    ("pattern", pattern),
+                return Obj(("type", "string"), ("maxLength", f.MaxLength), ("pattern", pattern),
                     ("description", description));
             case FieldKind.Text:
                 return Str(description, f.MaxLength);
@@ -230,10 +218,7 @@ public static class ScenarioSchema
             case FieldKind.Id:
                 return Obj(("type", "string"), ("pattern", "^[a-z0-9][a-z0-9_-]{0,63}$"), ("description", description));
             case FieldKind.Date:
-                return Obj(
-                    ("type", "string"),
-                    ("pattern", "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"),
-                    ("format", "date"),
+                return Obj(("type", "string"), ("pattern", "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"), ("format", "date"),
                     ("description", description));
             case FieldKind.Choice:
                 return Obj(("enum", Arr(f.Choices)), ("description", description));
@@ -255,9 +240,7 @@ public static class ScenarioSchema
 
     private static JsonObject Sections(bool strict)
     {
-        var scenario = Obj(
-            ("type", "object"),
-            ("additionalProperties", false),
+        var scenario = Obj(("type", "object"), ("additionalProperties", false),
             ("properties", Properties("", null, strict)));
         if (strict) scenario["required"] = Arr(Required(""));
         return scenario;

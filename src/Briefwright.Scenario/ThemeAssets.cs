@@ -99,15 +99,7 @@ public static class ThemeAssets
         return c ^ 0xFFFFFFFFu;
     }
 
-    private static readonly string[] RequiredTables = {
-        "cmap",
-        "glyf",
-        "head",
-        "hhea",
-        "hmtx",
-        "loca",
-        "maxp",
-        "name",
+    private static readonly string[] RequiredTables = { "cmap", "glyf", "head", "hhea", "hmtx", "loca", "maxp", "name",
         "post" };
 
     /// <summary>Why <paramref name="ttf"/> cannot be a theme font, or null: a TrueType font (glyf outlines) whose table

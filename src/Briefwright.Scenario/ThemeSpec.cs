@@ -6,11 +6,7 @@ using Briefwright.Scenario.Yaml;
 namespace Briefwright.Scenario;
 
 /// <summary>An organisation's look: name, paper size, colours (#RRGGBB), footer text and a PNG logo.</summary>
-public sealed record ThemeSpec(
-    string Name,
-    string Paper,
-    IReadOnlyDictionary<string, string> Colours,
-    string? Footer,
+public sealed record ThemeSpec(string Name, string Paper, IReadOnlyDictionary<string, string> Colours, string? Footer,
     string? LogoPath)
 {
     public static readonly string[] FontKeys = { "regular", "bold", "italic", "bold_italic" };
@@ -48,10 +44,8 @@ public static partial class ThemeLoader
     [GeneratedRegex(@"^#[0-9A-Fa-f]{6}\z")]
     private static partial Regex Hex();
 
-    public static (ThemeSpec? Theme, IReadOnlyList<Diagnostic> Problems, SourceSet Sources) Load(
-        string path,
-        ISourceReader reader,
-        string? projectRoot = null)
+    public static (ThemeSpec? Theme, IReadOnlyList<Diagnostic> Problems, SourceSet Sources) Load(string path,
+        ISourceReader reader, string? projectRoot = null)
     {
         var sources = new SourceSet();
         if (!reader.TryRead(path, out string text, out string error))
@@ -62,11 +56,11 @@ public static partial class ThemeLoader
         var (root, problems) = YamlTreeReader.Read(path, text, "theme");
         if (root is null) return (null, problems, sources);
         var ctx = new BindContext();
-        if (root is not YMapping top) { ctx.Report(
-            root.At,
-            "",
-            "a theme must be a mapping",
-            root.Kind); return (null, ctx.Problems, sources); }
+        if (root is not YMapping top)
+        {
+            ctx.Report(root.At, "", "a theme must be a mapping", root.Kind);
+            return (null, ctx.Problems, sources);
+        }
         ctx.CheckKeys(top, "", "name", "paper", "colours", "chart_colours", "footer", "logo", "fonts");
         string? name = ctx.Text(top, "name", "", required: true, maxLength: ThemeSchema.MaxName);
         string paper = ctx.Choice(top, "paper", "", required: false, "a4", "letter") ?? "a4";
@@ -141,21 +135,10 @@ public static partial class ThemeLoader
                 var at = f[key]!.At;
                 if (!file.EndsWith(".ttf", StringComparison.OrdinalIgnoreCase))
                     ctx.Report(at, $"fonts.{key}", "must be a TrueType font file (.ttf)", BindContext.Quote(file));
-                else if (ReadAsset(
-                    reader,
-                    ctx,
-                    path,
-                    file,
-                    project,
-                    at,
-                    $"fonts.{key}",
-                    ThemeAssets.MaxFontBytes,
+                else if (ReadAsset(reader, ctx, path, file, project, at, $"fonts.{key}", ThemeAssets.MaxFontBytes,
                     "font") is { } bytes)
                 {
-                    if (ThemeAssets.CheckTrueType(bytes) is { } rule) ctx.Report(
-                        at,
-                        $"fonts.{key}",
-                        rule,
+                    if (ThemeAssets.CheckTrueType(bytes) is { } rule) ctx.Report(at, $"fonts.{key}", rule,
                         BindContext.Quote(file));
                     else
                     {
@@ -180,21 +163,10 @@ public static partial class ThemeLoader
             var at = top["logo"]!.At;
             if (!logo.EndsWith(".png", StringComparison.OrdinalIgnoreCase))
                 ctx.Report(at, "logo", "must be a PNG file (.png)", BindContext.Quote(logo));
-            else if (ReadAsset(
-                reader,
-                ctx,
-                path,
-                logo,
-                project,
-                at,
-                "logo",
-                ThemeAssets.MaxLogoBytes,
+            else if (ReadAsset(reader, ctx, path, logo, project, at, "logo", ThemeAssets.MaxLogoBytes,
                 "logo") is { } png)
             {
-                if (ThemeAssets.CheckPng(png, out int w, out int h) is { } rule) ctx.Report(
-                    at,
-                    "logo",
-                    rule,
+                if (ThemeAssets.CheckPng(png, out int w, out int h) is { } rule) ctx.Report(at, "logo", rule,
                     BindContext.Quote(logo));
                 else
                 {
@@ -206,16 +178,8 @@ public static partial class ThemeLoader
         return (logoImage, logoPath);
     }
 
-    private static byte[]? ReadAsset(
-        ISourceReader reader,
-        BindContext ctx,
-        string theme,
-        string file,
-        string project,
-        SourceSpan at,
-        string field,
-        long maxBytes,
-        string what)
+    private static byte[]? ReadAsset(ISourceReader reader, BindContext ctx, string theme, string file, string project,
+        SourceSpan at, string field, long maxBytes, string what)
     {
         if (ProjectRoot.Resolve(theme, file, project, out string rule) is not { } full)
         {

@@ -34,9 +34,13 @@ public sealed partial class AnalysisBinder
         double? lo = ctx.Number(wrapper, "low", path + "[0]", unit, bounds);
         double? hi = ctx.Number(wrapper, "high", path + "[1]", unit, bounds);
         if (lo is null || hi is null) return null;
-        if (!(hi > lo)) { ctx.Report(seq.Items[1].At, path + "[1]",
-            "the high end must be above the low end " +
-            $"({lo.Value.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(seq.Items[1])); return null; }
+        if (!(hi > lo))
+        {
+            ctx.Report(seq.Items[1].At, path + "[1]",
+                "the high end must be above the low end " +
+                $"({lo.Value.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(seq.Items[1]));
+            return null;
+        }
         if (!Solvable(inputs, def, lo.Value, seq.Items[0], path + "[0]")
             || !Solvable(inputs, def, hi.Value, seq.Items[1], path + "[1]")) return null;
         return (lo.Value, hi.Value);
@@ -45,12 +49,7 @@ public sealed partial class AnalysisBinder
     /// <summary>Whether the scenario with <paramref name="def"/> set to <paramref name="value"/> still meets every
     /// model rule (the rules Monte Carlo draws are held to); reports the broken rule at <paramref name="node"/> when
     /// not.</summary>
-    private bool Solvable(
-        ModelInputs inputs,
-        Parameters.Definition def,
-        double value,
-        YNode node,
-        string path,
+    private bool Solvable(ModelInputs inputs, Parameters.Definition def, double value, YNode node, string path,
         (Parameters.Definition Def, double Value)? other = null)
     {
         var trial = def.Set(inputs, value);
@@ -85,16 +84,19 @@ public sealed partial class AnalysisBinder
             for (int i = 0; i < g.Items.Count; i++)
             {
                 string ip = $"sensitivity.grids[{i}]";
-                if (g.Items[i] is not YMapping item) { ctx.Report(g.Items[i].At, ip,
-                    "must be a mapping with x, x_range, y, y_range", g.Items[i].Kind); continue; }
+                if (g.Items[i] is not YMapping item)
+                {
+                    ctx.Report(g.Items[i].At, ip, "must be a mapping with x, x_range, y, y_range", g.Items[i].Kind);
+                    continue;
+                }
                 ctx.CheckFields(item, ip, F(gf));
                 var x = item["x"] as YScalar;
                 var y = item["y"] as YScalar;
-                if (x is null || y is null) { ctx.Report(
-                    item.At,
-                    ip,
-                    "needs x and y parameter names",
-                    null); continue; }
+                if (x is null || y is null)
+                {
+                    ctx.Report(item.At, ip, "needs x and y parameter names", null);
+                    continue;
+                }
                 var dx = Parameter(x, ip + ".x");
                 var dy = Parameter(y, ip + ".y");
                 double? steps = ctx.Number(item, F(gf + ".steps"), ip);
@@ -104,32 +106,17 @@ public sealed partial class AnalysisBinder
                 var xr = item["x_range"] is { } xn ? Pair(xn, ip + ".x_range", dx, inputs) : null;
                 var yr = item["y_range"] is { } yn ? Pair(yn, ip + ".y_range", dy, inputs) : null;
                 if (xr is null || yr is null) { if (item["x_range"] is null || item["y_range"] is null) ctx.Report(
-                    item.At,
-                    ip,
-                    "needs x_range and y_range",
-                    null); continue; }
+                    item.At, ip, "needs x_range and y_range", null); continue; }
                 // Every rule is linear or monotone in each parameter, so the grid's four corners stand for all its
                 // points.
                 bool cornersOk = true;
                 foreach (double xv in new[] { xr.Value.Low, xr.Value.High })
                     foreach (double yv in new[] { yr.Value.Low, yr.Value.High })
-                        if (cornersOk) cornersOk = Solvable(
-                            inputs,
-                            dx,
-                            xv,
-                            item["x_range"]!,
-                            ip + ".x_range",
+                        if (cornersOk) cornersOk = Solvable(inputs, dx, xv, item["x_range"]!, ip + ".x_range",
                             (dy, yv));
                 if (!cornersOk) continue;
-                grids.Add(new GridSpec(
-                    dx.Name,
-                    xr.Value.Low,
-                    xr.Value.High,
-                    dy.Name,
-                    yr.Value.Low,
-                    yr.Value.High,
-                    (int)steps.Value,
-                    output));
+                grids.Add(new GridSpec(dx.Name, xr.Value.Low, xr.Value.High, dy.Name, yr.Value.Low, yr.Value.High,
+                    (int)steps.Value, output));
             }
         return (ranges, grids);
     }
@@ -149,19 +136,19 @@ public sealed partial class AnalysisBinder
             {
                 string path = $"{p}.parameters.{key.Value}";
                 if (Parameter(key, path) is not { } def) continue;
-                if (value is not YMapping dm) { ctx.Report(value.At, path,
-                    "must be a mapping with a distribution and its parameters", value.Kind); continue; }
+                if (value is not YMapping dm)
+                {
+                    ctx.Report(value.At, path, "must be a mapping with a distribution and its parameters", value.Kind);
+                    continue;
+                }
                 if (BindDistribution(dm, path, def) is { } dist) parameters.Add(new UncertainParameter(def.Name, dist));
             }
         if (draws is null || seed is null || sobol is null) return null;
         if (parameters.Count == 0)
         {
             // Only when none was given: a parameter that failed to bind has already been reported where it was written.
-            if (m["parameters"] is not YMapping { Entries.Count: > 0 }) ctx.Report(
-                m.At,
-                p + ".parameters",
-                "must give at least one parameter a distribution",
-                null);
+            if (m["parameters"] is not YMapping { Entries.Count: > 0 }) ctx.Report(m.At, p + ".parameters",
+                "must give at least one parameter a distribution", null);
             return null;
         }
         var spec = new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);
@@ -267,30 +254,34 @@ public sealed partial class AnalysisBinder
                 double? mean = Value("mean"), sd = Value("sd");
                 double? lo = Value("low"), hi = Value("high");
                 if (mean is null || sd is null || lo is null || hi is null) return null;
-                if (!(hi > lo)) { ctx.Report(
-                    m["high"]!.At,
-                    path + ".high",
-                    "must be above low",
-                    BindContext.Show(m["high"]!)); return null; }
+                if (!(hi > lo))
+                {
+                    ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!));
+                    return null;
+                }
                 return new TruncatedNormalDistribution(mean.Value, sd.Value, lo.Value, hi.Value);
             }
             case "uniform":
             {
                 double? lo = Value("low"), hi = Value("high");
                 if (lo is null || hi is null) return null;
-                if (!(hi > lo)) { ctx.Report(
-                    m["high"]!.At,
-                    path + ".high",
-                    "must be above low",
-                    BindContext.Show(m["high"]!)); return null; }
+                if (!(hi > lo))
+                {
+                    ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!));
+                    return null;
+                }
                 return new UniformDistribution(lo.Value, hi.Value);
             }
             case "triangular":
             {
                 double? lo = Value("low"), mode = Value("mode"), hi = Value("high");
                 if (lo is null || mode is null || hi is null) return null;
-                if (!(lo <= mode && mode <= hi && hi > lo)) { ctx.Report(m["mode"]!.At, path + ".mode",
-                    "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!)); return null; }
+                if (!(lo <= mode && mode <= hi && hi > lo))
+                {
+                    ctx.Report(m["mode"]!.At, path + ".mode",
+                        "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!));
+                    return null;
+                }
                 return new TriangularDistribution(lo.Value, mode.Value, hi.Value);
             }
             case "lognormal":

@@ -98,10 +98,7 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         double? phase = ctx.Number(m, F("reform.phase_in_cohorts"), p);
         double? horizon = ctx.Number(m, F("reform.horizon_years"), p);
         foreach (var (key, v) in new[] { ("year", year), ("phase_in_cohorts", phase), ("horizon_years", horizon) })
-            if (v is { } x && x != Math.Floor(x)) ctx.Report(
-                m[key]!.At,
-                $"{p}.{key}",
-                "must be a whole number",
+            if (v is { } x && x != Math.Floor(x)) ctx.Report(m[key]!.At, $"{p}.{key}", "must be a whole number",
                 BindContext.Show(m[key]!));
         if (ctx.Text(m, F("reform.headline_option"), p) is { } h)
         {
@@ -131,10 +128,7 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (year is not { } y) return null;
         if (y != Math.Floor(y))
         {
-            ctx.Report(
-                m!["valuation_year"]!.At,
-                "appraisal.valuation_year",
-                "must be a whole number",
+            ctx.Report(m!["valuation_year"]!.At, "appraisal.valuation_year", "must be a whole number",
                 BindContext.Show(m["valuation_year"]!));
             return null;
         }
@@ -187,11 +181,8 @@ public sealed partial class AnalysisBinder(BindContext ctx)
                     break;
             }
         }
-        if (result.Count < F("appraisal.discount_rates").MinItems) ctx.Report(
-            list.At,
-            "appraisal.discount_rates",
-            "must list at least one discount rate",
-            "an empty list");
+        if (result.Count < F("appraisal.discount_rates").MinItems) ctx.Report(list.At, "appraisal.discount_rates",
+            "must list at least one discount rate", "an empty list");
         return result;
     }
 
@@ -215,8 +206,11 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         for (int j = 0; j < steps.Items.Count; j++)
         {
             string sp = $"{ip}.schedule[{j}]";
-            if (steps.Items[j] is not YMapping s) { ctx.Report(steps.Items[j].At, sp,
-                "must be a mapping with from_year and rate", steps.Items[j].Kind); continue; }
+            if (steps.Items[j] is not YMapping s)
+            {
+                ctx.Report(steps.Items[j].At, sp, "must be a mapping with from_year and rate", steps.Items[j].Kind);
+                continue;
+            }
             const string step = d + ".schedule[]";
             ctx.CheckFields(s, sp, F(step));
             double? from = ctx.Number(s, F(step + ".from_year"), sp);
@@ -224,9 +218,7 @@ public sealed partial class AnalysisBinder(BindContext ctx)
             if (from is null || rate is null) continue;
             if (j == 0 && from != 1) ctx.Report(s["from_year"]!.At, sp + ".from_year",
                 "the first step must start at year 1", BindContext.Show(s["from_year"]!));
-            if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(
-                s["from_year"]!.At,
-                sp + ".from_year",
+            if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(s["from_year"]!.At, sp + ".from_year",
                 $"steps must start at increasing years (previous step starts at {list[^1].FromYear})",
                 BindContext.Show(s["from_year"]!));
             list.Add(new DiscountStep((int)from.Value, rate.Value));

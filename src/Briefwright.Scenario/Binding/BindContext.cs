@@ -96,23 +96,10 @@ public sealed class BindContext
     /// <paramref name="fallback"/> replaces a default that depends on other fields, <paramref name="unit"/> and
     /// <paramref name="bounds"/> the field's own for a value in a parameter's unit.
     /// </summary>
-    public double? Number(
-        YMapping parent,
-        ScenarioField field,
-        string path,
-        double? fallback = null,
-        string? fallbackSource = null,
-        ValueUnit? unit = null,
-        Bounds? bounds = null) =>
-        Number(
-            parent,
-            field.Key,
-            path,
-            unit ?? field.Unit,
-            bounds ?? field.Bounds,
-            field.Assumption ? field.Label : null,
-            fallback ?? field.Default,
-            fallbackSource);
+    public double? Number(YMapping parent, ScenarioField field, string path, double? fallback = null,
+        string? fallbackSource = null, ValueUnit? unit = null, Bounds? bounds = null) =>
+        Number(parent, field.Key, path, unit ?? field.Unit, bounds ?? field.Bounds,
+            field.Assumption ? field.Label : null, fallback ?? field.Default, fallbackSource);
 
     public YMapping? Mapping(YMapping parent, string key, string path, bool required)
     {
@@ -203,15 +190,8 @@ public sealed class BindContext
     /// A number in <paramref name="bounds"/>. Rates accept a percent sign (2% = 0.02). Adds an assumptions row
     /// when <paramref name="label"/> is given.
     /// </summary>
-    public double? Number(
-        YMapping parent,
-        string key,
-        string path,
-        ValueUnit unit,
-        Bounds bounds,
-        string? label = null,
-        double? fallback = null,
-        string? fallbackSource = null)
+    public double? Number(YMapping parent, string key, string path, ValueUnit unit, Bounds bounds, string? label = null,
+        double? fallback = null, string? fallbackSource = null)
     {
         var node = parent[key];
         string p = Join(path, key);

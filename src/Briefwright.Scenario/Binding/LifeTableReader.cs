@@ -32,10 +32,7 @@ public static class LifeTableReader
                     "survivors", $"{cells.Length} columns");
                 continue;
             }
-            bool ageOk = double.TryParse(
-                cells[0].Trim(),
-                NumberStyles.Float,
-                CultureInfo.InvariantCulture,
+            bool ageOk = double.TryParse(cells[0].Trim(), NumberStyles.Float, CultureInfo.InvariantCulture,
                 out double age) && double.IsFinite(age);
             bool lOk = double.TryParse(cells[1].Trim(), NumberStyles.Float, CultureInfo.InvariantCulture, out double l)
                 && double.IsFinite(l);
@@ -43,8 +40,11 @@ public static class LifeTableReader
             if (!ageOk) { ctx.Report(at, path, "age must be a number", $"'{cells[0].Trim()}'"); continue; }
             var lAt = at with { Column = cells[0].Length + 2 };
             if (!lOk) { ctx.Report(lAt, path, "survivors must be a number", $"'{cells[1].Trim()}'"); continue; }
-            if (age < 0 || age > MaxAge) { ctx.Report(at, path,
-                $"ages must be from 0 to {MaxAge}", age.ToString(CultureInfo.InvariantCulture)); continue; }
+            if (age < 0 || age > MaxAge)
+            {
+                ctx.Report(at, path, $"ages must be from 0 to {MaxAge}", age.ToString(CultureInfo.InvariantCulture));
+                continue;
+            }
             if (ages.Count == 0 && age != 0) ctx.Report(at, path,
                 "the life table must start at age 0", age.ToString(CultureInfo.InvariantCulture));
             if (ages.Count > 0 && age <= ages[^1]) ctx.Report(at, path,

@@ -73,11 +73,7 @@ public sealed partial class ScenarioBinder(
         DateOnly? date = null;
         if (dateText is not null)
         {
-            if (DateOnly.TryParseExact(
-                dateText,
-                "yyyy-MM-dd",
-                CultureInfo.InvariantCulture,
-                DateTimeStyles.None,
+            if (DateOnly.TryParseExact(dateText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None,
                 out var d)) date = d;
             else ctx.Report(m["date"]!.At, "brief.date", "must be a date written YYYY-MM-DD", $"'{dateText}'");
         }
@@ -104,17 +100,8 @@ public sealed partial class ScenarioBinder(
             language = null;
         }
         if (id is null || title is null || organisation is null || date is null || edition is null) return null;
-        return new BriefInfo(
-            id,
-            title,
-            shortTitle ?? title,
-            organisation,
-            author,
-            date.Value,
-            status,
-            (int)edition.Value,
-            question,
-            language ?? LanguageTag.Default);
+        return new BriefInfo(id, title, shortTitle ?? title, organisation, author, date.Value, status,
+            (int)edition.Value, question, language ?? LanguageTag.Default);
     }
 
     private Demography? BindDemography(YMapping top)
@@ -302,9 +289,7 @@ public sealed partial class ScenarioBinder(
         return new Production(s.Value, alpha.Value, delta.Value, g.Value);
     }
 
-    private IReadOnlyList<PolicyOption>? BindOptions(
-        YMapping top,
-        out string? baselineId,
+    private IReadOnlyList<PolicyOption>? BindOptions(YMapping top, out string? baselineId,
         out Dictionary<string, string>? names)
     {
         baselineId = null;
@@ -347,9 +332,7 @@ public sealed partial class ScenarioBinder(
 
     /// <summary>One option (its id checked against <paramref name="ids"/>, the ids seen before it); null when it has a
     /// problem, which is reported.</summary>
-    private (PolicyOption Option, string? InSentence, bool IsBaseline)? BindOption(
-        YNode node,
-        int i,
+    private (PolicyOption Option, string? InSentence, bool IsBaseline)? BindOption(YNode node, int i,
         Dictionary<string, int> ids)
     {
         string ip = $"options[{i}]";

@@ -19,9 +19,7 @@ public static class YamlTreeReader
     /// <summary>
     /// Reads <paramref name="text"/>; <paramref name="what"/> ("scenario", "theme") names the kind of file in messages.
     /// </summary>
-    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(
-        string file,
-        string text,
+    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(string file, string text,
         string what = "scenario")
     {
         var problems = new List<Diagnostic>();
@@ -94,9 +92,7 @@ public static class YamlTreeReader
         public void Expect<T>() where T : ParsingEvent
         {
             if (parser.Current is null) parser.MoveNext();
-            if (parser.Current is not T) throw new YamlException(
-                parser.Current!.Start,
-                parser.Current.End,
+            if (parser.Current is not T) throw new YamlException(parser.Current!.Start, parser.Current.End,
                 $"expected {typeof(T).Name}");
             parser.MoveNext();
         }
