@@ -74,7 +74,8 @@ public static class Harness
     /// <summary>
     /// The demo scenario's model inputs and analysis settings, with the optimum that starts each draw's search.
     /// </summary>
-    private static (BriefBenchmarks Demo, Model.Inputs.ModelInputs Inputs, AnalysisSettings Settings, double Guess) DemoModel()
+    private static (BriefBenchmarks Demo, Model.Inputs.ModelInputs Inputs, AnalysisSettings Settings, double Guess)
+        DemoModel()
     {
         var b = new BriefBenchmarks();
         b.Setup();

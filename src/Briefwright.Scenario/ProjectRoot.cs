@@ -50,8 +50,8 @@ public static class ProjectRoot
     public static bool IsInside(string full, string root)
     {
         string r = Path.TrimEndingDirectorySeparator(root);
-        if (r.EndsWith(Path.DirectorySeparatorChar) || r.EndsWith(Path.AltDirectorySeparatorChar)) return full
-            .StartsWith(r, StringComparison.Ordinal);
+        if (r.EndsWith(Path.DirectorySeparatorChar) || r.EndsWith(Path.AltDirectorySeparatorChar))
+            return full.StartsWith(r, StringComparison.Ordinal);
         return full == r || full.StartsWith(r + Path.DirectorySeparatorChar, StringComparison.Ordinal);
     }
 }

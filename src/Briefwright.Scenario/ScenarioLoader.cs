@@ -96,8 +96,9 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
             ? !reader.TryRead(path, out text, out error)
             : !reader.TryReadInside(path, project, out text, out error))
         {
-            if (namedBy is { } by) problems.Add(new Diagnostic(by.At, "extends",
-                $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
+            if (namedBy is { } by)
+                problems.Add(new Diagnostic(by.At, "extends",
+                    $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
             else problems.Add(new Diagnostic(new SourceSpan(path, 1, 1), "",
                 $"cannot read the scenario ({error})", null));
             return null;

@@ -20,8 +20,9 @@ public static class ThemeAssets
     {
         width = height = 0;
         ReadOnlySpan<byte> signature = [0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A];
-        if (png.Length < 8 || !png.AsSpan(0, 8).SequenceEqual(signature)) return "must be a PNG image; the file is " +
-            "another kind of file";
+        if (png.Length < 8 || !png.AsSpan(0, 8).SequenceEqual(signature))
+            return "must be a PNG image; the file is " +
+                "another kind of file";
         if (png.Length < 33 || BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(8)) != 13
             || !png.AsSpan(12, 4).SequenceEqual("IHDR"u8))
             return "must be a whole PNG image; its header is missing or cut short";
@@ -29,11 +30,13 @@ public static class ThemeAssets
             png.AsSpan(20));
         int depth = png[24], colour = png[25], interlace = png[28];
         if (w == 0 || h == 0) return "must have a size; the image is 0 pixels wide or high";
-        if (w > MaxLogoPixels || h > MaxLogoPixels) return $"must be at most {MaxLogoPixels} × {MaxLogoPixels} " +
-            $"pixels; the image is {w} × {h}";
+        if (w > MaxLogoPixels || h > MaxLogoPixels)
+            return $"must be at most {MaxLogoPixels} × {MaxLogoPixels} " +
+                $"pixels; the image is {w} × {h}";
         int channels = colour switch { 0 => 1, 2 => 3, 3 => 1, 4 => 2, 6 => 4, _ => 0 };
-        if (channels == 0 || png[26] != 0 || png[27] != 0) return "must be a standard PNG image; its header names an " +
-            "unknown colour type or method";
+        if (channels == 0 || png[26] != 0 || png[27] != 0)
+            return "must be a standard PNG image; its header names an " +
+                "unknown colour type or method";
         if (depth != 8) return $"must have 8 bits per channel; the image has {depth}";
         if (interlace != 0) return "must not be interlaced; save it again without interlacing";
 
@@ -47,8 +50,9 @@ public static class ThemeAssets
             if (length > png.Length - at - 12) return "must be a whole PNG image; the file is cut short";
             var type = png.AsSpan(at + 4, 4);
             uint crc = BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(at + 8 + (int)length));
-            if (Crc32(png.AsSpan(at + 4, 4 + (int)length)) != crc) return "must be an undamaged PNG image; the " +
-                $"checksum of its {System.Text.Encoding.ASCII.GetString(type)} chunk does not match";
+            if (Crc32(png.AsSpan(at + 4, 4 + (int)length)) != crc)
+                return "must be an undamaged PNG image; the " +
+                    $"checksum of its {System.Text.Encoding.ASCII.GetString(type)} chunk does not match";
             if (type.SequenceEqual("IDAT"u8)) data.Write(png, at + 8, (int)length);
             else if (type.SequenceEqual("PLTE"u8)) palette = true;
             else if (type.SequenceEqual("IEND"u8)) end = true;
@@ -68,11 +72,13 @@ public static class ThemeAssets
             while ((n = z.Read(buffer, 0, buffer.Length)) > 0)
             {
                 for (int i = 0; i < n; i++)
-                    if ((seen + i) % row == 0 && buffer[i] > 4) return "must be an undamaged PNG image; its image " +
-                        "data is corrupt";
+                    if ((seen + i) % row == 0 && buffer[i] > 4)
+                        return "must be an undamaged PNG image; its image " +
+                            "data is corrupt";
                 seen += n;
-                if (seen > expected) return "must be an undamaged PNG image; it holds more image data than its size " +
-                    "allows";
+                if (seen > expected)
+                    return "must be an undamaged PNG image; it holds more image data than its size " +
+                        "allows";
             }
             if (seen < expected) return "must be a whole PNG image; its image data is cut short";
         }
@@ -112,8 +118,9 @@ public static class ThemeAssets
         if (ttf.Length < 12 || !(BinaryPrimitives.ReadUInt32BigEndian(ttf) is 0x00010000u or 0x74727565u))
             return "must be a TrueType font (glyf outlines); the file is not a TrueType font";
         int count = BinaryPrimitives.ReadUInt16BigEndian(ttf.AsSpan(4));
-        if (count == 0 || count > 256 || 12 + 16L * count > ttf.Length) return "must be a whole TrueType font; its " +
-            "table directory is cut short or damaged";
+        if (count == 0 || count > 256 || 12 + 16L * count > ttf.Length)
+            return "must be a whole TrueType font; its " +
+                "table directory is cut short or damaged";
         var tables = new Dictionary<string, (int Offset, int Length)>(StringComparer.Ordinal);
         for (int i = 0; i < count; i++)
         {
@@ -121,8 +128,9 @@ public static class ThemeAssets
             string tag = System.Text.Encoding.ASCII.GetString(entry[..4]);
             long offset = BinaryPrimitives.ReadUInt32BigEndian(entry[8..]), length = BinaryPrimitives
                 .ReadUInt32BigEndian(entry[12..]);
-            if (offset + length > ttf.Length) return $"must be a whole TrueType font; its '{BindingSafe(tag)}' table " +
-                "runs past the end of the file";
+            if (offset + length > ttf.Length)
+                return $"must be a whole TrueType font; its '{BindingSafe(tag)}' table " +
+                    "runs past the end of the file";
             tables[tag] = ((int)offset, (int)length);
         }
         foreach (var name in RequiredTables)
@@ -132,45 +140,51 @@ public static class ThemeAssets
             head[12..]) != 0x5F0F3CF5u) return "must be an undamaged TrueType font; its 'head' table is damaged";
         int unitsPerEm = BinaryPrimitives.ReadUInt16BigEndian(head[18..]);
         int locFormat = BinaryPrimitives.ReadInt16BigEndian(head[50..]);
-        if (unitsPerEm is < 16 or > 16384 || locFormat is not (0 or 1)) return "must be an undamaged TrueType font; " +
-            "its 'head' table is damaged";
+        if (unitsPerEm is < 16 or > 16384 || locFormat is not (0 or 1))
+            return "must be an undamaged TrueType font; " +
+                "its 'head' table is damaged";
         var maxp = Table(ttf, tables["maxp"]);
         if (maxp.Length < 6) return "must be an undamaged TrueType font; its 'maxp' table is damaged";
         int glyphs = BinaryPrimitives.ReadUInt16BigEndian(maxp[4..]);
         var hhea = Table(ttf, tables["hhea"]);
-        if (glyphs == 0 || hhea.Length < 36) return "must be an undamaged TrueType font; it has no glyphs or its " +
-            "'hhea' table is damaged";
+        if (glyphs == 0 || hhea.Length < 36)
+            return "must be an undamaged TrueType font; it has no glyphs or its " +
+                "'hhea' table is damaged";
         int metrics = BinaryPrimitives.ReadUInt16BigEndian(hhea[34..]);
         if (metrics == 0 || metrics > glyphs
             || Table(ttf, tables["hmtx"]).Length < 4L * metrics + 2L * (glyphs - metrics))
             return "must be an undamaged TrueType font; its glyph widths ('hmtx') do not match its glyph count";
         var loca = Table(ttf, tables["loca"]);
         int step = locFormat == 0 ? 2 : 4;
-        if (loca.Length < (glyphs + 1L) * step) return "must be an undamaged TrueType font; its glyph index ('loca') " +
-            "is cut short";
+        if (loca.Length < (glyphs + 1L) * step)
+            return "must be an undamaged TrueType font; its glyph index ('loca') " +
+                "is cut short";
         long previous = 0, glyf = tables["glyf"].Length;
         for (int g = 0; g <= glyphs; g++)
         {
             long offset = step == 2
                 ? BinaryPrimitives.ReadUInt16BigEndian(loca[(2 * g)..]) * 2L
                 : BinaryPrimitives.ReadUInt32BigEndian(loca[(4 * g)..]);
-            if (offset < previous || offset > glyf) return "must be an undamaged TrueType font; its glyph index " +
-                "('loca') points outside the glyphs";
+            if (offset < previous || offset > glyf)
+                return "must be an undamaged TrueType font; its glyph index " +
+                    "('loca') points outside the glyphs";
             previous = offset;
         }
         var cmap = Table(ttf, tables["cmap"]);
         if (cmap.Length < 4) return "must be an undamaged TrueType font; its character map ('cmap') is damaged";
         int maps = BinaryPrimitives.ReadUInt16BigEndian(cmap[2..]);
-        if (4L + 8L * maps > cmap.Length) return "must be an undamaged TrueType font; its character map ('cmap') is " +
-            "cut short";
+        if (4L + 8L * maps > cmap.Length)
+            return "must be an undamaged TrueType font; its character map ('cmap') is " +
+                "cut short";
         bool unicode = false;
         for (int i = 0; i < maps; i++)
         {
             int platform = BinaryPrimitives.ReadUInt16BigEndian(cmap[(4 + 8 * i)..]), encoding = BinaryPrimitives
                 .ReadUInt16BigEndian(cmap[(6 + 8 * i)..]);
             long offset = BinaryPrimitives.ReadUInt32BigEndian(cmap[(8 + 8 * i)..]);
-            if (offset + 4 > cmap.Length) return "must be an undamaged TrueType font; its character map ('cmap') " +
-                "points outside itself";
+            if (offset + 4 > cmap.Length)
+                return "must be an undamaged TrueType font; its character map ('cmap') " +
+                    "points outside itself";
             unicode |= platform == 0 || (platform == 3 && encoding is 1 or 10);
         }
         return unicode ? null : "must be a TrueType font with a Unicode character map; this one has none";

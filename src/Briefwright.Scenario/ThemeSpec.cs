@@ -138,8 +138,8 @@ public static partial class ThemeLoader
                 else if (ReadAsset(reader, ctx, path, file, project, at, $"fonts.{key}", ThemeAssets.MaxFontBytes,
                     "font") is { } bytes)
                 {
-                    if (ThemeAssets.CheckTrueType(bytes) is { } rule) ctx.Report(at, $"fonts.{key}", rule,
-                        BindContext.Quote(file));
+                    if (ThemeAssets.CheckTrueType(bytes) is { } rule)
+                        ctx.Report(at, $"fonts.{key}", rule, BindContext.Quote(file));
                     else
                     {
                         fonts[key] = ProjectRoot.Resolve(path, file, project, out _)!;
@@ -166,8 +166,8 @@ public static partial class ThemeLoader
             else if (ReadAsset(reader, ctx, path, logo, project, at, "logo", ThemeAssets.MaxLogoBytes,
                 "logo") is { } png)
             {
-                if (ThemeAssets.CheckPng(png, out int w, out int h) is { } rule) ctx.Report(at, "logo", rule,
-                    BindContext.Quote(logo));
+                if (ThemeAssets.CheckPng(png, out int w, out int h) is { } rule)
+                    ctx.Report(at, "logo", rule, BindContext.Quote(logo));
                 else
                 {
                     logoImage = (png, w, h);

@@ -76,8 +76,8 @@ public sealed partial class AnalysisBinder
             foreach (var (key, value) in r.Entries)
             {
                 string path = $"sensitivity.ranges.{key.Value}";
-                if (Parameter(key, path) is { } def && Pair(value, path, def, inputs) is { } pair) ranges.Add(
-                    new SensitivityRange(def.Name, pair.Low, pair.High));
+                if (Parameter(key, path) is { } def && Pair(value, path, def, inputs) is { } pair)
+                    ranges.Add(new SensitivityRange(def.Name, pair.Low, pair.High));
             }
         const string gf = "sensitivity.grids[]";
         if (ctx.Sequence(m, F("sensitivity.grids"), "sensitivity") is { } g)
@@ -112,8 +112,8 @@ public sealed partial class AnalysisBinder
                 bool cornersOk = true;
                 foreach (double xv in new[] { xr.Value.Low, xr.Value.High })
                     foreach (double yv in new[] { yr.Value.Low, yr.Value.High })
-                        if (cornersOk) cornersOk = Solvable(inputs, dx, xv, item["x_range"]!, ip + ".x_range",
-                            (dy, yv));
+                        if (cornersOk)
+                            cornersOk = Solvable(inputs, dx, xv, item["x_range"]!, ip + ".x_range", (dy, yv));
                 if (!cornersOk) continue;
                 grids.Add(new GridSpec(dx.Name, xr.Value.Low, xr.Value.High, dy.Name, yr.Value.Low, yr.Value.High,
                     (int)steps.Value, output));
@@ -147,8 +147,8 @@ public sealed partial class AnalysisBinder
         if (parameters.Count == 0)
         {
             // Only when none was given: a parameter that failed to bind has already been reported where it was written.
-            if (m["parameters"] is not YMapping { Entries.Count: > 0 }) ctx.Report(m.At, p + ".parameters",
-                "must give at least one parameter a distribution", null);
+            if (m["parameters"] is not YMapping { Entries.Count: > 0 })
+                ctx.Report(m.At, p + ".parameters", "must give at least one parameter a distribution", null);
             return null;
         }
         var spec = new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);

@@ -79,8 +79,9 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         // The headline option: the one the scenario names, else the first that differs from the baseline.
         var b = inputs.Baseline;
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
-        headline = (alternatives.FirstOrDefault(
-            o => inputs.DemographyFor(o) != inputs.DemographyFor(b) || o.SchoolingYears != b.SchoolingYears) ?? alternatives[0]).Id;
+        headline = (alternatives.FirstOrDefault(o =>
+            inputs.DemographyFor(o) != inputs.DemographyFor(b) || o.SchoolingYears != b.SchoolingYears)
+            ?? alternatives[0]).Id;
         var m = ctx.Mapping(top, F("reform"), "");
         int defaultYear = brief.Date.Year + 1;
         if ((m is null || m["year"] is null) && !YearBounds.Contains(defaultYear))
@@ -98,15 +99,15 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         double? phase = ctx.Number(m, F("reform.phase_in_cohorts"), p);
         double? horizon = ctx.Number(m, F("reform.horizon_years"), p);
         foreach (var (key, v) in new[] { ("year", year), ("phase_in_cohorts", phase), ("horizon_years", horizon) })
-            if (v is { } x && x != Math.Floor(x)) ctx.Report(m[key]!.At, $"{p}.{key}", "must be a whole number",
-                BindContext.Show(m[key]!));
+            if (v is { } x && x != Math.Floor(x))
+                ctx.Report(m[key]!.At, $"{p}.{key}", "must be a whole number", BindContext.Show(m[key]!));
         if (ctx.Text(m, F("reform.headline_option"), p) is { } h)
         {
             if (inputs.Options.All(o => o.Id != h) || h == inputs.BaselineId)
                 ctx.Report(m["headline_option"]!.At, "reform.headline_option",
                     "must name an option other than the baseline " +
-                    $"({string.Join(", ", inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id))}" +
-                    ")", $"'{h}'");
+                    $"({string.Join(", ", alternatives.Select(o => o.Id))})",
+                    $"'{h}'");
             else headline = h;
         }
         return year is null || phase is null || horizon is null
@@ -168,9 +169,9 @@ public sealed partial class AnalysisBinder(BindContext ctx)
                     result.Add(schedule);
                     break;
                 case YScalar s:
+                    string hint = Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "";
                     ctx.Report(s.At, ip, $"must be one of {string.Join(", ", known.Keys)} or a mapping with id, " +
-                        "label and rate or " +
-                        $"schedule{(Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "")}", $"'{s.Value}'");
+                        $"label and rate or schedule{hint}", $"'{s.Value}'");
                     break;
                 case YMapping item:
                     if (BindSchedule(item, ip) is { } own) result.Add(own);
@@ -181,8 +182,8 @@ public sealed partial class AnalysisBinder(BindContext ctx)
                     break;
             }
         }
-        if (result.Count < F("appraisal.discount_rates").MinItems) ctx.Report(list.At, "appraisal.discount_rates",
-            "must list at least one discount rate", "an empty list");
+        if (result.Count < F("appraisal.discount_rates").MinItems)
+            ctx.Report(list.At, "appraisal.discount_rates", "must list at least one discount rate", "an empty list");
         return result;
     }
 
@@ -216,11 +217,13 @@ public sealed partial class AnalysisBinder(BindContext ctx)
             double? from = ctx.Number(s, F(step + ".from_year"), sp);
             double? rate = ctx.Number(s, F(step + ".rate"), sp);
             if (from is null || rate is null) continue;
-            if (j == 0 && from != 1) ctx.Report(s["from_year"]!.At, sp + ".from_year",
-                "the first step must start at year 1", BindContext.Show(s["from_year"]!));
-            if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(s["from_year"]!.At, sp + ".from_year",
-                $"steps must start at increasing years (previous step starts at {list[^1].FromYear})",
-                BindContext.Show(s["from_year"]!));
+            if (j == 0 && from != 1)
+                ctx.Report(s["from_year"]!.At, sp + ".from_year",
+                    "the first step must start at year 1", BindContext.Show(s["from_year"]!));
+            if (list.Count > 0 && from <= list[^1].FromYear)
+                ctx.Report(s["from_year"]!.At, sp + ".from_year",
+                    $"steps must start at increasing years (previous step starts at {list[^1].FromYear})",
+                    BindContext.Show(s["from_year"]!));
             list.Add(new DiscountStep((int)from.Value, rate.Value));
         }
         return id is null || label is null || list.Count == 0 ? null : new DiscountSchedule(id, label, list);

@@ -216,8 +216,9 @@ public sealed class BindContext
                 Report(node?.At ?? parent.At, p, "required field is missing", null);
                 return null;
             }
-            if (label is not null) assumptions.Add(
-                new Assumption(Join(path, key), label, fallback, null, unit, fallbackSource ?? "default", null));
+            if (label is not null)
+                assumptions.Add(new Assumption(Join(path, key), label, fallback, null, unit,
+                    fallbackSource ?? "default", null));
             return fallback;
         }
         if (node is not YScalar s)

@@ -45,18 +45,21 @@ public static class LifeTableReader
                 ctx.Report(at, path, $"ages must be from 0 to {MaxAge}", age.ToString(CultureInfo.InvariantCulture));
                 continue;
             }
-            if (ages.Count == 0 && age != 0) ctx.Report(at, path,
-                "the life table must start at age 0", age.ToString(CultureInfo.InvariantCulture));
-            if (ages.Count > 0 && age <= ages[^1]) ctx.Report(at, path,
-                "ages must increase (previous row: " +
-                $"{ages[^1].ToString(CultureInfo.InvariantCulture)})", age.ToString(CultureInfo.InvariantCulture));
-            if (l < 0) ctx.Report(lAt, path,
-                "survivors must not be negative", l.ToString(CultureInfo.InvariantCulture));
-            if (ages.Count == 0 && l <= 0) ctx.Report(lAt, path,
-                "survivors at age 0 must be positive", l.ToString(CultureInfo.InvariantCulture));
-            if (survivors.Count > 0 && l > survivors[^1]) ctx.Report(lAt, path,
-                "survivors must not increase with age (previous row: " +
-                $"{survivors[^1].ToString(CultureInfo.InvariantCulture)})", l.ToString(CultureInfo.InvariantCulture));
+            if (ages.Count == 0 && age != 0)
+                ctx.Report(at, path, "the life table must start at age 0", age.ToString(CultureInfo.InvariantCulture));
+            if (ages.Count > 0 && age <= ages[^1])
+                ctx.Report(at, path,
+                    $"ages must increase (previous row: {ages[^1].ToString(CultureInfo.InvariantCulture)})",
+                    age.ToString(CultureInfo.InvariantCulture));
+            if (l < 0)
+                ctx.Report(lAt, path, "survivors must not be negative", l.ToString(CultureInfo.InvariantCulture));
+            if (ages.Count == 0 && l <= 0)
+                ctx.Report(lAt, path, "survivors at age 0 must be positive", l.ToString(CultureInfo.InvariantCulture));
+            if (survivors.Count > 0 && l > survivors[^1])
+                ctx.Report(lAt, path,
+                    "survivors must not increase with age (previous row: " +
+                    $"{survivors[^1].ToString(CultureInfo.InvariantCulture)})",
+                    l.ToString(CultureInfo.InvariantCulture));
             ages.Add(age);
             survivors.Add(l);
             if (ages.Count > MaxRows)

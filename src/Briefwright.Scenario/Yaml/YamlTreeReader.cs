@@ -27,13 +27,14 @@ public static class YamlTreeReader
         long bytes = System.Text.Encoding.UTF8.GetByteCount(text);
         if (bytes > MaxBytes)
             return (null, new[] { new Diagnostic(start, "",
-                $"file is larger than the limit for a {what} of 1 MiB ({Numbers.Count(MaxBytes)} " +
-                "bytes)", $"{Numbers.Count(bytes)} bytes") });
+                $"file is larger than the limit for a {what} of 1 MiB ({Numbers.Count(MaxBytes)} bytes)",
+                $"{Numbers.Count(bytes)} bytes") });
         if (text.Contains('\0'))
             return (null, new[] { new Diagnostic(start, "", "file is binary, not YAML text", "a NUL byte") });
         if (string.IsNullOrWhiteSpace(StripComments(text)))
-            return (null, new[] { new Diagnostic(start, "", what == "scenario" ? "file is empty; a scenario needs at " +
-                "least the brief, demography and options sections" : $"file is empty; a {what} needs at least a name", "nothing") });
+            return (null, new[] { new Diagnostic(start, "", what == "scenario"
+                ? "file is empty; a scenario needs at least the brief, demography and options sections"
+                : $"file is empty; a {what} needs at least a name", "nothing") });
 
         var state = new State(file, new Parser(new StringReader(text)), problems);
         try
@@ -92,8 +93,8 @@ public static class YamlTreeReader
         public void Expect<T>() where T : ParsingEvent
         {
             if (parser.Current is null) parser.MoveNext();
-            if (parser.Current is not T) throw new YamlException(parser.Current!.Start, parser.Current.End,
-                $"expected {typeof(T).Name}");
+            if (parser.Current is not T)
+                throw new YamlException(parser.Current!.Start, parser.Current.End, $"expected {typeof(T).Name}");
             parser.MoveNext();
         }
 
