@@ -21,8 +21,7 @@ public static class ThemeAssets
         width = height = 0;
         ReadOnlySpan<byte> signature = [0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A];
         if (png.Length < 8 || !png.AsSpan(0, 8).SequenceEqual(signature))
-            return "must be a PNG image; the file is " +
-                "another kind of file";
+            return "must be a PNG image; the file is another kind of file";
         if (png.Length < 33 || BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(8)) != 13
             || !png.AsSpan(12, 4).SequenceEqual("IHDR"u8))
             return "must be a whole PNG image; its header is missing or cut short";
@@ -31,12 +30,10 @@ public static class ThemeAssets
         int depth = png[24], colour = png[25], interlace = png[28];
         if (w == 0 || h == 0) return "must have a size; the image is 0 pixels wide or high";
         if (w > MaxLogoPixels || h > MaxLogoPixels)
-            return $"must be at most {MaxLogoPixels} × {MaxLogoPixels} " +
-                $"pixels; the image is {w} × {h}";
+            return $"must be at most {MaxLogoPixels} × {MaxLogoPixels} pixels; the image is {w} × {h}";
         int channels = colour switch { 0 => 1, 2 => 3, 3 => 1, 4 => 2, 6 => 4, _ => 0 };
         if (channels == 0 || png[26] != 0 || png[27] != 0)
-            return "must be a standard PNG image; its header names an " +
-                "unknown colour type or method";
+            return "must be a standard PNG image; its header names an unknown colour type or method";
         if (depth != 8) return $"must have 8 bits per channel; the image has {depth}";
         if (interlace != 0) return "must not be interlaced; save it again without interlacing";
 
@@ -73,12 +70,10 @@ public static class ThemeAssets
             {
                 for (int i = 0; i < n; i++)
                     if ((seen + i) % row == 0 && buffer[i] > 4)
-                        return "must be an undamaged PNG image; its image " +
-                            "data is corrupt";
+                        return "must be an undamaged PNG image; its image data is corrupt";
                 seen += n;
                 if (seen > expected)
-                    return "must be an undamaged PNG image; it holds more image data than its size " +
-                        "allows";
+                    return "must be an undamaged PNG image; it holds more image data than its size allows";
             }
             if (seen < expected) return "must be a whole PNG image; its image data is cut short";
         }
@@ -119,8 +114,7 @@ public static class ThemeAssets
             return "must be a TrueType font (glyf outlines); the file is not a TrueType font";
         int count = BinaryPrimitives.ReadUInt16BigEndian(ttf.AsSpan(4));
         if (count == 0 || count > 256 || 12 + 16L * count > ttf.Length)
-            return "must be a whole TrueType font; its " +
-                "table directory is cut short or damaged";
+            return "must be a whole TrueType font; its table directory is cut short or damaged";
         var tables = new Dictionary<string, (int Offset, int Length)>(StringComparer.Ordinal);
         for (int i = 0; i < count; i++)
         {
@@ -129,8 +123,7 @@ public static class ThemeAssets
             long offset = BinaryPrimitives.ReadUInt32BigEndian(entry[8..]), length = BinaryPrimitives
                 .ReadUInt32BigEndian(entry[12..]);
             if (offset + length > ttf.Length)
-                return $"must be a whole TrueType font; its '{BindingSafe(tag)}' table " +
-                    "runs past the end of the file";
+                return $"must be a whole TrueType font; its '{BindingSafe(tag)}' table runs past the end of the file";
             tables[tag] = ((int)offset, (int)length);
         }
         foreach (var name in RequiredTables)
@@ -141,15 +134,13 @@ public static class ThemeAssets
         int unitsPerEm = BinaryPrimitives.ReadUInt16BigEndian(head[18..]);
         int locFormat = BinaryPrimitives.ReadInt16BigEndian(head[50..]);
         if (unitsPerEm is < 16 or > 16384 || locFormat is not (0 or 1))
-            return "must be an undamaged TrueType font; " +
-                "its 'head' table is damaged";
+            return "must be an undamaged TrueType font; its 'head' table is damaged";
         var maxp = Table(ttf, tables["maxp"]);
         if (maxp.Length < 6) return "must be an undamaged TrueType font; its 'maxp' table is damaged";
         int glyphs = BinaryPrimitives.ReadUInt16BigEndian(maxp[4..]);
         var hhea = Table(ttf, tables["hhea"]);
         if (glyphs == 0 || hhea.Length < 36)
-            return "must be an undamaged TrueType font; it has no glyphs or its " +
-                "'hhea' table is damaged";
+            return "must be an undamaged TrueType font; it has no glyphs or its 'hhea' table is damaged";
         int metrics = BinaryPrimitives.ReadUInt16BigEndian(hhea[34..]);
         if (metrics == 0 || metrics > glyphs
             || Table(ttf, tables["hmtx"]).Length < 4L * metrics + 2L * (glyphs - metrics))
@@ -157,8 +148,7 @@ public static class ThemeAssets
         var loca = Table(ttf, tables["loca"]);
         int step = locFormat == 0 ? 2 : 4;
         if (loca.Length < (glyphs + 1L) * step)
-            return "must be an undamaged TrueType font; its glyph index ('loca') " +
-                "is cut short";
+            return "must be an undamaged TrueType font; its glyph index ('loca') is cut short";
         long previous = 0, glyf = tables["glyf"].Length;
         for (int g = 0; g <= glyphs; g++)
         {
@@ -166,16 +156,14 @@ public static class ThemeAssets
                 ? BinaryPrimitives.ReadUInt16BigEndian(loca[(2 * g)..]) * 2L
                 : BinaryPrimitives.ReadUInt32BigEndian(loca[(4 * g)..]);
             if (offset < previous || offset > glyf)
-                return "must be an undamaged TrueType font; its glyph index " +
-                    "('loca') points outside the glyphs";
+                return "must be an undamaged TrueType font; its glyph index ('loca') points outside the glyphs";
             previous = offset;
         }
         var cmap = Table(ttf, tables["cmap"]);
         if (cmap.Length < 4) return "must be an undamaged TrueType font; its character map ('cmap') is damaged";
         int maps = BinaryPrimitives.ReadUInt16BigEndian(cmap[2..]);
         if (4L + 8L * maps > cmap.Length)
-            return "must be an undamaged TrueType font; its character map ('cmap') is " +
-                "cut short";
+            return "must be an undamaged TrueType font; its character map ('cmap') is cut short";
         bool unicode = false;
         for (int i = 0; i < maps; i++)
         {
@@ -183,8 +171,7 @@ public static class ThemeAssets
                 .ReadUInt16BigEndian(cmap[(6 + 8 * i)..]);
             long offset = BinaryPrimitives.ReadUInt32BigEndian(cmap[(8 + 8 * i)..]);
             if (offset + 4 > cmap.Length)
-                return "must be an undamaged TrueType font; its character map ('cmap') " +
-                    "points outside itself";
+                return "must be an undamaged TrueType font; its character map ('cmap') points outside itself";
             unicode |= platform == 0 || (platform == 3 && encoding is 1 or 10);
         }
         return unicode ? null : "must be a TrueType font with a Unicode character map; this one has none";
