@@ -25,8 +25,8 @@ public class ModelBenchmarks
     public object SolveBalancedGrowth() => BalancedGrowth.Solve(scenario.Inputs);
 
     [Benchmark]
-    public object ReformPath()
-        => ReformSimulator.Simulate(scenario.Inputs, scenario.Inputs.Options[1], scenario.Analysis.Reform);
+    public object ReformPath() =>
+        ReformSimulator.Simulate(scenario.Inputs, scenario.Inputs.Options[1], scenario.Analysis.Reform);
 
     [Benchmark]
     public double LocalOptimum() => OptimumSearch.LocalFrom(scenario.Inputs.DemographyFor(scenario.Inputs.Baseline),

@@ -12,8 +12,8 @@ public interface ISourceReader
     /// A file that an input names (an extended scenario, a life table): read only when it is a regular file that is
     /// still inside <paramref name="root"/> once symbolic links are followed.
     /// </summary>
-    bool TryReadInside(string path, string root, out string text, out string error)
-        => TryRead(path, out text, out error);
+    bool TryReadInside(string path, string root, out string text, out string error) =>
+        TryRead(path, out text, out error);
 
     /// <summary>
     /// A binary file that a theme names (logo, font), under the same rules and at most <paramref name="maxBytes"/>

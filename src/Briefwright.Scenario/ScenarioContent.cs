@@ -23,8 +23,8 @@ public static class ScenarioContent
     }
 
     /// <summary>Where <c>brief.edition</c> is written (after <c>extends</c>), if it is.</summary>
-    public static SourceSpan? EditionAt(YMapping tree)
-        => tree["brief"] is YMapping b && b["edition"] is { } e ? e.At : null;
+    public static SourceSpan? EditionAt(YMapping tree) =>
+        tree["brief"] is YMapping b && b["edition"] is { } e ? e.At : null;
 
     private static void Write(YNode node, string path, StringBuilder text)
     {

@@ -37,8 +37,8 @@ public static class LanguageTag
     /// <summary>
     /// Whether <paramref name="c"/> belongs to a right-to-left script (Hebrew, Arabic, Syriac, Thaana, N'Ko, …).
     /// </summary>
-    public static bool IsRightToLeft(
-        int c) => c is (>= 0x0590 and <= 0x08FF) or (>= 0xFB1D and <= 0xFDFF) or (>= 0xFE70 and <= 0xFEFF)
+    public static bool IsRightToLeft(int c) =>
+        c is (>= 0x0590 and <= 0x08FF) or (>= 0xFB1D and <= 0xFDFF) or (>= 0xFE70 and <= 0xFEFF)
         or (>= 0x10800 and <= 0x10FFF) or (>= 0x1E800 and <= 0x1EFFF);
 }
 
@@ -106,8 +106,8 @@ public sealed record ScenarioDocument(
         : InSentence.FromLabel(Inputs.Options.First(o => o.Id == id).Label);
 
     /// <summary>The in-sentence name of the appraisal rule <paramref name="id"/>.</summary>
-    public string RuleName(string id)
-        => RuleNames.TryGetValue(id, out var n) ? n : Analysis.Discounts.First(d => d.Id == id).Label;
+    public string RuleName(string id) =>
+        RuleNames.TryGetValue(id, out var n) ? n : Analysis.Discounts.First(d => d.Id == id).Label;
 }
 
 /// <summary>Default in-sentence names for options and appraisal rules.</summary>

@@ -34,14 +34,13 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
 
         var ctx = new BindContext();
         var tables = new List<string>();
-        var binder = new ScenarioBinder(
-            ctx,
-            (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
+        var binder = new ScenarioBinder(ctx, (file, at, fieldPath) =>
+             LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
         var document = binder.Bind(tree, files);
         return new LoadResult(document is null ? null : document with
         {
-            InputHash = sources.Hash(), ContentHash = ScenarioContent.Hash(tree, tables), EditionAt = ScenarioContent
-                .EditionAt(tree),
+            InputHash = sources.Hash(), ContentHash = ScenarioContent.Hash(tree, tables),
+            EditionAt = ScenarioContent.EditionAt(tree),
         }, ctx.Problems, sources);
     }
 

@@ -26,11 +26,11 @@ public static class ScenarioSchema
         return o;
     }
 
-    private static JsonArray Arr(params string[] items)
-        => new(items.Select(i => (JsonNode?)JsonValue.Create(i)).ToArray());
+    private static JsonArray Arr(params string[] items) =>
+        new(items.Select(i => (JsonNode?)JsonValue.Create(i)).ToArray());
 
-    private static JsonObject Str(string description, int maxLength = 400)
-        => Obj(("type", "string"), ("maxLength", maxLength), ("description", description));
+    private static JsonObject Str(string description, int maxLength = 400) =>
+        Obj(("type", "string"), ("maxLength", maxLength), ("description", description));
 
     /// <summary>A bare number within <paramref name="b"/>.</summary>
     private static JsonObject Bare(Bounds b, bool integer)
@@ -103,10 +103,10 @@ public static class ScenarioSchema
 
     private static JsonObject Wrap(string description, JsonObject bare)
     {
-        var wrapped = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr(
-            "value")), ("properties", Obj(
-            ("value", bare.DeepClone()), ("source", Str("Where the value comes from (assumptions " +
-                "table)")), ("note", Str("A note for the assumptions table", 1000)))));
+        var wrapped = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr("value")),
+            ("properties", Obj(("value", bare.DeepClone()),
+                ("source", Str("Where the value comes from (assumptions table)")),
+                ("note", Str("A note for the assumptions table", 1000)))));
         return Obj(("description", description), ("anyOf", new JsonArray(bare, wrapped)));
     }
 
@@ -141,8 +141,8 @@ public static class ScenarioSchema
                 ("then", Obj(("additionalProperties", false), ("required", Arr(v.Required)), ("properties", props)))));
         }
         return Obj(("type", "object"), ("description", description), ("required", Arr(selector)),
-            ("properties", Obj(
-                (selector, Obj(("enum", Arr(variants.Select(v => v.Name).ToArray())))))), ("allOf", all));
+            ("properties", Obj((selector, Obj(("enum", Arr(variants.Select(v => v.Name).ToArray())))))),
+            ("allOf", all));
     }
 
     private static string Describe(ScenarioField f)
@@ -160,8 +160,8 @@ public static class ScenarioSchema
     }
 
     private static string[] Required(string path, string? variant = null, string? skip = null) =>
-        ScenarioFields.Children(path, variant).Where(f => f.Required && f.Key != skip).Select(f => f.Key).Distinct()
-            .ToArray();
+        ScenarioFields.Children(path, variant).Where(f => f.Required && f.Key != skip)
+            .Select(f => f.Key).Distinct().ToArray();
 
     private static JsonObject Array(ScenarioField f, JsonObject items)
     {
@@ -256,7 +256,8 @@ public static class ScenarioSchema
         ("then", Obj(("$ref", "#/$defs/partial"))),
         ("else", Obj(("$ref", "#/$defs/complete"))));
 
-    public static string Text() => Build().ToJsonString(new JsonSerializerOptions {
-        WriteIndented = true,
-        Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + "\n";
+    public static string Text() => Build().ToJsonString(new JsonSerializerOptions
+    {
+        WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+    }) + "\n";
 }

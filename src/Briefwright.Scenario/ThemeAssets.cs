@@ -25,8 +25,8 @@ public static class ThemeAssets
         if (png.Length < 33 || BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(8)) != 13
             || !png.AsSpan(12, 4).SequenceEqual("IHDR"u8))
             return "must be a whole PNG image; its header is missing or cut short";
-        long w = BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(16)), h = BinaryPrimitives.ReadUInt32BigEndian(
-            png.AsSpan(20));
+        long w = BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(16));
+        long h = BinaryPrimitives.ReadUInt32BigEndian(png.AsSpan(20));
         int depth = png[24], colour = png[25], interlace = png[28];
         if (w == 0 || h == 0) return "must have a size; the image is 0 pixels wide or high";
         if (w > MaxLogoPixels || h > MaxLogoPixels)
@@ -100,8 +100,8 @@ public static class ThemeAssets
         return c ^ 0xFFFFFFFFu;
     }
 
-    private static readonly string[] RequiredTables = { "cmap", "glyf", "head", "hhea", "hmtx", "loca", "maxp", "name",
-        "post" };
+    private static readonly string[] RequiredTables =
+        { "cmap", "glyf", "head", "hhea", "hmtx", "loca", "maxp", "name", "post" };
 
     /// <summary>Why <paramref name="ttf"/> cannot be a theme font, or null: a TrueType font (glyf outlines) whose table
     /// directory, required tables, glyph index and character map are whole and consistent.</summary>
@@ -120,8 +120,8 @@ public static class ThemeAssets
         {
             var entry = ttf.AsSpan(12 + 16 * i, 16);
             string tag = System.Text.Encoding.ASCII.GetString(entry[..4]);
-            long offset = BinaryPrimitives.ReadUInt32BigEndian(entry[8..]), length = BinaryPrimitives
-                .ReadUInt32BigEndian(entry[12..]);
+            long offset = BinaryPrimitives.ReadUInt32BigEndian(entry[8..]);
+            long length = BinaryPrimitives.ReadUInt32BigEndian(entry[12..]);
             if (offset + length > ttf.Length)
                 return $"must be a whole TrueType font; its '{BindingSafe(tag)}' table runs past the end of the file";
             tables[tag] = ((int)offset, (int)length);
@@ -129,8 +129,8 @@ public static class ThemeAssets
         foreach (var name in RequiredTables)
             if (!tables.ContainsKey(name)) return $"must be a whole TrueType font; it has no '{name}' table";
         var head = Table(ttf, tables["head"]);
-        if (head.Length < 54 || BinaryPrimitives.ReadUInt32BigEndian(
-            head[12..]) != 0x5F0F3CF5u) return "must be an undamaged TrueType font; its 'head' table is damaged";
+        if (head.Length < 54 || BinaryPrimitives.ReadUInt32BigEndian(head[12..]) != 0x5F0F3CF5u)
+            return "must be an undamaged TrueType font; its 'head' table is damaged";
         int unitsPerEm = BinaryPrimitives.ReadUInt16BigEndian(head[18..]);
         int locFormat = BinaryPrimitives.ReadInt16BigEndian(head[50..]);
         if (unitsPerEm is < 16 or > 16384 || locFormat is not (0 or 1))
@@ -167,8 +167,8 @@ public static class ThemeAssets
         bool unicode = false;
         for (int i = 0; i < maps; i++)
         {
-            int platform = BinaryPrimitives.ReadUInt16BigEndian(cmap[(4 + 8 * i)..]), encoding = BinaryPrimitives
-                .ReadUInt16BigEndian(cmap[(6 + 8 * i)..]);
+            int platform = BinaryPrimitives.ReadUInt16BigEndian(cmap[(4 + 8 * i)..]);
+            int encoding = BinaryPrimitives.ReadUInt16BigEndian(cmap[(6 + 8 * i)..]);
             long offset = BinaryPrimitives.ReadUInt32BigEndian(cmap[(8 + 8 * i)..]);
             if (offset + 4 > cmap.Length)
                 return "must be an undamaged TrueType font; its character map ('cmap') points outside itself";
@@ -179,6 +179,6 @@ public static class ThemeAssets
 
     private static ReadOnlySpan<byte> Table(byte[] ttf, (int Offset, int Length) t) => ttf.AsSpan(t.Offset, t.Length);
 
-    private static string BindingSafe(string tag)
-        => new(tag.Select(c => c is >= ' ' and < (char)127 ? c : '?').ToArray());
+    private static string BindingSafe(string tag) =>
+        new(tag.Select(c => c is >= ' ' and < (char)127 ? c : '?').ToArray());
 }

@@ -26,8 +26,8 @@ public sealed record ThemeSpec(string Name, string Paper, IReadOnlyDictionary<st
     /// <summary>How many chart colours a theme may give.</summary>
     public const int MinChartColours = 2, MaxChartColours = 8;
 
-    public static ThemeSpec Default { get; }
-        = new("briefwright standard", "a4", new Dictionary<string, string>(), null, null);
+    public static ThemeSpec Default { get; } =
+        new("briefwright standard", "a4", new Dictionary<string, string>(), null, null);
 
     /// <summary>The logo as read and checked by <see cref="ThemeLoader"/>: PNG bytes and size in pixels.</summary>
     public (byte[] Png, int Width, int Height)? Logo { get; init; }

@@ -26,9 +26,11 @@ public sealed partial class AnalysisBinder
             ctx.Report(node.At, path, "must be a list of two numbers, [low, high]", node.Kind);
             return null;
         }
-        var wrapper = new YMapping(new[] {
+        var wrapper = new YMapping(new[]
+        {
             new KeyValuePair<YScalar, YNode>(new YScalar("low", false, seq.At), seq.Items[0]),
-            new(new YScalar("high", false, seq.At), seq.Items[1]) }, seq.At);
+            new(new YScalar("high", false, seq.At), seq.Items[1]),
+        }, seq.At);
         var unit = def.IsRate ? ValueUnit.Rate : ValueUnit.Number;
         var bounds = ParameterBounds.For(def.Name);
         double? lo = ctx.Number(wrapper, "low", path + "[0]", unit, bounds);
@@ -105,8 +107,12 @@ public sealed partial class AnalysisBinder
                 if (dx == dy) { ctx.Report(y.At, ip + ".y", "must differ from x", $"'{y.Value}'"); continue; }
                 var xr = item["x_range"] is { } xn ? Pair(xn, ip + ".x_range", dx, inputs) : null;
                 var yr = item["y_range"] is { } yn ? Pair(yn, ip + ".y_range", dy, inputs) : null;
-                if (xr is null || yr is null) { if (item["x_range"] is null || item["y_range"] is null) ctx.Report(
-                    item.At, ip, "needs x_range and y_range", null); continue; }
+                if (xr is null || yr is null)
+                {
+                    if (item["x_range"] is null || item["y_range"] is null)
+                        ctx.Report(item.At, ip, "needs x_range and y_range", null);
+                    continue;
+                }
                 // Every rule is linear or monotone in each parameter, so the grid's four corners stand for all its
                 // points.
                 bool cornersOk = true;

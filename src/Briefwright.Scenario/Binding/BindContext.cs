@@ -20,8 +20,8 @@ public sealed class BindContext
     public IReadOnlyList<Assumption> Assumptions => assumptions;
     public IReadOnlyList<TextField> Texts => texts;
 
-    public void Report(SourceSpan at, string path, string rule, string? got)
-        => problems.Add(new Diagnostic(at, path, rule, got));
+    public void Report(SourceSpan at, string path, string rule, string? got) =>
+        problems.Add(new Diagnostic(at, path, rule, got));
 
     public void Add(Assumption assumption) => assumptions.Add(assumption);
 
@@ -35,8 +35,8 @@ public sealed class BindContext
     };
 
     /// <summary>Text as a message quotes it: at most 80 characters, control characters written as escapes.</summary>
-    public static string Quote(string value)
-        => value.Length > 80 ? $"'{Printable(value[..80])}…'" : $"'{Printable(value)}'";
+    public static string Quote(string value) =>
+        value.Length > 80 ? $"'{Printable(value[..80])}…'" : $"'{Printable(value)}'";
 
     /// <summary>Control characters (a newline in an id, say) as escapes, so a message stays on one line.</summary>
     public static string Printable(string value)
@@ -77,8 +77,8 @@ public sealed class BindContext
     public void CheckFields(YMapping map, string path, ScenarioField field, string? variant = null) =>
         CheckKeys(map, path, ScenarioFields.Keys(field.Path, variant));
 
-    public YMapping? Mapping(YMapping parent, ScenarioField field, string path)
-        => Mapping(parent, field.Key, path, field.Required);
+    public YMapping? Mapping(YMapping parent, ScenarioField field, string path) =>
+        Mapping(parent, field.Key, path, field.Required);
 
     public YSequence? Sequence(YMapping parent, ScenarioField field, string path, bool? required = null) =>
         Sequence(parent, field.Key, path, required ?? field.Required);

@@ -36,16 +36,14 @@ public sealed partial class ScenarioBinder(
         var production = BindProduction(top);
         var options = BindOptions(top, out string? baselineId, out var optionNames);
         if (brief is null || demography is null || humanCapital is null || production is null || options is null
-            || baselineId is null
-            || ctx.Problems.Count > 0)
+            || baselineId is null || ctx.Problems.Count > 0)
             return null;
         var inputs = new ModelInputs(demography, humanCapital, production, options, baselineId);
         CrossFieldRules.Check(top, inputs, ctx);
         var analysisBinder = new AnalysisBinder(ctx);
         var analysis = analysisBinder.Bind(top, inputs, brief);
-        return ctx.Problems.Count > 0 || analysis is null
-            ? null
-            : new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
+        if (ctx.Problems.Count > 0 || analysis is null) return null;
+        return new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
         {
             Analysis = analysis, OptionNames = optionNames!, RuleNames = analysisBinder.RuleNames, Texts = ctx.Texts,
         };

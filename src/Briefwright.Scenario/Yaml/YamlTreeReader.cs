@@ -201,9 +201,10 @@ public static class YamlTreeReader
         }
 
         private static string BindingText(string tag) =>
-            Briefwright.Scenario.Binding.BindContext.Printable(tag.StartsWith(
-                "tag:yaml.org,2002:",
-                StringComparison.Ordinal) ? "!!" + tag["tag:yaml.org,2002:".Length..] : tag);
+            Briefwright.Scenario.Binding.BindContext.Printable(
+                tag.StartsWith("tag:yaml.org,2002:", StringComparison.Ordinal)
+                    ? "!!" + tag["tag:yaml.org,2002:".Length..]
+                    : tag);
 
         private YNode Remember(AnchorName anchor, YNode node)
         {
