@@ -49,8 +49,8 @@ public static class Harness
         var solved = ScenarioSolver.Solve(scenario);
         Time("  six charts", 10, () => BriefBuilder.RenderCharts(solved));
         var charts = BriefBuilder.RenderCharts(solved);
-        Time("  six charts with SVG and PNG copies " +
-            "(annex)", 5, () => BriefBuilder.RenderCharts(solved, withImages: true));
+        Time("  six charts with SVG and PNG copies (annex)", 5,
+            () => BriefBuilder.RenderCharts(solved, withImages: true));
         var plot = Charts.SchoolingCharts.OutputCurve(BriefBuilder.ChartDrawingFor(solved.Scenario),
             solved.BalancedGrowth);
         Time("    one chart as PNG", 5, () => Charts.ChartRenderer.ToPng(plot));
@@ -104,8 +104,8 @@ public static class Harness
         });
         var shared = new ReformSimulator.Cache(true);
         foreach (var o in alternatives) ReformSimulator.Simulate(inputs, o, settings.Reform, shared);
-        Time("one reform path, tables and outputs already " +
-            "cached", 50, () => ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform, shared));
+        Time("one reform path, tables and outputs already cached", 50, () =>
+            ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform, shared));
         var path = ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform);
         Time("one present value", 50,
             () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
@@ -121,8 +121,8 @@ public static class Harness
         var (_, inputs, settings, guess) = DemoModel();
         AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings,
             guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
-        AllocationSampler.Report("Monte Carlo (2,000 draws, one " +
-            "thread)", 10, () => MonteCarlo.Run(inputs, settings, guess, 1));
+        AllocationSampler.Report("Monte Carlo (2,000 draws, one thread)", 10,
+            () => MonteCarlo.Run(inputs, settings, guess, 1));
     }
 
     /// <summary>The demo's whole model, repeated, with allocation and collection counts.</summary>

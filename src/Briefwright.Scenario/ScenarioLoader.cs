@@ -35,7 +35,7 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         var ctx = new BindContext();
         var tables = new List<string>();
         var binder = new ScenarioBinder(ctx, (file, at, fieldPath) =>
-             LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
+            LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
         var document = binder.Bind(tree, files);
         return new LoadResult(document is null ? null : document with
         {
@@ -111,8 +111,8 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         if (node is not YMapping map)
         {
             problems.Add(new Diagnostic(node.At, "",
-                "a scenario must be a mapping with the sections brief, demography, human_capital, production and " +
-                "options", node.Kind));
+                "a scenario must be a mapping with the sections brief, demography, human_capital, production " +
+                "and options", node.Kind));
             return null;
         }
         if (map["extends"] is not { } ext) return map;

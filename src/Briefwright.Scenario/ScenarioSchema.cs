@@ -249,8 +249,8 @@ public static class ScenarioSchema
     public static JsonObject Build() => Obj(
         ("$schema", "https://json-schema.org/draft/2020-12/schema"),
         ("title", "briefwright scenario"),
-        ("description", "A complete scenario; a file with 'extends' is a partial one, completed by the scenario it " +
-            "names."),
+        ("description",
+            "A complete scenario; a file with 'extends' is a partial one, completed by the scenario it names."),
         ("$defs", Obj(("complete", Sections(strict: true)), ("partial", Sections(strict: false)))),
         ("if", Obj(("type", "object"), ("required", Arr("extends")))),
         ("then", Obj(("$ref", "#/$defs/partial"))),

@@ -135,8 +135,8 @@ public static partial class ThemeLoader
                 var at = f[key]!.At;
                 if (!file.EndsWith(".ttf", StringComparison.OrdinalIgnoreCase))
                     ctx.Report(at, $"fonts.{key}", "must be a TrueType font file (.ttf)", BindContext.Quote(file));
-                else if (ReadAsset(reader, ctx, path, file, project, at, $"fonts.{key}", ThemeAssets.MaxFontBytes,
-                    "font") is { } bytes)
+                else if (ReadAsset(reader, ctx, path, file, project, at, $"fonts.{key}",
+                    ThemeAssets.MaxFontBytes, "font") is { } bytes)
                 {
                     if (ThemeAssets.CheckTrueType(bytes) is { } rule)
                         ctx.Report(at, $"fonts.{key}", rule, BindContext.Quote(file));
@@ -163,8 +163,8 @@ public static partial class ThemeLoader
             var at = top["logo"]!.At;
             if (!logo.EndsWith(".png", StringComparison.OrdinalIgnoreCase))
                 ctx.Report(at, "logo", "must be a PNG file (.png)", BindContext.Quote(logo));
-            else if (ReadAsset(reader, ctx, path, logo, project, at, "logo", ThemeAssets.MaxLogoBytes,
-                "logo") is { } png)
+            else if (ReadAsset(reader, ctx, path, logo, project, at, "logo",
+                ThemeAssets.MaxLogoBytes, "logo") is { } png)
             {
                 if (ThemeAssets.CheckPng(png, out int w, out int h) is { } rule)
                     ctx.Report(at, "logo", rule, BindContext.Quote(logo));

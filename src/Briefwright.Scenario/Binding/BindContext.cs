@@ -150,9 +150,10 @@ public sealed class BindContext
         }
         if (RightToLeftAt(s.Value) is int rtl)
         {
-            Report(s.At, p, "uses a right-to-left script, which briefs cannot be written in yet (the layout writes " +
-                "left to right only)", $"{Quote(s.Value)} (U+{rtl:X4} at character " +
-                    $"{s.Value.IndexOf(char.ConvertFromUtf32(rtl), StringComparison.Ordinal) + 1})");
+            int character = s.Value.IndexOf(char.ConvertFromUtf32(rtl), StringComparison.Ordinal) + 1;
+            Report(s.At, p,
+                "uses a right-to-left script, which briefs cannot be written in yet (the layout writes left to " +
+                "right only)", $"{Quote(s.Value)} (U+{rtl:X4} at character {character})");
             return null;
         }
         texts.Add(new TextField(p, s.At, s.Value));
@@ -171,8 +172,8 @@ public sealed class BindContext
         string? value = Text(parent, key, path, required);
         if (value is null || allowed.Contains(value)) return value;
         string? guess = Suggestions.Closest(value, allowed);
-        string rule = "must be one of " +
-            $"{string.Join(", ", allowed)}" + (guess is null ? "" : $" (did you mean '{guess}'?)");
+        string rule = $"must be one of {string.Join(", ", allowed)}"
+            + (guess is null ? "" : $" (did you mean '{guess}'?)");
         Report(parent[key]!.At, Join(path, key), rule, $"'{value}'");
         return null;
     }
@@ -242,8 +243,8 @@ public sealed class BindContext
         string text = s.Value.Trim();
         if (text.Length > MaxNumberLength)
         {
-            Report(s.At, path, $"must be a number of at most {MaxNumberLength} " +
-                "characters", $"{text.Length} characters");
+            Report(s.At, path, $"must be a number of at most {MaxNumberLength} characters",
+                $"{text.Length} characters");
             return null;
         }
         bool percent = text.EndsWith('%');
@@ -258,8 +259,8 @@ public sealed class BindContext
         }
         if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || s.Quoted)
         {
-            Report(s.At, path, unit == ValueUnit.Rate ? "must be a number or a " +
-                "percentage" : "must be a number", Show(s));
+            Report(s.At, path, unit == ValueUnit.Rate ? "must be a number or a percentage" : "must be a number",
+                Show(s));
             return null;
         }
         if (!double.IsFinite(v))

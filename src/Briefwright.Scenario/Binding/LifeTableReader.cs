@@ -28,8 +28,8 @@ public static class LifeTableReader
             var at = new SourceSpan(file, i + 1, 1);
             if (cells.Length != 2)
             {
-                ctx.Report(at, path, "each life-table row must have two columns, age and " +
-                    "survivors", $"{cells.Length} columns");
+                ctx.Report(at, path, "each life-table row must have two columns, age and survivors",
+                    $"{cells.Length} columns");
                 continue;
             }
             bool ageOk = double.TryParse(cells[0].Trim(), NumberStyles.Float, CultureInfo.InvariantCulture,

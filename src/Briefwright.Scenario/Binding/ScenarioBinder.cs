@@ -59,8 +59,8 @@ public sealed partial class ScenarioBinder(
         if (id is not null && !IdPattern().IsMatch(id))
         {
             ctx.Report(m["id"]!.At, "brief.id",
-                "must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit (it names the " +
-                "output files)", BindContext.Quote(id));
+                "must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit " +
+                "(it names the output files)", BindContext.Quote(id));
             id = null;
         }
         string? title = ctx.Text(m, F("brief.title"), p);
@@ -258,8 +258,8 @@ public sealed partial class ScenarioBinder(
             {
                 ctx.Report(bracket["from"]!.At, ip + ".from",
                     "brackets must start at increasing years (previous bracket starts at " +
-                    $"{brackets[^1].FromYear.ToString(CultureInfo.InvariantCulture)}" +
-                    ")", BindContext.Show(bracket["from"]!));
+                    $"{brackets[^1].FromYear.ToString(CultureInfo.InvariantCulture)})",
+                    BindContext.Show(bracket["from"]!));
                 ok = false;
             }
             brackets.Add(new ReturnBracket(from.Value, rate.Value));
