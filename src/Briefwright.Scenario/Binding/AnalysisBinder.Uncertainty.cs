@@ -260,22 +260,14 @@ public sealed partial class AnalysisBinder
                 double? mean = Value("mean"), sd = Value("sd");
                 double? lo = Value("low"), hi = Value("high");
                 if (mean is null || sd is null || lo is null || hi is null) return null;
-                if (!(hi > lo))
-                {
-                    ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!));
-                    return null;
-                }
+                if (!HighAboveLow(m, path, lo.Value, hi.Value)) return null;
                 return new TruncatedNormalDistribution(mean.Value, sd.Value, lo.Value, hi.Value);
             }
             case "uniform":
             {
                 double? lo = Value("low"), hi = Value("high");
                 if (lo is null || hi is null) return null;
-                if (!(hi > lo))
-                {
-                    ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!));
-                    return null;
-                }
+                if (!HighAboveLow(m, path, lo.Value, hi.Value)) return null;
                 return new UniformDistribution(lo.Value, hi.Value);
             }
             case "triangular":
@@ -298,5 +290,13 @@ public sealed partial class AnalysisBinder
             default:
                 return null;
         }
+    }
+
+    /// <summary>Whether <paramref name="hi"/> is above <paramref name="lo"/>; reports it at high when not.</summary>
+    private bool HighAboveLow(YMapping m, string path, double lo, double hi)
+    {
+        if (hi > lo) return true;
+        ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!));
+        return false;
     }
 }

@@ -45,21 +45,7 @@ public static class LifeTableReader
                 ctx.Report(at, path, $"ages must be from 0 to {MaxAge}", age.ToString(CultureInfo.InvariantCulture));
                 continue;
             }
-            if (ages.Count == 0 && age != 0)
-                ctx.Report(at, path, "the life table must start at age 0", age.ToString(CultureInfo.InvariantCulture));
-            if (ages.Count > 0 && age <= ages[^1])
-                ctx.Report(at, path,
-                    $"ages must increase (previous row: {ages[^1].ToString(CultureInfo.InvariantCulture)})",
-                    age.ToString(CultureInfo.InvariantCulture));
-            if (l < 0)
-                ctx.Report(lAt, path, "survivors must not be negative", l.ToString(CultureInfo.InvariantCulture));
-            if (ages.Count == 0 && l <= 0)
-                ctx.Report(lAt, path, "survivors at age 0 must be positive", l.ToString(CultureInfo.InvariantCulture));
-            if (survivors.Count > 0 && l > survivors[^1])
-                ctx.Report(lAt, path,
-                    "survivors must not increase with age (previous row: " +
-                    $"{survivors[^1].ToString(CultureInfo.InvariantCulture)})",
-                    l.ToString(CultureInfo.InvariantCulture));
+            CheckOrder(ctx, path, at, lAt, age, l, ages, survivors);
             ages.Add(age);
             survivors.Add(l);
             if (ages.Count > MaxRows)
@@ -70,14 +56,33 @@ public static class LifeTableReader
         }
         if (ages.Count < 2)
         {
-            ctx.Report(new SourceSpan(file, 1, 1), path,
-                "a life table needs at least two rows of age and survivors", ages.Count == 1
-                    ? "1 row"
-                    : $"{ages.Count} rows");
+            ctx.Report(new SourceSpan(file, 1, 1), path, "a life table needs at least two rows of age and survivors",
+                ages.Count == 1 ? "1 row" : $"{ages.Count} rows");
             return null;
         }
         if (ctx.Problems.Count > before) return null;
         double radix = survivors[0];
         return new TabulatedSurvival(ages, survivors.Select(v => v / radix).ToList());
+    }
+
+    /// <summary>Reports a row whose age or survivors break the rules or the order of the rows before it.</summary>
+    private static void CheckOrder(BindContext ctx, string path, SourceSpan at, SourceSpan lAt, double age, double l,
+        List<double> ages, List<double> survivors)
+    {
+        if (ages.Count == 0 && age != 0)
+            ctx.Report(at, path, "the life table must start at age 0", age.ToString(CultureInfo.InvariantCulture));
+        if (ages.Count > 0 && age <= ages[^1])
+            ctx.Report(at, path,
+                $"ages must increase (previous row: {ages[^1].ToString(CultureInfo.InvariantCulture)})",
+                age.ToString(CultureInfo.InvariantCulture));
+        if (l < 0)
+            ctx.Report(lAt, path, "survivors must not be negative", l.ToString(CultureInfo.InvariantCulture));
+        if (ages.Count == 0 && l <= 0)
+            ctx.Report(lAt, path, "survivors at age 0 must be positive", l.ToString(CultureInfo.InvariantCulture));
+        if (survivors.Count > 0 && l > survivors[^1])
+            ctx.Report(lAt, path,
+                "survivors must not increase with age (previous row: " +
+                $"{survivors[^1].ToString(CultureInfo.InvariantCulture)})",
+                l.ToString(CultureInfo.InvariantCulture));
     }
 }
