@@ -90,18 +90,7 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
                 $"more than {MaxExtendsDepth} levels of extends", $"'{namedBy.Value.Value}'"));
             return null;
         }
-        string text, error;
-        if (namedBy is null
-            ? !reader.TryRead(path, out text, out error)
-            : !reader.TryReadInside(path, project, out text, out error))
-        {
-            if (namedBy is { } by)
-                problems.Add(new Diagnostic(by.At, "extends",
-                    $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
-            else problems.Add(new Diagnostic(new SourceSpan(path, 1, 1), "",
-                $"cannot read the scenario ({error})", null));
-            return null;
-        }
+        if (ReadText(path, project, namedBy, problems) is not { } text) return null;
         // A binary file is not shown: its first line could be anything (a key, the environment of /proc/self/environ).
         if (!text.Contains('\0')) sources.Add(path, text);
         files.Add(path);
@@ -137,6 +126,25 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         var parent = LoadTree(parentPath, project, chain, sources, problems, files, (parentName.At, parentName.Value));
         chain.RemoveAt(chain.Count - 1);
         return parent is null ? null : Merge(parent, map);
+    }
+
+    /// <summary>The text of the scenario at <paramref name="path"/>, or null with the reason reported.</summary>
+    private string? ReadText(string path, string project, (SourceSpan At, string Value)? namedBy,
+        List<Diagnostic> problems)
+    {
+        string text, error;
+        if (namedBy is null
+            ? !reader.TryRead(path, out text, out error)
+            : !reader.TryReadInside(path, project, out text, out error))
+        {
+            if (namedBy is { } by)
+                problems.Add(new Diagnostic(by.At, "extends",
+                    $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
+            else problems.Add(new Diagnostic(new SourceSpan(path, 1, 1), "",
+                $"cannot read the scenario ({error})", null));
+            return null;
+        }
+        return text;
     }
 
     /// <summary>

@@ -200,14 +200,7 @@ public static class ScenarioSchema
                 return map;
             }
             case FieldKind.NameOrSection:
-            {
-                var own = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr(Required(f.Path))));
-                if (f.Alternatives.Length > 0)
-                    own["anyOf"] = new JsonArray(
-                        f.Alternatives.Select(k => (JsonNode?)Obj(("required", Arr(k)))).ToArray());
-                own["properties"] = Properties(f.Path, null, strict: true);
-                return Obj(("description", description), ("anyOf", new JsonArray(Obj(("enum", Arr(f.Choices))), own)));
-            }
+                return NameOrSection(f, description);
             case FieldKind.Text when f.Pattern is { } pattern:
                 return Obj(("type", "string"), ("maxLength", f.MaxLength), ("pattern", pattern),
                     ("description", description));
@@ -236,6 +229,16 @@ public static class ScenarioSchema
             default:
                 throw new InvalidOperationException($"no schema for {f.Kind}");
         }
+    }
+
+    /// <summary>A published name from the field's choices, or a complete mapping of one's own.</summary>
+    private static JsonObject NameOrSection(ScenarioField f, string description)
+    {
+        var own = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr(Required(f.Path))));
+        if (f.Alternatives.Length > 0)
+            own["anyOf"] = new JsonArray(f.Alternatives.Select(k => (JsonNode?)Obj(("required", Arr(k)))).ToArray());
+        own["properties"] = Properties(f.Path, null, strict: true);
+        return Obj(("description", description), ("anyOf", new JsonArray(Obj(("enum", Arr(f.Choices))), own)));
     }
 
     private static JsonObject Sections(bool strict)

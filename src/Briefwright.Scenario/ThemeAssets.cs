@@ -57,8 +57,17 @@ public static class ThemeAssets
         }
         if (!end) return "must be a whole PNG image; the file ends before its IEND chunk";
         if (colour == 3 && !palette) return "must be a whole PNG image; its palette is missing";
-        long row = 1 + w * channels;
-        long expected = row * h;
+        if (CheckImageData(data, 1 + w * channels, h) is { } why) return why;
+        width = (int)w;
+        height = (int)h;
+        return null;
+    }
+
+    /// <summary>Why the joined IDAT chunks in <paramref name="data"/> cannot be <paramref name="rows"/> rows of
+    /// <paramref name="row"/> bytes (a filter byte, then the pixels), or null.</summary>
+    private static string? CheckImageData(MemoryStream data, long row, long rows)
+    {
+        long expected = row * rows;
         try
         {
             data.Position = 0;
@@ -81,8 +90,6 @@ public static class ThemeAssets
         {
             return "must be an undamaged PNG image; its image data cannot be decompressed";
         }
-        width = (int)w;
-        height = (int)h;
         return null;
     }
 
@@ -159,7 +166,12 @@ public static class ThemeAssets
                 return "must be an undamaged TrueType font; its glyph index ('loca') points outside the glyphs";
             previous = offset;
         }
-        var cmap = Table(ttf, tables["cmap"]);
+        return CheckCharacterMap(Table(ttf, tables["cmap"]));
+    }
+
+    /// <summary>Why the character map <paramref name="cmap"/> is damaged or maps no Unicode, or null.</summary>
+    private static string? CheckCharacterMap(ReadOnlySpan<byte> cmap)
+    {
         if (cmap.Length < 4) return "must be an undamaged TrueType font; its character map ('cmap') is damaged";
         int maps = BinaryPrimitives.ReadUInt16BigEndian(cmap[2..]);
         if (4L + 8L * maps > cmap.Length)
