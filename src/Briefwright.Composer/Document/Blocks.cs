@@ -51,5 +51,8 @@ public sealed record BoxBlock(string? Title, IReadOnlyList<Block> Content) : Blo
 
 public sealed record PageBreakBlock : Block;
 
-/// <summary>A display equation written in the math notation (<see cref="Layout.MathNotation"/>); <see cref="Line"/> is its line in the text.</summary>
+/// <summary>
+/// A display equation written in the math notation (<see cref="Layout.MathNotation"/>); <see cref="Line"/> is its line
+/// in the text.
+/// </summary>
 public sealed record MathBlock(string Source, int Line = 0) : Block;

@@ -141,7 +141,8 @@ public sealed class PdfSurface : IDrawingSurface
         double h = page!.Height.Point;
         var rect = new PdfRectangle(new XPoint(box.X, h - box.Y - box.Height), new XPoint(box.X + box.Width, h - box.Y));
         var link = PdfSharp.Pdf.Annotations.PdfLinkAnnotation.CreateWebLink(rect, url);
-        // Optional entries PDFsharp fills from the clock and a random GUID: left out, so the bytes depend on content only.
+        // Optional entries PDFsharp fills from the clock and a random GUID: left out, so the bytes depend on content
+        // only.
         link.Elements.Remove("/NM");
         link.Elements.Remove("/M");
         structure.BeginElement(link, LinkAlternative(text, url));

@@ -44,7 +44,9 @@ public static partial class ReproducibleBytes
         "        <pdfuaid:part>1</pdfuaid:part>\r\n" +
         "      </rdf:Description>\r\n";
 
-    /// <summary>Fixes the random fields; with <paramref name="pdfUa"/>, also declares PDF/UA-1 in the XMP metadata.</summary>
+    /// <summary>
+    /// Fixes the random fields; with <paramref name="pdfUa"/>, also declares PDF/UA-1 in the XMP metadata.
+    /// </summary>
     public static byte[] Fix(byte[] pdf, DateOnly date, bool pdfUa = true)
     {
         var file = PdfObjects.Parse(pdf);
@@ -188,7 +190,9 @@ public static partial class ReproducibleBytes
             public required Text Head { get; init; }
             public byte[]? Stream { get; set; }
 
-            /// <summary>The stream as rewritable text (the uncompressed XMP metadata only); replaces <see cref="Stream"/>.</summary>
+            /// <summary>
+            /// The stream as rewritable text (the uncompressed XMP metadata only); replaces <see cref="Stream"/>.
+            /// </summary>
             public Text? StreamText { get; set; }
 
             public required string After { get; init; }

@@ -62,7 +62,10 @@ public sealed class LifeCycle
         return demography.Participation * work / pop;
     }
 
-    /// <summary>Average experience premium e^(β₁x − β₂x²) over the working ages, weighted by the age distribution; 1 without a profile.</summary>
+    /// <summary>
+    /// Average experience premium e^(β₁x − β₂x²) over the working ages, weighted by the age distribution; 1 without a
+    /// profile.
+    /// </summary>
     public double ExperienceFactor(double schooling)
     {
         if (humanCapital.Experience is null) return 1.0;
@@ -78,7 +81,9 @@ public sealed class LifeCycle
     public double Objective(double schooling) =>
         Math.Exp(humanCapital.Returns.Phi(schooling)) * demography.Participation * ExperienceWeightedYears(schooling) / Population;
 
-    /// <summary>d ln(h·ω)/dE = φ'(E) − [d(s) + ∫ d(a)·e^m(x)·m'(x) da] / ∫ d(a)·e^m(x) da, with s = a₀ + E, x = a − s.</summary>
+    /// <summary>
+    /// d ln(h·ω)/dE = φ'(E) − [d(s) + ∫ d(a)·e^m(x)·m'(x) da] / ∫ d(a)·e^m(x) da, with s = a₀ + E, x = a − s.
+    /// </summary>
     public double ObjectiveLogSlope(double schooling)
     {
         double start = demography.EntryAge + schooling;

@@ -102,7 +102,10 @@ public static class OptimumSearch
         return null;
     }
 
-    /// <summary>Working years at the optimum W* = −ln(1 − n/r)/n (→ 1/r as n → 0); E* = R − a₀ − W*, clamped to the feasible range.</summary>
+    /// <summary>
+    /// Working years at the optimum W* = −ln(1 − n/r)/n (→ 1/r as n → 0); E* = R − a₀ − W*, clamped to the feasible
+    /// range.
+    /// </summary>
     public static double ClosedForm(Demography demography, double rate, double maxSchooling)
     {
         double n = demography.GrowthRate;

@@ -13,7 +13,9 @@ public sealed record OptionAppraisal(string OptionId, ReformPath Path, IReadOnly
     public override int GetHashCode() => HashCode.Combine(OptionId, Path, Same.Hash(PresentValues));
 }
 
-/// <summary>The discounted optimum when value is counted only to <see cref="HorizonYears"/> after the reform (no tail).</summary>
+/// <summary>
+/// The discounted optimum when value is counted only to <see cref="HorizonYears"/> after the reform (no tail).
+/// </summary>
 public sealed record HorizonOptimum(int HorizonYears, double SchoolingYears, double PresentValue);
 
 /// <summary>
@@ -88,7 +90,8 @@ public static class Appraisal
     /// <summary>
     /// Grid over E₁ from the baseline to the balanced-growth E* (half-year steps), then golden-section refinement,
     /// for the headline objective (value with its tail when finite, else to the horizon) and for the value cut at half,
-    /// one and twice the horizon. Each candidate is simulated once, to twice the horizon; shorter cuts use its first years.
+    /// one and twice the horizon. Each candidate is simulated once, to twice the horizon; shorter cuts use its first
+    /// years.
     /// </summary>
     public static DiscountedOptimum FindDiscountedOptimum(ModelInputs inputs, ReformSettings reform, DiscountSchedule schedule, double bgpOptimum, ReformSimulator.Cache? cache = null)
     {
@@ -126,7 +129,9 @@ public static class Appraisal
             LongerSchoolingPays: bestE > baseline.SchoolingYears);
     }
 
-    /// <summary>The best of a half-year grid above <paramref name="lo"/> (f(lo) = 0), refined by golden section to 0.01 years.</summary>
+    /// <summary>
+    /// The best of a half-year grid above <paramref name="lo"/> (f(lo) = 0), refined by golden section to 0.01 years.
+    /// </summary>
     private static (double E, double Value) Maximise(Func<double, double> f, double lo0, double maxE)
     {
         double bestE = lo0, bestPv = 0;

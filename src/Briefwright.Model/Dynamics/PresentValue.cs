@@ -39,7 +39,8 @@ public sealed record PresentValue(
     /// <summary>The value to the horizon plus the tail where it is finite, else the value to the horizon.</summary>
     public double Counted => Total ?? ToHorizon;
 
-    /// <param name="valuationOffset">Years from the valuation date to the reform year (0: valued at the reform year).</param>
+    /// <param name="valuationOffset">Years from the valuation date to the reform year (0: valued at the reform
+    /// year).</param>
     public static PresentValue Compute(ReformPath path, DiscountSchedule schedule, double technologyGrowth, int valuationOffset = 0)
     {
         int h = path.Horizon, o = CheckOffset(valuationOffset);
@@ -54,7 +55,10 @@ public sealed record PresentValue(
             breakEven, path.ReformYear + breakEven, note);
     }
 
-    /// <summary>The present value to the horizon alone, the same sum as <see cref="Compute"/>'s <see cref="ToHorizon"/>; allocates nothing (Monte Carlo and Sobol runs).</summary>
+    /// <summary>
+    /// The present value to the horizon alone, the same sum as <see cref="Compute"/>'s <see cref="ToHorizon"/>;
+    /// allocates nothing (Monte Carlo and Sobol runs).
+    /// </summary>
     public static double ToHorizonOnly(ReformPath path, DiscountSchedule schedule, double technologyGrowth, int valuationOffset = 0)
     {
         int o = CheckOffset(valuationOffset);
@@ -77,7 +81,10 @@ public sealed record PresentValue(
 
     internal static int CachedFactors => FactorCache.Count;
 
-    /// <summary>Σ_{t=0..H} D(o+t)·e^(g(o+t))·gain(t), with the running sums written to <paramref name="cumulative"/> when it is not empty.</summary>
+    /// <summary>
+    /// Σ_{t=0..H} D(o+t)·e^(g(o+t))·gain(t), with the running sums written to <paramref name="cumulative"/> when it is
+    /// not empty.
+    /// </summary>
     private static double Sum(ReformPath path, double[] d, double technologyGrowth, int offset, Span<double> cumulative)
     {
         double sum = 0, growth = offset == 0 ? 1 : Math.Exp(technologyGrowth * offset), step = Math.Exp(technologyGrowth);

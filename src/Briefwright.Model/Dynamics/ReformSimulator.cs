@@ -42,7 +42,8 @@ public static class ReformSimulator
     public static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache = null) =>
         Simulate(inputs, reform, settings, cache, settledShortcut: true);
 
-    /// <param name="settledShortcut">Reuse x(t) once every working cohort is a reform cohort; off only to test that it changes nothing.</param>
+    /// <param name="settledShortcut">Reuse x(t) once every working cohort is a reform cohort; off only to test that it
+    /// changes nothing.</param>
     internal static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache, bool settledShortcut)
     {
         var baseline = inputs.Baseline;

@@ -1,6 +1,8 @@
 namespace Briefwright.Model.Inputs;
 
-/// <summary>Stable population: growth rate n, school-entry age a₀, retirement age R, survival l(a), participation p.</summary>
+/// <summary>
+/// Stable population: growth rate n, school-entry age a₀, retirement age R, survival l(a), participation p.
+/// </summary>
 public sealed record Demography(double GrowthRate, double EntryAge, double RetirementAge, Survival Survival, double Participation);
 
 /// <summary>Human capital per worker: schooling returns and an optional experience profile.</summary>

@@ -16,7 +16,9 @@ public sealed record ConstantReturn(double Rate) : ReturnSchedule
     public override double MarginalReturn(double years) => Rate;
 }
 
-/// <summary>One bracket of a piecewise-linear schedule: from <see cref="FromYear"/> on, each year earns <see cref="Rate"/>.</summary>
+/// <summary>
+/// One bracket of a piecewise-linear schedule: from <see cref="FromYear"/> on, each year earns <see cref="Rate"/>.
+/// </summary>
 public sealed record ReturnBracket(double FromYear, double Rate);
 
 /// <summary>Piecewise-linear φ: the return per year changes at bracket edges. The last bracket is open-ended.</summary>
@@ -31,7 +33,9 @@ public sealed record BracketReturns : ReturnSchedule
 
     public IReadOnlyList<ReturnBracket> Brackets { get; }
 
-    /// <summary>Hall &amp; Jones (1999), rates after Psacharopoulos (1994): 13.4% for years 0–4, 10.1% for 4–8, 6.8% beyond.</summary>
+    /// <summary>
+    /// Hall &amp; Jones (1999), rates after Psacharopoulos (1994): 13.4% for years 0–4, 10.1% for 4–8, 6.8% beyond.
+    /// </summary>
     public static BracketReturns HallJones { get; } = new(new[]
     {
         new ReturnBracket(0, 0.134), new ReturnBracket(4, 0.101), new ReturnBracket(8, 0.068),

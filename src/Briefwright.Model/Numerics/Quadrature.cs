@@ -16,7 +16,10 @@ public static class Quadrature
     internal static readonly double[] Nodes3 = { -0.7745966692414834, 0.0, 0.7745966692414834 };
     internal static readonly double[] Weights3 = { 0.5555555555555556, 0.8888888888888888, 0.5555555555555556 };
 
-    /// <summary>Three-point Gauss–Legendre on one panel (exact for polynomials of degree 5): for tables built thousands of times.</summary>
+    /// <summary>
+    /// Three-point Gauss–Legendre on one panel (exact for polynomials of degree 5): for tables built thousands of
+    /// times.
+    /// </summary>
     public static double Panel3(Func<double, double> f, double a, double b)
     {
         double half = 0.5 * (b - a), mid = 0.5 * (a + b);

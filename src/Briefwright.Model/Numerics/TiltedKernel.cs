@@ -12,7 +12,9 @@ namespace Briefwright.Model.Numerics;
 /// </summary>
 public sealed class TiltedKernel
 {
-    /// <summary>Above this |exponent| the caller integrates its own integrand instead (no overflow in e^(λa)).</summary>
+    /// <summary>
+    /// Above this |exponent| the caller integrates its own integrand instead (no overflow in e^(λa)).
+    /// </summary>
     public const double MaxExponent = 600;
 
     private readonly Func<double, double> kernel;
@@ -41,7 +43,9 @@ public sealed class TiltedKernel
     /// <summary>Whether e^(λa) stays finite and accurate up to age <paramref name="upTo"/>.</summary>
     public static bool Safe(double lambda, double upTo) => Math.Abs(lambda) * (Math.Abs(upTo) + 1) < MaxExponent;
 
-    /// <summary>∫_a^b K(x)·e^(λx)·(c₀ + c₁x) dx with panels ending at whole years and at <paramref name="breakpoints"/>.</summary>
+    /// <summary>
+    /// ∫_a^b K(x)·e^(λx)·(c₀ + c₁x) dx with panels ending at whole years and at <paramref name="breakpoints"/>.
+    /// </summary>
     public double Integrate(double a, double b, double lambda, IReadOnlyList<double>? breakpoints, bool fast, double c0 = 1, double c1 = 0)
     {
         if (!(b > a)) return 0.0;
@@ -98,7 +102,9 @@ public sealed class TiltedKernel
         }
     }
 
-    /// <summary>Breakpoints as a span (survival curves hand out arrays; interface calls per panel cost more than the panel).</summary>
+    /// <summary>
+    /// Breakpoints as a span (survival curves hand out arrays; interface calls per panel cost more than the panel).
+    /// </summary>
     private static ReadOnlySpan<double> Cuts(IReadOnlyList<double>? breakpoints) =>
         breakpoints is null ? default : breakpoints as double[] ?? breakpoints.ToArray();
 
@@ -189,8 +195,8 @@ public sealed class TiltedKernel
     }
 
     /// <summary>
-    /// e^(−na)·l(a)·e^(β₁x − β₂x²) with x = a − s, as C·K(a)·e^(λa): the kernel, λ = β₁ + 2β₂s − n and log C = −β₁s − β₂s².
-    /// Null when that form could overflow before <paramref name="upTo"/>.
+    /// e^(−na)·l(a)·e^(β₁x − β₂x²) with x = a − s, as C·K(a)·e^(λa): the kernel, λ = β₁ + 2β₂s − n and log C = −β₁s −
+    /// β₂s². Null when that form could overflow before <paramref name="upTo"/>.
     /// </summary>
     public static (TiltedKernel Kernel, double Lambda, double LogScale)? ForCohort(Demography d, ExperienceProfile? e, double s, double upTo)
     {

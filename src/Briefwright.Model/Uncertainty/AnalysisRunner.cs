@@ -20,7 +20,8 @@ public static class AnalysisRunner
 {
     public static readonly string[] SobolOutputs = { "headline_long_run_change_pct", "optimum_schooling_years", "headline_present_value" };
 
-    /// <param name="maxThreads">Threads the Monte Carlo, Sobol and sensitivity loops may use (<see cref="ModelThreads"/>).</param>
+    /// <param name="maxThreads">Threads the Monte Carlo, Sobol and sensitivity loops may use
+    /// (<see cref="ModelThreads"/>).</param>
     public static AnalysisResults Run(ModelInputs inputs, AnalysisSettings settings, BalancedGrowthResults bgp, int maxThreads = ModelThreads.AllCores)
     {
         double guess = bgp.Optimum.SchoolingYears;

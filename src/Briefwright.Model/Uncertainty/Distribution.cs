@@ -1,6 +1,8 @@
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>A parameter distribution, sampled by its inverse CDF so that Monte Carlo and Sobol sampling share one route.</summary>
+/// <summary>
+/// A parameter distribution, sampled by its inverse CDF so that Monte Carlo and Sobol sampling share one route.
+/// </summary>
 public abstract record Distribution
 {
     /// <summary>The value whose cumulative probability is <paramref name="u"/> (0 &lt; u &lt; 1).</summary>
@@ -18,7 +20,9 @@ public sealed record NormalDistribution(double Mu, double Sigma) : Distribution
     public override string Describe(Func<double, string> f) => $"normal, mean {f(Mu)}, s.d. {f(Sigma)}";
 }
 
-/// <summary>A normal truncated to [Low, High]: the quantile is taken within the normal's probability mass of that interval.</summary>
+/// <summary>
+/// A normal truncated to [Low, High]: the quantile is taken within the normal's probability mass of that interval.
+/// </summary>
 public sealed record TruncatedNormalDistribution(double Mu, double Sigma, double Low, double High) : Distribution
 {
     private double PLow => NormalQuantile.Cdf((Low - Mu) / Sigma);

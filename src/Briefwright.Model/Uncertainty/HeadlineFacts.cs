@@ -2,7 +2,9 @@ using Briefwright.Model.Results;
 
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>Which way a change goes once shown to one decimal: a change that rounds to zero is <see cref="None"/>.</summary>
+/// <summary>
+/// Which way a change goes once shown to one decimal: a change that rounds to zero is <see cref="None"/>.
+/// </summary>
 public enum Direction
 {
     None,

@@ -34,7 +34,8 @@ public sealed record KeyResults(
 public static class KeyResultsEvaluator
 {
     /// <param name="headlineOnly">Evaluate the headline option alone (the result lists then hold just it).</param>
-    /// <param name="headlinePath">Where to copy the headline option's reform path (horizon + 1 values); empty to skip.</param>
+    /// <param name="headlinePath">Where to copy the headline option's reform path (horizon + 1 values); empty to
+    /// skip.</param>
     public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool headlineOnly = false, Span<double> headlinePath = default)
     {
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId && (!headlineOnly || o.Id == settings.HeadlineOptionId)).ToList();

@@ -2,10 +2,15 @@ using Briefwright.Model.Inputs;
 
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>Percentiles 5, 25, 50, 75, 95 and the mean of one result over the accepted draws (the fan chart's data; summaries add their precision, <see cref="PercentileSummary"/>).</summary>
+/// <summary>
+/// Percentiles 5, 25, 50, 75, 95 and the mean of one result over the accepted draws (the fan chart's data; summaries
+/// add their precision, <see cref="PercentileSummary"/>).
+/// </summary>
 public sealed record Percentiles(double P5, double P25, double P50, double P75, double P95, double Mean)
 {
-    /// <summary>The percentiles of <paramref name="sorted"/>, which is sorted in place (callers pass an array of their own).</summary>
+    /// <summary>
+    /// The percentiles of <paramref name="sorted"/>, which is sorted in place (callers pass an array of their own).
+    /// </summary>
     public static Percentiles Of(double[] sorted)
     {
         Array.Sort(sorted);
@@ -20,10 +25,15 @@ public sealed record Percentiles(double P5, double P25, double P50, double P75, 
     }
 }
 
-/// <summary>One option's Monte Carlo results: the long-run change (percent) and the present value to the horizon (years of output per person at the valuation date), and the probabilities of a gain and of a positive present value.</summary>
+/// <summary>
+/// One option's Monte Carlo results: the long-run change (percent) and the present value to the horizon (years of
+/// output per person at the valuation date), and the probabilities of a gain and of a positive present value.
+/// </summary>
 public sealed record OptionUncertainty(string OptionId, PercentileSummary LongRunChangePct, PercentileSummary PresentValue, Probability ProbabilityGain, Probability ProbabilityPositivePv);
 
-/// <summary>Monte Carlo results: distributions of the key results, probabilities, and a fan of the headline path.</summary>
+/// <summary>
+/// Monte Carlo results: distributions of the key results, probabilities, and a fan of the headline path.
+/// </summary>
 public sealed record MonteCarloResults(
     int Draws,
     int Rejected,

@@ -33,7 +33,9 @@ public static class Parameters
         _ => r,
     };
 
-    /// <summary>Why these inputs break a model rule, or null when they are valid. Draws that break a rule are rejected.</summary>
+    /// <summary>
+    /// Why these inputs break a model rule, or null when they are valid. Draws that break a rule are rejected.
+    /// </summary>
     public static string? Violation(ModelInputs i)
     {
         var d = i.Demography;

@@ -2,7 +2,9 @@ using Briefwright.Model.Inputs;
 
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>Effect of one parameter at the low and high end of its range on every key result (one row of a tornado).</summary>
+/// <summary>
+/// Effect of one parameter at the low and high end of its range on every key result (one row of a tornado).
+/// </summary>
 public sealed record TornadoRow(string Parameter, string Label, double Low, double High, KeyResults AtLow, KeyResults AtHigh, double Swing);
 
 /// <summary>A two-way grid: <see cref="Values"/>[i][j] at X[i], Y[j].</summary>
@@ -18,7 +20,9 @@ public sealed record GridResult(GridSpec Spec, double[] X, double[] Y, double?[]
 
 public static class Sensitivity
 {
-    /// <summary>One-at-a-time ranges, sorted by the swing in the headline option's long-run change (largest first).</summary>
+    /// <summary>
+    /// One-at-a-time ranges, sorted by the swing in the headline option's long-run change (largest first).
+    /// </summary>
     public static IReadOnlyList<TornadoRow> Tornado(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, int maxThreads = ModelThreads.AllCores)
     {
         int headline = inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id).ToList().IndexOf(settings.HeadlineOptionId);

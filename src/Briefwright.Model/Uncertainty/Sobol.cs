@@ -97,7 +97,8 @@ public static class Sobol
             throw new ModelRuleException($"Sobol indices: only {m} of {n} base samples met every model rule in all {d + 2} of their runs " +
                 $"(at least {MinRows(n)} must); narrow the distributions, or set uncertainty.sobol_samples to 0 to skip the indices.");
         int outputs = fa[rows[0]]!.Length;
-        // Resample s draws its rows from its own stream, so every output sees the same resamples and threads change nothing.
+        // Resample s draws its rows from its own stream, so every output sees the same resamples and threads change
+        // nothing.
         ulong bootSeed = seed ^ 0xB007_57A9_0000_0001UL;
         return ModelThreads.Map(outputs, maxThreads, k => Output(k, d, rows, fa, fb, fab, inputNames, bootSeed, resamples, level));
     }
@@ -136,7 +137,9 @@ public static class Sobol
         return new SobolIndices(inputNames, first, fLow, fHigh, total, tLow, tHigh, variance, m, resamples, level);
     }
 
-    /// <summary>The estimators over the rows listed in <paramref name="pick"/> (all rows, or a bootstrap resample).</summary>
+    /// <summary>
+    /// The estimators over the rows listed in <paramref name="pick"/> (all rows, or a bootstrap resample).
+    /// </summary>
     private static (double[] First, double[] Total, double Variance) Indices(double[] yA, double[] yB, double[][] yAB, int[] pick)
     {
         int d = yAB.Length, m = pick.Length;
