@@ -28,7 +28,8 @@ public sealed class PdfSurface : IDrawingSurface
         structure = UAManager.ForDocument(document).StructureBuilder;
     }
 
-    private XGraphics G => gfx ?? throw new InvalidOperationException("Draw calls must come between BeginPage and EndPage.");
+    private XGraphics G =>
+        gfx ?? throw new InvalidOperationException("Draw calls must come between BeginPage and EndPage.");
 
     public void BeginPage(int pageIndex, double width, double height)
     {

@@ -25,7 +25,8 @@ public sealed class RecordingSurface : IDrawingSurface
     public void EndPage()
     {
         // A structure element may continue on the next page; an artifact may not.
-        if (artifacts != 0) throw new InvalidOperationException($"Artifacts must be closed at the end of a page. Got {artifacts} open.");
+        if (artifacts != 0)
+            throw new InvalidOperationException($"Artifacts must be closed at the end of a page. Got {artifacts} open.");
     }
 
     public void BeginTag(StructTag tag, string? altText = null, Box? bounds = null)

@@ -242,7 +242,8 @@ public static partial class ReproducibleBytes
                 int data = end + (s[end] == '\r' ? 2 : 1);
                 string head = s[pos..data];
                 var length = StreamLength().Match(head);
-                if (!length.Success || length.Groups[2].Success) throw Bad($"stream of object {number} without a direct /Length");
+                if (!length.Success || length.Groups[2].Success)
+                    throw Bad($"stream of object {number} without a direct /Length");
                 int count = int.Parse(length.Groups[1].Value, CultureInfo.InvariantCulture);
                 int after = data + count;
                 int endObj = s.IndexOf("endobj", after, StringComparison.Ordinal);

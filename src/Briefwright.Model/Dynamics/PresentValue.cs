@@ -66,7 +66,8 @@ public sealed record PresentValue(
     }
 
     private static int CheckOffset(int offset) =>
-        offset >= 0 ? offset : throw new ArgumentOutOfRangeException(nameof(offset), offset, "The valuation date must not follow the reform year.");
+        offset >= 0 ? offset : throw new ArgumentOutOfRangeException(nameof(offset), offset,
+            "The valuation date must not follow the reform year.");
 
     /// <summary>Schedules and horizons whose factors are kept; a process that meets more (a long batch of briefs with
     /// rules of their own) starts the cache afresh rather than let it grow. Factors are recomputed the same.</summary>

@@ -95,7 +95,8 @@ public static class MonteCarlo
         var acceptedDraws = Enumerable.Range(0, spec.Draws).Where(i => results[i] is not null).ToArray();
         var accepted = acceptedDraws.Select(i => results[i]!).ToList();
         if (accepted.Count < spec.Draws / 2)
-            throw new ModelRuleException($"Monte Carlo: {rejected.Sum()} draws broke a model rule and only {accepted.Count} of {spec.Draws} were accepted; narrow the distributions.");
+            throw new ModelRuleException($"Monte Carlo: {rejected.Sum()} draws broke a model rule and only " +
+                $"{accepted.Count} of {spec.Draws} were accepted; narrow the distributions.");
         var ids = accepted[0].OptionIds;
         var options = ids.Select((id, k) => new OptionUncertainty(
             id,

@@ -29,7 +29,8 @@ public static class Sensitivity
         var rows = ModelThreads.Map(settings.Ranges.Count, maxThreads, r =>
         {
             var range = settings.Ranges[r];
-            var def = Parameters.Find(range.Parameter) ?? throw new ArgumentException($"Unknown parameter {range.Parameter}.");
+            var def = Parameters.Find(range.Parameter)
+                ?? throw new ArgumentException($"Unknown parameter {range.Parameter}.");
             var low = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.Low), settings, optimumGuess);
             var high = KeyResultsEvaluator.Evaluate(def.Set(inputs, range.High), settings, optimumGuess);
             return new TornadoRow(range.Parameter, def.Label, range.Low, range.High, low, high, Math.Abs(high.LongRunChangePct[headline] - low.LongRunChangePct[headline]));

@@ -94,8 +94,9 @@ public static class Sobol
         var rows = Enumerable.Range(0, n).Where(r => fa[r] is not null && fb[r] is not null && Enumerable.Range(0, d).All(i => fab[i, r] is not null)).ToArray();
         int m = rows.Length;
         if (m < MinRows(n))
-            throw new ModelRuleException($"Sobol indices: only {m} of {n} base samples met every model rule in all {d + 2} of their runs " +
-                $"(at least {MinRows(n)} must); narrow the distributions, or set uncertainty.sobol_samples to 0 to skip the indices.");
+            throw new ModelRuleException($"Sobol indices: only {m} of {n} base samples met every model rule in all " +
+                $"{d + 2} of their runs (at least {MinRows(n)} must); narrow the distributions, or set " +
+                "uncertainty.sobol_samples to 0 to skip the indices.");
         int outputs = fa[rows[0]]!.Length;
         // Resample s draws its rows from its own stream, so every output sees the same resamples and threads change
         // nothing.
