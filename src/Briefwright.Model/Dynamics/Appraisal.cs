@@ -73,7 +73,9 @@ public sealed record AppraisalResults(
 
 public static class Appraisal
 {
-    public static AppraisalResults Run(ModelInputs inputs, ReformSettings reform, IReadOnlyList<DiscountSchedule> schedules, double balancedGrowthOptimum)
+    public static AppraisalResults Run(
+        ModelInputs inputs, ReformSettings reform, IReadOnlyList<DiscountSchedule> schedules,
+        double balancedGrowthOptimum)
     {
         double g = inputs.Production.TechnologyGrowth;
         int o = reform.ValuationOffset;
@@ -93,7 +95,9 @@ public static class Appraisal
     /// one and twice the horizon. Each candidate is simulated once, to twice the horizon; shorter cuts use its first
     /// years.
     /// </summary>
-    public static DiscountedOptimum FindDiscountedOptimum(ModelInputs inputs, ReformSettings reform, DiscountSchedule schedule, double bgpOptimum, ReformSimulator.Cache? cache = null)
+    public static DiscountedOptimum FindDiscountedOptimum(
+        ModelInputs inputs, ReformSettings reform, DiscountSchedule schedule, double bgpOptimum,
+        ReformSimulator.Cache? cache = null)
     {
         // One cache for every candidate: the population and the baseline cohorts' table are computed once.
         cache ??= new ReformSimulator.Cache();
@@ -102,7 +106,9 @@ public static class Appraisal
         int o = reform.ValuationOffset, h = reform.HorizonYears;
         int[] cuts = { Math.Max(1, h / 2), h, 2 * h };
         var longRun = reform with { HorizonYears = cuts[^1] };
-        double maxE = Math.Min(Math.Max(bgpOptimum, baseline.SchoolingYears), inputs.DemographyFor(baseline).RetirementAge - inputs.Demography.EntryAge - 1);
+        double maxE = Math.Min(
+            Math.Max(bgpOptimum, baseline.SchoolingYears),
+            inputs.DemographyFor(baseline).RetirementAge - inputs.Demography.EntryAge - 1);
         var simulated = new Dictionary<double, ReformPath>();
         ReformPath Path(double e)
         {
@@ -122,7 +128,9 @@ public static class Appraisal
             tailFinite = pv.Total is not null;
             return pv.Counted;
         }
-        var found = Enumerable.Range(0, cuts.Length + 1).Select(k => Maximise(e => Value(e, k), baseline.SchoolingYears, maxE)).ToList();
+        var found = Enumerable.Range(0, cuts.Length + 1)
+            .Select(k => Maximise(e => Value(e, k), baseline.SchoolingYears, maxE))
+            .ToList();
         var (bestE, bestPv) = found[0];
         var byHorizon = cuts.Select((c, k) => new HorizonOptimum(c, found[k + 1].E, found[k + 1].Value)).ToList();
         return new DiscountedOptimum(schedule.Id, bestE, bestPv, tailFinite, bgpOptimum, byHorizon, schedule.Label, h,

@@ -28,7 +28,8 @@ public sealed record DiscountSchedule(string Id, string Label, IReadOnlyList<Dis
 
     public static IReadOnlyList<DiscountSchedule> Published { get; } = new[] { GreenBook, Omb3, Omb7 };
 
-    public static DiscountSchedule Constant(string id, string label, double rate) => new(id, label, new[] { new DiscountStep(1, rate) });
+    public static DiscountSchedule Constant(string id, string label, double rate) =>
+        new(id, label, new[] { new DiscountStep(1, rate) });
 
     public double RateInYear(int year)
     {

@@ -70,7 +70,8 @@ public sealed record BracketReturns : ReturnSchedule
 public sealed record PowerReturn(double Theta, double Psi) : ReturnSchedule
 {
     public override double Phi(double years) => years <= 0 ? 0.0 : Theta / (1 - Psi) * Math.Pow(years, 1 - Psi);
-    public override double MarginalReturn(double years) => years <= 0 ? double.PositiveInfinity : Theta * Math.Pow(years, -Psi);
+    public override double MarginalReturn(double years) =>
+        years <= 0 ? double.PositiveInfinity : Theta * Math.Pow(years, -Psi);
 }
 
 /// <summary>Mincer experience profile: log earnings rise by β₁x − β₂x² with x years of work experience.</summary>

@@ -69,7 +69,8 @@ public sealed record TabulatedSurvival : Survival
     }
 
     public bool Equals(TabulatedSurvival? other) =>
-        other is not null && ages.AsSpan().SequenceEqual(other.ages) && survivors.AsSpan().SequenceEqual(other.survivors);
+        other is not null && ages.AsSpan().SequenceEqual(other.ages)
+            && survivors.AsSpan().SequenceEqual(other.survivors);
 
     public override int GetHashCode() => HashCode.Combine(ages.Length, ages[^1], survivors[^1]);
 }

@@ -23,14 +23,16 @@ public static class Quadrature
     public static double Panel3(Func<double, double> f, double a, double b)
     {
         double half = 0.5 * (b - a), mid = 0.5 * (a + b);
-        return half * (Weights3[0] * f(mid + half * Nodes3[0]) + Weights3[1] * f(mid) + Weights3[2] * f(mid + half * Nodes3[2]));
+        return half * (Weights3[0] * f(mid + half * Nodes3[0]) + Weights3[1] * f(mid)
+            + Weights3[2] * f(mid + half * Nodes3[2]));
     }
 
     /// <summary>∫_a^b f. Panel edges fall on whole numbers and on <paramref name="breakpoints"/>,
     /// so integrands with kinks there (life tables, schooling brackets) are integrated piecewise-smoothly.</summary>
     /// <param name="fast">Three-point rule per panel (exact to degree 5) instead of five: for the thousands of
     /// evaluations of Monte Carlo and Sobol runs, where 1e-8 relative accuracy is plenty.</param>
-    public static double Integrate(Func<double, double> f, double a, double b, IReadOnlyList<double>? breakpoints = null, bool fast = false)
+    public static double Integrate(
+        Func<double, double> f, double a, double b, IReadOnlyList<double>? breakpoints = null, bool fast = false)
     {
         if (!(b > a)) return 0.0;
         double sum = 0.0;

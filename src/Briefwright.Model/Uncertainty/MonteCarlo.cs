@@ -29,7 +29,9 @@ public sealed record Percentiles(double P5, double P25, double P50, double P75, 
 /// One option's Monte Carlo results: the long-run change (percent) and the present value to the horizon (years of
 /// output per person at the valuation date), and the probabilities of a gain and of a positive present value.
 /// </summary>
-public sealed record OptionUncertainty(string OptionId, PercentileSummary LongRunChangePct, PercentileSummary PresentValue, Probability ProbabilityGain, Probability ProbabilityPositivePv);
+public sealed record OptionUncertainty(
+    string OptionId, PercentileSummary LongRunChangePct, PercentileSummary PresentValue, Probability ProbabilityGain,
+    Probability ProbabilityPositivePv);
 
 /// <summary>
 /// Monte Carlo results: distributions of the key results, probabilities, and a fan of the headline path.
@@ -57,7 +59,8 @@ public static class MonteCarlo
     public const int MaxAttemptsPerDraw = 20;
 
     /// <summary>Maps uniforms in (0,1) to parameter values through each distribution's quantile function.</summary>
-    public static ModelInputs Apply(ModelInputs inputs, IReadOnlyList<UncertainParameter> parameters, ReadOnlySpan<double> u)
+    public static ModelInputs Apply(
+        ModelInputs inputs, IReadOnlyList<UncertainParameter> parameters, ReadOnlySpan<double> u)
     {
         for (int j = 0; j < parameters.Count; j++)
             inputs = Parameters.Find(parameters[j].Parameter)!.Set(inputs, parameters[j].Distribution.Quantile(u[j]));
@@ -69,7 +72,8 @@ public static class MonteCarlo
     /// over threads. A draw whose inputs break a model rule is rejected, counted and replaced by the next attempt of
     /// the same stream.
     /// </summary>
-    public static MonteCarloResults Run(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, int maxThreads = ModelThreads.AllCores)
+    public static MonteCarloResults Run(
+        ModelInputs inputs, AnalysisSettings settings, double optimumGuess, int maxThreads = ModelThreads.AllCores)
     {
         var spec = settings.MonteCarlo ?? throw new ArgumentException("No Monte Carlo settings.");
         int d = spec.Parameters.Count;
@@ -88,7 +92,8 @@ public static class MonteCarlo
                 for (int j = 0; j < d; j++) u[j] = rng.NextOpenUnit();
                 var trial = Apply(inputs, spec.Parameters, u);
                 if (Parameters.Violation(trial) is not null) { rejected[i]++; continue; }
-                results[i] = KeyResultsEvaluator.Evaluate(trial, settings, optimumGuess, headlinePath: paths.AsSpan(i * width, width));
+                results[i] = KeyResultsEvaluator.Evaluate(
+                    trial, settings, optimumGuess, headlinePath: paths.AsSpan(i * width, width));
                 return;
             }
         });
