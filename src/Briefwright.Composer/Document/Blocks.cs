@@ -44,7 +44,9 @@ public sealed record TableBlock(
     string? Source) : Block;
 
 /// <summary>A vector chart: a one-page PDF drawn to <see cref="WidthPt"/> × <see cref="HeightPt"/> points.</summary>
-public sealed record FigureBlock(string Id, byte[] Pdf, int Page, double WidthPt, double HeightPt, string Caption, string? Source, string AltText) : Block;
+public sealed record FigureBlock(
+    string Id, byte[] Pdf, int Page, double WidthPt, double HeightPt, string Caption, string? Source,
+    string AltText) : Block;
 
 /// <summary>A shaded box (key findings): a title and blocks inside; kept on one page.</summary>
 public sealed record BoxBlock(string? Title, IReadOnlyList<Block> Content) : Block;

@@ -107,7 +107,8 @@ public sealed class PdfSurface : IDrawingSurface
 
     private XSolidBrush Brush(Rgb c)
     {
-        if (!brushes.TryGetValue(c, out var brush)) brushes[c] = brush = new XSolidBrush(XColor.FromArgb(c.R, c.G, c.B));
+        if (!brushes.TryGetValue(c, out var brush))
+            brushes[c] = brush = new XSolidBrush(XColor.FromArgb(c.R, c.G, c.B));
         return brush;
     }
 
@@ -140,7 +141,8 @@ public sealed class PdfSurface : IDrawingSurface
     public void BeginLink(Box box, string url, string text)
     {
         double h = page!.Height.Point;
-        var rect = new PdfRectangle(new XPoint(box.X, h - box.Y - box.Height), new XPoint(box.X + box.Width, h - box.Y));
+        var rect = new PdfRectangle(
+            new XPoint(box.X, h - box.Y - box.Height), new XPoint(box.X + box.Width, h - box.Y));
         var link = PdfSharp.Pdf.Annotations.PdfLinkAnnotation.CreateWebLink(rect, url);
         // Optional entries PDFsharp fills from the clock and a random GUID: left out, so the bytes depend on content
         // only.

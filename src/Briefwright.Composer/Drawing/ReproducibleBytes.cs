@@ -52,7 +52,8 @@ public static partial class ReproducibleBytes
         var file = PdfObjects.Parse(pdf);
         foreach (var obj in file.Objects)
             if (obj.IsXmpMetadata)
-                obj.StreamText = new PdfObjects.Text(Encoding.Latin1.GetString(Xmp(obj.Stream!, date, pdfUa)), obj.Head.Order + 1);
+                obj.StreamText = new PdfObjects.Text(
+                    Encoding.Latin1.GetString(Xmp(obj.Stream!, date, pdfUa)), obj.Head.Order + 1);
 
         string stamp = date.ToString("yyyyMMdd", CultureInfo.InvariantCulture) + "000000";
         var texts = file.Texts().ToList();
@@ -81,7 +82,8 @@ public static partial class ReproducibleBytes
                 fields.Add(new Field(t, m.Groups[2].Index, m.Groups[2].Length, 'H'));
             }
             foreach (Match m in Uuid().Matches(s)) fields.Add(new Field(t, m.Groups[1].Index, 36, 'U'));
-            foreach (Match m in AnnotationName().Matches(s)) fields.Add(new Field(t, m.Groups[1].Index, m.Groups[1].Length, 'H'));
+            foreach (Match m in AnnotationName().Matches(s))
+                fields.Add(new Field(t, m.Groups[1].Index, m.Groups[1].Length, 'H'));
         }
         return fields;
     }
@@ -247,7 +249,8 @@ public static partial class ReproducibleBytes
                 int count = int.Parse(length.Groups[1].Value, CultureInfo.InvariantCulture);
                 int after = data + count;
                 int endObj = s.IndexOf("endobj", after, StringComparison.Ordinal);
-                if (endObj < 0 || s.IndexOf("endstream", after, StringComparison.Ordinal) is var es && (es < 0 || es > endObj))
+                if (endObj < 0
+                    || s.IndexOf("endstream", after, StringComparison.Ordinal) is var es && (es < 0 || es > endObj))
                     throw Bad($"object {number}: endstream not found after its /Length");
                 int next = endObj + "endobj".Length;
                 while (next < s.Length && s[next] is '\r' or '\n') next++;
@@ -283,7 +286,8 @@ public static partial class ReproducibleBytes
                 string head = o.Head.Value;
                 byte[]? stream = o.StreamText is { } text ? Encoding.Latin1.GetBytes(text.Value) : o.Stream;
                 if (o.StreamText is not null)
-                    head = StreamLength().Replace(head, "/Length " + stream!.Length.ToString(CultureInfo.InvariantCulture), 1);
+                    head = StreamLength().Replace(
+                        head, "/Length " + stream!.Length.ToString(CultureInfo.InvariantCulture), 1);
                 output.Write(Encoding.Latin1.GetBytes(head));
                 if (stream is not null) output.Write(stream);
                 output.Write(Encoding.Latin1.GetBytes(o.After));
@@ -294,7 +298,8 @@ public static partial class ReproducibleBytes
             table.Append("0000000000 65535 f \n");
             for (int i = 1; i < size; i++)
                 table.Append(offsets[i] == 0 ? "0000000000 65535 f \n" : $"{offsets[i]:D10} 00000 n \n");
-            table.Append(trailer.Value).Append("startxref\n").Append(xref.ToString(CultureInfo.InvariantCulture)).Append(tail);
+            table.Append(trailer.Value).Append("startxref\n").Append(xref.ToString(CultureInfo.InvariantCulture))
+                .Append(tail);
             output.Write(Encoding.Latin1.GetBytes(table.ToString()));
             return output.ToArray();
         }
