@@ -79,7 +79,9 @@ public static class AnalysisCharts
         return plot;
     }
 
-    /// <summary>Tornado: the headline option's long-run change with each parameter at the low and high end of its range.</summary>
+    /// <summary>
+    /// Tornado: the headline option's long-run change with each parameter at the low and high end of its range.
+    /// </summary>
     public static Plot Tornado(ChartDrawing d, IReadOnlyList<OptionSwing> rows, double central, string optionLabel)
     {
         // Not options: the two ends of each range are drawn in the neutral tones.
@@ -119,7 +121,10 @@ public static class AnalysisCharts
         return plot;
     }
 
-    /// <summary>Heat map of a grid result (E* or the long-run change) over two parameters; cells that break a model rule are left blank.</summary>
+    /// <summary>
+    /// Heat map of a grid result (E* or the long-run change) over two parameters; cells that break a model rule are
+    /// left blank.
+    /// </summary>
     public static Plot Heatmap(ChartDrawing d, GridResult grid, string xLabel, string yLabel, string valueLabel,
         double xScale = 1, double yScale = 1)
     {
@@ -161,7 +166,10 @@ public static class AnalysisCharts
         return (x0 - dx / 2, x1 + dx / 2, y0 - dy / 2, y1 + dy / 2);
     }
 
-    /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
+    /// <summary>
+    /// Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th
+    /// percentiles.
+    /// </summary>
     public static Plot Distribution(
         ChartDrawing d, MonteCarloResults mc, OptionUncertainty option, string optionLabel, OptionStyle? style = null)
     {

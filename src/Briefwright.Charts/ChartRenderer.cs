@@ -99,7 +99,9 @@ public static partial class ChartRenderer
         plot.Legend.Margin = new PixelPadding(4);
     }
 
-    /// <summary>Draws the panels of a chart into the rectangle from (0, <paramref name="top"/>) of the given size.</summary>
+    /// <summary>
+    /// Draws the panels of a chart into the rectangle from (0, <paramref name="top"/>) of the given size.
+    /// </summary>
     public static void Draw(SKCanvas canvas, ChartPanels chart, float width, float height, float top = 0)
     {
         float y = top;
@@ -150,14 +152,18 @@ public static partial class ChartRenderer
     /// <summary>The width of the PNG copies in pixels: enough for a full-width slide.</summary>
     public const int PngWidth = 1600;
 
-    /// <summary>A figure's title above a copy and its source line below: what a slide or report needs with it.</summary>
+    /// <summary>
+    /// A figure's title above a copy and its source line below: what a slide or report needs with it.
+    /// </summary>
     /// <summary>A figure's title above a copy and its source line below, in <paramref name="Family"/> (the chart's
     /// font: <see cref="ChartDrawing.Family"/>).</summary>
     public sealed record CopyTexts(string Title, string Source, string Family);
 
     private const float CopyMargin = 10, CopyTitleSize = 11, CopySourceSize = 8;
 
-    /// <summary>The lines of the title wrapped to the copy's width, and the heights above and below the chart.</summary>
+    /// <summary>
+    /// The lines of the title wrapped to the copy's width, and the heights above and below the chart.
+    /// </summary>
     private static (List<string> Lines, float Above, float Below) CopyLayout(CopyTexts? texts, float width)
     {
         if (texts is null) return (new List<string>(), 0, 0);
@@ -200,8 +206,9 @@ public static partial class ChartRenderer
     {
         var layout = CopyLayout(texts, width);
         float scale = (float)pixelWidth / width;
-        // Opaque pixels (the copy has a white page): the encoder writes RGB, a quarter less to filter and deflate, which
-        // with the "up" filter at zlib level 1 encodes three times faster than RGBA (measured on the demo charts).
+        // Opaque pixels (the copy has a white page): the encoder writes RGB, a quarter less to filter and deflate,
+        // which with the "up" filter at zlib level 1 encodes three times faster than RGBA (measured on the demo
+        // charts).
         var info = new SKImageInfo(pixelWidth, (int)Math.Ceiling((height + layout.Above + layout.Below) * scale), SKColorType.Rgb888x, SKAlphaType.Opaque);
         using var surface = SKSurface.Create(info);
         surface.Canvas.Scale(scale);

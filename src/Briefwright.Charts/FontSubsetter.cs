@@ -11,8 +11,8 @@ public static partial class FontSubsetter
     private const string Lib = "libHarfBuzzSharp";
     private const uint NoHinting = 0x1;
 
-    /// <summary>What chart labels use: ASCII, the Latin-1 letters of names, dashes and quotes, minus, middle dot, ×, ≤ ≥.
-    /// Every glyph kept is embedded once per chart, so the set is kept small.</summary>
+    /// <summary>What chart labels use: ASCII, the Latin-1 letters of names, dashes and quotes, minus, middle dot, ×,
+    /// ≤ ≥. Every glyph kept is embedded once per chart, so the set is kept small.</summary>
     public static readonly (int First, int Last)[] ChartCharacters =
     {
         (0x20, 0x7E), (0xB0, 0xB0), (0xB7, 0xB7), (0xC0, 0xFF), (0xD7, 0xD7), (0x2013, 0x2014), (0x2018, 0x201D), (0x2026, 0x2026),

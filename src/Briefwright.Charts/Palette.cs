@@ -31,7 +31,9 @@ public static class Palette
     public static readonly Color Grid = Color.FromHex("#E3E7EC");
     public static readonly Color Ink = Color.FromHex("#1A1A1A");
 
-    /// <summary>The heat map's sequential scale, light to dark, in neutral blue-greys so no cell reads as an option.</summary>
+    /// <summary>
+    /// The heat map's sequential scale, light to dark, in neutral blue-greys so no cell reads as an option.
+    /// </summary>
     public static readonly Color[] Sequential = { Color.FromHex("#F4F1E6"), Color.FromHex("#A9BCC6"), Color.FromHex("#2E3F4F") };
 
     /// <summary>Marker shapes that differ as well as colours, so options stay apart when printed in grey.</summary>

@@ -1,9 +1,9 @@
 namespace Briefwright.Charts;
 
 /// <summary>
-/// A chart ready to place: page <see cref="Page"/> (1-based) of a vector PDF of <see cref="WidthPt"/> × <see cref="HeightPt"/>
-/// points that holds every chart of the brief, so the chart font is embedded once; its texts; and (when annex files are
-/// wanted) the same chart as SVG and PNG.
+/// A chart ready to place: page <see cref="Page"/> (1-based) of a vector PDF of <see cref="WidthPt"/> ×
+/// <see cref="HeightPt"/> points that holds every chart of the brief, so the chart font is embedded once; its texts;
+/// and (when annex files are wanted) the same chart as SVG and PNG.
 /// </summary>
 public sealed record RenderedChart(string Id, byte[] Pdf, int Page, double WidthPt, double HeightPt, string Caption, string AltText, string Source)
 {

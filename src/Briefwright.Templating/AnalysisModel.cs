@@ -96,7 +96,9 @@ internal sealed class AnalysisModel(BriefLanguage language) : TemplateFunctions(
             ("top_share", T(idx.Total[top] > 0.5 ? "sobol.most" : "sobol.largest_share")));
     }
 
-    /// <summary>The headline option: its facts and the sentences page 1 is made of, each chosen from those facts.</summary>
+    /// <summary>
+    /// The headline option: its facts and the sentences page 1 is made of, each chosen from those facts.
+    /// </summary>
     private ScriptObject Headline(
         ScriptObject model, ScenarioDocument s, BalancedGrowthResults r, AnalysisResults a, OptionOutcome headline)
     {
@@ -180,7 +182,9 @@ internal sealed class AnalysisModel(BriefLanguage language) : TemplateFunctions(
             rows, new HashSet<int> { 1, 2, 3, 4 });
     }
 
-    /// <summary>How the discounted optimum treats the value beyond the horizon, in words chosen from the result.</summary>
+    /// <summary>
+    /// How the discounted optimum treats the value beyond the horizon, in words chosen from the result.
+    /// </summary>
     private string TailText(Model.Dynamics.DiscountedOptimum d, int horizon)
     {
         if (d.TailIncluded)
@@ -189,10 +193,14 @@ internal sealed class AnalysisModel(BriefLanguage language) : TemplateFunctions(
         return T("tail.cut", horizon, cuts);
     }
 
-    /// <summary>A parameter's label in the brief's language (key <c>parameter.&lt;name&gt;</c>), else the model's.</summary>
+    /// <summary>
+    /// A parameter's label in the brief's language (key <c>parameter.&lt;name&gt;</c>), else the model's.
+    /// </summary>
     internal string ParameterLabel(string name, string fallback) =>
         L.Texts.TryGetValue("parameter." + name, out var t) ? t.Text : fallback;
 
-    /// <summary>A label as it reads inside a sentence: lower case, except German nouns (key <c>list.lower_case</c>).</summary>
+    /// <summary>
+    /// A label as it reads inside a sentence: lower case, except German nouns (key <c>list.lower_case</c>).
+    /// </summary>
     internal string InSentence(string label) => L.Get("list.lower_case") == "yes" ? label.ToLowerInvariant() : label;
 }

@@ -9,9 +9,9 @@ public sealed record LanguageText(string Text, int Line);
 /// <summary>
 /// A brief language: every word the tool writes (headings, captions, table headers, caveats, page furniture, the
 /// standard brief's sentences) and its number and date format, read from one file of texts
-/// (<c>templates/languages/&lt;code&gt;.texts</c>, <c>key = text</c> per line). The number and date formats are carried in
-/// that file rather than taken from .NET's culture data: the native executable runs with invariant globalisation, and
-/// turning culture data on would tie the tool to the host's ICU library (see README, "Languages").
+/// (<c>templates/languages/&lt;code&gt;.texts</c>, <c>key = text</c> per line). The number and date formats are carried
+/// in that file rather than taken from .NET's culture data: the native executable runs with invariant globalisation,
+/// and turning culture data on would tie the tool to the host's ICU library (see README, "Languages").
 /// </summary>
 public sealed class BriefLanguage
 {
@@ -63,7 +63,9 @@ public sealed class BriefLanguage
     /// <summary>The languages shipped with the tool, by code.</summary>
     public static IReadOnlyDictionary<string, BriefLanguage> BuiltIn => builtIn.Value;
 
-    /// <summary>The language for a tag such as "fr-FR" or "de": by its language subtag; null when none is shipped.</summary>
+    /// <summary>
+    /// The language for a tag such as "fr-FR" or "de": by its language subtag; null when none is shipped.
+    /// </summary>
     public static BriefLanguage? ForTag(string tag)
     {
         string code = tag.Split('-')[0].ToLowerInvariant();
@@ -120,7 +122,9 @@ public sealed class BriefLanguage
         .Replace("{month}", Months[date.Month - 1], StringComparison.Ordinal)
         .Replace("{yyyy}", date.Year.ToString("0000", CultureInfo.InvariantCulture), StringComparison.Ordinal);
 
-    /// <summary>Reads a language file: <c>key = text</c> per line; <c>#</c> starts a comment line; <c>\u202F</c>-style escapes.</summary>
+    /// <summary>
+    /// Reads a language file: <c>key = text</c> per line; <c>#</c> starts a comment line; <c>\u202F</c>-style escapes.
+    /// </summary>
     public static BriefLanguage Parse(string code, string text, string source)
     {
         var texts = new Dictionary<string, LanguageText>(StringComparer.Ordinal);

@@ -20,8 +20,8 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
         var s = b.Scenario;
         var r = b.Results;
 
-        // Text written in the scenario is text: escaped here, where it meets the template's markup, so it can never make
-        // a link, a heading, a list, HTML or a [[directive]] (Md.Escape).
+        // Text written in the scenario is text: escaped here, where it meets the template's markup, so it can never
+        // make a link, a heading, a list, HTML or a [[directive]] (Md.Escape).
         model["brief"] = Obj(
             ("id", s.Brief.Id), ("title", Md.Text(s.Brief.Title)), ("short_title", Md.Text(s.Brief.ShortTitle)), ("organisation", Md.Text(s.Brief.Organisation)),
             ("author", Md.Text(s.Brief.Author)), ("date", s.Brief.Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)), ("status", s.Brief.Status),
@@ -86,7 +86,9 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
     public string DecompositionText(Model.Core.LeverDecomposition d) =>
         Wording.List(d.Levers.Select(l => T("lever.points", Wording.LeverName(l.Lever), Wording.Points(l.ChangePct))).ToList());
 
-    /// <summary>What the options that change schooling alone show about the two opposing forces, chosen from their signs.</summary>
+    /// <summary>
+    /// What the options that change schooling alone show about the two opposing forces, chosen from their signs.
+    /// </summary>
     private string ResultsSummary(ScenarioDocument s, BalancedGrowthResults r)
     {
         var alone = r.Levers.Where(l => l.Levers.Count == 1 && l.Levers[0].Lever == Model.Core.Levers.Schooling).ToList();
@@ -162,7 +164,10 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
     /// <summary>The source the scenario reader gives a valuation year left to its default.</summary>
     private const string BriefDateSource = "the brief's date";
 
-    /// <summary>An assumption's value as the table shows it: the reader's text, except brackets of returns, written in the brief's language.</summary>
+    /// <summary>
+    /// An assumption's value as the table shows it: the reader's text, except brackets of returns, written in the
+    /// brief's language.
+    /// </summary>
     public string ValueText(ScenarioDocument s, Assumption a) =>
         a.Path == "human_capital.returns.brackets" && s.Inputs.HumanCapital.Returns is BracketReturns b
             ? string.Join("; ", b.Brackets.Select(x => T("value.bracket",

@@ -18,7 +18,9 @@ public sealed class BriefTemplate
     public const int RecursiveLimit = 50;
     public const int OutputLimit = 2_000_000;
 
-    /// <summary>Expressions and statements evaluated for one brief: the deterministic budget, far above what a brief needs.</summary>
+    /// <summary>
+    /// Expressions and statements evaluated for one brief: the deterministic budget, far above what a brief needs.
+    /// </summary>
     public const int StepLimit = 1_000_000;
 
     /// <summary>Items in a list or range made while filling the template.</summary>
@@ -46,7 +48,9 @@ public sealed class BriefTemplate
     public string Path { get; }
     public string Text { get; }
 
-    /// <summary>SHA-256 of the template text (hex), computed once: it goes into every brief's stamp and manifest.</summary>
+    /// <summary>
+    /// SHA-256 of the template text (hex), computed once: it goes into every brief's stamp and manifest.
+    /// </summary>
     public string Hash { get; }
 
     public static BriefTemplate Parse(string text, string path)
@@ -95,7 +99,9 @@ public sealed class BriefTemplate
         }
     }
 
-    /// <summary>Counts every evaluation against the step and time budgets and refuses oversized intermediate values.</summary>
+    /// <summary>
+    /// Counts every evaluation against the step and time budgets and refuses oversized intermediate values.
+    /// </summary>
     private sealed class BudgetContext : TemplateContext
     {
         private readonly long deadline = System.Diagnostics.Stopwatch.GetTimestamp() + (long)(TimeLimit.TotalSeconds * System.Diagnostics.Stopwatch.Frequency);

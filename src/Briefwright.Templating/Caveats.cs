@@ -12,7 +12,9 @@ public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language
     public IReadOnlyList<string> Fixed => new[] { T("caveat.not_forecasts"), T("caveat.optimum"),
         T("caveat.official") };
 
-    /// <summary>Usual ranges for a parameter check; the bounds are common practice in growth accounting, not rules.</summary>
+    /// <summary>
+    /// Usual ranges for a parameter check; the bounds are common practice in growth accounting, not rules.
+    /// </summary>
     private static readonly (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
     {
         ("caveat.name.saving_rate", i => i.Production.SavingRate, 0.10, 0.40, true),

@@ -3,7 +3,9 @@ using Briefwright.Scenario;
 
 namespace Briefwright.Templating;
 
-/// <summary>The short assumptions table for the body: the assumptions that move the headline most, ranked by the tornado.</summary>
+/// <summary>
+/// The short assumptions table for the body: the assumptions that move the headline most, ranked by the tornado.
+/// </summary>
 public sealed class KeyAssumptions(BriefLanguage language) : TemplateFunctions(language)
 {
     public const int MaxRows = 8;
@@ -17,7 +19,9 @@ public sealed class KeyAssumptions(BriefLanguage language) : TemplateFunctions(l
         ["return_scale"] = "human_capital.returns",
     };
 
-    /// <summary>Shown when the scenario gives no sensitivity ranges: the assumptions the model's answer rests on, unranked.</summary>
+    /// <summary>
+    /// Shown when the scenario gives no sensitivity ranges: the assumptions the model's answer rests on, unranked.
+    /// </summary>
     private static readonly string[] Core = { "human_capital.returns", "demography.population_growth", "demography.retirement_age", "demography.participation", "production.saving_rate", "production.capital_share" };
 
     private Assumption? Find(ScenarioDocument s, string path) =>

@@ -25,7 +25,8 @@ public static class Md
             if ("\\`*_[]<>|#$".Contains(c) || entity) sb.Append('\\');
             sb.Append(c);
         }
-        // Block starts: a quote (>), a list item (- x, + x, 1. x, 1) x), a rule or heading underline (---, ===), a fence (~~~).
+        // Block starts: a quote (>), a list item (- x, + x, 1. x, 1) x), a rule or heading underline (---, ===), a
+        // fence (~~~).
         bool SpaceOrEnd(int i) => i >= sb.Length || sb[i] == ' ';
         if (sb.Length > 0 && (sb[0] is '>' or '~' || (sb[0] is '-' or '+' or '=' && (SpaceOrEnd(1) || sb[1] == sb[0])))) sb.Insert(0, '\\');
         int digits = 0;
@@ -34,7 +35,9 @@ public static class Md
         return sb.ToString();
     }
 
-    /// <summary><see cref="Escape"/> for an optional value: null stays null, so a template's <c>if</c> still sees it missing.</summary>
+    /// <summary>
+    /// <see cref="Escape"/> for an optional value: null stays null, so a template's <c>if</c> still sees it missing.
+    /// </summary>
     public static string? Text(string? text) => text is null ? null : Escape(text);
 
     /// <summary>Undoes <see cref="Escape"/>.</summary>

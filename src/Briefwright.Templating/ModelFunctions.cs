@@ -13,7 +13,9 @@ public static class ModelFunctions
         "to write the same bytes as the managed build (bench/check-native.sh).")]
     public static void AddFunction(this ScriptObject model, string name, Delegate function) => model.Import(name, function);
 
-    /// <summary>Makes every public static method of <paramref name="type"/> callable from templates, under its snake_case name.</summary>
+    /// <summary>
+    /// Makes every public static method of <paramref name="type"/> callable from templates, under its snake_case name.
+    /// </summary>
     [UnconditionalSuppressMessage("Trimming", "IL2026", Justification =
         "Scriban lists the type's public methods by reflection; the annotation keeps them, and the type is one of this " +
         "tool's own, which the native publish keeps whole.")]

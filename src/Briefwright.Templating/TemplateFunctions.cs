@@ -4,10 +4,10 @@ using Scriban.Runtime;
 namespace Briefwright.Templating;
 
 /// <summary>
-/// Number and date formatting for templates (<c>pct</c>, <c>change</c>, <c>num</c>, <c>sig</c>, <c>big</c>, <c>years</c>,
-/// <c>pv</c>, <c>prob</c>, <c>date</c>), applying one policy written in docs/templates.md: changes in percent to one
-/// decimal, years to one decimal, present values to two significant figures, probabilities from a sample never as
-/// 0% or 100%, no exponent notation.
+/// Number and date formatting for templates (<c>pct</c>, <c>change</c>, <c>num</c>, <c>sig</c>, <c>big</c>,
+/// <c>years</c>, <c>pv</c>, <c>prob</c>, <c>date</c>), applying one policy written in docs/templates.md: changes in
+/// percent to one decimal, years to one decimal, present values to two significant figures, probabilities from a
+/// sample never as 0% or 100%, no exponent notation.
 /// </summary>
 public class TemplateFunctions(BriefLanguage language)
 {
@@ -49,10 +49,15 @@ public class TemplateFunctions(BriefLanguage language)
         return (value < 0 ? "−" : "") + s;
     }
 
-    /// <summary>Years, always to one decimal (the same precision beside each other): 34.51 → "34.5 years"; 28 → "28.0 years".</summary>
+    /// <summary>
+    /// Years, always to one decimal (the same precision beside each other): 34.51 → "34.5 years"; 28 → "28.0 years".
+    /// </summary>
     public string Years(double value, int digits = 1) => L.Format("unit.years", Fixed(value, digits));
 
-    /// <summary>A present value to two significant figures: 0.8213 → "0.82", 3.449 → "3.4", 0.002 → "&lt; 0.01", −0.004 → "&gt; −0.01".</summary>
+    /// <summary>
+    /// A present value to two significant figures: 0.8213 → "0.82", 3.449 → "3.4", 0.002 → "&lt; 0.01",
+    /// −0.004 → "&gt; −0.01".
+    /// </summary>
     public string Pv(double value)
     {
         if (value == 0) return "0";

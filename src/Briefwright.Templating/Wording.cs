@@ -20,7 +20,10 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
         _ => "none",
     };
 
-    /// <summary>"would raise long-run output per person by 4.1%", "would lower … by 2.7%" or "would leave … unchanged (to one decimal)".</summary>
+    /// <summary>
+    /// "would raise long-run output per person by 4.1%", "would lower … by 2.7%" or "would leave … unchanged (to one
+    /// decimal)".
+    /// </summary>
     public string Effect(double changePct) => HeadlineFacts.Of(changePct) switch
     {
         Direction.Rise => T("effect.raise", Outcome, Magnitude(changePct)),
@@ -57,7 +60,10 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
         _ => string.Join(", ", items.Take(items.Count - 1)) + T("list.and") + items[^1],
     };
 
-    /// <summary>The shape of a sequence of values: "rises", "falls", "stays the same", "rises, then falls", "falls, then rises" or "rises and falls more than once".</summary>
+    /// <summary>
+    /// The shape of a sequence of values: "rises", "falls", "stays the same", "rises, then falls", "falls, then rises"
+    /// or "rises and falls more than once".
+    /// </summary>
     public string Trend(IReadOnlyList<double> values)
     {
         var steps = new List<int>();
