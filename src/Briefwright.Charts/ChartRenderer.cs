@@ -152,9 +152,6 @@ public static partial class ChartRenderer
     /// <summary>The width of the PNG copies in pixels: enough for a full-width slide.</summary>
     public const int PngWidth = 1600;
 
-    /// <summary>
-    /// A figure's title above a copy and its source line below: what a slide or report needs with it.
-    /// </summary>
     /// <summary>A figure's title above a copy and its source line below, in <paramref name="Family"/> (the chart's
     /// font: <see cref="ChartDrawing.Family"/>).</summary>
     public sealed record CopyTexts(string Title, string Source, string Family);

@@ -83,7 +83,8 @@ public sealed class BriefLanguage
     /// <summary>The text for <paramref name="key"/>.</summary>
     public string Get(string key) =>
         texts.TryGetValue(key, out var t) ? t.Text
-        : throw new InvalidOperationException($"{Source}: the text '{key}' is missing; every language file needs every key of templates/languages/en.texts.");
+        : throw new InvalidOperationException($"{Source}: the text '{key}' is missing; every language file needs " +
+            "every key of templates/languages/en.texts.");
 
     /// <summary>The text for <paramref name="key"/> with {0}, {1}, … replaced by <paramref name="args"/>.</summary>
     public string Format(string key, params object?[] args)

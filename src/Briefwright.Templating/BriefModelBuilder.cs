@@ -52,7 +52,8 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
         var figureIds = b.Figures.Select(f => f.Id).ToHashSet();
         model.AddFunction("figure", new Func<string, string>(id => figureIds.Contains(id)
             ? $"[[figure: {id}]]"
-            : throw new InvalidOperationException($"Unknown figure '{id}'. Known figures: {string.Join(", ", figureIds.Order())}.")));
+            : throw new InvalidOperationException($"Unknown figure '{id}'. Known figures: " +
+                $"{string.Join(", ", figureIds.Order())}.")));
         model.AddFunction("assumptions_table", new Func<string>(() => AssumptionsTable(s)));
         model.AddFunction("key_assumptions_table", new Func<string>(() => KeyAssumptions.Table(s, b.Analysis)));
         model.AddFunction("levers_table", new Func<string>(() => LeversTable(s, r)));

@@ -117,7 +117,9 @@ public sealed class BriefTemplate
             bool outermost = openStatements == 0 && scriptNode is ScriptStatement and not ScriptBlockStatement;
             if (outermost) statement = at;
             if (++steps > StepLimit || ((steps & 255) == 0 && System.Diagnostics.Stopwatch.GetTimestamp() > deadline))
-                throw new ScriptRuntimeException(statement ?? at, $"This statement ran past the budget for one brief ({StepLimit:N0} steps or {TimeLimit.TotalSeconds:0.#} s), as an endless or exploding loop or recursion would");
+                throw new ScriptRuntimeException(statement ?? at,
+                    $"This statement ran past the budget for one brief ({StepLimit:N0} steps or " +
+                    $"{TimeLimit.TotalSeconds:0.#} s), as an endless or exploding loop or recursion would");
             object? result;
             if (outermost) openStatements++;
             try
@@ -131,9 +133,11 @@ public sealed class BriefTemplate
             switch (result)
             {
                 case string text when text.Length > OutputLimit:
-                    throw new ScriptRuntimeException(at, $"The template made a text of {text.Length:N0} characters; the limit is {OutputLimit:N0}");
+                    throw new ScriptRuntimeException(at,
+                        $"The template made a text of {text.Length:N0} characters; the limit is {OutputLimit:N0}");
                 case System.Collections.ICollection list when list.Count > ItemLimit:
-                    throw new ScriptRuntimeException(at, $"The template made a list or range of {list.Count:N0} items; the limit is {ItemLimit:N0}");
+                    throw new ScriptRuntimeException(at,
+                        $"The template made a list or range of {list.Count:N0} items; the limit is {ItemLimit:N0}");
             }
             return result;
         }
@@ -150,7 +154,9 @@ public sealed class BriefTemplate
 
         private static int Checked(SourceSpan span, int value) =>
             value is > IntegerLimit or < -IntegerLimit
-                ? throw new ScriptRuntimeException(span, $"A whole number given to a function or operator must be between −{IntegerLimit:N0} and {IntegerLimit:N0}. Got {value:N0}")
+                ? throw new ScriptRuntimeException(span,
+                    $"A whole number given to a function or operator must be between −{IntegerLimit:N0} and " +
+                    $"{IntegerLimit:N0}. Got {value:N0}")
                 : value;
     }
 

@@ -162,7 +162,9 @@ public class TemplateFunctions(BriefLanguage language)
 
     private string FixedInvariant(double value, int digits)
     {
-        if (!double.IsFinite(value)) throw new InvalidOperationException($"A number to be printed in the brief is not finite. Got {value.ToString(Invariant)}.");
+        if (!double.IsFinite(value))
+            throw new InvalidOperationException(
+                $"A number to be printed in the brief is not finite. Got {value.ToString(Invariant)}.");
         string s = Math.Round(value, Math.Clamp(digits, 0, 15)).ToString("F" + Math.Clamp(digits, 0, 15), Invariant);
         if (s.StartsWith('-')) s = s.TrimStart('-') is var abs && abs.Trim('0', '.').Length == 0 ? abs : "−" + abs;
         return s;
