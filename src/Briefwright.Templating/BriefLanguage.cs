@@ -70,13 +70,16 @@ public sealed class BriefLanguage
     {
         string code = tag.Split('-')[0].ToLowerInvariant();
         if (!BuiltIn.TryGetValue(code, out var language)) return null;
-        return tag.Contains('-') && !string.Equals(tag, language.Tag, StringComparison.OrdinalIgnoreCase) ? language.WithTag(tag) : language;
+        return tag.Contains('-') && !string.Equals(tag, language.Tag, StringComparison.OrdinalIgnoreCase)
+            ? language.WithTag(tag)
+            : language;
     }
 
     /// <summary>The same texts under another region's tag ("fr-CH" with the French texts).</summary>
     public BriefLanguage WithTag(string tag)
     {
-        var copy = new Dictionary<string, LanguageText>(texts) { ["language.tag"] = new LanguageText(tag, texts["language.tag"].Line) };
+        var copy = new Dictionary<string, LanguageText>(texts) {
+            ["language.tag"] = new LanguageText(tag, texts["language.tag"].Line) };
         return new BriefLanguage(Code, Source, copy);
     }
 
@@ -97,7 +100,11 @@ public sealed class BriefLanguage
             if (text[i] == '{' && i + 2 < text.Length && char.IsAsciiDigit(text[i + 1]))
             {
                 int close = text.IndexOf('}', i);
-                if (close > 0 && int.TryParse(text.AsSpan(i + 1, close - i - 1), NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n < args.Length)
+                if (close > 0 && int.TryParse(
+                    text.AsSpan(i + 1, close - i - 1),
+                    NumberStyles.None,
+                    CultureInfo.InvariantCulture,
+                    out int n) && n < args.Length)
                 {
                     sb.Append(Show(args[n]));
                     i = close;
@@ -151,7 +158,11 @@ public sealed class BriefLanguage
         for (int i = 0; i < value.Length; i++)
         {
             if (value[i] == '\\' && i + 5 < value.Length && value[i + 1] == 'u'
-                && int.TryParse(value.AsSpan(i + 2, 4), NumberStyles.HexNumber, CultureInfo.InvariantCulture, out int code))
+                && int.TryParse(
+                    value.AsSpan(i + 2, 4),
+                    NumberStyles.HexNumber,
+                    CultureInfo.InvariantCulture,
+                    out int code))
             {
                 sb.Append((char)code);
                 i += 5;
@@ -170,7 +181,9 @@ public sealed class BriefLanguage
     {
         var assembly = typeof(BriefLanguage).Assembly;
         var result = new Dictionary<string, BriefLanguage>(StringComparer.Ordinal);
-        foreach (string name in assembly.GetManifestResourceNames().Where(n => n.StartsWith("languages.", StringComparison.Ordinal)).Order(StringComparer.Ordinal))
+        foreach (string name in assembly.GetManifestResourceNames()
+            .Where(n => n.StartsWith("languages.", StringComparison.Ordinal))
+            .Order(StringComparer.Ordinal))
         {
             using var stream = assembly.GetManifestResourceStream(name)!;
             using var reader = new StreamReader(stream);

@@ -57,7 +57,8 @@ public sealed class BriefTemplate
     {
         var parsed = Template.Parse(text, path);
         if (parsed.HasErrors)
-            throw new TemplateException(parsed.Messages.Select(m => new TemplateError(path, m.Span.Start.Line + 1, m.Span.Start.Column + 1, Clean(m.Message))).ToList());
+            throw new TemplateException(parsed.Messages.Select(
+                m => new TemplateError(path, m.Span.Start.Line + 1, m.Span.Start.Column + 1, Clean(m.Message))).ToList());
         return new BriefTemplate(parsed, path, text);
     }
 
@@ -85,17 +86,23 @@ public sealed class BriefTemplate
         }
         catch (ScriptRuntimeException ex)
         {
-            throw new TemplateException(new[] { new TemplateError(Path, ex.Span.Start.Line + 1, ex.Span.Start.Column + 1, Clean(ex.OriginalMessage)) });
+            throw new TemplateException(new[] {
+                new TemplateError(Path, ex.Span.Start.Line + 1, ex.Span.Start.Column + 1, Clean(ex.OriginalMessage)) });
         }
         catch (InvalidOperationException ex)
         {
             var span = context.CurrentSpan;
-            throw new TemplateException(new[] { new TemplateError(Path, span.Start.Line + 1, span.Start.Column + 1, ex.Message) });
+            throw new TemplateException(
+                new[] { new TemplateError(Path, span.Start.Line + 1, span.Start.Column + 1, ex.Message) });
         }
         catch (OutOfMemoryException)
         {
             var span = context.CurrentSpan;
-            throw new TemplateException(new[] { new TemplateError(Path, span.Start.Line + 1, span.Start.Column + 1, "The template made a text or list too large to hold in memory.") });
+            throw new TemplateException(new[] { new TemplateError(
+                Path,
+                span.Start.Line + 1,
+                span.Start.Column + 1,
+                "The template made a text or list too large to hold in memory.") });
         }
     }
 
@@ -104,7 +111,8 @@ public sealed class BriefTemplate
     /// </summary>
     private sealed class BudgetContext : TemplateContext
     {
-        private readonly long deadline = System.Diagnostics.Stopwatch.GetTimestamp() + (long)(TimeLimit.TotalSeconds * System.Diagnostics.Stopwatch.Frequency);
+        private readonly long deadline = System.Diagnostics.Stopwatch.GetTimestamp()
+            + (long)(TimeLimit.TotalSeconds * System.Diagnostics.Stopwatch.Frequency);
         private int steps;
         private SourceSpan? statement;
         private int openStatements;

@@ -67,9 +67,13 @@ public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language
                     yield return T("caveat.even_pv", Label(o.OptionId), Pct(o.ProbabilityPositivePv.Estimate, 0));
             }
         var headline = a.Reform.Options.FirstOrDefault(o => o.OptionId == a.HeadlineOptionId);
-        if (headline?.PresentValues[0] is { Total: null } pv && scenario.Analysis.Discounts.FirstOrDefault(d => d.Id == pv.ScheduleId) is { } schedule)
+        if (headline?.PresentValues[0] is { Total: null } pv
+            && scenario.Analysis.Discounts.FirstOrDefault(d => d.Id == pv.ScheduleId) is { } schedule)
             yield return T("caveat.horizon_only", a.Reform.ReformYear + a.Reform.HorizonYears,
-                T("caveat.tail_infinite", Pct(schedule.Steps[^1].Rate), Pct(scenario.Inputs.Production.TechnologyGrowth)));
+                T(
+                    "caveat.tail_infinite",
+                    Pct(schedule.Steps[^1].Rate),
+                    Pct(scenario.Inputs.Production.TechnologyGrowth)));
         if (a.Reform.Optimum.SchoolingYears > 20)
             yield return T("caveat.discounted_long", Years(a.Reform.Optimum.SchoolingYears));
     }

@@ -28,7 +28,8 @@ public sealed class Equations(BriefLanguage language) : TemplateFunctions(langua
         sb.Append(T("eq.optimum")).Append("\n\n")
           .Append("$$W^{*} = \\frac{-\\ln(1 - n/r)}{n}, \\quad E^{*} = R - a_0 - W^{*}$$\n\n");
         sb.Append("**").Append(T("eq.method_notes")).Append("** ");
-        sb.Append(inputs.Demography.Survival is RectangularSurvival ? T("eq.rectangular") : T("eq.quadrature")).Append(' ');
+        sb.Append(inputs.Demography.Survival is RectangularSurvival ? T("eq.rectangular") : T("eq.quadrature"))
+            .Append(' ');
         sb.Append(r.Optimum.Method == OptimumMethod.ClosedForm
             ? T("eq.closed_form")
             : T(r.Optimum.Diagnostics.Converged ? "eq.search" : "eq.search_not_converged",
@@ -45,10 +46,14 @@ public sealed class Equations(BriefLanguage language) : TemplateFunctions(langua
         string schooling = hc.Returns switch
         {
             ConstantReturn c => T("eq.return_constant", Pct(c.Rate)),
-            BracketReturns b => T("eq.return_brackets", string.Join(", ", b.Brackets.Select(x => T("eq.bracket", Pct(x.Rate), Num(x.FromYear, 0))))),
+            BracketReturns b => T(
+                "eq.return_brackets",
+                string.Join(", ", b.Brackets.Select(x => T("eq.bracket", Pct(x.Rate), Num(x.FromYear, 0))))),
             PowerReturn p => T("eq.return_power", Sig(p.Theta, 3), Sig(p.Psi, 3)),
             _ => T("eq.return_given"),
         };
-        return hc.Experience is { } e ? T("eq.experience", schooling, Sig(e.Linear, 3), Sig(e.Quadratic, 3)) : schooling;
+        return hc.Experience is { } e
+            ? T("eq.experience", schooling, Sig(e.Linear, 3), Sig(e.Quadratic, 3))
+            : schooling;
     }
 }

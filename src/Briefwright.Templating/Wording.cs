@@ -48,7 +48,8 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
     /// <summary>How a lever reads inside a sentence.</summary>
     public string LeverName(string lever) => lever switch
     {
-        Model.Core.Levers.Schooling or Model.Core.Levers.RetirementAge or Model.Core.Levers.Participation => T("lever." + lever),
+        Model.Core.Levers.Schooling or Model.Core.Levers.RetirementAge or Model.Core.Levers
+            .Participation => T("lever." + lever),
         _ => lever.Replace('_', ' '),
     };
 
@@ -96,7 +97,9 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
         {
             string first = T("arrival.dip", UpTo(h.DeepestDipPct!.Value), h.DipCalendarYear);
             if (h.FirstYearAbove is { } above) return T("arrival.dip_then_above", first, above);
-            return h.FirstYearBelow is not null ? T("arrival.dip_still_below", first, end) : T("arrival.sentence", first);
+            return h.FirstYearBelow is not null
+                ? T("arrival.dip_still_below", first, end)
+                : T("arrival.sentence", first);
         }
         if (h.FirstYearBelow is { } below && h.PeakGainPct is { } peak && h.PeakYear < below)
             return T("arrival.peak_then_below", UpTo(peak), h.PeakYear, below);
