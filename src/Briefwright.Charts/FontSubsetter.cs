@@ -48,7 +48,8 @@ public static partial class FontSubsetter
         return set;
     }
 
-    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<byte[], IReadOnlySet<int>> Coverage = new();
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<byte[], IReadOnlySet<int>> Coverage
+        = new();
 
     private static unsafe HashSet<int> Collect(byte[] font)
     {
@@ -119,7 +120,12 @@ public static partial class FontSubsetter
         }
     }
 
-    [LibraryImport(Lib)] private static unsafe partial IntPtr hb_blob_create(byte* data, uint length, int mode, IntPtr userData, IntPtr destroy);
+    [LibraryImport(Lib)] private static unsafe partial IntPtr hb_blob_create(
+        byte* data,
+        uint length,
+        int mode,
+        IntPtr userData,
+        IntPtr destroy);
     [LibraryImport(Lib)] private static partial IntPtr hb_face_create(IntPtr blob, uint index);
     [LibraryImport(Lib)] private static partial IntPtr hb_subset_input_create_or_fail();
     [LibraryImport(Lib)] private static partial IntPtr hb_subset_input_unicode_set(IntPtr input);
