@@ -10,19 +10,10 @@ public static class AnalysisCharts
 {
     /// <summary>A shaded band of the headline path between two percentiles of the draws (in percent), in the first
     /// <paramref name="n"/> years.</summary>
-    internal static void FanBand(
-        Plot plot,
-        double[] xs,
-        IReadOnlyList<Percentiles> fan,
-        int n,
-        Func<Percentiles, double> low,
-        Func<Percentiles, double> high,
-        double alpha,
-        string legend)
+    internal static void FanBand(Plot plot, double[] xs, IReadOnlyList<Percentiles> fan, int n,
+        Func<Percentiles, double> low, Func<Percentiles, double> high, double alpha, string legend)
     {
-        var band = plot.Add.FillY(
-            xs,
-            fan.Take(n).Select(p => 100 * low(p)).ToArray(),
+        var band = plot.Add.FillY(xs, fan.Take(n).Select(p => 100 * low(p)).ToArray(),
             fan.Take(n).Select(p => 100 * high(p)).ToArray());
         band.FillColor = Palette.Band.WithAlpha(alpha);
         band.LineWidth = 0;
@@ -105,20 +96,16 @@ public static class AnalysisCharts
             var r = rows[i].Row;
             double pos = rows.Count - 1 - i;
             double lo = rows[i].AtLowPct, hi = rows[i].AtHighPct;
-            bars.Add(new Bar {
-                Position = pos,
-                ValueBase = central,
-                Value = lo,
-                FillColor = Palette.NeutralLight,
-                Size = 0.6,
-                Orientation = Orientation.Horizontal });
-            bars.Add(new Bar {
-                Position = pos,
-                ValueBase = central,
-                Value = hi,
-                FillColor = Palette.Neutral,
-                Size = 0.6,
-                Orientation = Orientation.Horizontal });
+            bars.Add(new Bar
+            {
+                Position = pos, ValueBase = central, Value = lo, FillColor = Palette.NeutralLight, Size = 0.6,
+                Orientation = Orientation.Horizontal,
+            });
+            bars.Add(new Bar
+            {
+                Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Neutral, Size = 0.6,
+                Orientation = Orientation.Horizontal,
+            });
             ticks.Add(new Tick(pos, d.Text("parameter." + r.Parameter, r.Label)));
         }
         var plotBars = plot.Add.Bars(bars);
@@ -181,9 +168,7 @@ public static class AnalysisCharts
     /// last value on each axis (one cell per value, each one step wide).
     /// </summary>
     public static (double Left, double Right, double Bottom, double Top) HeatmapEdges(
-        GridResult grid,
-        double xScale = 1,
-        double yScale = 1)
+        GridResult grid, double xScale = 1, double yScale = 1)
     {
         int nx = grid.X.Length, ny = grid.Y.Length;
         double x0 = grid.X[0] * xScale, x1 = grid.X[^1] * xScale, y0 = grid.Y[0] * yScale, y1 = grid.Y[^1] * yScale;
@@ -211,8 +196,8 @@ public static class AnalysisCharts
         foreach (var v in sample) counts[Math.Min(bins - 1, (int)((v - lo) / width))]++;
         var bars = Enumerable.Range(0, bins).Select(b => new Bar
         {
-            Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width
-                * 0.92, FillColor = colour.WithAlpha(0.7),
+            Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92,
+            FillColor = colour.WithAlpha(0.7),
         }).ToList();
         var histogram = plot.Add.Bars(bars);
         histogram.LegendText = d.Text("chart.legend.share_of_draws", "{0}: share of draws", optionLabel);
