@@ -78,8 +78,10 @@ public sealed class BriefLanguage
     /// <summary>The same texts under another region's tag ("fr-CH" with the French texts).</summary>
     public BriefLanguage WithTag(string tag)
     {
-        var copy = new Dictionary<string, LanguageText>(texts) {
-            ["language.tag"] = new LanguageText(tag, texts["language.tag"].Line) };
+        var copy = new Dictionary<string, LanguageText>(texts)
+        {
+            ["language.tag"] = new LanguageText(tag, texts["language.tag"].Line),
+        };
         return new BriefLanguage(Code, Source, copy);
     }
 
@@ -100,11 +102,8 @@ public sealed class BriefLanguage
             if (text[i] == '{' && i + 2 < text.Length && char.IsAsciiDigit(text[i + 1]))
             {
                 int close = text.IndexOf('}', i);
-                if (close > 0 && int.TryParse(
-                    text.AsSpan(i + 1, close - i - 1),
-                    NumberStyles.None,
-                    CultureInfo.InvariantCulture,
-                    out int n) && n < args.Length)
+                if (close > 0 && int.TryParse(text.AsSpan(i + 1, close - i - 1), NumberStyles.None,
+                        CultureInfo.InvariantCulture, out int n) && n < args.Length)
                 {
                     sb.Append(Show(args[n]));
                     i = close;
@@ -158,10 +157,7 @@ public sealed class BriefLanguage
         for (int i = 0; i < value.Length; i++)
         {
             if (value[i] == '\\' && i + 5 < value.Length && value[i + 1] == 'u'
-                && int.TryParse(
-                    value.AsSpan(i + 2, 4),
-                    NumberStyles.HexNumber,
-                    CultureInfo.InvariantCulture,
+                && int.TryParse(value.AsSpan(i + 2, 4), NumberStyles.HexNumber, CultureInfo.InvariantCulture,
                     out int code))
             {
                 sb.Append((char)code);

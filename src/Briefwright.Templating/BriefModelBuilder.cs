@@ -23,10 +23,9 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
         // Text written in the scenario is text: escaped here, where it meets the template's markup, so it can never
         // make a link, a heading, a list, HTML or a [[directive]] (Md.Escape).
         model["brief"] = Obj(
-            ("id", s.Brief.Id), ("title", Md.Text(s.Brief.Title)), ("short_title", Md.Text(
-                s.Brief.ShortTitle)), ("organisation", Md.Text(s.Brief.Organisation)),
-            ("author", Md.Text(s.Brief.Author)), ("date", s.Brief.Date
-                .ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)), ("status", s.Brief.Status),
+            ("id", s.Brief.Id), ("title", Md.Text(s.Brief.Title)), ("short_title", Md.Text(s.Brief.ShortTitle)),
+            ("organisation", Md.Text(s.Brief.Organisation)), ("author", Md.Text(s.Brief.Author)),
+            ("date", s.Brief.Date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture)), ("status", s.Brief.Status),
             ("edition", s.Brief.Edition), ("question", Md.Text(s.Brief.Question)));
         var baseResult = r.Options.First(o => o.IsBaseline);
         var levers = r.Levers.ToDictionary(l => l.OptionId);
@@ -41,27 +40,21 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
         model["results_summary"] = ResultsSummary(s, r);
         model["optimum"] = OptimumModel.Build(s, r, b.Analysis);
         var d = s.Inputs.Demography;
-        model["demography"] = Obj(("growth", d.GrowthRate), ("entry_age", d.EntryAge), ("retirement_age", d
-            .RetirementAge),
+        model["demography"] = Obj(("growth", d.GrowthRate), ("entry_age", d.EntryAge),
+            ("retirement_age", d.RetirementAge),
             ("participation", d.Participation), ("survival", SurvivalText(d.Survival)),
-            ("growth_text", Math.Round(d.GrowthRate * 100, 1) > 0 ? T(
-                "demography.growing",
-                Pct(d.GrowthRate)) : Math.Round(d.GrowthRate * 100, 1) < 0 ? T("demography.shrinking", Pct(-d.GrowthRate)) : T("demography.steady")));
+            ("growth_text", Math.Round(d.GrowthRate * 100, 1) > 0 ? T("demography.growing", Pct(d.GrowthRate))
+                : Math.Round(d.GrowthRate * 100, 1) < 0 ? T("demography.shrinking", Pct(-d.GrowthRate))
+                : T("demography.steady")));
         var p = s.Inputs.Production;
-        model["production"] = Obj(
-            ("saving_rate", p.SavingRate),
-            ("capital_share", p.CapitalShare),
+        model["production"] = Obj(("saving_rate", p.SavingRate), ("capital_share", p.CapitalShare),
             ("depreciation", p.Depreciation),
             ("technology_growth", p.TechnologyGrowth),
-            ("output_per_effective_worker", r.SteadyState
-                .OutputPerEffectiveWorker),
+            ("output_per_effective_worker", r.SteadyState.OutputPerEffectiveWorker),
             ("effective_depreciation", r.SteadyState.EffectiveDepreciation));
         AnalysisModel.Add(model, s, r, b.Analysis);
-        model["stamp"] = Obj(
-            ("input_hash", b.InputHash),
-            ("tool_version", b.ToolVersion),
-            ("template", b.TemplateName),
-            ("template_hash", b.TemplateHash));
+        model["stamp"] = Obj(("input_hash", b.InputHash), ("tool_version", b.ToolVersion),
+            ("template", b.TemplateName), ("template_hash", b.TemplateHash));
 
         var figureIds = b.Figures.Select(f => f.Id).ToHashSet();
         model.AddFunction("figure", new Func<string, string>(id => figureIds.Contains(id)
@@ -72,8 +65,7 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
         model.AddFunction("key_assumptions_table", new Func<string>(() => KeyAssumptions.Table(s, b.Analysis)));
         model.AddFunction("levers_table", new Func<string>(() => LeversTable(s, r)));
         model.AddFunction("results_table", new Func<string>(() => ResultsTable(r, s)));
-        model.AddFunction(
-            "caveats",
+        model.AddFunction("caveats",
             new Func<string>(() => Md.Bullets(Caveats.Fixed.Concat(Caveats.Generated(s, r, b.Analysis)))));
         model.AddFunction("equations_annex", new Func<string>(() => Equations.Annex(s.Inputs, r)));
         model.AddFunction("reproducibility", new Func<string>(() => Reproducibility(b)));
@@ -89,18 +81,17 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
         var decomposition = levers?.Levers ?? [];
         double delta = o.SchoolingYears - baseline.SchoolingYears;
         return Obj(
-            ("id", o.Id), ("label", Md.Text(o.Label)), ("name", Md.Text(s.OptionName(o.Id))), ("is_baseline", o
-                .IsBaseline), ("schooling_years", o.SchoolingYears),
-            ("worker_share", o.WorkerShare), ("human_capital", o.HumanCapitalPerWorker), ("output_per_person", o
-                .OutputPerPerson),
+            ("id", o.Id), ("label", Md.Text(o.Label)), ("name", Md.Text(s.OptionName(o.Id))),
+            ("is_baseline", o.IsBaseline), ("schooling_years", o.SchoolingYears),
+            ("worker_share", o.WorkerShare), ("human_capital", o.HumanCapitalPerWorker),
+            ("output_per_person", o.OutputPerPerson),
             ("relative", 100 * o.OutputPerPerson / baseline.OutputPerPerson),
-            ("change_pct", o.ChangeVsBaselinePct), ("direction", Wording.DirectionWord(
-                o.ChangeVsBaselinePct)), ("effect", Wording.Effect(o.ChangeVsBaselinePct)),
-            ("schooling_direction", delta > 0
-                ? "longer"
-                : delta < 0 ? "shorter" : "same"), ("schooling_change_years", delta),
-            ("levers", new ScriptArray(decomposition.Select(l => Wording.LeverName(l.Lever)))), ("is_combined", levers?
-                .IsCombined ?? false),
+            ("change_pct", o.ChangeVsBaselinePct), ("direction", Wording.DirectionWord(o.ChangeVsBaselinePct)),
+            ("effect", Wording.Effect(o.ChangeVsBaselinePct)),
+            ("schooling_direction", delta > 0 ? "longer" : delta < 0 ? "shorter" : "same"),
+            ("schooling_change_years", delta),
+            ("levers", new ScriptArray(decomposition.Select(l => Wording.LeverName(l.Lever)))),
+            ("is_combined", levers?.IsCombined ?? false),
             ("decomposition", new ScriptArray(decomposition.Select(
                 l => Obj(("lever", l.Lever), ("name", Wording.LeverName(l.Lever)), ("points", l.ChangePct))))),
             ("decomposition_text", levers is { IsCombined: true } ? DecompositionText(levers) : null));
@@ -159,11 +150,7 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
             row.Add(Change(c.TotalChangePct));
             return (IReadOnlyList<string>)row;
         });
-        return Md.Table(
-            T("table.levers_caption"),
-            T("source.model_results"),
-            header,
-            rows,
+        return Md.Table(T("table.levers_caption"), T("source.model_results"), header, rows,
             Enumerable.Range(1, names.Count + 1).ToHashSet());
     }
 
@@ -184,12 +171,8 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
         {
             Label(a), ValueText(s, a), SourceText(a), a.Note ?? "",
         });
-        return Md.Table(
-            T("table.assumptions_caption"),
-            T("source.scenario", s.Brief.Id),
-            new[] { T("table.parameter"), T("table.value"), T("table.source"), T("table.note") },
-            rows,
-            RightOfFirst);
+        return Md.Table(T("table.assumptions_caption"), T("source.scenario", s.Brief.Id),
+            new[] { T("table.parameter"), T("table.value"), T("table.source"), T("table.note") }, rows, RightOfFirst);
     }
 
     /// <summary>The source column: an option without a source of its own is defined in the scenario.</summary>
@@ -244,19 +227,16 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
         var baseY = r.Options.First(o => o.IsBaseline).OutputPerPerson;
         var rows = r.Options.Select(o => (IReadOnlyList<string>)new[]
         {
-            o.Label + (o.IsBaseline
-                ? T("table.baseline_suffix")
-                : ""), Num(o.SchoolingYears, 1), Num(o.WorkerShare, 3), Num(o.HumanCapitalPerWorker, 2),
+            o.Label + (o.IsBaseline ? T("table.baseline_suffix") : ""),
+            Num(o.SchoolingYears, 1), Num(o.WorkerShare, 3), Num(o.HumanCapitalPerWorker, 2),
             Num(100 * o.OutputPerPerson / baseY, 1), o.IsBaseline ? "–" : Change(o.ChangeVsBaselinePct, 1),
         });
         return Md.Table(T("table.results_caption"), T("source.model_results"),
-            new[] {
-                T("table.option"),
-                T("table.schooling_years"),
-                T("table.workers_per_person"),
-                T("table.human_capital"),
-                T("table.output_index"),
-                T("table.change_vs_baseline") },
+            new[]
+            {
+                T("table.option"), T("table.schooling_years"), T("table.workers_per_person"), T("table.human_capital"),
+                T("table.output_index"), T("table.change_vs_baseline"),
+            },
             rows, new HashSet<int> { 1, 2, 3, 4, 5 });
     }
 

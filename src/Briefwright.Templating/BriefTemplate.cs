@@ -57,8 +57,9 @@ public sealed class BriefTemplate
     {
         var parsed = Template.Parse(text, path);
         if (parsed.HasErrors)
-            throw new TemplateException(parsed.Messages.Select(
-                m => new TemplateError(path, m.Span.Start.Line + 1, m.Span.Start.Column + 1, Clean(m.Message))).ToList());
+            throw new TemplateException(parsed.Messages
+                .Select(m => new TemplateError(path, m.Span.Start.Line + 1, m.Span.Start.Column + 1, Clean(m.Message)))
+                .ToList());
         return new BriefTemplate(parsed, path, text);
     }
 
@@ -86,8 +87,10 @@ public sealed class BriefTemplate
         }
         catch (ScriptRuntimeException ex)
         {
-            throw new TemplateException(new[] {
-                new TemplateError(Path, ex.Span.Start.Line + 1, ex.Span.Start.Column + 1, Clean(ex.OriginalMessage)) });
+            throw new TemplateException(new[]
+            {
+                new TemplateError(Path, ex.Span.Start.Line + 1, ex.Span.Start.Column + 1, Clean(ex.OriginalMessage)),
+            });
         }
         catch (InvalidOperationException ex)
         {
@@ -98,11 +101,11 @@ public sealed class BriefTemplate
         catch (OutOfMemoryException)
         {
             var span = context.CurrentSpan;
-            throw new TemplateException(new[] { new TemplateError(
-                Path,
-                span.Start.Line + 1,
-                span.Start.Column + 1,
-                "The template made a text or list too large to hold in memory.") });
+            throw new TemplateException(new[]
+            {
+                new TemplateError(Path, span.Start.Line + 1, span.Start.Column + 1,
+                    "The template made a text or list too large to hold in memory."),
+            });
         }
     }
 

@@ -15,7 +15,8 @@ public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language
     /// <summary>
     /// Usual ranges for a parameter check; the bounds are common practice in growth accounting, not rules.
     /// </summary>
-    private static readonly (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
+    private static readonly
+        (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
     {
         ("caveat.name.saving_rate", i => i.Production.SavingRate, 0.10, 0.40, true),
         ("caveat.name.capital_share", i => i.Production.CapitalShare, 0.25, 0.45, true),
@@ -70,9 +71,7 @@ public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language
         if (headline?.PresentValues[0] is { Total: null } pv
             && scenario.Analysis.Discounts.FirstOrDefault(d => d.Id == pv.ScheduleId) is { } schedule)
             yield return T("caveat.horizon_only", a.Reform.ReformYear + a.Reform.HorizonYears,
-                T(
-                    "caveat.tail_infinite",
-                    Pct(schedule.Steps[^1].Rate),
+                T("caveat.tail_infinite", Pct(schedule.Steps[^1].Rate),
                     Pct(scenario.Inputs.Production.TechnologyGrowth)));
         if (a.Reform.Optimum.SchoolingYears > 20)
             yield return T("caveat.discounted_long", Years(a.Reform.Optimum.SchoolingYears));

@@ -29,12 +29,12 @@ public static class Md
         // Block starts: a quote (>), a list item (- x, + x, 1. x, 1) x), a rule or heading underline (---, ===), a
         // fence (~~~).
         bool SpaceOrEnd(int i) => i >= sb.Length || sb[i] == ' ';
-        if (sb.Length > 0 && (sb[0] is '>' or '~'
-            || (sb[0] is '-' or '+' or '=' && (SpaceOrEnd(1) || sb[1] == sb[0])))) sb.Insert(0, '\\');
+        if (sb.Length > 0 && (sb[0] is '>' or '~' || (sb[0] is '-' or '+' or '=' && (SpaceOrEnd(1) || sb[1] == sb[0]))))
+            sb.Insert(0, '\\');
         int digits = 0;
         while (digits < sb.Length && char.IsAsciiDigit(sb[digits])) digits++;
-        if (digits is > 0 and < 10 && digits < sb.Length && sb[digits] is '.' or ')' && SpaceOrEnd(digits + 1)) sb
-            .Insert(digits, '\\');
+        if (digits is > 0 and < 10 && digits < sb.Length && sb[digits] is '.' or ')' && SpaceOrEnd(digits + 1))
+            sb.Insert(digits, '\\');
         return sb.ToString();
     }
 
@@ -47,12 +47,8 @@ public static class Md
     public static string Unescape(string text) => System.Text.RegularExpressions.Regex.Replace(text, @"\\(.)", "$1");
 
     /// <summary>A pipe table with a caption directive; <paramref name="rightAligned"/> marks numeric columns.</summary>
-    public static string Table(
-        string caption,
-        string? source,
-        IReadOnlyList<string> header,
-        IEnumerable<IReadOnlyList<string>> rows,
-        ISet<int> rightAligned)
+    public static string Table(string caption, string? source, IReadOnlyList<string> header,
+        IEnumerable<IReadOnlyList<string>> rows, ISet<int> rightAligned)
     {
         var sb = new StringBuilder();
         sb.Append("[[table: ").Append(Escape(caption).Replace("\\|", "/"))

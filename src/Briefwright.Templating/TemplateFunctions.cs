@@ -44,10 +44,8 @@ public class TemplateFunctions(BriefLanguage language)
         int whole = s.IndexOf('.') is var dot and >= 0 ? dot : s.Length;
         var language = L;
         // Below the language's minimum grouping (Spanish writes 2000 but 20 000), no separator at all.
-        if (whole - s.Count(c => c == ',') < 4 + language.MinimumGroupingDigits - 1) s = s.Replace(
-            ",",
-            "",
-            StringComparison.Ordinal);
+        if (whole - s.Count(c => c == ',') < 4 + language.MinimumGroupingDigits - 1)
+            s = s.Replace(",", "", StringComparison.Ordinal);
         s = s.Replace(",", "\u0001", StringComparison.Ordinal).Replace(".", language.Decimal, StringComparison.Ordinal)
             .Replace("\u0001", language.Group, StringComparison.Ordinal);
         return (value < 0 ? "−" : "") + s;
@@ -69,8 +67,11 @@ public class TemplateFunctions(BriefLanguage language)
         int magnitude = (int)Math.Floor(Math.Log10(Math.Abs(value)));
         int decimals = Math.Max(0, 1 - magnitude);
         double rounded = Math.Round(value, decimals);
-        if (Math.Abs(rounded) >= 10) { decimals = 0; rounded = Math.Round(value / Math.Pow(10, magnitude - 1))
-            * Math.Pow(10, magnitude - 1); }
+        if (Math.Abs(rounded) >= 10)
+        {
+            decimals = 0;
+            rounded = Math.Round(value / Math.Pow(10, magnitude - 1)) * Math.Pow(10, magnitude - 1);
+        }
         return Fixed(rounded, decimals);
     }
 

@@ -48,8 +48,8 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
     /// <summary>How a lever reads inside a sentence.</summary>
     public string LeverName(string lever) => lever switch
     {
-        Model.Core.Levers.Schooling or Model.Core.Levers.RetirementAge or Model.Core.Levers
-            .Participation => T("lever." + lever),
+        Model.Core.Levers.Schooling or Model.Core.Levers.RetirementAge or Model.Core.Levers.Participation =>
+            T("lever." + lever),
         _ => lever.Replace('_', ' '),
     };
 
