@@ -113,8 +113,8 @@ public static partial class ChartRenderer
         }
     }
 
-    public static byte[] ToPdf(ChartPanels chart, int width = Width, int height = Height)
-        => ToPdf(new[] { chart }, width, height);
+    public static byte[] ToPdf(ChartPanels chart, int width = Width, int height = Height) =>
+        ToPdf(new[] { chart }, width, height);
 
     /// <summary>One page per chart, in order. Skia embeds each font once per document, so charts share it.</summary>
     public static byte[] ToPdf(IReadOnlyList<ChartPanels> charts, int width = Width, int height = Height)

@@ -80,8 +80,8 @@ public sealed class OptionStyles
     }
 
     /// <summary>Colours written #RRGGBB (a theme's <c>chart_colours</c>).</summary>
-    public static IReadOnlyList<Color>? FromHex(IReadOnlyList<string>? hex)
-        => hex is { Count: > 0 } ? hex.Select(Color.FromHex).ToList() : null;
+    public static IReadOnlyList<Color>? FromHex(IReadOnlyList<string>? hex) =>
+        hex is { Count: > 0 } ? hex.Select(Color.FromHex).ToList() : null;
 
     public OptionStyle this[string optionId] => styles.TryGetValue(optionId, out var s)
         ? s

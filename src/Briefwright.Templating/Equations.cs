@@ -46,8 +46,7 @@ public sealed class Equations(BriefLanguage language) : TemplateFunctions(langua
         string schooling = hc.Returns switch
         {
             ConstantReturn c => T("eq.return_constant", Pct(c.Rate)),
-            BracketReturns b => T(
-                "eq.return_brackets",
+            BracketReturns b => T("eq.return_brackets",
                 string.Join(", ", b.Brackets.Select(x => T("eq.bracket", Pct(x.Rate), Num(x.FromYear, 0))))),
             PowerReturn p => T("eq.return_power", Sig(p.Theta, 3), Sig(p.Psi, 3)),
             _ => T("eq.return_given"),

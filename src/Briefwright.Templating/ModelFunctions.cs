@@ -11,8 +11,8 @@ public static class ModelFunctions
         "Scriban reads the delegate's method signature by reflection. Every delegate passed here targets a method of " +
         "this tool's own assemblies, which the native publish keeps whole (TrimMode partial); the published binary " +
         "is checked to write the same bytes as the managed build (bench/check-native.sh).")]
-    public static void AddFunction(this ScriptObject model, string name, Delegate function)
-        => model.Import(name, function);
+    public static void AddFunction(this ScriptObject model, string name, Delegate function) =>
+        model.Import(name, function);
 
     /// <summary>
     /// Makes every public static method of <paramref name="type"/> callable from templates, under its snake_case name.
