@@ -48,14 +48,21 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
                 : T("demography.steady")));
         var p = s.Inputs.Production;
         model["production"] = Obj(("saving_rate", p.SavingRate), ("capital_share", p.CapitalShare),
-            ("depreciation", p.Depreciation),
-            ("technology_growth", p.TechnologyGrowth),
+            ("depreciation", p.Depreciation), ("technology_growth", p.TechnologyGrowth),
             ("output_per_effective_worker", r.SteadyState.OutputPerEffectiveWorker),
             ("effective_depreciation", r.SteadyState.EffectiveDepreciation));
         AnalysisModel.Add(model, s, r, b.Analysis);
         model["stamp"] = Obj(("input_hash", b.InputHash), ("tool_version", b.ToolVersion),
             ("template", b.TemplateName), ("template_hash", b.TemplateHash));
+        AddBlocks(model, b);
+        return model;
+    }
 
+    /// <summary>The template functions that place a figure or write a block: tables, caveats, annexes.</summary>
+    private void AddBlocks(ScriptObject model, BriefInputs b)
+    {
+        var s = b.Scenario;
+        var r = b.Results;
         var figureIds = b.Figures.Select(f => f.Id).ToHashSet();
         model.AddFunction("figure", new Func<string, string>(id => figureIds.Contains(id)
             ? $"[[figure: {id}]]"
@@ -69,7 +76,6 @@ public sealed class BriefModelBuilder(BriefLanguage language) : TemplateFunction
             new Func<string>(() => Md.Bullets(Caveats.Fixed.Concat(Caveats.Generated(s, r, b.Analysis)))));
         model.AddFunction("equations_annex", new Func<string>(() => Equations.Annex(s.Inputs, r)));
         model.AddFunction("reproducibility", new Func<string>(() => Reproducibility(b)));
-        return model;
     }
 
     /// <summary>The template function <c>say "key" values…</c>: a text of the brief's language.</summary>
