@@ -21,11 +21,15 @@ public class BriefBenchmarks
 
     private SolvedScenario solved = null!;
 
-    /// <summary>The demo brief from its scenario: model (with 2,000 Monte Carlo draws and Sobol indices) and composition.</summary>
+    /// <summary>
+    /// The demo brief from its scenario: model (with 2,000 Monte Carlo draws and Sobol indices) and composition.
+    /// </summary>
     [Benchmark]
     public object BuildDemoBrief() => BriefBuilder.Build(scenario, StandardTemplate.Template);
 
-    /// <summary>Laying out and writing the demo brief once its model is solved: charts, results data, template, layout, PDF.</summary>
+    /// <summary>
+    /// Laying out and writing the demo brief once its model is solved: charts, results data, template, layout, PDF.
+    /// </summary>
     [Benchmark]
     public object ComposeDemoBrief() => BriefBuilder.Compose(solved, StandardTemplate.Template);
 

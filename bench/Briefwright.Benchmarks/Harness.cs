@@ -10,7 +10,9 @@ using Briefwright.Model.Uncertainty;
 
 namespace Briefwright.Benchmarks;
 
-/// <summary>A stopwatch harness: warm up until tiered compilation has settled, then report the best and median of timed batches.</summary>
+/// <summary>
+/// A stopwatch harness: warm up until tiered compilation has settled, then report the best and median of timed batches.
+/// </summary>
 public static class Harness
 {
     public static void Run()
@@ -47,25 +49,33 @@ public static class Harness
         var solved = ScenarioSolver.Solve(scenario);
         Time("  six charts", 10, () => BriefBuilder.RenderCharts(solved));
         var charts = BriefBuilder.RenderCharts(solved);
-        Time("  six charts with SVG and PNG copies (annex)", 5, () => BriefBuilder.RenderCharts(solved, withImages: true));
+        Time("  six charts with SVG and PNG copies (annex)", 5,
+            () => BriefBuilder.RenderCharts(solved, withImages: true));
         var plot = Charts.SchoolingCharts.OutputCurve(BriefBuilder.ChartDrawingFor(solved.Scenario),
             solved.BalancedGrowth);
         Time("    one chart as PNG", 5, () => Charts.ChartRenderer.ToPng(plot));
         Time("    one chart as SVG", 5, () => Charts.ChartRenderer.ToSvg(plot));
-        Time("  results JSON", 10, () => ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis)));
+        Time("  results JSON", 10,
+            () => ResultsJson.Write(ResultsDocument.From(scenario, solved.BalancedGrowth, solved.Analysis)));
         Time("  fill template", 10, () => BriefBuilder.FillTemplate(solved, charts, StandardTemplate.Template));
         string markdown = BriefBuilder.FillTemplate(solved, charts, StandardTemplate.Template);
-        var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
+        var figures = charts.ToDictionary(
+            c => c.Id,
+            c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         Time("  read Markdown", 10, () => MarkdownReader.Read(markdown, figures));
         var info = new DocumentInfo("t", "t", "a", "s", "k", "en-GB", scenario.Brief.Date, "Edition 1", "footer");
         var doc = new BriefDocument(info, MarkdownReader.Read(markdown, figures));
-        Time("  layout", 10, () => DocumentComposer.Layout(doc, Composer.Layout.Theme.For(doc.Paper), new RenderSession().Measurer));
+        Time("  layout", 10,
+            () => DocumentComposer.Layout(doc, Composer.Layout.Theme.For(doc.Paper), new RenderSession().Measurer));
         Time("  layout + write PDF", 10, () => DocumentComposer.WritePdf(doc));
         Time("  annex files", 10, () => AnnexFiles.Build(solved, charts));
     }
 
-    /// <summary>The demo scenario's model inputs and analysis settings, with the optimum that starts each draw's search.</summary>
-    private static (BriefBenchmarks Demo, Model.Inputs.ModelInputs Inputs, AnalysisSettings Settings, double Guess) DemoModel()
+    /// <summary>
+    /// The demo scenario's model inputs and analysis settings, with the optimum that starts each draw's search.
+    /// </summary>
+    private static (BriefBenchmarks Demo, Model.Inputs.ModelInputs Inputs, AnalysisSettings Settings, double Guess)
+        DemoModel()
     {
         var b = new BriefBenchmarks();
         b.Setup();
@@ -94,19 +104,25 @@ public static class Harness
         });
         var shared = new ReformSimulator.Cache(true);
         foreach (var o in alternatives) ReformSimulator.Simulate(inputs, o, settings.Reform, shared);
-        Time("one reform path, tables and outputs already cached", 50, () => ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform, shared));
+        Time("one reform path, tables and outputs already cached", 50, () =>
+            ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform, shared));
         var path = ReformSimulator.Simulate(inputs, alternatives[0], settings.Reform);
-        Time("one present value", 50, () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
-        Time("local optimum search", 50, () => OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, guess, new ReformSimulator.Cache(true).Population(inputs), fast: true));
-        Time("whole draw (key results)", 50, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
+        Time("one present value", 50,
+            () => PresentValue.Compute(path, settings.Headline, inputs.Production.TechnologyGrowth));
+        Time("local optimum search", 50, () => OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline),
+            inputs.HumanCapital, guess, new ReformSimulator.Cache(true).Population(inputs), fast: true));
+        Time("whole draw (key results)", 50, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess,
+            headlinePath: new double[settings.Reform.HorizonYears + 1]));
     }
 
     /// <summary>What one Monte Carlo draw and the demo's whole Monte Carlo allocate, by type (sampled).</summary>
     public static void Allocations()
     {
         var (_, inputs, settings, guess) = DemoModel();
-        AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings, guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
-        AllocationSampler.Report("Monte Carlo (2,000 draws, one thread)", 10, () => MonteCarlo.Run(inputs, settings, guess, 1));
+        AllocationSampler.Report("one draw (key results)", 20_000, () => KeyResultsEvaluator.Evaluate(inputs, settings,
+            guess, headlinePath: new double[settings.Reform.HorizonYears + 1]));
+        AllocationSampler.Report("Monte Carlo (2,000 draws, one thread)", 10,
+            () => MonteCarlo.Run(inputs, settings, guess, 1));
     }
 
     /// <summary>The demo's whole model, repeated, with allocation and collection counts.</summary>
@@ -118,7 +134,9 @@ public static class Harness
         int gcs = GC.CollectionCount(0);
         var watch = Stopwatch.StartNew();
         for (int i = 0; i < n; i++) ScenarioSolver.Solve(b.Scenario);
-        Console.WriteLine($"{watch.Elapsed.TotalMilliseconds / n:0.0} ms, {(GC.GetTotalAllocatedBytes(true) - bytes) / n / 1e6:0.0} MB allocated and {(GC.CollectionCount(0) - gcs) / (double)n:0.0} gen-0 collections per solve");
+        Console.WriteLine($"{watch.Elapsed.TotalMilliseconds / n:0.0} ms, " +
+            $"{(GC.GetTotalAllocatedBytes(true) - bytes) / n / 1e6:0.0} MB allocated and " +
+            $"{(GC.CollectionCount(0) - gcs) / (double)n:0.0} gen-0 collections per solve");
     }
 
     public static void Time(string what, int runs, Action action)
@@ -144,7 +162,8 @@ public static class Harness
         bool micro = times[0] < 1;
         double scale = micro ? 1000 : 1;
         string unit = micro ? "µs" : "ms";
-        Console.WriteLine($"{what,-56} best {times[0] * scale,8:0.0} {unit}   median {times[times.Count / 2] * scale,8:0.0} {unit}   {bytes / 1024.0,8:0.0} KB allocated   ({runs} runs)");
+        Console.WriteLine($"{what,-56} best {times[0] * scale,8:0.0} {unit}   median " +
+            $"{times[times.Count / 2] * scale,8:0.0} {unit}   {bytes / 1024.0,8:0.0} KB allocated   ({runs} runs)");
     }
 }
 
@@ -156,19 +175,24 @@ public sealed class AllocationSampler : System.Diagnostics.Tracing.EventListener
     protected override void OnEventSourceCreated(System.Diagnostics.Tracing.EventSource source)
     {
         if (source.Name == "Microsoft-Windows-DotNETRuntime")
-            EnableEvents(source, System.Diagnostics.Tracing.EventLevel.Verbose, (System.Diagnostics.Tracing.EventKeywords)0x1);
+            EnableEvents(source, System.Diagnostics.Tracing.EventLevel.Verbose,
+                (System.Diagnostics.Tracing.EventKeywords)0x1);
     }
 
     protected override void OnEventWritten(System.Diagnostics.Tracing.EventWrittenEventArgs e)
     {
-        if (e.EventName is null || !e.EventName.StartsWith("GCAllocationTick", StringComparison.Ordinal) || e.Payload is null) return;
+        if (e.EventName is null || !e.EventName.StartsWith("GCAllocationTick", StringComparison.Ordinal)
+            || e.Payload is null) return;
         int typeName = e.PayloadNames!.IndexOf("TypeName");
         int amount = e.PayloadNames.IndexOf("AllocationAmount64");
         if (typeName < 0 || amount < 0) return;
-        bytes.AddOrUpdate((string)e.Payload[typeName]!, Convert.ToInt64(e.Payload[amount]), (_, b) => b + Convert.ToInt64(e.Payload[amount]));
+        bytes.AddOrUpdate((string)e.Payload[typeName]!, Convert.ToInt64(e.Payload[amount]),
+            (_, b) => b + Convert.ToInt64(e.Payload[amount]));
     }
 
-    /// <summary>Runs <paramref name="work"/> <paramref name="times"/> times and prints the sampled types, largest first.</summary>
+    /// <summary>
+    /// Runs <paramref name="work"/> <paramref name="times"/> times and prints the sampled types, largest first.
+    /// </summary>
     public static void Report(string what, int times, Action work)
     {
         work();

@@ -25,13 +25,16 @@ public class ModelBenchmarks
     public object SolveBalancedGrowth() => BalancedGrowth.Solve(scenario.Inputs);
 
     [Benchmark]
-    public object ReformPath() => ReformSimulator.Simulate(scenario.Inputs, scenario.Inputs.Options[1], scenario.Analysis.Reform);
+    public object ReformPath() =>
+        ReformSimulator.Simulate(scenario.Inputs, scenario.Inputs.Options[1], scenario.Analysis.Reform);
 
     [Benchmark]
-    public double LocalOptimum() => OptimumSearch.LocalFrom(scenario.Inputs.DemographyFor(scenario.Inputs.Baseline), scenario.Inputs.HumanCapital, guess + 1.3);
+    public double LocalOptimum() => OptimumSearch.LocalFrom(scenario.Inputs.DemographyFor(scenario.Inputs.Baseline),
+        scenario.Inputs.HumanCapital, guess + 1.3);
 
     [Benchmark]
-    public object KeyResultsOneDraw() => KeyResultsEvaluator.Evaluate(scenario.Inputs, tenThousand, guess + 1.3, headlinePath: new double[tenThousand.Reform.HorizonYears + 1]);
+    public object KeyResultsOneDraw() => KeyResultsEvaluator.Evaluate(scenario.Inputs, tenThousand, guess + 1.3,
+        headlinePath: new double[tenThousand.Reform.HorizonYears + 1]);
 
     [Benchmark]
     public object MonteCarlo10k() => MonteCarlo.Run(scenario.Inputs, tenThousand, guess);

@@ -12,7 +12,8 @@ public static class Numbers
         maxDecimals == 0 ? "0" : "0." + new string('0', minDecimals) + new string('#', maxDecimals - minDecimals);
 
     /// <summary>A plain number with at most <paramref name="maxDecimals"/> decimals (4: 0.0001).</summary>
-    public static string Plain(double v, int maxDecimals = 4) => v.ToString(Pattern(0, maxDecimals), CultureInfo.InvariantCulture);
+    public static string Plain(double v, int maxDecimals = 4) =>
+        v.ToString(Pattern(0, maxDecimals), CultureInfo.InvariantCulture);
 
     /// <summary>A rate as a percentage: 0.0225 → "2.25%" (at most <paramref name="maxDecimals"/> decimals, at least
     /// <paramref name="minDecimals"/>).</summary>

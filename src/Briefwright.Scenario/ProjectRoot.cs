@@ -8,9 +8,12 @@ namespace Briefwright.Scenario;
 /// </summary>
 public static class ProjectRoot
 {
-    public const string Rule = "inside the project folder (the folder of the file given on the command line, or --root)";
+    public const string Rule = "inside the project folder (the folder of the file given on the command line, or " +
+        "--root)";
 
-    /// <summary>The project folder of a top-level input: <paramref name="given"/> when set, else the input's own folder.</summary>
+    /// <summary>
+    /// The project folder of a top-level input: <paramref name="given"/> when set, else the input's own folder.
+    /// </summary>
     public static string For(string topFile, string? given) =>
         Path.GetFullPath(given ?? (Path.GetDirectoryName(Path.GetFullPath(topFile)) ?? "."));
 
@@ -27,12 +30,14 @@ public static class ProjectRoot
             return null;
         }
         bool drive = named.Length >= 2 && named[1] == ':' && char.IsAsciiLetter(named[0]);
-        if (Path.IsPathRooted(named) || drive || named[0] is '/' or '\\' or '~' || named.Contains("://", StringComparison.Ordinal))
+        if (Path.IsPathRooted(named) || drive || named[0] is '/' or '\\' or '~'
+            || named.Contains("://", StringComparison.Ordinal))
         {
             rule = $"must be a path relative to the file that names it, {Rule}; absolute paths are not allowed";
             return null;
         }
-        string full = Path.GetFullPath(Path.Combine(Path.GetDirectoryName(Path.GetFullPath(from)) ?? root, named.Replace('\\', '/')));
+        string full = Path.GetFullPath(
+            Path.Combine(Path.GetDirectoryName(Path.GetFullPath(from)) ?? root, named.Replace('\\', '/')));
         if (!IsInside(full, Path.GetFullPath(root)))
         {
             rule = $"must stay {Rule}; '..' may not lead out of it";
@@ -45,7 +50,8 @@ public static class ProjectRoot
     public static bool IsInside(string full, string root)
     {
         string r = Path.TrimEndingDirectorySeparator(root);
-        if (r.EndsWith(Path.DirectorySeparatorChar) || r.EndsWith(Path.AltDirectorySeparatorChar)) return full.StartsWith(r, StringComparison.Ordinal);
+        if (r.EndsWith(Path.DirectorySeparatorChar) || r.EndsWith(Path.AltDirectorySeparatorChar))
+            return full.StartsWith(r, StringComparison.Ordinal);
         return full == r || full.StartsWith(r + Path.DirectorySeparatorChar, StringComparison.Ordinal);
     }
 }

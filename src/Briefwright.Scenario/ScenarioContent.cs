@@ -8,8 +8,9 @@ namespace Briefwright.Scenario;
 /// <summary>
 /// What a scenario says, apart from when it is issued: a hash of the merged tree (after <c>extends</c>) without
 /// <c>brief.date</c> and <c>brief.edition</c>, keys in order, and of every life table's text. Comments, layout, key
-/// order, a file split differently with <c>extends</c>, a new date or a new edition number leave it unchanged; any value
-/// (an assumption, a source, a note, the title, an option) changes it. The edition planner starts a new edition on it.
+/// order, a file split differently with <c>extends</c>, a new date or a new edition number leave it unchanged; any
+/// value (an assumption, a source, a note, the title, an option) changes it. The edition planner starts a new edition
+/// on it.
 /// </summary>
 public static class ScenarioContent
 {
@@ -22,7 +23,8 @@ public static class ScenarioContent
     }
 
     /// <summary>Where <c>brief.edition</c> is written (after <c>extends</c>), if it is.</summary>
-    public static SourceSpan? EditionAt(YMapping tree) => tree["brief"] is YMapping b && b["edition"] is { } e ? e.At : null;
+    public static SourceSpan? EditionAt(YMapping tree) =>
+        tree["brief"] is YMapping b && b["edition"] is { } e ? e.At : null;
 
     private static void Write(YNode node, string path, StringBuilder text)
     {

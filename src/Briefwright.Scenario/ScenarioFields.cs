@@ -54,13 +54,17 @@ public sealed record ScenarioField(string Path, FieldKind Kind, string Label)
     public string? DefaultText { get; init; }
     public string? Help { get; init; }
     public int MaxLength { get; init; } = 400;
-    /// <summary>For <see cref="FieldKind.Text"/>: a regular expression the whole value must match (the schema says it too).</summary>
+    /// <summary>
+    /// For <see cref="FieldKind.Text"/>: a regular expression the whole value must match (the schema says it too).
+    /// </summary>
     public string? Pattern { get; init; }
     public string[] Choices { get; init; } = [];
     /// <summary>The selector field of a <see cref="FieldKind.Variants"/> mapping.</summary>
     public string? Selector { get; init; }
     public int MinItems { get; init; }
-    /// <summary>Keys of which a mapping must hold at least one (a discount rule's <c>rate</c> or <c>schedule</c>).</summary>
+    /// <summary>
+    /// Keys of which a mapping must hold at least one (a discount rule's <c>rate</c> or <c>schedule</c>).
+    /// </summary>
     public string[] Alternatives { get; init; } = [];
     /// <summary>The binder adds a row with <see cref="Label"/> to the brief's assumptions table.</summary>
     public bool Assumption { get; init; }
@@ -92,7 +96,8 @@ public static class ScenarioFields
     private static readonly Bounds DiscountRate = Bounds.Closed(-0.05, 0.5);
     private static readonly Bounds AnyValue = Bounds.Closed(-1000, 1000);
     private static readonly Bounds Positive = Bounds.OpenClosed(0, 1000);
-    private static readonly string[] Distributions = ["normal", "truncated_normal", "uniform", "triangular", "lognormal"];
+    private static readonly string[] Distributions =
+        ["normal", "truncated_normal", "uniform", "triangular", "lognormal"];
 
     private static ScenarioField S(string path, string label, bool required = false) =>
         new(path, FieldKind.Section, label) { Required = required };
@@ -106,7 +111,9 @@ public static class ScenarioFields
     private static ScenarioField C(string path, string label, params string[] choices) =>
         new(path, FieldKind.Choice, label) { Choices = choices };
 
-    /// <summary>Every field, in the order the binder lists a mapping's keys (its messages name them in this order).</summary>
+    /// <summary>
+    /// Every field, in the order the binder lists a mapping's keys (its messages name them in this order).
+    /// </summary>
     public static readonly IReadOnlyList<ScenarioField> All =
     [
         new("extends", FieldKind.Path, "Path of the scenario this one builds on, relative to this file")
@@ -115,7 +122,8 @@ public static class ScenarioFields
         S("demography", "Stable population", required: true),
         S("human_capital", "Human capital"),
         S("production", "Production", required: true),
-        new("options", FieldKind.List, "Policy options") { Required = true, MinItems = 2, Help = "a baseline and at least one alternative" },
+        new("options", FieldKind.List, "Policy options")
+            { Required = true, MinItems = 2, Help = "a baseline and at least one alternative" },
         S("reform", "Reform simulation"),
         S("appraisal", "Discounting"),
         S("sensitivity", "Sensitivity"),
@@ -126,7 +134,8 @@ public static class ScenarioFields
         T("brief.short_title", "Running header", 80) with { DefaultText = "the title" },
         T("brief.organisation", "Organisation", 200, required: true),
         T("brief.author", "Author", 200),
-        new("brief.date", FieldKind.Date, "Date of the brief, YYYY-MM-DD") { Required = true, Help = "never taken from the clock" },
+        new("brief.date", FieldKind.Date, "Date of the brief, YYYY-MM-DD")
+            { Required = true, Help = "never taken from the clock" },
         C("brief.status", "Status", "draft", "consultation", "final") with
             { DefaultText = "draft", Help = "a draft or consultation brief carries a DRAFT marker on every page" },
         N("brief.edition", "Edition", ValueUnit.Number, Bounds.Closed(1, 9999)) with
@@ -139,9 +148,10 @@ public static class ScenarioFields
         T("brief.language", "Language of the brief", 35) with
         {
             DefaultText = LanguageTag.Default, Pattern = LanguageTag.Pattern,
-            Help = "a language tag: en-GB, fr-FR, es-ES, de-DE (any region of en, fr, es, de); the tool's words, the number and "
-                + "date formats and the PDF's language tag follow it; a right-to-left language, or right-to-left text in any "
-                + "field, is refused (the layout writes left to right only); see docs/templates.md, \"Languages\"",
+            Help = "a language tag: en-GB, fr-FR, es-ES, de-DE (any region of en, fr, es, de); the tool's words, "
+                + "the number and date formats and the PDF's language tag follow it; a right-to-left language, or "
+                + "right-to-left text in any field, is refused (the layout writes left to right only); see "
+                + "docs/templates.md, \"Languages\"",
         },
 
         N("demography.population_growth", "Population growth rate", ValueUnit.Rate, Bounds.Closed(-0.1, 0.1), true)
@@ -153,7 +163,8 @@ public static class ScenarioFields
         N("demography.participation", "Labour-force participation", ValueUnit.Rate, Bounds.OpenClosed(0, 1))
             with { Assumption = true, Default = 1, Help = "share of working-age people in the labour force" },
         new("demography.survival", FieldKind.Variants, "Survival curve") { Required = true, Selector = "form" },
-        C("demography.survival.form", "Form of the survival curve", "rectangular", Gm, "life_table") with { Required = true },
+        C("demography.survival.form", "Form of the survival curve", "rectangular", Gm, "life_table")
+            with { Required = true },
         N("demography.survival.max_age", "Age at death (everyone)", ValueUnit.Age, Age, true)
             with { Variants = ["rectangular"], Assumption = true },
         N("demography.survival.a", "Makeham term A", ValueUnit.Number, Bounds.ClosedOpen(0, 1), true)
@@ -174,11 +185,15 @@ public static class ScenarioFields
 
         new("human_capital.returns", FieldKind.Variants, "Returns to schooling")
             { Selector = "form", DefaultText = "Hall–Jones brackets" },
-        C("human_capital.returns.form", "Form of the returns", "constant", "brackets", "power") with { Required = true },
+        C("human_capital.returns.form", "Form of the returns", "constant", "brackets", "power")
+            with { Required = true },
         N("human_capital.returns.rate", "Return to a year of schooling", ValueUnit.Rate, Bounds.Open(0, 1), true)
             with { Variants = ["constant"], Assumption = true },
         new("human_capital.returns.brackets", FieldKind.List, "Returns to schooling")
-            { Variants = ["brackets"], MinItems = 1, DefaultText = "Hall–Jones", Help = "first `from` is 0, increasing" },
+            {
+                Variants = ["brackets"], MinItems = 1, DefaultText = "Hall–Jones",
+                Help = "first `from` is 0, increasing",
+            },
         T("human_capital.returns.source", "Source") with { Variants = ["brackets"] },
         T("human_capital.returns.note", "Note", 1000) with { Variants = ["brackets"] },
         N("human_capital.returns.theta", "Power-form scale θ", ValueUnit.Number, Bounds.Open(0, 2), true)
@@ -186,10 +201,12 @@ public static class ScenarioFields
         N("human_capital.returns.psi", "Power-form curvature ψ", ValueUnit.Number, Bounds.ClosedOpen(0, 1), true)
             with { Variants = ["power"], Assumption = true },
         S("human_capital.returns.brackets[]", "A bracket of returns"),
-        N("human_capital.returns.brackets[].from", "First year of the bracket", ValueUnit.Years, Bounds.Closed(0, 40), true),
+        N("human_capital.returns.brackets[].from", "First year of the bracket", ValueUnit.Years, Bounds.Closed(0, 40),
+            true),
         N("human_capital.returns.brackets[].rate", "Return", ValueUnit.Rate, Bounds.ClosedOpen(0, 1), true),
         S("human_capital.experience", "Mincer experience profile") with { Help = "β₁x − β₂x²" },
-        N("human_capital.experience.linear", "Experience premium, linear term β₁", ValueUnit.Number, Bounds.Closed(0, 0.5), true)
+        N("human_capital.experience.linear", "Experience premium, linear term β₁", ValueUnit.Number,
+            Bounds.Closed(0, 0.5), true)
             with { Assumption = true },
         N("human_capital.experience.quadratic", "Experience premium, quadratic term β₂", ValueUnit.Number,
             Bounds.OpenClosed(0, 0.05), true) with { Assumption = true },
@@ -220,12 +237,17 @@ public static class ScenarioFields
         T("options[].source", "Source"),
         T("options[].note", "Note", 1000),
 
-        N("reform.year", "Reform year", ValueUnit.Number, Year) with { Whole = true, DefaultText = "the year after the brief's date" },
-        N("reform.phase_in_cohorts", "Cohorts to phase in", ValueUnit.Number, Bounds.Closed(1, 40)) with { Whole = true, Default = 1 },
+        N("reform.year", "Reform year", ValueUnit.Number, Year)
+            with { Whole = true, DefaultText = "the year after the brief's date" },
+        N("reform.phase_in_cohorts", "Cohorts to phase in", ValueUnit.Number, Bounds.Closed(1, 40))
+            with { Whole = true, Default = 1 },
         N("reform.horizon_years", "Years simulated", ValueUnit.Years, Bounds.Closed(20, AnalysisBinder.MaxHorizon))
             with { Whole = true, Default = 150 },
         T("reform.headline_option", "Option for charts and indices") with
-            { DefaultText = "the first option that differs from the baseline", Help = "an option other than the baseline" },
+            {
+                DefaultText = "the first option that differs from the baseline",
+                Help = "an option other than the baseline",
+            },
 
         new("appraisal.discount_rates", FieldKind.List, "Discount rates")
             { MinItems = 1, DefaultText = "green_book, omb_3, omb_7", Help = "the first is the headline schedule" },
@@ -234,7 +256,10 @@ public static class ScenarioFields
             Whole = true, Assumption = true, DefaultText = "the brief's year", Help = "not after the reform year",
         },
         new("appraisal.discount_rates[]", FieldKind.NameOrSection, "A discount rate")
-            { Choices = ["green_book", "omb_3", "omb_7"], Alternatives = ["rate", "schedule"], Help = "a published schedule's name or a rule of one's own" },
+            {
+                Choices = ["green_book", "omb_3", "omb_7"], Alternatives = ["rate", "schedule"],
+                Help = "a published schedule's name or a rule of one's own",
+            },
         T("appraisal.discount_rates[].id", "Id", required: true),
         T("appraisal.discount_rates[].label", "Label", 120, required: true),
         T("appraisal.discount_rates[].in_sentence", "How the rule reads inside a sentence", 120)
@@ -255,9 +280,12 @@ public static class ScenarioFields
             { Bounds = AnyValue, ParameterBounds = true },
         S("sensitivity.grids[]", "A two-way grid"),
         new("sensitivity.grids[].x", FieldKind.ParameterName, "Parameter across") { Required = true },
-        new("sensitivity.grids[].x_range", FieldKind.Range, "Its range") { Required = true, Bounds = AnyValue, ParameterBounds = true },
-        new("sensitivity.grids[].y", FieldKind.ParameterName, "Parameter down") { Required = true, Help = "differs from x" },
-        new("sensitivity.grids[].y_range", FieldKind.Range, "Its range") { Required = true, Bounds = AnyValue, ParameterBounds = true },
+        new("sensitivity.grids[].x_range", FieldKind.Range, "Its range")
+            { Required = true, Bounds = AnyValue, ParameterBounds = true },
+        new("sensitivity.grids[].y", FieldKind.ParameterName, "Parameter down")
+            { Required = true, Help = "differs from x" },
+        new("sensitivity.grids[].y_range", FieldKind.Range, "Its range")
+            { Required = true, Bounds = AnyValue, ParameterBounds = true },
         N("sensitivity.grids[].steps", "Steps per axis", ValueUnit.Number, Bounds.Closed(2, 41)) with { Default = 9 },
         C("sensitivity.grids[].output", "What the grid shows", "optimum", "change") with { DefaultText = "optimum" },
 
@@ -265,7 +293,8 @@ public static class ScenarioFields
             with { Default = 2000 },
         N("uncertainty.seed", "Random seed", ValueUnit.Number, Bounds.Closed(0, 9_007_199_254_740_991), true)
             with { Help = "the same seed gives the same numbers" },
-        N("uncertainty.sobol_samples", "Sobol base samples", ValueUnit.Number, Bounds.Closed(0, AnalysisBinder.MaxSobolSamples))
+        N("uncertainty.sobol_samples", "Sobol base samples", ValueUnit.Number,
+            Bounds.Closed(0, AnalysisBinder.MaxSobolSamples))
             with { Default = AnalysisBinder.DefaultSobolSamples, Help = "0 skips the Sobol indices" },
         new("uncertainty.parameters", FieldKind.ParameterMap, "Distributions of the uncertain parameters")
             { Required = true, MinItems = 1 },
@@ -276,24 +305,34 @@ public static class ScenarioFields
         new("uncertainty.parameters.*.sd", FieldKind.ParameterValue, "Standard deviation")
             { Variants = ["normal", "truncated_normal"], Required = true, Bounds = Positive },
         new("uncertainty.parameters.*.low", FieldKind.ParameterValue, "Lower bound")
-            { Variants = ["truncated_normal", "uniform", "triangular"], Required = true, Bounds = AnyValue, ParameterBounds = true },
+            {
+                Variants = ["truncated_normal", "uniform", "triangular"], Required = true, Bounds = AnyValue,
+                ParameterBounds = true,
+            },
         new("uncertainty.parameters.*.mode", FieldKind.ParameterValue, "Most likely value")
             { Variants = ["triangular"], Required = true, Bounds = AnyValue, ParameterBounds = true },
         new("uncertainty.parameters.*.high", FieldKind.ParameterValue, "Upper bound")
-            { Variants = ["truncated_normal", "uniform", "triangular"], Required = true, Bounds = AnyValue, ParameterBounds = true },
+            {
+                Variants = ["truncated_normal", "uniform", "triangular"], Required = true, Bounds = AnyValue,
+                ParameterBounds = true,
+            },
         new("uncertainty.parameters.*.median", FieldKind.ParameterValue, "Median")
             { Variants = ["lognormal"], Required = true, Bounds = Positive },
-        N("uncertainty.parameters.*.sigma_log", "Standard deviation of the log", ValueUnit.Number, Bounds.OpenClosed(0, 5), true)
+        N("uncertainty.parameters.*.sigma_log", "Standard deviation of the log", ValueUnit.Number,
+            Bounds.OpenClosed(0, 5), true)
             with { Variants = ["lognormal"] },
     ];
 
     /// <summary>The fields written as keys of a mapping, by the mapping's path (a list's item and a parameter map's
     /// entry are not keys).</summary>
     private static readonly IReadOnlyDictionary<string, ScenarioField[]> ByParent = All
-        .Where(f => !f.Path.EndsWith("[]", StringComparison.Ordinal) && !f.Path.EndsWith(".*", StringComparison.Ordinal))
+        .Where(f => !f.Path.EndsWith("[]", StringComparison.Ordinal)
+            && !f.Path.EndsWith(".*", StringComparison.Ordinal))
         .GroupBy(f => f.Parent).ToDictionary(g => g.Key, g => g.ToArray(), StringComparer.Ordinal);
 
-    /// <summary>The field at <paramref name="path"/> (in <paramref name="variant"/>, where the path has several).</summary>
+    /// <summary>
+    /// The field at <paramref name="path"/> (in <paramref name="variant"/>, where the path has several).
+    /// </summary>
     public static ScenarioField Get(string path, string? variant = null) =>
         All.FirstOrDefault(f => f.Path == path && f.In(variant))
         ?? throw new ArgumentException($"no scenario field {path}", nameof(path));
@@ -302,7 +341,9 @@ public static class ScenarioFields
     public static IReadOnlyList<ScenarioField> Children(string path, string? variant = null) =>
         ByParent.TryGetValue(path, out var fields) ? fields.Where(f => f.In(variant)).ToArray() : [];
 
-    /// <summary>The keys the mapping at <paramref name="path"/> (of one variant) may hold, in order, each once.</summary>
+    /// <summary>
+    /// The keys the mapping at <paramref name="path"/> (of one variant) may hold, in order, each once.
+    /// </summary>
     public static string[] Keys(string path, string? variant = null) =>
         Children(path, variant).Select(f => f.Key).Distinct().ToArray();
 
@@ -311,7 +352,8 @@ public static class ScenarioFields
 
     /// <summary>An interval as the reference writes it: [a, b] holds both ends, (a, b) neither.</summary>
     public static string Interval(Bounds b, bool percent) =>
-        $"{(b.MinInclusive ? '[' : '(')}{Number(b.Min, percent)}, {Number(b.Max, percent)}{(b.MaxInclusive ? ']' : ')')}";
+        $"{(b.MinInclusive ? '[' : '(')}{Number(b.Min, percent)}, " +
+        $"{Number(b.Max, percent)}{(b.MaxInclusive ? ']' : ')')}";
 
     private static string UnitText(ScenarioField f) => f.Kind switch
     {
@@ -329,7 +371,10 @@ public static class ScenarioFields
         FieldKind.ParameterValue => "parameter's unit",
         FieldKind.Range => "`[low, high]`",
         _ when f.Whole => "whole number",
-        _ => f.Unit switch { ValueUnit.Rate => "rate", ValueUnit.Age => "age", ValueUnit.Years => "years", _ => "number" },
+        _ => f.Unit switch
+        {
+            ValueUnit.Rate => "rate", ValueUnit.Age => "age", ValueUnit.Years => "years", _ => "number",
+        },
     };
 
     /// <summary>The default in words (a rate as a percentage), or null when the field has none.</summary>
@@ -339,7 +384,8 @@ public static class ScenarioFields
     private static string RequiredText(ScenarioField f)
     {
         string when = f.Variants.Length == 0 ? "" : string.Join(", ", f.Variants.Select(v => $"`{v}`")) + ": ";
-        if (f.Path.EndsWith("[]", StringComparison.Ordinal) || f.Path.EndsWith(".*", StringComparison.Ordinal)) return "each item";
+        if (f.Path.EndsWith("[]", StringComparison.Ordinal) || f.Path.EndsWith(".*", StringComparison.Ordinal))
+            return "each item";
         if (f.Required) return when + "yes";
         return when + (DefaultOf(f) is { } d ? $"no ({d})" : "no");
     }
@@ -363,7 +409,8 @@ public static class ScenarioFields
         sb.Append("| field | label | unit | required (default) | rule |\n|---|---|---|---|---|\n");
         foreach (var f in All)
             sb.Append(CultureInfo.InvariantCulture,
-                $"| `{f.Path}` | {f.Label} | {UnitText(f)} | {RequiredText(f)} | {RuleText(f).Replace("|", "\\|")} |\n");
+                $"| `{f.Path}` | {f.Label} | {UnitText(f)} | {RequiredText(f)} | " +
+                $"{RuleText(f).Replace("|", "\\|")} |\n");
         return sb.ToString();
     }
 }

@@ -5,7 +5,9 @@ using Briefwright.Scenario.Yaml;
 
 namespace Briefwright.Scenario;
 
-/// <summary>The outcome of loading a scenario: the document, or every problem found, with the sources to show them.</summary>
+/// <summary>
+/// The outcome of loading a scenario: the document, or every problem found, with the sources to show them.
+/// </summary>
 public sealed record LoadResult(ScenarioDocument? Document, IReadOnlyList<Diagnostic> Problems, SourceSet Sources)
 {
     public bool Ok => Document is not null && Problems.Count == 0;
@@ -32,15 +34,18 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
 
         var ctx = new BindContext();
         var tables = new List<string>();
-        var binder = new ScenarioBinder(ctx, (file, at, fieldPath) => LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
+        var binder = new ScenarioBinder(ctx, (file, at, fieldPath) =>
+            LoadLifeTable(file, at, fieldPath, project, ctx, sources, files, tables));
         var document = binder.Bind(tree, files);
         return new LoadResult(document is null ? null : document with
         {
-            InputHash = sources.Hash(), ContentHash = ScenarioContent.Hash(tree, tables), EditionAt = ScenarioContent.EditionAt(tree),
+            InputHash = sources.Hash(), ContentHash = ScenarioContent.Hash(tree, tables),
+            EditionAt = ScenarioContent.EditionAt(tree),
         }, ctx.Problems, sources);
     }
 
-    private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, string project, BindContext ctx, SourceSet sources, List<string> files, List<string> tables)
+    private TabulatedSurvival? LoadLifeTable(string file, SourceSpan at, string fieldPath, string project,
+        BindContext ctx, SourceSet sources, List<string> files, List<string> tables)
     {
         if (!file.EndsWith(".csv", StringComparison.OrdinalIgnoreCase))
         {
@@ -68,27 +73,24 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         return LifeTableReader.Read(full, text, fieldPath, ctx);
     }
 
-    private YMapping? LoadTree(string path, string project, List<string> chain, SourceSet sources, List<Diagnostic> problems, List<string> files, (SourceSpan At, string Value)? namedBy)
+    private YMapping? LoadTree(string path, string project, List<string> chain, SourceSet sources,
+        List<Diagnostic> problems, List<string> files, (SourceSpan At, string Value)? namedBy)
     {
         string key = Path.GetFullPath(path);
         if (chain.Contains(key))
         {
             var cycle = string.Join(" → ", chain.Skip(chain.IndexOf(key)).Append(key).Select(Path.GetFileName));
-            problems.Add(new Diagnostic(namedBy!.Value.At, "extends", $"scenarios extend each other in a cycle ({cycle})", $"'{namedBy.Value.Value}'"));
+            problems.Add(new Diagnostic(namedBy!.Value.At, "extends",
+                $"scenarios extend each other in a cycle ({cycle})", $"'{namedBy.Value.Value}'"));
             return null;
         }
         if (chain.Count >= MaxExtendsDepth)
         {
-            problems.Add(new Diagnostic(namedBy!.Value.At, "extends", $"more than {MaxExtendsDepth} levels of extends", $"'{namedBy.Value.Value}'"));
+            problems.Add(new Diagnostic(namedBy!.Value.At, "extends",
+                $"more than {MaxExtendsDepth} levels of extends", $"'{namedBy.Value.Value}'"));
             return null;
         }
-        string text, error;
-        if (namedBy is null ? !reader.TryRead(path, out text, out error) : !reader.TryReadInside(path, project, out text, out error))
-        {
-            if (namedBy is { } by) problems.Add(new Diagnostic(by.At, "extends", $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
-            else problems.Add(new Diagnostic(new SourceSpan(path, 1, 1), "", $"cannot read the scenario ({error})", null));
-            return null;
-        }
+        if (ReadText(path, project, namedBy, problems) is not { } text) return null;
         // A binary file is not shown: its first line could be anything (a key, the environment of /proc/self/environ).
         if (!text.Contains('\0')) sources.Add(path, text);
         files.Add(path);
@@ -97,7 +99,9 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         if (node is null) return null;
         if (node is not YMapping map)
         {
-            problems.Add(new Diagnostic(node.At, "", "a scenario must be a mapping with the sections brief, demography, human_capital, production and options", node.Kind));
+            problems.Add(new Diagnostic(node.At, "",
+                "a scenario must be a mapping with the sections brief, demography, human_capital, production " +
+                "and options", node.Kind));
             return null;
         }
         if (map["extends"] is not { } ext) return map;
@@ -106,9 +110,11 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
             problems.Add(new Diagnostic(ext.At, "extends", "must be the path of another scenario file", ext.Kind));
             return null;
         }
-        if (!parentName.Value.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase) && !parentName.Value.EndsWith(".yml", StringComparison.OrdinalIgnoreCase))
+        if (!parentName.Value.EndsWith(".yaml", StringComparison.OrdinalIgnoreCase)
+            && !parentName.Value.EndsWith(".yml", StringComparison.OrdinalIgnoreCase))
         {
-            problems.Add(new Diagnostic(parentName.At, "extends", "must name a scenario file (.yaml or .yml)", BindContext.Quote(parentName.Value)));
+            problems.Add(new Diagnostic(parentName.At, "extends",
+                "must name a scenario file (.yaml or .yml)", BindContext.Quote(parentName.Value)));
             return null;
         }
         if (ProjectRoot.Resolve(path, parentName.Value, project, out string rule) is not { } parentPath)
@@ -122,7 +128,28 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
         return parent is null ? null : Merge(parent, map);
     }
 
-    /// <summary>A full path as messages show it: relative to the current folder when it lies below it, else in full.</summary>
+    /// <summary>The text of the scenario at <paramref name="path"/>, or null with the reason reported.</summary>
+    private string? ReadText(string path, string project, (SourceSpan At, string Value)? namedBy,
+        List<Diagnostic> problems)
+    {
+        string text, error;
+        if (namedBy is null
+            ? !reader.TryRead(path, out text, out error)
+            : !reader.TryReadInside(path, project, out text, out error))
+        {
+            if (namedBy is { } by)
+                problems.Add(new Diagnostic(by.At, "extends",
+                    $"cannot read the extended scenario ({error})", $"'{by.Value}'"));
+            else problems.Add(new Diagnostic(new SourceSpan(path, 1, 1), "",
+                $"cannot read the scenario ({error})", null));
+            return null;
+        }
+        return text;
+    }
+
+    /// <summary>
+    /// A full path as messages show it: relative to the current folder when it lies below it, else in full.
+    /// </summary>
     public static string Display(string full)
     {
         string cwd = Directory.GetCurrentDirectory();
@@ -130,8 +157,8 @@ public sealed class ScenarioLoader(ISourceReader reader, string? root = null)
     }
 
     /// <summary>A section that switches its <c>form</c> (say, from gompertz_makeham to life_table) or a parameter that
-    /// switches its <c>distribution</c> (say, from uniform to normal) is replaced, not merged: the parent's parameters of
-    /// the old form never stick to the child's.</summary>
+    /// switches its <c>distribution</c> (say, from uniform to normal) is replaced, not merged: the parent's parameters
+    /// of the old form never stick to the child's.</summary>
     private static bool FormChanges(YMapping parent, YMapping child) =>
         KindChanges(parent, child, "form") || KindChanges(parent, child, "distribution");
 

@@ -26,9 +26,11 @@ public static class ScenarioSchema
         return o;
     }
 
-    private static JsonArray Arr(params string[] items) => new(items.Select(i => (JsonNode?)JsonValue.Create(i)).ToArray());
+    private static JsonArray Arr(params string[] items) =>
+        new(items.Select(i => (JsonNode?)JsonValue.Create(i)).ToArray());
 
-    private static JsonObject Str(string description, int maxLength = 400) => Obj(("type", "string"), ("maxLength", maxLength), ("description", description));
+    private static JsonObject Str(string description, int maxLength = 400) =>
+        Obj(("type", "string"), ("maxLength", maxLength), ("description", description));
 
     /// <summary>A bare number within <paramref name="b"/>.</summary>
     private static JsonObject Bare(Bounds b, bool integer)
@@ -89,7 +91,9 @@ public static class ScenarioSchema
     /// <summary>A number field as the binder reads it: bare, or a rate as a percentage string, or either wrapped as
     /// <c>{ value, source, note }</c>.</summary>
     private static JsonObject Num(string description, Bounds b, bool rate = false, bool integer = false) =>
-        Wrap(description, rate ? Obj(("anyOf", new JsonArray(Bare(b, integer), Obj(("type", "string"), ("pattern", PercentPattern(b)))))) : Bare(b, integer));
+        Wrap(description, rate
+            ? Obj(("anyOf", new JsonArray(Bare(b, integer), Obj(("type", "string"), ("pattern", PercentPattern(b))))))
+            : Bare(b, integer));
 
     /// <summary>A number, or a percentage string, in a parameter's unit (range ends and distribution parameters): the
     /// schema cannot tell which parameter, so only the field's own wide bounds apply.</summary>
@@ -99,28 +103,34 @@ public static class ScenarioSchema
 
     private static JsonObject Wrap(string description, JsonObject bare)
     {
-        var wrapped = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr("value")), ("properties", Obj(
-            ("value", bare.DeepClone()), ("source", Str("Where the value comes from (assumptions table)")), ("note", Str("A note for the assumptions table", 1000)))));
+        var wrapped = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr("value")),
+            ("properties", Obj(("value", bare.DeepClone()),
+                ("source", Str("Where the value comes from (assumptions table)")),
+                ("note", Str("A note for the assumptions table", 1000)))));
         return Obj(("description", description), ("anyOf", new JsonArray(bare, wrapped)));
     }
 
     private static JsonObject Section(string description, JsonObject properties, bool strict, params string[] required)
     {
-        var o = Obj(("type", "object"), ("description", description), ("additionalProperties", false), ("properties", properties));
+        var o = Obj(("type", "object"), ("description", description), ("additionalProperties", false),
+            ("properties", properties));
         if (strict && required.Length > 0) o["required"] = Arr(required);
         return o;
     }
 
-    /// <summary>A mapping whose keys depend on its <c>form</c> (or <c>distribution</c>): each variant lists its own keys;
-    /// a partial one (under extends, merged into the parent's) may give any variant's keys and needs none.</summary>
-    private static JsonObject Variants(string description, string selector, bool strict, params (string Name, JsonObject Props, string[] Required)[] variants)
+    /// <summary>A mapping whose keys depend on its <c>form</c> (or <c>distribution</c>): each variant lists its own
+    /// keys; a partial one (under extends, merged into the parent's) may give any variant's keys and needs
+    /// none.</summary>
+    private static JsonObject Variants(string description, string selector, bool strict,
+        params (string Name, JsonObject Props, string[] Required)[] variants)
     {
         if (!strict)
         {
             var union = Obj((selector, Obj(("enum", Arr(variants.Select(v => v.Name).ToArray())))));
             foreach (var v in variants)
                 foreach (var (k, n) in v.Props) union[k] ??= n!.DeepClone();
-            return Obj(("type", "object"), ("description", description), ("additionalProperties", false), ("properties", union));
+            return Obj(("type", "object"), ("description", description), ("additionalProperties", false),
+                ("properties", union));
         }
         var all = new JsonArray();
         foreach (var v in variants)
@@ -131,7 +141,8 @@ public static class ScenarioSchema
                 ("then", Obj(("additionalProperties", false), ("required", Arr(v.Required)), ("properties", props)))));
         }
         return Obj(("type", "object"), ("description", description), ("required", Arr(selector)),
-            ("properties", Obj((selector, Obj(("enum", Arr(variants.Select(v => v.Name).ToArray())))))), ("allOf", all));
+            ("properties", Obj((selector, Obj(("enum", Arr(variants.Select(v => v.Name).ToArray())))))),
+            ("allOf", all));
     }
 
     private static string Describe(ScenarioField f)
@@ -149,7 +160,8 @@ public static class ScenarioSchema
     }
 
     private static string[] Required(string path, string? variant = null, string? skip = null) =>
-        ScenarioFields.Children(path, variant).Where(f => f.Required && f.Key != skip).Select(f => f.Key).Distinct().ToArray();
+        ScenarioFields.Children(path, variant).Where(f => f.Required && f.Key != skip)
+            .Select(f => f.Key).Distinct().ToArray();
 
     private static JsonObject Array(ScenarioField f, JsonObject items)
     {
@@ -159,7 +171,9 @@ public static class ScenarioSchema
         return a;
     }
 
-    /// <summary>The schema of one field of the catalogue; list items are always complete (lists are replaced whole).</summary>
+    /// <summary>
+    /// The schema of one field of the catalogue; list items are always complete (lists are replaced whole).
+    /// </summary>
     private static JsonObject Node(ScenarioField f, bool strict)
     {
         var parameterNames = Arr(Parameters.All.Select(p => p.Name).ToArray());
@@ -186,15 +200,10 @@ public static class ScenarioSchema
                 return map;
             }
             case FieldKind.NameOrSection:
-            {
-                var own = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr(Required(f.Path))));
-                if (f.Alternatives.Length > 0)
-                    own["anyOf"] = new JsonArray(f.Alternatives.Select(k => (JsonNode?)Obj(("required", Arr(k)))).ToArray());
-                own["properties"] = Properties(f.Path, null, strict: true);
-                return Obj(("description", description), ("anyOf", new JsonArray(Obj(("enum", Arr(f.Choices))), own)));
-            }
+                return NameOrSection(f, description);
             case FieldKind.Text when f.Pattern is { } pattern:
-                return Obj(("type", "string"), ("maxLength", f.MaxLength), ("pattern", pattern), ("description", description));
+                return Obj(("type", "string"), ("maxLength", f.MaxLength), ("pattern", pattern),
+                    ("description", description));
             case FieldKind.Text:
                 return Str(description, f.MaxLength);
             case FieldKind.Path:
@@ -202,7 +211,8 @@ public static class ScenarioSchema
             case FieldKind.Id:
                 return Obj(("type", "string"), ("pattern", "^[a-z0-9][a-z0-9_-]{0,63}$"), ("description", description));
             case FieldKind.Date:
-                return Obj(("type", "string"), ("pattern", "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"), ("format", "date"), ("description", description));
+                return Obj(("type", "string"), ("pattern", "^[0-9]{4}-[0-9]{2}-[0-9]{2}$"), ("format", "date"),
+                    ("description", description));
             case FieldKind.Choice:
                 return Obj(("enum", Arr(f.Choices)), ("description", description));
             case FieldKind.Flag:
@@ -221,9 +231,20 @@ public static class ScenarioSchema
         }
     }
 
+    /// <summary>A published name from the field's choices, or a complete mapping of one's own.</summary>
+    private static JsonObject NameOrSection(ScenarioField f, string description)
+    {
+        var own = Obj(("type", "object"), ("additionalProperties", false), ("required", Arr(Required(f.Path))));
+        if (f.Alternatives.Length > 0)
+            own["anyOf"] = new JsonArray(f.Alternatives.Select(k => (JsonNode?)Obj(("required", Arr(k)))).ToArray());
+        own["properties"] = Properties(f.Path, null, strict: true);
+        return Obj(("description", description), ("anyOf", new JsonArray(Obj(("enum", Arr(f.Choices))), own)));
+    }
+
     private static JsonObject Sections(bool strict)
     {
-        var scenario = Obj(("type", "object"), ("additionalProperties", false), ("properties", Properties("", null, strict)));
+        var scenario = Obj(("type", "object"), ("additionalProperties", false),
+            ("properties", Properties("", null, strict)));
         if (strict) scenario["required"] = Arr(Required(""));
         return scenario;
     }
@@ -231,11 +252,15 @@ public static class ScenarioSchema
     public static JsonObject Build() => Obj(
         ("$schema", "https://json-schema.org/draft/2020-12/schema"),
         ("title", "briefwright scenario"),
-        ("description", "A complete scenario; a file with 'extends' is a partial one, completed by the scenario it names."),
+        ("description",
+            "A complete scenario; a file with 'extends' is a partial one, completed by the scenario it names."),
         ("$defs", Obj(("complete", Sections(strict: true)), ("partial", Sections(strict: false)))),
         ("if", Obj(("type", "object"), ("required", Arr("extends")))),
         ("then", Obj(("$ref", "#/$defs/partial"))),
         ("else", Obj(("$ref", "#/$defs/complete"))));
 
-    public static string Text() => Build().ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + "\n";
+    public static string Text() => Build().ToJsonString(new JsonSerializerOptions
+    {
+        WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+    }) + "\n";
 }

@@ -6,22 +6,28 @@ using Briefwright.Scenario.Yaml;
 namespace Briefwright.Scenario;
 
 /// <summary>An organisation's look: name, paper size, colours (#RRGGBB), footer text and a PNG logo.</summary>
-public sealed record ThemeSpec(string Name, string Paper, IReadOnlyDictionary<string, string> Colours, string? Footer, string? LogoPath)
+public sealed record ThemeSpec(string Name, string Paper, IReadOnlyDictionary<string, string> Colours, string? Footer,
+    string? LogoPath)
 {
     public static readonly string[] FontKeys = { "regular", "bold", "italic", "bold_italic" };
 
-    /// <summary>TrueType files by style (regular, bold, italic, bold_italic), resolved to paths; empty for the bundled font.</summary>
+    /// <summary>
+    /// TrueType files by style (regular, bold, italic, bold_italic), resolved to paths; empty for the bundled font.
+    /// </summary>
     public IReadOnlyDictionary<string, string> FontPaths { get; init; } = new Dictionary<string, string>();
 
     public static readonly string[] ColourKeys = { "accent", "text", "muted", "rule", "box_fill", "header_fill" };
 
-    /// <summary>The options' colours in charts, in scenario order (#RRGGBB each); empty for the standard palette.</summary>
+    /// <summary>
+    /// The options' colours in charts, in scenario order (#RRGGBB each); empty for the standard palette.
+    /// </summary>
     public IReadOnlyList<string> ChartColours { get; init; } = Array.Empty<string>();
 
     /// <summary>How many chart colours a theme may give.</summary>
     public const int MinChartColours = 2, MaxChartColours = 8;
 
-    public static ThemeSpec Default { get; } = new("briefwright standard", "a4", new Dictionary<string, string>(), null, null);
+    public static ThemeSpec Default { get; } =
+        new("briefwright standard", "a4", new Dictionary<string, string>(), null, null);
 
     /// <summary>The logo as read and checked by <see cref="ThemeLoader"/>: PNG bytes and size in pixels.</summary>
     public (byte[] Png, int Width, int Height)? Logo { get; init; }
@@ -38,17 +44,23 @@ public static partial class ThemeLoader
     [GeneratedRegex(@"^#[0-9A-Fa-f]{6}\z")]
     private static partial Regex Hex();
 
-    public static (ThemeSpec? Theme, IReadOnlyList<Diagnostic> Problems, SourceSet Sources) Load(string path, ISourceReader reader, string? projectRoot = null)
+    public static (ThemeSpec? Theme, IReadOnlyList<Diagnostic> Problems, SourceSet Sources) Load(string path,
+        ISourceReader reader, string? projectRoot = null)
     {
         var sources = new SourceSet();
         if (!reader.TryRead(path, out string text, out string error))
-            return (null, new[] { new Diagnostic(new SourceSpan(path, 1, 1), "", $"cannot read the theme ({error})", null) }, sources);
+            return (null, new[] { new Diagnostic(new SourceSpan(path, 1, 1), "",
+                $"cannot read the theme ({error})", null) }, sources);
         if (!text.Contains('\0')) sources.Add(path, text);
         string project = ProjectRoot.For(path, projectRoot);
         var (root, problems) = YamlTreeReader.Read(path, text, "theme");
         if (root is null) return (null, problems, sources);
         var ctx = new BindContext();
-        if (root is not YMapping top) { ctx.Report(root.At, "", "a theme must be a mapping", root.Kind); return (null, ctx.Problems, sources); }
+        if (root is not YMapping top)
+        {
+            ctx.Report(root.At, "", "a theme must be a mapping", root.Kind);
+            return (null, ctx.Problems, sources);
+        }
         ctx.CheckKeys(top, "", "name", "paper", "colours", "chart_colours", "footer", "logo", "fonts");
         string? name = ctx.Text(top, "name", "", required: true, maxLength: ThemeSchema.MaxName);
         string paper = ctx.Choice(top, "paper", "", required: false, "a4", "letter") ?? "a4";
@@ -77,7 +89,8 @@ public static partial class ThemeLoader
             {
                 if (!ThemeSpec.ColourKeys.Contains(key.Value)) continue;
                 if (value is YScalar s && Hex().IsMatch(s.Value)) colours[key.Value] = s.Value;
-                else ctx.Report(value.At, $"colours.{key.Value}", "must be a colour written #RRGGBB", BindContext.Show(value));
+                else ctx.Report(value.At, $"colours.{key.Value}",
+                    "must be a colour written #RRGGBB", BindContext.Show(value));
             }
         }
         return colours;
@@ -89,13 +102,17 @@ public static partial class ThemeLoader
         var chartColours = new List<string>();
         if (top["chart_colours"] is { } cc)
         {
-            if (cc is not YSequence seq || seq.Items.Count < ThemeSpec.MinChartColours || seq.Items.Count > ThemeSpec.MaxChartColours)
-                ctx.Report(cc.At, "chart_colours", $"must be a list of {ThemeSpec.MinChartColours} to {ThemeSpec.MaxChartColours} colours written #RRGGBB, one per option in scenario order", BindContext.Show(cc));
+            if (cc is not YSequence seq || seq.Items.Count < ThemeSpec.MinChartColours
+                || seq.Items.Count > ThemeSpec.MaxChartColours)
+                ctx.Report(cc.At, "chart_colours",
+                    $"must be a list of {ThemeSpec.MinChartColours} to {ThemeSpec.MaxChartColours} colours written " +
+                    "#RRGGBB, one per option in scenario order", BindContext.Show(cc));
             else
                 for (int i = 0; i < seq.Items.Count; i++)
                 {
                     if (seq.Items[i] is YScalar s && Hex().IsMatch(s.Value)) chartColours.Add(s.Value);
-                    else ctx.Report(seq.Items[i].At, $"chart_colours[{i}]", "must be a colour written #RRGGBB", BindContext.Show(seq.Items[i]));
+                    else ctx.Report(seq.Items[i].At, $"chart_colours[{i}]",
+                        "must be a colour written #RRGGBB", BindContext.Show(seq.Items[i]));
                 }
         }
         return chartColours;
@@ -118,9 +135,11 @@ public static partial class ThemeLoader
                 var at = f[key]!.At;
                 if (!file.EndsWith(".ttf", StringComparison.OrdinalIgnoreCase))
                     ctx.Report(at, $"fonts.{key}", "must be a TrueType font file (.ttf)", BindContext.Quote(file));
-                else if (ReadAsset(reader, ctx, path, file, project, at, $"fonts.{key}", ThemeAssets.MaxFontBytes, "font") is { } bytes)
+                else if (ReadAsset(reader, ctx, path, file, project, at, $"fonts.{key}",
+                    ThemeAssets.MaxFontBytes, "font") is { } bytes)
                 {
-                    if (ThemeAssets.CheckTrueType(bytes) is { } rule) ctx.Report(at, $"fonts.{key}", rule, BindContext.Quote(file));
+                    if (ThemeAssets.CheckTrueType(bytes) is { } rule)
+                        ctx.Report(at, $"fonts.{key}", rule, BindContext.Quote(file));
                     else
                     {
                         fonts[key] = ProjectRoot.Resolve(path, file, project, out _)!;
@@ -144,9 +163,11 @@ public static partial class ThemeLoader
             var at = top["logo"]!.At;
             if (!logo.EndsWith(".png", StringComparison.OrdinalIgnoreCase))
                 ctx.Report(at, "logo", "must be a PNG file (.png)", BindContext.Quote(logo));
-            else if (ReadAsset(reader, ctx, path, logo, project, at, "logo", ThemeAssets.MaxLogoBytes, "logo") is { } png)
+            else if (ReadAsset(reader, ctx, path, logo, project, at, "logo",
+                ThemeAssets.MaxLogoBytes, "logo") is { } png)
             {
-                if (ThemeAssets.CheckPng(png, out int w, out int h) is { } rule) ctx.Report(at, "logo", rule, BindContext.Quote(logo));
+                if (ThemeAssets.CheckPng(png, out int w, out int h) is { } rule)
+                    ctx.Report(at, "logo", rule, BindContext.Quote(logo));
                 else
                 {
                     logoImage = (png, w, h);
@@ -157,7 +178,8 @@ public static partial class ThemeLoader
         return (logoImage, logoPath);
     }
 
-    private static byte[]? ReadAsset(ISourceReader reader, BindContext ctx, string theme, string file, string project, SourceSpan at, string field, long maxBytes, string what)
+    private static byte[]? ReadAsset(ISourceReader reader, BindContext ctx, string theme, string file, string project,
+        SourceSpan at, string field, long maxBytes, string what)
     {
         if (ProjectRoot.Resolve(theme, file, project, out string rule) is not { } full)
         {

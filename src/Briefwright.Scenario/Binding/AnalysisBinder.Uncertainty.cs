@@ -13,7 +13,9 @@ public sealed partial class AnalysisBinder
     {
         var def = Parameters.Find(key.Value);
         if (def is null)
-            ctx.Report(key.At, path, Suggestions.Closest(key.Value, Parameters.All.Select(p => p.Name)) is { } g ? $"unknown parameter (did you mean '{g}'?)" : $"unknown parameter (expected one of: {Names})", $"'{key.Value}'");
+            ctx.Report(key.At, path, Suggestions.Closest(key.Value, Parameters.All.Select(p => p.Name)) is { } g
+                ? $"unknown parameter (did you mean '{g}'?)"
+                : $"unknown parameter (expected one of: {Names})", $"'{key.Value}'");
         return def;
     }
 
@@ -24,26 +26,41 @@ public sealed partial class AnalysisBinder
             ctx.Report(node.At, path, "must be a list of two numbers, [low, high]", node.Kind);
             return null;
         }
-        var wrapper = new YMapping(new[] { new KeyValuePair<YScalar, YNode>(new YScalar("low", false, seq.At), seq.Items[0]), new(new YScalar("high", false, seq.At), seq.Items[1]) }, seq.At);
+        var wrapper = new YMapping(new[]
+        {
+            new KeyValuePair<YScalar, YNode>(new YScalar("low", false, seq.At), seq.Items[0]),
+            new(new YScalar("high", false, seq.At), seq.Items[1]),
+        }, seq.At);
         var unit = def.IsRate ? ValueUnit.Rate : ValueUnit.Number;
         var bounds = ParameterBounds.For(def.Name);
         double? lo = ctx.Number(wrapper, "low", path + "[0]", unit, bounds);
         double? hi = ctx.Number(wrapper, "high", path + "[1]", unit, bounds);
         if (lo is null || hi is null) return null;
-        if (!(hi > lo)) { ctx.Report(seq.Items[1].At, path + "[1]", $"the high end must be above the low end ({lo.Value.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(seq.Items[1])); return null; }
-        if (!Solvable(inputs, def, lo.Value, seq.Items[0], path + "[0]") || !Solvable(inputs, def, hi.Value, seq.Items[1], path + "[1]")) return null;
+        if (!(hi > lo))
+        {
+            ctx.Report(seq.Items[1].At, path + "[1]",
+                "the high end must be above the low end " +
+                $"({lo.Value.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(seq.Items[1]));
+            return null;
+        }
+        if (!Solvable(inputs, def, lo.Value, seq.Items[0], path + "[0]")
+            || !Solvable(inputs, def, hi.Value, seq.Items[1], path + "[1]")) return null;
         return (lo.Value, hi.Value);
     }
 
-    /// <summary>Whether the scenario with <paramref name="def"/> set to <paramref name="value"/> still meets every model
-    /// rule (the rules Monte Carlo draws are held to); reports the broken rule at <paramref name="node"/> when not.</summary>
-    private bool Solvable(ModelInputs inputs, Parameters.Definition def, double value, YNode node, string path, (Parameters.Definition Def, double Value)? other = null)
+    /// <summary>Whether the scenario with <paramref name="def"/> set to <paramref name="value"/> still meets every
+    /// model rule (the rules Monte Carlo draws are held to); reports the broken rule at <paramref name="node"/> when
+    /// not.</summary>
+    private bool Solvable(ModelInputs inputs, Parameters.Definition def, double value, YNode node, string path,
+        (Parameters.Definition Def, double Value)? other = null)
     {
         var trial = def.Set(inputs, value);
         if (other is { } o) trial = o.Def.Set(trial, o.Value);
         if (Parameters.Violation(trial) is not { } why) return true;
         string with = other is { } w ? $" and {w.Def.Name} at {Format(w.Def, w.Value)}" : "";
-        ctx.Report(node.At, path, $"with {def.Name} at {Format(def, value)}{with} the scenario breaks a model rule ({why})", BindContext.Show(node));
+        ctx.Report(node.At, path,
+            $"with {def.Name} at {Format(def, value)}{with} the scenario breaks a model rule " +
+            $"({why})", BindContext.Show(node));
         return false;
     }
 
@@ -61,18 +78,27 @@ public sealed partial class AnalysisBinder
             foreach (var (key, value) in r.Entries)
             {
                 string path = $"sensitivity.ranges.{key.Value}";
-                if (Parameter(key, path) is { } def && Pair(value, path, def, inputs) is { } pair) ranges.Add(new SensitivityRange(def.Name, pair.Low, pair.High));
+                if (Parameter(key, path) is { } def && Pair(value, path, def, inputs) is { } pair)
+                    ranges.Add(new SensitivityRange(def.Name, pair.Low, pair.High));
             }
         const string gf = "sensitivity.grids[]";
         if (ctx.Sequence(m, F("sensitivity.grids"), "sensitivity") is { } g)
             for (int i = 0; i < g.Items.Count; i++)
             {
                 string ip = $"sensitivity.grids[{i}]";
-                if (g.Items[i] is not YMapping item) { ctx.Report(g.Items[i].At, ip, "must be a mapping with x, x_range, y, y_range", g.Items[i].Kind); continue; }
+                if (g.Items[i] is not YMapping item)
+                {
+                    ctx.Report(g.Items[i].At, ip, "must be a mapping with x, x_range, y, y_range", g.Items[i].Kind);
+                    continue;
+                }
                 ctx.CheckFields(item, ip, F(gf));
                 var x = item["x"] as YScalar;
                 var y = item["y"] as YScalar;
-                if (x is null || y is null) { ctx.Report(item.At, ip, "needs x and y parameter names", null); continue; }
+                if (x is null || y is null)
+                {
+                    ctx.Report(item.At, ip, "needs x and y parameter names", null);
+                    continue;
+                }
                 var dx = Parameter(x, ip + ".x");
                 var dy = Parameter(y, ip + ".y");
                 double? steps = ctx.Number(item, F(gf + ".steps"), ip);
@@ -81,14 +107,22 @@ public sealed partial class AnalysisBinder
                 if (dx == dy) { ctx.Report(y.At, ip + ".y", "must differ from x", $"'{y.Value}'"); continue; }
                 var xr = item["x_range"] is { } xn ? Pair(xn, ip + ".x_range", dx, inputs) : null;
                 var yr = item["y_range"] is { } yn ? Pair(yn, ip + ".y_range", dy, inputs) : null;
-                if (xr is null || yr is null) { if (item["x_range"] is null || item["y_range"] is null) ctx.Report(item.At, ip, "needs x_range and y_range", null); continue; }
-                // Every rule is linear or monotone in each parameter, so the grid's four corners stand for all its points.
+                if (xr is null || yr is null)
+                {
+                    if (item["x_range"] is null || item["y_range"] is null)
+                        ctx.Report(item.At, ip, "needs x_range and y_range", null);
+                    continue;
+                }
+                // Every rule is linear or monotone in each parameter, so the grid's four corners stand for all its
+                // points.
                 bool cornersOk = true;
                 foreach (double xv in new[] { xr.Value.Low, xr.Value.High })
                     foreach (double yv in new[] { yr.Value.Low, yr.Value.High })
-                        if (cornersOk) cornersOk = Solvable(inputs, dx, xv, item["x_range"]!, ip + ".x_range", (dy, yv));
+                        if (cornersOk)
+                            cornersOk = Solvable(inputs, dx, xv, item["x_range"]!, ip + ".x_range", (dy, yv));
                 if (!cornersOk) continue;
-                grids.Add(new GridSpec(dx.Name, xr.Value.Low, xr.Value.High, dy.Name, yr.Value.Low, yr.Value.High, (int)steps.Value, output));
+                grids.Add(new GridSpec(dx.Name, xr.Value.Low, xr.Value.High, dy.Name, yr.Value.Low, yr.Value.High,
+                    (int)steps.Value, output));
             }
         return (ranges, grids);
     }
@@ -108,14 +142,19 @@ public sealed partial class AnalysisBinder
             {
                 string path = $"{p}.parameters.{key.Value}";
                 if (Parameter(key, path) is not { } def) continue;
-                if (value is not YMapping dm) { ctx.Report(value.At, path, "must be a mapping with a distribution and its parameters", value.Kind); continue; }
+                if (value is not YMapping dm)
+                {
+                    ctx.Report(value.At, path, "must be a mapping with a distribution and its parameters", value.Kind);
+                    continue;
+                }
                 if (BindDistribution(dm, path, def) is { } dist) parameters.Add(new UncertainParameter(def.Name, dist));
             }
         if (draws is null || seed is null || sobol is null) return null;
         if (parameters.Count == 0)
         {
             // Only when none was given: a parameter that failed to bind has already been reported where it was written.
-            if (m["parameters"] is not YMapping { Entries.Count: > 0 }) ctx.Report(m.At, p + ".parameters", "must give at least one parameter a distribution", null);
+            if (m["parameters"] is not YMapping { Entries.Count: > 0 })
+                ctx.Report(m.At, p + ".parameters", "must give at least one parameter a distribution", null);
             return null;
         }
         var spec = new MonteCarloSpec((int)draws, (ulong)seed, parameters, (int)sobol);
@@ -148,7 +187,8 @@ public sealed partial class AnalysisBinder
         }
         if (failed * 3 <= n) return true;
         ctx.Report(at.At, "uncertainty.parameters",
-            $"the distributions break a model rule too often: {failed} of the first {n} draws failed all {MonteCarlo.MaxAttemptsPerDraw} attempts (for example: {why}); narrow the distributions",
+            $"the distributions break a model rule too often: {failed} of the first {n} draws failed all " +
+            $"{MonteCarlo.MaxAttemptsPerDraw} attempts (for example: {why}); narrow the distributions",
             $"{failed} of {n}");
         return false;
     }
@@ -188,7 +228,9 @@ public sealed partial class AnalysisBinder
         if (accepted >= Sobol.MinRows(n)) return true;
         var node = at["sobol_samples"] ?? at["parameters"]!;
         ctx.Report(node.At, node == at["sobol_samples"] ? "uncertainty.sobol_samples" : "uncertainty.parameters",
-            $"the distributions break a model rule too often for the Sobol indices: only {accepted} of the first {n} base samples met every rule in all {d + 2} of their runs (at least {Sobol.MinRows(n)} must; for example: {why}); narrow the distributions, or set sobol_samples to 0",
+            $"the distributions break a model rule too often for the Sobol indices: only {accepted} of the first {n} " +
+            $"base samples met every rule in all {d + 2} of their runs (at least {Sobol.MinRows(n)} must; for " +
+            $"example: {why}); narrow the distributions, or set sobol_samples to 0",
             $"{accepted} of {n}");
         return false;
     }
@@ -218,21 +260,26 @@ public sealed partial class AnalysisBinder
                 double? mean = Value("mean"), sd = Value("sd");
                 double? lo = Value("low"), hi = Value("high");
                 if (mean is null || sd is null || lo is null || hi is null) return null;
-                if (!(hi > lo)) { ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!)); return null; }
+                if (!HighAboveLow(m, path, lo.Value, hi.Value)) return null;
                 return new TruncatedNormalDistribution(mean.Value, sd.Value, lo.Value, hi.Value);
             }
             case "uniform":
             {
                 double? lo = Value("low"), hi = Value("high");
                 if (lo is null || hi is null) return null;
-                if (!(hi > lo)) { ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!)); return null; }
+                if (!HighAboveLow(m, path, lo.Value, hi.Value)) return null;
                 return new UniformDistribution(lo.Value, hi.Value);
             }
             case "triangular":
             {
                 double? lo = Value("low"), mode = Value("mode"), hi = Value("high");
                 if (lo is null || mode is null || hi is null) return null;
-                if (!(lo <= mode && mode <= hi && hi > lo)) { ctx.Report(m["mode"]!.At, path + ".mode", "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!)); return null; }
+                if (!(lo <= mode && mode <= hi && hi > lo))
+                {
+                    ctx.Report(m["mode"]!.At, path + ".mode",
+                        "must satisfy low ≤ mode ≤ high with low < high", BindContext.Show(m["mode"]!));
+                    return null;
+                }
                 return new TriangularDistribution(lo.Value, mode.Value, hi.Value);
             }
             case "lognormal":
@@ -243,5 +290,13 @@ public sealed partial class AnalysisBinder
             default:
                 return null;
         }
+    }
+
+    /// <summary>Whether <paramref name="hi"/> is above <paramref name="lo"/>; reports it at high when not.</summary>
+    private bool HighAboveLow(YMapping m, string path, double lo, double hi)
+    {
+        if (hi > lo) return true;
+        ctx.Report(m["high"]!.At, path + ".high", "must be above low", BindContext.Show(m["high"]!));
+        return false;
     }
 }

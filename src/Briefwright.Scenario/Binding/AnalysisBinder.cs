@@ -26,10 +26,10 @@ public sealed partial class AnalysisBinder(BindContext ctx)
     private static ScenarioField F(string path, string? variant = null) => ScenarioFields.Get(path, variant);
 
     /// <summary>
-    /// The most simulated years one brief's uncertainty analysis may ask for: (draws + Sobol samples × (parameters + 2))
-    /// × horizon years. Each unit is one year of one simulated reform path, so this bounds the run's time and memory
-    /// whatever the combination of limits (at 150 years: 66,000 draws, or 2,000 draws and the default 2,560 Sobol samples of 9 parameters
-    /// with room to spare).
+    /// The most simulated years one brief's uncertainty analysis may ask for: (draws + Sobol samples × (parameters +
+    /// 2)) × horizon years. Each unit is one year of one simulated reform path, so this bounds the run's time and
+    /// memory whatever the combination of limits (at 150 years: 66,000 draws, or 2,000 draws and the default 2,560
+    /// Sobol samples of 9 parameters with room to spare).
     /// </summary>
     public const long MaxSimulatedYears = 10_000_000;
 
@@ -40,11 +40,18 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (years <= MaxSimulatedYears) return;
         var u = (YMapping)top["uncertainty"]!;
         var at = u["draws"] ?? u["sobol_samples"] ?? (YNode)u;
-        ctx.Report(at.At, "uncertainty", $"asks for {Numbers.Count(years)} simulated years ((draws + sobol_samples × (parameters + 2)) × reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × {reform.HorizonYears}); the limit for one brief is {Numbers.Count(MaxSimulatedYears)}; lower draws, sobol_samples or reform.horizon_years",
+        ctx.Report(at.At, "uncertainty",
+            $"asks for {Numbers.Count(years)} simulated years ((draws + sobol_samples × (parameters + 2)) × " +
+            $"reform.horizon_years = ({mc.Draws} + {mc.SobolSamples} × {mc.Parameters.Count + 2}) × " +
+            $"{reform.HorizonYears}); the limit for one brief is {Numbers.Count(MaxSimulatedYears)}; lower draws, " +
+            "sobol_samples or reform.horizon_years",
             Numbers.Count(years));
     }
 
-    /// <summary>Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a model rule.</summary>
+    /// <summary>
+    /// Monte Carlo draws tried when the scenario is checked, to catch distributions whose draws nearly all break a
+    /// model rule.
+    /// </summary>
     public const int PilotDraws = 500;
 
     /// <summary>In-sentence names of the appraisal rules, by schedule id (filled by <see cref="Bind"/>).</summary>
@@ -72,13 +79,17 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         // The headline option: the one the scenario names, else the first that differs from the baseline.
         var b = inputs.Baseline;
         var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId).ToList();
-        headline = (alternatives.FirstOrDefault(o => inputs.DemographyFor(o) != inputs.DemographyFor(b) || o.SchoolingYears != b.SchoolingYears) ?? alternatives[0]).Id;
+        headline = (alternatives.FirstOrDefault(o =>
+            inputs.DemographyFor(o) != inputs.DemographyFor(b) || o.SchoolingYears != b.SchoolingYears)
+            ?? alternatives[0]).Id;
         var m = ctx.Mapping(top, F("reform"), "");
         int defaultYear = brief.Date.Year + 1;
         if ((m is null || m["year"] is null) && !YearBounds.Contains(defaultYear))
         {
             var date = ((YMapping)top["brief"]!)["date"]!;
-            ctx.Report(date.At, "brief.date", $"the reform starts the year after the brief's date unless reform.year is given, and must start from {YearBounds.Min} to {YearBounds.Max}; give reform.year", BindContext.Show(date));
+            ctx.Report(date.At, "brief.date",
+                "the reform starts the year after the brief's date unless reform.year is given, and must start from " +
+                $"{YearBounds.Min} to {YearBounds.Max}; give reform.year", BindContext.Show(date));
             return null;
         }
         if (m is null) return new ReformSettings(defaultYear);
@@ -88,14 +99,20 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         double? phase = ctx.Number(m, F("reform.phase_in_cohorts"), p);
         double? horizon = ctx.Number(m, F("reform.horizon_years"), p);
         foreach (var (key, v) in new[] { ("year", year), ("phase_in_cohorts", phase), ("horizon_years", horizon) })
-            if (v is { } x && x != Math.Floor(x)) ctx.Report(m[key]!.At, $"{p}.{key}", "must be a whole number", BindContext.Show(m[key]!));
+            if (v is { } x && x != Math.Floor(x))
+                ctx.Report(m[key]!.At, $"{p}.{key}", "must be a whole number", BindContext.Show(m[key]!));
         if (ctx.Text(m, F("reform.headline_option"), p) is { } h)
         {
             if (inputs.Options.All(o => o.Id != h) || h == inputs.BaselineId)
-                ctx.Report(m["headline_option"]!.At, "reform.headline_option", $"must name an option other than the baseline ({string.Join(", ", inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => o.Id))})", $"'{h}'");
+                ctx.Report(m["headline_option"]!.At, "reform.headline_option",
+                    "must name an option other than the baseline " +
+                    $"({string.Join(", ", alternatives.Select(o => o.Id))})",
+                    $"'{h}'");
             else headline = h;
         }
-        return year is null || phase is null || horizon is null ? null : new ReformSettings((int)year, (int)phase, (int)horizon);
+        return year is null || phase is null || horizon is null
+            ? null
+            : new ReformSettings((int)year, (int)phase, (int)horizon);
     }
 
     /// <summary>
@@ -112,17 +129,22 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (year is not { } y) return null;
         if (y != Math.Floor(y))
         {
-            ctx.Report(m!["valuation_year"]!.At, "appraisal.valuation_year", "must be a whole number", BindContext.Show(m["valuation_year"]!));
+            ctx.Report(m!["valuation_year"]!.At, "appraisal.valuation_year", "must be a whole number",
+                BindContext.Show(m["valuation_year"]!));
             return null;
         }
         if (reform is not null && y > reform.Year)
         {
             if (m?["valuation_year"] is { } node)
-                ctx.Report(node.At, "appraisal.valuation_year", $"must not be after the reform year ({reform.Year})", BindContext.Show(node));
+                ctx.Report(node.At, "appraisal.valuation_year",
+                    $"must not be after the reform year ({reform.Year})", BindContext.Show(node));
             else if ((top["reform"] as YMapping)?["year"] is { } reformNode)
-                ctx.Report(reformNode.At, "reform.year", $"must not be before the valuation year ({defaultYear}, the brief's year); set appraisal.valuation_year to value an earlier reform", BindContext.Show(reformNode));
+                ctx.Report(reformNode.At, "reform.year",
+                    $"must not be before the valuation year ({defaultYear}, the brief's year); set " +
+                    "appraisal.valuation_year to value an earlier reform", BindContext.Show(reformNode));
             else
-                ctx.Report(top.At, "appraisal.valuation_year", $"must not be after the reform year ({reform.Year})", $"{defaultYear}");
+                ctx.Report(top.At, "appraisal.valuation_year",
+                    $"must not be after the reform year ({reform.Year})", $"{defaultYear}");
             return null;
         }
         return (int)y;
@@ -147,17 +169,21 @@ public sealed partial class AnalysisBinder(BindContext ctx)
                     result.Add(schedule);
                     break;
                 case YScalar s:
-                    ctx.Report(s.At, ip, $"must be one of {string.Join(", ", known.Keys)} or a mapping with id, label and rate or schedule{(Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "")}", $"'{s.Value}'");
+                    string hint = Suggestions.Closest(s.Value, known.Keys) is { } g ? $" (did you mean '{g}'?)" : "";
+                    ctx.Report(s.At, ip, $"must be one of {string.Join(", ", known.Keys)} or a mapping with id, " +
+                        $"label and rate or schedule{hint}", $"'{s.Value}'");
                     break;
                 case YMapping item:
                     if (BindSchedule(item, ip) is { } own) result.Add(own);
                     break;
                 default:
-                    ctx.Report(list.Items[i].At, ip, "must be a published schedule name or a mapping", list.Items[i].Kind);
+                    ctx.Report(list.Items[i].At, ip,
+                        "must be a published schedule name or a mapping", list.Items[i].Kind);
                     break;
             }
         }
-        if (result.Count < F("appraisal.discount_rates").MinItems) ctx.Report(list.At, "appraisal.discount_rates", "must list at least one discount rate", "an empty list");
+        if (result.Count < F("appraisal.discount_rates").MinItems)
+            ctx.Report(list.At, "appraisal.discount_rates", "must list at least one discount rate", "an empty list");
         return result;
     }
 
@@ -171,7 +197,9 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         if (item["rate"] is not null)
         {
             double? rate = ctx.Number(item, F(d + ".rate"), ip);
-            return id is null || label is null || rate is null ? null : DiscountSchedule.Constant(id, label, rate.Value);
+            return id is null || label is null || rate is null
+                ? null
+                : DiscountSchedule.Constant(id, label, rate.Value);
         }
         var steps = ctx.Sequence(item, F(d + ".schedule"), ip, required: true);
         if (steps is null) return null;
@@ -179,14 +207,23 @@ public sealed partial class AnalysisBinder(BindContext ctx)
         for (int j = 0; j < steps.Items.Count; j++)
         {
             string sp = $"{ip}.schedule[{j}]";
-            if (steps.Items[j] is not YMapping s) { ctx.Report(steps.Items[j].At, sp, "must be a mapping with from_year and rate", steps.Items[j].Kind); continue; }
+            if (steps.Items[j] is not YMapping s)
+            {
+                ctx.Report(steps.Items[j].At, sp, "must be a mapping with from_year and rate", steps.Items[j].Kind);
+                continue;
+            }
             const string step = d + ".schedule[]";
             ctx.CheckFields(s, sp, F(step));
             double? from = ctx.Number(s, F(step + ".from_year"), sp);
             double? rate = ctx.Number(s, F(step + ".rate"), sp);
             if (from is null || rate is null) continue;
-            if (j == 0 && from != 1) ctx.Report(s["from_year"]!.At, sp + ".from_year", "the first step must start at year 1", BindContext.Show(s["from_year"]!));
-            if (list.Count > 0 && from <= list[^1].FromYear) ctx.Report(s["from_year"]!.At, sp + ".from_year", $"steps must start at increasing years (previous step starts at {list[^1].FromYear})", BindContext.Show(s["from_year"]!));
+            if (j == 0 && from != 1)
+                ctx.Report(s["from_year"]!.At, sp + ".from_year",
+                    "the first step must start at year 1", BindContext.Show(s["from_year"]!));
+            if (list.Count > 0 && from <= list[^1].FromYear)
+                ctx.Report(s["from_year"]!.At, sp + ".from_year",
+                    $"steps must start at increasing years (previous step starts at {list[^1].FromYear})",
+                    BindContext.Show(s["from_year"]!));
             list.Add(new DiscountStep((int)from.Value, rate.Value));
         }
         return id is null || label is null || list.Count == 0 ? null : new DiscountSchedule(id, label, list);

@@ -20,7 +20,8 @@ public sealed class BindContext
     public IReadOnlyList<Assumption> Assumptions => assumptions;
     public IReadOnlyList<TextField> Texts => texts;
 
-    public void Report(SourceSpan at, string path, string rule, string? got) => problems.Add(new Diagnostic(at, path, rule, got));
+    public void Report(SourceSpan at, string path, string rule, string? got) =>
+        problems.Add(new Diagnostic(at, path, rule, got));
 
     public void Add(Assumption assumption) => assumptions.Add(assumption);
 
@@ -34,7 +35,8 @@ public sealed class BindContext
     };
 
     /// <summary>Text as a message quotes it: at most 80 characters, control characters written as escapes.</summary>
-    public static string Quote(string value) => value.Length > 80 ? $"'{Printable(value[..80])}…'" : $"'{Printable(value)}'";
+    public static string Quote(string value) =>
+        value.Length > 80 ? $"'{Printable(value[..80])}…'" : $"'{Printable(value)}'";
 
     /// <summary>Control characters (a newline in an id, say) as escapes, so a message stays on one line.</summary>
     public static string Printable(string value)
@@ -53,23 +55,30 @@ public sealed class BindContext
         return sb.ToString();
     }
 
-    /// <summary>Reports every key not in <paramref name="known"/>, with the closest known key as a suggestion.</summary>
+    /// <summary>
+    /// Reports every key not in <paramref name="known"/>, with the closest known key as a suggestion.
+    /// </summary>
     public void CheckKeys(YMapping map, string path, params string[] known)
     {
         foreach (var (key, _) in map.Entries)
         {
             if (known.Contains(key.Value)) continue;
             string? guess = Suggestions.Closest(key.Value, known);
-            string rule = guess is null ? $"unknown key (expected one of: {string.Join(", ", known)})" : $"unknown key (did you mean '{guess}'?)";
+            string rule = guess is null
+                ? $"unknown key (expected one of: {string.Join(", ", known)})"
+                : $"unknown key (did you mean '{guess}'?)";
             Report(key.At, Join(path, key.Value), rule, $"'{key.Value}'");
         }
     }
 
-    /// <summary>Reports every key that <paramref name="field"/>'s mapping (of <paramref name="variant"/>) may not hold.</summary>
+    /// <summary>
+    /// Reports every key that <paramref name="field"/>'s mapping (of <paramref name="variant"/>) may not hold.
+    /// </summary>
     public void CheckFields(YMapping map, string path, ScenarioField field, string? variant = null) =>
         CheckKeys(map, path, ScenarioFields.Keys(field.Path, variant));
 
-    public YMapping? Mapping(YMapping parent, ScenarioField field, string path) => Mapping(parent, field.Key, path, field.Required);
+    public YMapping? Mapping(YMapping parent, ScenarioField field, string path) =>
+        Mapping(parent, field.Key, path, field.Required);
 
     public YSequence? Sequence(YMapping parent, ScenarioField field, string path, bool? required = null) =>
         Sequence(parent, field.Key, path, required ?? field.Required);
@@ -87,10 +96,10 @@ public sealed class BindContext
     /// <paramref name="fallback"/> replaces a default that depends on other fields, <paramref name="unit"/> and
     /// <paramref name="bounds"/> the field's own for a value in a parameter's unit.
     /// </summary>
-    public double? Number(YMapping parent, ScenarioField field, string path, double? fallback = null, string? fallbackSource = null,
-        ValueUnit? unit = null, Bounds? bounds = null) =>
-        Number(parent, field.Key, path, unit ?? field.Unit, bounds ?? field.Bounds, field.Assumption ? field.Label : null,
-            fallback ?? field.Default, fallbackSource);
+    public double? Number(YMapping parent, ScenarioField field, string path, double? fallback = null,
+        string? fallbackSource = null, ValueUnit? unit = null, Bounds? bounds = null) =>
+        Number(parent, field.Key, path, unit ?? field.Unit, bounds ?? field.Bounds,
+            field.Assumption ? field.Label : null, fallback ?? field.Default, fallbackSource);
 
     public YMapping? Mapping(YMapping parent, string key, string path, bool required)
     {
@@ -141,7 +150,10 @@ public sealed class BindContext
         }
         if (RightToLeftAt(s.Value) is int rtl)
         {
-            Report(s.At, p, "uses a right-to-left script, which briefs cannot be written in yet (the layout writes left to right only)", $"{Quote(s.Value)} (U+{rtl:X4} at character {s.Value.IndexOf(char.ConvertFromUtf32(rtl), StringComparison.Ordinal) + 1})");
+            int character = s.Value.IndexOf(char.ConvertFromUtf32(rtl), StringComparison.Ordinal) + 1;
+            Report(s.At, p,
+                "uses a right-to-left script, which briefs cannot be written in yet (the layout writes left to " +
+                "right only)", $"{Quote(s.Value)} (U+{rtl:X4} at character {character})");
             return null;
         }
         texts.Add(new TextField(p, s.At, s.Value));
@@ -160,7 +172,8 @@ public sealed class BindContext
         string? value = Text(parent, key, path, required);
         if (value is null || allowed.Contains(value)) return value;
         string? guess = Suggestions.Closest(value, allowed);
-        string rule = $"must be one of {string.Join(", ", allowed)}" + (guess is null ? "" : $" (did you mean '{guess}'?)");
+        string rule = $"must be one of {string.Join(", ", allowed)}"
+            + (guess is null ? "" : $" (did you mean '{guess}'?)");
         Report(parent[key]!.At, Join(path, key), rule, $"'{value}'");
         return null;
     }
@@ -178,7 +191,8 @@ public sealed class BindContext
     /// A number in <paramref name="bounds"/>. Rates accept a percent sign (2% = 0.02). Adds an assumptions row
     /// when <paramref name="label"/> is given.
     /// </summary>
-    public double? Number(YMapping parent, string key, string path, ValueUnit unit, Bounds bounds, string? label = null, double? fallback = null, string? fallbackSource = null)
+    public double? Number(YMapping parent, string key, string path, ValueUnit unit, Bounds bounds, string? label = null,
+        double? fallback = null, string? fallbackSource = null)
     {
         var node = parent[key];
         string p = Join(path, key);
@@ -203,7 +217,9 @@ public sealed class BindContext
                 Report(node?.At ?? parent.At, p, "required field is missing", null);
                 return null;
             }
-            if (label is not null) assumptions.Add(new Assumption(Join(path, key), label, fallback, null, unit, fallbackSource ?? "default", null));
+            if (label is not null)
+                assumptions.Add(new Assumption(Join(path, key), label, fallback, null, unit,
+                    fallbackSource ?? "default", null));
             return fallback;
         }
         if (node is not YScalar s)
@@ -227,7 +243,8 @@ public sealed class BindContext
         string text = s.Value.Trim();
         if (text.Length > MaxNumberLength)
         {
-            Report(s.At, path, $"must be a number of at most {MaxNumberLength} characters", $"{text.Length} characters");
+            Report(s.At, path, $"must be a number of at most {MaxNumberLength} characters",
+                $"{text.Length} characters");
             return null;
         }
         bool percent = text.EndsWith('%');
@@ -242,7 +259,8 @@ public sealed class BindContext
         }
         if (!double.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out double v) || s.Quoted)
         {
-            Report(s.At, path, unit == ValueUnit.Rate ? "must be a number or a percentage" : "must be a number", Show(s));
+            Report(s.At, path, unit == ValueUnit.Rate ? "must be a number or a percentage" : "must be a number",
+                Show(s));
             return null;
         }
         if (!double.IsFinite(v))
@@ -258,7 +276,8 @@ public sealed class BindContext
     /// 0.009000000000000001): the decimal point is moved in decimal arithmetic and the result parsed once.
     /// </summary>
     private static double FromPercent(string text, double parsed) =>
-        decimal.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out decimal d) && (d != 0 || parsed == 0)
+        decimal.TryParse(text, NumberStyles.Float, CultureInfo.InvariantCulture, out decimal d)
+            && (d != 0 || parsed == 0)
             ? double.Parse((d / 100m).ToString(CultureInfo.InvariantCulture), CultureInfo.InvariantCulture)
             : parsed / 100.0;
 }

@@ -33,7 +33,8 @@ public static class CrossFieldRules
             double retire = o.RetirementAge ?? d.RetirementAge;
             if (d.EntryAge + o.SchoolingYears >= retire)
                 ctx.Report(item["schooling_years"]!.At, $"options[{i}].schooling_years",
-                    $"school-entry age plus schooling must be below the retirement age ({F(d.EntryAge)} + {F(o.SchoolingYears)} = {F(d.EntryAge + o.SchoolingYears)}, retirement at {F(retire)})",
+                    $"school-entry age plus schooling must be below the retirement age ({F(d.EntryAge)} + " +
+                    $"{F(o.SchoolingYears)} = {F(d.EntryAge + o.SchoolingYears)}, retirement at {F(retire)})",
                     F(o.SchoolingYears));
             if (o.RetirementAge is { } r && r > maxAge)
                 ctx.Report(item["retirement_age"]!.At, $"options[{i}].retirement_age",
@@ -45,7 +46,10 @@ public static class CrossFieldRules
         {
             var production = (YMapping)top["production"]!;
             ctx.Report(production["depreciation"]!.At, "production.depreciation",
-                $"population growth + technology growth + depreciation must be at least {Pct(ModelLimits.MinEffectiveDepreciation)}, or the model's results are not finite ({Pct(d.GrowthRate)} + {Pct(inputs.Production.TechnologyGrowth)} + {Pct(inputs.Production.Depreciation)} = {Pct(effective)})",
+                "population growth + technology growth + depreciation must be at least " +
+                $"{Pct(ModelLimits.MinEffectiveDepreciation)}, or the model's results are not finite " +
+                $"({Pct(d.GrowthRate)} + {Pct(inputs.Production.TechnologyGrowth)} + " +
+                $"{Pct(inputs.Production.Depreciation)} = {Pct(effective)})",
                 Pct(inputs.Production.Depreciation));
         }
 
@@ -58,7 +62,9 @@ public static class CrossFieldRules
             if (alive >= ModelLimits.MinSurvivorsAtWork) continue;
             var at = survival["file"] ?? survival["max_age"] ?? (YNode)survival;
             ctx.Report(at.At, "demography.survival",
-                $"the survival curve must leave workers: almost nobody is alive at {F(d.EntryAge + o.SchoolingYears)}, when schooling ends under options[{i}] ({o.Id}); at least {ModelLimits.MinSurvivorsAtWork:0.######} of a cohort must be",
+                "the survival curve must leave workers: almost nobody is alive at " +
+                $"{F(d.EntryAge + o.SchoolingYears)}, when schooling ends under options[{i}] ({o.Id}); at least " +
+                $"{ModelLimits.MinSurvivorsAtWork:0.######} of a cohort must be",
                 Numbers.Plain(alive, 8));
             break;
         }

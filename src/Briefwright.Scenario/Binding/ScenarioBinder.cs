@@ -7,7 +7,9 @@ using Briefwright.Scenario.Yaml;
 namespace Briefwright.Scenario.Binding;
 
 /// <summary>Turns the merged YAML tree of a scenario into validated model inputs, reporting every problem.</summary>
-public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceSpan, string, TabulatedSurvival?> loadLifeTable)
+public sealed partial class ScenarioBinder(
+    BindContext ctx,
+    Func<string, SourceSpan, string, TabulatedSurvival?> loadLifeTable)
 {
     public static readonly string[] TopLevelKeys = ScenarioFields.Keys("");
 
@@ -23,7 +25,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
     {
         if (root is not YMapping top)
         {
-            ctx.Report(root.At, "", "a scenario must be a mapping with the sections brief, demography, human_capital, production and options", root.Kind);
+            ctx.Report(root.At, "", "a scenario must be a mapping with the sections brief, demography, " +
+                "human_capital, production and options", root.Kind);
             return null;
         }
         ctx.CheckKeys(top, "", TopLevelKeys);
@@ -32,13 +35,15 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         var humanCapital = BindHumanCapital(top);
         var production = BindProduction(top);
         var options = BindOptions(top, out string? baselineId, out var optionNames);
-        if (brief is null || demography is null || humanCapital is null || production is null || options is null || baselineId is null || ctx.Problems.Count > 0)
+        if (brief is null || demography is null || humanCapital is null || production is null || options is null
+            || baselineId is null || ctx.Problems.Count > 0)
             return null;
         var inputs = new ModelInputs(demography, humanCapital, production, options, baselineId);
         CrossFieldRules.Check(top, inputs, ctx);
         var analysisBinder = new AnalysisBinder(ctx);
         var analysis = analysisBinder.Bind(top, inputs, brief);
-        return ctx.Problems.Count > 0 || analysis is null ? null : new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
+        if (ctx.Problems.Count > 0 || analysis is null) return null;
+        return new ScenarioDocument(brief, inputs, ctx.Assumptions, files)
         {
             Analysis = analysis, OptionNames = optionNames!, RuleNames = analysisBinder.RuleNames, Texts = ctx.Texts,
         };
@@ -53,7 +58,9 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         string? id = ctx.Text(m, F("brief.id"), p);
         if (id is not null && !IdPattern().IsMatch(id))
         {
-            ctx.Report(m["id"]!.At, "brief.id", "must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit (it names the output files)", BindContext.Quote(id));
+            ctx.Report(m["id"]!.At, "brief.id",
+                "must be 1–64 lower-case letters, digits, '-' or '_', starting with a letter or digit " +
+                "(it names the output files)", BindContext.Quote(id));
             id = null;
         }
         string? title = ctx.Text(m, F("brief.title"), p);
@@ -64,7 +71,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         DateOnly? date = null;
         if (dateText is not null)
         {
-            if (DateOnly.TryParseExact(dateText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)) date = d;
+            if (DateOnly.TryParseExact(dateText, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None,
+                out var d)) date = d;
             else ctx.Report(m["date"]!.At, "brief.date", "must be a date written YYYY-MM-DD", $"'{dateText}'");
         }
         string status = ctx.Choice(m, F("brief.status"), p) ?? F("brief.status").DefaultText!;
@@ -78,16 +86,20 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         string? language = ctx.Text(m, F("brief.language"), p);
         if (language is not null && !LanguageTagPattern().IsMatch(language))
         {
-            ctx.Report(m["language"]!.At, "brief.language", "must be a language tag such as en-GB, fr-FR, es-ES or de-DE", BindContext.Quote(language));
+            ctx.Report(m["language"]!.At, "brief.language",
+                "must be a language tag such as en-GB, fr-FR, es-ES or de-DE", BindContext.Quote(language));
             language = null;
         }
         else if (language is not null && LanguageTag.RightToLeft.Contains(language.Split('-')[0]))
         {
-            ctx.Report(m["language"]!.At, "brief.language", "is a right-to-left language, which briefs cannot be written in yet (the layout writes left to right only); use en, fr, es or de", BindContext.Quote(language));
+            ctx.Report(m["language"]!.At, "brief.language",
+                "is a right-to-left language, which briefs cannot be written in yet (the layout writes left to right " +
+                "only); use en, fr, es or de", BindContext.Quote(language));
             language = null;
         }
         if (id is null || title is null || organisation is null || date is null || edition is null) return null;
-        return new BriefInfo(id, title, shortTitle ?? title, organisation, author, date.Value, status, (int)edition.Value, question, language ?? LanguageTag.Default);
+        return new BriefInfo(id, title, shortTitle ?? title, organisation, author, date.Value, status,
+            (int)edition.Value, question, language ?? LanguageTag.Default);
     }
 
     private Demography? BindDemography(YMapping top)
@@ -125,7 +137,9 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
                 double? b = ctx.Number(m, F(p + ".b"), p);
                 double? c = ctx.Number(m, F(p + ".c"), p);
                 double? max = ctx.Number(m, F(p + ".max_age", form), p);
-                return a is null || b is null || c is null || max is null ? null : new GompertzMakehamSurvival(a.Value, b.Value, c.Value, max.Value);
+                return a is null || b is null || c is null || max is null
+                    ? null
+                    : new GompertzMakehamSurvival(a.Value, b.Value, c.Value, max.Value);
             }
             case "life_table":
             {
@@ -134,7 +148,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
                 if (file is null) return null;
                 var table = loadLifeTable(file, m["file"]!.At, fileField.Path);
                 if (table is not null)
-                    ctx.Add(new Assumption(fileField.Path, fileField.Label, null, $"{file} (ages 0–{table.MaxAge:0})", fileField.Unit,
+                    ctx.Add(new Assumption(fileField.Path, fileField.Label, null,
+                        $"{file} (ages 0–{table.MaxAge:0})", fileField.Unit,
                         ctx.Text(m, F(p + ".source"), p), ctx.Text(m, F(p + ".note"), p)));
                 return table;
             }
@@ -169,7 +184,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
     }
 
     private static Assumption HallJonesAssumption(string path) =>
-        new(path, ScenarioFields.Get("human_capital.returns").Label, null, "13.4% a year for years 0–4, 10.1% for 4–8, 6.8% beyond", ValueUnit.Text,
+        new(path, ScenarioFields.Get("human_capital.returns").Label, null,
+            "13.4% a year for years 0–4, 10.1% for 4–8, 6.8% beyond", ValueUnit.Text,
             "Hall & Jones (1999), after Psacharopoulos (1994) (default)", null);
 
     private ReturnSchedule? BindReturns(YMapping hc, string parent)
@@ -223,7 +239,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             string ip = $"{p}[{i}]";
             if (list.Items[i] is not YMapping bracket)
             {
-                ctx.Report(list.Items[i].At, ip, "each bracket must be a mapping with from and rate", list.Items[i].Kind);
+                ctx.Report(list.Items[i].At, ip,
+                    "each bracket must be a mapping with from and rate", list.Items[i].Kind);
                 ok = false;
                 continue;
             }
@@ -233,19 +250,24 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
             if (from is null || rate is null) { ok = false; continue; }
             if (i == 0 && from != 0)
             {
-                ctx.Report(bracket["from"]!.At, ip + ".from", "the first bracket must start at year 0", BindContext.Show(bracket["from"]!));
+                ctx.Report(bracket["from"]!.At, ip + ".from",
+                    "the first bracket must start at year 0", BindContext.Show(bracket["from"]!));
                 ok = false;
             }
             if (brackets.Count > 0 && from <= brackets[^1].FromYear)
             {
-                ctx.Report(bracket["from"]!.At, ip + ".from", $"brackets must start at increasing years (previous bracket starts at {brackets[^1].FromYear.ToString(CultureInfo.InvariantCulture)})", BindContext.Show(bracket["from"]!));
+                ctx.Report(bracket["from"]!.At, ip + ".from",
+                    "brackets must start at increasing years (previous bracket starts at " +
+                    $"{brackets[^1].FromYear.ToString(CultureInfo.InvariantCulture)})",
+                    BindContext.Show(bracket["from"]!));
                 ok = false;
             }
             brackets.Add(new ReturnBracket(from.Value, rate.Value));
         }
         if (!ok) return null;
         string text = string.Join("; ", brackets.Select((b, i) =>
-            $"{Numbers.Percent(b.Rate, minDecimals: 1)} from year {b.FromYear.ToString(CultureInfo.InvariantCulture)}"));
+            $"{Numbers.Percent(b.Rate, minDecimals: 1)} from year " +
+            $"{b.FromYear.ToString(CultureInfo.InvariantCulture)}"));
         ctx.Add(new Assumption(p, F(parent).Label, null, text, ValueUnit.Text,
             ctx.Text(returns, F(parent + ".source"), parent), ctx.Text(returns, F(parent + ".note"), parent)));
         return new BracketReturns(brackets);
@@ -265,7 +287,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         return new Production(s.Value, alpha.Value, delta.Value, g.Value);
     }
 
-    private IReadOnlyList<PolicyOption>? BindOptions(YMapping top, out string? baselineId, out Dictionary<string, string>? names)
+    private IReadOnlyList<PolicyOption>? BindOptions(YMapping top, out string? baselineId,
+        out Dictionary<string, string>? names)
     {
         baselineId = null;
         names = null;
@@ -273,7 +296,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         if (list is null) return null;
         if (list.Items.Count < F("options").MinItems)
         {
-            ctx.Report(list.At, "options", "must list a baseline and at least one alternative", $"{list.Items.Count} option(s)");
+            ctx.Report(list.At, "options",
+                "must list a baseline and at least one alternative", $"{list.Items.Count} option(s)");
             return null;
         }
         var options = new List<PolicyOption>();
@@ -294,7 +318,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         }
         if (baselines.Count > 1)
         {
-            ctx.Report(list.At, "options", "exactly one option may be marked baseline: true", string.Join(", ", baselines));
+            ctx.Report(list.At, "options",
+                "exactly one option may be marked baseline: true", string.Join(", ", baselines));
             ok = false;
         }
         if (!ok) return null;
@@ -305,7 +330,8 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
 
     /// <summary>One option (its id checked against <paramref name="ids"/>, the ids seen before it); null when it has a
     /// problem, which is reported.</summary>
-    private (PolicyOption Option, string? InSentence, bool IsBaseline)? BindOption(YNode node, int i, Dictionary<string, int> ids)
+    private (PolicyOption Option, string? InSentence, bool IsBaseline)? BindOption(YNode node, int i,
+        Dictionary<string, int> ids)
     {
         string ip = $"options[{i}]";
         if (node is not YMapping item)
@@ -318,12 +344,14 @@ public sealed partial class ScenarioBinder(BindContext ctx, Func<string, SourceS
         string? id = ctx.Text(item, F(o + ".id"), ip);
         if (id is not null && !IdPattern().IsMatch(id))
         {
-            ctx.Report(item["id"]!.At, ip + ".id", "must be 1–64 lower-case letters, digits, '-' or '_'", BindContext.Quote(id));
+            ctx.Report(item["id"]!.At, ip + ".id",
+                "must be 1–64 lower-case letters, digits, '-' or '_'", BindContext.Quote(id));
             id = null;
         }
         if (id is not null && ids.TryGetValue(id, out int first))
         {
-            ctx.Report(item["id"]!.At, ip + ".id", $"option ids must be unique (also used by options[{first}])", $"'{id}'");
+            ctx.Report(item["id"]!.At, ip + ".id",
+                $"option ids must be unique (also used by options[{first}])", $"'{id}'");
             id = null;
         }
         if (id is not null) ids[id] = i;

@@ -13,7 +13,8 @@ public sealed record YScalar(string Value, bool Quoted, SourceSpan At) : YNode(A
     public override string Kind => "a scalar";
 
     /// <summary>A plain (unquoted) null, ~ or empty value.</summary>
-    public bool IsNull => !Quoted && (Value.Length == 0 || Value == "~" || Value == "null" || Value == "Null" || Value == "NULL");
+    public bool IsNull =>
+        !Quoted && (Value.Length == 0 || Value == "~" || Value == "null" || Value == "Null" || Value == "NULL");
 }
 
 public sealed record YSequence(IReadOnlyList<YNode> Items, SourceSpan At) : YNode(At)

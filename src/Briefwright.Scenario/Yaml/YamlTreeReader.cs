@@ -16,18 +16,25 @@ public static class YamlTreeReader
     public const int MaxDepth = 32;
     public const int MaxAliases = 256;
 
-    /// <summary>Reads <paramref name="text"/>; <paramref name="what"/> ("scenario", "theme") names the kind of file in messages.</summary>
-    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(string file, string text, string what = "scenario")
+    /// <summary>
+    /// Reads <paramref name="text"/>; <paramref name="what"/> ("scenario", "theme") names the kind of file in messages.
+    /// </summary>
+    public static (YNode? Root, IReadOnlyList<Diagnostic> Problems) Read(string file, string text,
+        string what = "scenario")
     {
         var problems = new List<Diagnostic>();
         var start = new SourceSpan(file, 1, 1);
         long bytes = System.Text.Encoding.UTF8.GetByteCount(text);
         if (bytes > MaxBytes)
-            return (null, new[] { new Diagnostic(start, "", $"file is larger than the limit for a {what} of 1 MiB ({Numbers.Count(MaxBytes)} bytes)", $"{Numbers.Count(bytes)} bytes") });
+            return (null, new[] { new Diagnostic(start, "",
+                $"file is larger than the limit for a {what} of 1 MiB ({Numbers.Count(MaxBytes)} bytes)",
+                $"{Numbers.Count(bytes)} bytes") });
         if (text.Contains('\0'))
             return (null, new[] { new Diagnostic(start, "", "file is binary, not YAML text", "a NUL byte") });
         if (string.IsNullOrWhiteSpace(StripComments(text)))
-            return (null, new[] { new Diagnostic(start, "", what == "scenario" ? "file is empty; a scenario needs at least the brief, demography and options sections" : $"file is empty; a {what} needs at least a name", "nothing") });
+            return (null, new[] { new Diagnostic(start, "", what == "scenario"
+                ? "file is empty; a scenario needs at least the brief, demography and options sections"
+                : $"file is empty; a {what} needs at least a name", "nothing") });
 
         var state = new State(file, new Parser(new StringReader(text)), problems);
         try
@@ -37,7 +44,8 @@ public static class YamlTreeReader
             var root = state.ReadNode(0, "");
             state.Expect<DocumentEnd>();
             if (state.Parser.Current is DocumentStart ds)
-                problems.Add(new Diagnostic(state.Span(ds.Start), "", "file holds more than one YAML document; put one scenario per file", "a second '---'"));
+                problems.Add(new Diagnostic(state.Span(ds.Start), "",
+                    "file holds more than one YAML document; put one scenario per file", "a second '---'"));
             return (problems.Count == 0 ? root : null, problems);
         }
         catch (YamlException ex)
@@ -56,7 +64,8 @@ public static class YamlTreeReader
         catch (InvalidOperationException)
         {
             // YamlDotNet's parser gives up this way when the text ends inside an open flow list or mapping.
-            problems.Add(new Diagnostic(state.LastSpan, "", "YAML syntax error: the file ends before a list or mapping opened here is closed", null));
+            problems.Add(new Diagnostic(state.LastSpan, "",
+                "YAML syntax error: the file ends before a list or mapping opened here is closed", null));
             return (null, problems);
         }
     }
@@ -84,7 +93,8 @@ public static class YamlTreeReader
         public void Expect<T>() where T : ParsingEvent
         {
             if (parser.Current is null) parser.MoveNext();
-            if (parser.Current is not T) throw new YamlException(parser.Current!.Start, parser.Current.End, $"expected {typeof(T).Name}");
+            if (parser.Current is not T)
+                throw new YamlException(parser.Current!.Start, parser.Current.End, $"expected {typeof(T).Name}");
             parser.MoveNext();
         }
 
@@ -93,7 +103,8 @@ public static class YamlTreeReader
             var ev = parser.Current ?? throw new InvalidOperationException("The text ended early.");
             if (ev is MappingStart or SequenceStart) LastSpan = Span(ev.Start);
             if (depth > MaxDepth)
-                throw new LimitException(new Diagnostic(Span(ev.Start), "", $"nesting is deeper than the limit of {MaxDepth} levels", $"more than {MaxDepth}"));
+                throw new LimitException(new Diagnostic(Span(ev.Start), "",
+                    $"nesting is deeper than the limit of {MaxDepth} levels", $"more than {MaxDepth}"));
             parser.MoveNext();
             switch (ev)
             {
@@ -101,9 +112,11 @@ public static class YamlTreeReader
                     return ReadScalar(s, path);
                 case AnchorAlias a:
                     if (++aliases > MaxAliases)
-                        throw new LimitException(new Diagnostic(Span(a.Start), "", $"more than {MaxAliases} aliases", $"*{a.Value}"));
+                        throw new LimitException(new Diagnostic(Span(a.Start), "",
+                            $"more than {MaxAliases} aliases", $"*{a.Value}"));
                     if (anchors.TryGetValue(a.Value.Value, out var target)) return target;
-                    throw new LimitException(new Diagnostic(Span(a.Start), "", "alias refers to an anchor that is not defined before it", $"*{a.Value}"));
+                    throw new LimitException(new Diagnostic(Span(a.Start), "",
+                        "alias refers to an anchor that is not defined before it", $"*{a.Value}"));
                 case SequenceStart ss:
                     return ReadSequence(ss, depth, path);
                 case MappingStart ms:
@@ -183,11 +196,15 @@ public static class YamlTreeReader
         private void CheckTag(TagName tag, string allowed, Mark at, string path)
         {
             if (tag.IsEmpty || tag.Value is "?" or "!" || tag.Value == allowed) return;
-            problems.Add(new Diagnostic(Span(at), path, "unsupported YAML tag on a list or mapping", $"'{BindingText(tag.Value)}'"));
+            problems.Add(new Diagnostic(Span(at), path,
+                "unsupported YAML tag on a list or mapping", $"'{BindingText(tag.Value)}'"));
         }
 
         private static string BindingText(string tag) =>
-            Briefwright.Scenario.Binding.BindContext.Printable(tag.StartsWith("tag:yaml.org,2002:", StringComparison.Ordinal) ? "!!" + tag["tag:yaml.org,2002:".Length..] : tag);
+            Briefwright.Scenario.Binding.BindContext.Printable(
+                tag.StartsWith("tag:yaml.org,2002:", StringComparison.Ordinal)
+                    ? "!!" + tag["tag:yaml.org,2002:".Length..]
+                    : tag);
 
         private YNode Remember(AnchorName anchor, YNode node)
         {
