@@ -42,9 +42,9 @@ public static class BriefBuilder
         var drawing = ChartDrawingFor(scenario, fonts);
         var specs = ChartSpecs(solved, drawing, options.Theme.ChartColours);
         var figureRefs = specs.Select(c => new FigureRef(c.Id, c.Caption)).ToList();
-        // The results data and the filled template need the charts' ids and captions, not their drawings; the data annex
-        // needs the drawn charts, not the brief. The caller's runner decides where they are made (in order here, or on
-        // spare cores while the charts and the brief are laid out).
+        // The results data and the filled template need the charts' ids and captions, not their drawings; the data
+        // annex needs the drawn charts, not the brief. The caller's runner decides where they are made (in order here,
+        // or on spare cores while the charts and the brief are laid out).
         var runner = options.Runner;
         var text = runner.Start(() =>
         {
@@ -117,7 +117,9 @@ public static class BriefBuilder
     public static string FileStem(string id, DateOnly date, int edition) =>
         $"{id}-{date:yyyy-MM-dd}" + (edition > 1 ? $"-edition-{edition.ToString(System.Globalization.CultureInfo.InvariantCulture)}" : "");
 
-    /// <summary>Whether an assumption as shown or a headline result differs from a previous edition's results data.</summary>
+    /// <summary>
+    /// Whether an assumption as shown or a headline result differs from a previous edition's results data.
+    /// </summary>
     public static bool ResultsDiffer(SolvedScenario solved, string previousJson) =>
         EditionSnapshot.Compare(EditionSnapshot.FromJson(previousJson),
             EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(solved)))).Any;

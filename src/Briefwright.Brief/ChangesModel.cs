@@ -45,7 +45,8 @@ public sealed class ChangesModel(BriefLanguage language) : TemplateFunctions(lan
 
     /// <summary>
     /// The reasons for a new edition that the tables do not show, in words: a changed template, other content of the
-    /// scenario (its title, question, options' wording or notes), the edition <c>brief.edition</c> asks for, a new tool.
+    /// scenario (its title, question, options' wording or notes), the edition <c>brief.edition</c> asks for, a new
+    /// tool.
     /// </summary>
     public IReadOnlyList<string> Causes(EditionChanges changes, bool tables)
     {

@@ -102,7 +102,9 @@ public static class GlyphCheck
         throw new BriefTextException(problems);
     }
 
-    /// <summary>Every character the brief's charts may draw that comes from the scenario's labels or the language's chart words.</summary>
+    /// <summary>
+    /// Every character the brief's charts may draw that comes from the scenario's labels or the language's chart words.
+    /// </summary>
     public static IEnumerable<int> ChartCharacters(ScenarioDocument scenario, BriefLanguage language)
     {
         // Charts show the scenario's labels (options, appraisal rules); titles, sources and notes never reach them.
@@ -118,7 +120,9 @@ public static class GlyphCheck
 
     private static string BindQuote(string value) => Scenario.Binding.BindContext.Quote(value);
 
-    /// <summary>The template's text that reaches the brief: everything outside <c>{{ }}</c>, and quoted strings inside.</summary>
+    /// <summary>
+    /// The template's text that reaches the brief: everything outside <c>{{ }}</c>, and quoted strings inside.
+    /// </summary>
     private static IEnumerable<(string Text, int Line, int Column)> TemplateTexts(string template)
     {
         int line = 1, column = 1, startLine = 1, startColumn = 1;

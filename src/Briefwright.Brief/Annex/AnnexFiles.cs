@@ -58,7 +58,10 @@ public static class AnnexFiles
         "probability_positive_fraction", "probability_low_fraction", "probability_high_fraction", "positive_draws", "draws",
     };
 
-    /// <summary>One result's percentiles in <paramref name="unit"/>, their 95% intervals, and the probability that it is positive (fractions) with its 95% Wilson interval.</summary>
+    /// <summary>
+    /// One result's percentiles in <paramref name="unit"/>, their 95% intervals, and the probability that it is
+    /// positive (fractions) with its 95% Wilson interval.
+    /// </summary>
     private static IReadOnlyList<object?> MonteCarloRow(string result, string unit, string optionId, PercentileSummary s, Probability? p) => new object?[]
     {
         result, unit, optionId, s.P5, s.P25, s.P50, s.P75, s.P95, s.Mean, s.MeanStandardError,

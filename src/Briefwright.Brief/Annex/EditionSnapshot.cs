@@ -10,8 +10,10 @@ public sealed record ChangedValue(string Key, string Label, string Old, string N
 /// <summary>What changed between two editions (or two scenarios): assumptions and headline results.</summary>
 public sealed record EditionChanges(int PreviousEdition, string PreviousDate, IReadOnlyList<ChangedValue> Assumptions, IReadOnlyList<ChangedValue> Results)
 {
-    /// <summary>Why this is a new edition beyond the rows above, by input name (<c>EditionInput</c>): <c>content</c>, <c>template</c>,
-    /// <c>brief.edition</c>, <c>results</c>... Set by the build; empty from <c>diff</c>.</summary>
+    /// <summary>
+    /// Why this is a new edition beyond the rows above, by input name (<c>EditionInput</c>): <c>content</c>,
+    /// <c>template</c>, <c>brief.edition</c>, <c>results</c>... Set by the build; empty from <c>diff</c>.
+    /// </summary>
     public IReadOnlyList<string> Causes { get; init; } = [];
 
     /// <summary>The edition this one is (for the words on <c>brief.edition</c>).</summary>

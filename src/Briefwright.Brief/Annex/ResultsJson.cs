@@ -9,7 +9,10 @@ using Briefwright.Templating;
 
 namespace Briefwright.Brief.Annex;
 
-/// <summary>The results data written beside a brief and printed by <c>solve --json</c>. Field names are documented in docs/results-json.md.</summary>
+/// <summary>
+/// The results data written beside a brief and printed by <c>solve --json</c>. Field names are documented in
+/// docs/results-json.md.
+/// </summary>
 public sealed record ResultsDocument(
     string ScenarioId,
     string Title,

@@ -4,7 +4,9 @@ using Briefwright.Templating;
 
 namespace Briefwright.Brief.ChartSet;
 
-/// <summary>Output per person against years of schooling on the balanced growth path, with the options and E*.</summary>
+/// <summary>
+/// Output per person against years of schooling on the balanced growth path, with the options and E*.
+/// </summary>
 public sealed class OutputCurveFigure : IChartDefinition
 {
     public IEnumerable<ChartSpec> Build(ChartContext c)
@@ -16,7 +18,9 @@ public sealed class OutputCurveFigure : IChartDefinition
             AltText(results, w), c.Source);
     }
 
-    /// <summary>The output curve described from its computed shape: its trend, where it is highest, and where the options sit.</summary>
+    /// <summary>
+    /// The output curve described from its computed shape: its trend, where it is highest, and where the options sit.
+    /// </summary>
     public static string AltText(BalancedGrowthResults results, ChartTexts w)
     {
         var opt = results.Optimum;

@@ -137,7 +137,8 @@ public sealed class DocxWriter : IBriefWriter
         }
 
         /// <summary>"Table 3. caption" with the number as a sequence field, so a word processor renumbers it.</summary>
-        /// <remarks>The words around the number are the brief's label (<paramref name="label"/>, "Figure {0}." in English).</remarks>
+        /// <remarks>The words around the number are the brief's label (<paramref name="label"/>, "Figure {0}." in
+        /// English).</remarks>
         private static string Caption(string kind, string label, int number, string caption)
         {
             int at = label.IndexOf("{0}", StringComparison.Ordinal);
@@ -246,7 +247,9 @@ public sealed class DocxWriter : IBriefWriter
 
     private static string Hex(Rgb c) => $"{c.R:X2}{c.G:X2}{c.B:X2}";
 
-    /// <summary>The theme as styles: font and colours, the brief's type sizes (half-points), headings with outline levels.</summary>
+    /// <summary>
+    /// The theme as styles: font and colours, the brief's type sizes (half-points), headings with outline levels.
+    /// </summary>
     private static string Styles(Theme theme, string font, string language)
     {
         string text = Hex(theme.Text), accent = Hex(theme.Accent), muted = Hex(theme.Muted), rule = Hex(theme.Rule);

@@ -244,8 +244,8 @@ public sealed partial class HtmlWriter : IBriefWriter
     }
 
     /// <summary>
-    /// A chart's SVG made fit to sit in the page: no XML declaration, its ids prefixed with the figure's (several charts
-    /// share one page), a view box so it scales, and its title and description as the image's accessible name.
+    /// A chart's SVG made fit to sit in the page: no XML declaration, its ids prefixed with the figure's (several
+    /// charts share one page), a view box so it scales, and its title and description as the image's accessible name.
     /// </summary>
     public static string InlineSvg(string svg, string id, string title, string description)
     {

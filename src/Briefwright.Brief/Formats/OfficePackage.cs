@@ -25,7 +25,9 @@ public sealed class OfficePackage(DateOnly date)
     public void AddXml(string name, string contentType, string xml) =>
         Add(name, contentType, Encoding.UTF8.GetBytes("<?xml version=\"1.0\" encoding=\"UTF-8\" standalone=\"yes\"?>\n" + xml));
 
-    /// <summary>A relationship from <paramref name="source"/> ("/" for the package) to a part or, when external, a URI.</summary>
+    /// <summary>
+    /// A relationship from <paramref name="source"/> ("/" for the package) to a part or, when external, a URI.
+    /// </summary>
     public void Relate(string source, string id, string type, string target, bool external = false)
     {
         if (!relationships.TryGetValue(source, out var list)) relationships[source] = list = [];

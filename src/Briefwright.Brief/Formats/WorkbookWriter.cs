@@ -13,7 +13,9 @@ public enum ColumnKind
     /// <summary>A whole number such as a calendar year or a count (format <c>0</c>).</summary>
     Whole,
 
-    /// <summary>A number as the spreadsheet program shows it (all its digits); for columns whose values differ in size.</summary>
+    /// <summary>
+    /// A number as the spreadsheet program shows it (all its digits); for columns whose values differ in size.
+    /// </summary>
     General,
 
     /// <summary>A number shown with three decimals.</summary>
@@ -29,7 +31,9 @@ public enum ColumnKind
 /// <summary>A column of a sheet: its header (with the unit) and kind.</summary>
 public sealed record SheetColumn(string Header, ColumnKind Kind, double Width = 14);
 
-/// <summary>One sheet of the workbook: a header row and rows of values (strings, numbers, booleans or null for an empty cell).</summary>
+/// <summary>
+/// One sheet of the workbook: a header row and rows of values (strings, numbers, booleans or null for an empty cell).
+/// </summary>
 public sealed record SheetTable(string Name, string Description, IReadOnlyList<SheetColumn> Columns, IReadOnlyList<IReadOnlyList<object?>> Rows);
 
 /// <summary>
@@ -208,7 +212,9 @@ public sealed class WorkbookWriter : IBriefWriter
 
     private const string Main = "http://schemas.openxmlformats.org/spreadsheetml/2006/main";
 
-    /// <summary>A sheet's XML (SpreadsheetML, ECMA-376 Part 1); the tests read it back and validate it with the Open XML SDK.</summary>
+    /// <summary>
+    /// A sheet's XML (SpreadsheetML, ECMA-376 Part 1); the tests read it back and validate it with the Open XML SDK.
+    /// </summary>
     private static string Worksheet(SheetTable table)
     {
         var sb = new StringBuilder(table.Rows.Count * table.Columns.Count * 48 + 1024);
@@ -267,7 +273,9 @@ public sealed class WorkbookWriter : IBriefWriter
         sb.Append("<c r=\"").Append(reference).Append("\"").Append(style == 0 ? "" : $" s=\"{style}\"").Append("><v>")
           .Append(value.ToString("R", CultureInfo.InvariantCulture)).Append("</v></c>");
 
-    /// <summary>A typed text cell; text that starts like a formula gets the quote prefix, so editing the cell keeps it text.</summary>
+    /// <summary>
+    /// A typed text cell; text that starts like a formula gets the quote prefix, so editing the cell keeps it text.
+    /// </summary>
     private static void TextCell(StringBuilder sb, string reference, string text, uint style)
     {
         bool formulaLike = text.Length > 0 && text[0] is '=' or '+' or '-' or '@' or '\t' or '\r';
