@@ -35,7 +35,8 @@ public static class GlyphCheck
     {
         string tag = scenario.Brief.Language;
         if (BriefLanguage.ForTag(tag) is { } language) return language;
-        var at = scenario.Texts.FirstOrDefault(t => t.Path == "brief.language")?.At ?? new SourceSpan(scenario.Files.FirstOrDefault() ?? "scenario", 1, 1);
+        var at = scenario.Texts.FirstOrDefault(t => t.Path == "brief.language")?.At
+            ?? new SourceSpan(scenario.Files.FirstOrDefault() ?? "scenario", 1, 1);
         var d = new Diagnostic(at, "brief.language",
             $"must be a language the tool has texts for ({string.Join(", ", BriefLanguage.BuiltIn.Keys.Order(StringComparer.Ordinal))}); a language is added with one file, templates/languages/<code>.texts (see docs/templates.md)",
             $"'{tag}'");
@@ -43,12 +44,15 @@ public static class GlyphCheck
     }
 
     /// <summary>Throws <see cref="BriefTextException"/> naming every text with a character the fonts lack.</summary>
-    public static void Check(ScenarioDocument scenario, BriefTemplate template, BriefLanguage language, (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? fonts)
+    public static void Check(ScenarioDocument scenario, BriefTemplate template, BriefLanguage language,
+        (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? fonts)
     {
         var faces = fonts is { } f
             ? new[] { ("regular", f.Regular), ("bold", f.Bold), ("italic", f.Italic), ("bold italic", f.BoldItalic) }
-            : new[] { RunStyle.Regular, RunStyle.Bold, RunStyle.Italic, RunStyle.BoldItalic }.Select(s => (Face: s == RunStyle.BoldItalic ? "bold italic" : s.ToString().ToLowerInvariant(), Bytes: BundledFonts.Bytes(s))).ToArray();
-        var sets = faces.Select(x => (x.Item1, Set: FontSubsetter.Characters(x.Item2))).Where(x => x.Set is not null).ToList();
+            : new[] { RunStyle.Regular, RunStyle.Bold, RunStyle.Italic,
+                RunStyle.BoldItalic }.Select(s => (Face: s == RunStyle.BoldItalic ? "bold italic" : s.ToString().ToLowerInvariant(), Bytes: BundledFonts.Bytes(s))).ToArray();
+        var sets = faces.Select(x => (x.Item1, Set: FontSubsetter.Characters(x.Item2))).Where(x => x.Set is not null)
+            .ToList();
         if (sets.Count == 0) return; // the font library is unavailable: nothing to check against
         string fontName = fonts is null ? "the bundled font (Liberation Sans)" : "the theme's fonts";
         var problems = new List<string>();
@@ -72,7 +76,11 @@ public static class GlyphCheck
 
         foreach (var field in scenario.Texts)
             if (Missing(field.Value, out int i) is { } why)
-                problems.Add(new Diagnostic(field.At, field.Path, $"cannot be shown: {why}; use another character or a theme font that has it", $"{BindQuote(field.Value)} (character {i + 1})").Message);
+                problems.Add(new Diagnostic(
+                    field.At,
+                    field.Path,
+                    $"cannot be shown: {why}; use another character or a theme font that has it",
+                    $"{BindQuote(field.Value)} (character {i + 1})").Message);
 
         // The template and the language's texts are the same for every brief of a batch: checked once per font.
         var once = (template.Hash, language.Code, fonts?.Regular);
@@ -85,7 +93,8 @@ public static class GlyphCheck
                 if (Missing(text, out int i) is { } why)
                 {
                     var (l, c) = Advance(text, i, line, column);
-                    problems.Add($"{template.Path}:{l}:{c}: template text cannot be shown: {why}. Got {BindQuote(text)}.");
+                    problems.Add(
+                        $"{template.Path}:{l}:{c}: template text cannot be shown: {why}. Got {BindQuote(text)}.");
                 }
 
             foreach (var (key, value) in language.Texts.OrderBy(t => t.Value.Line))
@@ -98,7 +107,9 @@ public static class GlyphCheck
 
         if (problems.Count == 0) return;
         if (problems.Count > MaxReported)
-            problems = problems.Take(MaxReported).Append($"… and {problems.Count - MaxReported} more texts with characters the font lacks.").ToList();
+            problems = problems.Take(MaxReported)
+                .Append($"… and {problems.Count - MaxReported} more texts with characters the font lacks.")
+                .ToList();
         throw new BriefTextException(problems);
     }
 
@@ -108,10 +119,14 @@ public static class GlyphCheck
     public static IEnumerable<int> ChartCharacters(ScenarioDocument scenario, BriefLanguage language)
     {
         // Charts show the scenario's labels (options, appraisal rules); titles, sources and notes never reach them.
-        var texts = scenario.Texts.Where(t => t.Path.EndsWith(".label", StringComparison.Ordinal)).Select(t => t.Value).Concat(language.Texts
-            .Where(t => t.Key.StartsWith("chart.", StringComparison.Ordinal) || t.Key.StartsWith("parameter.", StringComparison.Ordinal)
-                || t.Key.StartsWith("number.", StringComparison.Ordinal) || t.Key.StartsWith("unit.", StringComparison.Ordinal))
-            .Select(t => t.Value.Text));
+        var texts = scenario.Texts.Where(t => t.Path.EndsWith(".label", StringComparison.Ordinal)).Select(t => t.Value)
+            .Concat(language.Texts
+                .Where(t => t.Key.StartsWith("chart.", StringComparison.Ordinal)
+                || t.Key.StartsWith("parameter.", StringComparison.Ordinal)
+                    || t.Key.StartsWith("number.", StringComparison.Ordinal)
+                || t.Key
+                    .StartsWith("unit.", StringComparison.Ordinal))
+                .Select(t => t.Value.Text));
         var set = new HashSet<int>();
         foreach (string text in texts)
             foreach (var rune in text.EnumerateRunes()) set.Add(rune.Value);

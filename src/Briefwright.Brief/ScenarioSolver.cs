@@ -23,7 +23,8 @@ public static class ScenarioSolver
     /// <summary>What the model throws when inputs leave it nothing to compute: its own
     /// <see cref="Model.ModelRuleException"/>, a non-finite result, or an arithmetic or argument failure deep in a
     /// computation.</summary>
-    private static bool IsModelFailure(Exception ex) => ex is ArithmeticException or ArgumentException or InvalidOperationException;
+    private static bool IsModelFailure(Exception ex)
+        => ex is ArithmeticException or ArgumentException or InvalidOperationException;
 
     /// <param name="maxThreads">Threads the model's uncertainty loops may use (<see cref="ModelThreads"/>); results do
     /// not depend on it.</param>

@@ -39,7 +39,9 @@ public static class ChartCatalogue
     /// one.
     /// </summary>
     public static OptionStyles Styles(SolvedScenario solved, IReadOnlyList<string>? chartColours) =>
-        new(solved.Scenario.Inputs.Options.Select(o => o.Id), OptionStyles.FromHex(chartColours), solved.Scenario.Inputs.BaselineId);
+        new(solved.Scenario.Inputs.Options.Select(o => o.Id), OptionStyles.FromHex(chartColours),
+            solved.Scenario.Inputs.BaselineId);
 
-    public static IReadOnlyList<ChartSpec> Build(ChartContext context) => All.SelectMany(d => d.Build(context)).ToList();
+    public static IReadOnlyList<ChartSpec> Build(ChartContext context)
+        => All.SelectMany(d => d.Build(context)).ToList();
 }

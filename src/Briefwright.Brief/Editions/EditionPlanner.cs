@@ -115,7 +115,8 @@ public sealed record EditionRequest(string Fingerprint, int RequestedEdition, bo
 /// unknown).</param>
 /// <param name="Recovered">The files are kept as found, not as their manifest recorded them.</param>
 /// <param name="Reasons">Why they are marked recovered, one line each (empty when verified).</param>
-public sealed record ArchiveStep(string Folder, int? Edition, IReadOnlyList<string> Files, bool Recovered, IReadOnlyList<string> Reasons);
+public sealed record ArchiveStep(string Folder, int? Edition, IReadOnlyList<string> Files, bool Recovered,
+    IReadOnlyList<string> Reasons);
 
 /// <summary>The planner's answer for one brief.</summary>
 public abstract record EditionPlan
@@ -181,7 +182,8 @@ public static class EditionPlanner
             if (requested > 1 && requested < issued && current.RequestedEdition is { } asked && requested != asked)
                 return new EditionPlan.Refuse(requested, issued);
             string? results = current.Stem + ".results.json";
-            bool comparable = current.Files.Contains(results) && !current.MissingFiles.Contains(results) && !current.ChangedFiles.Contains(results);
+            bool comparable = current.Files.Contains(results) && !current.MissingFiles.Contains(results)
+                && !current.ChangedFiles.Contains(results);
             var diff = Compare(request, current);
             if (requested > previous)
                 diff.Edition.Add(EditionInput.RequestedEdition);
@@ -190,7 +192,8 @@ public static class EditionPlanner
                 if (intact && !request.Force) return new EditionPlan.Skip(previous);
                 string[] why = intact ? ["force"] : ["files"];
                 // Same inputs: the rebuild writes the same bytes, so present files that match need no copy.
-                if (current.ChangedFiles.Count == 0) return new EditionPlan.Build(previous, false, null, null) { Changed = why };
+                if (current.ChangedFiles.Count == 0) return new EditionPlan.Build(previous, false, null, null) {
+                    Changed = why };
                 return new EditionPlan.Build(previous, false, Recovered(current, previous), null) { Changed = why };
             }
             var changed = diff.All();
@@ -198,7 +201,8 @@ public static class EditionPlanner
                 return NewEdition(current, requested, intact, comparable ? results : null, changed);
             // The same edition: re-dated, re-issued in a new look, or with other output switches.
             bool replaced = diff.Date || diff.Presentation.Count > 0;
-            ArchiveStep? archive = current.ChangedFiles.Count > 0 || (replaced && !intact) ? Recovered(current, previous)
+            ArchiveStep? archive = current.ChangedFiles.Count > 0 || (replaced && !intact)
+                ? Recovered(current, previous)
                 : replaced ? Verified(current, previous) : null;
             return new EditionPlan.Build(previous, false, archive, diff.Tool ? results : null)
             {
@@ -206,11 +210,14 @@ public static class EditionPlanner
             };
         }
         if (current.Empty)
-            return new EditionPlan.Build(current.HighestArchivedEdition > 0 ? Math.Max(requested, afterArchive) : requested, false, null, null) { Changed = ["new"] };
+            return new EditionPlan.Build(
+                current.HighestArchivedEdition > 0 ? Math.Max(requested, afterArchive) : requested, false, null,
+                null) { Changed = ["new"] };
         // A damaged or missing manifest beside files of this brief: keep them as found, then start a new edition.
         int found = current.Edition ?? 0;
         int edition = Math.Max(requested, Math.Max(found + 1, afterArchive));
-        return new EditionPlan.Build(edition, found > 0, Recovered(current, current.Edition), null) { Changed = ["files"] };
+        return new EditionPlan.Build(edition, found > 0, Recovered(current, current.Edition), null) {
+            Changed = ["files"] };
     }
 
     /// <summary>
@@ -218,12 +225,14 @@ public static class EditionPlanner
     /// a new edition when an assumption as shown or a headline result differs from the current edition's, else as
     /// planned.
     /// </summary>
-    public static EditionPlan.Build Settle(EditionPlan.Build plan, EditionRequest request, CurrentEdition current, bool resultsChanged)
+    public static EditionPlan.Build Settle(EditionPlan.Build plan, EditionRequest request, CurrentEdition current,
+        bool resultsChanged)
     {
         if (!plan.ResultsDecide) return plan;
         if (!resultsChanged) return plan with { ResultsDecide = false };
         bool intact = current.MissingFiles.Count == 0 && current.ChangedFiles.Count == 0;
-        var next = NewEdition(current, Math.Max(1, request.RequestedEdition), intact, plan.CompareWith, plan.Changed.Append(EditionInput.Results).ToList());
+        var next = NewEdition(current, Math.Max(1, request.RequestedEdition), intact, plan.CompareWith,
+            plan.Changed.Append(EditionInput.Results).ToList());
         return next with { Archive = plan.Archive ?? next.Archive };
     }
 
@@ -235,17 +244,22 @@ public static class EditionPlanner
     /// <param name="currentSha256">The manifest's SHA-256 of each current file (null: not recorded, so nothing can be
     /// shown to come back).</param>
     /// <param name="newSha256">The SHA-256 of each file the build made.</param>
-    public static EditionPlan.Build KeepReplaced(EditionPlan.Build plan, CurrentEdition current, IReadOnlyDictionary<string, string>? currentSha256, IReadOnlyDictionary<string, string> newSha256)
+    public static EditionPlan.Build KeepReplaced(EditionPlan.Build plan, CurrentEdition current,
+        IReadOnlyDictionary<string, string>? currentSha256, IReadOnlyDictionary<string, string> newSha256)
     {
         if (plan.Archive is not null || current.Manifest != ManifestCondition.Valid) return plan;
         var present = current.Files.Except(current.MissingFiles).ToList();
         if (present.Count == 0) return plan;
-        if (currentSha256 is not null && present.All(f => newSha256.TryGetValue(f, out var h) && currentSha256.TryGetValue(f, out var was) && h == was)) return plan;
+        if (currentSha256 is not null && present.All(
+            f => newSha256.TryGetValue(f, out var h) && currentSha256.TryGetValue(f, out var was) && h == was)) return plan;
         int edition = current.Edition ?? 0;
-        return plan with { Archive = current.MissingFiles.Count == 0 && current.ChangedFiles.Count == 0 ? Verified(current, edition) : Recovered(current, edition) };
+        return plan with { Archive = current.MissingFiles.Count == 0 && current.ChangedFiles.Count == 0
+            ? Verified(current, edition)
+            : Recovered(current, edition) };
     }
 
-    private static EditionPlan.Build NewEdition(CurrentEdition current, int requested, bool intact, string? compareWith, IReadOnlyList<string> changed)
+    private static EditionPlan.Build NewEdition(CurrentEdition current, int requested, bool intact, string? compareWith,
+        IReadOnlyList<string> changed)
     {
         int previous = current.Edition ?? 0;
         int next = Math.Max(requested, Math.Max(previous + 1, current.HighestArchivedEdition + 1));
@@ -262,7 +276,9 @@ public static class EditionPlanner
         public List<string> Outputs { get; } = [];
 
         public IReadOnlyList<string> All() =>
-            [.. Edition, .. Date ? [EditionInput.Date] : Array.Empty<string>(), .. Presentation, .. Outputs.Select(o => EditionInput.OutputPrefix + o)];
+            [.. Edition, .. Date
+                ? [EditionInput.Date]
+                : Array.Empty<string>(), .. Presentation, .. Outputs.Select(o => EditionInput.OutputPrefix + o)];
     }
 
     /// <summary>Which inputs differ, sorted by what a change of each means.</summary>
@@ -275,7 +291,8 @@ public static class EditionPlanner
             if (request.Fingerprint != current.Fingerprint) d.Edition.Add("inputs");
             return d;
         }
-        bool content = request.Inputs.ContainsKey(EditionInput.Content) && current.Inputs.ContainsKey(EditionInput.Content);
+        bool content = request.Inputs.ContainsKey(EditionInput.Content)
+            && current.Inputs.ContainsKey(EditionInput.Content);
         foreach (var key in request.Inputs.Keys.Union(current.Inputs.Keys).Order(StringComparer.Ordinal))
         {
             if (request.Inputs.GetValueOrDefault(key) == current.Inputs.GetValueOrDefault(key)) continue;
@@ -309,16 +326,19 @@ public static class EditionPlanner
         return d;
     }
 
-    private static ArchiveStep Verified(CurrentEdition current, int edition) => new($"edition-{edition}", edition, current.Files, false, []);
+    private static ArchiveStep Verified(CurrentEdition current, int edition)
+        => new($"edition-{edition}", edition, current.Files, false, []);
 
     private static ArchiveStep Recovered(CurrentEdition current, int? edition)
     {
         var reasons = new List<string>();
-        if (current.Manifest == ManifestCondition.Damaged) reasons.Add("the manifest was damaged (unreadable, edited, or naming a path outside the output folder)");
+        if (current.Manifest == ManifestCondition.Damaged) reasons.Add(
+            "the manifest was damaged (unreadable, edited, or naming a path outside the output folder)");
         if (current.Manifest == ManifestCondition.Missing) reasons.Add("the manifest was missing");
         foreach (var f in current.MissingFiles) reasons.Add($"missing: {f}");
         foreach (var f in current.ChangedFiles) reasons.Add($"not as the manifest recorded it: {f}");
         string folder = edition is > 0 ? $"edition-{edition}-recovered" : "recovered";
-        return new ArchiveStep(folder, edition is > 0 ? edition : null, current.Files.Except(current.MissingFiles).ToList(), true, reasons);
+        return new ArchiveStep(folder, edition is > 0 ? edition : null,
+            current.Files.Except(current.MissingFiles).ToList(), true, reasons);
     }
 }

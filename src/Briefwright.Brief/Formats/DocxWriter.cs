@@ -47,12 +47,17 @@ public sealed class DocxWriter : IBriefWriter
             "xmlns:wp=\"http://schemas.openxmlformats.org/drawingml/2006/wordprocessingDrawing\" xmlns:a=\"http://schemas.openxmlformats.org/drawingml/2006/main\" " +
             $"xmlns:pic=\"http://schemas.openxmlformats.org/drawingml/2006/picture\"><w:body>{body}</w:body></w:document>");
         package.Relate(Doc, "rIdStyles", Rel + "styles", "/word/styles.xml");
-        package.AddXml("/word/styles.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.styles+xml", Styles(theme, doc.FontFamily ?? "Liberation Sans", doc.Info.Language));
+        package.AddXml("/word/styles.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.styles+xml",
+            Styles(theme, doc.FontFamily ?? "Liberation Sans", doc.Info.Language));
         package.Relate(Doc, "rIdNumbering", Rel + "numbering", "/word/numbering.xml");
-        package.AddXml("/word/numbering.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.numbering+xml", builder.Numbering());
+        package.AddXml("/word/numbering.xml",
+            "application/vnd.openxmlformats-officedocument.wordprocessingml.numbering+xml", builder.Numbering());
         package.Relate(Doc, "rIdFooter", Rel + "footer", "/word/footer1.xml");
         package.AddXml("/word/footer1.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.footer+xml",
-            $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · " + T("output.page") + " ") + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
+            $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · " + T("output.page") + " ")
+                + "<w:fldSimple w:instr=\" PAGE \">"
+                + Run("1")
+                + "</w:fldSimple>") + "</w:ftr>");
         builder.AddImages();
         package.CoreProperties(doc.Info.Title, doc.Info.Author);
         return package.ToBytes();
@@ -65,8 +70,11 @@ public sealed class DocxWriter : IBriefWriter
     /// <summary>A run of text, with bold or italic properties when given.</summary>
     private static string Run(string text, bool bold = false, bool italic = false, string? style = null)
     {
-        string props = (style is null ? "" : $"<w:rStyle w:val=\"{style}\"/>") + (bold ? "<w:b/>" : "") + (italic ? "<w:i/>" : "");
-        return "<w:r>" + (props.Length > 0 ? $"<w:rPr>{props}</w:rPr>" : "") + $"<w:t xml:space=\"preserve\">{X(text)}</w:t></w:r>";
+        string props = (style is null ? "" : $"<w:rStyle w:val=\"{style}\"/>") + (bold ? "<w:b/>" : "") + (italic
+            ? "<w:i/>"
+            : "");
+        return "<w:r>" + (props.Length > 0 ? $"<w:rPr>{props}</w:rPr>" : "")
+            + $"<w:t xml:space=\"preserve\">{X(text)}</w:t></w:r>";
     }
 
     private static string Para(string style, string runs, string extraProps = "") =>
@@ -74,7 +82,8 @@ public sealed class DocxWriter : IBriefWriter
 
     private sealed class Builder(OfficePackage package, BriefContent content)
     {
-        private readonly Dictionary<string, Charts.RenderedChart> charts = content.Charts.ToDictionary(c => c.Id, StringComparer.Ordinal);
+        private readonly Dictionary<string, Charts.RenderedChart> charts = content.Charts
+            .ToDictionary(c => c.Id, StringComparer.Ordinal);
         private readonly Dictionary<string, string> links = new(StringComparer.Ordinal);
         private readonly List<int> orderedLists = [];
         private readonly List<(string Name, byte[] Png)> pictures = [];
@@ -98,7 +107,8 @@ public sealed class DocxWriter : IBriefWriter
                     int num = 1;
                     if (l.Ordered) { orderedLists.Add(orderedLists.Count + 2); num = orderedLists[^1]; }
                     foreach (var item in l.Items)
-                        sb.Append(Para("ListParagraph", Runs(item), $"<w:numPr><w:ilvl w:val=\"0\"/><w:numId w:val=\"{num}\"/></w:numPr>"));
+                        sb.Append(Para("ListParagraph", Runs(item),
+                            $"<w:numPr><w:ilvl w:val=\"0\"/><w:numId w:val=\"{num}\"/></w:numPr>"));
                     break;
                 case TableBlock t:
                     Table(sb, t);
@@ -120,7 +130,8 @@ public sealed class DocxWriter : IBriefWriter
             var sb = new StringBuilder();
             foreach (var r in runs)
             {
-                bool bold = r.Style is RunStyle.Bold or RunStyle.BoldItalic, italic = r.Style is RunStyle.Italic or RunStyle.BoldItalic;
+                bool bold = r.Style is RunStyle.Bold or RunStyle.BoldItalic, italic = r
+                    .Style is RunStyle.Italic or RunStyle.BoldItalic;
                 if (r.Link is { } link && Uri.TryCreate(link, UriKind.Absolute, out var uri))
                 {
                     if (!links.TryGetValue(link, out var id))
@@ -129,7 +140,8 @@ public sealed class DocxWriter : IBriefWriter
                         package.Relate(Doc, id, Rel + "hyperlink", uri.AbsoluteUri, external: true);
                         links[link] = id;
                     }
-                    sb.Append($"<w:hyperlink r:id=\"{id}\">").Append(Run(r.Text, bold, italic, "Hyperlink")).Append("</w:hyperlink>");
+                    sb.Append($"<w:hyperlink r:id=\"{id}\">").Append(Run(r.Text, bold, italic, "Hyperlink"))
+                        .Append("</w:hyperlink>");
                 }
                 else sb.Append(Run(r.Text, bold, italic));
             }
@@ -144,11 +156,15 @@ public sealed class DocxWriter : IBriefWriter
             int at = label.IndexOf("{0}", StringComparison.Ordinal);
             string before = at < 0 ? label + " " : label[..at], after = at < 0 ? "" : label[(at + 3)..];
             return Para("Caption",
-                Run(before) + $"<w:fldSimple w:instr=\" SEQ {kind} \\* ARABIC \">" + Run(number.ToString(CultureInfo.InvariantCulture)) + "</w:fldSimple>" + Run(after + " " + caption),
+                Run(before) + $"<w:fldSimple w:instr=\" SEQ {kind} \\* ARABIC \">"
+                    + Run(number.ToString(CultureInfo.InvariantCulture))
+                    + "</w:fldSimple>"
+                    + Run(after + " " + caption),
                 "<w:keepNext/>");
         }
 
-        private string Source(string source) => Para("Note", Run(content.Theme.SourceLabel, italic: true) + Run(source));
+        private string Source(string source)
+            => Para("Note", Run(content.Theme.SourceLabel, italic: true) + Run(source));
 
         private void Table(StringBuilder sb, TableBlock t)
         {
@@ -269,12 +285,17 @@ public sealed class DocxWriter : IBriefWriter
             "<w:style w:type=\"paragraph\" w:default=\"1\" w:styleId=\"Normal\"><w:name w:val=\"Normal\"/><w:qFormat/></w:style>" +
             Heading(1, 20, accent) + Heading(2, 13.5, accent) + Heading(3, 11, accent) +
             Style("Subtitle", "Subtitle", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"{Half(12.5)}\"/>") +
-            Style("Caption", "caption", "<w:keepNext/><w:spacing w:before=\"200\" w:after=\"60\"/>", $"<w:b/><w:sz w:val=\"{Half(theme.CaptionSize)}\"/>") +
-            Style("Note", "Source note", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"{Half(theme.CaptionSize)}\"/>") +
+            Style("Caption", "caption", "<w:keepNext/><w:spacing w:before=\"200\" w:after=\"60\"/>",
+                $"<w:b/><w:sz w:val=\"{Half(theme.CaptionSize)}\"/>") +
+            Style("Note", "Source note", "",
+                $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"{Half(theme.CaptionSize)}\"/>") +
             Style("Figure", "Figure", "<w:keepNext/><w:spacing w:after=\"40\"/>", "") +
-            Style("TableText", "Table text", "<w:spacing w:before=\"20\" w:after=\"20\" w:line=\"240\" w:lineRule=\"auto\"/>", $"<w:sz w:val=\"{Half(theme.TableSize)}\"/>") +
+            Style("TableText", "Table text",
+                "<w:spacing w:before=\"20\" w:after=\"20\" w:line=\"240\" w:lineRule=\"auto\"/>",
+                $"<w:sz w:val=\"{Half(theme.TableSize)}\"/>") +
             Style("ListParagraph", "List Paragraph", "<w:ind w:left=\"360\"/><w:contextualSpacing/>", "") +
-            Style("BoxTitle", "Box title", "<w:keepNext/>", $"<w:b/><w:color w:val=\"{accent}\"/><w:sz w:val=\"{Half(11)}\"/>") +
+            Style("BoxTitle", "Box title", "<w:keepNext/>",
+                $"<w:b/><w:color w:val=\"{accent}\"/><w:sz w:val=\"{Half(11)}\"/>") +
             Style("Marker", "Draft marker", "<w:jc w:val=\"right\"/>", "<w:b/><w:color w:val=\"A4161A\"/>") +
             Style("Footer", "footer", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"16\"/>", primary: false) +
             $"<w:style w:type=\"character\" w:styleId=\"Hyperlink\"><w:name w:val=\"Hyperlink\"/><w:rPr><w:color w:val=\"{accent}\"/><w:u w:val=\"single\"/></w:rPr></w:style>" +
