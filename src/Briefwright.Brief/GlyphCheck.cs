@@ -38,7 +38,9 @@ public static class GlyphCheck
         var at = scenario.Texts.FirstOrDefault(t => t.Path == "brief.language")?.At
             ?? new SourceSpan(scenario.Files.FirstOrDefault() ?? "scenario", 1, 1);
         var d = new Diagnostic(at, "brief.language",
-            $"must be a language the tool has texts for ({string.Join(", ", BriefLanguage.BuiltIn.Keys.Order(StringComparer.Ordinal))}); a language is added with one file, templates/languages/<code>.texts (see docs/templates.md)",
+            "must be a language the tool has texts for " +
+            $"({string.Join(", ", BriefLanguage.BuiltIn.Keys.Order(StringComparer.Ordinal))}); a language is added " +
+            "with one file, templates/languages/<code>.texts (see docs/templates.md)",
             $"'{tag}'");
         throw new BriefTextException([d.Message]);
     }
@@ -67,7 +69,8 @@ public static class GlyphCheck
                 {
                     var lacking = sets.Where(s => !s.Set!.Contains(c)).Select(s => s.Item1).ToList();
                     if (lacking.Count > 0)
-                        return $"U+{c:X4} '{rune}' is in no face of {fontName} that the brief may draw it in ({string.Join(", ", lacking)})";
+                        return $"U+{c:X4} '{rune}' is in no face of {fontName} that the brief may draw it in " +
+                            $"({string.Join(", ", lacking)})";
                 }
                 index += rune.Utf16SequenceLength;
             }

@@ -35,17 +35,23 @@ public sealed class DocxWriter : IBriefWriter
         var body = new StringBuilder(256 * 1024);
         if (doc.Info.Marker is { } marker) body.Append(Para("Marker", Run(marker)));
         foreach (var block in doc.Blocks) builder.Add(body, block);
-        body.Append(Para("Note", Run($"{T("output.scenario")} {content.Solved.Scenario.Brief.Id} · {doc.Info.Edition} · {T("output.input_hash")} {content.Solved.Scenario.InputHash} · briefwright {ToolInfo.Version}")));
+        body.Append(Para("Note", Run($"{T("output.scenario")} {content.Solved.Scenario.Brief.Id} · " +
+            $"{doc.Info.Edition} · {T("output.input_hash")} {content.Solved.Scenario.InputHash} · briefwright " +
+            $"{ToolInfo.Version}")));
         bool letter = doc.Paper == PaperSize.Letter;
         body.Append("<w:sectPr><w:footerReference w:type=\"default\" r:id=\"rIdFooter\"/>")
             .Append($"<w:pgSz w:w=\"{(letter ? 12240 : 11906)}\" w:h=\"{(letter ? 15840 : 16838)}\"/>")
-            .Append($"<w:pgMar w:top=\"{Twips(theme.MarginTop)}\" w:right=\"{Twips(theme.MarginRight)}\" w:bottom=\"{Twips(theme.MarginBottom)}\" w:left=\"{Twips(theme.MarginLeft)}\" w:header=\"567\" w:footer=\"567\" w:gutter=\"0\"/>")
+            .Append($"<w:pgMar w:top=\"{Twips(theme.MarginTop)}\" w:right=\"{Twips(theme.MarginRight)}\" " +
+                $"w:bottom=\"{Twips(theme.MarginBottom)}\" w:left=\"{Twips(theme.MarginLeft)}\" w:header=\"567\" " +
+                "w:footer=\"567\" w:gutter=\"0\"/>")
             .Append("</w:sectPr>");
         // The main part first, then the parts it refers to, in a fixed order.
         package.AddXml(Doc, "application/vnd.openxmlformats-officedocument.wordprocessingml.document.main+xml",
             $"<w:document xmlns:w=\"{W}\" xmlns:r=\"{OfficePackage.RelationshipsNs}\" " +
-            "xmlns:wp=\"http://schemas.openxmlformats.org/drawingml/2006/wordprocessingDrawing\" xmlns:a=\"http://schemas.openxmlformats.org/drawingml/2006/main\" " +
-            $"xmlns:pic=\"http://schemas.openxmlformats.org/drawingml/2006/picture\"><w:body>{body}</w:body></w:document>");
+            "xmlns:wp=\"http://schemas.openxmlformats.org/drawingml/2006/wordprocessingDrawing\" " +
+            "xmlns:a=\"http://schemas.openxmlformats.org/drawingml/2006/main\" " +
+            "xmlns:pic=\"http://schemas.openxmlformats.org/drawingml/2006/picture\">" +
+            $"<w:body>{body}</w:body></w:document>");
         package.Relate(Doc, "rIdStyles", Rel + "styles", "/word/styles.xml");
         package.AddXml("/word/styles.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.styles+xml",
             Styles(theme, doc.FontFamily ?? "Liberation Sans", doc.Info.Language));
@@ -171,7 +177,8 @@ public sealed class DocxWriter : IBriefWriter
             tables++;
             if (t.Caption is not null) sb.Append(Caption("Table", content.Theme.TableLabel, tables, t.Caption));
             sb.Append("<w:tbl><w:tblPr><w:tblStyle w:val=\"BriefTable\"/><w:tblW w:w=\"5000\" w:type=\"pct\"/>")
-              .Append("<w:tblLook w:firstRow=\"1\" w:lastRow=\"0\" w:firstColumn=\"1\" w:lastColumn=\"0\" w:noHBand=\"0\" w:noVBand=\"1\"/>")
+              .Append("<w:tblLook w:firstRow=\"1\" w:lastRow=\"0\" w:firstColumn=\"1\" w:lastColumn=\"0\" " +
+                  "w:noHBand=\"0\" w:noVBand=\"1\"/>")
               .Append($"<w:tblCaption w:val=\"{X(t.Caption ?? $"Table {tables}")}\"/></w:tblPr><w:tblGrid>");
             for (int c = 0; c < t.Header.Count; c++) sb.Append("<w:gridCol/>");
             sb.Append("</w:tblGrid>");
@@ -212,10 +219,13 @@ public sealed class DocxWriter : IBriefWriter
                     $"<wp:extent cx=\"{cx}\" cy=\"{cy}\"/><wp:effectExtent l=\"0\" t=\"0\" r=\"0\" b=\"0\"/>" +
                     $"<wp:docPr id=\"{images}\" name=\"Figure {figures}\" descr=\"{alt}\" title=\"{X(f.Caption)}\"/>" +
                     "<wp:cNvGraphicFramePr><a:graphicFrameLocks noChangeAspect=\"1\"/></wp:cNvGraphicFramePr>" +
-                    "<a:graphic><a:graphicData uri=\"http://schemas.openxmlformats.org/drawingml/2006/picture\"><pic:pic>" +
-                    $"<pic:nvPicPr><pic:cNvPr id=\"{images}\" name=\"{X($"fig-{f.Id}.png")}\" descr=\"{alt}\"/><pic:cNvPicPr/></pic:nvPicPr>" +
+                    "<a:graphic><a:graphicData " +
+                    "uri=\"http://schemas.openxmlformats.org/drawingml/2006/picture\"><pic:pic>" +
+                    $"<pic:nvPicPr><pic:cNvPr id=\"{images}\" name=\"{X($"fig-{f.Id}.png")}\" " +
+                    $"descr=\"{alt}\"/><pic:cNvPicPr/></pic:nvPicPr>" +
                     $"<pic:blipFill><a:blip r:embed=\"{rid}\"/><a:stretch><a:fillRect/></a:stretch></pic:blipFill>" +
-                    $"<pic:spPr><a:xfrm><a:off x=\"0\" y=\"0\"/><a:ext cx=\"{cx}\" cy=\"{cy}\"/></a:xfrm><a:prstGeom prst=\"rect\"><a:avLst/></a:prstGeom></pic:spPr>" +
+                    $"<pic:spPr><a:xfrm><a:off x=\"0\" y=\"0\"/><a:ext cx=\"{cx}\" cy=\"{cy}\"/></a:xfrm><a:prstGeom " +
+                    "prst=\"rect\"><a:avLst/></a:prstGeom></pic:spPr>" +
                     "</pic:pic></a:graphicData></a:graphic></wp:inline></w:drawing></w:r>",
                     "<w:keepNext/>"));
             }
@@ -233,9 +243,12 @@ public sealed class DocxWriter : IBriefWriter
             // A table cell must end with a paragraph.
             if (inside.Length == 0 || inside.EndsWith("</w:tbl>", StringComparison.Ordinal)) inside += "<w:p/>";
             sb.Append("<w:tbl><w:tblPr><w:tblW w:w=\"5000\" w:type=\"pct\"/>")
-              .Append($"<w:tblBorders><w:left w:val=\"single\" w:sz=\"24\" w:space=\"0\" w:color=\"{Hex(content.Theme.Accent)}\"/></w:tblBorders>")
-              .Append($"<w:tblLayout w:type=\"fixed\"/><w:tblCaption w:val=\"{X(b.Title ?? "Box")}\"/></w:tblPr><w:tblGrid><w:gridCol/></w:tblGrid>")
-              .Append($"<w:tr><w:trPr><w:cantSplit/></w:trPr><w:tc><w:tcPr><w:shd w:val=\"clear\" w:color=\"auto\" w:fill=\"{Hex(content.Theme.BoxFill)}\"/></w:tcPr>")
+              .Append("<w:tblBorders><w:left w:val=\"single\" w:sz=\"24\" w:space=\"0\" " +
+                  $"w:color=\"{Hex(content.Theme.Accent)}\"/></w:tblBorders>")
+              .Append("<w:tblLayout w:type=\"fixed\"/><w:tblCaption " +
+                  $"w:val=\"{X(b.Title ?? "Box")}\"/></w:tblPr><w:tblGrid><w:gridCol/></w:tblGrid>")
+              .Append("<w:tr><w:trPr><w:cantSplit/></w:trPr><w:tc><w:tcPr><w:shd w:val=\"clear\" w:color=\"auto\" " +
+                  $"w:fill=\"{Hex(content.Theme.BoxFill)}\"/></w:tcPr>")
               .Append(inside).Append("</w:tc></w:tr></w:tbl>")
               .Append("<w:p><w:pPr><w:pStyle w:val=\"Normal\"/></w:pPr></w:p>");
         }
@@ -250,13 +263,16 @@ public sealed class DocxWriter : IBriefWriter
         public string Numbering()
         {
             var sb = new StringBuilder($"<w:numbering xmlns:w=\"{W}\">");
-            sb.Append("<w:abstractNum w:abstractNumId=\"1\"><w:lvl w:ilvl=\"0\"><w:numFmt w:val=\"bullet\"/><w:lvlText w:val=\"•\"/>")
+            sb.Append("<w:abstractNum w:abstractNumId=\"1\"><w:lvl w:ilvl=\"0\"><w:numFmt " +
+                "w:val=\"bullet\"/><w:lvlText w:val=\"•\"/>")
               .Append("<w:pPr><w:ind w:left=\"360\" w:hanging=\"240\"/></w:pPr></w:lvl></w:abstractNum>")
-              .Append("<w:abstractNum w:abstractNumId=\"2\"><w:lvl w:ilvl=\"0\"><w:start w:val=\"1\"/><w:numFmt w:val=\"decimal\"/><w:lvlText w:val=\"%1.\"/>")
+              .Append("<w:abstractNum w:abstractNumId=\"2\"><w:lvl w:ilvl=\"0\"><w:start w:val=\"1\"/><w:numFmt " +
+                  "w:val=\"decimal\"/><w:lvlText w:val=\"%1.\"/>")
               .Append("<w:pPr><w:ind w:left=\"360\" w:hanging=\"300\"/></w:pPr></w:lvl></w:abstractNum>")
               .Append("<w:num w:numId=\"1\"><w:abstractNumId w:val=\"1\"/></w:num>");
             foreach (int id in orderedLists)
-                sb.Append($"<w:num w:numId=\"{id}\"><w:abstractNumId w:val=\"2\"/><w:lvlOverride w:ilvl=\"0\"><w:startOverride w:val=\"1\"/></w:lvlOverride></w:num>");
+                sb.Append($"<w:num w:numId=\"{id}\"><w:abstractNumId w:val=\"2\"/><w:lvlOverride " +
+                    "w:ilvl=\"0\"><w:startOverride w:val=\"1\"/></w:lvlOverride></w:num>");
             return sb.Append("</w:numbering>").ToString();
         }
     }
@@ -271,18 +287,23 @@ public sealed class DocxWriter : IBriefWriter
         string text = Hex(theme.Text), accent = Hex(theme.Accent), muted = Hex(theme.Muted), rule = Hex(theme.Rule);
         static string Half(double pt) => ((int)Math.Round(pt * 2)).ToString(CultureInfo.InvariantCulture);
         static string Style(string id, string name, string para, string run, bool primary = true) =>
-            $"<w:style w:type=\"paragraph\" w:styleId=\"{id}\"><w:name w:val=\"{name}\"/><w:basedOn w:val=\"Normal\"/><w:next w:val=\"Normal\"/>" +
+            $"<w:style w:type=\"paragraph\" w:styleId=\"{id}\"><w:name w:val=\"{name}\"/><w:basedOn " +
+            "w:val=\"Normal\"/><w:next w:val=\"Normal\"/>" +
             (primary ? "<w:qFormat/>" : "") + $"<w:pPr>{para}</w:pPr><w:rPr>{run}</w:rPr></w:style>";
         static string Heading(int level, double size, string accent) => Style($"Heading{level}", $"heading {level}",
-            $"<w:keepNext/><w:keepLines/><w:spacing w:before=\"{(level == 1 ? 0 : level == 2 ? 320 : 200)}\" w:after=\"80\"/><w:outlineLvl w:val=\"{level - 1}\"/>",
+            $"<w:keepNext/><w:keepLines/><w:spacing w:before=\"{(level == 1 ? 0 : level == 2 ? 320 : 200)}\" " +
+            $"w:after=\"80\"/><w:outlineLvl w:val=\"{level - 1}\"/>",
             $"<w:b/><w:color w:val=\"{accent}\"/><w:sz w:val=\"{Half(size)}\"/>");
         string line = ((int)Math.Round(240 * theme.LineFactor)).ToString(CultureInfo.InvariantCulture);
         string f = X(font);
         return $"<w:styles xmlns:w=\"{W}\">" +
-            $"<w:docDefaults><w:rPrDefault><w:rPr><w:rFonts w:ascii=\"{f}\" w:eastAsia=\"{f}\" w:hAnsi=\"{f}\" w:cs=\"{f}\"/><w:color w:val=\"{text}\"/>" +
+            $"<w:docDefaults><w:rPrDefault><w:rPr><w:rFonts w:ascii=\"{f}\" w:eastAsia=\"{f}\" w:hAnsi=\"{f}\" " +
+            $"w:cs=\"{f}\"/><w:color w:val=\"{text}\"/>" +
             $"<w:sz w:val=\"{Half(theme.BodySize)}\"/><w:lang w:val=\"{X(language)}\"/></w:rPr></w:rPrDefault>" +
-            $"<w:pPrDefault><w:pPr><w:spacing w:after=\"120\" w:line=\"{line}\" w:lineRule=\"auto\"/></w:pPr></w:pPrDefault></w:docDefaults>" +
-            "<w:style w:type=\"paragraph\" w:default=\"1\" w:styleId=\"Normal\"><w:name w:val=\"Normal\"/><w:qFormat/></w:style>" +
+            $"<w:pPrDefault><w:pPr><w:spacing w:after=\"120\" w:line=\"{line}\" " +
+            "w:lineRule=\"auto\"/></w:pPr></w:pPrDefault></w:docDefaults>" +
+            "<w:style w:type=\"paragraph\" w:default=\"1\" w:styleId=\"Normal\"><w:name " +
+            "w:val=\"Normal\"/><w:qFormat/></w:style>" +
             Heading(1, 20, accent) + Heading(2, 13.5, accent) + Heading(3, 11, accent) +
             Style("Subtitle", "Subtitle", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"{Half(12.5)}\"/>") +
             Style("Caption", "caption", "<w:keepNext/><w:spacing w:before=\"200\" w:after=\"60\"/>",
@@ -298,12 +319,17 @@ public sealed class DocxWriter : IBriefWriter
                 $"<w:b/><w:color w:val=\"{accent}\"/><w:sz w:val=\"{Half(11)}\"/>") +
             Style("Marker", "Draft marker", "<w:jc w:val=\"right\"/>", "<w:b/><w:color w:val=\"A4161A\"/>") +
             Style("Footer", "footer", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"16\"/>", primary: false) +
-            $"<w:style w:type=\"character\" w:styleId=\"Hyperlink\"><w:name w:val=\"Hyperlink\"/><w:rPr><w:color w:val=\"{accent}\"/><w:u w:val=\"single\"/></w:rPr></w:style>" +
-            "<w:style w:type=\"table\" w:styleId=\"BriefTable\"><w:name w:val=\"Brief table\"/><w:tblPr><w:tblBorders>" +
-            $"<w:top w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/><w:bottom w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/>" +
+            "<w:style w:type=\"character\" w:styleId=\"Hyperlink\"><w:name w:val=\"Hyperlink\"/><w:rPr><w:color " +
+            $"w:val=\"{accent}\"/><w:u w:val=\"single\"/></w:rPr></w:style>" +
+            "<w:style w:type=\"table\" w:styleId=\"BriefTable\"><w:name w:val=\"Brief " +
+            "table\"/><w:tblPr><w:tblBorders>" +
+            $"<w:top w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/><w:bottom w:val=\"single\" " +
+            $"w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/>" +
             $"<w:insideH w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/></w:tblBorders>" +
-            "<w:tblCellMar><w:top w:w=\"30\" w:type=\"dxa\"/><w:bottom w:w=\"30\" w:type=\"dxa\"/></w:tblCellMar></w:tblPr>" +
-            $"<w:tblStylePr w:type=\"firstRow\"><w:tcPr><w:shd w:val=\"clear\" w:color=\"auto\" w:fill=\"{Hex(theme.HeaderFill)}\"/></w:tcPr></w:tblStylePr></w:style>" +
+            "<w:tblCellMar><w:top w:w=\"30\" w:type=\"dxa\"/><w:bottom w:w=\"30\" " +
+            "w:type=\"dxa\"/></w:tblCellMar></w:tblPr>" +
+            "<w:tblStylePr w:type=\"firstRow\"><w:tcPr><w:shd w:val=\"clear\" w:color=\"auto\" " +
+            $"w:fill=\"{Hex(theme.HeaderFill)}\"/></w:tcPr></w:tblStylePr></w:style>" +
             "</w:styles>";
     }
 }

@@ -310,7 +310,8 @@ public sealed partial class HtmlWriter : IBriefWriter
         string width = w.Success ? w.Groups[1].Value : "470", height = w.Success ? w.Groups[2].Value : "290";
         open = SizeAttr().Replace(open, "");
         var head = new StringBuilder(open)
-            .Append($" viewBox=\"0 0 {width} {height}\" width=\"{width}\" height=\"{height}\" role=\"img\" aria-labelledby=\"{id}-title {id}-desc\">")
+            .Append($" viewBox=\"0 0 {width} {height}\" width=\"{width}\" height=\"{height}\" role=\"img\" " +
+                $"aria-labelledby=\"{id}-title {id}-desc\">")
             .Append("<title id=\"").Append(id).Append("-title\">").Append(Text(title)).Append("</title>")
             .Append("<desc id=\"").Append(id).Append("-desc\">").Append(Text(description)).Append("</desc>");
         return head + svg[(close + 1)..];

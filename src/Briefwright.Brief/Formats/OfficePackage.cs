@@ -41,10 +41,12 @@ public sealed class OfficePackage(DateOnly date)
     {
         string when = date.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture) + "T00:00:00Z";
         AddXml("/docProps/core.xml", "application/vnd.openxmlformats-package.core-properties+xml",
-            "<cp:coreProperties xmlns:cp=\"http://schemas.openxmlformats.org/package/2006/metadata/core-properties\" xmlns:dc=\"http://purl.org/dc/elements/1.1/\" " +
+            "<cp:coreProperties xmlns:cp=\"http://schemas.openxmlformats.org/package/2006/metadata/core-properties\" " +
+            "xmlns:dc=\"http://purl.org/dc/elements/1.1/\" " +
             "xmlns:dcterms=\"http://purl.org/dc/terms/\" xmlns:xsi=\"http://www.w3.org/2001/XMLSchema-instance\">" +
             $"<dc:title>{Escape(title)}</dc:title><dc:creator>{Escape(creator)}</dc:creator>" +
-            $"<dcterms:created xsi:type=\"dcterms:W3CDTF\">{when}</dcterms:created><dcterms:modified xsi:type=\"dcterms:W3CDTF\">{when}</dcterms:modified>" +
+            $"<dcterms:created xsi:type=\"dcterms:W3CDTF\">{when}</dcterms:created><dcterms:modified " +
+            $"xsi:type=\"dcterms:W3CDTF\">{when}</dcterms:modified>" +
             "</cp:coreProperties>");
         Relate(
             "/",
@@ -66,8 +68,11 @@ public sealed class OfficePackage(DateOnly date)
                 using var s = entry.Open();
                 s.Write(bytes);
             }
-            var types = new StringBuilder("<?xml version=\"1.0\" encoding=\"UTF-8\" standalone=\"yes\"?>\n<Types xmlns=\"http://schemas.openxmlformats.org/package/2006/content-types\">")
-                .Append("<Default Extension=\"rels\" ContentType=\"application/vnd.openxmlformats-package.relationships+xml\"/><Default Extension=\"xml\" ContentType=\"application/xml\"/>");
+            var types = new StringBuilder("<?xml version=\"1.0\" encoding=\"UTF-8\" standalone=\"yes\"?>\n" +
+                "<Types xmlns=\"http://schemas.openxmlformats.org/package/2006/content-types\">")
+                .Append("<Default Extension=\"rels\" " +
+                    "ContentType=\"application/vnd.openxmlformats-package.relationships+xml\"/><Default " +
+                    "Extension=\"xml\" ContentType=\"application/xml\"/>");
             if (parts.Any(p => p.Name.EndsWith(".png", StringComparison.Ordinal))) types.Append(
                 "<Default Extension=\"png\" ContentType=\"image/png\"/>");
             foreach (var p in parts.Where(p => !p.Name.EndsWith(".png", StringComparison.Ordinal)))
@@ -78,7 +83,8 @@ public sealed class OfficePackage(DateOnly date)
             foreach (var (source, list) in relationships.OrderBy(r => r.Key, StringComparer.Ordinal))
             {
                 var rels = new StringBuilder(
-                    "<?xml version=\"1.0\" encoding=\"UTF-8\" standalone=\"yes\"?>\n<Relationships xmlns=\"").Append(PackageRelationships).Append("\">");
+                    "<?xml version=\"1.0\" encoding=\"UTF-8\" standalone=\"yes\"?>\n" +
+                    "<Relationships xmlns=\"").Append(PackageRelationships).Append("\">");
                 foreach (var r in list)
                     rels.Append("<Relationship Id=\"").Append(r.Id).Append("\" Type=\"").Append(Escape(r.Type))
                         .Append("\" Target=\"")
