@@ -61,9 +61,7 @@ public sealed class DocxWriter : IBriefWriter
         package.Relate(Doc, "rIdFooter", Rel + "footer", "/word/footer1.xml");
         package.AddXml("/word/footer1.xml", "application/vnd.openxmlformats-officedocument.wordprocessingml.footer+xml",
             $"<w:ftr xmlns:w=\"{W}\">" + Para("Footer", Run(doc.Info.FooterNote + " · " + T("output.page") + " ")
-                + "<w:fldSimple w:instr=\" PAGE \">"
-                + Run("1")
-                + "</w:fldSimple>") + "</w:ftr>");
+                + "<w:fldSimple w:instr=\" PAGE \">" + Run("1") + "</w:fldSimple>") + "</w:ftr>");
         builder.AddImages();
         package.CoreProperties(doc.Info.Title, doc.Info.Author);
         return package.ToBytes();
@@ -76,9 +74,8 @@ public sealed class DocxWriter : IBriefWriter
     /// <summary>A run of text, with bold or italic properties when given.</summary>
     private static string Run(string text, bool bold = false, bool italic = false, string? style = null)
     {
-        string props = (style is null ? "" : $"<w:rStyle w:val=\"{style}\"/>") + (bold ? "<w:b/>" : "") + (italic
-            ? "<w:i/>"
-            : "");
+        string props = (style is null ? "" : $"<w:rStyle w:val=\"{style}\"/>") + (bold ? "<w:b/>" : "")
+            + (italic ? "<w:i/>" : "");
         return "<w:r>" + (props.Length > 0 ? $"<w:rPr>{props}</w:rPr>" : "")
             + $"<w:t xml:space=\"preserve\">{X(text)}</w:t></w:r>";
     }
@@ -107,7 +104,12 @@ public sealed class DocxWriter : IBriefWriter
                     sb.Append(Para(style, Run(number + h.Text)));
                     break;
                 case ParagraphBlock p:
-                    sb.Append(Para(p.Role switch { ParagraphRole.Note or ParagraphRole.Meta => "Note", ParagraphRole.Subtitle => "Subtitle", _ => "Normal" }, Runs(p.Runs)));
+                    string role = p.Role switch
+                    {
+                        ParagraphRole.Note or ParagraphRole.Meta => "Note", ParagraphRole.Subtitle => "Subtitle",
+                        _ => "Normal",
+                    };
+                    sb.Append(Para(role, Runs(p.Runs)));
                     break;
                 case ListBlock l:
                     int num = 1;
@@ -136,8 +138,8 @@ public sealed class DocxWriter : IBriefWriter
             var sb = new StringBuilder();
             foreach (var r in runs)
             {
-                bool bold = r.Style is RunStyle.Bold or RunStyle.BoldItalic, italic = r
-                    .Style is RunStyle.Italic or RunStyle.BoldItalic;
+                bool bold = r.Style is RunStyle.Bold or RunStyle.BoldItalic,
+                    italic = r.Style is RunStyle.Italic or RunStyle.BoldItalic;
                 if (r.Link is { } link && Uri.TryCreate(link, UriKind.Absolute, out var uri))
                 {
                     if (!links.TryGetValue(link, out var id))
@@ -163,8 +165,7 @@ public sealed class DocxWriter : IBriefWriter
             string before = at < 0 ? label + " " : label[..at], after = at < 0 ? "" : label[(at + 3)..];
             return Para("Caption",
                 Run(before) + $"<w:fldSimple w:instr=\" SEQ {kind} \\* ARABIC \">"
-                    + Run(number.ToString(CultureInfo.InvariantCulture))
-                    + "</w:fldSimple>"
+                    + Run(number.ToString(CultureInfo.InvariantCulture)) + "</w:fldSimple>"
                     + Run(after + " " + caption),
                 "<w:keepNext/>");
         }
@@ -195,7 +196,12 @@ public sealed class DocxWriter : IBriefWriter
             for (int c = 0; c < cells.Count; c++)
             {
                 var align = c < t.Align.Count ? t.Align[c] : CellAlign.Left;
-                string jc = align switch { CellAlign.Right => "<w:jc w:val=\"right\"/>", CellAlign.Center => "<w:jc w:val=\"center\"/>", _ => "" };
+                string jc = align switch
+                {
+                    CellAlign.Right => "<w:jc w:val=\"right\"/>",
+                    CellAlign.Center => "<w:jc w:val=\"center\"/>",
+                    _ => "",
+                };
                 sb.Append("<w:tc>").Append(Para("TableText", Run(cells[c], bold: header), jc)).Append("</w:tc>");
             }
             sb.Append("</w:tr>");
@@ -321,8 +327,8 @@ public sealed class DocxWriter : IBriefWriter
             Style("Footer", "footer", "", $"<w:color w:val=\"{muted}\"/><w:sz w:val=\"16\"/>", primary: false) +
             "<w:style w:type=\"character\" w:styleId=\"Hyperlink\"><w:name w:val=\"Hyperlink\"/><w:rPr><w:color " +
             $"w:val=\"{accent}\"/><w:u w:val=\"single\"/></w:rPr></w:style>" +
-            "<w:style w:type=\"table\" w:styleId=\"BriefTable\"><w:name w:val=\"Brief " +
-            "table\"/><w:tblPr><w:tblBorders>" +
+            "<w:style w:type=\"table\" w:styleId=\"BriefTable\"><w:name w:val=\"Brief table\"/>" +
+            "<w:tblPr><w:tblBorders>" +
             $"<w:top w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/><w:bottom w:val=\"single\" " +
             $"w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/>" +
             $"<w:insideH w:val=\"single\" w:sz=\"4\" w:space=\"0\" w:color=\"{rule}\"/></w:tblBorders>" +
