@@ -111,8 +111,7 @@ public static class GlyphCheck
         if (problems.Count == 0) return;
         if (problems.Count > MaxReported)
             problems = problems.Take(MaxReported)
-                .Append($"… and {problems.Count - MaxReported} more texts with characters the font lacks.")
-                .ToList();
+                .Append($"… and {problems.Count - MaxReported} more texts with characters the font lacks.").ToList();
         throw new BriefTextException(problems);
     }
 

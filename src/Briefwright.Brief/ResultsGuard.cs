@@ -23,8 +23,7 @@ public static class ResultsGuard
         Check(a.Reform.Optimum.SchoolingYears, "discounted optimum");
         foreach (var row in a.Tornado)
             foreach (var v in row.AtLow.LongRunChangePct.Concat(row.AtHigh.LongRunChangePct)
-                .Append(row.AtLow.OptimumYears)
-                .Append(row.AtHigh.OptimumYears))
+                .Append(row.AtLow.OptimumYears).Append(row.AtHigh.OptimumYears))
                 Check(v, $"sensitivity result for {row.Parameter}");
         if (a.MonteCarlo is { } mc)
             foreach (var o in mc.Options) Check(

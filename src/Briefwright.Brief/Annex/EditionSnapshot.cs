@@ -64,14 +64,12 @@ public sealed record EditionSnapshot(
                     .GetDouble(), "%");
         }
         results["optimum"] = ("Output-maximising schooling E*", root.GetProperty("optimum")
-            .GetProperty("schooling_years")
-            .GetDouble(), "years");
+            .GetProperty("schooling_years").GetDouble(), "years");
         if (root.TryGetProperty("analysis", out var analysis))
         {
             var reform = analysis.GetProperty("reform");
             results["discounted_optimum"] = ("Discounted optimum", reform.GetProperty("optimum")
-                .GetProperty("schooling_years")
-                .GetDouble(), "years");
+                .GetProperty("schooling_years").GetDouble(), "years");
             foreach (var o in reform.GetProperty("options").EnumerateArray())
             {
                 var pv = o.GetProperty("present_values")[0];

@@ -31,8 +31,7 @@ public sealed class OutputCurveFigure : IChartDefinition
             : w.T("chart.curve.alt_highest", w.Years(opt.SchoolingYears), w.Years(opt.Within1Pct[0]),
                 w.Years(opt.Within1Pct[1]));
         var sides = results.Options.Select(o => Math.Sign(Math.Round(o.SchoolingYears - opt.SchoolingYears, 1)))
-            .Distinct()
-            .ToList();
+            .Distinct().ToList();
         string options = sides.Count == 1 && sides[0] < 0 ? w.T("chart.curve.alt_below")
             : sides.Count == 1 && sides[0] > 0 ? w.T("chart.curve.alt_above")
             : sides.Count == 1 ? w.T("chart.curve.alt_at")

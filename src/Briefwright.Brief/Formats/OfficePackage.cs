@@ -77,8 +77,7 @@ public sealed class OfficePackage(DateOnly date)
                 "<Default Extension=\"png\" ContentType=\"image/png\"/>");
             foreach (var p in parts.Where(p => !p.Name.EndsWith(".png", StringComparison.Ordinal)))
                 types.Append("<Override PartName=\"").Append(Escape(p.Name)).Append("\" ContentType=\"")
-                    .Append(Escape(p.ContentType))
-                    .Append("\"/>");
+                    .Append(Escape(p.ContentType)).Append("\"/>");
             Entry("[Content_Types].xml", Encoding.UTF8.GetBytes(types.Append("</Types>").ToString()));
             foreach (var (source, list) in relationships.OrderBy(r => r.Key, StringComparer.Ordinal))
             {
@@ -87,11 +86,8 @@ public sealed class OfficePackage(DateOnly date)
                     "<Relationships xmlns=\"").Append(PackageRelationships).Append("\">");
                 foreach (var r in list)
                     rels.Append("<Relationship Id=\"").Append(r.Id).Append("\" Type=\"").Append(Escape(r.Type))
-                        .Append("\" Target=\"")
-                        .Append(Escape(r.Target))
-                        .Append('"')
-                        .Append(r.External ? " TargetMode=\"External\"" : "")
-                        .Append("/>");
+                        .Append("\" Target=\"").Append(Escape(r.Target)).Append('"')
+                        .Append(r.External ? " TargetMode=\"External\"" : "").Append("/>");
                 rels.Append("</Relationships>");
                 int slash = source.LastIndexOf('/');
                 string relsName = source == "/"
