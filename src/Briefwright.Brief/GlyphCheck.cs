@@ -51,10 +51,11 @@ public static class GlyphCheck
     {
         var faces = fonts is { } f
             ? new[] { ("regular", f.Regular), ("bold", f.Bold), ("italic", f.Italic), ("bold italic", f.BoldItalic) }
-            : new[] { RunStyle.Regular, RunStyle.Bold, RunStyle.Italic,
-                RunStyle.BoldItalic }.Select(s => (Face: s == RunStyle.BoldItalic ? "bold italic" : s.ToString().ToLowerInvariant(), Bytes: BundledFonts.Bytes(s))).ToArray();
-        var sets = faces.Select(x => (x.Item1, Set: FontSubsetter.Characters(x.Item2))).Where(x => x.Set is not null)
-            .ToList();
+            : new[] { RunStyle.Regular, RunStyle.Bold, RunStyle.Italic, RunStyle.BoldItalic }
+                .Select(s => (Face: s == RunStyle.BoldItalic ? "bold italic" : s.ToString().ToLowerInvariant(),
+                    Bytes: BundledFonts.Bytes(s))).ToArray();
+        var sets = faces.Select(x => (x.Item1, Set: FontSubsetter.Characters(x.Item2)))
+            .Where(x => x.Set is not null).ToList();
         if (sets.Count == 0) return; // the font library is unavailable: nothing to check against
         string fontName = fonts is null ? "the bundled font (Liberation Sans)" : "the theme's fonts";
         var problems = new List<string>();
@@ -124,10 +125,9 @@ public static class GlyphCheck
         var texts = scenario.Texts.Where(t => t.Path.EndsWith(".label", StringComparison.Ordinal)).Select(t => t.Value)
             .Concat(language.Texts
                 .Where(t => t.Key.StartsWith("chart.", StringComparison.Ordinal)
-                || t.Key.StartsWith("parameter.", StringComparison.Ordinal)
+                    || t.Key.StartsWith("parameter.", StringComparison.Ordinal)
                     || t.Key.StartsWith("number.", StringComparison.Ordinal)
-                || t.Key
-                    .StartsWith("unit.", StringComparison.Ordinal))
+                    || t.Key.StartsWith("unit.", StringComparison.Ordinal))
                 .Select(t => t.Value.Text));
         var set = new HashSet<int>();
         foreach (string text in texts)

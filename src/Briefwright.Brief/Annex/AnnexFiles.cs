@@ -75,8 +75,9 @@ public static class AnnexFiles
     private static readonly string[] MonteCarloHeader =
     {
         "result", "unit", "option_id", "p5", "p25", "p50", "p75", "p95", "mean", "mean_standard_error",
-        "p5_low", "p5_high", "p25_low", "p25_high", "p50_low", "p50_high", "p75_low", "p75_high", "p95_low", "p95_high",
-        "probability_positive_fraction", "probability_low_fraction", "probability_high_fraction", "positive_draws", "draws",
+        "p5_low", "p5_high", "p25_low", "p25_high", "p50_low", "p50_high", "p75_low", "p75_high", "p95_low",
+        "p95_high", "probability_positive_fraction", "probability_low_fraction", "probability_high_fraction",
+        "positive_draws", "draws",
     };
 
     /// <summary>
@@ -87,8 +88,8 @@ public static class AnnexFiles
         PercentileSummary s, Probability? p) => new object?[]
     {
         result, unit, optionId, s.P5, s.P25, s.P50, s.P75, s.P95, s.Mean, s.MeanStandardError,
-        s.P5Interval.Low, s.P5Interval.High, s.P25Interval.Low, s.P25Interval.High, s.P50Interval.Low, s.P50Interval
-            .High,
+        s.P5Interval.Low, s.P5Interval.High, s.P25Interval.Low, s.P25Interval.High,
+        s.P50Interval.Low, s.P50Interval.High,
         s.P75Interval.Low, s.P75Interval.High, s.P95Interval.Low, s.P95Interval.High,
         p?.Estimate, p?.Low, p?.High, p?.Count, p?.Draws,
     };

@@ -192,8 +192,8 @@ public static class EditionPlanner
                 if (intact && !request.Force) return new EditionPlan.Skip(previous);
                 string[] why = intact ? ["force"] : ["files"];
                 // Same inputs: the rebuild writes the same bytes, so present files that match need no copy.
-                if (current.ChangedFiles.Count == 0) return new EditionPlan.Build(previous, false, null, null) {
-                    Changed = why };
+                if (current.ChangedFiles.Count == 0)
+                    return new EditionPlan.Build(previous, false, null, null) { Changed = why };
                 return new EditionPlan.Build(previous, false, Recovered(current, previous), null) { Changed = why };
             }
             var changed = diff.All();
@@ -211,13 +211,17 @@ public static class EditionPlanner
         }
         if (current.Empty)
             return new EditionPlan.Build(
-                current.HighestArchivedEdition > 0 ? Math.Max(requested, afterArchive) : requested, false, null,
-                null) { Changed = ["new"] };
+                current.HighestArchivedEdition > 0 ? Math.Max(requested, afterArchive) : requested, false, null, null)
+            {
+                Changed = ["new"],
+            };
         // A damaged or missing manifest beside files of this brief: keep them as found, then start a new edition.
         int found = current.Edition ?? 0;
         int edition = Math.Max(requested, Math.Max(found + 1, afterArchive));
-        return new EditionPlan.Build(edition, found > 0, Recovered(current, current.Edition), null) {
-            Changed = ["files"] };
+        return new EditionPlan.Build(edition, found > 0, Recovered(current, current.Edition), null)
+        {
+            Changed = ["files"],
+        };
     }
 
     /// <summary>
@@ -250,12 +254,12 @@ public static class EditionPlanner
         if (plan.Archive is not null || current.Manifest != ManifestCondition.Valid) return plan;
         var present = current.Files.Except(current.MissingFiles).ToList();
         if (present.Count == 0) return plan;
-        if (currentSha256 is not null && present.All(
-            f => newSha256.TryGetValue(f, out var h) && currentSha256.TryGetValue(f, out var was) && h == was)) return plan;
+        if (currentSha256 is not null && present.All(f =>
+                newSha256.TryGetValue(f, out var h) && currentSha256.TryGetValue(f, out var was) && h == was))
+            return plan;
         int edition = current.Edition ?? 0;
-        return plan with { Archive = current.MissingFiles.Count == 0 && current.ChangedFiles.Count == 0
-            ? Verified(current, edition)
-            : Recovered(current, edition) };
+        bool intact = current.MissingFiles.Count == 0 && current.ChangedFiles.Count == 0;
+        return plan with { Archive = intact ? Verified(current, edition) : Recovered(current, edition) };
     }
 
     private static EditionPlan.Build NewEdition(CurrentEdition current, int requested, bool intact, string? compareWith,
@@ -276,9 +280,8 @@ public static class EditionPlanner
         public List<string> Outputs { get; } = [];
 
         public IReadOnlyList<string> All() =>
-            [.. Edition, .. Date
-                ? [EditionInput.Date]
-                : Array.Empty<string>(), .. Presentation, .. Outputs.Select(o => EditionInput.OutputPrefix + o)];
+            [.. Edition, .. Date ? [EditionInput.Date] : Array.Empty<string>(), .. Presentation,
+                .. Outputs.Select(o => EditionInput.OutputPrefix + o)];
     }
 
     /// <summary>Which inputs differ, sorted by what a change of each means.</summary>
@@ -332,8 +335,8 @@ public static class EditionPlanner
     private static ArchiveStep Recovered(CurrentEdition current, int? edition)
     {
         var reasons = new List<string>();
-        if (current.Manifest == ManifestCondition.Damaged) reasons.Add(
-            "the manifest was damaged (unreadable, edited, or naming a path outside the output folder)");
+        if (current.Manifest == ManifestCondition.Damaged)
+            reasons.Add("the manifest was damaged (unreadable, edited, or naming a path outside the output folder)");
         if (current.Manifest == ManifestCondition.Missing) reasons.Add("the manifest was missing");
         foreach (var f in current.MissingFiles) reasons.Add($"missing: {f}");
         foreach (var f in current.ChangedFiles) reasons.Add($"not as the manifest recorded it: {f}");

@@ -82,9 +82,8 @@ public sealed partial class HtmlWriter : IBriefWriter
             string number = "";
             if (h.Level == 2) { section++; subsection = 0; number = $"{section}"; }
             else if (h.Level == 3) { subsection++; number = $"{section}.{subsection}"; }
-            headings.Add((h.Level, number, h.Text, h.Level == 1
-                ? "title"
-                : h.Level > 3 ? $"h-{headings.Count}" : "s-" + number.Replace('.', '-')));
+            headings.Add((h.Level, number, h.Text,
+                h.Level == 1 ? "title" : h.Level > 3 ? $"h-{headings.Count}" : "s-" + number.Replace('.', '-')));
         }
         return headings;
     }
@@ -99,8 +98,8 @@ public sealed partial class HtmlWriter : IBriefWriter
         {
             sb.Append("<nav aria-label=\"").Append(Attr(T("output.contents"))).Append("\">\n<p class=\"toc-title\">")
                 .Append(Text(T("output.contents"))).Append("</p>\n<ol>\n");
-            foreach (var h in sections) sb.Append("<li><a href=\"#").Append(h.Id).Append("\">").Append(Text(h.Text))
-                .Append("</a></li>\n");
+            foreach (var h in sections)
+                sb.Append("<li><a href=\"#").Append(h.Id).Append("\">").Append(Text(h.Text)).Append("</a></li>\n");
             sb.Append("</ol>\n</nav>\n");
         }
     }
@@ -203,8 +202,9 @@ public sealed partial class HtmlWriter : IBriefWriter
                 string boxId = $"box-{++state.Boxes}";
                 sb.Append("<section class=\"box\"").Append(b.Title is null ? "" : $" aria-labelledby=\"{boxId}\"")
                     .Append(">\n");
-                if (b.Title is not null) sb.Append("<h2 class=\"box-title\" id=\"").Append(boxId).Append("\">")
-                    .Append(Text(b.Title)).Append("</h2>\n");
+                if (b.Title is not null)
+                    sb.Append("<h2 class=\"box-title\" id=\"").Append(boxId).Append("\">")
+                        .Append(Text(b.Title)).Append("</h2>\n");
                 foreach (var inner in b.Content) Block(sb, inner, state);
                 sb.Append("</section>\n");
                 break;
@@ -243,8 +243,9 @@ public sealed partial class HtmlWriter : IBriefWriter
             sb.Append("</tr>\n");
         }
         sb.Append("</tbody>\n</table>\n</div>\n");
-        if (t.Source is not null) sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd()))
-            .Append("</em> ").Append(Text(t.Source)).Append("</p>\n");
+        if (t.Source is not null)
+            sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd()))
+                .Append("</em> ").Append(Text(t.Source)).Append("</p>\n");
     }
 
     private static string AlignClass(TableBlock t, int c) => c < t.Align.Count ? t.Align[c] switch
@@ -264,12 +265,14 @@ public sealed partial class HtmlWriter : IBriefWriter
         sb.Append("<figure id=\"").Append(Attr(id)).Append("\">\n<figcaption><span class=\"label\">")
             .Append(Text(Label(theme.FigureLabel, number))).Append("</span> ").Append(Text(f.Caption))
             .Append("</figcaption>\n");
-        if (chart?.Svg is { } svg) sb.Append(
-            InlineSvg(svg, id, $"{Label(theme.FigureLabel, number)} {f.Caption}", f.AltText)).Append('\n');
-        else sb.Append("<p role=\"img\" aria-label=\"").Append(Attr(f.AltText)).Append("\">").Append(Text(f.AltText))
-            .Append("</p>\n");
-        if (f.Source is not null) sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd()))
-            .Append("</em> ").Append(Text(f.Source)).Append("</p>\n");
+        if (chart?.Svg is { } svg)
+            sb.Append(InlineSvg(svg, id, $"{Label(theme.FigureLabel, number)} {f.Caption}", f.AltText)).Append('\n');
+        else
+            sb.Append("<p role=\"img\" aria-label=\"").Append(Attr(f.AltText)).Append("\">").Append(Text(f.AltText))
+                .Append("</p>\n");
+        if (f.Source is not null)
+            sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd()))
+                .Append("</em> ").Append(Text(f.Source)).Append("</p>\n");
         sb.Append("</figure>\n");
     }
 

@@ -48,10 +48,7 @@ public sealed class OfficePackage(DateOnly date)
             $"<dcterms:created xsi:type=\"dcterms:W3CDTF\">{when}</dcterms:created><dcterms:modified " +
             $"xsi:type=\"dcterms:W3CDTF\">{when}</dcterms:modified>" +
             "</cp:coreProperties>");
-        Relate(
-            "/",
-            "rIdCore",
-            "http://schemas.openxmlformats.org/package/2006/relationships/metadata/core-properties",
+        Relate("/", "rIdCore", "http://schemas.openxmlformats.org/package/2006/relationships/metadata/core-properties",
             "/docProps/core.xml");
     }
 
@@ -73,8 +70,8 @@ public sealed class OfficePackage(DateOnly date)
                 .Append("<Default Extension=\"rels\" " +
                     "ContentType=\"application/vnd.openxmlformats-package.relationships+xml\"/><Default " +
                     "Extension=\"xml\" ContentType=\"application/xml\"/>");
-            if (parts.Any(p => p.Name.EndsWith(".png", StringComparison.Ordinal))) types.Append(
-                "<Default Extension=\"png\" ContentType=\"image/png\"/>");
+            if (parts.Any(p => p.Name.EndsWith(".png", StringComparison.Ordinal)))
+                types.Append("<Default Extension=\"png\" ContentType=\"image/png\"/>");
             foreach (var p in parts.Where(p => !p.Name.EndsWith(".png", StringComparison.Ordinal)))
                 types.Append("<Override PartName=\"").Append(Escape(p.Name)).Append("\" ContentType=\"")
                     .Append(Escape(p.ContentType)).Append("\"/>");

@@ -71,12 +71,13 @@ public sealed class WorkbookWriter : IBriefWriter
             ("Present values", "Discounted value of each option's gain, per discount schedule, in years of output " +
                 "per person."),
         };
-        if (a.Tornado.Count > 0) sheets.Add(
-            ("Sensitivity", "Each option's long-run change with one assumption at the low and high end of its range."));
-        if (a.MonteCarlo is not null) sheets.Add(
-            ("Monte Carlo", "Percentiles over the Monte Carlo draws, with the probability of a gain."));
-        if (a.Sobol is not null) sheets.Add(
-            ("Sobol", "Which assumption matters most: Sobol indices with their bootstrap intervals."));
+        if (a.Tornado.Count > 0)
+            sheets.Add(("Sensitivity",
+                "Each option's long-run change with one assumption at the low and high end of its range."));
+        if (a.MonteCarlo is not null)
+            sheets.Add(("Monte Carlo", "Percentiles over the Monte Carlo draws, with the probability of a gain."));
+        if (a.Sobol is not null)
+            sheets.Add(("Sobol", "Which assumption matters most: Sobol indices with their bootstrap intervals."));
         var about = new List<IReadOnlyList<object?>>
         {
             Row("What this is", $"The spreadsheet annex of the brief \"{brief.Title}\": its results tables as " +
