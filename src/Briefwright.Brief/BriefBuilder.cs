@@ -64,8 +64,7 @@ public static class BriefBuilder
         var annex = runner.Start(
             () => AnnexFiles.Build(solved, options.ChartImages ? imaged.GetAwaiter().GetResult() : charts));
         var (json, changes, markdown) = text.GetAwaiter().GetResult();
-        var figures = charts.ToDictionary(
-            c => c.Id,
+        var figures = charts.ToDictionary(c => c.Id,
             c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
         var document = DocumentOf(scenario, options, language, words, blocks, fonts);

@@ -80,9 +80,7 @@ public static class GlyphCheck
 
         foreach (var field in scenario.Texts)
             if (Missing(field.Value, out int i) is { } why)
-                problems.Add(new Diagnostic(
-                    field.At,
-                    field.Path,
+                problems.Add(new Diagnostic(field.At, field.Path,
                     $"cannot be shown: {why}; use another character or a theme font that has it",
                     $"{BindQuote(field.Value)} (character {i + 1})").Message);
 

@@ -32,9 +32,7 @@ public sealed record ResultsDocument(
     public static ResultsDocument From(SolvedScenario solved)
         => From(solved.Scenario, solved.BalancedGrowth, solved.Analysis);
 
-    public static ResultsDocument From(
-        ScenarioDocument scenario,
-        BalancedGrowthResults results,
+    public static ResultsDocument From(ScenarioDocument scenario, BalancedGrowthResults results,
         AnalysisResults analysis) => new(
         scenario.Brief.Id,
         scenario.Brief.Title,
