@@ -49,12 +49,7 @@ public static class GlyphCheck
     public static void Check(ScenarioDocument scenario, BriefTemplate template, BriefLanguage language,
         (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? fonts)
     {
-        var faces = fonts is { } f
-            ? new[] { ("regular", f.Regular), ("bold", f.Bold), ("italic", f.Italic), ("bold italic", f.BoldItalic) }
-            : new[] { RunStyle.Regular, RunStyle.Bold, RunStyle.Italic, RunStyle.BoldItalic }
-                .Select(s => (Face: s == RunStyle.BoldItalic ? "bold italic" : s.ToString().ToLowerInvariant(),
-                    Bytes: BundledFonts.Bytes(s))).ToArray();
-        var sets = faces.Select(x => (x.Item1, Set: FontSubsetter.Characters(x.Item2)))
+        var sets = Faces(fonts).Select(x => (x.Item1, Set: FontSubsetter.Characters(x.Item2)))
             .Where(x => x.Set is not null).ToList();
         if (sets.Count == 0) return; // the font library is unavailable: nothing to check against
         string fontName = fonts is null ? "the bundled font (Liberation Sans)" : "the theme's fonts";
@@ -108,11 +103,24 @@ public static class GlyphCheck
         }
 
         if (problems.Count == 0) return;
-        if (problems.Count > MaxReported)
-            problems = problems.Take(MaxReported)
-                .Append($"… and {problems.Count - MaxReported} more texts with characters the font lacks.").ToList();
-        throw new BriefTextException(problems);
+        throw new BriefTextException(Capped(problems));
     }
+
+    /// <summary>The faces a brief may draw text in, by name, with their font bytes.</summary>
+    private static (string Face, byte[] Bytes)[] Faces(
+        (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? fonts) =>
+        fonts is { } f
+            ? new[] { ("regular", f.Regular), ("bold", f.Bold), ("italic", f.Italic), ("bold italic", f.BoldItalic) }
+            : new[] { RunStyle.Regular, RunStyle.Bold, RunStyle.Italic, RunStyle.BoldItalic }
+                .Select(s => (Face: s == RunStyle.BoldItalic ? "bold italic" : s.ToString().ToLowerInvariant(),
+                    Bytes: BundledFonts.Bytes(s))).ToArray();
+
+    /// <summary>The first <see cref="MaxReported"/> problems, and a line counting the rest.</summary>
+    private static List<string> Capped(List<string> problems) =>
+        problems.Count <= MaxReported
+            ? problems
+            : problems.Take(MaxReported)
+                .Append($"… and {problems.Count - MaxReported} more texts with characters the font lacks.").ToList();
 
     /// <summary>
     /// Every character the brief's charts may draw that comes from the scenario's labels or the language's chart words.

@@ -62,22 +62,7 @@ public sealed class WorkbookWriter : IBriefWriter
         var labels = solved.BalancedGrowth.Options.ToDictionary(o => o.Id, o => o.Label, StringComparer.Ordinal);
         string Label(string id) => labels.GetValueOrDefault(id, id);
         var tables = new List<SheetTable>();
-
-        var sheets = new List<(string, string)>
-        {
-            ("Assumptions", "Every assumption of the scenario with its unit and source."),
-            ("Options", "Each option once the economy has adjusted (balanced growth path)."),
-            ("Reform paths", "Output per person against no reform, year by year after the reform, per option."),
-            ("Present values", "Discounted value of each option's gain, per discount schedule, in years of output " +
-                "per person."),
-        };
-        if (a.Tornado.Count > 0)
-            sheets.Add(("Sensitivity",
-                "Each option's long-run change with one assumption at the low and high end of its range."));
-        if (a.MonteCarlo is not null)
-            sheets.Add(("Monte Carlo", "Percentiles over the Monte Carlo draws, with the probability of a gain."));
-        if (a.Sobol is not null)
-            sheets.Add(("Sobol", "Which assumption matters most: Sobol indices with their bootstrap intervals."));
+        var sheets = Sheets(a);
         var about = new List<IReadOnlyList<object?>>
         {
             Row("What this is", $"The spreadsheet annex of the brief \"{brief.Title}\": its results tables as " +
@@ -118,6 +103,27 @@ public sealed class WorkbookWriter : IBriefWriter
         AddReformSheets(tables, a, sheets, Label);
         AddUncertaintySheets(tables, a, sheets, Label);
         return tables;
+    }
+
+    /// <summary>Each sheet after "About", by name, with the sentence that describes it.</summary>
+    private static List<(string, string)> Sheets(AnalysisResults a)
+    {
+        var sheets = new List<(string, string)>
+        {
+            ("Assumptions", "Every assumption of the scenario with its unit and source."),
+            ("Options", "Each option once the economy has adjusted (balanced growth path)."),
+            ("Reform paths", "Output per person against no reform, year by year after the reform, per option."),
+            ("Present values", "Discounted value of each option's gain, per discount schedule, in years of output " +
+                "per person."),
+        };
+        if (a.Tornado.Count > 0)
+            sheets.Add(("Sensitivity",
+                "Each option's long-run change with one assumption at the low and high end of its range."));
+        if (a.MonteCarlo is not null)
+            sheets.Add(("Monte Carlo", "Percentiles over the Monte Carlo draws, with the probability of a gain."));
+        if (a.Sobol is not null)
+            sheets.Add(("Sobol", "Which assumption matters most: Sobol indices with their bootstrap intervals."));
+        return sheets;
     }
 
     /// <summary>The reform paths, present values and (when the scenario asks for them) sensitivity sheets;
