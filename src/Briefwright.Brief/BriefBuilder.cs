@@ -24,7 +24,8 @@ public static class BriefBuilder
     {
         // Text the brief could not show is refused before the model runs (Compose checks again for its other callers).
         GlyphCheck.Check(scenario, template, GlyphCheck.LanguageOf(scenario), (options ?? BuildOptions.Default).Fonts);
-        return Compose(ScenarioSolver.Solve(scenario, (options ?? BuildOptions.Default).ModelThreads), template, options);
+        return Compose(ScenarioSolver.Solve(scenario, (options ?? BuildOptions.Default).ModelThreads), template,
+            options);
     }
 
     /// <summary>Everything after the model: charts, results data, filled template, layout and PDF.</summary>
@@ -42,9 +43,9 @@ public static class BriefBuilder
         var drawing = ChartDrawingFor(scenario, fonts);
         var specs = ChartSpecs(solved, drawing, options.Theme.ChartColours);
         var figureRefs = specs.Select(c => new FigureRef(c.Id, c.Caption)).ToList();
-        // The results data and the filled template need the charts' ids and captions, not their drawings; the data annex
-        // needs the drawn charts, not the brief. The caller's runner decides where they are made (in order here, or on
-        // spare cores while the charts and the brief are laid out).
+        // The results data and the filled template need the charts' ids and captions, not their drawings; the data
+        // annex needs the drawn charts, not the brief. The caller's runner decides where they are made (in order here,
+        // or on spare cores while the charts and the brief are laid out).
         var runner = options.Runner;
         var text = runner.Start(() =>
         {
@@ -60,9 +61,11 @@ public static class BriefBuilder
         var formats = options.Formats;
         bool copies = options.ChartImages || (formats & (OutputFormat.Html | OutputFormat.Docx)) != 0;
         var imaged = runner.Start(() => copies ? ChartSpec.AddImages(charts, specs, drawing, runner.Threads) : charts);
-        var annex = runner.Start(() => AnnexFiles.Build(solved, options.ChartImages ? imaged.GetAwaiter().GetResult() : charts));
+        var annex = runner.Start(
+            () => AnnexFiles.Build(solved, options.ChartImages ? imaged.GetAwaiter().GetResult() : charts));
         var (json, changes, markdown) = text.GetAwaiter().GetResult();
-        var figures = charts.ToDictionary(c => c.Id, c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
+        var figures = charts.ToDictionary(c => c.Id,
+            c => new FigureBlock(c.Id, c.Pdf, c.Page, c.WidthPt, c.HeightPt, c.Caption, c.Source, c.AltText));
         var blocks = MarkdownReader.Read(markdown, figures);
         var document = DocumentOf(scenario, options, language, words, blocks, fonts);
         // The other formats are written from the same blocks and charts as the PDF, on the spare core while it is laid
@@ -112,21 +115,28 @@ public static class BriefBuilder
     /// Output files are named from the scenario id, the brief's date and, from edition 2 on, the edition:
     /// auroria-national-2026-11-30, auroria-national-2026-11-30-edition-2. No two editions share a name.
     /// </summary>
-    public static string FileStem(ScenarioDocument scenario) => FileStem(scenario.Brief.Id, scenario.Brief.Date, scenario.Brief.Edition);
+    public static string FileStem(ScenarioDocument scenario)
+        => FileStem(scenario.Brief.Id, scenario.Brief.Date, scenario.Brief.Edition);
 
     public static string FileStem(string id, DateOnly date, int edition) =>
-        $"{id}-{date:yyyy-MM-dd}" + (edition > 1 ? $"-edition-{edition.ToString(System.Globalization.CultureInfo.InvariantCulture)}" : "");
+        $"{id}-{date:yyyy-MM-dd}" + (edition > 1
+            ? $"-edition-{edition.ToString(System.Globalization.CultureInfo.InvariantCulture)}"
+            : "");
 
-    /// <summary>Whether an assumption as shown or a headline result differs from a previous edition's results data.</summary>
+    /// <summary>
+    /// Whether an assumption as shown or a headline result differs from a previous edition's results data.
+    /// </summary>
     public static bool ResultsDiffer(SolvedScenario solved, string previousJson) =>
         EditionSnapshot.Compare(EditionSnapshot.FromJson(previousJson),
             EditionSnapshot.FromJson(ResultsJson.Write(ResultsDocument.From(solved)))).Any;
 
-    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<RenderedChart> charts, BriefTemplate template, EditionChanges? changes = null) =>
+    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<RenderedChart> charts,
+        BriefTemplate template, EditionChanges? changes = null) =>
         FillTemplate(solved, charts.Select(c => new FigureRef(c.Id, c.Caption)).ToList(), template, changes);
 
     /// <summary>Fills the template; the figures are given by id and caption.</summary>
-    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<FigureRef> figures, BriefTemplate template, EditionChanges? changes = null)
+    public static string FillTemplate(SolvedScenario solved, IReadOnlyList<FigureRef> figures, BriefTemplate template,
+        EditionChanges? changes = null)
     {
         var scenario = solved.Scenario;
         var language = GlyphCheck.LanguageOf(scenario);

@@ -13,16 +13,24 @@ public sealed record BuildOptions
     /// <summary>The theme's logo, read by the caller (the command line), with its pixel size.</summary>
     public (byte[] Png, int Width, int Height)? Logo { get; init; }
 
-    /// <summary>The theme's TrueType fonts (regular, bold, italic, bold italic), read by the caller; null for the bundled font.</summary>
+    /// <summary>
+    /// The theme's TrueType fonts (regular, bold, italic, bold italic), read by the caller; null for the bundled font.
+    /// </summary>
     public (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? Fonts { get; init; }
 
-    /// <summary>The previous edition's results data, to write the "changes since the previous edition" section.</summary>
+    /// <summary>
+    /// The previous edition's results data, to write the "changes since the previous edition" section.
+    /// </summary>
     public EditionSnapshot? PreviousEdition { get; init; }
 
-    /// <summary>The formats written beside the PDF (web page, workbook, editable document); not an input of the brief's edition.</summary>
+    /// <summary>
+    /// The formats written beside the PDF (web page, workbook, editable document); not an input of the brief's edition.
+    /// </summary>
     public Formats.OutputFormat Formats { get; init; } = Briefwright.Brief.Formats.OutputFormats.Default;
 
-    /// <summary>Why this is a new edition, by input name (the edition planner's <c>Changed</c>): said in the changes section.</summary>
+    /// <summary>
+    /// Why this is a new edition, by input name (the edition planner's <c>Changed</c>): said in the changes section.
+    /// </summary>
     public IReadOnlyList<string> EditionCauses { get; init; } = [];
 
     /// <summary>Also render each chart as SVG and PNG for the data annex.</summary>

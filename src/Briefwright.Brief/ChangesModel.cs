@@ -32,11 +32,14 @@ public sealed class ChangesModel(BriefLanguage language) : TemplateFunctions(lan
         if (changes.Assumptions.Count > 0)
             text += Md.Table(T("changes.assumptions_caption", changes.PreviousEdition, changes.PreviousDate), null,
                 new[] { T("table.parameter"), T("changes.previous"), T("changes.now"), T("table.source") },
-                changes.Assumptions.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? T("changes.not_given") }), new HashSet<int> { 1, 2 }) + "\n";
+                changes.Assumptions.Select(c =>
+                    (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? T("changes.not_given") }),
+                new HashSet<int> { 1, 2 }) + "\n";
         if (changes.Results.Count > 0)
             text += Md.Table(T("changes.results_caption", changes.PreviousEdition), null,
                 new[] { T("changes.result"), T("changes.previous"), T("changes.now"), T("changes.difference") },
-                changes.Results.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "" }), new HashSet<int> { 1, 2, 3 });
+                changes.Results.Select(c => (IReadOnlyList<string>)new[] { c.Label, c.Old, c.New, c.Detail ?? "" }),
+                new HashSet<int> { 1, 2, 3 });
         var causes = Causes(changes, text.Length > 0);
         if (text.Length == 0)
             return (causes.Count > 0 ? T("changes.none_follows", Join(causes)) : T("changes.none")) + "\n";
@@ -45,7 +48,8 @@ public sealed class ChangesModel(BriefLanguage language) : TemplateFunctions(lan
 
     /// <summary>
     /// The reasons for a new edition that the tables do not show, in words: a changed template, other content of the
-    /// scenario (its title, question, options' wording or notes), the edition <c>brief.edition</c> asks for, a new tool.
+    /// scenario (its title, question, options' wording or notes), the edition <c>brief.edition</c> asks for, a new
+    /// tool.
     /// </summary>
     public IReadOnlyList<string> Causes(EditionChanges changes, bool tables)
     {

@@ -35,20 +35,22 @@ public static class GlyphCheck
     {
         string tag = scenario.Brief.Language;
         if (BriefLanguage.ForTag(tag) is { } language) return language;
-        var at = scenario.Texts.FirstOrDefault(t => t.Path == "brief.language")?.At ?? new SourceSpan(scenario.Files.FirstOrDefault() ?? "scenario", 1, 1);
+        var at = scenario.Texts.FirstOrDefault(t => t.Path == "brief.language")?.At
+            ?? new SourceSpan(scenario.Files.FirstOrDefault() ?? "scenario", 1, 1);
         var d = new Diagnostic(at, "brief.language",
-            $"must be a language the tool has texts for ({string.Join(", ", BriefLanguage.BuiltIn.Keys.Order(StringComparer.Ordinal))}); a language is added with one file, templates/languages/<code>.texts (see docs/templates.md)",
+            "must be a language the tool has texts for " +
+            $"({string.Join(", ", BriefLanguage.BuiltIn.Keys.Order(StringComparer.Ordinal))}); a language is added " +
+            "with one file, templates/languages/<code>.texts (see docs/templates.md)",
             $"'{tag}'");
         throw new BriefTextException([d.Message]);
     }
 
     /// <summary>Throws <see cref="BriefTextException"/> naming every text with a character the fonts lack.</summary>
-    public static void Check(ScenarioDocument scenario, BriefTemplate template, BriefLanguage language, (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? fonts)
+    public static void Check(ScenarioDocument scenario, BriefTemplate template, BriefLanguage language,
+        (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? fonts)
     {
-        var faces = fonts is { } f
-            ? new[] { ("regular", f.Regular), ("bold", f.Bold), ("italic", f.Italic), ("bold italic", f.BoldItalic) }
-            : new[] { RunStyle.Regular, RunStyle.Bold, RunStyle.Italic, RunStyle.BoldItalic }.Select(s => (Face: s == RunStyle.BoldItalic ? "bold italic" : s.ToString().ToLowerInvariant(), Bytes: BundledFonts.Bytes(s))).ToArray();
-        var sets = faces.Select(x => (x.Item1, Set: FontSubsetter.Characters(x.Item2))).Where(x => x.Set is not null).ToList();
+        var sets = Faces(fonts).Select(x => (x.Item1, Set: FontSubsetter.Characters(x.Item2)))
+            .Where(x => x.Set is not null).ToList();
         if (sets.Count == 0) return; // the font library is unavailable: nothing to check against
         string fontName = fonts is null ? "the bundled font (Liberation Sans)" : "the theme's fonts";
         var problems = new List<string>();
@@ -63,7 +65,8 @@ public static class GlyphCheck
                 {
                     var lacking = sets.Where(s => !s.Set!.Contains(c)).Select(s => s.Item1).ToList();
                     if (lacking.Count > 0)
-                        return $"U+{c:X4} '{rune}' is in no face of {fontName} that the brief may draw it in ({string.Join(", ", lacking)})";
+                        return $"U+{c:X4} '{rune}' is in no face of {fontName} that the brief may draw it in " +
+                            $"({string.Join(", ", lacking)})";
                 }
                 index += rune.Utf16SequenceLength;
             }
@@ -72,7 +75,9 @@ public static class GlyphCheck
 
         foreach (var field in scenario.Texts)
             if (Missing(field.Value, out int i) is { } why)
-                problems.Add(new Diagnostic(field.At, field.Path, $"cannot be shown: {why}; use another character or a theme font that has it", $"{BindQuote(field.Value)} (character {i + 1})").Message);
+                problems.Add(new Diagnostic(field.At, field.Path,
+                    $"cannot be shown: {why}; use another character or a theme font that has it",
+                    $"{BindQuote(field.Value)} (character {i + 1})").Message);
 
         // The template and the language's texts are the same for every brief of a batch: checked once per font.
         var once = (template.Hash, language.Code, fonts?.Regular);
@@ -85,7 +90,8 @@ public static class GlyphCheck
                 if (Missing(text, out int i) is { } why)
                 {
                     var (l, c) = Advance(text, i, line, column);
-                    problems.Add($"{template.Path}:{l}:{c}: template text cannot be shown: {why}. Got {BindQuote(text)}.");
+                    problems.Add(
+                        $"{template.Path}:{l}:{c}: template text cannot be shown: {why}. Got {BindQuote(text)}.");
                 }
 
             foreach (var (key, value) in language.Texts.OrderBy(t => t.Value.Line))
@@ -97,19 +103,38 @@ public static class GlyphCheck
         }
 
         if (problems.Count == 0) return;
-        if (problems.Count > MaxReported)
-            problems = problems.Take(MaxReported).Append($"… and {problems.Count - MaxReported} more texts with characters the font lacks.").ToList();
-        throw new BriefTextException(problems);
+        throw new BriefTextException(Capped(problems));
     }
 
-    /// <summary>Every character the brief's charts may draw that comes from the scenario's labels or the language's chart words.</summary>
+    /// <summary>The faces a brief may draw text in, by name, with their font bytes.</summary>
+    private static (string Face, byte[] Bytes)[] Faces(
+        (byte[] Regular, byte[] Bold, byte[] Italic, byte[] BoldItalic)? fonts) =>
+        fonts is { } f
+            ? new[] { ("regular", f.Regular), ("bold", f.Bold), ("italic", f.Italic), ("bold italic", f.BoldItalic) }
+            : new[] { RunStyle.Regular, RunStyle.Bold, RunStyle.Italic, RunStyle.BoldItalic }
+                .Select(s => (Face: s == RunStyle.BoldItalic ? "bold italic" : s.ToString().ToLowerInvariant(),
+                    Bytes: BundledFonts.Bytes(s))).ToArray();
+
+    /// <summary>The first <see cref="MaxReported"/> problems, and a line counting the rest.</summary>
+    private static List<string> Capped(List<string> problems) =>
+        problems.Count <= MaxReported
+            ? problems
+            : problems.Take(MaxReported)
+                .Append($"… and {problems.Count - MaxReported} more texts with characters the font lacks.").ToList();
+
+    /// <summary>
+    /// Every character the brief's charts may draw that comes from the scenario's labels or the language's chart words.
+    /// </summary>
     public static IEnumerable<int> ChartCharacters(ScenarioDocument scenario, BriefLanguage language)
     {
         // Charts show the scenario's labels (options, appraisal rules); titles, sources and notes never reach them.
-        var texts = scenario.Texts.Where(t => t.Path.EndsWith(".label", StringComparison.Ordinal)).Select(t => t.Value).Concat(language.Texts
-            .Where(t => t.Key.StartsWith("chart.", StringComparison.Ordinal) || t.Key.StartsWith("parameter.", StringComparison.Ordinal)
-                || t.Key.StartsWith("number.", StringComparison.Ordinal) || t.Key.StartsWith("unit.", StringComparison.Ordinal))
-            .Select(t => t.Value.Text));
+        var texts = scenario.Texts.Where(t => t.Path.EndsWith(".label", StringComparison.Ordinal)).Select(t => t.Value)
+            .Concat(language.Texts
+                .Where(t => t.Key.StartsWith("chart.", StringComparison.Ordinal)
+                    || t.Key.StartsWith("parameter.", StringComparison.Ordinal)
+                    || t.Key.StartsWith("number.", StringComparison.Ordinal)
+                    || t.Key.StartsWith("unit.", StringComparison.Ordinal))
+                .Select(t => t.Value.Text));
         var set = new HashSet<int>();
         foreach (string text in texts)
             foreach (var rune in text.EnumerateRunes()) set.Add(rune.Value);
@@ -118,7 +143,9 @@ public static class GlyphCheck
 
     private static string BindQuote(string value) => Scenario.Binding.BindContext.Quote(value);
 
-    /// <summary>The template's text that reaches the brief: everything outside <c>{{ }}</c>, and quoted strings inside.</summary>
+    /// <summary>
+    /// The template's text that reaches the brief: everything outside <c>{{ }}</c>, and quoted strings inside.
+    /// </summary>
     private static IEnumerable<(string Text, int Line, int Column)> TemplateTexts(string template)
     {
         int line = 1, column = 1, startLine = 1, startColumn = 1;

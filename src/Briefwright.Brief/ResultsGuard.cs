@@ -8,7 +8,9 @@ public static class ResultsGuard
 {
     private static void Check(double v, string what)
     {
-        if (!double.IsFinite(v)) throw new NonFiniteResultException($"The model produced a non-finite {what}; no brief is written. Got {v}.");
+        if (!double.IsFinite(v))
+            throw new NonFiniteResultException(
+                $"The model produced a non-finite {what}; no brief is written. Got {v}.");
     }
 
     public static void EnsureFinite(AnalysisResults a)
@@ -16,14 +18,17 @@ public static class ResultsGuard
         foreach (var o in a.Reform.Options)
         {
             foreach (var g in o.Path.Gain) Check(g, $"reform path for option {o.OptionId}");
-            foreach (var pv in o.PresentValues) Check(pv.ToHorizon, $"present value ({pv.ScheduleId}) for option {o.OptionId}");
+            foreach (var pv in o.PresentValues)
+                Check(pv.ToHorizon, $"present value ({pv.ScheduleId}) for option {o.OptionId}");
         }
         Check(a.Reform.Optimum.SchoolingYears, "discounted optimum");
         foreach (var row in a.Tornado)
-            foreach (var v in row.AtLow.LongRunChangePct.Concat(row.AtHigh.LongRunChangePct).Append(row.AtLow.OptimumYears).Append(row.AtHigh.OptimumYears))
+            foreach (var v in row.AtLow.LongRunChangePct.Concat(row.AtHigh.LongRunChangePct)
+                .Append(row.AtLow.OptimumYears).Append(row.AtHigh.OptimumYears))
                 Check(v, $"sensitivity result for {row.Parameter}");
         if (a.MonteCarlo is { } mc)
-            foreach (var o in mc.Options) Check(o.LongRunChangePct.P50 + o.PresentValue.P50, $"Monte Carlo result for option {o.OptionId}");
+            foreach (var o in mc.Options)
+                Check(o.LongRunChangePct.P50 + o.PresentValue.P50, $"Monte Carlo result for option {o.OptionId}");
         if (a.Sobol is { } s)
             foreach (var i in s.Indices) foreach (var v in i.FirstOrder.Concat(i.Total)) Check(v, "Sobol index");
     }
@@ -40,7 +45,8 @@ public static class ResultsGuard
         }
         Check(r.Optimum.SchoolingYears, "optimal schooling length");
         Check(r.Optimum.OutputPerPerson, "output at the optimum");
-        foreach (var p in r.SchoolingCurve) Check(p.OutputPerPerson, $"output per person at {p.SchoolingYears} years of schooling");
+        foreach (var p in r.SchoolingCurve)
+            Check(p.OutputPerPerson, $"output per person at {p.SchoolingYears} years of schooling");
     }
 }
 

@@ -15,15 +15,21 @@ public sealed record SolvedScenario(
     public OptionOutcomes Outcomes => outcomes ??= OptionOutcomes.From(BalancedGrowth, Analysis);
 }
 
-/// <summary>The one place that runs the model for a scenario: balanced growth, then the reform path and uncertainty.</summary>
+/// <summary>
+/// The one place that runs the model for a scenario: balanced growth, then the reform path and uncertainty.
+/// </summary>
 public static class ScenarioSolver
 {
-    /// <summary>What the model throws when inputs leave it nothing to compute: its own <see cref="Model.ModelRuleException"/>,
-    /// a non-finite result, or an arithmetic or argument failure deep in a computation.</summary>
-    private static bool IsModelFailure(Exception ex) => ex is ArithmeticException or ArgumentException or InvalidOperationException;
+    /// <summary>What the model throws when inputs leave it nothing to compute: its own
+    /// <see cref="Model.ModelRuleException"/>, a non-finite result, or an arithmetic or argument failure deep in a
+    /// computation.</summary>
+    private static bool IsModelFailure(Exception ex)
+        => ex is ArithmeticException or ArgumentException or InvalidOperationException;
 
-    /// <param name="maxThreads">Threads the model's uncertainty loops may use (<see cref="ModelThreads"/>); results do not depend on it.</param>
-    /// <exception cref="UnsolvableScenarioException">The model cannot solve these inputs (the reason is in the message).</exception>
+    /// <param name="maxThreads">Threads the model's uncertainty loops may use (<see cref="ModelThreads"/>); results do
+    /// not depend on it.</param>
+    /// <exception cref="UnsolvableScenarioException">The model cannot solve these inputs (the reason is in the
+    /// message).</exception>
     public static SolvedScenario Solve(ScenarioDocument scenario, int maxThreads = ModelThreads.AllCores)
     {
         try

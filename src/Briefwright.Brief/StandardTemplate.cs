@@ -2,7 +2,9 @@ using Briefwright.Templating;
 
 namespace Briefwright.Brief;
 
-/// <summary>The standard brief template shipped inside the tool (the same text as templates/standard-brief.md).</summary>
+/// <summary>
+/// The standard brief template shipped inside the tool (the same text as templates/standard-brief.md).
+/// </summary>
 public static class StandardTemplate
 {
     public const string Name = "standard-brief.md";

@@ -18,8 +18,8 @@ public static class Csv
 
     /// <summary>
     /// Text starting with '=', '+', '-', '@', a tab or a carriage return is read as a formula by spreadsheet programs
-    /// (CSV injection); the usual rule is to prefix such a cell with a single quote, which they show as text. Applies to
-    /// text cells only: numbers are written by the number formatter and a negative number stays a number.
+    /// (CSV injection); the usual rule is to prefix such a cell with a single quote, which they show as text. Applies
+    /// to text cells only: numbers are written by the number formatter and a negative number stays a number.
     /// </summary>
     public static string Neutralise(string text) =>
         text.Length > 0 && text[0] is '=' or '+' or '-' or '@' or '\t' or '\r' ? "'" + text : text;

@@ -8,10 +8,13 @@ namespace Briefwright.Brief.Annex;
 public sealed record ChangedValue(string Key, string Label, string Old, string New, string? Detail);
 
 /// <summary>What changed between two editions (or two scenarios): assumptions and headline results.</summary>
-public sealed record EditionChanges(int PreviousEdition, string PreviousDate, IReadOnlyList<ChangedValue> Assumptions, IReadOnlyList<ChangedValue> Results)
+public sealed record EditionChanges(int PreviousEdition, string PreviousDate, IReadOnlyList<ChangedValue> Assumptions,
+    IReadOnlyList<ChangedValue> Results)
 {
-    /// <summary>Why this is a new edition beyond the rows above, by input name (<c>EditionInput</c>): <c>content</c>, <c>template</c>,
-    /// <c>brief.edition</c>, <c>results</c>... Set by the build; empty from <c>diff</c>.</summary>
+    /// <summary>
+    /// Why this is a new edition beyond the rows above, by input name (<c>EditionInput</c>): <c>content</c>,
+    /// <c>template</c>, <c>brief.edition</c>, <c>results</c>... Set by the build; empty from <c>diff</c>.
+    /// </summary>
     public IReadOnlyList<string> Causes { get; init; } = [];
 
     /// <summary>The edition this one is (for the words on <c>brief.edition</c>).</summary>
@@ -45,29 +48,38 @@ public sealed record EditionSnapshot(
                 string value = a.GetProperty("text").ValueKind == JsonValueKind.String
                     ? a.GetProperty("text").GetString()!
                     : Display(words, a.GetProperty("value").GetDouble(), unit);
-                string? source = a.GetProperty("source").ValueKind == JsonValueKind.String ? a.GetProperty("source").GetString() : null;
+                string? source = a.GetProperty("source").ValueKind == JsonValueKind.String
+                    ? a.GetProperty("source").GetString()
+                    : null;
                 assumptions[a.GetProperty("path").GetString()!] = (a.GetProperty("label").GetString()!, value, source);
             }
         var results = new Dictionary<string, (string, double, string)>(StringComparer.Ordinal);
         foreach (var o in root.GetProperty("options").EnumerateArray())
         {
             string id = o.GetProperty("id").GetString()!, label = o.GetProperty("label").GetString()!;
-            results[$"output_per_person.{id}"] = ($"Output per person: {label}", o.GetProperty("output_per_person").GetDouble(), "index");
+            results[$"output_per_person.{id}"] =
+                ($"Output per person: {label}", o.GetProperty("output_per_person").GetDouble(), "index");
             if (!o.GetProperty("is_baseline").GetBoolean())
-                results[$"change.{id}"] = ($"Long-run change: {label}", o.GetProperty("change_vs_baseline_pct").GetDouble(), "%");
+                results[$"change.{id}"] =
+                    ($"Long-run change: {label}", o.GetProperty("change_vs_baseline_pct").GetDouble(), "%");
         }
-        results["optimum"] = ("Output-maximising schooling E*", root.GetProperty("optimum").GetProperty("schooling_years").GetDouble(), "years");
+        results["optimum"] = ("Output-maximising schooling E*",
+            root.GetProperty("optimum").GetProperty("schooling_years").GetDouble(), "years");
         if (root.TryGetProperty("analysis", out var analysis))
         {
             var reform = analysis.GetProperty("reform");
-            results["discounted_optimum"] = ("Discounted optimum", reform.GetProperty("optimum").GetProperty("schooling_years").GetDouble(), "years");
+            results["discounted_optimum"] = ("Discounted optimum",
+                reform.GetProperty("optimum").GetProperty("schooling_years").GetDouble(), "years");
             foreach (var o in reform.GetProperty("options").EnumerateArray())
             {
                 var pv = o.GetProperty("present_values")[0];
-                results[$"pv.{o.GetProperty("option_id").GetString()}"] = ($"Present value ({pv.GetProperty("schedule_id").GetString()}): {o.GetProperty("option_id").GetString()}", pv.GetProperty("to_horizon").GetDouble(), "years of output");
+                string? option = o.GetProperty("option_id").GetString();
+                results[$"pv.{option}"] = ($"Present value ({pv.GetProperty("schedule_id").GetString()}): {option}",
+                    pv.GetProperty("to_horizon").GetDouble(), "years of output");
             }
         }
-        return new EditionSnapshot(root.GetProperty("edition").GetInt32(), root.GetProperty("date").GetString()!, assumptions, results);
+        return new EditionSnapshot(root.GetProperty("edition").GetInt32(), root.GetProperty("date").GetString()!,
+            assumptions, results);
     }
 
     private static string Display(TemplateFunctions words, double v, string unit) => unit switch
@@ -85,11 +97,14 @@ public sealed record EditionSnapshot(
         var assumptions = new List<ChangedValue>();
         foreach (var (path, n) in now.Assumptions)
         {
-            if (!old.Assumptions.TryGetValue(path, out var o)) assumptions.Add(new ChangedValue(path, n.Label, "not set", n.Value, n.Source));
-            else if (o.Value != n.Value || o.Source != n.Source) assumptions.Add(new ChangedValue(path, n.Label, o.Value, n.Value, n.Source));
+            if (!old.Assumptions.TryGetValue(path, out var o))
+                assumptions.Add(new ChangedValue(path, n.Label, "not set", n.Value, n.Source));
+            else if (o.Value != n.Value || o.Source != n.Source)
+                assumptions.Add(new ChangedValue(path, n.Label, o.Value, n.Value, n.Source));
         }
         foreach (var (path, o) in old.Assumptions)
-            if (!now.Assumptions.ContainsKey(path)) assumptions.Add(new ChangedValue(path, o.Label, o.Value, "removed", null));
+            if (!now.Assumptions.ContainsKey(path))
+                assumptions.Add(new ChangedValue(path, o.Label, o.Value, "removed", null));
         var results = new List<ChangedValue>();
         foreach (var (key, n) in now.Results)
         {

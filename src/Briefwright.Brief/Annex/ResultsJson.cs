@@ -9,7 +9,10 @@ using Briefwright.Templating;
 
 namespace Briefwright.Brief.Annex;
 
-/// <summary>The results data written beside a brief and printed by <c>solve --json</c>. Field names are documented in docs/results-json.md.</summary>
+/// <summary>
+/// The results data written beside a brief and printed by <c>solve --json</c>. Field names are documented in
+/// docs/results-json.md.
+/// </summary>
 public sealed record ResultsDocument(
     string ScenarioId,
     string Title,
@@ -26,9 +29,11 @@ public sealed record ResultsDocument(
     IReadOnlyList<Model.Core.LeverDecomposition> LeverDecomposition,
     HeadlineFacts Headline)
 {
-    public static ResultsDocument From(SolvedScenario solved) => From(solved.Scenario, solved.BalancedGrowth, solved.Analysis);
+    public static ResultsDocument From(SolvedScenario solved)
+        => From(solved.Scenario, solved.BalancedGrowth, solved.Analysis);
 
-    public static ResultsDocument From(ScenarioDocument scenario, BalancedGrowthResults results, AnalysisResults analysis) => new(
+    public static ResultsDocument From(ScenarioDocument scenario, BalancedGrowthResults results,
+        AnalysisResults analysis) => new(
         scenario.Brief.Id,
         scenario.Brief.Title,
         scenario.Brief.Date.ToString("yyyy-MM-dd"),
@@ -71,10 +76,12 @@ public static class ResultsJson
     /// <summary>The generated serialisation code for <typeparamref name="T"/> with these options.</summary>
     public static JsonTypeInfo<T> Info<T>() => (JsonTypeInfo<T>)Options.GetTypeInfo(typeof(T));
 
-    public static string Write(ResultsDocument document) => JsonSerializer.Serialize(document, Info<ResultsDocument>()) + "\n";
+    public static string Write(ResultsDocument document)
+        => JsonSerializer.Serialize(document, Info<ResultsDocument>()) + "\n";
 
     /// <summary>Several results documents as one JSON array (<c>solve --json</c> with several scenarios).</summary>
-    public static string Write(List<ResultsDocument> documents) => JsonSerializer.Serialize(documents, Info<List<ResultsDocument>>()) + "\n";
+    public static string Write(List<ResultsDocument> documents)
+        => JsonSerializer.Serialize(documents, Info<List<ResultsDocument>>()) + "\n";
 }
 
 /// <summary>

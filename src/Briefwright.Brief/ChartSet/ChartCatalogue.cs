@@ -34,9 +34,14 @@ public static class ChartCatalogue
         new DistributionFigure(),
     };
 
-    /// <summary>The options' styles for a brief: scenario order with the baseline last, from the theme's palette when it sets one.</summary>
+    /// <summary>
+    /// The options' styles for a brief: scenario order with the baseline last, from the theme's palette when it sets
+    /// one.
+    /// </summary>
     public static OptionStyles Styles(SolvedScenario solved, IReadOnlyList<string>? chartColours) =>
-        new(solved.Scenario.Inputs.Options.Select(o => o.Id), OptionStyles.FromHex(chartColours), solved.Scenario.Inputs.BaselineId);
+        new(solved.Scenario.Inputs.Options.Select(o => o.Id), OptionStyles.FromHex(chartColours),
+            solved.Scenario.Inputs.BaselineId);
 
-    public static IReadOnlyList<ChartSpec> Build(ChartContext context) => All.SelectMany(d => d.Build(context)).ToList();
+    public static IReadOnlyList<ChartSpec> Build(ChartContext context)
+        => All.SelectMany(d => d.Build(context)).ToList();
 }

@@ -12,10 +12,15 @@ public sealed class ChartTexts(BriefLanguage language) : TemplateFunctions(langu
     /// <summary>A number with one decimal in the brief's number format.</summary>
     public string F(double v, string f = "0.0") => Localise(v.ToString(f, CultureInfo.InvariantCulture));
 
-    /// <summary>A model parameter's label in the brief's language (its <c>parameter.</c> text), else <paramref name="fallback"/>.</summary>
+    /// <summary>
+    /// A model parameter's label in the brief's language (its <c>parameter.</c> text), else
+    /// <paramref name="fallback"/>.
+    /// </summary>
     public string ParameterLabel(string name, string fallback) =>
         L.Texts.TryGetValue("parameter." + name, out var t) ? t.Text : fallback;
 
-    /// <summary>A label inside a sentence: lower case where the language writes it so (<c>list.lower_case</c>).</summary>
+    /// <summary>
+    /// A label inside a sentence: lower case where the language writes it so (<c>list.lower_case</c>).
+    /// </summary>
     public string InSentence(string label) => L.Get("list.lower_case") == "yes" ? label.ToLowerInvariant() : label;
 }

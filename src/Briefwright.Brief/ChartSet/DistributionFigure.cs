@@ -3,7 +3,9 @@ using Briefwright.Templating;
 
 namespace Briefwright.Brief.ChartSet;
 
-/// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, in its option colour.</summary>
+/// <summary>
+/// Distribution of the headline option's long-run change over the Monte Carlo draws, in its option colour.
+/// </summary>
 public sealed class DistributionFigure : IChartDefinition
 {
     public IEnumerable<ChartSpec> Build(ChartContext c)

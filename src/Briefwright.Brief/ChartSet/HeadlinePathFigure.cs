@@ -4,7 +4,9 @@ using Briefwright.Templating;
 
 namespace Briefwright.Brief.ChartSet;
 
-/// <summary>Page 1's chart: the headline option's path over time with its Monte Carlo band, described from its facts.</summary>
+/// <summary>
+/// Page 1's chart: the headline option's path over time with its Monte Carlo band, described from its facts.
+/// </summary>
 public sealed class HeadlinePathFigure : IChartDefinition
 {
     public IEnumerable<ChartSpec> Build(ChartContext c)

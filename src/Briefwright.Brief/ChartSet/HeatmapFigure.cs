@@ -27,7 +27,8 @@ public sealed class HeatmapFigure : IChartDefinition
         }
     }
 
-    private static string Axis(string parameter, string label) => Parameters.Find(parameter)!.IsRate ? label + " (%)" : label;
+    private static string Axis(string parameter, string label)
+        => Parameters.Find(parameter)!.IsRate ? label + " (%)" : label;
 
     private static double Scale(string parameter) => Parameters.Find(parameter)!.IsRate ? 100 : 1;
 }

@@ -4,7 +4,9 @@ using Briefwright.Templating;
 
 namespace Briefwright.Brief.ChartSet;
 
-/// <summary>Output per person after the reform relative to no reform, one line per option, with the headline's band.</summary>
+/// <summary>
+/// Output per person after the reform relative to no reform, one line per option, with the headline's band.
+/// </summary>
 public sealed class ReformPathFigure : IChartDefinition
 {
     public IEnumerable<ChartSpec> Build(ChartContext c)

@@ -42,7 +42,8 @@ public sealed partial class HtmlWriter : IBriefWriter
         var doc = content.Document;
         var info = doc.Info;
         var theme = content.Theme;
-        sb.Append("<!DOCTYPE html>\n<html lang=\"").Append(Attr(info.Language)).Append("\">\n<head>\n<meta charset=\"utf-8\">\n")
+        sb.Append("<!DOCTYPE html>\n<html lang=\"").Append(Attr(info.Language))
+          .Append("\">\n<head>\n<meta charset=\"utf-8\">\n")
           .Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
           .Append("<title>").Append(Text(info.Title)).Append("</title>\n")
           .Append("<meta name=\"author\" content=\"").Append(Attr(info.Author)).Append("\">\n")
@@ -60,9 +61,12 @@ public sealed partial class HtmlWriter : IBriefWriter
         sb.Append("<header class=\"masthead\">\n");
         if (info.Logo is { } logo)
             sb.Append("<img class=\"logo\" src=\"data:image/png;base64,").Append(Convert.ToBase64String(logo.Png))
-              .Append("\" width=\"").Append(Math.Min(logo.Width, 160)).Append("\" alt=\"").Append(Attr(content.OrganisationName)).Append("\">\n");
+              .Append("\" width=\"").Append(Math.Min(logo.Width, 160)).Append("\" alt=\"")
+              .Append(Attr(content.OrganisationName)).Append("\">\n");
         sb.Append("<p class=\"org\">").Append(Text(content.OrganisationName)).Append("</p>\n")
-          .Append("<p class=\"stamp\">").Append(Text(info.DateText ?? info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture))).Append(" · ").Append(Text(info.Edition)).Append("</p>\n");
+          .Append("<p class=\"stamp\">")
+          .Append(Text(info.DateText ?? info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture)))
+          .Append(" · ").Append(Text(info.Edition)).Append("</p>\n");
         if (info.Marker is { } marker) sb.Append("<p class=\"marker\">").Append(Text(marker)).Append("</p>\n");
         sb.Append("</header>\n");
     }
@@ -78,7 +82,8 @@ public sealed partial class HtmlWriter : IBriefWriter
             string number = "";
             if (h.Level == 2) { section++; subsection = 0; number = $"{section}"; }
             else if (h.Level == 3) { subsection++; number = $"{section}.{subsection}"; }
-            headings.Add((h.Level, number, h.Text, h.Level == 1 ? "title" : h.Level > 3 ? $"h-{headings.Count}" : "s-" + number.Replace('.', '-')));
+            headings.Add((h.Level, number, h.Text,
+                h.Level == 1 ? "title" : h.Level > 3 ? $"h-{headings.Count}" : "s-" + number.Replace('.', '-')));
         }
         return headings;
     }
@@ -91,8 +96,10 @@ public sealed partial class HtmlWriter : IBriefWriter
         var sections = headings.Where(h => h.Level == 2).ToList();
         if (sections.Count > 0)
         {
-            sb.Append("<nav aria-label=\"").Append(Attr(T("output.contents"))).Append("\">\n<p class=\"toc-title\">").Append(Text(T("output.contents"))).Append("</p>\n<ol>\n");
-            foreach (var h in sections) sb.Append("<li><a href=\"#").Append(h.Id).Append("\">").Append(Text(h.Text)).Append("</a></li>\n");
+            sb.Append("<nav aria-label=\"").Append(Attr(T("output.contents"))).Append("\">\n<p class=\"toc-title\">")
+                .Append(Text(T("output.contents"))).Append("</p>\n<ol>\n");
+            foreach (var h in sections)
+                sb.Append("<li><a href=\"#").Append(h.Id).Append("\">").Append(Text(h.Text)).Append("</a></li>\n");
             sb.Append("</ol>\n</nav>\n");
         }
     }
@@ -124,8 +131,9 @@ public sealed partial class HtmlWriter : IBriefWriter
                 while (open < depth - 1) { sb.Append("<section>\n"); open++; }
                 sb.Append("<section aria-labelledby=\"").Append(id).Append("\">\n");
                 open++;
-                sb.Append("<h").Append(level >= 3 ? 3 : 2).Append(" id=\"").Append(id).Append("\"><span class=\"num\">").Append(number)
-                  .Append("</span> ").Append(Text(text)).Append("</h").Append(level >= 3 ? 3 : 2).Append(">\n");
+                sb.Append("<h").Append(level >= 3 ? 3 : 2).Append(" id=\"").Append(id).Append("\"><span class=\"num\">")
+                    .Append(number).Append("</span> ").Append(Text(text)).Append("</h").Append(level >= 3 ? 3 : 2)
+                    .Append(">\n");
                 continue;
             }
             Block(sb, block, state);
@@ -141,8 +149,11 @@ public sealed partial class HtmlWriter : IBriefWriter
         var info = content.Document.Info;
         sb.Append("<footer>\n<p>").Append(Text(info.FooterNote)).Append("</p>\n")
           .Append("<p>").Append(Text(T("output.cautions"))).Append("</p>\n")
-          .Append("<p class=\"stamp\">").Append(Text(T("output.scenario"))).Append(' ').Append(Text(content.Solved.Scenario.Brief.Id)).Append(" · ").Append(Text(info.Edition))
-          .Append(" · ").Append(Text(T("output.input_hash"))).Append(" <code>").Append(Text(content.Solved.Scenario.InputHash)).Append("</code> · briefwright ").Append(Text(ToolInfo.Version)).Append("</p>\n")
+          .Append("<p class=\"stamp\">").Append(Text(T("output.scenario"))).Append(' ')
+          .Append(Text(content.Solved.Scenario.Brief.Id)).Append(" · ").Append(Text(info.Edition))
+          .Append(" · ").Append(Text(T("output.input_hash"))).Append(" <code>")
+          .Append(Text(content.Solved.Scenario.InputHash)).Append("</code> · briefwright ")
+          .Append(Text(ToolInfo.Version)).Append("</p>\n")
           .Append("</footer>\n</body>\n</html>\n");
     }
 
@@ -162,7 +173,11 @@ public sealed partial class HtmlWriter : IBriefWriter
         switch (block)
         {
             case ParagraphBlock p:
-                string cls = p.Role switch { ParagraphRole.Subtitle => " class=\"subtitle\"", ParagraphRole.Meta => " class=\"meta\"", ParagraphRole.Note => " class=\"note\"", _ => "" };
+                string cls = p.Role switch
+                {
+                    ParagraphRole.Subtitle => " class=\"subtitle\"", ParagraphRole.Meta => " class=\"meta\"",
+                    ParagraphRole.Note => " class=\"note\"", _ => "",
+                };
                 sb.Append("<p").Append(cls).Append('>');
                 Runs(sb, p.Runs);
                 sb.Append("</p>\n");
@@ -185,8 +200,11 @@ public sealed partial class HtmlWriter : IBriefWriter
                 break;
             case BoxBlock b:
                 string boxId = $"box-{++state.Boxes}";
-                sb.Append("<section class=\"box\"").Append(b.Title is null ? "" : $" aria-labelledby=\"{boxId}\"").Append(">\n");
-                if (b.Title is not null) sb.Append("<h2 class=\"box-title\" id=\"").Append(boxId).Append("\">").Append(Text(b.Title)).Append("</h2>\n");
+                sb.Append("<section class=\"box\"").Append(b.Title is null ? "" : $" aria-labelledby=\"{boxId}\"")
+                    .Append(">\n");
+                if (b.Title is not null)
+                    sb.Append("<h2 class=\"box-title\" id=\"").Append(boxId).Append("\">")
+                        .Append(Text(b.Title)).Append("</h2>\n");
                 foreach (var inner in b.Content) Block(sb, inner, state);
                 sb.Append("</section>\n");
                 break;
@@ -202,11 +220,15 @@ public sealed partial class HtmlWriter : IBriefWriter
     private static void Table(StringBuilder sb, TableBlock t, int number, Composer.Layout.Theme theme)
     {
         string id = $"table-{number}";
-        sb.Append("<div class=\"table-wrap\" role=\"region\" tabindex=\"0\" aria-labelledby=\"").Append(id).Append("-caption\">\n<table id=\"").Append(id).Append("\">\n");
-        sb.Append("<caption id=\"").Append(id).Append("-caption\"><span class=\"label\">").Append(Text(Label(theme.TableLabel, number))).Append("</span> ").Append(Text(t.Caption ?? "")).Append("</caption>\n");
+        sb.Append("<div class=\"table-wrap\" role=\"region\" tabindex=\"0\" aria-labelledby=\"").Append(id)
+            .Append("-caption\">\n<table id=\"").Append(id).Append("\">\n");
+        sb.Append("<caption id=\"").Append(id).Append("-caption\"><span class=\"label\">")
+            .Append(Text(Label(theme.TableLabel, number))).Append("</span> ").Append(Text(t.Caption ?? ""))
+            .Append("</caption>\n");
         sb.Append("<thead>\n<tr>");
         for (int c = 0; c < t.Header.Count; c++)
-            sb.Append("<th scope=\"col\"").Append(AlignClass(t, c)).Append('>').Append(Text(t.Header[c])).Append("</th>");
+            sb.Append("<th scope=\"col\"").Append(AlignClass(t, c)).Append('>').Append(Text(t.Header[c]))
+                .Append("</th>");
         sb.Append("</tr>\n</thead>\n<tbody>\n");
         foreach (var row in t.Rows)
         {
@@ -215,12 +237,15 @@ public sealed partial class HtmlWriter : IBriefWriter
             {
                 // The first column names the row (an option, an assumption): a row header.
                 string tag = c == 0 ? "th scope=\"row\"" : "td";
-                sb.Append('<').Append(tag).Append(AlignClass(t, c)).Append('>').Append(Text(row[c])).Append("</").Append(c == 0 ? "th" : "td").Append('>');
+                sb.Append('<').Append(tag).Append(AlignClass(t, c)).Append('>').Append(Text(row[c])).Append("</")
+                    .Append(c == 0 ? "th" : "td").Append('>');
             }
             sb.Append("</tr>\n");
         }
         sb.Append("</tbody>\n</table>\n</div>\n");
-        if (t.Source is not null) sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd())).Append("</em> ").Append(Text(t.Source)).Append("</p>\n");
+        if (t.Source is not null)
+            sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd()))
+                .Append("</em> ").Append(Text(t.Source)).Append("</p>\n");
     }
 
     private static string AlignClass(TableBlock t, int c) => c < t.Align.Count ? t.Align[c] switch
@@ -230,22 +255,30 @@ public sealed partial class HtmlWriter : IBriefWriter
         _ => "",
     } : "";
 
-    private static string Label(string label, int number) => label.Replace("{0}", number.ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal);
+    private static string Label(string label, int number)
+        => label.Replace("{0}", number.ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal);
 
-    private static void Figure(StringBuilder sb, FigureBlock f, int number, Charts.RenderedChart? chart, Composer.Layout.Theme theme)
+    private static void Figure(StringBuilder sb, FigureBlock f, int number, Charts.RenderedChart? chart,
+        Composer.Layout.Theme theme)
     {
         string id = "fig-" + f.Id;
-        sb.Append("<figure id=\"").Append(Attr(id)).Append("\">\n<figcaption><span class=\"label\">").Append(Text(Label(theme.FigureLabel, number))).Append("</span> ")
-          .Append(Text(f.Caption)).Append("</figcaption>\n");
-        if (chart?.Svg is { } svg) sb.Append(InlineSvg(svg, id, $"{Label(theme.FigureLabel, number)} {f.Caption}", f.AltText)).Append('\n');
-        else sb.Append("<p role=\"img\" aria-label=\"").Append(Attr(f.AltText)).Append("\">").Append(Text(f.AltText)).Append("</p>\n");
-        if (f.Source is not null) sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd())).Append("</em> ").Append(Text(f.Source)).Append("</p>\n");
+        sb.Append("<figure id=\"").Append(Attr(id)).Append("\">\n<figcaption><span class=\"label\">")
+            .Append(Text(Label(theme.FigureLabel, number))).Append("</span> ").Append(Text(f.Caption))
+            .Append("</figcaption>\n");
+        if (chart?.Svg is { } svg)
+            sb.Append(InlineSvg(svg, id, $"{Label(theme.FigureLabel, number)} {f.Caption}", f.AltText)).Append('\n');
+        else
+            sb.Append("<p role=\"img\" aria-label=\"").Append(Attr(f.AltText)).Append("\">").Append(Text(f.AltText))
+                .Append("</p>\n");
+        if (f.Source is not null)
+            sb.Append("<p class=\"source\"><em>").Append(Text(theme.SourceLabel.TrimEnd()))
+                .Append("</em> ").Append(Text(f.Source)).Append("</p>\n");
         sb.Append("</figure>\n");
     }
 
     /// <summary>
-    /// A chart's SVG made fit to sit in the page: no XML declaration, its ids prefixed with the figure's (several charts
-    /// share one page), a view box so it scales, and its title and description as the image's accessible name.
+    /// A chart's SVG made fit to sit in the page: no XML declaration, its ids prefixed with the figure's (several
+    /// charts share one page), a view box so it scales, and its title and description as the image's accessible name.
     /// </summary>
     public static string InlineSvg(string svg, string id, string title, string description)
     {
@@ -258,7 +291,8 @@ public sealed partial class HtmlWriter : IBriefWriter
         string width = w.Success ? w.Groups[1].Value : "470", height = w.Success ? w.Groups[2].Value : "290";
         open = SizeAttr().Replace(open, "");
         var head = new StringBuilder(open)
-            .Append($" viewBox=\"0 0 {width} {height}\" width=\"{width}\" height=\"{height}\" role=\"img\" aria-labelledby=\"{id}-title {id}-desc\">")
+            .Append($" viewBox=\"0 0 {width} {height}\" width=\"{width}\" height=\"{height}\" role=\"img\" " +
+                $"aria-labelledby=\"{id}-title {id}-desc\">")
             .Append("<title id=\"").Append(id).Append("-title\">").Append(Text(title)).Append("</title>")
             .Append("<desc id=\"").Append(id).Append("-desc\">").Append(Text(description)).Append("</desc>");
         return head + svg[(close + 1)..];
@@ -290,26 +324,45 @@ public sealed partial class HtmlWriter : IBriefWriter
     public static string Text(string s)
     {
         if (s.AsSpan().IndexOfAny("&<>") < 0) return s;
-        return s.Replace("&", "&amp;", StringComparison.Ordinal).Replace("<", "&lt;", StringComparison.Ordinal).Replace(">", "&gt;", StringComparison.Ordinal);
+        return s.Replace("&", "&amp;", StringComparison.Ordinal).Replace("<", "&lt;", StringComparison.Ordinal)
+            .Replace(">", "&gt;", StringComparison.Ordinal);
     }
 
     private static string Attr(string s) => Text(s).Replace("\"", "&quot;", StringComparison.Ordinal);
 
     private static string Hex(Rgb c) => $"#{c.R:X2}{c.G:X2}{c.B:X2}";
 
-    /// <summary>The theme's look: its colours, the brief's type sizes, a readable measure on screen, and pages in print.</summary>
+    /// <summary>The theme's colours as CSS custom properties (<c>--accent</c>, <c>--text</c>...).</summary>
+    private static string Variables(Theme t) =>
+        $"--accent: {Hex(t.Accent)}; --text: {Hex(t.Text)}; --muted: {Hex(t.Muted)}; --rule: {Hex(t.Rule)}; " +
+        $"--box: {Hex(t.BoxFill)}; --header: {Hex(t.HeaderFill)}; --stripe: {Hex(t.StripeFill)};";
+
+    private static string Css(double value) => value.ToString(CultureInfo.InvariantCulture);
+
+    // The declarations of the longer rules of the style sheet below.
+    private const string MastheadRule = "display: flex; flex-wrap: wrap; align-items: center; gap: .25rem 1rem; " +
+        "border-bottom: 2px solid var(--accent); padding-bottom: .5rem;";
+    private const string TitleRule = "color: var(--accent); font-size: 1.9rem; line-height: 1.2; " +
+        "margin: 1.25rem 0 .75rem; padding-bottom: .4rem; border-bottom: 1px solid var(--rule);";
+    private const string CaptionRule =
+        "text-align: left; font-size: .875rem; font-weight: bold; color: var(--text); padding-bottom: .4rem;";
+
+    /// <summary>
+    /// The theme's look: its colours, the brief's type sizes, a readable measure on screen, and pages in print.
+    /// </summary>
     private static string Styles(Theme t, string? family, PaperSize paper)
     {
-        string fonts = (family is null ? "" : $"\"{family.Replace("\"", "", StringComparison.Ordinal)}\", ") + "\"Liberation Sans\", Arial, Helvetica, sans-serif";
+        string fonts = (family is null ? "" : $"\"{family.Replace("\"", "", StringComparison.Ordinal)}\", ")
+            + "\"Liberation Sans\", Arial, Helvetica, sans-serif";
         string page = paper == PaperSize.Letter ? "letter" : "A4";
         return $$"""
-:root { --accent: {{Hex(t.Accent)}}; --text: {{Hex(t.Text)}}; --muted: {{Hex(t.Muted)}}; --rule: {{Hex(t.Rule)}}; --box: {{Hex(t.BoxFill)}}; --header: {{Hex(t.HeaderFill)}}; --stripe: {{Hex(t.StripeFill)}}; }
-html { font-family: {{fonts}}; color: var(--text); background: #fff; line-height: {{t.LineFactor.ToString(CultureInfo.InvariantCulture)}}; }
+:root { {{Variables(t)}} }
+html { font-family: {{fonts}}; color: var(--text); background: #fff; line-height: {{Css(t.LineFactor)}}; }
 body { max-width: 46rem; margin: 0 auto; padding: 1rem 1.25rem 3rem; font-size: 1rem; }
 a { color: var(--accent); }
 .skip { position: absolute; left: -9999px; }
 .skip:focus { left: 1rem; top: 1rem; background: #fff; padding: .25rem .5rem; }
-.masthead { display: flex; flex-wrap: wrap; align-items: center; gap: .25rem 1rem; border-bottom: 2px solid var(--accent); padding-bottom: .5rem; }
+.masthead { {{MastheadRule}} }
 .masthead .logo { order: 2; margin-left: auto; max-height: 3rem; width: auto; }
 .masthead p { margin: 0; }
 .org { font-weight: bold; color: var(--accent); }
@@ -318,14 +371,14 @@ a { color: var(--accent); }
 nav { font-size: .875rem; margin: 1rem 0; }
 .toc-title { font-weight: bold; margin: 0; }
 nav ol { margin: .25rem 0; padding-left: 1.5rem; }
-h1 { color: var(--accent); font-size: 1.9rem; line-height: 1.2; margin: 1.25rem 0 .75rem; padding-bottom: .4rem; border-bottom: 1px solid var(--rule); }
+h1 { {{TitleRule}} }
 h2 { color: var(--accent); font-size: 1.35rem; margin: 2rem 0 .5rem; }
 h3 { color: var(--accent); font-size: 1.1rem; margin: 1.5rem 0 .4rem; }
 .num { display: inline-block; min-width: 1.6em; }
 .box { background: var(--box); border-left: 4px solid var(--accent); padding: .5rem 1rem; margin: 1rem 0; }
 .box .box-title { margin: .25rem 0; font-size: 1.1rem; }
 figure { margin: 1.5rem 0; }
-figcaption, caption { text-align: left; font-size: .875rem; font-weight: bold; color: var(--text); padding-bottom: .4rem; }
+figcaption, caption { {{CaptionRule}} }
 .label { color: var(--accent); }
 figure svg { display: block; width: 100%; height: auto; max-width: 40rem; }
 .source { font-size: .8rem; color: var(--muted); margin: .3rem 0 1rem; }

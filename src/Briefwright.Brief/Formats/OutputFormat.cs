@@ -14,7 +14,9 @@ public enum OutputFormat
     Docx = 8,
 }
 
-/// <summary>The names of the formats on the command line and in the project settings, and the default selection.</summary>
+/// <summary>
+/// The names of the formats on the command line and in the project settings, and the default selection.
+/// </summary>
 public static class OutputFormats
 {
     /// <summary>What a build writes unless told otherwise: the PDF (with its data annex).</summary>
@@ -31,7 +33,10 @@ public static class OutputFormats
         ("docx", OutputFormat.Docx, "an editable document for clearance rounds"),
     ];
 
-    /// <summary>Reads a list of names (pdf, html, xlsx, docx); the PDF is always included. Null with the wrong name when one is unknown.</summary>
+    /// <summary>
+    /// Reads a list of names (pdf, html, xlsx, docx); the PDF is always included. Null with the wrong name when one is
+    /// unknown.
+    /// </summary>
     public static OutputFormat? Parse(IEnumerable<string> names, out string? unknown)
     {
         var result = OutputFormat.Pdf;
@@ -76,7 +81,9 @@ public sealed record BriefContent(
 /// <summary>A writer of one output format: returns the file's bytes; the command line writes them.</summary>
 public interface IBriefWriter
 {
-    /// <summary>The file name's ending after the brief's stem: <c>html</c> gives <c>&lt;id&gt;-&lt;date&gt;.html</c>.</summary>
+    /// <summary>
+    /// The file name's ending after the brief's stem: <c>html</c> gives <c>&lt;id&gt;-&lt;date&gt;.html</c>.
+    /// </summary>
     string Suffix { get; }
 
     /// <summary>The file's bytes; the same content gives the same bytes.</summary>
