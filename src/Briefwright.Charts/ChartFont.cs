@@ -1,5 +1,4 @@
 using System.Collections.Concurrent;
-using System.Security.Cryptography;
 using ScottPlot;
 using SkiaSharp;
 
@@ -28,13 +27,7 @@ public sealed class ChartFont
     /// <summary>The font of these TrueType files, cut to <see cref="FontSubsetter.ChartCharacters"/>.</summary>
     public static ChartFont FromBytes(byte[] regularTtf, byte[] boldTtf)
     {
-        using var sha = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
-        foreach (var part in new[] { regularTtf, boldTtf })
-        {
-            sha.AppendData(BitConverter.GetBytes((long)part.Length));
-            sha.AppendData(part);
-        }
-        string family = "Briefwright Chart " + Convert.ToHexStringLower(sha.GetHashAndReset())[..16];
+        string family = "Briefwright Chart " + Sha256Hex.OfAll([regularTtf, boldTtf], lengthPrefixed: true)[..16];
         ChartFontResolver.Register(family, () => (Typeface(regularTtf), Typeface(boldTtf)));
         return new ChartFont(family, regularTtf, boldTtf);
     }
@@ -49,8 +42,7 @@ public sealed class ChartFont
     {
         var extra = characters.Where(c => c >= 0x20 && !FontSubsetter.IsChartCharacter(c)).Distinct().Order().ToList();
         if (extra.Count == 0) return this;
-        string name = Family + " " + Convert.ToHexStringLower(SHA256.HashData(
-            System.Text.Encoding.UTF8.GetBytes(string.Join(",", extra))))[..12];
+        string name = Family + " " + Sha256Hex.Of(string.Join(",", extra))[..12];
         ChartFontResolver.Register(name, () => (Typeface(regular, extra), Typeface(bold, extra)));
         return new ChartFont(name, regular, bold);
     }
