@@ -7,7 +7,9 @@ namespace Briefwright.Cli;
 /// clock (read only for the build log's time stamps). Tests pass their own.</summary>
 public sealed record CliIo(TextWriter Out, TextWriter Err, TextReader In, bool Interactive, TimeProvider Clock);
 
-/// <summary>The command tree. Every command writes to the given writers and returns an exit code, so tests run it in process.</summary>
+/// <summary>
+/// The command tree. Every command writes to the given writers and returns an exit code, so tests run it in process.
+/// </summary>
 public static class CliApp
 {
     public static int Run(string[] args, TextWriter output, TextWriter error, bool interactive = false, TextReader? input = null, TimeProvider? clock = null) =>
@@ -38,7 +40,8 @@ public static class CliApp
         {
             io.Err.WriteLine(usage.Message);
             io.Err.WriteLine(usage.Hint);
-            if (usage.Command == "build" && !args.Contains("--plan")) BuildCommand.LogUsageError(args, usage.Message, io); // a plan writes nothing
+            // a plan writes nothing
+            if (usage.Command == "build" && !args.Contains("--plan")) BuildCommand.LogUsageError(args, usage.Message, io);
             return ExitCodes.InvalidInput;
         }
         // Each command reports its stages' failures (StageErrors); what escapes one is a fault of the tool, reported in

@@ -36,7 +36,9 @@ public static class Speed
         });
     }
 
-    /// <summary>The first brief a process will build: its output libraries start up on a spare core meanwhile.</summary>
+    /// <summary>
+    /// The first brief a process will build: its output libraries start up on a spare core meanwhile.
+    /// </summary>
     public static void WarmUp() => global::Briefwright.Cli.WarmUp.Start();
 
     /// <summary>

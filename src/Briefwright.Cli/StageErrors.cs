@@ -9,10 +9,12 @@ namespace Briefwright.Cli;
 /// <summary>The stages of building a brief, each with its own failure type.</summary>
 public enum Stage
 {
-    /// <summary>Reading and checking the scenario: a result, <see cref="Scenario.LoadResult"/>, with positioned problems.</summary>
+    /// <summary>
+    /// Reading and checking the scenario: a result, <see cref="Scenario.LoadResult"/>, with positioned problems.
+    /// </summary>
     Scenario,
-    /// <summary>Solving it: <see cref="UnsolvableScenarioException"/> (the model's own <see cref="ModelRuleException"/>,
-    /// a non-finite result, a computation that fails on these inputs).</summary>
+    /// <summary>Solving it: <see cref="UnsolvableScenarioException"/> (the model's own
+    /// <see cref="ModelRuleException"/>, a non-finite result, a computation that fails on these inputs).</summary>
     Model,
     /// <summary>Parsing or filling the template: <see cref="TemplateException"/>, with positions; and text the brief
     /// cannot show (<see cref="BriefTextException"/>: a character the fonts lack, a language without texts), positioned
@@ -20,7 +22,9 @@ public enum Stage
     Template,
     /// <summary>Laying out the pages: <see cref="ComposeException"/>, traced back to the template.</summary>
     Layout,
-    /// <summary>Writing the edition: <see cref="EditionWriteException"/>, or an I/O failure before anything was staged.</summary>
+    /// <summary>
+    /// Writing the edition: <see cref="EditionWriteException"/>, or an I/O failure before anything was staged.
+    /// </summary>
     Write,
 }
 
@@ -64,7 +68,9 @@ public static class StageErrors
         [$"{file}: the model cannot solve this scenario: {reason.TrimEnd('.')}. Change the inputs named in the reason; nothing written."],
         ExitCodes.InvalidInput, OutcomeStatus.Invalid, reason);
 
-    /// <summary>Where in the template the offending text was written: found by its text, else the line of the filled text.</summary>
+    /// <summary>
+    /// Where in the template the offending text was written: found by its text, else the line of the filled text.
+    /// </summary>
     private static string Position(BriefTemplate template, ComposeException ex)
     {
         var lines = template.Text.Split('\n');

@@ -22,7 +22,9 @@ internal static class WarmUp
     /// <summary>Starts the warm-up once per process; later calls do nothing.</summary>
     public static Task Start() => Started.Value;
 
-    /// <summary>One warm-up pass; false if any library failed on the tiny brief (then the real brief pays the start-up).</summary>
+    /// <summary>
+    /// One warm-up pass; false if any library failed on the tiny brief (then the real brief pays the start-up).
+    /// </summary>
     internal static bool Run()
     {
         try

@@ -18,10 +18,14 @@ public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options,
     /// <summary>Flush the brief, its results and its manifest to the disk before renaming them into place.</summary>
     public bool Durable { get; init; } = true;
 
-    /// <summary>Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs read "–", "β₁" and "δ" right.</summary>
+    /// <summary>
+    /// Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs read "–", "β₁" and "δ" right.
+    /// </summary>
     public bool CsvByteOrderMark { get; init; }
 
-    /// <summary>The project folder (--root) that files named by scenarios must stay inside; null: each scenario's folder.</summary>
+    /// <summary>
+    /// The project folder (--root) that files named by scenarios must stay inside; null: each scenario's folder.
+    /// </summary>
     public string? Root { get; init; }
 
     /// <summary>The scenario with the date given to the run (<c>--date</c> or the project's) in place of
@@ -44,7 +48,8 @@ public static class BatchBuilder
         return Sha256Hex.OfAll(styles.Select(BundledFonts.Bytes));
     });
 
-    /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when null.</param>
+    /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when
+    /// null.</param>
     public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error, LoadResult? loadedBefore = null, CancellationToken stop = default)
     {
         var watch = Stopwatch.StartNew();
@@ -58,8 +63,8 @@ public static class BatchBuilder
             var (inputs, outputs, request) = Request(one.Scenario, settings);
             one.Hash = request.Fingerprint;
             var folder = new EditionFolder(one.Dir, one.Id);
-            // Unchanged briefs are skipped without taking the lock (only reads; the manifest is switched last), unless the
-            // temporary folder exists: then a build is running or was interrupted, and the locked path sees to it.
+            // Unchanged briefs are skipped without taking the lock (only reads; the manifest is switched last), unless
+            // the temporary folder exists: then a build is running or was interrupted, and the locked path sees to it.
             if (!settings.Force && !Directory.Exists(folder.TempDir))
             {
                 var (known, quick) = folder.Read(full: false);
@@ -81,7 +86,8 @@ public static class BatchBuilder
         }
         catch (Exception ex)
         {
-            // Whatever went wrong, this brief fails alone: the others in the batch are still built, nothing is half-written.
+            // Whatever went wrong, this brief fails alone: the others in the batch are still built,
+            // nothing is half-written.
             var failure = StageErrors.Describe(ex, file, one.Dir, settings.Template);
             lock (error) foreach (var line in failure.Lines) error.WriteLine(line);
             return new BriefOutcome(file, one.Id, failure.Status, null, null, 0, 0, watch.ElapsedMilliseconds,
@@ -209,9 +215,10 @@ public static class BatchBuilder
     public static string DirOf(string file, BatchSettings settings) => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
 
     /// <summary>
-    /// What the brief depends on, by name: <c>inputs</c> (what its bytes are made from: the scenario's text and content,
-    /// template, theme, fonts, tool, date) and <c>outputs</c> (the output switches: which files are written). A further
-    /// output format or switch goes into <c>outputs</c>, never <c>inputs</c>, so that it never makes an edition.
+    /// What the brief depends on, by name: <c>inputs</c> (what its bytes are made from: the scenario's text and
+    /// content, template, theme, fonts, tool, date) and <c>outputs</c> (the output switches: which files are written).
+    /// A further output format or switch goes into <c>outputs</c>, never <c>inputs</c>, so that it never makes an
+    /// edition.
     /// </summary>
     public static (SortedDictionary<string, string> Inputs, SortedDictionary<string, string> Outputs, EditionRequest Request) Request(ScenarioDocument scenario, BatchSettings settings)
     {
@@ -245,7 +252,9 @@ public static class BatchBuilder
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException) { return true; }
     }
 
-    /// <summary><c>brief.edition</c> below an edition already issued: a positioned error, nothing written for the brief.</summary>
+    /// <summary>
+    /// <c>brief.edition</c> below an edition already issued: a positioned error, nothing written for the brief.
+    /// </summary>
     private static BriefOutcome Refused(string file, LoadResult loaded, ScenarioDocument scenario, EditionPlan.Refuse refuse, string dir, string? hash, TextWriter error, Stopwatch watch)
     {
         var problem = RefusalOf(file, scenario, refuse, dir);

@@ -10,10 +10,10 @@ public sealed class LockHeldException(string message) : IOException(message);
 
 /// <summary>
 /// A lock on one brief in one output folder, across processes and machines that share the folder: the file
-/// <c>.briefwright-tmp/&lt;id&gt;.lock</c>, created only if absent (O_EXCL; also on NFS v3+ and SMB), holding host, process
-/// id, a random token and the start time. The holder touches it every few seconds; a lock whose file has not been
-/// touched for <see cref="StaleAfter"/> is judged abandoned (a killed build) and taken over. A process id is never used
-/// to judge a lock: on another machine the same number means nothing. Only the holder of a brief's lock writes the
+/// <c>.briefwright-tmp/&lt;id&gt;.lock</c>, created only if absent (O_EXCL; also on NFS v3+ and SMB), holding host,
+/// process id, a random token and the start time. The holder touches it every few seconds; a lock whose file has not
+/// been touched for <see cref="StaleAfter"/> is judged abandoned (a killed build) and taken over. A process id is never
+/// used to judge a lock: on another machine the same number means nothing. Only the holder of a brief's lock writes the
 /// brief, its staging folder, its journal or its archive, so whatever of these the holder finds was left by a build
 /// that is gone.
 /// </summary>
@@ -39,7 +39,9 @@ public sealed class BriefLock : IDisposable
         lock (Held) Held.Add(this);
     }
 
-    /// <summary>Takes the lock, waiting while another live build holds it (reported once to <paramref name="waiting"/>).</summary>
+    /// <summary>
+    /// Takes the lock, waiting while another live build holds it (reported once to <paramref name="waiting"/>).
+    /// </summary>
     public static BriefLock Acquire(string tempDir, string id, Action<string> waiting, CancellationToken stop = default)
     {
         string path = System.IO.Path.Combine(tempDir, id + ".lock");

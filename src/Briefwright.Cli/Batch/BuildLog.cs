@@ -31,7 +31,9 @@ public sealed record BuildLogEntry(
     /// <summary>What this attempt found left by an interrupted build and put right.</summary>
     public string? Recovered { get; init; }
 
-    /// <summary>Where the previous edition was kept (relative to the output folder), when this attempt archived it.</summary>
+    /// <summary>
+    /// Where the previous edition was kept (relative to the output folder), when this attempt archived it.
+    /// </summary>
     public string? Archived { get; init; }
 }
 
@@ -67,7 +69,10 @@ public sealed class BuildLog(TimeProvider clock, string? shard)
 
     public void Append(string dir, BriefOutcome o) => Append(dir, Entry(o));
 
-    /// <summary>Appends one line; a log that cannot be written never changes the outcome (it is on the console and in the exit code).</summary>
+    /// <summary>
+    /// Appends one line; a log that cannot be written never changes the outcome (it is on the console and in the exit
+    /// code).
+    /// </summary>
     public static void Append(string dir, BuildLogEntry entry)
     {
         try

@@ -13,8 +13,8 @@ namespace Briefwright.Cli.Batch;
 
 /// <summary>
 /// What <c>build --plan</c> says of one scenario: what a build would do (<c>new</c>, <c>skip</c>, <c>rewrite</c>,
-/// <c>redate</c>, <c>new_edition</c>, <c>invalid</c>), the edition and file names before and after, which inputs changed
-/// and why that means what it does.
+/// <c>redate</c>, <c>new_edition</c>, <c>invalid</c>), the edition and file names before and after, which inputs
+/// changed and why that means what it does.
 /// </summary>
 public sealed record PlannedBrief(
     string Scenario,
@@ -38,8 +38,8 @@ public sealed record PlannedBrief(
 }
 
 /// <summary>
-/// <c>build --plan</c>: for each brief, what a build would do and why, from the same planner and the same inputs a build
-/// uses. Reads only: no folder, lock, staging folder, log line or file is made, and an interrupted build is not
+/// <c>build --plan</c>: for each brief, what a build would do and why, from the same planner and the same inputs a
+/// build uses. Reads only: no folder, lock, staging folder, log line or file is made, and an interrupted build is not
 /// recovered (the plan says the next build will). When only the tool changed among what defines an edition, the brief's
 /// model is solved to tell whether an assumption as shown or a headline result moved.
 /// </summary>
@@ -96,8 +96,8 @@ public static class BuildPlan
         };
     }
 
-    /// <summary>Plans every scenario: reads them all (ids must be unique within the batch, as for a build), then each brief.
-    /// Positioned errors go to <paramref name="error"/> as a build prints them.</summary>
+    /// <summary>Plans every scenario: reads them all (ids must be unique within the batch, as for a build), then each
+    /// brief. Positioned errors go to <paramref name="error"/> as a build prints them.</summary>
     public static IReadOnlyList<PlannedBrief> PlanAll(IReadOnlyList<string> files, BatchSettings settings, int jobs, TextWriter error)
     {
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, jobs) };
@@ -176,7 +176,9 @@ public static class BuildPlan
     public static string ToJson(IReadOnlyList<PlannedBrief> plans) =>
         JsonSerializer.Serialize(plans, (System.Text.Json.Serialization.Metadata.JsonTypeInfo<IReadOnlyList<PlannedBrief>>)Json.GetTypeInfo(typeof(IReadOnlyList<PlannedBrief>))) + "\n";
 
-    /// <summary>The plan as a table and one line per brief saying why, then a count; ends by saying nothing was written.</summary>
+    /// <summary>
+    /// The plan as a table and one line per brief saying why, then a count; ends by saying nothing was written.
+    /// </summary>
     public static string ToText(IReadOnlyList<PlannedBrief> plans)
     {
         var sb = new StringBuilder();

@@ -7,7 +7,8 @@ namespace Briefwright.Cli.Batch;
 /// <summary>
 /// Where one brief lives in an output folder, and what is there now. Paths: the brief's files and
 /// <c>&lt;id&gt;.manifest.json</c> in the folder; <c>archive/&lt;id&gt;/</c>; and in <c>.briefwright-tmp/</c> the lock
-/// <c>&lt;id&gt;.lock</c>, the switch journal <c>&lt;id&gt;.journal</c> and staging folders <c>&lt;id&gt;.&lt;token&gt;/</c>.
+/// <c>&lt;id&gt;.lock</c>, the switch journal <c>&lt;id&gt;.journal</c> and staging folders
+/// <c>&lt;id&gt;.&lt;token&gt;/</c>.
 /// </summary>
 public sealed class EditionFolder(string dir, string id)
 {
@@ -70,8 +71,8 @@ public sealed class EditionFolder(string dir, string id)
         return (null, new CurrentEdition(condition, FoundEdition(found), null, null, found, [], [], archived));
     }
 
-    /// <summary>Files of this brief by name, <c>&lt;id&gt;-YYYY-MM-DD.*</c> or <c>&lt;id&gt;-YYYY-MM-DD-edition-N.*</c> (ids cannot
-    /// hold a dot, so no other brief's).</summary>
+    /// <summary>Files of this brief by name, <c>&lt;id&gt;-YYYY-MM-DD.*</c> or <c>&lt;id&gt;-YYYY-MM-DD-edition-N.*</c>
+    /// (ids cannot hold a dot, so no other brief's).</summary>
     public IReadOnlyList<string> Found()
     {
         if (!Directory.Exists(Dir)) return [];
@@ -79,7 +80,9 @@ public sealed class EditionFolder(string dir, string id)
         return Directory.EnumerateFiles(Dir, Id + "-*").Select(Path.GetFileName).Where(n => n is not null && pattern.IsMatch(n)).Select(n => n!).Order(StringComparer.Ordinal).ToList();
     }
 
-    /// <summary>The edition a found results file names (the highest, if several), when the manifest cannot say.</summary>
+    /// <summary>
+    /// The edition a found results file names (the highest, if several), when the manifest cannot say.
+    /// </summary>
     private int? FoundEdition(IReadOnlyList<string> found)
     {
         int? best = null;

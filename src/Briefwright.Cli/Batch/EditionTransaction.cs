@@ -7,14 +7,16 @@ namespace Briefwright.Cli.Batch;
 /// <summary>
 /// The record of a switch in progress, written (atomically, flushed) once the new edition is staged and the previous
 /// one archived, and removed when the switch is done. The files named in <see cref="Old"/> are moved from the folder
-/// into the staging folder's <c>old/</c> (the manifest first), then those in <see cref="New"/> from its <c>new/</c> into
-/// the folder (the manifest last). Each move is one rename(2) (a move that may replace its target: .NET's no-replace
-/// move links and unlinks, which can leave a file in two places), so every file is at any instant in exactly one place, and a
-/// build that finds the journal can finish the switch or undo it.
+/// into the staging folder's <c>old/</c> (the manifest first), then those in <see cref="New"/> from its <c>new/</c>
+/// into the folder (the manifest last). Each move is one rename(2) (a move that may replace its target: .NET's
+/// no-replace move links and unlinks, which can leave a file in two places), so every file is at any instant in exactly
+/// one place, and a build that finds the journal can finish the switch or undo it.
 /// </summary>
 public sealed record Journal(string Id, string Token, int Edition, IReadOnlyList<string> Old, IReadOnlyList<string> New, IReadOnlyDictionary<string, string> NewSha256, string? Archive);
 
-/// <summary>A transaction failed; <see cref="Exception.Message"/> says truthfully what state the folder is in.</summary>
+/// <summary>
+/// A transaction failed; <see cref="Exception.Message"/> says truthfully what state the folder is in.
+/// </summary>
 public sealed class EditionWriteException(string message, Exception inner) : IOException(message, inner);
 
 /// <summary>
@@ -26,7 +28,9 @@ public static class EditionTransaction
 {
     private const long Margin = 1 << 20;
 
-    /// <summary>Finishes or undoes a switch left by a build that stopped, and removes its staging and partial archive.</summary>
+    /// <summary>
+    /// Finishes or undoes a switch left by a build that stopped, and removes its staging and partial archive.
+    /// </summary>
     /// <returns>What was recovered, for the report; null when there was nothing.</returns>
     public static string? Recover(EditionFolder folder, BriefLock held)
     {
@@ -79,7 +83,9 @@ public static class EditionTransaction
         return notes.Count == 0 ? null : string.Join("; ", notes);
     }
 
-    /// <summary>Carries out <paramref name="plan"/>: the new edition's files replace the current ones as one step.</summary>
+    /// <summary>
+    /// Carries out <paramref name="plan"/>: the new edition's files replace the current ones as one step.
+    /// </summary>
     /// <returns>The archive folder written, if any.</returns>
     public static string? Execute(EditionFolder folder, BriefLock held, EditionPlan.Build plan, Manifest? current, CurrentEdition state,
         IReadOnlyList<(string Name, byte[] Bytes)> files, Manifest manifest, bool durable)
@@ -211,7 +217,9 @@ public static class EditionTransaction
         }
     }
 
-    /// <summary>Moves the old files aside (manifest first) and the new ones in (manifest last); safe to repeat after a kill.</summary>
+    /// <summary>
+    /// Moves the old files aside (manifest first) and the new ones in (manifest last); safe to repeat after a kill.
+    /// </summary>
     private static void Forward(EditionFolder folder, Journal journal)
     {
         string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"), stagedOld = Path.Combine(staging, "old");
@@ -260,10 +268,10 @@ public static class EditionTransaction
     }
 
     /// <summary>
-    /// Copies the current files into <c>archive/&lt;id&gt;/&lt;folder&gt;/</c>: first into a partial folder, each copy read
-    /// back and checked against the manifest's SHA-256 (or against the bytes read, for files kept as found), then renamed
-    /// into place in one step. An existing archive folder is never overwritten: one with the same files is reused, else
-    /// the copy gets the next free name.
+    /// Copies the current files into <c>archive/&lt;id&gt;/&lt;folder&gt;/</c>: first into a partial folder, each copy
+    /// read back and checked against the manifest's SHA-256 (or against the bytes read, for files kept as found), then
+    /// renamed into place in one step. An existing archive folder is never overwritten: one with the same files is
+    /// reused, else the copy gets the next free name.
     /// </summary>
     private static string Archive(EditionFolder folder, ArchiveStep step, Manifest? current, string token, bool durable)
     {
@@ -311,7 +319,8 @@ public static class EditionTransaction
     {
         long free;
         try { free = new DriveInfo(Path.GetFullPath(dir)).AvailableFreeSpace; }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException) { return; } // unknown: the writes will tell
+        // unknown: the writes will tell
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException) { return; }
         if (free < need)
             throw new IOException($"not enough free space in {dir}: the new edition and the archive copy need {Mb(need)}, {Mb(free)} is free");
     }

@@ -7,15 +7,17 @@ namespace Briefwright.Cli.Batch;
 /// What a brief in an output folder was built from: the hashes of every input, the files written with their sizes and
 /// SHA-256, and its own hash (<c>check</c>: the SHA-256 of the file with that value left empty). Stored as
 /// <c>&lt;id&gt;.manifest.json</c>. A manifest whose check fails, or that names a path outside its folder, is damaged.
-/// <c>inputs</c> are what the brief's bytes depend on (<see cref="Brief.Editions.EditionInput"/>); <c>outputs</c> are the
-/// output switches (which files are written), kept apart because they never make an edition; <c>hash</c> covers both.
-/// Manifests of earlier releases (no sizes, hashes or check) are read as valid but unverifiable.
+/// <c>inputs</c> are what the brief's bytes depend on (<see cref="Brief.Editions.EditionInput"/>); <c>outputs</c> are
+/// the output switches (which files are written), kept apart because they never make an edition; <c>hash</c> covers
+/// both. Manifests of earlier releases (no sizes, hashes or check) are read as valid but unverifiable.
 /// </summary>
 public sealed record Manifest(string Id, string Stem, int Edition, string Hash, IReadOnlyDictionary<string, string> Inputs, IReadOnlyList<string> Files)
 {
     public IReadOnlyDictionary<string, long>? Sizes { get; init; }
 
-    /// <summary>Output switches by name (chart copies, byte order mark, further formats): never part of what defines an edition.</summary>
+    /// <summary>
+    /// Output switches by name (chart copies, byte order mark, further formats): never part of what defines an edition.
+    /// </summary>
     public IReadOnlyDictionary<string, string>? Outputs { get; init; }
 
     /// <summary>The <c>brief.edition</c> the scenario gave for this build (a minimum; 1 when it gave none).</summary>
@@ -39,7 +41,9 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
 
     public static string PathFor(string outDir, string id) => Path.Combine(outDir, FileName(id));
 
-    /// <summary>Reads a manifest from text; null if it is not one (unreadable, truncated), or its check or a path is wrong.</summary>
+    /// <summary>
+    /// Reads a manifest from text; null if it is not one (unreadable, truncated), or its check or a path is wrong.
+    /// </summary>
     public static Manifest? Parse(string json)
     {
         Manifest? m;
@@ -83,7 +87,9 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
         : new FileInfo(Path.Combine(outDir, f)) is { Exists: true } fi && fi.Length == Sizes[f]);
 }
 
-/// <summary>Serialisation code for the manifest, the build log, the switch journal and the lock, generated at build time.</summary>
+/// <summary>
+/// Serialisation code for the manifest, the build log, the switch journal and the lock, generated at build time.
+/// </summary>
 [System.Text.Json.Serialization.JsonSerializable(typeof(Manifest))]
 [System.Text.Json.Serialization.JsonSerializable(typeof(BuildLogEntry))]
 [System.Text.Json.Serialization.JsonSerializable(typeof(Journal))]

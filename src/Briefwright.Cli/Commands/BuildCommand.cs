@@ -10,7 +10,9 @@ using Briefwright.Templating;
 
 namespace Briefwright.Cli.Commands;
 
-/// <summary><c>build PATH...</c>: scenarios + template → dated PDF briefs with their data annex, in parallel, incrementally.</summary>
+/// <summary>
+/// <c>build PATH...</c>: scenarios + template → dated PDF briefs with their data annex, in parallel, incrementally.
+/// </summary>
 public static class BuildCommand
 {
     public static Command Create(CliIo io)
@@ -171,7 +173,9 @@ public static class BuildCommand
         };
     }
 
-    /// <summary>Stops the run before any brief: prints the messages, logs them (one run line per output folder), exit 2.</summary>
+    /// <summary>
+    /// Stops the run before any brief: prints the messages, logs them (one run line per output folder), exit 2.
+    /// </summary>
     private static int Refuse(BuildLog? log, string stage, IEnumerable<string> logDirs, TextWriter error, params string[] messages)
     {
         foreach (var m in messages) error.WriteLine(m);
@@ -181,7 +185,10 @@ public static class BuildCommand
         return ExitCodes.InvalidInput;
     }
 
-    /// <summary>Where a run's log lines go: the output folder, else an 'out' folder beside each scenario (or in each folder named).</summary>
+    /// <summary>
+    /// Where a run's log lines go: the output folder, else an 'out' folder beside each scenario (or in each folder
+    /// named).
+    /// </summary>
     private static IEnumerable<string> LogDirs(IEnumerable<string> paths, string? outDir, ProjectSettings? project, bool expanded = false)
     {
         if ((outDir ?? project?.Out) is { } o) return [o];
@@ -190,7 +197,9 @@ public static class BuildCommand
             .OfType<string>().Distinct().ToList();
     }
 
-    /// <summary>A usage error of <c>build</c> is logged too, where its output folder can be told from the words given.</summary>
+    /// <summary>
+    /// A usage error of <c>build</c> is logged too, where its output folder can be told from the words given.
+    /// </summary>
     public static void LogUsageError(string[] args, string message, CliIo io)
     {
         string? outDir = null, shardText = null;
@@ -216,7 +225,9 @@ public static class BuildCommand
 
     public const int MaxJobs = 256;
 
-    /// <summary>The --jobs value: a whole number from 1 to <see cref="MaxJobs"/>, or one per core when not given.</summary>
+    /// <summary>
+    /// The --jobs value: a whole number from 1 to <see cref="MaxJobs"/>, or one per core when not given.
+    /// </summary>
     public static int? ParseJobs(string? text, TextWriter error)
     {
         if (text is null) return Environment.ProcessorCount;
@@ -269,7 +280,9 @@ public static class BuildCommand
         };
     }
 
-    /// <summary>Reads the template and theme and checks the options; on failure, <paramref name="stage"/> says which was wrong.</summary>
+    /// <summary>
+    /// Reads the template and theme and checks the options; on failure, <paramref name="stage"/> says which was wrong.
+    /// </summary>
     private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?, int)? Setup(string? templatePath, string? themePath, string? dateText,
         string? shardText, string? jobsText, int? projectJobs, string? root, TextWriter error, out string stage)
     {

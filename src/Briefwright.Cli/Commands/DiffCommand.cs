@@ -5,7 +5,9 @@ using Briefwright.Brief.Annex;
 
 namespace Briefwright.Cli.Commands;
 
-/// <summary><c>diff OLD NEW</c>: changed assumptions and headline results between two scenarios or two results files.</summary>
+/// <summary>
+/// <c>diff OLD NEW</c>: changed assumptions and headline results between two scenarios or two results files.
+/// </summary>
 public static class DiffCommand
 {
     public static Command Create(TextWriter output, TextWriter error, TextReader input)

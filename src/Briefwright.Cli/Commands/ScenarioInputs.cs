@@ -7,7 +7,9 @@ using Briefwright.Scenario.Yaml;
 
 namespace Briefwright.Cli.Commands;
 
-/// <summary>Expands the paths given on the command line into scenario files and loads them, printing every problem.</summary>
+/// <summary>
+/// Expands the paths given on the command line into scenario files and loads them, printing every problem.
+/// </summary>
 public static class ScenarioInputs
 {
     /// <summary>The name a scenario read from standard input (the path <c>-</c>) goes by in messages.</summary>
@@ -30,7 +32,10 @@ public static class ScenarioInputs
                       "Default: the folder of each scenario (and of the theme) given on the command line.",
     };
 
-    /// <summary>Whether a file in a folder is a scenario: *.yaml or *.yml, except themes (*.theme.yaml) and the project settings file.</summary>
+    /// <summary>
+    /// Whether a file in a folder is a scenario: *.yaml or *.yml, except themes (*.theme.yaml) and the project settings
+    /// file.
+    /// </summary>
     public static bool IsScenarioFile(string path)
     {
         string name = Path.GetFileName(path);
@@ -38,8 +43,9 @@ public static class ScenarioInputs
                && !name.EndsWith(".theme.yaml", StringComparison.Ordinal) && name != ProjectSettings.FileName;
     }
 
-    /// <summary>Files as given (and <c>-</c> for standard input); folders expand to their scenario files (not recursive),
-    /// sorted by name. A folder without scenario files is reported and sets <paramref name="invalid"/>.</summary>
+    /// <summary>Files as given (and <c>-</c> for standard input); folders expand to their scenario files (not
+    /// recursive), sorted by name. A folder without scenario files is reported and sets
+    /// <paramref name="invalid"/>.</summary>
     public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error, out bool invalid)
     {
         invalid = false;
@@ -61,7 +67,10 @@ public static class ScenarioInputs
         return files;
     }
 
-    /// <summary><see cref="Expand(IEnumerable{string}, TextWriter, out bool)"/> for commands that stop when there is nothing to do.</summary>
+    /// <summary>
+    /// <see cref="Expand(IEnumerable{string}, TextWriter, out bool)"/> for commands that stop when there is nothing to
+    /// do.
+    /// </summary>
     public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error) => Expand(paths, error, out _);
 
     /// <summary>Checks the --root folder; false (after printing why) when it is not a folder.</summary>
@@ -90,8 +99,8 @@ public static class ScenarioInputs
 
     /// <summary>
     /// Two scenarios of one batch with the same <c>brief.id</c> would write the same files and take turns making new
-    /// editions of each other. Returns, for each such file, the positioned problem: at its own <c>brief.id</c>, or at its
-    /// <c>extends</c> when the id is inherited.
+    /// editions of each other. Returns, for each such file, the positioned problem: at its own <c>brief.id</c>, or at
+    /// its <c>extends</c> when the id is inherited.
     /// </summary>
     public static IReadOnlyDictionary<string, Diagnostic> DuplicateIds(IReadOnlyList<(string File, LoadResult Loaded)> batch, ISourceReader reader)
     {
@@ -112,7 +121,9 @@ public static class ScenarioInputs
         return found;
     }
 
-    /// <summary>Where a scenario file sets its id: its own <c>brief.id</c>, else its <c>extends</c> (inherited), else line 1.</summary>
+    /// <summary>
+    /// Where a scenario file sets its id: its own <c>brief.id</c>, else its <c>extends</c> (inherited), else line 1.
+    /// </summary>
     private static (SourceSpan At, bool Inherited) IdPosition(string file, ISourceReader reader)
     {
         if (reader.TryRead(file, out string text, out _) && YamlTreeReader.Read(file, text).Root is YMapping map)
@@ -123,7 +134,9 @@ public static class ScenarioInputs
         return (new SourceSpan(file, 1, 1), false);
     }
 
-    /// <summary>The first <see cref="MaxPrinted"/> problems with their lines and carets, then how many more there are.</summary>
+    /// <summary>
+    /// The first <see cref="MaxPrinted"/> problems with their lines and carets, then how many more there are.
+    /// </summary>
     public static void Print(IReadOnlyList<Diagnostic> problems, SourceSet sources, TextWriter error)
     {
         foreach (var d in problems.Take(MaxPrinted)) error.WriteLine(sources.Render(d));
@@ -131,7 +144,9 @@ public static class ScenarioInputs
             error.WriteLine($"… and {Numbers.Count(problems.Count - MaxPrinted)} more problem{(problems.Count - MaxPrinted == 1 ? "" : "s")} not shown (fix these first).");
     }
 
-    /// <summary>Solves a loaded scenario; null (after printing the reason, with the scenario's name) when the model cannot.</summary>
+    /// <summary>
+    /// Solves a loaded scenario; null (after printing the reason, with the scenario's name) when the model cannot.
+    /// </summary>
     public static SolvedScenario? Solve(string path, ScenarioDocument scenario, TextWriter error)
     {
         try
@@ -148,7 +163,9 @@ public static class ScenarioInputs
     private static string Binding(string s) => Scenario.Binding.BindContext.Printable(s);
 }
 
-/// <summary>Reads <see cref="ScenarioInputs.StdinName"/> from standard input (once) and everything else from disk.</summary>
+/// <summary>
+/// Reads <see cref="ScenarioInputs.StdinName"/> from standard input (once) and everything else from disk.
+/// </summary>
 public sealed class InputReader(TextReader stdin) : ISourceReader
 {
     private readonly FileSourceReader files = new();

@@ -3,7 +3,9 @@ using Briefwright.Scenario.Binding;
 
 namespace Briefwright.Cli.Commands;
 
-/// <summary>A mistake in the command line itself: which command (empty for none), what is wrong, where to read more.</summary>
+/// <summary>
+/// A mistake in the command line itself: which command (empty for none), what is wrong, where to read more.
+/// </summary>
 public sealed record UsageError(string Command, string Message, string Hint);
 
 /// <summary>

@@ -42,7 +42,10 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
     public const string FileName = "briefwright.settings.yaml";
     public const int MaxJobs = 256;
 
-    /// <summary>Every field, in the order the docs list them. The loader accepts these keys only and the schema is made from this list.</summary>
+    /// <summary>
+    /// Every field, in the order the docs list them. The loader accepts these keys only and the schema is made from
+    /// this list.
+    /// </summary>
     public static readonly IReadOnlyList<SettingField> Fields =
     [
         new("template", SettingKind.Path, "Template file (Scriban producing CommonMark). Default: the standard brief."),
@@ -58,7 +61,9 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
     /// <summary>The folder the settings file is in; its paths are relative to it.</summary>
     public string Folder => System.IO.Path.GetDirectoryName(System.IO.Path.GetFullPath(File))!;
 
-    /// <summary>The nearest settings file in <paramref name="start"/>'s folder (or the folder itself) or one above it.</summary>
+    /// <summary>
+    /// The nearest settings file in <paramref name="start"/>'s folder (or the folder itself) or one above it.
+    /// </summary>
     public static string? Find(string start)
     {
         string full = System.IO.Path.GetFullPath(start == ScenarioInputsStdin ? "." : start);
