@@ -19,7 +19,8 @@ public static class CliApp
     {
         if (args is ["build", ..]) Speed.HeadStart();
         var root = new RootCommand(
-            "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief (PDF) on " +
+            "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief " +
+            "(PDF) on " +
             "schooling length, demography and long-run output per person, with its numbers also written as data.\n\n" +
             "Start with:  briefwright init my-briefs,  briefwright check briefs-demo,\n" +
             "             briefwright solve briefs-demo/auroria-national.yaml,\n" +

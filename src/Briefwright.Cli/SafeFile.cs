@@ -20,10 +20,12 @@ public static unsafe class SafeFile
             var info = new FileInfo(path);
             if (!info.Exists)
             {
-                error = info.LinkTarget is not null ? "it is a symbolic link to a file that does not exist" : "no such file";
+                error = info.LinkTarget is not null ? "it is a symbolic link to a file that does not " +
+                    "exist" : "no such file";
                 return false;
             }
-            if (Kind(path) is { } kind && kind != "a regular file") { error = $"it is {kind}, not a regular file"; return false; }
+            if (Kind(path) is { } kind && kind != "a regular file") { error = $"it is {kind}, not a regular " +
+                "file"; return false; }
             string? real = RealPath(path);
             if (real is not null && (real.StartsWith("/proc/", StringComparison.Ordinal) || real.StartsWith("/sys/", StringComparison.Ordinal) || real.StartsWith("/dev/", StringComparison.Ordinal)))
             {
@@ -70,7 +72,8 @@ public static unsafe class SafeFile
     }
 
     private static string TooLarge(long size, long max, bool atLeast = false) =>
-        $"the file is {(atLeast ? "more than " : "")}{Scenario.Numbers.Count(atLeast ? max : size)} bytes, over the limit of {Scenario.Numbers.Count(max)} bytes";
+        $"the file is {(atLeast ? "more than " : "")}{Scenario.Numbers.Count(atLeast ? max : size)} bytes, over the " +
+        $"limit of {Scenario.Numbers.Count(max)} bytes";
 
     // statx(2) and realpath(3) from the C library, found at run time (no import needed where they do not exist).
     private static readonly Lazy<(nint Statx, nint RealPath)> Libc = new(() =>

@@ -56,16 +56,19 @@ public static class StageErrors
             ExitCodes.Failed, OutcomeStatus.Failed, w.Message),
         IOException or UnauthorizedAccessException => new(Stage.Write,
             // Failed before any staging: the lock, the recovery or the folder itself (a file, read-only, full).
-            [$"{file}: cannot write the brief to {outDir} ({ex.Message}); nothing was replaced: the previous files are untouched."],
+            [$"{file}: cannot write the brief to {outDir} ({ex.Message}); nothing was replaced: the previous files " +
+                "are untouched."],
             ExitCodes.Failed, OutcomeStatus.Failed, ex.Message),
         _ => new(null, [$"{file}: {Internal(ex)}"], ExitCodes.Failed, OutcomeStatus.Failed, ex.Message),
     };
 
     /// <summary>A fault of the tool itself: no stage claims it, so no input can be changed to avoid it.</summary>
-    public static string Internal(Exception ex) => $"internal error, please report it: {ex.GetType().Name}: {ex.Message}";
+    public static string Internal(Exception ex) => $"internal error, please report it: {ex.GetType().Name}: " +
+        $"{ex.Message}";
 
     private static StageFailure Model(string file, string reason) => new(Stage.Model,
-        [$"{file}: the model cannot solve this scenario: {reason.TrimEnd('.')}. Change the inputs named in the reason; nothing written."],
+        [$"{file}: the model cannot solve this scenario: {reason.TrimEnd('.')}. Change the inputs named in the " +
+            "reason; nothing written."],
         ExitCodes.InvalidInput, OutcomeStatus.Invalid, reason);
 
     /// <summary>
@@ -76,7 +79,8 @@ public static class StageErrors
         var lines = template.Text.Split('\n');
         if (ex.Snippet is { Length: > 0 } snippet)
             for (int i = 0; i < lines.Length; i++)
-                if (lines[i].IndexOf(snippet, StringComparison.Ordinal) is int col and >= 0) return $"{template.Path}:{i + 1}:{col + 1}";
+                if (lines[i].IndexOf(snippet, StringComparison.Ordinal) is int col and >= 0) return $"{template.Path}" +
+                    $":{i + 1}:{col + 1}";
         return $"{template.Path}:{Math.Max(1, ex.Line)}:1";
     }
 }

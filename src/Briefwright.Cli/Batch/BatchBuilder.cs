@@ -271,6 +271,7 @@ public static class BatchBuilder
 
     internal static Scenario.Diagnostics.Diagnostic RefusalOf(string file, ScenarioDocument scenario, EditionPlan.Refuse refuse, string dir) =>
         new(scenario.EditionAt ?? new Scenario.Diagnostics.SourceSpan(file, 1, 1), "brief.edition",
-            $"must not be below edition {refuse.Issued}, already issued in {dir}; remove it, or give at least {refuse.Issued + 1} to start a new edition",
+            $"must not be below edition {refuse.Issued}, already issued in {dir}; remove it, or give at least " +
+            $"{refuse.Issued + 1} to start a new edition",
             $"'{refuse.Requested}'");
 }

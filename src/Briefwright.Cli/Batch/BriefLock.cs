@@ -74,22 +74,26 @@ public sealed class BriefLock : IDisposable
             if (holder is null && age is null) continue; // released just now
             if (age > StaleAfter)
             {
-                if (Break(path, holder)) tookOver = $"took over the lock of a build that showed no sign of life for {age.Value.TotalSeconds:0} s ({Describe(holder)})";
+                if (Break(path, holder)) tookOver = "took over the lock of a build that showed no sign of life for " +
+                    $"{age.Value.TotalSeconds:0} s ({Describe(holder)})";
                 continue;
             }
             if (!told)
             {
-                waiting($"waiting for another build ({Describe(holder)}) that holds {path}; a lock untouched for {StaleAfter.TotalSeconds:0} s is taken over");
+                waiting($"waiting for another build ({Describe(holder)}) that holds {path}; a lock untouched for " +
+                    $"{StaleAfter.TotalSeconds:0} s is taken over");
                 told = true;
             }
             if (DateTime.UtcNow - started > MaxWait)
-                throw new LockHeldException($"another build ({Describe(holder)}) has held {path} for over {MaxWait.TotalMinutes:0} minutes");
+                throw new LockHeldException($"another build ({Describe(holder)}) has held {path} for over " +
+                    $"{MaxWait.TotalMinutes:0} minutes");
             if (stop.WaitHandle.WaitOne(100)) throw new OperationCanceledException(stop);
         }
     }
 
     private static string Describe(LockInfo? holder) =>
-        holder is null ? "unreadable lock file" : $"host {holder.Host}, process {holder.Pid}, started {holder.StartedUtc:yyyy-MM-dd HH:mm:ss} UTC";
+        holder is null ? "unreadable lock file" : $"host {holder.Host}, process {holder.Pid}, started " +
+            $"{holder.StartedUtc:yyyy-MM-dd HH:mm:ss} UTC";
 
     private static (LockInfo? Info, TimeSpan? Age) Read(string path)
     {

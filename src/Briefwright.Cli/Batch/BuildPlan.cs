@@ -50,7 +50,8 @@ public static class BuildPlan
         if (!loaded.Ok)
         {
             var messages = loaded.Problems.Select(p => p.Message).ToList();
-            return new PlannedBrief(file, null, "invalid", null, null, null, null, [], $"{messages.Count} problem(s) in the scenario") { Messages = messages };
+            return new PlannedBrief(file, null, "invalid", null, null, null, null, [],
+                $"{messages.Count} problem(s) in the scenario") { Messages = messages };
         }
         var scenario = settings.Dated(loaded.Document!);
         string id = scenario.Brief.Id, dir = BatchBuilder.DirOf(file, settings);
@@ -59,7 +60,8 @@ public static class BuildPlan
         var (_, state) = folder.Read(full: true);
         var plan = EditionPlanner.Plan(request, state);
         string? interrupted = Directory.Exists(folder.TempDir) && Directory.EnumerateFileSystemEntries(folder.TempDir, id + ".*").Any()
-            ? $" A build of {id} is running or was interrupted ({folder.TempDir}); the next build waits for it or puts it right first."
+            ? $" A build of {id} is running or was interrupted ({folder.TempDir}); the next build waits for it or " +
+                "puts it right first."
             : null;
         string? before = state.Stem;
         switch (plan)
@@ -89,7 +91,8 @@ public static class BuildPlan
         }
         string stem = BriefBuilder.FileStem(id, scenario.Brief.Date, build.Edition);
         string action = build.Changed.Contains("new") ? "new" : build.NewEdition ? "new_edition" : build.Redated ? "redate" : "rewrite";
-        string why = Describe(build, request, state) + (build.Archive is { } a ? $"; the current files are kept first in archive/{id}/{a.Folder}" + (a.Recovered ? " (as found)" : "") : "");
+        string why = Describe(build, request, state) + (build.Archive is { } a ? "; the current files are kept " +
+            $"first in archive/{id}/{a.Folder}" + (a.Recovered ? " (as found)" : "") : "");
         return new PlannedBrief(file, id, action, build.Edition, state.Edition, stem, before, build.Changed, why + "." + interrupted)
         {
             Archive = build.Archive is { } k ? $"archive/{id}/{k.Folder}" : null, Out = dir,
@@ -147,17 +150,21 @@ public static class BuildPlan
             EditionInput.Tool => $"the tool version ({Was(EditionInput.Tool)} → {Now(EditionInput.Tool)})",
             EditionInput.RequestedEdition => $"brief.edition asks for edition {request.RequestedEdition}",
             EditionInput.Results => "assumptions as shown or headline results",
-            _ when c.StartsWith(EditionInput.OutputPrefix, StringComparison.Ordinal) => $"output switch {c[EditionInput.OutputPrefix.Length..]}" +
-                $" ({state.Outputs?.GetValueOrDefault(c[EditionInput.OutputPrefix.Length..]) ?? "?"} → {request.Outputs.GetValueOrDefault(c[EditionInput.OutputPrefix.Length..]) ?? "?"})",
+            _ when c.StartsWith(EditionInput.OutputPrefix, StringComparison.Ordinal) => "output switch " +
+                $"{c[EditionInput.OutputPrefix.Length..]}" +
+                $" ({state.Outputs?.GetValueOrDefault(c[EditionInput.OutputPrefix.Length..]) ?? "?"} → " +
+                $"{request.Outputs.GetValueOrDefault(c[EditionInput.OutputPrefix.Length..]) ?? "?"})",
             _ => $"the {c}",
         }).ToList();
         string changed = words.Count == 0 ? "" : "changed: " + string.Join(", ", words);
         if (build.Changed.Contains("new")) return "not built before";
-        string meaning = build.NewEdition ? $"a new edition {build.Edition} after edition {state.Edition?.ToString(CultureInfo.InvariantCulture) ?? "?"}"
+        string meaning = build.NewEdition ? $"a new edition {build.Edition} after edition " +
+            $"{state.Edition?.ToString(CultureInfo.InvariantCulture) ?? "?"}"
             : build.Redated ? $"edition {build.Edition} re-dated (no change of content, template or results)"
             : build.ResultsDecide ? $"edition {build.Edition} rewritten; it becomes a new edition if the results move"
             : build.Archive is null && build.Changed.All(c => c.StartsWith(EditionInput.OutputPrefix, StringComparison.Ordinal))
-                ? $"edition {build.Edition} kept; only which files are written changes (the PDF and results data stay the same bytes; " +
+                ? $"edition {build.Edition} kept; only which files are written changes (the PDF and results data " +
+                    "stay the same bytes; " +
                   "the current files are kept first in the archive if a file would be dropped or changed)"
             : $"edition {build.Edition} rewritten";
         return $"{changed}: {meaning}";

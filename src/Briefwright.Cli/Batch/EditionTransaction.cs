@@ -41,8 +41,10 @@ public static class EditionTransaction
             try { journal = JsonSerializer.Deserialize(File.ReadAllBytes(folder.JournalPath), BatchJsonContext.Default.Journal); }
             catch (JsonException) { }
             if (journal is null || journal.Id != folder.Id || !journal.Old.Concat(journal.New).All(Manifest.Confined) || journal.Token.Any(c => !char.IsAsciiLetterOrDigit(c)))
-                throw new IOException($"{folder.JournalPath} is damaged, so an interrupted switch of {folder.Id} can be neither finished nor undone safely; nothing was changed. " +
-                                      $"Inspect {folder.TempDir} (old/ holds the previous files, new/ the new ones), put the files right and delete the journal");
+                throw new IOException($"{folder.JournalPath} is damaged, so an interrupted switch of {folder.Id} can " +
+                    "be neither finished nor undone safely; nothing was changed. " +
+                                      $"Inspect {folder.TempDir} (old/ holds the previous files, new/ the new ones), " +
+                                      "put the files right and delete the journal");
             try
             {
                 Forward(folder, journal);
@@ -53,11 +55,15 @@ public static class EditionTransaction
                 try { Back(folder, journal); }
                 catch (Exception again) when (again is IOException or UnauthorizedAccessException)
                 {
-                    throw new EditionWriteException($"an interrupted switch to edition {journal.Edition} could be neither finished ({ex.Message}) nor undone " +
-                        $"({again.Message}); {folder.JournalPath} still records it, the previous files are in {Path.Combine(folder.Staging(journal.Token), "old")}" +
-                        (journal.Archive is null ? "" : $" and {journal.Archive}") + "; put right what stops it and build again", again);
+                    throw new EditionWriteException($"an interrupted switch to edition {journal.Edition} could be " +
+                        $"neither finished ({ex.Message}) nor undone " +
+                        $"({again.Message}); {folder.JournalPath} still records it, the previous files are in " +
+                        $"{Path.Combine(folder.Staging(journal.Token), "old")}" +
+                        (journal.Archive is null ? "" : $" and {journal.Archive}") + "; put right what stops it and " +
+                            "build again", again);
                 }
-                notes.Add($"undid the switch to edition {journal.Edition} that an interrupted build had begun ({ex.Message}); the previous edition is in place");
+                notes.Add($"undid the switch to edition {journal.Edition} that an interrupted build had begun " +
+                    $"({ex.Message}); the previous edition is in place");
             }
             File.Delete(folder.JournalPath);
             FaultSeam.After(folder.Id, "recover.journal");
@@ -77,7 +83,8 @@ public static class EditionTransaction
             foreach (var d in Directory.EnumerateDirectories(folder.ArchiveRoot, ".partial-*"))
             {
                 Directory.Delete(d, recursive: true);
-                notes.Add("removed a partial archive copy of an interrupted build (the edition it copied is still current)");
+                notes.Add("removed a partial archive copy of an interrupted build (the edition it copied is still " +
+                    "current)");
             }
         if (held.TookOver is { } t) notes.Insert(0, t);
         return notes.Count == 0 ? null : string.Join("; ", notes);
@@ -142,7 +149,8 @@ public static class EditionTransaction
                 FaultSeam.After(id, "archived");
             }
             if (!held.StillHeld())
-                throw new IOException($"another build took over the lock {held.Path} while this one worked (it judged it abandoned)");
+                throw new IOException($"another build took over the lock {held.Path} while this one worked (it " +
+                    "judged it abandoned)");
             return archived;
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -184,7 +192,8 @@ public static class EditionTransaction
         {
             TryDelete(folder.JournalPath);
             TryDelete(staging);
-            throw new EditionWriteException($"{ex.Message}; nothing was replaced: the previous files are untouched", ex);
+            throw new EditionWriteException($"{ex.Message}; nothing was replaced: the previous files are " +
+                "untouched", ex);
         }
     }
 
@@ -207,12 +216,14 @@ public static class EditionTransaction
             }
             catch (Exception again) when (again is IOException or UnauthorizedAccessException)
             {
-                throw new EditionWriteException($"{ex.Message}; the switch could neither be finished nor undone ({again.Message}): " +
+                throw new EditionWriteException($"{ex.Message}; the switch could neither be finished nor undone " +
+                    $"({again.Message}): " +
                     $"{folder.JournalPath} records it and the next build finishes or undoes it; " +
                     $"the previous files are in {Path.Combine(staging, "old")}" +
                     (archived is null ? "" : $" and {Relative(folder, archived)}"), ex);
             }
-            throw new EditionWriteException($"{ex.Message}; the switch was undone: the previous files are back in place" +
+            throw new EditionWriteException($"{ex.Message}; the switch was undone: the previous files are back in " +
+                "place" +
                 (archived is null ? "" : $" (and kept in {Relative(folder, archived)})"), ex);
         }
     }
@@ -287,7 +298,8 @@ public static class EditionTransaction
                 throw new IOException($"{f} changed while it was being archived");
             string copy = Path.Combine(partial, f);
             WriteNew(copy, bytes, durable);
-            if (EditionFolder.Sha256(copy) != hash) throw new IOException($"the archive copy of {f} does not read back as written");
+            if (EditionFolder.Sha256(copy) != hash) throw new IOException($"the archive copy of {f} does not read " +
+                "back as written");
         }
         if (step.Recovered)
             WriteNew(Path.Combine(partial, "RECOVERED.txt"), Encoding.UTF8.GetBytes(
@@ -322,7 +334,8 @@ public static class EditionTransaction
         // unknown: the writes will tell
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException) { return; }
         if (free < need)
-            throw new IOException($"not enough free space in {dir}: the new edition and the archive copy need {Mb(need)}, {Mb(free)} is free");
+            throw new IOException($"not enough free space in {dir}: the new edition and the archive copy need " +
+                $"{Mb(need)}, {Mb(free)} is free");
     }
 
     private static string Mb(long bytes) => $"{bytes / (1024.0 * 1024.0):0.0} MB";

@@ -18,32 +18,54 @@ public static class BuildCommand
     public static Command Create(CliIo io)
     {
         var paths = ScenarioInputs.PathsArgument("built", stdin: false);
-        var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing CommonMark). Default: the project's, else the standard brief; copy templates/standard-brief.md to start your own." };
-        var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size (A4 or US Letter), colours, footer text, logo, fonts. See docs/themes.md." };
-        var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: the project's, else an 'out' folder beside each scenario." };
-        var date = new Option<string?>("--date") { Description = "Date of the brief (YYYY-MM-DD), replacing brief.date. The clock is never used, so rebuilds are identical." };
-        var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on has changed." };
-        var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job arrays: shards are disjoint and together cover the list, whatever the spelling of the folder." };
-        var jobs = new Option<string?>("--jobs", "-j") { Description = "Briefs built at once, at least 1 (default: the project's, else one per core)." };
+        var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing " +
+            "CommonMark). Default: the project's, else the standard brief; copy templates/standard-brief.md to start " +
+            "your own." };
+        var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size " +
+            "(A4 or US Letter), colours, footer text, logo, fonts. See docs/themes.md." };
+        var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: the " +
+            "project's, else an 'out' folder beside each scenario." };
+        var date = new Option<string?>("--date") { Description = "Date of the brief (YYYY-MM-DD), replacing " +
+            "brief.date. The clock is never used, so rebuilds are identical." };
+        var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on " +
+            "has changed." };
+        var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job " +
+            "arrays: shards are disjoint and together cover the list, whatever the spelling of the folder." };
+        var jobs = new Option<string?>("--jobs", "-j") { Description = "Briefs built at once, at least 1 (default: " +
+            "the project's, else one per core)." };
         var root = ScenarioInputs.RootOption();
-        var noImages = new Option<bool>("--no-chart-images") { Description = "Skip the SVG and PNG copies of each chart in the data annex (faster)." };
-        var csvBom = new Option<bool>("--csv-bom") { Description = "Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs show '–', 'β₁' and 'δ' correctly." };
-        var skipFlush = new Option<bool>("--skip-flush") { Description = "Do not wait for each brief to reach the disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a power cut might leave an empty one." };
-        var settingsFile = new Option<string?>("--settings") { Description = $"Project settings file. Default: the nearest {ProjectSettings.FileName} in the scenarios' folder or a folder above it." };
+        var noImages = new Option<bool>("--no-chart-images") { Description = "Skip the SVG and PNG copies of each " +
+            "chart in the data annex (faster)." };
+        var csvBom = new Option<bool>("--csv-bom") { Description = "Start each CSV file with a UTF-8 byte order " +
+            "mark, so spreadsheet programs show '–', 'β₁' and 'δ' correctly." };
+        var skipFlush = new Option<bool>("--skip-flush") { Description = "Do not wait for each brief to reach the " +
+            "disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a " +
+            "power cut might leave an empty one." };
+        var settingsFile = new Option<string?>("--settings") { Description = "Project settings file. Default: the " +
+            $"nearest {ProjectSettings.FileName} in the scenarios' folder or a folder above it." };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print nothing but errors." };
         var formatsOption = new Option<string?>("--formats")
         {
-            Description = "Which files to write for each brief, comma-separated: pdf (always written), html (a self-contained web page), " +
-                "xlsx (a spreadsheet workbook of the results tables), docx (an editable document). Default: the project's, else pdf. " +
+            Description = "Which files to write for each brief, comma-separated: pdf (always written), html (a " +
+                "self-contained web page), " +
+                "xlsx (a spreadsheet workbook of the results tables), docx (an editable document). Default: the " +
+                "project's, else pdf. " +
                 "Switching a format on or off rebuilds the same edition; it never makes a new one.",
         };
-        var plan = new Option<bool>("--plan") { Description = "Say what a build would do for each brief (build new, skip, rewrite, re-date, new edition) and which inputs changed, and write nothing at all: no brief, log line, lock or folder. Exit 0, or 2 on invalid input." };
-        var json = new Option<bool>("--json") { Description = "With --plan: print the plan as a JSON list, one object per scenario in the order given." };
+        var plan = new Option<bool>("--plan") { Description = "Say what a build would do for each brief (build new, " +
+            "skip, rewrite, re-date, new edition) and which inputs changed, and write nothing at all: no brief, log " +
+            "line, lock or folder. Exit 0, or 2 on invalid input." };
+        var json = new Option<bool>("--json") { Description = "With --plan: print the plan as a JSON list, one " +
+            "object per scenario in the order given." };
         var command = new Command("build",
-            "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results JSON, CSV tables and " +
-            "chart images beside it. Unchanged briefs are skipped. A changed scenario content, template or headline result makes a new edition " +
-            "(files named <id>-<date>-edition-<n>); a new date alone re-dates the current edition; a new theme or tool rewrites it; output " +
-            "switches never make an edition; whatever is replaced is archived first. --plan shows what a build would do, writing nothing. " +
+            "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results " +
+            "JSON, CSV tables and " +
+            "chart images beside it. Unchanged briefs are skipped. A changed scenario content, template or headline " +
+            "result makes a new edition " +
+            "(files named <id>-<date>-edition-<n>); a new date alone re-dates the current edition; a new theme or " +
+            "tool rewrites it; output " +
+            "switches never make an edition; whatever is replaced is archived first. --plan shows what a build would " +
+            "do, writing nothing. " +
             $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
             paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root, plan, json, formatsOption,
@@ -232,7 +254,8 @@ public static class BuildCommand
     {
         if (text is null) return Environment.ProcessorCount;
         if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n is >= 1 and <= MaxJobs) return n;
-        error.WriteLine($"--jobs: must be a whole number from 1 to {MaxJobs}. Got '{Scenario.Binding.BindContext.Printable(text)}'.");
+        error.WriteLine($"--jobs: must be a whole number from 1 to {MaxJobs}. Got " +
+            $"'{Scenario.Binding.BindContext.Printable(text)}'.");
         return null;
     }
 

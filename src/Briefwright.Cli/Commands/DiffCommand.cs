@@ -13,10 +13,14 @@ public static class DiffCommand
     public static Command Create(TextWriter output, TextWriter error, TextReader input)
     {
         var reader = new InputReader(input);
-        var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file (.results.json); '-' reads a scenario from standard input." };
-        var newPath = new Argument<string>("new") { Description = "Later scenario (.yaml) or results file (.results.json)." };
+        var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file " +
+            "(.results.json); '-' reads a scenario from standard input." };
+        var newPath = new Argument<string>("new") { Description = "Later scenario (.yaml) or results file " +
+            "(.results.json)." };
         var root = ScenarioInputs.RootOption();
-        var command = new Command("diff", "Compare two scenarios or two results files: changed assumptions (old → new, with source) and changed headline results. Exit code 0 when nothing changed, 1 when something did, 2 on invalid input.")
+        var command = new Command("diff",
+            "Compare two scenarios or two results files: changed assumptions (old → new, with source) and changed " +
+            "headline results. Exit code 0 when nothing changed, 1 when something did, 2 on invalid input.")
         {
             oldPath, newPath, root,
         };
@@ -69,7 +73,8 @@ public static class DiffCommand
         if (c.Assumptions.Count > 0)
         {
             sb.AppendLine("Assumptions:");
-            foreach (var a in c.Assumptions) sb.AppendLine($"  {a.Label} ({a.Key}): {a.Old} → {a.New}{(a.Detail is null ? "" : $"  [source: {a.Detail}]")}");
+            foreach (var a in c.Assumptions) sb.AppendLine($"  {a.Label} ({a.Key}): {a.Old} → " +
+                $"{a.New}{(a.Detail is null ? "" : $"  [source: {a.Detail}]")}");
         }
         if (c.Results.Count > 0)
         {

@@ -21,14 +21,16 @@ public static class ScenarioInputs
     /// <summary>The PATHS argument shared by check, solve and build.</summary>
     public static Argument<string[]> PathsArgument(string verb, bool stdin = true) => new("paths")
     {
-        Description = $"Scenario files, or folders whose *.yaml files are all {verb}." + (stdin ? " '-' reads one scenario from standard input." : ""),
+        Description = $"Scenario files, or folders whose *.yaml files are all {verb}." + (stdin ? " '-' reads one " +
+            "scenario from standard input." : ""),
         Arity = ArgumentArity.OneOrMore,
     };
 
     /// <summary>The --root option shared by the commands that read scenarios.</summary>
     public static Option<string?> RootOption() => new("--root")
     {
-        Description = "Project folder: every file a scenario or theme names (extends, life tables, logo, fonts) must lie inside it. " +
+        Description = "Project folder: every file a scenario or theme names (extends, life tables, logo, fonts) must " +
+            "lie inside it. " +
                       "Default: the folder of each scenario (and of the theme) given on the command line.",
     };
 
@@ -94,7 +96,8 @@ public static class ScenarioInputs
     {
         Print(result.Problems, result.Sources, error);
         if (result.Problems.Count > 0)
-            error.WriteLine($"{path}: {result.Problems.Count} problem{(result.Problems.Count == 1 ? "" : "s")}; nothing written.");
+            error.WriteLine($"{path}: {result.Problems.Count} problem{(result.Problems.Count == 1 ? "" : "s")}; " +
+                "nothing written.");
     }
 
     /// <summary>
@@ -113,8 +116,10 @@ public static class ScenarioInputs
                 string others = string.Join(", ", members.Where(m => m != file).Select(m => $"'{m}'"));
                 var (at, inherited) = IdPosition(file, reader);
                 string rule = inherited
-                    ? $"must be unique within the batch; this scenario keeps the id of the scenario it extends, which {others} also use{(members.Count > 2 ? "" : "s")}: give it its own brief.id"
-                    : $"must be unique within the batch; {others} also use{(members.Count > 2 ? "" : "s")} it, and their briefs would overwrite each other";
+                    ? "must be unique within the batch; this scenario keeps the id of the scenario it extends, " +
+                        $"which {others} also use{(members.Count > 2 ? "" : "s")}: give it its own brief.id"
+                    : $"must be unique within the batch; {others} also use{(members.Count > 2 ? "" : "s")} it, and " +
+                        "their briefs would overwrite each other";
                 found[file] = new Diagnostic(at, "brief.id", rule, $"'{group.Key}'");
             }
         }
@@ -141,7 +146,8 @@ public static class ScenarioInputs
     {
         foreach (var d in problems.Take(MaxPrinted)) error.WriteLine(sources.Render(d));
         if (problems.Count > MaxPrinted)
-            error.WriteLine($"… and {Numbers.Count(problems.Count - MaxPrinted)} more problem{(problems.Count - MaxPrinted == 1 ? "" : "s")} not shown (fix these first).");
+            error.WriteLine($"… and {Numbers.Count(problems.Count - MaxPrinted)} more " +
+                $"problem{(problems.Count - MaxPrinted == 1 ? "" : "s")} not shown (fix these first).");
     }
 
     /// <summary>

@@ -14,8 +14,11 @@ public static class SummaryTable
     public static string Render(ScenarioDocument scenario, BalancedGrowthResults results)
     {
         var sb = new StringBuilder();
-        sb.AppendLine($"{scenario.Brief.Title} ({scenario.Brief.Id}, {scenario.Brief.Date:yyyy-MM-dd}, {scenario.Brief.Status}, edition {scenario.Brief.Edition})");
-        sb.AppendLine($"Balanced growth path: output per effective worker {N(results.SteadyState.OutputPerEffectiveWorker, "0.0000")}, n + g + δ = {N(results.SteadyState.EffectiveDepreciation * 100, "0.00")}%");
+        sb.AppendLine($"{scenario.Brief.Title} ({scenario.Brief.Id}, {scenario.Brief.Date:yyyy-MM-dd}, " +
+            $"{scenario.Brief.Status}, edition {scenario.Brief.Edition})");
+        sb.AppendLine("Balanced growth path: output per effective worker " +
+            $"{N(results.SteadyState.OutputPerEffectiveWorker, "0.0000")}, n + g + δ = " +
+            $"{N(results.SteadyState.EffectiveDepreciation * 100, "0.00")}%");
         sb.AppendLine();
         var rows = new List<string[]> { new[] { "option", "schooling", "worker share", "h per worker", "output/person", "vs baseline" } };
         foreach (var o in results.Options)
@@ -32,8 +35,10 @@ public static class SummaryTable
         }
         var opt = results.Optimum;
         sb.AppendLine();
-        sb.AppendLine($"Output-maximising schooling E*: {N(opt.SchoolingYears, "0.00")} years ({(opt.Method == OptimumMethod.ClosedForm ? "closed form" : "numerical search")}{(opt.AtBoundary ? ", at the boundary of the feasible range" : "")})");
-        sb.AppendLine($"  within 1% of the maximum: {N(opt.Within1Pct[0], "0.0")} to {N(opt.Within1Pct[1], "0.0")} years; output per person at E*: {N(opt.OutputPerPerson, "0.0000")}");
+        sb.AppendLine($"Output-maximising schooling E*: {N(opt.SchoolingYears, "0.00")} years " +
+            $"({(opt.Method == OptimumMethod.ClosedForm ? "closed form" : "numerical search")}{(opt.AtBoundary ? ", at the boundary of the feasible range" : "")})");
+        sb.AppendLine($"  within 1% of the maximum: {N(opt.Within1Pct[0], "0.0")} to {N(opt.Within1Pct[1], "0.0")} " +
+            $"years; output per person at E*: {N(opt.OutputPerPerson, "0.0000")}");
         if (opt.ClosedFormNotApplicable is { } why)
             sb.AppendLine($"  closed form not used: {ResultWords.Data.ClosedFormReason(why)}");
         if (opt.LocalMaxima.Count > 1)

@@ -49,13 +49,20 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
     public static readonly IReadOnlyList<SettingField> Fields =
     [
         new("template", SettingKind.Path, "Template file (Scriban producing CommonMark). Default: the standard brief."),
-        new("theme", SettingKind.Path, "Theme file (*.theme.yaml): organisation name, paper size, colours, footer, logo, fonts."),
-        new("out", SettingKind.Path, "Folder the briefs are written to. Default: an 'out' folder beside each scenario."),
-        new("date", SettingKind.DateRule, "Date rule: 'scenario' (each brief keeps its brief.date; the default) or one date written YYYY-MM-DD for every brief."),
+        new("theme", SettingKind.Path,
+            "Theme file (*.theme.yaml): organisation name, paper size, colours, footer, logo, fonts."),
+        new("out", SettingKind.Path,
+            "Folder the briefs are written to. Default: an 'out' folder beside each scenario."),
+        new("date", SettingKind.DateRule,
+            "Date rule: 'scenario' (each brief keeps its brief.date; the default) or one date written YYYY-MM-DD for " +
+            "every brief."),
         new("jobs", SettingKind.Jobs, "Briefs built at once (1 to 256). Default: one per core."),
         new("chart_copies", SettingKind.Flag, "Write each chart as SVG and PNG beside the brief (default true)."),
-        new("csv_byte_order_mark", SettingKind.Flag, "Start each CSV file with a UTF-8 byte order mark, for spreadsheet programs (default false)."),
-        new("formats", SettingKind.Formats, "Files written for each brief: a list of pdf (always written), html (self-contained web page), xlsx (spreadsheet workbook of the results tables), docx (editable document). Default: [pdf]."),
+        new("csv_byte_order_mark", SettingKind.Flag,
+            "Start each CSV file with a UTF-8 byte order mark, for spreadsheet programs (default false)."),
+        new("formats", SettingKind.Formats,
+            "Files written for each brief: a list of pdf (always written), html (self-contained web page), xlsx " +
+            "(spreadsheet workbook of the results tables), docx (editable document). Default: [pdf]."),
     ];
 
     /// <summary>The folder the settings file is in; its paths are relative to it.</summary>
@@ -84,7 +91,8 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
     {
         var sources = new SourceSet();
         if (!reader.TryRead(path, out string text, out string error))
-            return new Loaded(null, [new Diagnostic(new SourceSpan(path, 1, 1), "", $"cannot read the project settings ({error})", null)], sources);
+            return new Loaded(null, [new Diagnostic(new SourceSpan(path, 1, 1), "",
+                $"cannot read the project settings ({error})", null)], sources);
         sources.Add(path, text);
         var (root, problems) = YamlTreeReader.Read(path, text);
         if (problems.Count > 0) return new Loaded(null, problems, sources);
@@ -103,7 +111,8 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
         if (ctx.Text(top, "date", "", required: false) is { } rule && rule != "scenario")
         {
             if (DateOnly.TryParseExact(rule, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var d)) date = d;
-            else ctx.Report(top["date"]!.At, "date", "must be 'scenario' or a date written YYYY-MM-DD", BindContext.Show(top["date"]!));
+            else ctx.Report(top["date"]!.At, "date",
+                "must be 'scenario' or a date written YYYY-MM-DD", BindContext.Show(top["date"]!));
         }
         int? jobs = null;
         if (top["jobs"] is { } jobsNode && ctx.Number(top, "jobs", "", ValueUnit.Number, Bounds.Closed(1, MaxJobs)) is { } j)
@@ -118,14 +127,20 @@ public sealed record ProjectSettings(string File, string? Template, string? Them
         {
             var names = formatsNode is YSequence seq ? seq.Items.Select(i => i is YScalar sc && !sc.IsNull ? sc.Value : null).ToList() : null;
             if (names is null || names.Count == 0 || names.Any(n => n is null))
-                ctx.Report(formatsNode.At, "formats", $"must be a list of format names ({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})", BindContext.Show(formatsNode));
+                ctx.Report(formatsNode.At, "formats",
+                    "must be a list of format names " +
+                    $"({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)}" +
+                    ")", BindContext.Show(formatsNode));
             else if (names.Distinct(StringComparer.OrdinalIgnoreCase).Count() != names.Count)
                 ctx.Report(formatsNode.At, "formats", "must name each format once", BindContext.Show(formatsNode));
             else if (Brief.Formats.OutputFormats.Parse(names!, out string? unknown) is { } parsed) formats = parsed;
             else
             {
                 var item = ((YSequence)formatsNode).Items.First(i => ((YScalar)i).Value.Trim() == unknown);
-                ctx.Report(item.At, "formats", $"must be a list of format names ({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})", BindContext.Quote(unknown ?? ""));
+                ctx.Report(item.At, "formats",
+                    "must be a list of format names " +
+                    $"({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)}" +
+                    ")", BindContext.Quote(unknown ?? ""));
             }
         }
         if (ctx.Problems.Count > 0) return new Loaded(null, ctx.Problems, sources);
