@@ -12,7 +12,13 @@ public sealed record CliIo(TextWriter Out, TextWriter Err, TextReader In, bool I
 /// </summary>
 public static class CliApp
 {
-    public static int Run(string[] args, TextWriter output, TextWriter error, bool interactive = false, TextReader? input = null, TimeProvider? clock = null) =>
+    public static int Run(
+        string[] args,
+        TextWriter output,
+        TextWriter error,
+        bool interactive = false,
+        TextReader? input = null,
+        TimeProvider? clock = null) =>
         Run(args, new CliIo(output, error, input ?? TextReader.Null, interactive, clock ?? TimeProvider.System));
 
     public static int Run(string[] args, CliIo io)
@@ -20,8 +26,8 @@ public static class CliApp
         if (args is ["build", ..]) Speed.HeadStart();
         var root = new RootCommand(
             "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief " +
-            "(PDF) on " +
-            "schooling length, demography and long-run output per person, with its numbers also written as data.\n\n" +
+            "(PDF) on schooling length, demography and long-run output per person, with its numbers also written " +
+            "as data.\n\n" +
             "Start with:  briefwright init my-briefs,  briefwright check briefs-demo,\n" +
             "             briefwright solve briefs-demo/auroria-national.yaml,\n" +
             "             briefwright build briefs-demo   (writes briefs-demo/out/<id>-<date>.pdf)\n" +
@@ -42,12 +48,16 @@ public static class CliApp
             io.Err.WriteLine(usage.Message);
             io.Err.WriteLine(usage.Hint);
             // a plan writes nothing
-            if (usage.Command == "build" && !args.Contains("--plan")) BuildCommand.LogUsageError(args, usage.Message, io);
+            if (usage.Command == "build" && !args.Contains("--plan"))
+                BuildCommand.LogUsageError(args, usage.Message, io);
             return ExitCodes.InvalidInput;
         }
         // Each command reports its stages' failures (StageErrors); what escapes one is a fault of the tool, reported in
         // one line rather than as the parser's stack trace.
-        var config = new InvocationConfiguration { Output = io.Out, Error = io.Err, EnableDefaultExceptionHandler = false };
+        var config = new InvocationConfiguration
+        {
+            Output = io.Out, Error = io.Err, EnableDefaultExceptionHandler = false,
+        };
         try
         {
             return parsed.Invoke(config);

@@ -27,7 +27,8 @@ public static class Speed
             {
                 _ = StandardTemplate.Template;
                 _ = BatchBuilder.FontsHash.Value;
-                Manifest.Parse("""{"id":"a","stem":"a-2000-01-01","edition":1,"hash":"0","inputs":{"tool":"0"},"files":["a.pdf"]}""");
+                Manifest.Parse("""{"id":"a","stem":"a-2000-01-01","edition":""" +
+                    """1,"hash":"0","inputs":{"tool":"0"},"files":["a.pdf"]}""");
             }
             catch (Exception)
             {

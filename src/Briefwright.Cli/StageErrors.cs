@@ -29,7 +29,12 @@ public enum Stage
 }
 
 /// <summary>What the user reads about a failed stage, the exit code and the build outcome it counts as.</summary>
-public sealed record StageFailure(Stage? Stage, IReadOnlyList<string> Lines, int ExitCode, OutcomeStatus Status, string Summary)
+public sealed record StageFailure(
+    Stage? Stage,
+    IReadOnlyList<string> Lines,
+    int ExitCode,
+    OutcomeStatus Status,
+    string Summary)
 {
     /// <summary>First lines only, for the build log.</summary>
     public List<string> FirstLines => Lines.Select(l => l.Split('\n')[0]).ToList();
@@ -42,7 +47,11 @@ public sealed record StageFailure(Stage? Stage, IReadOnlyList<string> Lines, int
 /// </summary>
 public static class StageErrors
 {
-    public static StageFailure Describe(Exception ex, string file, string? outDir = null, BriefTemplate? template = null) => ex switch
+    public static StageFailure Describe(
+        Exception ex,
+        string file,
+        string? outDir = null,
+        BriefTemplate? template = null) => ex switch
     {
         UnsolvableScenarioException u => Model(file, u.Message),
         ModelRuleException m => Model(file, m.Message),
@@ -63,8 +72,8 @@ public static class StageErrors
     };
 
     /// <summary>A fault of the tool itself: no stage claims it, so no input can be changed to avoid it.</summary>
-    public static string Internal(Exception ex) => $"internal error, please report it: {ex.GetType().Name}: " +
-        $"{ex.Message}";
+    public static string Internal(Exception ex) =>
+        $"internal error, please report it: {ex.GetType().Name}: {ex.Message}";
 
     private static StageFailure Model(string file, string reason) => new(Stage.Model,
         [$"{file}: the model cannot solve this scenario: {reason.TrimEnd('.')}. Change the inputs named in the " +
@@ -79,8 +88,8 @@ public static class StageErrors
         var lines = template.Text.Split('\n');
         if (ex.Snippet is { Length: > 0 } snippet)
             for (int i = 0; i < lines.Length; i++)
-                if (lines[i].IndexOf(snippet, StringComparison.Ordinal) is int col and >= 0) return $"{template.Path}" +
-                    $":{i + 1}:{col + 1}";
+                if (lines[i].IndexOf(snippet, StringComparison.Ordinal) is int col and >= 0)
+                    return $"{template.Path}:{i + 1}:{col + 1}";
         return $"{template.Path}:{Math.Max(1, ex.Line)}:1";
     }
 }

@@ -45,7 +45,8 @@ public sealed class BriefLock : IDisposable
     public static BriefLock Acquire(string tempDir, string id, Action<string> waiting, CancellationToken stop = default)
     {
         string path = System.IO.Path.Combine(tempDir, id + ".lock");
-        var info = new LockInfo(Environment.MachineName, Environment.ProcessId, Guid.NewGuid().ToString("N"), DateTime.UtcNow);
+        var info = new LockInfo(
+            Environment.MachineName, Environment.ProcessId, Guid.NewGuid().ToString("N"), DateTime.UtcNow);
         byte[] bytes = JsonSerializer.SerializeToUtf8Bytes(info, BatchJsonContext.Default.LockInfo);
         var started = DateTime.UtcNow;
         bool told = false;
@@ -92,8 +93,9 @@ public sealed class BriefLock : IDisposable
     }
 
     private static string Describe(LockInfo? holder) =>
-        holder is null ? "unreadable lock file" : $"host {holder.Host}, process {holder.Pid}, started " +
-            $"{holder.StartedUtc:yyyy-MM-dd HH:mm:ss} UTC";
+        holder is null
+            ? "unreadable lock file"
+            : $"host {holder.Host}, process {holder.Pid}, started {holder.StartedUtc:yyyy-MM-dd HH:mm:ss} UTC";
 
     private static (LockInfo? Info, TimeSpan? Age) Read(string path)
     {
@@ -144,7 +146,8 @@ public sealed class BriefLock : IDisposable
     {
         try
         {
-            return JsonSerializer.Deserialize(File.ReadAllBytes(Path), BatchJsonContext.Default.LockInfo)?.Token == Info.Token;
+            return JsonSerializer.Deserialize(File.ReadAllBytes(Path), BatchJsonContext.Default.LockInfo)?.Token
+                == Info.Token;
         }
         catch (Exception ex) when (ex is IOException or JsonException or UnauthorizedAccessException)
         {
@@ -157,7 +160,8 @@ public sealed class BriefLock : IDisposable
         BriefLock[] held;
         lock (Held) held = Held.ToArray();
         foreach (var l in held)
-            try { File.SetLastWriteTimeUtc(l.Path, DateTime.UtcNow); } catch (Exception) { /* judged at the next step */ }
+            try { File.SetLastWriteTimeUtc(l.Path, DateTime.UtcNow); }
+            catch (Exception) { /* judged at the next step */ }
     }
 
     public void Dispose()

@@ -12,7 +12,16 @@ public enum OutcomeStatus
 /// <summary>
 /// What happened to one scenario in a batch (its build-log line adds the time, tool version and shard).
 /// </summary>
-public sealed record BriefOutcome(string Scenario, string? Id, OutcomeStatus Status, int? Edition, string? Pdf, int Pages, long Bytes, long Milliseconds, string? Error)
+public sealed record BriefOutcome(
+    string Scenario,
+    string? Id,
+    OutcomeStatus Status,
+    int? Edition,
+    string? Pdf,
+    int Pages,
+    long Bytes,
+    long Milliseconds,
+    string? Error)
 {
     /// <summary>
     /// The hash over everything the brief depends on (the manifest's), once the scenario was read and valid.

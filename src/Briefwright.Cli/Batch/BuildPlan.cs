@@ -59,7 +59,8 @@ public static class BuildPlan
         var folder = new EditionFolder(dir, id);
         var (_, state) = folder.Read(full: true);
         var plan = EditionPlanner.Plan(request, state);
-        string? interrupted = Directory.Exists(folder.TempDir) && Directory.EnumerateFileSystemEntries(folder.TempDir, id + ".*").Any()
+        string? interrupted = Directory.Exists(folder.TempDir)
+            && Directory.EnumerateFileSystemEntries(folder.TempDir, id + ".*").Any()
             ? $" A build of {id} is running or was interrupted ({folder.TempDir}); the next build waits for it or " +
                 "puts it right first."
             : null;
@@ -67,10 +68,14 @@ public static class BuildPlan
         switch (plan)
         {
             case EditionPlan.Skip skip:
-                return new PlannedBrief(file, id, "skip", skip.Edition, skip.Edition, before, before, [], "nothing it depends on changed and its files are as built." + interrupted) { Out = dir };
+                return new PlannedBrief(
+                    file, id, "skip", skip.Edition, skip.Edition, before, before, [],
+                    "nothing it depends on changed and its files are as built." + interrupted) { Out = dir };
             case EditionPlan.Refuse refuse:
                 var problem = BatchBuilder.RefusalOf(file, scenario, refuse, dir);
-                return new PlannedBrief(file, id, "invalid", null, state.Edition, null, before, [EditionInput.RequestedEdition], "brief.edition is below an edition already issued")
+                return new PlannedBrief(
+                    file, id, "invalid", null, state.Edition, null, before, [EditionInput.RequestedEdition],
+                    "brief.edition is below an edition already issued")
                 {
                     Messages = [problem.Message], Out = dir,
                 };
@@ -81,19 +86,24 @@ public static class BuildPlan
             try
             {
                 var solved = ScenarioSolver.Solve(scenario, settings.Options.ModelThreads);
-                build = EditionPlanner.Settle(build, request, state, BatchBuilder.ResultsDiffer(solved, dir, build.CompareWith));
+                build = EditionPlanner.Settle(
+                    build, request, state, BatchBuilder.ResultsDiffer(solved, dir, build.CompareWith));
             }
             catch (Exception ex) when (ex is UnsolvableScenarioException or ModelRuleException)
             {
                 var failure = StageErrors.Describe(ex, file);
-                return new PlannedBrief(file, id, "invalid", null, state.Edition, null, before, [], failure.Summary) { Messages = failure.Lines, Out = dir };
+                return new PlannedBrief(file, id, "invalid", null, state.Edition, null, before, [], failure.Summary)
+                    { Messages = failure.Lines, Out = dir };
             }
         }
         string stem = BriefBuilder.FileStem(id, scenario.Brief.Date, build.Edition);
-        string action = build.Changed.Contains("new") ? "new" : build.NewEdition ? "new_edition" : build.Redated ? "redate" : "rewrite";
+        string action = build.Changed.Contains("new")
+            ? "new"
+            : build.NewEdition ? "new_edition" : build.Redated ? "redate" : "rewrite";
         string why = Describe(build, request, state) + (build.Archive is { } a ? "; the current files are kept " +
             $"first in archive/{id}/{a.Folder}" + (a.Recovered ? " (as found)" : "") : "");
-        return new PlannedBrief(file, id, action, build.Edition, state.Edition, stem, before, build.Changed, why + "." + interrupted)
+        return new PlannedBrief(
+            file, id, action, build.Edition, state.Edition, stem, before, build.Changed, why + "." + interrupted)
         {
             Archive = build.Archive is { } k ? $"archive/{id}/{k.Folder}" : null, Out = dir,
         };
@@ -101,14 +111,20 @@ public static class BuildPlan
 
     /// <summary>Plans every scenario: reads them all (ids must be unique within the batch, as for a build), then each
     /// brief. Positioned errors go to <paramref name="error"/> as a build prints them.</summary>
-    public static IReadOnlyList<PlannedBrief> PlanAll(IReadOnlyList<string> files, BatchSettings settings, int jobs, TextWriter error)
+    public static IReadOnlyList<PlannedBrief> PlanAll(
+        IReadOnlyList<string> files,
+        BatchSettings settings,
+        int jobs,
+        TextWriter error)
     {
         var parallel = new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, jobs) };
         var loaded = new LoadResult[files.Count];
         var reader = new FileSourceReader();
-        Parallel.For(0, files.Count, parallel, i => loaded[i] = new ScenarioLoader(reader, settings.Root).Load(files[i]));
+        Parallel.For(0, files.Count, parallel,
+            i => loaded[i] = new ScenarioLoader(reader, settings.Root).Load(files[i]));
         var duplicates = ScenarioInputs.DuplicateIds(files.Select((f, i) => (f, loaded[i])).ToList(), reader);
-        if (jobs > 1 && files.Count > 1) settings = settings with { Options = settings.Options with { ModelThreads = 1 } };
+        if (jobs > 1 && files.Count > 1)
+            settings = settings with { Options = settings.Options with { ModelThreads = 1 } };
         var plans = new PlannedBrief[files.Count];
         Parallel.For(0, files.Count, parallel, i =>
         {
@@ -116,7 +132,9 @@ public static class BuildPlan
             if (duplicates.TryGetValue(files[i], out var duplicate))
             {
                 errors.WriteLine(loaded[i].Sources.Render(duplicate));
-                plans[i] = new PlannedBrief(files[i], loaded[i].Document!.Brief.Id, "invalid", null, null, null, null, [], "brief.id is not unique within the batch")
+                plans[i] = new PlannedBrief(
+                    files[i], loaded[i].Document!.Brief.Id, "invalid", null, null, null, null, [],
+                    "brief.id is not unique within the batch")
                 {
                     Messages = [duplicate.Message], Out = BatchBuilder.DirOf(files[i], settings),
                 };
@@ -125,7 +143,8 @@ public static class BuildPlan
             {
                 if (!loaded[i].Ok) ScenarioInputs.Report(files[i], loaded[i], errors);
                 plans[i] = PlanOne(files[i], loaded[i], settings);
-                if (loaded[i].Ok && plans[i].Action == "invalid") foreach (var m in plans[i].Messages ?? []) errors.WriteLine(m);
+                if (loaded[i].Ok && plans[i].Action == "invalid")
+                    foreach (var m in plans[i].Messages ?? []) errors.WriteLine(m);
             }
             if (errors.ToString() is { Length: > 0 } text) lock (error) error.Write(text);
         });
@@ -159,13 +178,14 @@ public static class BuildPlan
         string changed = words.Count == 0 ? "" : "changed: " + string.Join(", ", words);
         if (build.Changed.Contains("new")) return "not built before";
         string meaning = build.NewEdition ? $"a new edition {build.Edition} after edition " +
-            $"{state.Edition?.ToString(CultureInfo.InvariantCulture) ?? "?"}"
+                $"{state.Edition?.ToString(CultureInfo.InvariantCulture) ?? "?"}"
             : build.Redated ? $"edition {build.Edition} re-dated (no change of content, template or results)"
             : build.ResultsDecide ? $"edition {build.Edition} rewritten; it becomes a new edition if the results move"
-            : build.Archive is null && build.Changed.All(c => c.StartsWith(EditionInput.OutputPrefix, StringComparison.Ordinal))
+            : build.Archive is null
+                && build.Changed.All(c => c.StartsWith(EditionInput.OutputPrefix, StringComparison.Ordinal))
                 ? $"edition {build.Edition} kept; only which files are written changes (the PDF and results data " +
-                    "stay the same bytes; " +
-                  "the current files are kept first in the archive if a file would be dropped or changed)"
+                  "stay the same bytes; the current files are kept first in the archive if a file would be dropped " +
+                  "or changed)"
             : $"edition {build.Edition} rewritten";
         return $"{changed}: {meaning}";
     }
@@ -181,7 +201,9 @@ public static class BuildPlan
 
     /// <summary>The plan as a JSON list, one object per scenario in the order given (as <c>solve --json</c>).</summary>
     public static string ToJson(IReadOnlyList<PlannedBrief> plans) =>
-        JsonSerializer.Serialize(plans, (System.Text.Json.Serialization.Metadata.JsonTypeInfo<IReadOnlyList<PlannedBrief>>)Json.GetTypeInfo(typeof(IReadOnlyList<PlannedBrief>))) + "\n";
+        JsonSerializer.Serialize(plans,
+            (System.Text.Json.Serialization.Metadata.JsonTypeInfo<IReadOnlyList<PlannedBrief>>)
+            Json.GetTypeInfo(typeof(IReadOnlyList<PlannedBrief>))) + "\n";
 
     /// <summary>
     /// The plan as a table and one line per brief saying why, then a count; ends by saying nothing was written.
@@ -191,12 +213,14 @@ public static class BuildPlan
         var sb = new StringBuilder();
         var rows = plans.Select(p => new[]
         {
-            p.Id ?? Path.GetFileName(p.Scenario), Words(p.Action), p.Edition?.ToString(CultureInfo.InvariantCulture) ?? "", p.Files is null ? "" : p.Files + ".pdf",
+            p.Id ?? Path.GetFileName(p.Scenario), Words(p.Action),
+            p.Edition?.ToString(CultureInfo.InvariantCulture) ?? "", p.Files is null ? "" : p.Files + ".pdf",
         }).Prepend(["brief", "would", "edition", "file"]).ToList();
         int[] w = Enumerable.Range(0, 4).Select(c => rows.Max(r => r[c].Length)).ToArray();
         for (int i = 0; i < rows.Count; i++)
         {
-            sb.AppendLine(string.Join("  ", rows[i].Select((cell, c) => c == 2 ? cell.PadLeft(w[c]) : cell.PadRight(w[c]))).TrimEnd());
+            sb.AppendLine(string.Join("  ",
+                rows[i].Select((cell, c) => c == 2 ? cell.PadLeft(w[c]) : cell.PadRight(w[c]))).TrimEnd());
             if (i > 0)
             {
                 var p = plans[i - 1];
@@ -204,7 +228,8 @@ public static class BuildPlan
                 foreach (var m in p.Messages ?? []) sb.AppendLine($"    {m}");
             }
         }
-        var counts = plans.GroupBy(p => p.Action).OrderBy(g => Array.IndexOf(Order, g.Key)).Select(g => $"{g.Count()} {Words(g.Key)}");
+        var counts = plans.GroupBy(p => p.Action).OrderBy(g => Array.IndexOf(Order, g.Key))
+            .Select(g => $"{g.Count()} {Words(g.Key)}");
         sb.AppendLine($"{plans.Count} brief(s): {string.Join(", ", counts)}. Plan only: nothing was written.");
         return sb.ToString();
     }

@@ -61,7 +61,8 @@ public sealed class EditionFolder(string dir, string id)
                 else if (manifest.Sizes is { } sizes && sizes[f] != info.Length) changed.Add(f);
                 else if (full && manifest.Sha256 is { } hashes && hashes[f] != Sha256(info.FullName)) changed.Add(f);
             }
-            return (manifest, new CurrentEdition(condition, manifest.Edition, manifest.Hash, manifest.Stem, manifest.Files, missing, changed, archived)
+            return (manifest, new CurrentEdition(
+                condition, manifest.Edition, manifest.Hash, manifest.Stem, manifest.Files, missing, changed, archived)
             {
                 Inputs = manifest.Inputs, Outputs = manifest.Outputs, RequestedEdition = manifest.RequestedEdition,
             });
@@ -76,8 +77,14 @@ public sealed class EditionFolder(string dir, string id)
     public IReadOnlyList<string> Found()
     {
         if (!Directory.Exists(Dir)) return [];
-        var pattern = new Regex("^" + Regex.Escape(Id) + @"-\d{4}-\d{2}-\d{2}(-edition-\d{1,9})?\.", RegexOptions.CultureInvariant);
-        return Directory.EnumerateFiles(Dir, Id + "-*").Select(Path.GetFileName).Where(n => n is not null && pattern.IsMatch(n)).Select(n => n!).Order(StringComparer.Ordinal).ToList();
+        var pattern = new Regex(
+            "^" + Regex.Escape(Id) + @"-\d{4}-\d{2}-\d{2}(-edition-\d{1,9})?\.",
+            RegexOptions.CultureInvariant);
+        return Directory.EnumerateFiles(Dir, Id + "-*").Select(Path.GetFileName)
+            .Where(n => n is not null && pattern.IsMatch(n))
+            .Select(n => n!)
+            .Order(StringComparer.Ordinal)
+            .ToList();
     }
 
     /// <summary>
@@ -90,9 +97,11 @@ public sealed class EditionFolder(string dir, string id)
             try
             {
                 using var doc = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(Dir, f)));
-                if (doc.RootElement.TryGetProperty("edition", out var e) && e.TryGetInt32(out int n) && n > 0) best = Math.Max(best ?? 0, n);
+                if (doc.RootElement.TryGetProperty("edition", out var e) && e.TryGetInt32(out int n) && n > 0)
+                    best = Math.Max(best ?? 0, n);
             }
-            catch (Exception ex) when (ex is IOException or JsonException or UnauthorizedAccessException or InvalidOperationException)
+            catch (Exception ex)
+                when (ex is IOException or JsonException or UnauthorizedAccessException or InvalidOperationException)
             {
                 // damaged too: the edition stays unknown
             }
@@ -106,7 +115,8 @@ public sealed class EditionFolder(string dir, string id)
         if (!Directory.Exists(ArchiveRoot)) return 0;
         int best = 0;
         foreach (var d in Directory.EnumerateDirectories(ArchiveRoot))
-            if (ArchiveName.Match(Path.GetFileName(d)) is { Success: true } m) best = Math.Max(best, int.Parse(m.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture));
+            if (ArchiveName.Match(Path.GetFileName(d)) is { Success: true } m)
+                best = Math.Max(best, int.Parse(m.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture));
         return best;
     }
 }

@@ -12,7 +12,14 @@ namespace Briefwright.Cli.Batch;
 /// no-replace move links and unlinks, which can leave a file in two places), so every file is at any instant in exactly
 /// one place, and a build that finds the journal can finish the switch or undo it.
 /// </summary>
-public sealed record Journal(string Id, string Token, int Edition, IReadOnlyList<string> Old, IReadOnlyList<string> New, IReadOnlyDictionary<string, string> NewSha256, string? Archive);
+public sealed record Journal(
+    string Id,
+    string Token,
+    int Edition,
+    IReadOnlyList<string> Old,
+    IReadOnlyList<string> New,
+    IReadOnlyDictionary<string, string> NewSha256,
+    string? Archive);
 
 /// <summary>
 /// A transaction failed; <see cref="Exception.Message"/> says truthfully what state the folder is in.
@@ -38,13 +45,18 @@ public static class EditionTransaction
         if (File.Exists(folder.JournalPath))
         {
             Journal? journal = null;
-            try { journal = JsonSerializer.Deserialize(File.ReadAllBytes(folder.JournalPath), BatchJsonContext.Default.Journal); }
+            try
+            {
+                journal = JsonSerializer.Deserialize(File.ReadAllBytes(folder.JournalPath),
+                    BatchJsonContext.Default.Journal);
+            }
             catch (JsonException) { }
-            if (journal is null || journal.Id != folder.Id || !journal.Old.Concat(journal.New).All(Manifest.Confined) || journal.Token.Any(c => !char.IsAsciiLetterOrDigit(c)))
+            if (journal is null || journal.Id != folder.Id || !journal.Old.Concat(journal.New).All(Manifest.Confined)
+                || journal.Token.Any(c => !char.IsAsciiLetterOrDigit(c)))
                 throw new IOException($"{folder.JournalPath} is damaged, so an interrupted switch of {folder.Id} can " +
                     "be neither finished nor undone safely; nothing was changed. " +
-                                      $"Inspect {folder.TempDir} (old/ holds the previous files, new/ the new ones), " +
-                                      "put the files right and delete the journal");
+                    $"Inspect {folder.TempDir} (old/ holds the previous files, new/ the new ones), " +
+                    "put the files right and delete the journal");
             try
             {
                 Forward(folder, journal);
@@ -56,11 +68,10 @@ public static class EditionTransaction
                 catch (Exception again) when (again is IOException or UnauthorizedAccessException)
                 {
                     throw new EditionWriteException($"an interrupted switch to edition {journal.Edition} could be " +
-                        $"neither finished ({ex.Message}) nor undone " +
-                        $"({again.Message}); {folder.JournalPath} still records it, the previous files are in " +
-                        $"{Path.Combine(folder.Staging(journal.Token), "old")}" +
-                        (journal.Archive is null ? "" : $" and {journal.Archive}") + "; put right what stops it and " +
-                            "build again", again);
+                        $"neither finished ({ex.Message}) nor undone ({again.Message}); {folder.JournalPath} still " +
+                        $"records it, the previous files are in {Path.Combine(folder.Staging(journal.Token), "old")}" +
+                        (journal.Archive is null ? "" : $" and {journal.Archive}") +
+                        "; put right what stops it and build again", again);
                 }
                 notes.Add($"undid the switch to edition {journal.Edition} that an interrupted build had begun " +
                     $"({ex.Message}); the previous edition is in place");
@@ -83,8 +94,8 @@ public static class EditionTransaction
             foreach (var d in Directory.EnumerateDirectories(folder.ArchiveRoot, ".partial-*"))
             {
                 Directory.Delete(d, recursive: true);
-                notes.Add("removed a partial archive copy of an interrupted build (the edition it copied is still " +
-                    "current)");
+                notes.Add("removed a partial archive copy of an interrupted build " +
+                    "(the edition it copied is still current)");
             }
         if (held.TookOver is { } t) notes.Insert(0, t);
         return notes.Count == 0 ? null : string.Join("; ", notes);
@@ -94,8 +105,15 @@ public static class EditionTransaction
     /// Carries out <paramref name="plan"/>: the new edition's files replace the current ones as one step.
     /// </summary>
     /// <returns>The archive folder written, if any.</returns>
-    public static string? Execute(EditionFolder folder, BriefLock held, EditionPlan.Build plan, Manifest? current, CurrentEdition state,
-        IReadOnlyList<(string Name, byte[] Bytes)> files, Manifest manifest, bool durable)
+    public static string? Execute(
+        EditionFolder folder,
+        BriefLock held,
+        EditionPlan.Build plan,
+        Manifest? current,
+        CurrentEdition state,
+        IReadOnlyList<(string Name, byte[] Bytes)> files,
+        Manifest manifest,
+        bool durable)
     {
         string token = held.Info.Token, staging = folder.Staging(token);
         byte[] manifestBytes = manifest.ToBytes();
@@ -131,7 +149,9 @@ public static class EditionTransaction
         string? archived = null;
         try
         {
-            long archiveBytes = plan.Archive is { } a ? a.Files.Sum(f => Length(Path.Combine(folder.Dir, f))) + Length(folder.ManifestPath) : 0;
+            long archiveBytes = plan.Archive is { } a
+                ? a.Files.Sum(f => Length(Path.Combine(folder.Dir, f))) + Length(folder.ManifestPath)
+                : 0;
             CheckSpace(folder.Dir, files.Sum(f => (long)f.Bytes.Length) + manifestBytes.Length + archiveBytes + Margin);
 
             Directory.CreateDirectory(stagedNew);
@@ -149,8 +169,8 @@ public static class EditionTransaction
                 FaultSeam.After(id, "archived");
             }
             if (!held.StillHeld())
-                throw new IOException($"another build took over the lock {held.Path} while this one worked (it " +
-                    "judged it abandoned)");
+                throw new IOException(
+                    $"another build took over the lock {held.Path} while this one worked (it judged it abandoned)");
             return archived;
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -174,7 +194,9 @@ public static class EditionTransaction
         foreach (var f in previous.Union(newNames.Where(n => n != folder.ManifestName)))
             if (!old.Contains(f) && File.Exists(Path.Combine(folder.Dir, f))) old.Add(f);
         return new Journal(folder.Id, token, plan.Edition, old, newNames,
-            files.ToDictionary(f => f.Name, f => EditionFolder.Sha256(f.Bytes)).Append(new(folder.ManifestName, EditionFolder.Sha256(manifestBytes))).ToDictionary(),
+            files.ToDictionary(f => f.Name, f => EditionFolder.Sha256(f.Bytes))
+                .Append(new(folder.ManifestName, EditionFolder.Sha256(manifestBytes)))
+                .ToDictionary(),
             archived is null ? null : Relative(folder, archived));
     }
 
@@ -192,8 +214,8 @@ public static class EditionTransaction
         {
             TryDelete(folder.JournalPath);
             TryDelete(staging);
-            throw new EditionWriteException($"{ex.Message}; nothing was replaced: the previous files are " +
-                "untouched", ex);
+            throw new EditionWriteException(
+                $"{ex.Message}; nothing was replaced: the previous files are untouched", ex);
         }
     }
 
@@ -216,14 +238,14 @@ public static class EditionTransaction
             }
             catch (Exception again) when (again is IOException or UnauthorizedAccessException)
             {
-                throw new EditionWriteException($"{ex.Message}; the switch could neither be finished nor undone " +
-                    $"({again.Message}): " +
+                throw new EditionWriteException(
+                    $"{ex.Message}; the switch could neither be finished nor undone ({again.Message}): " +
                     $"{folder.JournalPath} records it and the next build finishes or undoes it; " +
                     $"the previous files are in {Path.Combine(staging, "old")}" +
                     (archived is null ? "" : $" and {Relative(folder, archived)}"), ex);
             }
-            throw new EditionWriteException($"{ex.Message}; the switch was undone: the previous files are back in " +
-                "place" +
+            throw new EditionWriteException(
+                $"{ex.Message}; the switch was undone: the previous files are back in place" +
                 (archived is null ? "" : $" (and kept in {Relative(folder, archived)})"), ex);
         }
     }
@@ -233,9 +255,11 @@ public static class EditionTransaction
     /// </summary>
     private static void Forward(EditionFolder folder, Journal journal)
     {
-        string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"), stagedOld = Path.Combine(staging, "old");
+        string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"),
+            stagedOld = Path.Combine(staging, "old");
         foreach (var n in journal.New)
-            if (!File.Exists(Path.Combine(stagedNew, n)) && !(File.Exists(Path.Combine(folder.Dir, n)) && EditionFolder.Sha256(Path.Combine(folder.Dir, n)) == journal.NewSha256[n]))
+            if (!File.Exists(Path.Combine(stagedNew, n)) && !(File.Exists(Path.Combine(folder.Dir, n))
+                && EditionFolder.Sha256(Path.Combine(folder.Dir, n)) == journal.NewSha256[n]))
                 throw new IOException($"the staged file {n} is gone");
         bool movingIn = journal.New.Any(n => !File.Exists(Path.Combine(stagedNew, n)));
         if (!movingIn)
@@ -265,7 +289,8 @@ public static class EditionTransaction
     /// <summary>Moves the new files back to staging and the old ones back into place; safe to repeat.</summary>
     private static void Back(EditionFolder folder, Journal journal)
     {
-        string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"), stagedOld = Path.Combine(staging, "old");
+        string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"),
+            stagedOld = Path.Combine(staging, "old");
         foreach (var n in journal.New.Reverse())
         {
             string here = Path.Combine(folder.Dir, n), staged = Path.Combine(stagedNew, n);
@@ -294,12 +319,13 @@ public static class EditionTransaction
         {
             byte[] bytes = File.ReadAllBytes(Path.Combine(folder.Dir, f));
             string hash = EditionFolder.Sha256(bytes);
-            if (!step.Recovered && current?.Sha256 is { } expected && expected.TryGetValue(f, out var want) && want != hash)
+            if (!step.Recovered && current?.Sha256 is { } expected && expected.TryGetValue(f, out var want)
+                && want != hash)
                 throw new IOException($"{f} changed while it was being archived");
             string copy = Path.Combine(partial, f);
             WriteNew(copy, bytes, durable);
-            if (EditionFolder.Sha256(copy) != hash) throw new IOException($"the archive copy of {f} does not read " +
-                "back as written");
+            if (EditionFolder.Sha256(copy) != hash)
+                throw new IOException($"the archive copy of {f} does not read back as written");
         }
         if (step.Recovered)
             WriteNew(Path.Combine(partial, "RECOVERED.txt"), Encoding.UTF8.GetBytes(
@@ -324,7 +350,8 @@ public static class EditionTransaction
     {
         var fa = Directory.GetFiles(a).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToList();
         var fb = Directory.GetFiles(b).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToList();
-        return fa.SequenceEqual(fb) && fa.All(f => EditionFolder.Sha256(Path.Combine(a, f!)) == EditionFolder.Sha256(Path.Combine(b, f!)));
+        return fa.SequenceEqual(fb)
+            && fa.All(f => EditionFolder.Sha256(Path.Combine(a, f!)) == EditionFolder.Sha256(Path.Combine(b, f!)));
     }
 
     private static void CheckSpace(string dir, long need)

@@ -14,7 +14,8 @@ public sealed class InjectedFaultException(string step) : IOException($"fault in
 /// </summary>
 public static class FaultSeam
 {
-    private static readonly (string Step, string Action)? FromEnvironment = Parse(Environment.GetEnvironmentVariable("BRIEFWRIGHT_FAULT"));
+    private static readonly (string Step, string Action)? FromEnvironment = Parse(
+        Environment.GetEnvironmentVariable("BRIEFWRIGHT_FAULT"));
 
     private static readonly AsyncLocal<Action<string>?> LocalHook = new();
 
@@ -36,7 +37,8 @@ public static class FaultSeam
         string name = $"{id}/{step}";
         LocalHook.Value?.Invoke(name);
         if (FromEnvironment is not { } fault) return;
-        if (fault.Step != name && !(fault.Step.StartsWith("*/", StringComparison.Ordinal) && fault.Step[2..] == step)) return;
+        if (fault.Step != name
+            && !(fault.Step.StartsWith("*/", StringComparison.Ordinal) && fault.Step[2..] == step)) return;
         if (fault.Action == "fail") throw new InjectedFaultException(name);
         if (fault.Action == "term")
         {

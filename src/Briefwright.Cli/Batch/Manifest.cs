@@ -11,7 +11,13 @@ namespace Briefwright.Cli.Batch;
 /// the output switches (which files are written), kept apart because they never make an edition; <c>hash</c> covers
 /// both. Manifests of earlier releases (no sizes, hashes or check) are read as valid but unverifiable.
 /// </summary>
-public sealed record Manifest(string Id, string Stem, int Edition, string Hash, IReadOnlyDictionary<string, string> Inputs, IReadOnlyList<string> Files)
+public sealed record Manifest(
+    string Id,
+    string Stem,
+    int Edition,
+    string Hash,
+    IReadOnlyDictionary<string, string> Inputs,
+    IReadOnlyList<string> Files)
 {
     public IReadOnlyDictionary<string, long>? Sizes { get; init; }
 
@@ -35,7 +41,8 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
         TypeInfoResolver = BatchJsonContext.Default,
     };
 
-    private static readonly System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest> Info = (System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest>)Json.GetTypeInfo(typeof(Manifest));
+    private static readonly System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest> Info
+        = (System.Text.Json.Serialization.Metadata.JsonTypeInfo<Manifest>)Json.GetTypeInfo(typeof(Manifest));
 
     public static string FileName(string id) => id + ".manifest.json";
 
@@ -55,9 +62,12 @@ public sealed record Manifest(string Id, string Stem, int Edition, string Hash, 
         {
             return null;
         }
-        if (m is null || m.Id is null || m.Stem is null || m.Hash is null || m.Files is null || m.Inputs is null) return null;
+        if (m is null || m.Id is null || m.Stem is null || m.Hash is null || m.Files is null || m.Inputs is null)
+            return null;
         if (!m.Files.All(Confined) || !Confined(m.Stem + ".pdf")) return null;
-        if (m.Check is { } check && !check.Equals(SelfHash(json.Replace(CheckText(check), CheckText(""))), StringComparison.Ordinal)) return null;
+        if (m.Check is { } check
+            && !check.Equals(SelfHash(json.Replace(CheckText(check), CheckText(""))), StringComparison.Ordinal))
+            return null;
         if (m.Sizes is { } sizes && !m.Files.All(sizes.ContainsKey)) return null;
         if (m.Sha256 is { } hashes && !m.Files.All(hashes.ContainsKey)) return null;
         if (m.Check is not null && (m.Sizes is null || m.Sha256 is null)) return null;

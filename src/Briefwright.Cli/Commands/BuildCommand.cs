@@ -46,10 +46,9 @@ public static class BuildCommand
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print nothing but errors." };
         var formatsOption = new Option<string?>("--formats")
         {
-            Description = "Which files to write for each brief, comma-separated: pdf (always written), html (a " +
-                "self-contained web page), " +
-                "xlsx (a spreadsheet workbook of the results tables), docx (an editable document). Default: the " +
-                "project's, else pdf. " +
+            Description = "Which files to write for each brief, comma-separated: pdf (always written), " +
+                "html (a self-contained web page), xlsx (a spreadsheet workbook of the results tables), " +
+                "docx (an editable document). Default: the project's, else pdf. " +
                 "Switching a format on or off rebuilds the same edition; it never makes a new one.",
         };
         var plan = new Option<bool>("--plan") { Description = "Say what a build would do for each brief (build new, " +
@@ -68,7 +67,8 @@ public static class BuildCommand
             "do, writing nothing. " +
             $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
-            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root, plan, json, formatsOption,
+            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet,
+            root, plan, json, formatsOption,
         };
         command.SetAction(parse => Execute(io, new Given(
             parse.GetValue(paths)!, parse.GetValue(template), parse.GetValue(theme), parse.GetValue(outDir),
@@ -198,7 +198,12 @@ public static class BuildCommand
     /// <summary>
     /// Stops the run before any brief: prints the messages, logs them (one run line per output folder), exit 2.
     /// </summary>
-    private static int Refuse(BuildLog? log, string stage, IEnumerable<string> logDirs, TextWriter error, params string[] messages)
+    private static int Refuse(
+        BuildLog? log,
+        string stage,
+        IEnumerable<string> logDirs,
+        TextWriter error,
+        params string[] messages)
     {
         foreach (var m in messages) error.WriteLine(m);
         if (log is null) return ExitCodes.InvalidInput; // a plan writes nothing
@@ -211,11 +216,17 @@ public static class BuildCommand
     /// Where a run's log lines go: the output folder, else an 'out' folder beside each scenario (or in each folder
     /// named).
     /// </summary>
-    private static IEnumerable<string> LogDirs(IEnumerable<string> paths, string? outDir, ProjectSettings? project, bool expanded = false)
+    private static IEnumerable<string> LogDirs(
+        IEnumerable<string> paths,
+        string? outDir,
+        ProjectSettings? project,
+        bool expanded = false)
     {
         if ((outDir ?? project?.Out) is { } o) return [o];
         return paths.Where(p => p != "-" && p != ScenarioInputs.StdinName)
-            .Select(p => !expanded && Directory.Exists(p) ? Path.Combine(p, "out") : File.Exists(p) ? Path.Combine(Path.GetDirectoryName(p) ?? ".", "out") : null)
+            .Select(p => !expanded && Directory.Exists(p)
+                ? Path.Combine(p, "out")
+                : File.Exists(p) ? Path.Combine(Path.GetDirectoryName(p) ?? ".", "out") : null)
             .OfType<string>().Distinct().ToList();
     }
 
@@ -253,7 +264,8 @@ public static class BuildCommand
     public static int? ParseJobs(string? text, TextWriter error)
     {
         if (text is null) return Environment.ProcessorCount;
-        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n is >= 1 and <= MaxJobs) return n;
+        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out int n)
+            && n is >= 1 and <= MaxJobs) return n;
         error.WriteLine($"--jobs: must be a whole number from 1 to {MaxJobs}. Got " +
             $"'{Scenario.Binding.BindContext.Printable(text)}'.");
         return null;
@@ -262,7 +274,13 @@ public static class BuildCommand
     /// <summary>Templates are read up to this size.</summary>
     public const long MaxTemplateBytes = 1 << 20;
 
-    public static IReadOnlyList<BriefOutcome> Run(IReadOnlyList<string> files, BatchSettings settings, int jobs, Progress progress, TextWriter error, BuildLog? log = null)
+    public static IReadOnlyList<BriefOutcome> Run(
+        IReadOnlyList<string> files,
+        BatchSettings settings,
+        int jobs,
+        Progress progress,
+        TextWriter error,
+        BuildLog? log = null)
     {
         log ??= new BuildLog(TimeProvider.System, null);
         string DirOf(string f) => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(f) ?? ".", "out");
@@ -271,14 +289,17 @@ public static class BuildCommand
         // Every scenario is read first: ids must be unique within the batch before anything is written.
         var loaded = new LoadResult?[files.Count];
         var reader = new FileSourceReader();
-        Parallel.For(0, files.Count, parallel, i => loaded[i] = new ScenarioLoader(reader, settings.Root).Load(files[i]));
+        Parallel.For(0, files.Count, parallel,
+            i => loaded[i] = new ScenarioLoader(reader, settings.Root).Load(files[i]));
         var duplicates = ScenarioInputs.DuplicateIds(files.Select((f, i) => (f, loaded[i]!)).ToList(), reader);
         settings = settings with { Options = Speed.ForBatch(settings.Options, jobs, files.Count) };
         Parallel.For(0, files.Count, parallel, i =>
         {
             // A signal stops the build between briefs: those in progress finish, the others are not started.
             outcomes[i] = StopSignal.Token.IsCancellationRequested
-                ? new BriefOutcome(files[i], loaded[i]?.Document?.Brief.Id, OutcomeStatus.Stopped, null, null, 0, 0, 0, "not started: the build was stopped by a signal")
+                ? new BriefOutcome(
+                    files[i], loaded[i]?.Document?.Brief.Id, OutcomeStatus.Stopped, null, null, 0, 0, 0,
+                    "not started: the build was stopped by a signal")
                 : duplicates.TryGetValue(files[i], out var duplicate)
                     ? Duplicate(files[i], loaded[i]!, duplicate, error)
                     : BatchBuilder.BuildOne(files[i], settings, error, loaded[i], StopSignal.Token);
@@ -290,14 +311,20 @@ public static class BuildCommand
         return outcomes;
     }
 
-    private static BriefOutcome Duplicate(string file, LoadResult loaded, Scenario.Diagnostics.Diagnostic problem, TextWriter error)
+    private static BriefOutcome Duplicate(
+        string file,
+        LoadResult loaded,
+        Scenario.Diagnostics.Diagnostic problem,
+        TextWriter error)
     {
         lock (error)
         {
             error.WriteLine(loaded.Sources.Render(problem));
             error.WriteLine($"{file}: 1 problem; nothing written.");
         }
-        return new BriefOutcome(file, loaded.Document!.Brief.Id, OutcomeStatus.Invalid, null, null, 0, 0, 0, "brief.id is not unique within the batch")
+        return new BriefOutcome(
+            file, loaded.Document!.Brief.Id, OutcomeStatus.Invalid, null, null, 0, 0, 0,
+            "brief.id is not unique within the batch")
         {
             Messages = [problem.Message],
         };
@@ -306,8 +333,16 @@ public static class BuildCommand
     /// <summary>
     /// Reads the template and theme and checks the options; on failure, <paramref name="stage"/> says which was wrong.
     /// </summary>
-    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?, int)? Setup(string? templatePath, string? themePath, string? dateText,
-        string? shardText, string? jobsText, int? projectJobs, string? root, TextWriter error, out string stage)
+    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?, int)? Setup(
+        string? templatePath,
+        string? themePath,
+        string? dateText,
+        string? shardText,
+        string? jobsText,
+        int? projectJobs,
+        string? root,
+        TextWriter error,
+        out string stage)
     {
         stage = "options";
         int jobs = projectJobs ?? Environment.ProcessorCount;
@@ -343,7 +378,8 @@ public static class BuildCommand
         }
         catch (TemplateException ex)
         {
-            foreach (var line in StageErrors.Describe(ex, templatePath ?? "template").Lines.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(line);
+            var lines = StageErrors.Describe(ex, templatePath ?? "template").Lines;
+            foreach (var line in lines.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(line);
             return null;
         }
     }
@@ -412,13 +448,18 @@ public static class BuildCommand
         sb.AppendLine();
         var rows = outcomes.Select(o => new[]
         {
-            o.Id ?? Path.GetFileName(o.Scenario), o.Status.ToString().ToLowerInvariant(), o.Edition?.ToString(CultureInfo.InvariantCulture) ?? "",
-            o.Pages > 0 ? o.Pages.ToString(CultureInfo.InvariantCulture) : "", o.Bytes > 0 ? $"{o.Bytes / 1024} KB" : "", $"{o.Milliseconds} ms",
+            o.Id ?? Path.GetFileName(o.Scenario), o.Status.ToString().ToLowerInvariant(),
+            o.Edition?.ToString(CultureInfo.InvariantCulture) ?? "",
+            o.Pages > 0 ? o.Pages.ToString(CultureInfo.InvariantCulture) : "",
+            o.Bytes > 0 ? $"{o.Bytes / 1024} KB" : "", $"{o.Milliseconds} ms",
             o.Formats ?? "",
         }).Prepend(new[] { "brief", "status", "edition", "pages", "size", "time", "formats" }).ToList();
         int[] w = Enumerable.Range(0, 7).Select(c => rows.Max(r => r[c].Length)).ToArray();
-        foreach (var r in rows) sb.AppendLine(string.Join("  ", r.Select((cell, c) => c is 0 or 6 ? cell.PadRight(w[c]) : cell.PadLeft(w[c]))).TrimEnd());
-        var counts = outcomes.GroupBy(o => o.Status).OrderBy(g => g.Key).Select(g => $"{g.Count()} {g.Key.ToString().ToLowerInvariant()}");
+        foreach (var r in rows)
+            sb.AppendLine(string.Join("  ",
+                r.Select((cell, c) => c is 0 or 6 ? cell.PadRight(w[c]) : cell.PadLeft(w[c]))).TrimEnd());
+        var counts = outcomes.GroupBy(o => o.Status).OrderBy(g => g.Key)
+            .Select(g => $"{g.Count()} {g.Key.ToString().ToLowerInvariant()}");
         sb.AppendLine($"{outcomes.Count} brief(s): {string.Join(", ", counts)}.");
         return sb.ToString();
     }

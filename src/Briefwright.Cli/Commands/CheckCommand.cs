@@ -15,9 +15,10 @@ public static class CheckCommand
         var root = ScenarioInputs.RootOption();
         var command = new Command("check",
             "Validate scenario files, themes and project settings and report every problem at once, as " +
-            "file:line:col: field: rule. Got value. " +
-                                           "Scenarios of one check that share a brief.id are reported " +
-                                           "too.") { paths, root };
+            "file:line:col: field: rule. Got value. Scenarios of one check that share a brief.id are reported too.")
+        {
+            paths, root,
+        };
         command.SetAction(parse => Execute(io, parse.GetValue(paths)!, parse.GetValue(root)));
         return command;
     }

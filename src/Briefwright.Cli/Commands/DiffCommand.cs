@@ -54,7 +54,8 @@ public static class DiffCommand
             {
                 return EditionSnapshot.FromJson(SafeFile.Decode(bytes));
             }
-            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException)
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException
+                or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException)
             {
                 error.WriteLine($"{path}: not a briefwright results file ({ex.Message}).");
                 return null;
@@ -73,8 +74,9 @@ public static class DiffCommand
         if (c.Assumptions.Count > 0)
         {
             sb.AppendLine("Assumptions:");
-            foreach (var a in c.Assumptions) sb.AppendLine($"  {a.Label} ({a.Key}): {a.Old} → " +
-                $"{a.New}{(a.Detail is null ? "" : $"  [source: {a.Detail}]")}");
+            foreach (var a in c.Assumptions)
+                sb.AppendLine($"  {a.Label} ({a.Key}): {a.Old} → {a.New}" +
+                    $"{(a.Detail is null ? "" : $"  [source: {a.Detail}]")}");
         }
         if (c.Results.Count > 0)
         {

@@ -73,7 +73,8 @@ public static class ScenarioInputs
     /// <see cref="Expand(IEnumerable{string}, TextWriter, out bool)"/> for commands that stop when there is nothing to
     /// do.
     /// </summary>
-    public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error) => Expand(paths, error, out _);
+    public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error)
+        => Expand(paths, error, out _);
 
     /// <summary>Checks the --root folder; false (after printing why) when it is not a folder.</summary>
     public static bool RootIsValid(string? root, TextWriter error)
@@ -105,10 +106,14 @@ public static class ScenarioInputs
     /// editions of each other. Returns, for each such file, the positioned problem: at its own <c>brief.id</c>, or at
     /// its <c>extends</c> when the id is inherited.
     /// </summary>
-    public static IReadOnlyDictionary<string, Diagnostic> DuplicateIds(IReadOnlyList<(string File, LoadResult Loaded)> batch, ISourceReader reader)
+    public static IReadOnlyDictionary<string, Diagnostic> DuplicateIds(
+        IReadOnlyList<(string File, LoadResult Loaded)> batch,
+        ISourceReader reader)
     {
         var found = new Dictionary<string, Diagnostic>(StringComparer.Ordinal);
-        foreach (var group in batch.Where(b => b.Loaded.Ok).GroupBy(b => b.Loaded.Document!.Brief.Id, StringComparer.Ordinal).Where(g => g.Count() > 1))
+        foreach (var group in batch.Where(b => b.Loaded.Ok)
+            .GroupBy(b => b.Loaded.Document!.Brief.Id, StringComparer.Ordinal)
+            .Where(g => g.Count() > 1))
         {
             var members = group.Select(g => g.File).ToList();
             foreach (var file in members)
@@ -133,7 +138,8 @@ public static class ScenarioInputs
     {
         if (reader.TryRead(file, out string text, out _) && YamlTreeReader.Read(file, text).Root is YMapping map)
         {
-            if (map["brief"] is YMapping brief && brief.KeyNode("id") is { } id && brief["id"] is { } value) return (value.At, false);
+            if (map["brief"] is YMapping brief && brief.KeyNode("id") is { } id && brief["id"] is { } value)
+                return (value.At, false);
             if (map.KeyNode("extends") is { } ext) return (map["extends"]?.At ?? ext.At, true);
         }
         return (new SourceSpan(file, 1, 1), false);
@@ -178,7 +184,8 @@ public sealed class InputReader(TextReader stdin) : ISourceReader
     private string? stdinText;
 
     // Files named inside a scenario are always read from disk under the confinement rules, never from standard input.
-    public bool TryReadInside(string path, string root, out string text, out string error) => files.TryReadInside(path, root, out text, out error);
+    public bool TryReadInside(string path, string root, out string text, out string error)
+        => files.TryReadInside(path, root, out text, out error);
 
     public bool TryReadBytes(string path, string root, long maxBytes, out byte[] bytes, out string error) =>
         files.TryReadBytes(path, root, maxBytes, out bytes, out error);
@@ -192,7 +199,8 @@ public sealed class InputReader(TextReader stdin) : ISourceReader
             {
                 var buffer = new char[(int)FileSourceReader.MaxBytes + 1];
                 int total = 0, read;
-                while (total < buffer.Length && (read = stdin.Read(buffer, total, buffer.Length - total)) > 0) total += read;
+                while (total < buffer.Length && (read = stdin.Read(buffer, total, buffer.Length - total)) > 0)
+                    total += read;
                 if (total > FileSourceReader.MaxBytes)
                 {
                     text = "";

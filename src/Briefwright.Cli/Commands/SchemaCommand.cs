@@ -19,7 +19,10 @@ public static class SchemaCommand
     };
 
     private static string Write(JsonObject schema) =>
-        schema.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + "\n";
+        schema.ToJsonString(new JsonSerializerOptions
+        {
+            WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+        }) + "\n";
 
     public static Command Create(TextWriter output, TextWriter error)
     {
@@ -31,9 +34,7 @@ public static class SchemaCommand
         };
         var command = new Command("schema",
             "Print the JSON Schema of the scenario format, a theme or the project settings, for editors' completion " +
-            "and checking " +
-                                            "(save it and point your editor's YAML support at it; docs/ holds all " +
-                                            "three).") { kind };
+            "and checking (save it and point your editor's YAML support at it; docs/ holds all three).") { kind };
         command.SetAction(parse =>
         {
             string k = parse.GetValue(kind)!;

@@ -32,11 +32,11 @@ public static class Usage
             if (first.StartsWith('-'))
                 return new UsageError("",
                     $"briefwright: '{first}' is not an option here; a command comes first ({list}).",
-                        "Run 'briefwright --help' for what each one does.");
+                    "Run 'briefwright --help' for what each one does.");
             string? guess = Suggestions.Closest(first, commands);
             return new UsageError("",
                 $"briefwright: unknown command '{first}'{Mean(guess)}. Commands: {list}.",
-                    "Run 'briefwright --help' for what each one does.");
+                "Run 'briefwright --help' for what each one does.");
         }
         string hint = $"Run 'briefwright {command.Name} --help' for its options.";
         var options = command.Options.ToList();
@@ -68,5 +68,6 @@ public static class Usage
 
     private static string Mean(string? guess) => guess is null ? "" : $" (did you mean '{guess}'?)";
 
-    private static bool TakesValue(Option option) => option.ValueType != typeof(bool) && option.Arity.MaximumNumberOfValues > 0;
+    private static bool TakesValue(Option option)
+        => option.ValueType != typeof(bool) && option.Arity.MaximumNumberOfValues > 0;
 }

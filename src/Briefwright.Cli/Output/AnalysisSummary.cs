@@ -51,8 +51,8 @@ public static class AnalysisSummary
         }
         if (a.MonteCarlo is { } mc)
         {
-            sb.AppendLine($"Monte Carlo: {mc.Draws} draws (seed {mc.Seed}), {mc.Rejected} rejected for breaking a " +
-                "model rule");
+            sb.AppendLine(
+                $"Monte Carlo: {mc.Draws} draws (seed {mc.Seed}), {mc.Rejected} rejected for breaking a model rule");
             foreach (var o in mc.Options)
                 sb.AppendLine($"  {o.OptionId}: change 5–95%: {N(o.LongRunChangePct.P5, "0.00")}% .. " +
                     $"{N(o.LongRunChangePct.P95, "0.00")}% (median {N(o.LongRunChangePct.P50, "0.00")}%), P(gain) " +
@@ -64,11 +64,17 @@ public static class AnalysisSummary
             sb.AppendLine($"Sobol indices (first-order / total, {100 * s.Indices[0].Level:0}% bootstrap intervals), " +
                 $"{s.Indices[0].Samples} base samples:");
             for (int i = 0; i < s.Outputs.Count; i++)
-                sb.AppendLine($"  {s.Outputs[i]}: " + string.Join(", ", s.Indices[i].Inputs.Select((name, j) => $"{name} {N(s.Indices[i].FirstOrder[j], "0.00")} [{N(s.Indices[i].FirstOrderLow[j], "0.00")}, {N(s.Indices[i].FirstOrderHigh[j], "0.00")}]/{N(s.Indices[i].Total[j], "0.00")} [{N(s.Indices[i].TotalLow[j], "0.00")}, {N(s.Indices[i].TotalHigh[j], "0.00")}]")));
+            {
+                var x = s.Indices[i];
+                sb.AppendLine($"  {s.Outputs[i]}: " + string.Join(", ", x.Inputs.Select((name, j) =>
+                    $"{name} {N(x.FirstOrder[j], "0.00")} [{N(x.FirstOrderLow[j], "0.00")}, " +
+                    $"{N(x.FirstOrderHigh[j], "0.00")}]/{N(x.Total[j], "0.00")} " +
+                    $"[{N(x.TotalLow[j], "0.00")}, {N(x.TotalHigh[j], "0.00")}]")));
+            }
         }
         return sb.ToString();
     }
 
-    private static string P(Model.Uncertainty.Probability p) => $"{N(p.Estimate, "0.000")} [{N(p.Low, "0.000")}, " +
-        $"{N(p.High, "0.000")}]";
+    private static string P(Model.Uncertainty.Probability p) =>
+        $"{N(p.Estimate, "0.000")} [{N(p.Low, "0.000")}, {N(p.High, "0.000")}]";
 }
