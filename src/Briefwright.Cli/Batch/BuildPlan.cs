@@ -59,11 +59,7 @@ public static class BuildPlan
         var folder = new EditionFolder(dir, id);
         var (_, state) = folder.Read(full: true);
         var plan = EditionPlanner.Plan(request, state);
-        string? interrupted = Directory.Exists(folder.TempDir)
-            && Directory.EnumerateFileSystemEntries(folder.TempDir, id + ".*").Any()
-            ? $" A build of {id} is running or was interrupted ({folder.TempDir}); the next build waits for it or " +
-                "puts it right first."
-            : null;
+        string? interrupted = Interrupted(folder, id);
         string? before = state.Stem;
         switch (plan)
         {
@@ -108,6 +104,13 @@ public static class BuildPlan
             Archive = build.Archive is { } k ? $"archive/{id}/{k.Folder}" : null, Out = dir,
         };
     }
+
+    /// <summary>What the plan says of a build of this brief that is running or was interrupted, if any.</summary>
+    private static string? Interrupted(EditionFolder folder, string id) =>
+        Directory.Exists(folder.TempDir) && Directory.EnumerateFileSystemEntries(folder.TempDir, id + ".*").Any()
+            ? $" A build of {id} is running or was interrupted ({folder.TempDir}); the next build waits for it or " +
+                "puts it right first."
+            : null;
 
     /// <summary>Plans every scenario: reads them all (ids must be unique within the batch, as for a build), then each
     /// brief. Positioned errors go to <paramref name="error"/> as a build prints them.</summary>

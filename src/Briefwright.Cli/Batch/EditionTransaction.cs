@@ -45,11 +45,8 @@ public static class EditionTransaction
         if (File.Exists(folder.JournalPath))
         {
             Journal? journal = null;
-            try
-            {
-                journal = JsonSerializer.Deserialize(File.ReadAllBytes(folder.JournalPath),
-                    BatchJsonContext.Default.Journal);
-            }
+            try { journal = JsonSerializer.Deserialize(File.ReadAllBytes(folder.JournalPath),
+                BatchJsonContext.Default.Journal); }
             catch (JsonException) { }
             if (journal is null || journal.Id != folder.Id || !journal.Old.Concat(journal.New).All(Manifest.Confined)
                 || journal.Token.Any(c => !char.IsAsciiLetterOrDigit(c)))

@@ -58,13 +58,10 @@ public static class BuildCommand
             "object per scenario in the order given." };
         var command = new Command("build",
             "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results " +
-            "JSON, CSV tables and " +
-            "chart images beside it. Unchanged briefs are skipped. A changed scenario content, template or headline " +
-            "result makes a new edition " +
-            "(files named <id>-<date>-edition-<n>); a new date alone re-dates the current edition; a new theme or " +
-            "tool rewrites it; output " +
-            "switches never make an edition; whatever is replaced is archived first. --plan shows what a build would " +
-            "do, writing nothing. " +
+            "JSON, CSV tables and chart images beside it. Unchanged briefs are skipped. A changed scenario content, " +
+            "template or headline result makes a new edition (files named <id>-<date>-edition-<n>); a new date alone " +
+            "re-dates the current edition; a new theme or tool rewrites it; output switches never make an edition; " +
+            "whatever is replaced is archived first. --plan shows what a build would do, writing nothing. " +
             $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
             paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet,

@@ -59,20 +59,22 @@ public static class AnalysisSummary
                     $"{P(o.ProbabilityGain)}, P(PV > 0) {P(o.ProbabilityPositivePv)}");
             sb.AppendLine($"  E* 5–95%: {N(mc.OptimumYears.P5, "0.0")} .. {N(mc.OptimumYears.P95, "0.0")} years");
         }
-        if (a.Sobol is { } s)
-        {
-            sb.AppendLine($"Sobol indices (first-order / total, {100 * s.Indices[0].Level:0}% bootstrap intervals), " +
-                $"{s.Indices[0].Samples} base samples:");
-            for (int i = 0; i < s.Outputs.Count; i++)
-            {
-                var x = s.Indices[i];
-                sb.AppendLine($"  {s.Outputs[i]}: " + string.Join(", ", x.Inputs.Select((name, j) =>
-                    $"{name} {N(x.FirstOrder[j], "0.00")} [{N(x.FirstOrderLow[j], "0.00")}, " +
-                    $"{N(x.FirstOrderHigh[j], "0.00")}]/{N(x.Total[j], "0.00")} " +
-                    $"[{N(x.TotalLow[j], "0.00")}, {N(x.TotalHigh[j], "0.00")}]")));
-            }
-        }
+        if (a.Sobol is { } s) Sobol(sb, s);
         return sb.ToString();
+    }
+
+    private static void Sobol(StringBuilder sb, Model.Uncertainty.GlobalSensitivity s)
+    {
+        sb.AppendLine($"Sobol indices (first-order / total, {100 * s.Indices[0].Level:0}% bootstrap intervals), " +
+            $"{s.Indices[0].Samples} base samples:");
+        for (int i = 0; i < s.Outputs.Count; i++)
+        {
+            var x = s.Indices[i];
+            sb.AppendLine($"  {s.Outputs[i]}: " + string.Join(", ", x.Inputs.Select((name, j) =>
+                $"{name} {N(x.FirstOrder[j], "0.00")} [{N(x.FirstOrderLow[j], "0.00")}, " +
+                $"{N(x.FirstOrderHigh[j], "0.00")}]/{N(x.Total[j], "0.00")} " +
+                $"[{N(x.TotalLow[j], "0.00")}, {N(x.TotalHigh[j], "0.00")}]")));
+        }
     }
 
     private static string P(Model.Uncertainty.Probability p) =>

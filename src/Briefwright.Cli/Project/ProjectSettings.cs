@@ -135,33 +135,36 @@ public sealed record ProjectSettings(
         }
         bool? chartCopies = ctx.Flag(top, "chart_copies", "");
         bool? bom = ctx.Flag(top, "csv_byte_order_mark", "");
-        Brief.Formats.OutputFormat? formats = null;
-        if (top["formats"] is { } formatsNode)
-        {
-            var names = formatsNode is YSequence seq
-                ? seq.Items.Select(i => i is YScalar sc && !sc.IsNull ? sc.Value : null).ToList()
-                : null;
-            if (names is null || names.Count == 0 || names.Any(n => n is null))
-                ctx.Report(formatsNode.At, "formats",
-                    "must be a list of format names " +
-                    $"({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})",
-                    BindContext.Show(formatsNode));
-            else if (names.Distinct(StringComparer.OrdinalIgnoreCase).Count() != names.Count)
-                ctx.Report(formatsNode.At, "formats", "must name each format once", BindContext.Show(formatsNode));
-            else if (Brief.Formats.OutputFormats.Parse(names!, out string? unknown) is { } parsed) formats = parsed;
-            else
-            {
-                var item = ((YSequence)formatsNode).Items.First(i => ((YScalar)i).Value.Trim() == unknown);
-                ctx.Report(item.At, "formats",
-                    "must be a list of format names " +
-                    $"({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})",
-                    BindContext.Quote(unknown ?? ""));
-            }
-        }
+        Brief.Formats.OutputFormat? formats = top["formats"] is { } formatsNode ? ReadFormats(ctx, formatsNode) : null;
         if (ctx.Problems.Count > 0) return new Loaded(null, ctx.Problems, sources);
         return new Loaded(
             new ProjectSettings(path, template, theme, outDir, date, jobs, chartCopies, bom) { Formats = formats },
             [], sources);
+    }
+
+    /// <summary>The <c>formats</c> list; null (with a problem reported) when it is not a list of known names.</summary>
+    private static Brief.Formats.OutputFormat? ReadFormats(BindContext ctx, YNode formatsNode)
+    {
+        var names = formatsNode is YSequence seq
+            ? seq.Items.Select(i => i is YScalar sc && !sc.IsNull ? sc.Value : null).ToList()
+            : null;
+        if (names is null || names.Count == 0 || names.Any(n => n is null))
+            ctx.Report(formatsNode.At, "formats",
+                "must be a list of format names " +
+                $"({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})",
+                BindContext.Show(formatsNode));
+        else if (names.Distinct(StringComparer.OrdinalIgnoreCase).Count() != names.Count)
+            ctx.Report(formatsNode.At, "formats", "must name each format once", BindContext.Show(formatsNode));
+        else if (Brief.Formats.OutputFormats.Parse(names!, out string? unknown) is { } parsed) return parsed;
+        else
+        {
+            var item = ((YSequence)formatsNode).Items.First(i => ((YScalar)i).Value.Trim() == unknown);
+            ctx.Report(item.At, "formats",
+                "must be a list of format names " +
+                $"({Brief.Formats.OutputFormats.Describe(Brief.Formats.OutputFormats.All)})",
+                BindContext.Quote(unknown ?? ""));
+        }
+        return null;
     }
 
     /// <summary>JSON Schema (draft 2020-12) of the settings file, made from <see cref="Fields"/>.</summary>
