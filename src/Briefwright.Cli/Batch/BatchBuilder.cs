@@ -228,8 +228,8 @@ public static class BatchBuilder
             .Append((brief.FileStem + ".pdf", brief.Pdf)).ToList();
 
     /// <summary>The output folder of one scenario: the one named, else an <c>out</c> folder beside it.</summary>
-    public static string DirOf(string file, BatchSettings settings)
-        => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
+    public static string DirOf(string file, BatchSettings settings) =>
+        settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
 
     /// <summary>
     /// What the brief depends on, by name: <c>inputs</c> (what its bytes are made from: the scenario's text and

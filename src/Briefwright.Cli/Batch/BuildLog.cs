@@ -55,8 +55,8 @@ public sealed class BuildLog(TimeProvider clock, string? shard)
     private static readonly System.Text.Json.Serialization.Metadata.JsonTypeInfo<BuildLogEntry> Info =
         (System.Text.Json.Serialization.Metadata.JsonTypeInfo<BuildLogEntry>)Json.GetTypeInfo(typeof(BuildLogEntry));
 
-    private string Now()
-        => clock.GetUtcNow().UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture);
+    private string Now() =>
+        clock.GetUtcNow().UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture);
 
     public static string Line(BuildLogEntry entry) => JsonSerializer.Serialize(entry, Info);
 

@@ -73,8 +73,8 @@ public static class ScenarioInputs
     /// <see cref="Expand(IEnumerable{string}, TextWriter, out bool)"/> for commands that stop when there is nothing to
     /// do.
     /// </summary>
-    public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error)
-        => Expand(paths, error, out _);
+    public static IReadOnlyList<string> Expand(IEnumerable<string> paths, TextWriter error) =>
+        Expand(paths, error, out _);
 
     /// <summary>Checks the --root folder; false (after printing why) when it is not a folder.</summary>
     public static bool RootIsValid(string? root, TextWriter error)
@@ -184,8 +184,8 @@ public sealed class InputReader(TextReader stdin) : ISourceReader
     private string? stdinText;
 
     // Files named inside a scenario are always read from disk under the confinement rules, never from standard input.
-    public bool TryReadInside(string path, string root, out string text, out string error)
-        => files.TryReadInside(path, root, out text, out error);
+    public bool TryReadInside(string path, string root, out string text, out string error) =>
+        files.TryReadInside(path, root, out text, out error);
 
     public bool TryReadBytes(string path, string root, long maxBytes, out byte[] bytes, out string error) =>
         files.TryReadBytes(path, root, maxBytes, out bytes, out error);

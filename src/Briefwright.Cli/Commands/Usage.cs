@@ -68,6 +68,6 @@ public static class Usage
 
     private static string Mean(string? guess) => guess is null ? "" : $" (did you mean '{guess}'?)";
 
-    private static bool TakesValue(Option option)
-        => option.ValueType != typeof(bool) && option.Arity.MaximumNumberOfValues > 0;
+    private static bool TakesValue(Option option) =>
+        option.ValueType != typeof(bool) && option.Arity.MaximumNumberOfValues > 0;
 }

@@ -114,8 +114,8 @@ public sealed record ProjectSettings(
         }
         ctx.CheckKeys(top, "", Fields.Select(f => f.Key).ToArray());
         string folder = System.IO.Path.GetDirectoryName(path) ?? "";
-        string? PathOf(string key)
-            => ctx.Text(top, key, "", required: false) is { } p ? System.IO.Path.Combine(folder, p) : null;
+        string? PathOf(string key) =>
+            ctx.Text(top, key, "", required: false) is { } p ? System.IO.Path.Combine(folder, p) : null;
         string? template = PathOf("template"), theme = PathOf("theme"), outDir = PathOf("out");
         DateOnly? date = null;
         if (ctx.Text(top, "date", "", required: false) is { } rule && rule != "scenario")
