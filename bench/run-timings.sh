@@ -30,7 +30,7 @@ measure() { # label, command...
 # 200 invented regional variants of the invented national scenario, each with its own growth rate and retirement age.
 mkdir -p "$work/regions"
 cp briefs-demo/auroria-national.yaml briefs-demo/northport-life-table.csv "$work/regions/"
-sed -e 's/draws: 2000/draws: 200/' -e 's/sobol_samples: 256/sobol_samples: 0/' -e 's/steps: 9/steps: 5/' \
+sed -e 's/draws: 2000/draws: 200/' -e 's/sobol_samples: [0-9]*/sobol_samples: 0/' -e 's/steps: 9/steps: 5/' \
   briefs-demo/auroria-national.yaml > "$work/regions/national-light.yaml"
 mv "$work/regions/auroria-national.yaml" "$work/national-full.yaml"
 for i in $(seq 1 200); do

@@ -10,10 +10,11 @@ public static class AnalysisCharts
 {
     /// <summary>A shaded band of the headline path between two percentiles of the draws (in percent), in the first
     /// <paramref name="n"/> years.</summary>
-    internal static void FanBand(Plot plot, double[] xs, IReadOnlyList<Percentiles> fan, int n, Func<Percentiles, double> low,
-        Func<Percentiles, double> high, double alpha, string legend)
+    internal static void FanBand(Plot plot, double[] xs, IReadOnlyList<Percentiles> fan, int n,
+        Func<Percentiles, double> low, Func<Percentiles, double> high, double alpha, string legend)
     {
-        var band = plot.Add.FillY(xs, fan.Take(n).Select(p => 100 * low(p)).ToArray(), fan.Take(n).Select(p => 100 * high(p)).ToArray());
+        var band = plot.Add.FillY(xs, fan.Take(n).Select(p => 100 * low(p)).ToArray(),
+            fan.Take(n).Select(p => 100 * high(p)).ToArray());
         band.FillColor = Palette.Band.WithAlpha(alpha);
         band.LineWidth = 0;
         band.LegendText = legend;
@@ -79,7 +80,9 @@ public static class AnalysisCharts
         return plot;
     }
 
-    /// <summary>Tornado: the headline option's long-run change with each parameter at the low and high end of its range.</summary>
+    /// <summary>
+    /// Tornado: the headline option's long-run change with each parameter at the low and high end of its range.
+    /// </summary>
     public static Plot Tornado(ChartDrawing d, IReadOnlyList<OptionSwing> rows, double central, string optionLabel)
     {
         // Not options: the two ends of each range are drawn in the neutral tones.
@@ -93,8 +96,16 @@ public static class AnalysisCharts
             var r = rows[i].Row;
             double pos = rows.Count - 1 - i;
             double lo = rows[i].AtLowPct, hi = rows[i].AtHighPct;
-            bars.Add(new Bar { Position = pos, ValueBase = central, Value = lo, FillColor = Palette.NeutralLight, Size = 0.6, Orientation = Orientation.Horizontal });
-            bars.Add(new Bar { Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Neutral, Size = 0.6, Orientation = Orientation.Horizontal });
+            bars.Add(new Bar
+            {
+                Position = pos, ValueBase = central, Value = lo, FillColor = Palette.NeutralLight, Size = 0.6,
+                Orientation = Orientation.Horizontal,
+            });
+            bars.Add(new Bar
+            {
+                Position = pos, ValueBase = central, Value = hi, FillColor = Palette.Neutral, Size = 0.6,
+                Orientation = Orientation.Horizontal,
+            });
             ticks.Add(new Tick(pos, d.Text("parameter." + r.Parameter, r.Label)));
         }
         var plotBars = plot.Add.Bars(bars);
@@ -119,7 +130,10 @@ public static class AnalysisCharts
         return plot;
     }
 
-    /// <summary>Heat map of a grid result (E* or the long-run change) over two parameters; cells that break a model rule are left blank.</summary>
+    /// <summary>
+    /// Heat map of a grid result (E* or the long-run change) over two parameters; cells that break a model rule are
+    /// left blank.
+    /// </summary>
     public static Plot Heatmap(ChartDrawing d, GridResult grid, string xLabel, string yLabel, string valueLabel,
         double xScale = 1, double yScale = 1)
     {
@@ -153,7 +167,8 @@ public static class AnalysisCharts
     /// The outer edges of a heat map whose cells are centred on the grid values: half a grid step beyond the first and
     /// last value on each axis (one cell per value, each one step wide).
     /// </summary>
-    public static (double Left, double Right, double Bottom, double Top) HeatmapEdges(GridResult grid, double xScale = 1, double yScale = 1)
+    public static (double Left, double Right, double Bottom, double Top) HeatmapEdges(
+        GridResult grid, double xScale = 1, double yScale = 1)
     {
         int nx = grid.X.Length, ny = grid.Y.Length;
         double x0 = grid.X[0] * xScale, x1 = grid.X[^1] * xScale, y0 = grid.Y[0] * yScale, y1 = grid.Y[^1] * yScale;
@@ -161,7 +176,10 @@ public static class AnalysisCharts
         return (x0 - dx / 2, x1 + dx / 2, y0 - dy / 2, y1 + dy / 2);
     }
 
-    /// <summary>Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th percentiles.</summary>
+    /// <summary>
+    /// Distribution of the headline option's long-run change over the Monte Carlo draws, with its 5th, 50th and 95th
+    /// percentiles.
+    /// </summary>
     public static Plot Distribution(
         ChartDrawing d, MonteCarloResults mc, OptionUncertainty option, string optionLabel, OptionStyle? style = null)
     {
@@ -178,7 +196,8 @@ public static class AnalysisCharts
         foreach (var v in sample) counts[Math.Min(bins - 1, (int)((v - lo) / width))]++;
         var bars = Enumerable.Range(0, bins).Select(b => new Bar
         {
-            Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92, FillColor = colour.WithAlpha(0.7),
+            Position = lo + (b + 0.5) * width, Value = 100 * counts[b] / sample.Length, Size = width * 0.92,
+            FillColor = colour.WithAlpha(0.7),
         }).ToList();
         var histogram = plot.Add.Bars(bars);
         histogram.LegendText = d.Text("chart.legend.share_of_draws", "{0}: share of draws", optionLabel);

@@ -99,7 +99,9 @@ public static partial class ChartRenderer
         plot.Legend.Margin = new PixelPadding(4);
     }
 
-    /// <summary>Draws the panels of a chart into the rectangle from (0, <paramref name="top"/>) of the given size.</summary>
+    /// <summary>
+    /// Draws the panels of a chart into the rectangle from (0, <paramref name="top"/>) of the given size.
+    /// </summary>
     public static void Draw(SKCanvas canvas, ChartPanels chart, float width, float height, float top = 0)
     {
         float y = top;
@@ -111,7 +113,8 @@ public static partial class ChartRenderer
         }
     }
 
-    public static byte[] ToPdf(ChartPanels chart, int width = Width, int height = Height) => ToPdf(new[] { chart }, width, height);
+    public static byte[] ToPdf(ChartPanels chart, int width = Width, int height = Height) =>
+        ToPdf(new[] { chart }, width, height);
 
     /// <summary>One page per chart, in order. Skia embeds each font once per document, so charts share it.</summary>
     public static byte[] ToPdf(IReadOnlyList<ChartPanels> charts, int width = Width, int height = Height)
@@ -150,14 +153,15 @@ public static partial class ChartRenderer
     /// <summary>The width of the PNG copies in pixels: enough for a full-width slide.</summary>
     public const int PngWidth = 1600;
 
-    /// <summary>A figure's title above a copy and its source line below: what a slide or report needs with it.</summary>
     /// <summary>A figure's title above a copy and its source line below, in <paramref name="Family"/> (the chart's
     /// font: <see cref="ChartDrawing.Family"/>).</summary>
     public sealed record CopyTexts(string Title, string Source, string Family);
 
     private const float CopyMargin = 10, CopyTitleSize = 11, CopySourceSize = 8;
 
-    /// <summary>The lines of the title wrapped to the copy's width, and the heights above and below the chart.</summary>
+    /// <summary>
+    /// The lines of the title wrapped to the copy's width, and the heights above and below the chart.
+    /// </summary>
     private static (List<string> Lines, float Above, float Below) CopyLayout(CopyTexts? texts, float width)
     {
         if (texts is null) return (new List<string>(), 0, 0);
@@ -175,7 +179,8 @@ public static partial class ChartRenderer
     }
 
     /// <summary>A copy: white page, title, the chart, and the source line, at scale 1 in points.</summary>
-    private static void DrawCopy(SKCanvas canvas, ChartPanels chart, CopyTexts? texts, (List<string> Lines, float Above, float Below) layout, int width, int height)
+    private static void DrawCopy(SKCanvas canvas, ChartPanels chart, CopyTexts? texts,
+        (List<string> Lines, float Above, float Below) layout, int width, int height)
     {
         canvas.Clear(SKColors.White);
         if (texts is not null)
@@ -183,10 +188,12 @@ public static partial class ChartRenderer
             using var paint = new SKPaint { IsAntialias = true, Color = new SKColor(0x1A, 0x1A, 0x1A) };
             using var bold = new SKFont(Fonts.GetTypeface(texts.Family, true, false), CopyTitleSize);
             for (int i = 0; i < layout.Lines.Count; i++)
-                canvas.DrawText(layout.Lines[i], CopyMargin, CopyMargin + CopyTitleSize + i * CopyTitleSize * 1.3f, SKTextAlign.Left, bold, paint);
+                canvas.DrawText(layout.Lines[i], CopyMargin, CopyMargin + CopyTitleSize + i * CopyTitleSize * 1.3f,
+                    SKTextAlign.Left, bold, paint);
             using var regular = new SKFont(Fonts.GetTypeface(texts.Family, false, false), CopySourceSize);
             paint.Color = new SKColor(0x55, 0x5B, 0x66);
-            canvas.DrawText("Source: " + texts.Source, CopyMargin, layout.Above + height + CopySourceSize + 2, SKTextAlign.Left, regular, paint);
+            canvas.DrawText("Source: " + texts.Source, CopyMargin, layout.Above + height + CopySourceSize + 2,
+                SKTextAlign.Left, regular, paint);
         }
         Draw(canvas, chart, width, height, layout.Above);
     }
@@ -196,13 +203,16 @@ public static partial class ChartRenderer
     /// filtered with "up" and deflated at zlib level 1: larger files than the encoder's default, written many times
     /// faster (the default made chart copies most of a batch's time).
     /// </summary>
-    public static byte[] ToPng(ChartPanels chart, CopyTexts? texts = null, int width = Width, int height = Height, int pixelWidth = PngWidth)
+    public static byte[] ToPng(ChartPanels chart, CopyTexts? texts = null, int width = Width, int height = Height,
+        int pixelWidth = PngWidth)
     {
         var layout = CopyLayout(texts, width);
         float scale = (float)pixelWidth / width;
-        // Opaque pixels (the copy has a white page): the encoder writes RGB, a quarter less to filter and deflate, which
-        // with the "up" filter at zlib level 1 encodes three times faster than RGBA (measured on the demo charts).
-        var info = new SKImageInfo(pixelWidth, (int)Math.Ceiling((height + layout.Above + layout.Below) * scale), SKColorType.Rgb888x, SKAlphaType.Opaque);
+        // Opaque pixels (the copy has a white page): the encoder writes RGB, a quarter less to filter and deflate,
+        // which with the "up" filter at zlib level 1 encodes three times faster than RGBA (measured on the demo
+        // charts).
+        var info = new SKImageInfo(pixelWidth, (int)Math.Ceiling((height + layout.Above + layout.Below) * scale),
+            SKColorType.Rgb888x, SKAlphaType.Opaque);
         using var surface = SKSurface.Create(info);
         surface.Canvas.Scale(scale);
         DrawCopy(surface.Canvas, chart, texts, layout, width, height);
@@ -233,7 +243,8 @@ public static partial class ChartRenderer
                 dashed[i].Plottable.LineStyle.Color = StandIn(i).WithAlpha(dashed[i].Color.A / 255.0);
             }
             using var stream = new SKDynamicMemoryWStream();
-            using (var canvas = SKSvgCanvas.Create(new SKRect(0, 0, width, height + layout.Above + layout.Below), stream))
+            using (var canvas = SKSvgCanvas.Create(
+                new SKRect(0, 0, width, height + layout.Above + layout.Below), stream))
                 DrawCopy(canvas, chart, texts, layout, width, height);
             using var data = stream.DetachAsData();
             svg = System.Text.Encoding.UTF8.GetString(data.AsSpan());
@@ -249,7 +260,8 @@ public static partial class ChartRenderer
         for (int i = 0; i < dashed.Count; i++)
         {
             var c = dashed[i].Color;
-            string dash = string.Join(" ", dashed[i].Pattern.Intervals!.Select(v => v.ToString("0.##", System.Globalization.CultureInfo.InvariantCulture)));
+            string dash = string.Join(" ", dashed[i].Pattern.Intervals!
+                .Select(v => v.ToString("0.##", System.Globalization.CultureInfo.InvariantCulture)));
             svg = svg.Replace($"stroke=\"{Hex(StandIn(i))}\"", $"stroke=\"{Hex(c)}\" stroke-dasharray=\"{dash}\"");
         }
         var ids = new Dictionary<string, string>(StringComparer.Ordinal);

@@ -12,7 +12,9 @@ public sealed class ChartWords(Func<string, string?> lookup, string decimalMark)
     /// <summary>Each chart's own English words and a decimal point.</summary>
     public static readonly ChartWords English = new(_ => null, ".");
 
-    /// <summary>The text for <paramref name="key"/> in the brief's language (else <paramref name="english"/>), {0}… filled.</summary>
+    /// <summary>
+    /// The text for <paramref name="key"/> in the brief's language (else <paramref name="english"/>), {0}… filled.
+    /// </summary>
     public string Text(string key, string english, params object[] args)
     {
         string text = lookup(key) ?? english;
@@ -22,7 +24,9 @@ public sealed class ChartWords(Func<string, string?> lookup, string decimalMark)
         return text;
     }
 
-    /// <summary>The decimal mark when it is not a point (axes then get tick labels in that format), else null.</summary>
+    /// <summary>
+    /// The decimal mark when it is not a point (axes then get tick labels in that format), else null.
+    /// </summary>
     public string? DecimalMark { get; } = decimalMark == "." ? null : decimalMark;
 }
 

@@ -11,12 +11,12 @@ public static partial class FontSubsetter
     private const string Lib = "libHarfBuzzSharp";
     private const uint NoHinting = 0x1;
 
-    /// <summary>What chart labels use: ASCII, the Latin-1 letters of names, dashes and quotes, minus, middle dot, ×, ≤ ≥.
-    /// Every glyph kept is embedded once per chart, so the set is kept small.</summary>
+    /// <summary>What chart labels use: ASCII, the Latin-1 letters of names, dashes and quotes, minus, middle dot, ×,
+    /// ≤ ≥. Every glyph kept is embedded once per chart, so the set is kept small.</summary>
     public static readonly (int First, int Last)[] ChartCharacters =
     {
-        (0x20, 0x7E), (0xB0, 0xB0), (0xB7, 0xB7), (0xC0, 0xFF), (0xD7, 0xD7), (0x2013, 0x2014), (0x2018, 0x201D), (0x2026, 0x2026),
-        (0x2212, 0x2212), (0x2264, 0x2265),
+        (0x20, 0x7E), (0xB0, 0xB0), (0xB7, 0xB7), (0xC0, 0xFF), (0xD7, 0xD7), (0x2013, 0x2014), (0x2018, 0x201D),
+        (0x2026, 0x2026), (0x2212, 0x2212), (0x2264, 0x2265),
     };
 
     /// <summary>Whether <paramref name="c"/> is in <see cref="ChartCharacters"/>.</summary>
@@ -48,7 +48,8 @@ public static partial class FontSubsetter
         return set;
     }
 
-    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<byte[], IReadOnlySet<int>> Coverage = new();
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<byte[], IReadOnlySet<int>> Coverage =
+        new();
 
     private static unsafe HashSet<int> Collect(byte[] font)
     {
@@ -119,7 +120,8 @@ public static partial class FontSubsetter
         }
     }
 
-    [LibraryImport(Lib)] private static unsafe partial IntPtr hb_blob_create(byte* data, uint length, int mode, IntPtr userData, IntPtr destroy);
+    [LibraryImport(Lib)] private static unsafe partial IntPtr hb_blob_create(
+        byte* data, uint length, int mode, IntPtr userData, IntPtr destroy);
     [LibraryImport(Lib)] private static partial IntPtr hb_face_create(IntPtr blob, uint index);
     [LibraryImport(Lib)] private static partial IntPtr hb_subset_input_create_or_fail();
     [LibraryImport(Lib)] private static partial IntPtr hb_subset_input_unicode_set(IntPtr input);

@@ -16,7 +16,8 @@ public static class Palette
     /// </summary>
     public static readonly Color[] Options =
     {
-        Color.FromHex("#1F2D86"), Color.FromHex("#A32E2A"), Color.FromHex("#C95A8A"), Color.FromHex("#78A6E6"), Color.FromHex("#D4BE3A"),
+        Color.FromHex("#1F2D86"), Color.FromHex("#A32E2A"), Color.FromHex("#C95A8A"), Color.FromHex("#78A6E6"),
+        Color.FromHex("#D4BE3A"),
     };
 
     /// <summary>Reference lines and plain curves.</summary>
@@ -31,14 +32,25 @@ public static class Palette
     public static readonly Color Grid = Color.FromHex("#E3E7EC");
     public static readonly Color Ink = Color.FromHex("#1A1A1A");
 
-    /// <summary>The heat map's sequential scale, light to dark, in neutral blue-greys so no cell reads as an option.</summary>
-    public static readonly Color[] Sequential = { Color.FromHex("#F4F1E6"), Color.FromHex("#A9BCC6"), Color.FromHex("#2E3F4F") };
+    /// <summary>
+    /// The heat map's sequential scale, light to dark, in neutral blue-greys so no cell reads as an option.
+    /// </summary>
+    public static readonly Color[] Sequential =
+        { Color.FromHex("#F4F1E6"), Color.FromHex("#A9BCC6"), Color.FromHex("#2E3F4F") };
 
     /// <summary>Marker shapes that differ as well as colours, so options stay apart when printed in grey.</summary>
-    public static readonly MarkerShape[] Shapes = { MarkerShape.FilledCircle, MarkerShape.FilledSquare, MarkerShape.FilledTriangleUp, MarkerShape.FilledDiamond, MarkerShape.OpenCircle, MarkerShape.OpenSquare };
+    public static readonly MarkerShape[] Shapes =
+    {
+        MarkerShape.FilledCircle, MarkerShape.FilledSquare, MarkerShape.FilledTriangleUp, MarkerShape.FilledDiamond,
+        MarkerShape.OpenCircle, MarkerShape.OpenSquare,
+    };
 
     /// <summary>Line patterns by option, the first solid.</summary>
-    public static readonly LinePattern[] Patterns = { LinePattern.Solid, LinePattern.Dashed, LinePattern.DenselyDashed, LinePattern.Dotted, LinePattern.Solid, LinePattern.Dashed };
+    public static readonly LinePattern[] Patterns =
+    {
+        LinePattern.Solid, LinePattern.Dashed, LinePattern.DenselyDashed, LinePattern.Dotted, LinePattern.Solid,
+        LinePattern.Dashed,
+    };
 }
 
 /// <summary>How one option is drawn in every figure of a brief.</summary>
@@ -68,7 +80,8 @@ public sealed class OptionStyles
     }
 
     /// <summary>Colours written #RRGGBB (a theme's <c>chart_colours</c>).</summary>
-    public static IReadOnlyList<Color>? FromHex(IReadOnlyList<string>? hex) => hex is { Count: > 0 } ? hex.Select(Color.FromHex).ToList() : null;
+    public static IReadOnlyList<Color>? FromHex(IReadOnlyList<string>? hex) =>
+        hex is { Count: > 0 } ? hex.Select(Color.FromHex).ToList() : null;
 
     public OptionStyle this[string optionId] => styles.TryGetValue(optionId, out var s)
         ? s

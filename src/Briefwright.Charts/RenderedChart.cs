@@ -1,11 +1,12 @@
 namespace Briefwright.Charts;
 
 /// <summary>
-/// A chart ready to place: page <see cref="Page"/> (1-based) of a vector PDF of <see cref="WidthPt"/> × <see cref="HeightPt"/>
-/// points that holds every chart of the brief, so the chart font is embedded once; its texts; and (when annex files are
-/// wanted) the same chart as SVG and PNG.
+/// A chart ready to place: page <see cref="Page"/> (1-based) of a vector PDF of <see cref="WidthPt"/> ×
+/// <see cref="HeightPt"/> points that holds every chart of the brief, so the chart font is embedded once; its texts;
+/// and (when annex files are wanted) the same chart as SVG and PNG.
 /// </summary>
-public sealed record RenderedChart(string Id, byte[] Pdf, int Page, double WidthPt, double HeightPt, string Caption, string AltText, string Source)
+public sealed record RenderedChart(
+    string Id, byte[] Pdf, int Page, double WidthPt, double HeightPt, string Caption, string AltText, string Source)
 {
     public string? Svg { get; init; }
     public byte[]? Png { get; init; }
@@ -27,7 +28,8 @@ public sealed record ChartSpec(string Id, ChartPanels Plot, string Caption, stri
     public static IReadOnlyList<RenderedChart> RenderPdf(IReadOnlyList<ChartSpec> specs)
     {
         byte[] pdf = ChartRenderer.ToPdf(specs.Select(s => s.Plot).ToList());
-        return specs.Select((s, i) => new RenderedChart(s.Id, pdf, i + 1, ChartRenderer.Width, ChartRenderer.Height, s.Caption, s.AltText, s.Source)).ToList();
+        return specs.Select((s, i) => new RenderedChart(s.Id, pdf, i + 1, ChartRenderer.Width, ChartRenderer.Height,
+            s.Caption, s.AltText, s.Source)).ToList();
     }
 
     /// <summary>
@@ -43,7 +45,10 @@ public sealed record ChartSpec(string Id, ChartPanels Plot, string Caption, stri
             i =>
             {
                 var texts = new ChartRenderer.CopyTexts(specs[i].Caption, specs[i].Source, drawing.Family);
-                copies[i] = charts[i] with { Svg = ChartRenderer.ToSvg(specs[i].Plot, texts), Png = ChartRenderer.ToPng(specs[i].Plot, texts) };
+                copies[i] = charts[i] with
+                {
+                    Svg = ChartRenderer.ToSvg(specs[i].Plot, texts), Png = ChartRenderer.ToPng(specs[i].Plot, texts),
+                };
             });
         return copies;
     }

@@ -9,7 +9,9 @@ public static class SchoolingCharts
 {
     private static string F(ChartDrawing d, double v, string f = "0.0") => ChartRenderer.Number(d, v, f);
 
-    /// <summary>Output per person against years of schooling, with each option, E* and the band within 1% of the maximum.</summary>
+    /// <summary>
+    /// Output per person against years of schooling, with each option, E* and the band within 1% of the maximum.
+    /// </summary>
     public static Plot OutputCurve(ChartDrawing d, BalancedGrowthResults results, OptionStyles? styles = null)
     {
         styles ??= new OptionStyles(results.Options.Select(o => o.Id));

@@ -14,7 +14,8 @@ public sealed record ComposedPdf(byte[] Bytes, int PageCount);
 public sealed class DocumentComposer
 {
     /// <summary>Measure stage and pagination, without drawing: pages of placed atoms.</summary>
-    public static IReadOnlyList<IReadOnlyList<Placement>> Layout(BriefDocument brief, Theme theme, ITextMeasurer measurer) =>
+    public static IReadOnlyList<IReadOnlyList<Placement>> Layout(
+        BriefDocument brief, Theme theme, ITextMeasurer measurer) =>
         Paginator.Paginate(new Planner(theme, measurer).Plan(brief.Blocks), theme.ContentHeight);
 
     /// <summary>
@@ -22,7 +23,9 @@ public sealed class DocumentComposer
     /// that runs over a page stays one structure element; a table's header row repeated on the continued page is
     /// drawn as an artifact, so the structure holds it once.
     /// </summary>
-    public static void Draw(BriefDocument brief, Theme theme, IReadOnlyList<IReadOnlyList<Placement>> pages, IDrawingSurface surface, ITextMeasurer measurer)
+    public static void Draw(
+        BriefDocument brief, Theme theme, IReadOnlyList<IReadOnlyList<Placement>> pages, IDrawingSurface surface,
+        ITextMeasurer measurer)
     {
         object? group = null;
         var drawn = new HashSet<Atom>(ReferenceEqualityComparer.Instance);
@@ -63,14 +66,16 @@ public sealed class DocumentComposer
     private static Atom? FirstContent(IReadOnlyList<Placement> placed, HashSet<Atom> drawn) =>
         placed.Select(x => x.Atom).FirstOrDefault(a => !drawn.Contains(a));
 
-    private static void DrawRunningParts(DocumentInfo info, Theme theme, int page, int pageCount, IDrawingSurface surface, ITextMeasurer measurer)
+    private static void DrawRunningParts(
+        DocumentInfo info, Theme theme, int page, int pageCount, IDrawingSurface surface, ITextMeasurer measurer)
     {
         var font = new FontSpec(RunStyle.Regular, 8);
         double right = theme.PageWidth - theme.MarginRight;
         double headerY = theme.MarginTop - 30;
         double footerY = theme.PageHeight - theme.MarginBottom + 30;
         string date = info.DateText ?? info.Date.ToString("d MMMM yyyy", CultureInfo.InvariantCulture);
-        string pageText = info.PageLabel.Replace("{0}", (page + 1).ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal)
+        string pageText = info.PageLabel
+            .Replace("{0}", (page + 1).ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal)
             .Replace("{1}", pageCount.ToString(CultureInfo.InvariantCulture), StringComparison.Ordinal);
         string headerRight = $"{date} · {info.Edition}";
         surface.BeginArtifact();
@@ -85,7 +90,8 @@ public sealed class DocumentComposer
         {
             var bold = new FontSpec(RunStyle.Bold, 9);
             // Above the running header, centred, so that it never runs into a long short title.
-            surface.Text(marker, (theme.MarginLeft + right - measurer.Width(marker, bold)) / 2, headerY - 14, bold, new Rgb(0xB0, 0x2A, 0x1E));
+            surface.Text(marker, (theme.MarginLeft + right - measurer.Width(marker, bold)) / 2, headerY - 14, bold,
+                new Rgb(0xB0, 0x2A, 0x1E));
         }
         surface.Line(theme.MarginLeft, headerY + 5, right, headerY + 5, theme.Rule, 0.5);
         surface.Line(theme.MarginLeft, footerY - 10, right, footerY - 10, theme.Rule, 0.5);
@@ -103,10 +109,13 @@ public sealed class DocumentComposer
         foreach (var page in document.Pages)
             foreach (var item in page.Contents.Elements)
             {
-                var dict = item is PdfSharp.Pdf.Advanced.PdfReference r ? r.Value as PdfDictionary : item as PdfDictionary;
+                var dict = item is PdfSharp.Pdf.Advanced.PdfReference r
+                    ? r.Value as PdfDictionary
+                    : item as PdfDictionary;
                 if (dict?.Stream is null || dict.Elements.ContainsKey("/Filter")) continue;
                 using var packed = new MemoryStream();
-                using (var z = new System.IO.Compression.ZLibStream(packed, System.IO.Compression.CompressionLevel.SmallestSize, leaveOpen: true))
+                using (var z = new System.IO.Compression.ZLibStream(
+                    packed, System.IO.Compression.CompressionLevel.SmallestSize, leaveOpen: true))
                     z.Write(dict.Stream.Value);
                 dict.Stream.Value = packed.ToArray();
                 dict.Elements["/Filter"] = new PdfName("/FlateDecode");

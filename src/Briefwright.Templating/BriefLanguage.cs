@@ -9,9 +9,9 @@ public sealed record LanguageText(string Text, int Line);
 /// <summary>
 /// A brief language: every word the tool writes (headings, captions, table headers, caveats, page furniture, the
 /// standard brief's sentences) and its number and date format, read from one file of texts
-/// (<c>templates/languages/&lt;code&gt;.texts</c>, <c>key = text</c> per line). The number and date formats are carried in
-/// that file rather than taken from .NET's culture data: the native executable runs with invariant globalisation, and
-/// turning culture data on would tie the tool to the host's ICU library (see README, "Languages").
+/// (<c>templates/languages/&lt;code&gt;.texts</c>, <c>key = text</c> per line). The number and date formats are carried
+/// in that file rather than taken from .NET's culture data: the native executable runs with invariant globalisation,
+/// and turning culture data on would tie the tool to the host's ICU library (see README, "Languages").
 /// </summary>
 public sealed class BriefLanguage
 {
@@ -63,25 +63,33 @@ public sealed class BriefLanguage
     /// <summary>The languages shipped with the tool, by code.</summary>
     public static IReadOnlyDictionary<string, BriefLanguage> BuiltIn => builtIn.Value;
 
-    /// <summary>The language for a tag such as "fr-FR" or "de": by its language subtag; null when none is shipped.</summary>
+    /// <summary>
+    /// The language for a tag such as "fr-FR" or "de": by its language subtag; null when none is shipped.
+    /// </summary>
     public static BriefLanguage? ForTag(string tag)
     {
         string code = tag.Split('-')[0].ToLowerInvariant();
         if (!BuiltIn.TryGetValue(code, out var language)) return null;
-        return tag.Contains('-') && !string.Equals(tag, language.Tag, StringComparison.OrdinalIgnoreCase) ? language.WithTag(tag) : language;
+        return tag.Contains('-') && !string.Equals(tag, language.Tag, StringComparison.OrdinalIgnoreCase)
+            ? language.WithTag(tag)
+            : language;
     }
 
     /// <summary>The same texts under another region's tag ("fr-CH" with the French texts).</summary>
     public BriefLanguage WithTag(string tag)
     {
-        var copy = new Dictionary<string, LanguageText>(texts) { ["language.tag"] = new LanguageText(tag, texts["language.tag"].Line) };
+        var copy = new Dictionary<string, LanguageText>(texts)
+        {
+            ["language.tag"] = new LanguageText(tag, texts["language.tag"].Line),
+        };
         return new BriefLanguage(Code, Source, copy);
     }
 
     /// <summary>The text for <paramref name="key"/>.</summary>
     public string Get(string key) =>
         texts.TryGetValue(key, out var t) ? t.Text
-        : throw new InvalidOperationException($"{Source}: the text '{key}' is missing; every language file needs every key of templates/languages/en.texts.");
+        : throw new InvalidOperationException($"{Source}: the text '{key}' is missing; every language file needs " +
+            "every key of templates/languages/en.texts.");
 
     /// <summary>The text for <paramref name="key"/> with {0}, {1}, … replaced by <paramref name="args"/>.</summary>
     public string Format(string key, params object?[] args)
@@ -94,7 +102,8 @@ public sealed class BriefLanguage
             if (text[i] == '{' && i + 2 < text.Length && char.IsAsciiDigit(text[i + 1]))
             {
                 int close = text.IndexOf('}', i);
-                if (close > 0 && int.TryParse(text.AsSpan(i + 1, close - i - 1), NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n < args.Length)
+                if (close > 0 && int.TryParse(text.AsSpan(i + 1, close - i - 1), NumberStyles.None,
+                        CultureInfo.InvariantCulture, out int n) && n < args.Length)
                 {
                     sb.Append(Show(args[n]));
                     i = close;
@@ -120,7 +129,9 @@ public sealed class BriefLanguage
         .Replace("{month}", Months[date.Month - 1], StringComparison.Ordinal)
         .Replace("{yyyy}", date.Year.ToString("0000", CultureInfo.InvariantCulture), StringComparison.Ordinal);
 
-    /// <summary>Reads a language file: <c>key = text</c> per line; <c>#</c> starts a comment line; <c>\u202F</c>-style escapes.</summary>
+    /// <summary>
+    /// Reads a language file: <c>key = text</c> per line; <c>#</c> starts a comment line; <c>\u202F</c>-style escapes.
+    /// </summary>
     public static BriefLanguage Parse(string code, string text, string source)
     {
         var texts = new Dictionary<string, LanguageText>(StringComparer.Ordinal);
@@ -146,7 +157,8 @@ public sealed class BriefLanguage
         for (int i = 0; i < value.Length; i++)
         {
             if (value[i] == '\\' && i + 5 < value.Length && value[i + 1] == 'u'
-                && int.TryParse(value.AsSpan(i + 2, 4), NumberStyles.HexNumber, CultureInfo.InvariantCulture, out int code))
+                && int.TryParse(value.AsSpan(i + 2, 4), NumberStyles.HexNumber, CultureInfo.InvariantCulture,
+                    out int code))
             {
                 sb.Append((char)code);
                 i += 5;
@@ -165,7 +177,9 @@ public sealed class BriefLanguage
     {
         var assembly = typeof(BriefLanguage).Assembly;
         var result = new Dictionary<string, BriefLanguage>(StringComparer.Ordinal);
-        foreach (string name in assembly.GetManifestResourceNames().Where(n => n.StartsWith("languages.", StringComparison.Ordinal)).Order(StringComparer.Ordinal))
+        foreach (string name in assembly.GetManifestResourceNames()
+            .Where(n => n.StartsWith("languages.", StringComparison.Ordinal))
+            .Order(StringComparer.Ordinal))
         {
             using var stream = assembly.GetManifestResourceStream(name)!;
             using var reader = new StreamReader(stream);

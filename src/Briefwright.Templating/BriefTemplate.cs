@@ -18,7 +18,9 @@ public sealed class BriefTemplate
     public const int RecursiveLimit = 50;
     public const int OutputLimit = 2_000_000;
 
-    /// <summary>Expressions and statements evaluated for one brief: the deterministic budget, far above what a brief needs.</summary>
+    /// <summary>
+    /// Expressions and statements evaluated for one brief: the deterministic budget, far above what a brief needs.
+    /// </summary>
     public const int StepLimit = 1_000_000;
 
     /// <summary>Items in a list or range made while filling the template.</summary>
@@ -46,14 +48,18 @@ public sealed class BriefTemplate
     public string Path { get; }
     public string Text { get; }
 
-    /// <summary>SHA-256 of the template text (hex), computed once: it goes into every brief's stamp and manifest.</summary>
+    /// <summary>
+    /// SHA-256 of the template text (hex), computed once: it goes into every brief's stamp and manifest.
+    /// </summary>
     public string Hash { get; }
 
     public static BriefTemplate Parse(string text, string path)
     {
         var parsed = Template.Parse(text, path);
         if (parsed.HasErrors)
-            throw new TemplateException(parsed.Messages.Select(m => new TemplateError(path, m.Span.Start.Line + 1, m.Span.Start.Column + 1, Clean(m.Message))).ToList());
+            throw new TemplateException(parsed.Messages
+                .Select(m => new TemplateError(path, m.Span.Start.Line + 1, m.Span.Start.Column + 1, Clean(m.Message)))
+                .ToList());
         return new BriefTemplate(parsed, path, text);
     }
 
@@ -81,24 +87,35 @@ public sealed class BriefTemplate
         }
         catch (ScriptRuntimeException ex)
         {
-            throw new TemplateException(new[] { new TemplateError(Path, ex.Span.Start.Line + 1, ex.Span.Start.Column + 1, Clean(ex.OriginalMessage)) });
+            throw new TemplateException(new[]
+            {
+                new TemplateError(Path, ex.Span.Start.Line + 1, ex.Span.Start.Column + 1, Clean(ex.OriginalMessage)),
+            });
         }
         catch (InvalidOperationException ex)
         {
             var span = context.CurrentSpan;
-            throw new TemplateException(new[] { new TemplateError(Path, span.Start.Line + 1, span.Start.Column + 1, ex.Message) });
+            throw new TemplateException(
+                new[] { new TemplateError(Path, span.Start.Line + 1, span.Start.Column + 1, ex.Message) });
         }
         catch (OutOfMemoryException)
         {
             var span = context.CurrentSpan;
-            throw new TemplateException(new[] { new TemplateError(Path, span.Start.Line + 1, span.Start.Column + 1, "The template made a text or list too large to hold in memory.") });
+            throw new TemplateException(new[]
+            {
+                new TemplateError(Path, span.Start.Line + 1, span.Start.Column + 1,
+                    "The template made a text or list too large to hold in memory."),
+            });
         }
     }
 
-    /// <summary>Counts every evaluation against the step and time budgets and refuses oversized intermediate values.</summary>
+    /// <summary>
+    /// Counts every evaluation against the step and time budgets and refuses oversized intermediate values.
+    /// </summary>
     private sealed class BudgetContext : TemplateContext
     {
-        private readonly long deadline = System.Diagnostics.Stopwatch.GetTimestamp() + (long)(TimeLimit.TotalSeconds * System.Diagnostics.Stopwatch.Frequency);
+        private readonly long deadline = System.Diagnostics.Stopwatch.GetTimestamp()
+            + (long)(TimeLimit.TotalSeconds * System.Diagnostics.Stopwatch.Frequency);
         private int steps;
         private SourceSpan? statement;
         private int openStatements;
@@ -111,7 +128,9 @@ public sealed class BriefTemplate
             bool outermost = openStatements == 0 && scriptNode is ScriptStatement and not ScriptBlockStatement;
             if (outermost) statement = at;
             if (++steps > StepLimit || ((steps & 255) == 0 && System.Diagnostics.Stopwatch.GetTimestamp() > deadline))
-                throw new ScriptRuntimeException(statement ?? at, $"This statement ran past the budget for one brief ({StepLimit:N0} steps or {TimeLimit.TotalSeconds:0.#} s), as an endless or exploding loop or recursion would");
+                throw new ScriptRuntimeException(statement ?? at,
+                    $"This statement ran past the budget for one brief ({StepLimit:N0} steps or " +
+                    $"{TimeLimit.TotalSeconds:0.#} s), as an endless or exploding loop or recursion would");
             object? result;
             if (outermost) openStatements++;
             try
@@ -125,9 +144,11 @@ public sealed class BriefTemplate
             switch (result)
             {
                 case string text when text.Length > OutputLimit:
-                    throw new ScriptRuntimeException(at, $"The template made a text of {text.Length:N0} characters; the limit is {OutputLimit:N0}");
+                    throw new ScriptRuntimeException(at,
+                        $"The template made a text of {text.Length:N0} characters; the limit is {OutputLimit:N0}");
                 case System.Collections.ICollection list when list.Count > ItemLimit:
-                    throw new ScriptRuntimeException(at, $"The template made a list or range of {list.Count:N0} items; the limit is {ItemLimit:N0}");
+                    throw new ScriptRuntimeException(at,
+                        $"The template made a list or range of {list.Count:N0} items; the limit is {ItemLimit:N0}");
             }
             return result;
         }
@@ -144,7 +165,9 @@ public sealed class BriefTemplate
 
         private static int Checked(SourceSpan span, int value) =>
             value is > IntegerLimit or < -IntegerLimit
-                ? throw new ScriptRuntimeException(span, $"A whole number given to a function or operator must be between −{IntegerLimit:N0} and {IntegerLimit:N0}. Got {value:N0}")
+                ? throw new ScriptRuntimeException(span,
+                    $"A whole number given to a function or operator must be between −{IntegerLimit:N0} and " +
+                    $"{IntegerLimit:N0}. Got {value:N0}")
                 : value;
     }
 

@@ -12,8 +12,11 @@ public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language
     public IReadOnlyList<string> Fixed => new[] { T("caveat.not_forecasts"), T("caveat.optimum"),
         T("caveat.official") };
 
-    /// <summary>Usual ranges for a parameter check; the bounds are common practice in growth accounting, not rules.</summary>
-    private static readonly (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
+    /// <summary>
+    /// Usual ranges for a parameter check; the bounds are common practice in growth accounting, not rules.
+    /// </summary>
+    private static readonly
+        (string Label, Func<ModelInputs, double?> Get, double Low, double High, bool Percent)[] UsualRanges =
     {
         ("caveat.name.saving_rate", i => i.Production.SavingRate, 0.10, 0.40, true),
         ("caveat.name.capital_share", i => i.Production.CapitalShare, 0.25, 0.45, true),
@@ -65,9 +68,11 @@ public sealed class Caveats(BriefLanguage language) : TemplateFunctions(language
                     yield return T("caveat.even_pv", Label(o.OptionId), Pct(o.ProbabilityPositivePv.Estimate, 0));
             }
         var headline = a.Reform.Options.FirstOrDefault(o => o.OptionId == a.HeadlineOptionId);
-        if (headline?.PresentValues[0] is { Total: null } pv && scenario.Analysis.Discounts.FirstOrDefault(d => d.Id == pv.ScheduleId) is { } schedule)
+        if (headline?.PresentValues[0] is { Total: null } pv
+            && scenario.Analysis.Discounts.FirstOrDefault(d => d.Id == pv.ScheduleId) is { } schedule)
             yield return T("caveat.horizon_only", a.Reform.ReformYear + a.Reform.HorizonYears,
-                T("caveat.tail_infinite", Pct(schedule.Steps[^1].Rate), Pct(scenario.Inputs.Production.TechnologyGrowth)));
+                T("caveat.tail_infinite", Pct(schedule.Steps[^1].Rate),
+                    Pct(scenario.Inputs.Production.TechnologyGrowth)));
         if (a.Reform.Optimum.SchoolingYears > 20)
             yield return T("caveat.discounted_long", Years(a.Reform.Optimum.SchoolingYears));
     }

@@ -14,17 +14,22 @@ public sealed class Equations(BriefLanguage language) : TemplateFunctions(langua
         // Display equations in the math notation the composer typesets (docs/templates.md): $$ … $$ on their own; the
         // words around them are texts of the brief's language.
         sb.Append(T("eq.worker_share")).Append("\n\n")
-          .Append("$$\\omega(E) = p \\cdot \\frac{\\int_{a_0+E}^{R} e^{-na}\\, l(a)\\, da}{\\int_{0}^{\\Omega} e^{-na}\\, l(a)\\, da}$$\n\n");
+          .Append("$$\\omega(E) = p \\cdot \\frac{\\int_{a_0+E}^{R} e^{-na}\\, l(a)\\, da}{\\int_{0}^{\\Omega} " +
+              "e^{-na}\\, l(a)\\, da}$$\n\n");
         sb.Append(T("eq.human_capital", ScheduleText(inputs.HumanCapital))).Append("\n\n")
-          .Append(inputs.HumanCapital.Experience is null ? "$$h(E) = e^{\\phi(E)}$$\n\n" : "$$h(E) = e^{\\phi(E)}, \\quad m(x) = e^{\\beta_1 x - \\beta_2 x^2}$$\n\n");
+          .Append(inputs.HumanCapital.Experience is null
+              ? "$$h(E) = e^{\\phi(E)}$$\n\n"
+              : "$$h(E) = e^{\\phi(E)}, \\quad m(x) = e^{\\beta_1 x - \\beta_2 x^2}$$\n\n");
         sb.Append(T("eq.production", Num(r.SteadyState.OutputPerEffectiveWorker, 4))).Append("\n\n")
-          .Append("$$Y = K^{\\alpha} (A H)^{1-\\alpha}, \\quad \\ln \\hat{y}^{*} = \\frac{\\alpha}{1-\\alpha} \\ln \\frac{s}{n+g+\\delta}$$\n\n");
+          .Append("$$Y = K^{\\alpha} (A H)^{1-\\alpha}, \\quad \\ln \\hat{y}^{*} = \\frac{\\alpha}{1-\\alpha} \\ln " +
+              "\\frac{s}{n+g+\\delta}$$\n\n");
         sb.Append(T("eq.output_per_person")).Append("\n\n")
           .Append("$$y = \\hat{y}^{*} \\cdot A \\cdot h(E) \\cdot \\omega(E)$$\n\n");
         sb.Append(T("eq.optimum")).Append("\n\n")
           .Append("$$W^{*} = \\frac{-\\ln(1 - n/r)}{n}, \\quad E^{*} = R - a_0 - W^{*}$$\n\n");
         sb.Append("**").Append(T("eq.method_notes")).Append("** ");
-        sb.Append(inputs.Demography.Survival is RectangularSurvival ? T("eq.rectangular") : T("eq.quadrature")).Append(' ');
+        sb.Append(inputs.Demography.Survival is RectangularSurvival ? T("eq.rectangular") : T("eq.quadrature"))
+            .Append(' ');
         sb.Append(r.Optimum.Method == OptimumMethod.ClosedForm
             ? T("eq.closed_form")
             : T(r.Optimum.Diagnostics.Converged ? "eq.search" : "eq.search_not_converged",
@@ -41,10 +46,13 @@ public sealed class Equations(BriefLanguage language) : TemplateFunctions(langua
         string schooling = hc.Returns switch
         {
             ConstantReturn c => T("eq.return_constant", Pct(c.Rate)),
-            BracketReturns b => T("eq.return_brackets", string.Join(", ", b.Brackets.Select(x => T("eq.bracket", Pct(x.Rate), Num(x.FromYear, 0))))),
+            BracketReturns b => T("eq.return_brackets",
+                string.Join(", ", b.Brackets.Select(x => T("eq.bracket", Pct(x.Rate), Num(x.FromYear, 0))))),
             PowerReturn p => T("eq.return_power", Sig(p.Theta, 3), Sig(p.Psi, 3)),
             _ => T("eq.return_given"),
         };
-        return hc.Experience is { } e ? T("eq.experience", schooling, Sig(e.Linear, 3), Sig(e.Quadratic, 3)) : schooling;
+        return hc.Experience is { } e
+            ? T("eq.experience", schooling, Sig(e.Linear, 3), Sig(e.Quadratic, 3))
+            : schooling;
     }
 }

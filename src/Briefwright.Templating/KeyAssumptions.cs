@@ -3,7 +3,9 @@ using Briefwright.Scenario;
 
 namespace Briefwright.Templating;
 
-/// <summary>The short assumptions table for the body: the assumptions that move the headline most, ranked by the tornado.</summary>
+/// <summary>
+/// The short assumptions table for the body: the assumptions that move the headline most, ranked by the tornado.
+/// </summary>
 public sealed class KeyAssumptions(BriefLanguage language) : TemplateFunctions(language)
 {
     public const int MaxRows = 8;
@@ -17,11 +19,18 @@ public sealed class KeyAssumptions(BriefLanguage language) : TemplateFunctions(l
         ["return_scale"] = "human_capital.returns",
     };
 
-    /// <summary>Shown when the scenario gives no sensitivity ranges: the assumptions the model's answer rests on, unranked.</summary>
-    private static readonly string[] Core = { "human_capital.returns", "demography.population_growth", "demography.retirement_age", "demography.participation", "production.saving_rate", "production.capital_share" };
+    /// <summary>
+    /// Shown when the scenario gives no sensitivity ranges: the assumptions the model's answer rests on, unranked.
+    /// </summary>
+    private static readonly string[] Core =
+    {
+        "human_capital.returns", "demography.population_growth", "demography.retirement_age",
+        "demography.participation", "production.saving_rate", "production.capital_share",
+    };
 
     private Assumption? Find(ScenarioDocument s, string path) =>
-        s.Assumptions.FirstOrDefault(a => a.Path == path) ?? s.Assumptions.FirstOrDefault(a => a.Path.StartsWith(path + ".", StringComparison.Ordinal));
+        s.Assumptions.FirstOrDefault(a => a.Path == path)
+            ?? s.Assumptions.FirstOrDefault(a => a.Path.StartsWith(path + ".", StringComparison.Ordinal));
 
     public string Table(ScenarioDocument s, AnalysisResults a)
     {
@@ -32,8 +41,12 @@ public sealed class KeyAssumptions(BriefLanguage language) : TemplateFunctions(l
             {
                 var def = Parameters.Find(t.Parameter)!;
                 var row = Find(s, Paths.GetValueOrDefault(t.Parameter, ""));
-                string value = t.Parameter == "return_scale" ? T("key.return_scale_value") : row is null ? (def.IsRate ? Pct(def.Get(s.Inputs)) : Sig(def.Get(s.Inputs), 3)) : row.Text ?? BriefModelBuilder.FormatValue(row);
-                string range = t.Parameter == "return_scale" ? T("key.range", "×" + Sig(t.Low, 3), "×" + Sig(t.High, 3)) : def.IsRate ? T("key.range", Pct(t.Low), Pct(t.High)) : T("key.range", Sig(t.Low, 3), Sig(t.High, 3));
+                string value = t.Parameter == "return_scale" ? T("key.return_scale_value")
+                    : row is null ? (def.IsRate ? Pct(def.Get(s.Inputs)) : Sig(def.Get(s.Inputs), 3))
+                    : row.Text ?? BriefModelBuilder.FormatValue(row);
+                string range = t.Parameter == "return_scale" ? T("key.range", "×" + Sig(t.Low, 3), "×" + Sig(t.High, 3))
+                    : def.IsRate ? T("key.range", Pct(t.Low), Pct(t.High))
+                    : T("key.range", Sig(t.Low, 3), Sig(t.High, 3));
                 return (IReadOnlyList<string>)new[]
                 {
                     AnalysisModel.ParameterLabel(t.Parameter, t.Label), value, range,
@@ -42,7 +55,8 @@ public sealed class KeyAssumptions(BriefLanguage language) : TemplateFunctions(l
                 };
             });
             return Md.Table(T("key.caption_ranked", headline), T("key.source", s.Brief.Id),
-                new[] { T("key.assumption"), T("table.value"), T("key.range_tested"), T("key.change_across") }, rows, new HashSet<int> { 1, 2, 3 });
+                new[] { T("key.assumption"), T("table.value"), T("key.range_tested"), T("key.change_across") }, rows,
+                new HashSet<int> { 1, 2, 3 });
         }
         var core = Core.Select(p => Find(s, p)).Where(r => r is not null).Select(r => (IReadOnlyList<string>)new[]
         {

@@ -14,5 +14,7 @@ public sealed class ProbabilityWords(BriefLanguage language) : TemplateFunctions
         : T("probability.some", Pct(p.Estimate, 1), Pct(p.Low, 1), Pct(p.High, 1));
 
     public string Cell(Probability p) =>
-        p.Count == p.Draws ? T("probability.or_more", Pct(p.Low, 1)) : p.Count == 0 ? T("probability.or_less", Pct(p.High, 1)) : $"{Pct(p.Estimate, 1)} ({Pct(p.Low, 1)}–{Pct(p.High, 1)})";
+        p.Count == p.Draws ? T("probability.or_more", Pct(p.Low, 1))
+        : p.Count == 0 ? T("probability.or_less", Pct(p.High, 1))
+        : $"{Pct(p.Estimate, 1)} ({Pct(p.Low, 1)}–{Pct(p.High, 1)})";
 }

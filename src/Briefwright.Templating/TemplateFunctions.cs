@@ -4,10 +4,10 @@ using Scriban.Runtime;
 namespace Briefwright.Templating;
 
 /// <summary>
-/// Number and date formatting for templates (<c>pct</c>, <c>change</c>, <c>num</c>, <c>sig</c>, <c>big</c>, <c>years</c>,
-/// <c>pv</c>, <c>prob</c>, <c>date</c>), applying one policy written in docs/templates.md: changes in percent to one
-/// decimal, years to one decimal, present values to two significant figures, probabilities from a sample never as
-/// 0% or 100%, no exponent notation.
+/// Number and date formatting for templates (<c>pct</c>, <c>change</c>, <c>num</c>, <c>sig</c>, <c>big</c>,
+/// <c>years</c>, <c>pv</c>, <c>prob</c>, <c>date</c>), applying one policy written in docs/templates.md: changes in
+/// percent to one decimal, years to one decimal, present values to two significant figures, probabilities from a
+/// sample never as 0% or 100%, no exponent notation.
 /// </summary>
 public class TemplateFunctions(BriefLanguage language)
 {
@@ -44,15 +44,22 @@ public class TemplateFunctions(BriefLanguage language)
         int whole = s.IndexOf('.') is var dot and >= 0 ? dot : s.Length;
         var language = L;
         // Below the language's minimum grouping (Spanish writes 2000 but 20 000), no separator at all.
-        if (whole - s.Count(c => c == ',') < 4 + language.MinimumGroupingDigits - 1) s = s.Replace(",", "", StringComparison.Ordinal);
-        s = s.Replace(",", "\u0001", StringComparison.Ordinal).Replace(".", language.Decimal, StringComparison.Ordinal).Replace("\u0001", language.Group, StringComparison.Ordinal);
+        if (whole - s.Count(c => c == ',') < 4 + language.MinimumGroupingDigits - 1)
+            s = s.Replace(",", "", StringComparison.Ordinal);
+        s = s.Replace(",", "\u0001", StringComparison.Ordinal).Replace(".", language.Decimal, StringComparison.Ordinal)
+            .Replace("\u0001", language.Group, StringComparison.Ordinal);
         return (value < 0 ? "−" : "") + s;
     }
 
-    /// <summary>Years, always to one decimal (the same precision beside each other): 34.51 → "34.5 years"; 28 → "28.0 years".</summary>
+    /// <summary>
+    /// Years, always to one decimal (the same precision beside each other): 34.51 → "34.5 years"; 28 → "28.0 years".
+    /// </summary>
     public string Years(double value, int digits = 1) => L.Format("unit.years", Fixed(value, digits));
 
-    /// <summary>A present value to two significant figures: 0.8213 → "0.82", 3.449 → "3.4", 0.002 → "&lt; 0.01", −0.004 → "&gt; −0.01".</summary>
+    /// <summary>
+    /// A present value to two significant figures: 0.8213 → "0.82", 3.449 → "3.4", 0.002 → "&lt; 0.01",
+    /// −0.004 → "&gt; −0.01".
+    /// </summary>
     public string Pv(double value)
     {
         if (value == 0) return "0";
@@ -60,7 +67,11 @@ public class TemplateFunctions(BriefLanguage language)
         int magnitude = (int)Math.Floor(Math.Log10(Math.Abs(value)));
         int decimals = Math.Max(0, 1 - magnitude);
         double rounded = Math.Round(value, decimals);
-        if (Math.Abs(rounded) >= 10) { decimals = 0; rounded = Math.Round(value / Math.Pow(10, magnitude - 1)) * Math.Pow(10, magnitude - 1); }
+        if (Math.Abs(rounded) >= 10)
+        {
+            decimals = 0;
+            rounded = Math.Round(value / Math.Pow(10, magnitude - 1)) * Math.Pow(10, magnitude - 1);
+        }
         return Fixed(rounded, decimals);
     }
 
@@ -157,7 +168,9 @@ public class TemplateFunctions(BriefLanguage language)
 
     private string FixedInvariant(double value, int digits)
     {
-        if (!double.IsFinite(value)) throw new InvalidOperationException($"A number to be printed in the brief is not finite. Got {value.ToString(Invariant)}.");
+        if (!double.IsFinite(value))
+            throw new InvalidOperationException(
+                $"A number to be printed in the brief is not finite. Got {value.ToString(Invariant)}.");
         string s = Math.Round(value, Math.Clamp(digits, 0, 15)).ToString("F" + Math.Clamp(digits, 0, 15), Invariant);
         if (s.StartsWith('-')) s = s.TrimStart('-') is var abs && abs.Trim('0', '.').Length == 0 ? abs : "−" + abs;
         return s;

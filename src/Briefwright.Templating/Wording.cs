@@ -20,7 +20,10 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
         _ => "none",
     };
 
-    /// <summary>"would raise long-run output per person by 4.1%", "would lower … by 2.7%" or "would leave … unchanged (to one decimal)".</summary>
+    /// <summary>
+    /// "would raise long-run output per person by 4.1%", "would lower … by 2.7%" or "would leave … unchanged (to one
+    /// decimal)".
+    /// </summary>
     public string Effect(double changePct) => HeadlineFacts.Of(changePct) switch
     {
         Direction.Rise => T("effect.raise", Outcome, Magnitude(changePct)),
@@ -45,7 +48,8 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
     /// <summary>How a lever reads inside a sentence.</summary>
     public string LeverName(string lever) => lever switch
     {
-        Model.Core.Levers.Schooling or Model.Core.Levers.RetirementAge or Model.Core.Levers.Participation => T("lever." + lever),
+        Model.Core.Levers.Schooling or Model.Core.Levers.RetirementAge or Model.Core.Levers.Participation =>
+            T("lever." + lever),
         _ => lever.Replace('_', ' '),
     };
 
@@ -57,7 +61,10 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
         _ => string.Join(", ", items.Take(items.Count - 1)) + T("list.and") + items[^1],
     };
 
-    /// <summary>The shape of a sequence of values: "rises", "falls", "stays the same", "rises, then falls", "falls, then rises" or "rises and falls more than once".</summary>
+    /// <summary>
+    /// The shape of a sequence of values: "rises", "falls", "stays the same", "rises, then falls", "falls, then rises"
+    /// or "rises and falls more than once".
+    /// </summary>
     public string Trend(IReadOnlyList<double> values)
     {
         var steps = new List<int>();
@@ -90,7 +97,9 @@ public sealed class Wording(BriefLanguage language) : TemplateFunctions(language
         {
             string first = T("arrival.dip", UpTo(h.DeepestDipPct!.Value), h.DipCalendarYear);
             if (h.FirstYearAbove is { } above) return T("arrival.dip_then_above", first, above);
-            return h.FirstYearBelow is not null ? T("arrival.dip_still_below", first, end) : T("arrival.sentence", first);
+            return h.FirstYearBelow is not null
+                ? T("arrival.dip_still_below", first, end)
+                : T("arrival.sentence", first);
         }
         if (h.FirstYearBelow is { } below && h.PeakGainPct is { } peak && h.PeakYear < below)
             return T("arrival.peak_then_below", UpTo(peak), h.PeakYear, below);

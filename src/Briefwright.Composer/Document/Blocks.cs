@@ -44,12 +44,17 @@ public sealed record TableBlock(
     string? Source) : Block;
 
 /// <summary>A vector chart: a one-page PDF drawn to <see cref="WidthPt"/> × <see cref="HeightPt"/> points.</summary>
-public sealed record FigureBlock(string Id, byte[] Pdf, int Page, double WidthPt, double HeightPt, string Caption, string? Source, string AltText) : Block;
+public sealed record FigureBlock(
+    string Id, byte[] Pdf, int Page, double WidthPt, double HeightPt, string Caption, string? Source,
+    string AltText) : Block;
 
 /// <summary>A shaded box (key findings): a title and blocks inside; kept on one page.</summary>
 public sealed record BoxBlock(string? Title, IReadOnlyList<Block> Content) : Block;
 
 public sealed record PageBreakBlock : Block;
 
-/// <summary>A display equation written in the math notation (<see cref="Layout.MathNotation"/>); <see cref="Line"/> is its line in the text.</summary>
+/// <summary>
+/// A display equation written in the math notation (<see cref="Layout.MathNotation"/>); <see cref="Line"/> is its line
+/// in the text.
+/// </summary>
 public sealed record MathBlock(string Source, int Line = 0) : Block;

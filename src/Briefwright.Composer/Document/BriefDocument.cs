@@ -21,7 +21,9 @@ public sealed record DocumentInfo(
     /// <summary>A PNG logo drawn at the top right of the first page, with its pixel size.</summary>
     public (byte[] Png, int Width, int Height)? Logo { get; init; }
 
-    /// <summary>A marker such as "DRAFT" drawn at the top of every page (as page furniture, not content); null for none.</summary>
+    /// <summary>
+    /// A marker such as "DRAFT" drawn at the top of every page (as page furniture, not content); null for none.
+    /// </summary>
     public string? Marker { get; init; }
 
     /// <summary>The page number in the brief's language, {0} the page and {1} the count.</summary>

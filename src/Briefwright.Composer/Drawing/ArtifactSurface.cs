@@ -29,11 +29,13 @@ public sealed class ArtifactSurface(IDrawingSurface inner) : IDrawingSurface
     {
     }
 
-    public void Text(string text, double x, double baseline, FontSpec font, Rgb color) => inner.Text(text, x, baseline, font, color);
+    public void Text(string text, double x, double baseline, FontSpec font, Rgb color) =>
+        inner.Text(text, x, baseline, font, color);
 
     public void FillRect(Box box, Rgb color) => inner.FillRect(box, color);
 
-    public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) => inner.Line(x1, y1, x2, y2, color, width);
+    public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) =>
+        inner.Line(x1, y1, x2, y2, color, width);
 
     public void Figure(string id, byte[] pdf, int page, Box box) => inner.Figure(id, pdf, page, box);
 

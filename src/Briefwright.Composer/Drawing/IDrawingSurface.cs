@@ -42,7 +42,9 @@ public interface IDrawingSurface
 
     void EndTag();
 
-    /// <summary>Marks what follows as decoration (running header, rules, shading) until <see cref="EndArtifact"/>.</summary>
+    /// <summary>
+    /// Marks what follows as decoration (running header, rules, shading) until <see cref="EndArtifact"/>.
+    /// </summary>
     void BeginArtifact();
 
     void EndArtifact();
@@ -54,7 +56,9 @@ public interface IDrawingSurface
 
     void Line(double x1, double y1, double x2, double y2, Rgb color, double width);
 
-    /// <summary>Places page <paramref name="page"/> (1-based) of a vector PDF scaled into <paramref name="box"/>.</summary>
+    /// <summary>
+    /// Places page <paramref name="page"/> (1-based) of a vector PDF scaled into <paramref name="box"/>.
+    /// </summary>
     void Figure(string id, byte[] pdf, int page, Box box);
 
     /// <summary>

@@ -28,7 +28,8 @@ public sealed class PdfSurface : IDrawingSurface
         structure = UAManager.ForDocument(document).StructureBuilder;
     }
 
-    private XGraphics G => gfx ?? throw new InvalidOperationException("Draw calls must come between BeginPage and EndPage.");
+    private XGraphics G =>
+        gfx ?? throw new InvalidOperationException("Draw calls must come between BeginPage and EndPage.");
 
     public void BeginPage(int pageIndex, double width, double height)
     {
@@ -106,7 +107,8 @@ public sealed class PdfSurface : IDrawingSurface
 
     private XSolidBrush Brush(Rgb c)
     {
-        if (!brushes.TryGetValue(c, out var brush)) brushes[c] = brush = new XSolidBrush(XColor.FromArgb(c.R, c.G, c.B));
+        if (!brushes.TryGetValue(c, out var brush))
+            brushes[c] = brush = new XSolidBrush(XColor.FromArgb(c.R, c.G, c.B));
         return brush;
     }
 
@@ -139,9 +141,11 @@ public sealed class PdfSurface : IDrawingSurface
     public void BeginLink(Box box, string url, string text)
     {
         double h = page!.Height.Point;
-        var rect = new PdfRectangle(new XPoint(box.X, h - box.Y - box.Height), new XPoint(box.X + box.Width, h - box.Y));
+        var rect = new PdfRectangle(
+            new XPoint(box.X, h - box.Y - box.Height), new XPoint(box.X + box.Width, h - box.Y));
         var link = PdfSharp.Pdf.Annotations.PdfLinkAnnotation.CreateWebLink(rect, url);
-        // Optional entries PDFsharp fills from the clock and a random GUID: left out, so the bytes depend on content only.
+        // Optional entries PDFsharp fills from the clock and a random GUID: left out, so the bytes depend on content
+        // only.
         link.Elements.Remove("/NM");
         link.Elements.Remove("/M");
         structure.BeginElement(link, LinkAlternative(text, url));

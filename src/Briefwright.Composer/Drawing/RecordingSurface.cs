@@ -5,7 +5,8 @@ namespace Briefwright.Composer.Drawing;
 /// <summary>Keeps every drawing operation with its page, so tests can assert positions without a PDF.</summary>
 public sealed class RecordingSurface : IDrawingSurface
 {
-    public sealed record Op(int Page, string Kind, string Text, double X, double Y, double Width = 0, double Height = 0);
+    public sealed record Op(
+        int Page, string Kind, string Text, double X, double Y, double Width = 0, double Height = 0);
 
     private readonly List<Op> ops = new();
     private int page = -1;
@@ -25,7 +26,9 @@ public sealed class RecordingSurface : IDrawingSurface
     public void EndPage()
     {
         // A structure element may continue on the next page; an artifact may not.
-        if (artifacts != 0) throw new InvalidOperationException($"Artifacts must be closed at the end of a page. Got {artifacts} open.");
+        if (artifacts != 0)
+            throw new InvalidOperationException(
+                $"Artifacts must be closed at the end of a page. Got {artifacts} open.");
     }
 
     public void BeginTag(StructTag tag, string? altText = null, Box? bounds = null)
@@ -45,8 +48,10 @@ public sealed class RecordingSurface : IDrawingSurface
         ops.Add(new Op(page, "text", text, x, baseline, 0, font.Size));
 
     public void FillRect(Box box, Rgb color) => ops.Add(new Op(page, "rect", "", box.X, box.Y, box.Width, box.Height));
-    public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) => ops.Add(new Op(page, "line", "", x1, y1, x2 - x1, y2 - y1));
-    public void Figure(string id, byte[] pdf, int chartPage, Box box) => ops.Add(new Op(page, "figure", id, box.X, box.Y, box.Width, box.Height));
+    public void Line(double x1, double y1, double x2, double y2, Rgb color, double width) =>
+        ops.Add(new Op(page, "line", "", x1, y1, x2 - x1, y2 - y1));
+    public void Figure(string id, byte[] pdf, int chartPage, Box box) =>
+        ops.Add(new Op(page, "figure", id, box.X, box.Y, box.Width, box.Height));
     public void BeginLink(Box box, string url, string text)
     {
         depth++;

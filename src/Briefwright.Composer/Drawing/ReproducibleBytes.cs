@@ -44,13 +44,16 @@ public static partial class ReproducibleBytes
         "        <pdfuaid:part>1</pdfuaid:part>\r\n" +
         "      </rdf:Description>\r\n";
 
-    /// <summary>Fixes the random fields; with <paramref name="pdfUa"/>, also declares PDF/UA-1 in the XMP metadata.</summary>
+    /// <summary>
+    /// Fixes the random fields; with <paramref name="pdfUa"/>, also declares PDF/UA-1 in the XMP metadata.
+    /// </summary>
     public static byte[] Fix(byte[] pdf, DateOnly date, bool pdfUa = true)
     {
         var file = PdfObjects.Parse(pdf);
         foreach (var obj in file.Objects)
             if (obj.IsXmpMetadata)
-                obj.StreamText = new PdfObjects.Text(Encoding.Latin1.GetString(Xmp(obj.Stream!, date, pdfUa)), obj.Head.Order + 1);
+                obj.StreamText = new PdfObjects.Text(
+                    Encoding.Latin1.GetString(Xmp(obj.Stream!, date, pdfUa)), obj.Head.Order + 1);
 
         string stamp = date.ToString("yyyyMMdd", CultureInfo.InvariantCulture) + "000000";
         var texts = file.Texts().ToList();
@@ -79,7 +82,8 @@ public static partial class ReproducibleBytes
                 fields.Add(new Field(t, m.Groups[2].Index, m.Groups[2].Length, 'H'));
             }
             foreach (Match m in Uuid().Matches(s)) fields.Add(new Field(t, m.Groups[1].Index, 36, 'U'));
-            foreach (Match m in AnnotationName().Matches(s)) fields.Add(new Field(t, m.Groups[1].Index, m.Groups[1].Length, 'H'));
+            foreach (Match m in AnnotationName().Matches(s))
+                fields.Add(new Field(t, m.Groups[1].Index, m.Groups[1].Length, 'H'));
         }
         return fields;
     }
@@ -188,7 +192,9 @@ public static partial class ReproducibleBytes
             public required Text Head { get; init; }
             public byte[]? Stream { get; set; }
 
-            /// <summary>The stream as rewritable text (the uncompressed XMP metadata only); replaces <see cref="Stream"/>.</summary>
+            /// <summary>
+            /// The stream as rewritable text (the uncompressed XMP metadata only); replaces <see cref="Stream"/>.
+            /// </summary>
             public Text? StreamText { get; set; }
 
             public required string After { get; init; }
@@ -238,11 +244,13 @@ public static partial class ReproducibleBytes
                 int data = end + (s[end] == '\r' ? 2 : 1);
                 string head = s[pos..data];
                 var length = StreamLength().Match(head);
-                if (!length.Success || length.Groups[2].Success) throw Bad($"stream of object {number} without a direct /Length");
+                if (!length.Success || length.Groups[2].Success)
+                    throw Bad($"stream of object {number} without a direct /Length");
                 int count = int.Parse(length.Groups[1].Value, CultureInfo.InvariantCulture);
                 int after = data + count;
                 int endObj = s.IndexOf("endobj", after, StringComparison.Ordinal);
-                if (endObj < 0 || s.IndexOf("endstream", after, StringComparison.Ordinal) is var es && (es < 0 || es > endObj))
+                if (endObj < 0
+                    || s.IndexOf("endstream", after, StringComparison.Ordinal) is var es && (es < 0 || es > endObj))
                     throw Bad($"object {number}: endstream not found after its /Length");
                 int next = endObj + "endobj".Length;
                 while (next < s.Length && s[next] is '\r' or '\n') next++;
@@ -278,7 +286,8 @@ public static partial class ReproducibleBytes
                 string head = o.Head.Value;
                 byte[]? stream = o.StreamText is { } text ? Encoding.Latin1.GetBytes(text.Value) : o.Stream;
                 if (o.StreamText is not null)
-                    head = StreamLength().Replace(head, "/Length " + stream!.Length.ToString(CultureInfo.InvariantCulture), 1);
+                    head = StreamLength().Replace(
+                        head, "/Length " + stream!.Length.ToString(CultureInfo.InvariantCulture), 1);
                 output.Write(Encoding.Latin1.GetBytes(head));
                 if (stream is not null) output.Write(stream);
                 output.Write(Encoding.Latin1.GetBytes(o.After));
@@ -289,7 +298,8 @@ public static partial class ReproducibleBytes
             table.Append("0000000000 65535 f \n");
             for (int i = 1; i < size; i++)
                 table.Append(offsets[i] == 0 ? "0000000000 65535 f \n" : $"{offsets[i]:D10} 00000 n \n");
-            table.Append(trailer.Value).Append("startxref\n").Append(xref.ToString(CultureInfo.InvariantCulture)).Append(tail);
+            table.Append(trailer.Value).Append("startxref\n").Append(xref.ToString(CultureInfo.InvariantCulture))
+                .Append(tail);
             output.Write(Encoding.Latin1.GetBytes(table.ToString()));
             return output.ToArray();
         }

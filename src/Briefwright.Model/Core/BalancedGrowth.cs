@@ -7,14 +7,16 @@ namespace Briefwright.Model.Core;
 public static class BalancedGrowth
 {
     /// <summary>n + g + δ: the rate at which capital per effective worker is diluted.</summary>
-    public static double EffectiveDepreciation(Demography d, Production p) => d.GrowthRate + p.TechnologyGrowth + p.Depreciation;
+    public static double EffectiveDepreciation(Demography d, Production p) =>
+        d.GrowthRate + p.TechnologyGrowth + p.Depreciation;
 
     /// <summary>ŷ* = (s/(n+g+δ))^(α/(1−α)).</summary>
     public static double OutputPerEffectiveWorker(Demography d, Production p) =>
         Math.Pow(p.SavingRate / EffectiveDepreciation(d, p), p.CapitalShare / (1 - p.CapitalShare));
 
     /// <summary>Output per person of one option on the balanced growth path (technology level 1).</summary>
-    public static double OutputPerPerson(ModelInputs inputs, PolicyOption option, double? population = null, bool fast = false)
+    public static double OutputPerPerson(
+        ModelInputs inputs, PolicyOption option, double? population = null, bool fast = false)
     {
         var cycle = new LifeCycle(inputs.DemographyFor(option), inputs.HumanCapital, population, fast);
         return OutputPerEffectiveWorker(inputs.Demography, inputs.Production) * cycle.Objective(option.SchoolingYears);
@@ -42,7 +44,10 @@ public static class BalancedGrowth
         var baseDemography = inputs.DemographyFor(inputs.Baseline);
         var optimum = OptimumSearch.Find(baseDemography, inputs.HumanCapital, yHat, gridPoints);
         return new BalancedGrowthResults(new SteadyState(yHat, kHat, EffectiveDepreciation(d, p)), options, optimum,
-            Curve(new LifeCycle(baseDemography, inputs.HumanCapital), yHat, CurvePoints)) { Levers = Core.Levers.Decompose(inputs) };
+            Curve(new LifeCycle(baseDemography, inputs.HumanCapital), yHat, CurvePoints))
+        {
+            Levers = Core.Levers.Decompose(inputs)
+        };
     }
 
     public const int CurvePoints = 121;

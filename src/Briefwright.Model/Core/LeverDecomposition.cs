@@ -29,7 +29,10 @@ public static class Levers
     /// </summary>
     public static readonly string[] All = { Schooling, RetirementAge, Participation };
 
-    /// <summary>The levers <paramref name="option"/> sets to a value other than the baseline's, in the order of <see cref="All"/>.</summary>
+    /// <summary>
+    /// The levers <paramref name="option"/> sets to a value other than the baseline's, in the order of
+    /// <see cref="All"/>.
+    /// </summary>
     public static IReadOnlyList<string> Changed(ModelInputs inputs, PolicyOption option)
     {
         var b = inputs.Baseline;
@@ -42,7 +45,9 @@ public static class Levers
         return list;
     }
 
-    /// <summary>Shapley decomposition of every alternative option's balanced-growth change against the baseline.</summary>
+    /// <summary>
+    /// Shapley decomposition of every alternative option's balanced-growth change against the baseline.
+    /// </summary>
     public static IReadOnlyList<LeverDecomposition> Decompose(ModelInputs inputs) =>
         inputs.Options.Where(o => o.Id != inputs.BaselineId).Select(o => Decompose(inputs, o)).ToList();
 
@@ -68,7 +73,8 @@ public static class Levers
         var contributions = new List<LeverContribution>(k);
         for (int i = 0; i < k; i++)
         {
-            // Shapley weight of a coalition S without lever i: |S|!(k − |S| − 1)!/k!, the share of orders in which exactly S comes before i.
+            // Shapley weight of a coalition S without lever i: |S|!(k − |S| − 1)!/k!, the share of orders in which
+            // exactly S comes before i.
             double sum = 0;
             for (int mask = 0; mask < y.Length; mask++)
             {

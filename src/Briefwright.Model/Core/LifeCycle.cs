@@ -58,11 +58,15 @@ public sealed class LifeCycle
     public double WorkerShareByQuadrature(double schooling)
     {
         double pop = Quadrature.Integrate(Density, 0.0, demography.Survival.MaxAge, demography.Survival.Breakpoints);
-        double work = Quadrature.Integrate(Density, demography.EntryAge + schooling, WorkEnd, demography.Survival.Breakpoints);
+        double work = Quadrature.Integrate(
+            Density, demography.EntryAge + schooling, WorkEnd, demography.Survival.Breakpoints);
         return demography.Participation * work / pop;
     }
 
-    /// <summary>Average experience premium e^(β₁x − β₂x²) over the working ages, weighted by the age distribution; 1 without a profile.</summary>
+    /// <summary>
+    /// Average experience premium e^(β₁x − β₂x²) over the working ages, weighted by the age distribution; 1 without a
+    /// profile.
+    /// </summary>
     public double ExperienceFactor(double schooling)
     {
         if (humanCapital.Experience is null) return 1.0;
@@ -76,9 +80,12 @@ public sealed class LifeCycle
 
     /// <summary>h(E)·ω(E), the part of output per person that schooling moves.</summary>
     public double Objective(double schooling) =>
-        Math.Exp(humanCapital.Returns.Phi(schooling)) * demography.Participation * ExperienceWeightedYears(schooling) / Population;
+        Math.Exp(humanCapital.Returns.Phi(schooling)) * demography.Participation * ExperienceWeightedYears(schooling)
+            / Population;
 
-    /// <summary>d ln(h·ω)/dE = φ'(E) − [d(s) + ∫ d(a)·e^m(x)·m'(x) da] / ∫ d(a)·e^m(x) da, with s = a₀ + E, x = a − s.</summary>
+    /// <summary>
+    /// d ln(h·ω)/dE = φ'(E) − [d(s) + ∫ d(a)·e^m(x)·m'(x) da] / ∫ d(a)·e^m(x) da, with s = a₀ + E, x = a − s.
+    /// </summary>
     public double ObjectiveLogSlope(double schooling)
     {
         double start = demography.EntryAge + schooling;
@@ -88,13 +95,15 @@ public sealed class LifeCycle
         if (humanCapital.Experience is { } exp && TiltedKernel.ForCohort(demography, exp, start, WorkEnd) is { } t)
         {
             // (β₁ − 2β₂x) = (β₁ + 2β₂s) − 2β₂a, the same factor as below written as c₀ + c₁a.
-            slopeTerm = Math.Exp(t.LogScale) * t.Kernel.Integrate(start, WorkEnd, t.Lambda, demography.Survival.Breakpoints, fast,
-                exp.Linear + 2 * exp.Quadratic * start, -2 * exp.Quadratic);
+            slopeTerm = Math.Exp(t.LogScale)
+                * t.Kernel.Integrate(start, WorkEnd, t.Lambda, demography.Survival.Breakpoints, fast,
+                    exp.Linear + 2 * exp.Quadratic * start, -2 * exp.Quadratic);
         }
         else if (humanCapital.Experience is { } direct)
         {
             slopeTerm = Quadrature.Integrate(
-                a => Density(a) * Math.Exp(direct.LogPremium(a - start)) * (direct.Linear - 2 * direct.Quadratic * (a - start)),
+                a => Density(a) * Math.Exp(direct.LogPremium(a - start))
+                    * (direct.Linear - 2 * direct.Quadratic * (a - start)),
                 start, WorkEnd, demography.Survival.Breakpoints, fast);
         }
         return humanCapital.Returns.MarginalReturn(schooling) - (Density(start) + slopeTerm) / num;
@@ -105,7 +114,9 @@ public sealed class LifeCycle
         double start = demography.EntryAge + schooling;
         if (humanCapital.Experience is not { } exp) return PersonYears(start, WorkEnd);
         if (TiltedKernel.ForCohort(demography, exp, start, WorkEnd) is { } t)
-            return Math.Exp(t.LogScale) * t.Kernel.Integrate(start, WorkEnd, t.Lambda, demography.Survival.Breakpoints, fast);
-        return Quadrature.Integrate(a => Density(a) * Math.Exp(exp.LogPremium(a - start)), start, WorkEnd, demography.Survival.Breakpoints, fast);
+            return Math.Exp(t.LogScale)
+                * t.Kernel.Integrate(start, WorkEnd, t.Lambda, demography.Survival.Breakpoints, fast);
+        return Quadrature.Integrate(a => Density(a) * Math.Exp(exp.LogPremium(a - start)), start, WorkEnd,
+            demography.Survival.Breakpoints, fast);
     }
 }

@@ -12,7 +12,9 @@ public static class OptimumSearch
     public const int DefaultGridPoints = 400;
     public const double Tolerance = 1e-10;
 
-    public static OptimumResult Find(Demography demography, HumanCapital humanCapital, double outputPerEffectiveWorker, int gridPoints = DefaultGridPoints)
+    public static OptimumResult Find(
+        Demography demography, HumanCapital humanCapital, double outputPerEffectiveWorker,
+        int gridPoints = DefaultGridPoints)
     {
         var cycle = new LifeCycle(demography, humanCapital);
         double eMax = cycle.MaxSchooling;
@@ -48,7 +50,8 @@ public static class OptimumSearch
         }
         double bestF = cycle.Objective(bestE);
         var band = Band(cycle, bestE, bestF * 0.99, eMax);
-        var scaled = maxima.Select(m => m with { OutputPerPerson = m.OutputPerPerson * outputPerEffectiveWorker }).ToList();
+        var scaled = maxima
+            .Select(m => m with { OutputPerPerson = m.OutputPerPerson * outputPerEffectiveWorker }).ToList();
         return new OptimumResult(
             bestE, bestF * outputPerEffectiveWorker, method, whyNot, band, atBoundary, eMax, scaled,
             new SolverDiagnostics(gridPoints + 1, iterations, converged, Tolerance, refinement));
@@ -59,7 +62,8 @@ public static class OptimumSearch
     /// change of d ln(h·ω)/dE, then bisection to 1e-6 years. Used where thousands of evaluations are needed
     /// (Monte Carlo, Sobol, grids), starting from the full search's optimum for the central scenario.
     /// </summary>
-    public static double LocalFrom(Demography demography, HumanCapital humanCapital, double guess, double? population = null, bool fast = false)
+    public static double LocalFrom(
+        Demography demography, HumanCapital humanCapital, double guess, double? population = null, bool fast = false)
     {
         var cycle = new LifeCycle(demography, humanCapital, population, fast);
         double eMax = cycle.MaxSchooling;
@@ -68,12 +72,14 @@ public static class OptimumSearch
         const double step = 2.0;
         if (fLo > 0)
         {
-            do { lo = hi; fLo = fHi; hi = Math.Min(eMax, hi + step); fHi = cycle.ObjectiveLogSlope(hi); } while (hi < eMax && fHi > 0);
+            do { lo = hi; fLo = fHi; hi = Math.Min(eMax, hi + step); fHi = cycle.ObjectiveLogSlope(hi); }
+            while (hi < eMax && fHi > 0);
             if (fHi > 0) return eMax;
         }
         else
         {
-            do { hi = lo; fHi = fLo; lo = Math.Max(0, lo - step); fLo = cycle.ObjectiveLogSlope(lo); } while (lo > 0 && fLo <= 0);
+            do { hi = lo; fHi = fLo; lo = Math.Max(0, lo - step); fLo = cycle.ObjectiveLogSlope(lo); }
+            while (lo > 0 && fLo <= 0);
             if (fLo <= 0) return 0;
         }
         if (double.IsInfinity(fHi)) fHi = -1e6;
@@ -102,7 +108,10 @@ public static class OptimumSearch
         return null;
     }
 
-    /// <summary>Working years at the optimum W* = −ln(1 − n/r)/n (→ 1/r as n → 0); E* = R − a₀ − W*, clamped to the feasible range.</summary>
+    /// <summary>
+    /// Working years at the optimum W* = −ln(1 − n/r)/n (→ 1/r as n → 0); E* = R − a₀ − W*, clamped to the feasible
+    /// range.
+    /// </summary>
     public static double ClosedForm(Demography demography, double rate, double maxSchooling)
     {
         double n = demography.GrowthRate;

@@ -13,7 +13,9 @@ public sealed record OptionAppraisal(string OptionId, ReformPath Path, IReadOnly
     public override int GetHashCode() => HashCode.Combine(OptionId, Path, Same.Hash(PresentValues));
 }
 
-/// <summary>The discounted optimum when value is counted only to <see cref="HorizonYears"/> after the reform (no tail).</summary>
+/// <summary>
+/// The discounted optimum when value is counted only to <see cref="HorizonYears"/> after the reform (no tail).
+/// </summary>
 public sealed record HorizonOptimum(int HorizonYears, double SchoolingYears, double PresentValue);
 
 /// <summary>
@@ -71,7 +73,9 @@ public sealed record AppraisalResults(
 
 public static class Appraisal
 {
-    public static AppraisalResults Run(ModelInputs inputs, ReformSettings reform, IReadOnlyList<DiscountSchedule> schedules, double balancedGrowthOptimum)
+    public static AppraisalResults Run(
+        ModelInputs inputs, ReformSettings reform, IReadOnlyList<DiscountSchedule> schedules,
+        double balancedGrowthOptimum)
     {
         double g = inputs.Production.TechnologyGrowth;
         int o = reform.ValuationOffset;
@@ -88,9 +92,12 @@ public static class Appraisal
     /// <summary>
     /// Grid over E₁ from the baseline to the balanced-growth E* (half-year steps), then golden-section refinement,
     /// for the headline objective (value with its tail when finite, else to the horizon) and for the value cut at half,
-    /// one and twice the horizon. Each candidate is simulated once, to twice the horizon; shorter cuts use its first years.
+    /// one and twice the horizon. Each candidate is simulated once, to twice the horizon; shorter cuts use its first
+    /// years.
     /// </summary>
-    public static DiscountedOptimum FindDiscountedOptimum(ModelInputs inputs, ReformSettings reform, DiscountSchedule schedule, double bgpOptimum, ReformSimulator.Cache? cache = null)
+    public static DiscountedOptimum FindDiscountedOptimum(
+        ModelInputs inputs, ReformSettings reform, DiscountSchedule schedule, double bgpOptimum,
+        ReformSimulator.Cache? cache = null)
     {
         // One cache for every candidate: the population and the baseline cohorts' table are computed once.
         cache ??= new ReformSimulator.Cache();
@@ -99,7 +106,9 @@ public static class Appraisal
         int o = reform.ValuationOffset, h = reform.HorizonYears;
         int[] cuts = { Math.Max(1, h / 2), h, 2 * h };
         var longRun = reform with { HorizonYears = cuts[^1] };
-        double maxE = Math.Min(Math.Max(bgpOptimum, baseline.SchoolingYears), inputs.DemographyFor(baseline).RetirementAge - inputs.Demography.EntryAge - 1);
+        double maxE = Math.Min(
+            Math.Max(bgpOptimum, baseline.SchoolingYears),
+            inputs.DemographyFor(baseline).RetirementAge - inputs.Demography.EntryAge - 1);
         var simulated = new Dictionary<double, ReformPath>();
         ReformPath Path(double e)
         {
@@ -119,14 +128,18 @@ public static class Appraisal
             tailFinite = pv.Total is not null;
             return pv.Counted;
         }
-        var found = Enumerable.Range(0, cuts.Length + 1).Select(k => Maximise(e => Value(e, k), baseline.SchoolingYears, maxE)).ToList();
+        var found = Enumerable.Range(0, cuts.Length + 1)
+            .Select(k => Maximise(e => Value(e, k), baseline.SchoolingYears, maxE))
+            .ToList();
         var (bestE, bestPv) = found[0];
         var byHorizon = cuts.Select((c, k) => new HorizonOptimum(c, found[k + 1].E, found[k + 1].Value)).ToList();
         return new DiscountedOptimum(schedule.Id, bestE, bestPv, tailFinite, bgpOptimum, byHorizon, schedule.Label, h,
             LongerSchoolingPays: bestE > baseline.SchoolingYears);
     }
 
-    /// <summary>The best of a half-year grid above <paramref name="lo"/> (f(lo) = 0), refined by golden section to 0.01 years.</summary>
+    /// <summary>
+    /// The best of a half-year grid above <paramref name="lo"/> (f(lo) = 0), refined by golden section to 0.01 years.
+    /// </summary>
     private static (double E, double Value) Maximise(Func<double, double> f, double lo0, double maxE)
     {
         double bestE = lo0, bestPv = 0;

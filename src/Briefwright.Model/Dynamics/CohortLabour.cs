@@ -72,7 +72,10 @@ internal sealed class CohortLabour
     private double Integrand(double a) =>
         Math.Exp(-n * a) * d.Survival.At(a) * (experience is { } e ? Math.Exp(e.LogPremium(a - start)) : 1.0);
 
-    /// <summary>∫ over working ages between <paramref name="from"/> and <paramref name="to"/> (clamped to [a₀+E, last working age]).</summary>
+    /// <summary>
+    /// ∫ over working ages between <paramref name="from"/> and <paramref name="to"/> (clamped to [a₀+E, last working
+    /// age]).
+    /// </summary>
     public double Between(double from, double to)
     {
         from = Math.Max(from, start);

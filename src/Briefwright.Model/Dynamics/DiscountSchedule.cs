@@ -1,6 +1,8 @@
 namespace Briefwright.Model.Dynamics;
 
-/// <summary>A step of a discount schedule: from <see cref="FromYear"/> on (years counted from 1), the annual rate.</summary>
+/// <summary>
+/// A step of a discount schedule: from <see cref="FromYear"/> on (years counted from 1), the annual rate.
+/// </summary>
 public sealed record DiscountStep(int FromYear, double Rate);
 
 /// <summary>
@@ -8,7 +10,10 @@ public sealed record DiscountStep(int FromYear, double Rate);
 /// </summary>
 public sealed record DiscountSchedule(string Id, string Label, IReadOnlyList<DiscountStep> Steps)
 {
-    /// <summary>HM Treasury Green Book (2003, Table 6.1; kept in 2018/2020): 3.5% for years 0–30, 3.0% 31–75, 2.5% 76–125, 2.0% 126–200, 1.5% 201–300, 1.0% after.</summary>
+    /// <summary>
+    /// HM Treasury Green Book (2003, Table 6.1; kept in 2018/2020): 3.5% for years 0–30, 3.0% 31–75, 2.5% 76–125, 2.0%
+    /// 126–200, 1.5% 201–300, 1.0% after.
+    /// </summary>
     public static DiscountSchedule GreenBook { get; } = new("green-book", "UK Green Book, declining from 3.5%", new[]
     {
         new DiscountStep(1, 0.035), new DiscountStep(31, 0.030), new DiscountStep(76, 0.025),
@@ -23,7 +28,8 @@ public sealed record DiscountSchedule(string Id, string Label, IReadOnlyList<Dis
 
     public static IReadOnlyList<DiscountSchedule> Published { get; } = new[] { GreenBook, Omb3, Omb7 };
 
-    public static DiscountSchedule Constant(string id, string label, double rate) => new(id, label, new[] { new DiscountStep(1, rate) });
+    public static DiscountSchedule Constant(string id, string label, double rate) =>
+        new(id, label, new[] { new DiscountStep(1, rate) });
 
     public double RateInYear(int year)
     {

@@ -1,3 +1,5 @@
+using System.Collections.Concurrent;
+
 namespace Briefwright.Model.Dynamics;
 
 /// <summary>How the value beyond the horizon is treated.</summary>
@@ -34,13 +36,16 @@ public sealed record PresentValue(
     int? BreakEvenCalendarYear,
     TailBasis TailBasis)
 {
-    private static readonly System.Collections.Concurrent.ConcurrentDictionary<(DiscountSchedule Schedule, int Horizon), double[]> FactorCache = new();
+    private static readonly ConcurrentDictionary<(DiscountSchedule Schedule, int Horizon), double[]> FactorCache =
+        new();
 
     /// <summary>The value to the horizon plus the tail where it is finite, else the value to the horizon.</summary>
     public double Counted => Total ?? ToHorizon;
 
-    /// <param name="valuationOffset">Years from the valuation date to the reform year (0: valued at the reform year).</param>
-    public static PresentValue Compute(ReformPath path, DiscountSchedule schedule, double technologyGrowth, int valuationOffset = 0)
+    /// <param name="valuationOffset">Years from the valuation date to the reform year (0: valued at the reform
+    /// year).</param>
+    public static PresentValue Compute(
+        ReformPath path, DiscountSchedule schedule, double technologyGrowth, int valuationOffset = 0)
     {
         int h = path.Horizon, o = CheckOffset(valuationOffset);
         var d = Factors(schedule, o + h);
@@ -50,19 +55,25 @@ public sealed record PresentValue(
         int? breakEven = null;
         for (int t = h; t >= 0 && cumulative[t] > 0; t--) breakEven = t;
         var (tail, note) = TailValue(schedule, d[o + h], o + h, technologyGrowth, path.BalancedGrowthGain);
-        return new PresentValue(schedule.Id, schedule.Label, path.ReformYear - o, d[o], sum, tail, tail is null ? null : sum + tail,
+        return new PresentValue(
+            schedule.Id, schedule.Label, path.ReformYear - o, d[o], sum, tail, tail is null ? null : sum + tail,
             breakEven, path.ReformYear + breakEven, note);
     }
 
-    /// <summary>The present value to the horizon alone, the same sum as <see cref="Compute"/>'s <see cref="ToHorizon"/>; allocates nothing (Monte Carlo and Sobol runs).</summary>
-    public static double ToHorizonOnly(ReformPath path, DiscountSchedule schedule, double technologyGrowth, int valuationOffset = 0)
+    /// <summary>
+    /// The present value to the horizon alone, the same sum as <see cref="Compute"/>'s <see cref="ToHorizon"/>;
+    /// allocates nothing (Monte Carlo and Sobol runs).
+    /// </summary>
+    public static double ToHorizonOnly(
+        ReformPath path, DiscountSchedule schedule, double technologyGrowth, int valuationOffset = 0)
     {
         int o = CheckOffset(valuationOffset);
         return Sum(path, Factors(schedule, o + path.Horizon), technologyGrowth, o, default);
     }
 
     private static int CheckOffset(int offset) =>
-        offset >= 0 ? offset : throw new ArgumentOutOfRangeException(nameof(offset), offset, "The valuation date must not follow the reform year.");
+        offset >= 0 ? offset : throw new ArgumentOutOfRangeException(nameof(offset), offset,
+            "The valuation date must not follow the reform year.");
 
     /// <summary>Schedules and horizons whose factors are kept; a process that meets more (a long batch of briefs with
     /// rules of their own) starts the cache afresh rather than let it grow. Factors are recomputed the same.</summary>
@@ -77,10 +88,14 @@ public sealed record PresentValue(
 
     internal static int CachedFactors => FactorCache.Count;
 
-    /// <summary>Σ_{t=0..H} D(o+t)·e^(g(o+t))·gain(t), with the running sums written to <paramref name="cumulative"/> when it is not empty.</summary>
+    /// <summary>
+    /// Σ_{t=0..H} D(o+t)·e^(g(o+t))·gain(t), with the running sums written to <paramref name="cumulative"/> when it is
+    /// not empty.
+    /// </summary>
     private static double Sum(ReformPath path, double[] d, double technologyGrowth, int offset, Span<double> cumulative)
     {
-        double sum = 0, growth = offset == 0 ? 1 : Math.Exp(technologyGrowth * offset), step = Math.Exp(technologyGrowth);
+        double sum = 0, growth = offset == 0 ? 1 : Math.Exp(technologyGrowth * offset),
+            step = Math.Exp(technologyGrowth);
         for (int t = 0; t <= path.Horizon; t++)
         {
             sum += d[offset + t] * growth * path.Gain[t];

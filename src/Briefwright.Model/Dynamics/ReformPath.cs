@@ -31,5 +31,6 @@ public sealed record ReformPath(
 
     public int Horizon => Gain.Length - 1;
 
-    public static ReformPath Flat(string optionId, int horizon) => new(optionId, new double[horizon + 1], 0, 0, null, null, 0);
+    public static ReformPath Flat(string optionId, int horizon) =>
+        new(optionId, new double[horizon + 1], 0, 0, null, null, 0);
 }

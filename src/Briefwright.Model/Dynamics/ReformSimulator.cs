@@ -39,14 +39,18 @@ public static class ReformSimulator
         }
     }
 
-    public static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache = null) =>
+    public static ReformPath Simulate(
+        ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache = null) =>
         Simulate(inputs, reform, settings, cache, settledShortcut: true);
 
-    /// <param name="settledShortcut">Reuse x(t) once every working cohort is a reform cohort; off only to test that it changes nothing.</param>
-    internal static ReformPath Simulate(ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache, bool settledShortcut)
+    /// <param name="settledShortcut">Reuse x(t) once every working cohort is a reform cohort; off only to test that it
+    /// changes nothing.</param>
+    internal static ReformPath Simulate(
+        ModelInputs inputs, PolicyOption reform, ReformSettings settings, Cache? cache, bool settledShortcut)
     {
         var baseline = inputs.Baseline;
-        if (reform.Id == baseline.Id) return ReformPath.Flat(reform.Id, settings.HorizonYears) with { ReformYear = settings.Year };
+        if (reform.Id == baseline.Id)
+            return ReformPath.Flat(reform.Id, settings.HorizonYears) with { ReformYear = settings.Year };
         cache ??= new Cache();
         var labour = new Labour(inputs, reform, settings.PhaseInCohorts, cache);
         double settled = settledShortcut ? labour.SettledFrom : double.PositiveInfinity;
@@ -176,6 +180,7 @@ public static class ReformSimulator
         int? firstPositive = null;
         for (int t = dip ? dipYear : 0; t < gain.Length; t++)
             if (gain[t] > 0) { firstPositive = t; break; }
-        return new ReformPath(id, gain, gain[^1], bgpGain, dip ? gain[dipYear] : null, dip ? dipYear : null, firstPositive) { ReformYear = reformYear };
+        return new ReformPath(id, gain, gain[^1], bgpGain, dip ? gain[dipYear] : null, dip ? dipYear : null,
+            firstPositive) { ReformYear = reformYear };
     }
 }

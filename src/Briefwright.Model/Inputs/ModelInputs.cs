@@ -1,7 +1,10 @@
 namespace Briefwright.Model.Inputs;
 
-/// <summary>Stable population: growth rate n, school-entry age a₀, retirement age R, survival l(a), participation p.</summary>
-public sealed record Demography(double GrowthRate, double EntryAge, double RetirementAge, Survival Survival, double Participation);
+/// <summary>
+/// Stable population: growth rate n, school-entry age a₀, retirement age R, survival l(a), participation p.
+/// </summary>
+public sealed record Demography(
+    double GrowthRate, double EntryAge, double RetirementAge, Survival Survival, double Participation);
 
 /// <summary>Human capital per worker: schooling returns and an optional experience profile.</summary>
 public sealed record HumanCapital(ReturnSchedule Returns, ExperienceProfile? Experience);
@@ -10,7 +13,8 @@ public sealed record HumanCapital(ReturnSchedule Returns, ExperienceProfile? Exp
 public sealed record Production(double SavingRate, double CapitalShare, double Depreciation, double TechnologyGrowth);
 
 /// <summary>A policy option: years of schooling and, optionally, its own retirement age or participation.</summary>
-public sealed record PolicyOption(string Id, string Label, double SchoolingYears, double? RetirementAge = null, double? Participation = null);
+public sealed record PolicyOption(
+    string Id, string Label, double SchoolingYears, double? RetirementAge = null, double? Participation = null);
 
 /// <summary>Everything the model needs; built by the scenario stage, never read from files here.</summary>
 public sealed record ModelInputs(

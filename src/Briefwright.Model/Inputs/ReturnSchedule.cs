@@ -16,7 +16,9 @@ public sealed record ConstantReturn(double Rate) : ReturnSchedule
     public override double MarginalReturn(double years) => Rate;
 }
 
-/// <summary>One bracket of a piecewise-linear schedule: from <see cref="FromYear"/> on, each year earns <see cref="Rate"/>.</summary>
+/// <summary>
+/// One bracket of a piecewise-linear schedule: from <see cref="FromYear"/> on, each year earns <see cref="Rate"/>.
+/// </summary>
 public sealed record ReturnBracket(double FromYear, double Rate);
 
 /// <summary>Piecewise-linear φ: the return per year changes at bracket edges. The last bracket is open-ended.</summary>
@@ -31,7 +33,9 @@ public sealed record BracketReturns : ReturnSchedule
 
     public IReadOnlyList<ReturnBracket> Brackets { get; }
 
-    /// <summary>Hall &amp; Jones (1999), rates after Psacharopoulos (1994): 13.4% for years 0–4, 10.1% for 4–8, 6.8% beyond.</summary>
+    /// <summary>
+    /// Hall &amp; Jones (1999), rates after Psacharopoulos (1994): 13.4% for years 0–4, 10.1% for 4–8, 6.8% beyond.
+    /// </summary>
     public static BracketReturns HallJones { get; } = new(new[]
     {
         new ReturnBracket(0, 0.134), new ReturnBracket(4, 0.101), new ReturnBracket(8, 0.068),
@@ -66,7 +70,8 @@ public sealed record BracketReturns : ReturnSchedule
 public sealed record PowerReturn(double Theta, double Psi) : ReturnSchedule
 {
     public override double Phi(double years) => years <= 0 ? 0.0 : Theta / (1 - Psi) * Math.Pow(years, 1 - Psi);
-    public override double MarginalReturn(double years) => years <= 0 ? double.PositiveInfinity : Theta * Math.Pow(years, -Psi);
+    public override double MarginalReturn(double years) =>
+        years <= 0 ? double.PositiveInfinity : Theta * Math.Pow(years, -Psi);
 }
 
 /// <summary>Mincer experience profile: log earnings rise by β₁x − β₂x² with x years of work experience.</summary>

@@ -46,7 +46,8 @@ public sealed record TabulatedSurvival : Survival
     public TabulatedSurvival(IReadOnlyList<double> ages, IReadOnlyList<double> survivors)
     {
         if (ages.Count != survivors.Count || ages.Count < 2)
-            throw new ArgumentException($"A life table needs at least two rows of age and survivors. Got {ages.Count} ages and {survivors.Count} values.");
+            throw new ArgumentException("A life table needs at least two rows of age and survivors. Got " +
+                $"{ages.Count} ages and {survivors.Count} values.");
         this.ages = ages.ToArray();
         this.survivors = survivors.ToArray();
     }
@@ -68,7 +69,8 @@ public sealed record TabulatedSurvival : Survival
     }
 
     public bool Equals(TabulatedSurvival? other) =>
-        other is not null && ages.AsSpan().SequenceEqual(other.ages) && survivors.AsSpan().SequenceEqual(other.survivors);
+        other is not null && ages.AsSpan().SequenceEqual(other.ages)
+            && survivors.AsSpan().SequenceEqual(other.survivors);
 
     public override int GetHashCode() => HashCode.Combine(ages.Length, ages[^1], survivors[^1]);
 }

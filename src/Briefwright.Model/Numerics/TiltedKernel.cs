@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using System.Runtime.CompilerServices;
 using Briefwright.Model.Inputs;
 
@@ -12,7 +13,9 @@ namespace Briefwright.Model.Numerics;
 /// </summary>
 public sealed class TiltedKernel
 {
-    /// <summary>Above this |exponent| the caller integrates its own integrand instead (no overflow in e^(λa)).</summary>
+    /// <summary>
+    /// Above this |exponent| the caller integrates its own integrand instead (no overflow in e^(λa)).
+    /// </summary>
     public const double MaxExponent = 600;
 
     private readonly Func<double, double> kernel;
@@ -41,8 +44,11 @@ public sealed class TiltedKernel
     /// <summary>Whether e^(λa) stays finite and accurate up to age <paramref name="upTo"/>.</summary>
     public static bool Safe(double lambda, double upTo) => Math.Abs(lambda) * (Math.Abs(upTo) + 1) < MaxExponent;
 
-    /// <summary>∫_a^b K(x)·e^(λx)·(c₀ + c₁x) dx with panels ending at whole years and at <paramref name="breakpoints"/>.</summary>
-    public double Integrate(double a, double b, double lambda, IReadOnlyList<double>? breakpoints, bool fast, double c0 = 1, double c1 = 0)
+    /// <summary>
+    /// ∫_a^b K(x)·e^(λx)·(c₀ + c₁x) dx with panels ending at whole years and at <paramref name="breakpoints"/>.
+    /// </summary>
+    public double Integrate(
+        double a, double b, double lambda, IReadOnlyList<double>? breakpoints, bool fast, double c0 = 1, double c1 = 0)
     {
         if (!(b > a)) return 0.0;
         var tilt = new Tilt(this, lambda, fast, c0, c1);
@@ -65,7 +71,9 @@ public sealed class TiltedKernel
     /// [a + i − 1, min(b, a + i)], split at breakpoints inside it, written to <paramref name="pieces"/>[1..]; and the
     /// integrand K(x)·e^(λx) at the knots x = min(b, a + i), written to <paramref name="knots"/>[0..].
     /// </summary>
-    public void YearlyPieces(double a, double b, double lambda, IReadOnlyList<double>? breakpoints, bool fast, Span<double> pieces, Span<double> knots)
+    public void YearlyPieces(
+        double a, double b, double lambda, IReadOnlyList<double>? breakpoints, bool fast, Span<double> pieces,
+        Span<double> knots)
     {
         var tilt = new Tilt(this, lambda, fast, 1, 0);
         ReadOnlySpan<double> cuts = Cuts(breakpoints);
@@ -98,7 +106,9 @@ public sealed class TiltedKernel
         }
     }
 
-    /// <summary>Breakpoints as a span (survival curves hand out arrays; interface calls per panel cost more than the panel).</summary>
+    /// <summary>
+    /// Breakpoints as a span (survival curves hand out arrays; interface calls per panel cost more than the panel).
+    /// </summary>
     private static ReadOnlySpan<double> Cuts(IReadOnlyList<double>? breakpoints) =>
         breakpoints is null ? default : breakpoints as double[] ?? breakpoints.ToArray();
 
@@ -144,15 +154,18 @@ public sealed class TiltedKernel
                 if (five)
                 {
                     int o = 5 * j;
-                    s = f0 * sampled[o] * (c0 + c1 * (mid + 0.5 * nodes[0])) + f1 * sampled[o + 1] * (c0 + c1 * (mid + 0.5 * nodes[1]))
-                      + f2 * sampled[o + 2] * (c0 + c1 * (mid + 0.5 * nodes[2])) + f3 * sampled[o + 3] * (c0 + c1 * (mid + 0.5 * nodes[3]))
-                      + f4 * sampled[o + 4] * (c0 + c1 * (mid + 0.5 * nodes[4]));
+                    s = f0 * sampled[o] * (c0 + c1 * (mid + 0.5 * nodes[0]))
+                        + f1 * sampled[o + 1] * (c0 + c1 * (mid + 0.5 * nodes[1]))
+                        + f2 * sampled[o + 2] * (c0 + c1 * (mid + 0.5 * nodes[2]))
+                        + f3 * sampled[o + 3] * (c0 + c1 * (mid + 0.5 * nodes[3]))
+                        + f4 * sampled[o + 4] * (c0 + c1 * (mid + 0.5 * nodes[4]));
                 }
                 else
                 {
                     int o = 3 * j;
-                    s = f0 * sampled[o] * (c0 + c1 * (mid + 0.5 * nodes[0])) + f1 * sampled[o + 1] * (c0 + c1 * (mid + 0.5 * nodes[1]))
-                      + f2 * sampled[o + 2] * (c0 + c1 * (mid + 0.5 * nodes[2]));
+                    s = f0 * sampled[o] * (c0 + c1 * (mid + 0.5 * nodes[0]))
+                        + f1 * sampled[o + 1] * (c0 + c1 * (mid + 0.5 * nodes[1]))
+                        + f2 * sampled[o + 2] * (c0 + c1 * (mid + 0.5 * nodes[2]));
                 }
                 return 0.5 * midFactor * s;
             }
@@ -169,7 +182,7 @@ public sealed class TiltedKernel
     /// <summary>Kernels kept per survival curve (the table itself lets a curve and its kernels go with it).</summary>
     internal const int MaxKernelsPerCurve = 16;
 
-    private static readonly ConditionalWeakTable<Survival, System.Collections.Concurrent.ConcurrentDictionary<double, TiltedKernel>> Cache = new();
+    private static readonly ConditionalWeakTable<Survival, ConcurrentDictionary<double, TiltedKernel>> Cache = new();
 
     /// <summary>
     /// The kernel l(a)·e^(−β₂a²) of a survival curve and an experience curvature β₂ (0 without experience), built
@@ -185,18 +198,21 @@ public sealed class TiltedKernel
         // Bounded: one survival curve meets few curvatures (one per scenario); should a caller vary it, the kernels
         // are rebuilt rather than kept without end (the same kernel is built the same way).
         if (byQuadratic.Count >= MaxKernelsPerCurve) byQuadratic.Clear();
-        return byQuadratic.GetOrAdd(quadratic, q => new TiltedKernel(q == 0 ? survival.At : a => survival.At(a) * Math.Exp(-q * a * a), survival.MaxAge));
+        return byQuadratic.GetOrAdd(quadratic,
+            q => new TiltedKernel(q == 0 ? survival.At : a => survival.At(a) * Math.Exp(-q * a * a), survival.MaxAge));
     }
 
     /// <summary>
-    /// e^(−na)·l(a)·e^(β₁x − β₂x²) with x = a − s, as C·K(a)·e^(λa): the kernel, λ = β₁ + 2β₂s − n and log C = −β₁s − β₂s².
-    /// Null when that form could overflow before <paramref name="upTo"/>.
+    /// e^(−na)·l(a)·e^(β₁x − β₂x²) with x = a − s, as C·K(a)·e^(λa): the kernel, λ = β₁ + 2β₂s − n and log C = −β₁s −
+    /// β₂s². Null when that form could overflow before <paramref name="upTo"/>.
     /// </summary>
-    public static (TiltedKernel Kernel, double Lambda, double LogScale)? ForCohort(Demography d, ExperienceProfile? e, double s, double upTo)
+    public static (TiltedKernel Kernel, double Lambda, double LogScale)? ForCohort(
+        Demography d, ExperienceProfile? e, double s, double upTo)
     {
         double b1 = e?.Linear ?? 0, b2 = e?.Quadratic ?? 0;
         double lambda = b1 + 2 * b2 * s - d.GrowthRate, logScale = -b1 * s - b2 * s * s;
-        if (!Safe(lambda, upTo) || !(Math.Abs(logScale) < MaxExponent) || For(d.Survival, b2) is not { } kernel) return null;
+        if (!Safe(lambda, upTo) || !(Math.Abs(logScale) < MaxExponent) || For(d.Survival, b2) is not { } kernel)
+            return null;
         return (kernel, lambda, logScale);
     }
 }

@@ -66,10 +66,15 @@ public sealed record OptimumResult(
 }
 
 /// <summary>Balanced-growth quantities shared by all options.</summary>
-public sealed record SteadyState(double OutputPerEffectiveWorker, double CapitalPerEffectiveWorker, double EffectiveDepreciation);
+public sealed record SteadyState(
+    double OutputPerEffectiveWorker, double CapitalPerEffectiveWorker, double EffectiveDepreciation);
 
-/// <summary>One point of the schooling curve: worker share, human capital and output per person at schooling E (baseline demography).</summary>
-public sealed record CurvePoint(double SchoolingYears, double WorkerShare, double HumanCapitalPerWorker, double OutputPerPerson);
+/// <summary>
+/// One point of the schooling curve: worker share, human capital and output per person at schooling E (baseline
+/// demography).
+/// </summary>
+public sealed record CurvePoint(
+    double SchoolingYears, double WorkerShare, double HumanCapitalPerWorker, double OutputPerPerson);
 
 public sealed record BalancedGrowthResults(
     SteadyState SteadyState,
@@ -77,6 +82,8 @@ public sealed record BalancedGrowthResults(
     OptimumResult Optimum,
     IReadOnlyList<CurvePoint> SchoolingCurve)
 {
-    /// <summary>Every alternative's change split by lever (schooling, retirement age, participation), independent of order.</summary>
+    /// <summary>
+    /// Every alternative's change split by lever (schooling, retirement age, participation), independent of order.
+    /// </summary>
     public IReadOnlyList<Core.LeverDecomposition> Levers { get; init; } = [];
 }

@@ -18,10 +18,14 @@ public sealed record AnalysisResults(
 
 public static class AnalysisRunner
 {
-    public static readonly string[] SobolOutputs = { "headline_long_run_change_pct", "optimum_schooling_years", "headline_present_value" };
+    public static readonly string[] SobolOutputs =
+        { "headline_long_run_change_pct", "optimum_schooling_years", "headline_present_value" };
 
-    /// <param name="maxThreads">Threads the Monte Carlo, Sobol and sensitivity loops may use (<see cref="ModelThreads"/>).</param>
-    public static AnalysisResults Run(ModelInputs inputs, AnalysisSettings settings, BalancedGrowthResults bgp, int maxThreads = ModelThreads.AllCores)
+    /// <param name="maxThreads">Threads the Monte Carlo, Sobol and sensitivity loops may use
+    /// (<see cref="ModelThreads"/>).</param>
+    public static AnalysisResults Run(
+        ModelInputs inputs, AnalysisSettings settings, BalancedGrowthResults bgp,
+        int maxThreads = ModelThreads.AllCores)
     {
         double guess = bgp.Optimum.SchoolingYears;
         var reform = Appraisal.Run(inputs, settings.Reform, settings.Discounts, guess);
@@ -40,7 +44,8 @@ public static class AnalysisRunner
     /// <summary>The seed of the Sobol samples: the scenario's, changed so they are not the Monte Carlo draws.</summary>
     public static ulong SobolSeed(MonteCarloSpec spec) => spec.Seed ^ 0x5AB0_1D5EUL;
 
-    private static GlobalSensitivity Sobol(ModelInputs inputs, AnalysisSettings settings, MonteCarloSpec spec, double guess, int maxThreads)
+    private static GlobalSensitivity Sobol(
+        ModelInputs inputs, AnalysisSettings settings, MonteCarloSpec spec, double guess, int maxThreads)
     {
         var names = spec.Parameters.Select(p => p.Parameter).ToList();
         var indices = Uncertainty.Sobol.Estimate(spec.Parameters.Count, spec.SobolSamples, SobolSeed(spec), names, u =>

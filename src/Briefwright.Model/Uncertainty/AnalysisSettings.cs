@@ -5,13 +5,20 @@ namespace Briefwright.Model.Uncertainty;
 /// <summary>One-at-a-time range for a parameter (data behind a tornado chart).</summary>
 public sealed record SensitivityRange(string Parameter, double Low, double High);
 
-/// <summary>A two-way grid over two parameters; <see cref="Output"/> is "optimum" (E*) or "change" (headline option's long-run change).</summary>
-public sealed record GridSpec(string X, double XLow, double XHigh, string Y, double YLow, double YHigh, int Steps, string Output);
+/// <summary>
+/// A two-way grid over two parameters; <see cref="Output"/> is "optimum" (E*) or "change" (headline option's long-run
+/// change).
+/// </summary>
+public sealed record GridSpec(
+    string X, double XLow, double XHigh, string Y, double YLow, double YHigh, int Steps, string Output);
 
 public sealed record UncertainParameter(string Parameter, Distribution Distribution);
 
-/// <summary>Monte Carlo and Sobol settings: draws and seed come from the scenario, so a brief is reproducible.</summary>
-public sealed record MonteCarloSpec(int Draws, ulong Seed, IReadOnlyList<UncertainParameter> Parameters, int SobolSamples);
+/// <summary>
+/// Monte Carlo and Sobol settings: draws and seed come from the scenario, so a brief is reproducible.
+/// </summary>
+public sealed record MonteCarloSpec(
+    int Draws, ulong Seed, IReadOnlyList<UncertainParameter> Parameters, int SobolSamples);
 
 /// <summary>Everything beyond the balanced growth path that a scenario asks for.</summary>
 public sealed record AnalysisSettings(

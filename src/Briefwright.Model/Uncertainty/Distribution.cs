@@ -1,6 +1,8 @@
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>A parameter distribution, sampled by its inverse CDF so that Monte Carlo and Sobol sampling share one route.</summary>
+/// <summary>
+/// A parameter distribution, sampled by its inverse CDF so that Monte Carlo and Sobol sampling share one route.
+/// </summary>
 public abstract record Distribution
 {
     /// <summary>The value whose cumulative probability is <paramref name="u"/> (0 &lt; u &lt; 1).</summary>
@@ -18,7 +20,9 @@ public sealed record NormalDistribution(double Mu, double Sigma) : Distribution
     public override string Describe(Func<double, string> f) => $"normal, mean {f(Mu)}, s.d. {f(Sigma)}";
 }
 
-/// <summary>A normal truncated to [Low, High]: the quantile is taken within the normal's probability mass of that interval.</summary>
+/// <summary>
+/// A normal truncated to [Low, High]: the quantile is taken within the normal's probability mass of that interval.
+/// </summary>
 public sealed record TruncatedNormalDistribution(double Mu, double Sigma, double Low, double High) : Distribution
 {
     private double PLow => NormalQuantile.Cdf((Low - Mu) / Sigma);
@@ -39,7 +43,8 @@ public sealed record TruncatedNormalDistribution(double Mu, double Sigma, double
         }
     }
 
-    public override string Describe(Func<double, string> f) => $"truncated normal, mean {f(Mu)}, s.d. {f(Sigma)}, within {f(Low)} to {f(High)}";
+    public override string Describe(Func<double, string> f) =>
+        $"truncated normal, mean {f(Mu)}, s.d. {f(Sigma)}, within {f(Low)} to {f(High)}";
 }
 
 public sealed record UniformDistribution(double Low, double High) : Distribution
@@ -60,7 +65,8 @@ public sealed record TriangularDistribution(double Low, double Mode, double High
     }
 
     public override double Mean => (Low + Mode + High) / 3;
-    public override string Describe(Func<double, string> f) => $"triangular, {f(Low)} to {f(High)}, most likely {f(Mode)}";
+    public override string Describe(Func<double, string> f) =>
+        $"triangular, {f(Low)} to {f(High)}, most likely {f(Mode)}";
 }
 
 /// <summary>ln X ~ N(ln Median, SigmaLog²).</summary>
@@ -68,5 +74,6 @@ public sealed record LognormalDistribution(double Median, double SigmaLog) : Dis
 {
     public override double Quantile(double u) => Median * Math.Exp(SigmaLog * NormalQuantile.Standard(u));
     public override double Mean => Median * Math.Exp(SigmaLog * SigmaLog / 2);
-    public override string Describe(Func<double, string> f) => $"lognormal, median {f(Median)}, s.d. of log {SigmaLog:0.###}";
+    public override string Describe(Func<double, string> f) =>
+        $"lognormal, median {f(Median)}, s.d. of log {SigmaLog:0.###}";
 }

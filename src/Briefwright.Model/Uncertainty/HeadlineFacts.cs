@@ -2,7 +2,9 @@ using Briefwright.Model.Results;
 
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>Which way a change goes once shown to one decimal: a change that rounds to zero is <see cref="None"/>.</summary>
+/// <summary>
+/// Which way a change goes once shown to one decimal: a change that rounds to zero is <see cref="None"/>.
+/// </summary>
 public enum Direction
 {
     None,
@@ -35,7 +37,9 @@ public sealed record HeadlineFacts(
 {
     /// <summary>The direction of a percentage change once rounded to <paramref name="digits"/> decimals.</summary>
     public static Direction Of(double changePct, int digits = 1) =>
-        Math.Round(changePct, digits) > 0 ? Direction.Rise : Math.Round(changePct, digits) < 0 ? Direction.Fall : Direction.None;
+        Math.Round(changePct, digits) > 0
+            ? Direction.Rise
+            : Math.Round(changePct, digits) < 0 ? Direction.Fall : Direction.None;
 
     public static HeadlineFacts From(BalancedGrowthResults results, AnalysisResults analysis) =>
         From(OptionOutcomes.From(results, analysis).Headline, analysis.Reform);
@@ -54,7 +58,8 @@ public sealed record HeadlineFacts(
         int peak = 0;
         for (int t = 1; t < gain.Length; t++) if (gain[t] > gain[peak]) peak = t;
         var pv = o.PresentValues[0];
-        return new HeadlineFacts(id, change, Of(change), mc?.LongRunChangePct.P5, mc?.LongRunChangePct.P95, mc?.ProbabilityGain.Estimate,
+        return new HeadlineFacts(id, change, Of(change),
+            mc?.LongRunChangePct.P5, mc?.LongRunChangePct.P95, mc?.ProbabilityGain.Estimate,
             o.Path.DipDepth is { } dip ? 100 * dip : null, o.Path.DipYear is { } dy ? y0 + dy : null,
             gain[peak] > 0 ? 100 * gain[peak] : null, gain[peak] > 0 ? y0 + peak : null,
             o.Path.FirstPositiveYear is { } fp ? y0 + fp : null, below is { } b ? y0 + b : null,

@@ -34,10 +34,15 @@ public sealed record KeyResults(
 public static class KeyResultsEvaluator
 {
     /// <param name="headlineOnly">Evaluate the headline option alone (the result lists then hold just it).</param>
-    /// <param name="headlinePath">Where to copy the headline option's reform path (horizon + 1 values); empty to skip.</param>
-    public static KeyResults Evaluate(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool headlineOnly = false, Span<double> headlinePath = default)
+    /// <param name="headlinePath">Where to copy the headline option's reform path (horizon + 1 values); empty to
+    /// skip.</param>
+    public static KeyResults Evaluate(
+        ModelInputs inputs, AnalysisSettings settings, double optimumGuess, bool headlineOnly = false,
+        Span<double> headlinePath = default)
     {
-        var alternatives = inputs.Options.Where(o => o.Id != inputs.BaselineId && (!headlineOnly || o.Id == settings.HeadlineOptionId)).ToList();
+        var alternatives = inputs.Options
+            .Where(o => o.Id != inputs.BaselineId && (!headlineOnly || o.Id == settings.HeadlineOptionId))
+            .ToList();
         var cache = new ReformSimulator.Cache(fast: true);
         double baseY = cache.OutputPerPerson(inputs, inputs.Baseline);
         var change = new double[alternatives.Count];
@@ -46,10 +51,14 @@ public static class KeyResultsEvaluator
         {
             change[i] = 100 * (cache.OutputPerPerson(inputs, alternatives[i]) / baseY - 1);
             var path = ReformSimulator.Simulate(inputs, alternatives[i], settings.Reform, cache);
-            pv[i] = PresentValue.ToHorizonOnly(path, settings.Headline, inputs.Production.TechnologyGrowth, settings.Reform.ValuationOffset);
-            if (!headlinePath.IsEmpty && alternatives[i].Id == settings.HeadlineOptionId) path.Gain.CopyTo(headlinePath);
+            pv[i] = PresentValue.ToHorizonOnly(
+                path, settings.Headline, inputs.Production.TechnologyGrowth, settings.Reform.ValuationOffset);
+            if (!headlinePath.IsEmpty && alternatives[i].Id == settings.HeadlineOptionId)
+                path.Gain.CopyTo(headlinePath);
         }
-        double optimum = OptimumSearch.LocalFrom(inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess, cache.Population(inputs), fast: true);
+        double optimum = OptimumSearch.LocalFrom(
+            inputs.DemographyFor(inputs.Baseline), inputs.HumanCapital, optimumGuess, cache.Population(inputs),
+            fast: true);
         return new KeyResults(alternatives.Select(o => o.Id).ToList(), change, pv, optimum);
     }
 }

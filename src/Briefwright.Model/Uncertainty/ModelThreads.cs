@@ -9,7 +9,8 @@ public static class ModelThreads
     /// <summary>Any value below 1 means one thread per core.</summary>
     public const int AllCores = -1;
 
-    public static ParallelOptions Options(int maxThreads) => new() { MaxDegreeOfParallelism = maxThreads < 1 ? -1 : maxThreads };
+    public static ParallelOptions Options(int maxThreads) =>
+        new() { MaxDegreeOfParallelism = maxThreads < 1 ? -1 : maxThreads };
 
     /// <summary>
     /// f(0), …, f(n − 1) in order, computed in parallel. Parallel.For rather than PLINQ: the results are the same,

@@ -2,10 +2,15 @@ using Briefwright.Model.Inputs;
 
 namespace Briefwright.Model.Uncertainty;
 
-/// <summary>Percentiles 5, 25, 50, 75, 95 and the mean of one result over the accepted draws (the fan chart's data; summaries add their precision, <see cref="PercentileSummary"/>).</summary>
+/// <summary>
+/// Percentiles 5, 25, 50, 75, 95 and the mean of one result over the accepted draws (the fan chart's data; summaries
+/// add their precision, <see cref="PercentileSummary"/>).
+/// </summary>
 public sealed record Percentiles(double P5, double P25, double P50, double P75, double P95, double Mean)
 {
-    /// <summary>The percentiles of <paramref name="sorted"/>, which is sorted in place (callers pass an array of their own).</summary>
+    /// <summary>
+    /// The percentiles of <paramref name="sorted"/>, which is sorted in place (callers pass an array of their own).
+    /// </summary>
     public static Percentiles Of(double[] sorted)
     {
         Array.Sort(sorted);
@@ -20,10 +25,17 @@ public sealed record Percentiles(double P5, double P25, double P50, double P75, 
     }
 }
 
-/// <summary>One option's Monte Carlo results: the long-run change (percent) and the present value to the horizon (years of output per person at the valuation date), and the probabilities of a gain and of a positive present value.</summary>
-public sealed record OptionUncertainty(string OptionId, PercentileSummary LongRunChangePct, PercentileSummary PresentValue, Probability ProbabilityGain, Probability ProbabilityPositivePv);
+/// <summary>
+/// One option's Monte Carlo results: the long-run change (percent) and the present value to the horizon (years of
+/// output per person at the valuation date), and the probabilities of a gain and of a positive present value.
+/// </summary>
+public sealed record OptionUncertainty(
+    string OptionId, PercentileSummary LongRunChangePct, PercentileSummary PresentValue, Probability ProbabilityGain,
+    Probability ProbabilityPositivePv);
 
-/// <summary>Monte Carlo results: distributions of the key results, probabilities, and a fan of the headline path.</summary>
+/// <summary>
+/// Monte Carlo results: distributions of the key results, probabilities, and a fan of the headline path.
+/// </summary>
 public sealed record MonteCarloResults(
     int Draws,
     int Rejected,
@@ -47,7 +59,8 @@ public static class MonteCarlo
     public const int MaxAttemptsPerDraw = 20;
 
     /// <summary>Maps uniforms in (0,1) to parameter values through each distribution's quantile function.</summary>
-    public static ModelInputs Apply(ModelInputs inputs, IReadOnlyList<UncertainParameter> parameters, ReadOnlySpan<double> u)
+    public static ModelInputs Apply(
+        ModelInputs inputs, IReadOnlyList<UncertainParameter> parameters, ReadOnlySpan<double> u)
     {
         for (int j = 0; j < parameters.Count; j++)
             inputs = Parameters.Find(parameters[j].Parameter)!.Set(inputs, parameters[j].Distribution.Quantile(u[j]));
@@ -59,7 +72,8 @@ public static class MonteCarlo
     /// over threads. A draw whose inputs break a model rule is rejected, counted and replaced by the next attempt of
     /// the same stream.
     /// </summary>
-    public static MonteCarloResults Run(ModelInputs inputs, AnalysisSettings settings, double optimumGuess, int maxThreads = ModelThreads.AllCores)
+    public static MonteCarloResults Run(
+        ModelInputs inputs, AnalysisSettings settings, double optimumGuess, int maxThreads = ModelThreads.AllCores)
     {
         var spec = settings.MonteCarlo ?? throw new ArgumentException("No Monte Carlo settings.");
         int d = spec.Parameters.Count;
@@ -78,14 +92,16 @@ public static class MonteCarlo
                 for (int j = 0; j < d; j++) u[j] = rng.NextOpenUnit();
                 var trial = Apply(inputs, spec.Parameters, u);
                 if (Parameters.Violation(trial) is not null) { rejected[i]++; continue; }
-                results[i] = KeyResultsEvaluator.Evaluate(trial, settings, optimumGuess, headlinePath: paths.AsSpan(i * width, width));
+                results[i] = KeyResultsEvaluator.Evaluate(
+                    trial, settings, optimumGuess, headlinePath: paths.AsSpan(i * width, width));
                 return;
             }
         });
         var acceptedDraws = Enumerable.Range(0, spec.Draws).Where(i => results[i] is not null).ToArray();
         var accepted = acceptedDraws.Select(i => results[i]!).ToList();
         if (accepted.Count < spec.Draws / 2)
-            throw new ModelRuleException($"Monte Carlo: {rejected.Sum()} draws broke a model rule and only {accepted.Count} of {spec.Draws} were accepted; narrow the distributions.");
+            throw new ModelRuleException($"Monte Carlo: {rejected.Sum()} draws broke a model rule and only " +
+                $"{accepted.Count} of {spec.Draws} were accepted; narrow the distributions.");
         var ids = accepted[0].OptionIds;
         var options = ids.Select((id, k) => new OptionUncertainty(
             id,

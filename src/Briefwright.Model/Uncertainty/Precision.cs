@@ -19,13 +19,16 @@ public sealed record Probability(double Estimate, int Count, int Draws, double L
 
 /// <summary>
 /// Percentiles 5, 25, 50, 75, 95 and the mean of one result over the accepted draws, each with its Monte Carlo
-/// precision: a 95% distribution-free interval for each percentile from order statistics, and the mean's standard error.
+/// precision: a 95% distribution-free interval for each percentile from order statistics, and the mean's standard
+/// error.
 /// </summary>
 public sealed record PercentileSummary(
     double P5, double P25, double P50, double P75, double P95, double Mean, double MeanStandardError,
     Interval P5Interval, Interval P25Interval, Interval P50Interval, Interval P75Interval, Interval P95Interval)
 {
-    /// <summary>The summary of <paramref name="sample"/>, which is sorted in place (callers pass an array of their own).</summary>
+    /// <summary>
+    /// The summary of <paramref name="sample"/>, which is sorted in place (callers pass an array of their own).
+    /// </summary>
     public static PercentileSummary Of(double[] sample)
     {
         var p = Percentiles.Of(sample);

@@ -65,7 +65,8 @@ public static class Sobol
     }
 
     /// <param name="f">The model on the unit cube: d uniforms in (0,1) to several outputs.</param>
-    public static IReadOnlyList<SobolIndices> Estimate(int d, int n, ulong seed, IReadOnlyList<string> inputNames, Func<double[], double[]?> f,
+    public static IReadOnlyList<SobolIndices> Estimate(
+        int d, int n, ulong seed, IReadOnlyList<string> inputNames, Func<double[], double[]?> f,
         int maxThreads = ModelThreads.AllCores, int resamples = DefaultResamples, double level = DefaultLevel)
     {
         var a = new double[n][];
@@ -91,15 +92,21 @@ public static class Sobol
             }
         });
         // Rows where any evaluation broke a model rule are dropped from every estimator alike.
-        var rows = Enumerable.Range(0, n).Where(r => fa[r] is not null && fb[r] is not null && Enumerable.Range(0, d).All(i => fab[i, r] is not null)).ToArray();
+        var rows = Enumerable.Range(0, n)
+            .Where(r => fa[r] is not null && fb[r] is not null
+                && Enumerable.Range(0, d).All(i => fab[i, r] is not null))
+            .ToArray();
         int m = rows.Length;
         if (m < MinRows(n))
-            throw new ModelRuleException($"Sobol indices: only {m} of {n} base samples met every model rule in all {d + 2} of their runs " +
-                $"(at least {MinRows(n)} must); narrow the distributions, or set uncertainty.sobol_samples to 0 to skip the indices.");
+            throw new ModelRuleException($"Sobol indices: only {m} of {n} base samples met every model rule in all " +
+                $"{d + 2} of their runs (at least {MinRows(n)} must); narrow the distributions, or set " +
+                "uncertainty.sobol_samples to 0 to skip the indices.");
         int outputs = fa[rows[0]]!.Length;
-        // Resample s draws its rows from its own stream, so every output sees the same resamples and threads change nothing.
+        // Resample s draws its rows from its own stream, so every output sees the same resamples and threads change
+        // nothing.
         ulong bootSeed = seed ^ 0xB007_57A9_0000_0001UL;
-        return ModelThreads.Map(outputs, maxThreads, k => Output(k, d, rows, fa, fb, fab, inputNames, bootSeed, resamples, level));
+        return ModelThreads.Map(
+            outputs, maxThreads, k => Output(k, d, rows, fa, fb, fab, inputNames, bootSeed, resamples, level));
     }
 
     /// <summary>The indices of output <paramref name="k"/> over the accepted rows, with bootstrap intervals.</summary>
@@ -136,8 +143,11 @@ public static class Sobol
         return new SobolIndices(inputNames, first, fLow, fHigh, total, tLow, tHigh, variance, m, resamples, level);
     }
 
-    /// <summary>The estimators over the rows listed in <paramref name="pick"/> (all rows, or a bootstrap resample).</summary>
-    private static (double[] First, double[] Total, double Variance) Indices(double[] yA, double[] yB, double[][] yAB, int[] pick)
+    /// <summary>
+    /// The estimators over the rows listed in <paramref name="pick"/> (all rows, or a bootstrap resample).
+    /// </summary>
+    private static (double[] First, double[] Total, double Variance) Indices(
+        double[] yA, double[] yB, double[][] yAB, int[] pick)
     {
         int d = yAB.Length, m = pick.Length;
         // Variance of the output over the A and B rows together (2m values).
