@@ -7,18 +7,27 @@ namespace Briefwright.Cli;
 /// clock (read only for the build log's time stamps). Tests pass their own.</summary>
 public sealed record CliIo(TextWriter Out, TextWriter Err, TextReader In, bool Interactive, TimeProvider Clock);
 
-/// <summary>The command tree. Every command writes to the given writers and returns an exit code, so tests run it in process.</summary>
+/// <summary>
+/// The command tree. Every command writes to the given writers and returns an exit code, so tests run it in process.
+/// </summary>
 public static class CliApp
 {
-    public static int Run(string[] args, TextWriter output, TextWriter error, bool interactive = false, TextReader? input = null, TimeProvider? clock = null) =>
+    public static int Run(
+        string[] args,
+        TextWriter output,
+        TextWriter error,
+        bool interactive = false,
+        TextReader? input = null,
+        TimeProvider? clock = null) =>
         Run(args, new CliIo(output, error, input ?? TextReader.Null, interactive, clock ?? TimeProvider.System));
 
     public static int Run(string[] args, CliIo io)
     {
         if (args is ["build", ..]) Speed.HeadStart();
         var root = new RootCommand(
-            "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief (PDF) on " +
-            "schooling length, demography and long-run output per person, with its numbers also written as data.\n\n" +
+            "briefwright turns a scenario file (YAML) and a text template into a dated, reproducible policy brief " +
+            "(PDF) on schooling length, demography and long-run output per person, with its numbers also written " +
+            "as data.\n\n" +
             "Start with:  briefwright init my-briefs,  briefwright check briefs-demo,\n" +
             "             briefwright solve briefs-demo/auroria-national.yaml,\n" +
             "             briefwright build briefs-demo   (writes briefs-demo/out/<id>-<date>.pdf)\n" +
@@ -38,12 +47,17 @@ public static class CliApp
         {
             io.Err.WriteLine(usage.Message);
             io.Err.WriteLine(usage.Hint);
-            if (usage.Command == "build" && !args.Contains("--plan")) BuildCommand.LogUsageError(args, usage.Message, io); // a plan writes nothing
+            // a plan writes nothing
+            if (usage.Command == "build" && !args.Contains("--plan"))
+                BuildCommand.LogUsageError(args, usage.Message, io);
             return ExitCodes.InvalidInput;
         }
         // Each command reports its stages' failures (StageErrors); what escapes one is a fault of the tool, reported in
         // one line rather than as the parser's stack trace.
-        var config = new InvocationConfiguration { Output = io.Out, Error = io.Err, EnableDefaultExceptionHandler = false };
+        var config = new InvocationConfiguration
+        {
+            Output = io.Out, Error = io.Err, EnableDefaultExceptionHandler = false,
+        };
         try
         {
             return parsed.Invoke(config);

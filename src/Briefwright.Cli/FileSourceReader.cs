@@ -11,7 +11,8 @@ public sealed class FileSourceReader : ISourceReader
 
     public bool TryRead(string path, out string text, out string error) => Read(path, null, out text, out error);
 
-    public bool TryReadInside(string path, string root, out string text, out string error) => Read(path, root, out text, out error);
+    public bool TryReadInside(string path, string root, out string text, out string error) =>
+        Read(path, root, out text, out error);
 
     public bool TryReadBytes(string path, string root, long maxBytes, out byte[] bytes, out string error) =>
         SafeFile.TryReadBytes(path, root, maxBytes, out bytes, out error);

@@ -7,7 +7,8 @@ public static class Program
         try
         {
             if (args is ["build", ..]) Batch.StopSignal.Install(Console.Error);
-            return CliApp.Run(args, Console.Out, Console.Error, interactive: !Console.IsOutputRedirected, input: Console.In);
+            return CliApp.Run(
+                args, Console.Out, Console.Error, interactive: !Console.IsOutputRedirected, input: Console.In);
         }
         catch (Exception ex)
         {

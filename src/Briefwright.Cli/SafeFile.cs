@@ -20,17 +20,26 @@ public static unsafe class SafeFile
             var info = new FileInfo(path);
             if (!info.Exists)
             {
-                error = info.LinkTarget is not null ? "it is a symbolic link to a file that does not exist" : "no such file";
+                error = info.LinkTarget is not null
+                    ? "it is a symbolic link to a file that does not exist"
+                    : "no such file";
                 return false;
             }
-            if (Kind(path) is { } kind && kind != "a regular file") { error = $"it is {kind}, not a regular file"; return false; }
+            if (Kind(path) is { } kind && kind != "a regular file")
+            {
+                error = $"it is {kind}, not a regular file";
+                return false;
+            }
             string? real = RealPath(path);
-            if (real is not null && (real.StartsWith("/proc/", StringComparison.Ordinal) || real.StartsWith("/sys/", StringComparison.Ordinal) || real.StartsWith("/dev/", StringComparison.Ordinal)))
+            if (real is not null && (real.StartsWith("/proc/", StringComparison.Ordinal)
+                || real.StartsWith("/sys/", StringComparison.Ordinal)
+                || real.StartsWith("/dev/", StringComparison.Ordinal)))
             {
                 error = "it is a system file (under /proc, /sys or /dev), not a regular file";
                 return false;
             }
-            if (root is not null && real is not null && RealPath(root) is { } realRoot && !Scenario.ProjectRoot.IsInside(real, realRoot))
+            if (root is not null && real is not null && RealPath(root) is { } realRoot
+                && !Scenario.ProjectRoot.IsInside(real, realRoot))
             {
                 error = "a symbolic link leads it out of the project folder";
                 return false;
@@ -65,12 +74,14 @@ public static unsafe class SafeFile
     /// <summary>Text with its byte-order mark honoured (UTF-8 without one), as File.ReadAllText reads it.</summary>
     public static string Decode(byte[] bytes)
     {
-        using var reader = new StreamReader(new MemoryStream(bytes), Encoding.UTF8, detectEncodingFromByteOrderMarks: true);
+        using var reader = new StreamReader(
+            new MemoryStream(bytes), Encoding.UTF8, detectEncodingFromByteOrderMarks: true);
         return reader.ReadToEnd();
     }
 
     private static string TooLarge(long size, long max, bool atLeast = false) =>
-        $"the file is {(atLeast ? "more than " : "")}{Scenario.Numbers.Count(atLeast ? max : size)} bytes, over the limit of {Scenario.Numbers.Count(max)} bytes";
+        $"the file is {(atLeast ? "more than " : "")}{Scenario.Numbers.Count(atLeast ? max : size)} bytes, over the " +
+        $"limit of {Scenario.Numbers.Count(max)} bytes";
 
     // statx(2) and realpath(3) from the C library, found at run time (no import needed where they do not exist).
     private static readonly Lazy<(nint Statx, nint RealPath)> Libc = new(() =>
@@ -96,7 +107,8 @@ public static unsafe class SafeFile
         byte* buffer = stackalloc byte[256];
         int rc;
         fixed (byte* p = name)
-            rc = ((delegate* unmanaged<int, byte*, int, uint, byte*, int>)statx)(-100 /* AT_FDCWD */, p, 0, 0x1 /* STATX_TYPE */, buffer);
+            rc = ((delegate* unmanaged<int, byte*, int, uint, byte*, int>)statx)(
+                -100 /* AT_FDCWD */, p, 0, 0x1 /* STATX_TYPE */, buffer);
         if (rc != 0) return null;
         int mode = *(ushort*)(buffer + 28) & 0xF000;
         return mode switch

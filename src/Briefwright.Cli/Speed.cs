@@ -27,7 +27,8 @@ public static class Speed
             {
                 _ = StandardTemplate.Template;
                 _ = BatchBuilder.FontsHash.Value;
-                Manifest.Parse("""{"id":"a","stem":"a-2000-01-01","edition":1,"hash":"0","inputs":{"tool":"0"},"files":["a.pdf"]}""");
+                Manifest.Parse("""{"id":"a","stem":"a-2000-01-01","edition":""" +
+                    """1,"hash":"0","inputs":{"tool":"0"},"files":["a.pdf"]}""");
             }
             catch (Exception)
             {
@@ -36,7 +37,9 @@ public static class Speed
         });
     }
 
-    /// <summary>The first brief a process will build: its output libraries start up on a spare core meanwhile.</summary>
+    /// <summary>
+    /// The first brief a process will build: its output libraries start up on a spare core meanwhile.
+    /// </summary>
     public static void WarmUp() => global::Briefwright.Cli.WarmUp.Start();
 
     /// <summary>

@@ -22,7 +22,9 @@ internal static class WarmUp
     /// <summary>Starts the warm-up once per process; later calls do nothing.</summary>
     public static Task Start() => Started.Value;
 
-    /// <summary>One warm-up pass; false if any library failed on the tiny brief (then the real brief pays the start-up).</summary>
+    /// <summary>
+    /// One warm-up pass; false if any library failed on the tiny brief (then the real brief pays the start-up).
+    /// </summary>
     internal static bool Run()
     {
         try
@@ -36,9 +38,11 @@ internal static class WarmUp
                     "# {{ title }}\n\nText with **bold** and *italic*.\n\n"
                     + "| a | b |\n|---|--:|\n| {{ title }} | 1.0 |\n\n[[figure: warm]]\n", "warm-up")
                 .Render(new Scriban.Runtime.ScriptObject { ["title"] = "Warm-up" });
-            var figure = new FigureBlock("warm", chart, 1, ChartRenderer.Width, ChartRenderer.Height, "Warm-up", null, "Warm-up");
+            var figure = new FigureBlock(
+                "warm", chart, 1, ChartRenderer.Width, ChartRenderer.Height, "Warm-up", null, "Warm-up");
             var blocks = MarkdownReader.Read(markdown, new Dictionary<string, FigureBlock> { ["warm"] = figure });
-            var info = new DocumentInfo("Warm-up", "Warm-up", "briefwright", "", "", "en-GB", new DateOnly(2000, 1, 1), "", "");
+            var info = new DocumentInfo(
+                "Warm-up", "Warm-up", "briefwright", "", "", "en-GB", new DateOnly(2000, 1, 1), "", "");
             return DocumentComposer.WritePdf(new BriefDocument(info, blocks), new RenderSession()).PageCount == 1;
         }
         catch (Exception)

@@ -13,15 +13,26 @@ using Briefwright.Templating;
 namespace Briefwright.Cli.Batch;
 
 /// <summary>Settings of one <c>build</c> run.</summary>
-public sealed record BatchSettings(BriefTemplate Template, BuildOptions Options, string ThemeHash, string? OutDir, DateOnly? Date, bool Force, bool AnnexImages)
+public sealed record BatchSettings(
+    BriefTemplate Template,
+    BuildOptions Options,
+    string ThemeHash,
+    string? OutDir,
+    DateOnly? Date,
+    bool Force,
+    bool AnnexImages)
 {
     /// <summary>Flush the brief, its results and its manifest to the disk before renaming them into place.</summary>
     public bool Durable { get; init; } = true;
 
-    /// <summary>Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs read "–", "β₁" and "δ" right.</summary>
+    /// <summary>
+    /// Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs read "–", "β₁" and "δ" right.
+    /// </summary>
     public bool CsvByteOrderMark { get; init; }
 
-    /// <summary>The project folder (--root) that files named by scenarios must stay inside; null: each scenario's folder.</summary>
+    /// <summary>
+    /// The project folder (--root) that files named by scenarios must stay inside; null: each scenario's folder.
+    /// </summary>
     public string? Root { get; init; }
 
     /// <summary>The scenario with the date given to the run (<c>--date</c> or the project's) in place of
@@ -40,12 +51,22 @@ public static class BatchBuilder
     /// <summary>SHA-256 of the four bundled font files, one after the other (an input of every brief).</summary>
     internal static readonly Lazy<string> FontsHash = new(() =>
     {
-        var styles = new[] { Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic, Composer.Document.RunStyle.BoldItalic };
+        var styles = new[]
+        {
+            Composer.Document.RunStyle.Regular, Composer.Document.RunStyle.Bold, Composer.Document.RunStyle.Italic,
+            Composer.Document.RunStyle.BoldItalic,
+        };
         return Sha256Hex.OfAll(styles.Select(BundledFonts.Bytes));
     });
 
-    /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when null.</param>
-    public static BriefOutcome BuildOne(string file, BatchSettings settings, TextWriter error, LoadResult? loadedBefore = null, CancellationToken stop = default)
+    /// <param name="loadedBefore">The scenario as the batch already loaded it (to compare ids); read here when
+    /// null.</param>
+    public static BriefOutcome BuildOne(
+        string file,
+        BatchSettings settings,
+        TextWriter error,
+        LoadResult? loadedBefore = null,
+        CancellationToken stop = default)
     {
         var watch = Stopwatch.StartNew();
         var loaded = loadedBefore ?? new ScenarioLoader(new FileSourceReader(), settings.Root).Load(file);
@@ -58,8 +79,8 @@ public static class BatchBuilder
             var (inputs, outputs, request) = Request(one.Scenario, settings);
             one.Hash = request.Fingerprint;
             var folder = new EditionFolder(one.Dir, one.Id);
-            // Unchanged briefs are skipped without taking the lock (only reads; the manifest is switched last), unless the
-            // temporary folder exists: then a build is running or was interrupted, and the locked path sees to it.
+            // Unchanged briefs are skipped without taking the lock (only reads; the manifest is switched last), unless
+            // the temporary folder exists: then a build is running or was interrupted, and the locked path sees to it.
             if (!settings.Force && !Directory.Exists(folder.TempDir))
             {
                 var (known, quick) = folder.Read(full: false);
@@ -81,7 +102,8 @@ public static class BatchBuilder
         }
         catch (Exception ex)
         {
-            // Whatever went wrong, this brief fails alone: the others in the batch are still built, nothing is half-written.
+            // Whatever went wrong, this brief fails alone: the others in the batch are still built,
+            // nothing is half-written.
             var failure = StageErrors.Describe(ex, file, one.Dir, settings.Template);
             lock (error) foreach (var line in failure.Lines) error.WriteLine(line);
             return new BriefOutcome(file, one.Id, failure.Status, null, null, 0, 0, watch.ElapsedMilliseconds,
@@ -206,14 +228,17 @@ public static class BatchBuilder
             .Append((brief.FileStem + ".pdf", brief.Pdf)).ToList();
 
     /// <summary>The output folder of one scenario: the one named, else an <c>out</c> folder beside it.</summary>
-    public static string DirOf(string file, BatchSettings settings) => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
+    public static string DirOf(string file, BatchSettings settings) =>
+        settings.OutDir ?? Path.Combine(Path.GetDirectoryName(file) ?? ".", "out");
 
     /// <summary>
-    /// What the brief depends on, by name: <c>inputs</c> (what its bytes are made from: the scenario's text and content,
-    /// template, theme, fonts, tool, date) and <c>outputs</c> (the output switches: which files are written). A further
-    /// output format or switch goes into <c>outputs</c>, never <c>inputs</c>, so that it never makes an edition.
+    /// What the brief depends on, by name: <c>inputs</c> (what its bytes are made from: the scenario's text and
+    /// content, template, theme, fonts, tool, date) and <c>outputs</c> (the output switches: which files are written).
+    /// A further output format or switch goes into <c>outputs</c>, never <c>inputs</c>, so that it never makes an
+    /// edition.
     /// </summary>
-    public static (SortedDictionary<string, string> Inputs, SortedDictionary<string, string> Outputs, EditionRequest Request) Request(ScenarioDocument scenario, BatchSettings settings)
+    public static (SortedDictionary<string, string> Inputs, SortedDictionary<string, string> Outputs,
+        EditionRequest Request) Request(ScenarioDocument scenario, BatchSettings settings)
     {
         var inputs = new SortedDictionary<string, string>(StringComparer.Ordinal)
         {
@@ -223,7 +248,8 @@ public static class BatchBuilder
             ["theme"] = settings.ThemeHash,
             ["fonts"] = FontsHash.Value,
             [EditionInput.Tool] = ToolInfo.Version,
-            [EditionInput.Date] = scenario.Brief.Date.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture),
+            [EditionInput.Date] = scenario.Brief.Date
+                .ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture),
         };
         var outputs = new SortedDictionary<string, string>(StringComparer.Ordinal)
         {
@@ -233,7 +259,8 @@ public static class BatchBuilder
         };
         string hash = Sha256Hex.Of(string.Join("\n", inputs.Select(kv => $"{kv.Key}={kv.Value}")
             .Concat(outputs.Select(kv => $"{EditionInput.OutputPrefix}{kv.Key}={kv.Value}"))));
-        return (inputs, outputs, new EditionRequest(hash, scenario.Brief.Edition, settings.Force) { Inputs = inputs, Outputs = outputs });
+        return (inputs, outputs,
+            new EditionRequest(hash, scenario.Brief.Edition, settings.Force) { Inputs = inputs, Outputs = outputs });
     }
 
     /// <summary>Whether the solved brief's assumptions as shown or headline results differ from the current edition's
@@ -242,11 +269,22 @@ public static class BatchBuilder
     {
         if (previousJson is null) return true;
         try { return BriefBuilder.ResultsDiffer(solved, File.ReadAllText(Path.Combine(dir, previousJson))); }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException) { return true; }
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException
+            or KeyNotFoundException or InvalidOperationException) { return true; }
     }
 
-    /// <summary><c>brief.edition</c> below an edition already issued: a positioned error, nothing written for the brief.</summary>
-    private static BriefOutcome Refused(string file, LoadResult loaded, ScenarioDocument scenario, EditionPlan.Refuse refuse, string dir, string? hash, TextWriter error, Stopwatch watch)
+    /// <summary>
+    /// <c>brief.edition</c> below an edition already issued: a positioned error, nothing written for the brief.
+    /// </summary>
+    private static BriefOutcome Refused(
+        string file,
+        LoadResult loaded,
+        ScenarioDocument scenario,
+        EditionPlan.Refuse refuse,
+        string dir,
+        string? hash,
+        TextWriter error,
+        Stopwatch watch)
     {
         var problem = RefusalOf(file, scenario, refuse, dir);
         lock (error)
@@ -254,14 +292,21 @@ public static class BatchBuilder
             error.WriteLine(loaded.Sources.Render(problem));
             error.WriteLine($"{file}: 1 problem; nothing written.");
         }
-        return new BriefOutcome(file, scenario.Brief.Id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds, "brief.edition is below an edition already issued")
+        return new BriefOutcome(
+            file, scenario.Brief.Id, OutcomeStatus.Invalid, null, null, 0, 0, watch.ElapsedMilliseconds,
+            "brief.edition is below an edition already issued")
         {
             InputHash = hash, Messages = [problem.Message],
         };
     }
 
-    internal static Scenario.Diagnostics.Diagnostic RefusalOf(string file, ScenarioDocument scenario, EditionPlan.Refuse refuse, string dir) =>
+    internal static Scenario.Diagnostics.Diagnostic RefusalOf(
+        string file,
+        ScenarioDocument scenario,
+        EditionPlan.Refuse refuse,
+        string dir) =>
         new(scenario.EditionAt ?? new Scenario.Diagnostics.SourceSpan(file, 1, 1), "brief.edition",
-            $"must not be below edition {refuse.Issued}, already issued in {dir}; remove it, or give at least {refuse.Issued + 1} to start a new edition",
+            $"must not be below edition {refuse.Issued}, already issued in {dir}; remove it, or give at least " +
+            $"{refuse.Issued + 1} to start a new edition",
             $"'{refuse.Requested}'");
 }

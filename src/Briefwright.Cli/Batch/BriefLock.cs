@@ -10,10 +10,10 @@ public sealed class LockHeldException(string message) : IOException(message);
 
 /// <summary>
 /// A lock on one brief in one output folder, across processes and machines that share the folder: the file
-/// <c>.briefwright-tmp/&lt;id&gt;.lock</c>, created only if absent (O_EXCL; also on NFS v3+ and SMB), holding host, process
-/// id, a random token and the start time. The holder touches it every few seconds; a lock whose file has not been
-/// touched for <see cref="StaleAfter"/> is judged abandoned (a killed build) and taken over. A process id is never used
-/// to judge a lock: on another machine the same number means nothing. Only the holder of a brief's lock writes the
+/// <c>.briefwright-tmp/&lt;id&gt;.lock</c>, created only if absent (O_EXCL; also on NFS v3+ and SMB), holding host,
+/// process id, a random token and the start time. The holder touches it every few seconds; a lock whose file has not
+/// been touched for <see cref="StaleAfter"/> is judged abandoned (a killed build) and taken over. A process id is never
+/// used to judge a lock: on another machine the same number means nothing. Only the holder of a brief's lock writes the
 /// brief, its staging folder, its journal or its archive, so whatever of these the holder finds was left by a build
 /// that is gone.
 /// </summary>
@@ -39,11 +39,14 @@ public sealed class BriefLock : IDisposable
         lock (Held) Held.Add(this);
     }
 
-    /// <summary>Takes the lock, waiting while another live build holds it (reported once to <paramref name="waiting"/>).</summary>
+    /// <summary>
+    /// Takes the lock, waiting while another live build holds it (reported once to <paramref name="waiting"/>).
+    /// </summary>
     public static BriefLock Acquire(string tempDir, string id, Action<string> waiting, CancellationToken stop = default)
     {
         string path = System.IO.Path.Combine(tempDir, id + ".lock");
-        var info = new LockInfo(Environment.MachineName, Environment.ProcessId, Guid.NewGuid().ToString("N"), DateTime.UtcNow);
+        var info = new LockInfo(
+            Environment.MachineName, Environment.ProcessId, Guid.NewGuid().ToString("N"), DateTime.UtcNow);
         byte[] bytes = JsonSerializer.SerializeToUtf8Bytes(info, BatchJsonContext.Default.LockInfo);
         var started = DateTime.UtcNow;
         bool told = false;
@@ -72,22 +75,27 @@ public sealed class BriefLock : IDisposable
             if (holder is null && age is null) continue; // released just now
             if (age > StaleAfter)
             {
-                if (Break(path, holder)) tookOver = $"took over the lock of a build that showed no sign of life for {age.Value.TotalSeconds:0} s ({Describe(holder)})";
+                if (Break(path, holder)) tookOver = "took over the lock of a build that showed no sign of life for " +
+                    $"{age.Value.TotalSeconds:0} s ({Describe(holder)})";
                 continue;
             }
             if (!told)
             {
-                waiting($"waiting for another build ({Describe(holder)}) that holds {path}; a lock untouched for {StaleAfter.TotalSeconds:0} s is taken over");
+                waiting($"waiting for another build ({Describe(holder)}) that holds {path}; a lock untouched for " +
+                    $"{StaleAfter.TotalSeconds:0} s is taken over");
                 told = true;
             }
             if (DateTime.UtcNow - started > MaxWait)
-                throw new LockHeldException($"another build ({Describe(holder)}) has held {path} for over {MaxWait.TotalMinutes:0} minutes");
+                throw new LockHeldException($"another build ({Describe(holder)}) has held {path} for over " +
+                    $"{MaxWait.TotalMinutes:0} minutes");
             if (stop.WaitHandle.WaitOne(100)) throw new OperationCanceledException(stop);
         }
     }
 
     private static string Describe(LockInfo? holder) =>
-        holder is null ? "unreadable lock file" : $"host {holder.Host}, process {holder.Pid}, started {holder.StartedUtc:yyyy-MM-dd HH:mm:ss} UTC";
+        holder is null
+            ? "unreadable lock file"
+            : $"host {holder.Host}, process {holder.Pid}, started {holder.StartedUtc:yyyy-MM-dd HH:mm:ss} UTC";
 
     private static (LockInfo? Info, TimeSpan? Age) Read(string path)
     {
@@ -138,7 +146,8 @@ public sealed class BriefLock : IDisposable
     {
         try
         {
-            return JsonSerializer.Deserialize(File.ReadAllBytes(Path), BatchJsonContext.Default.LockInfo)?.Token == Info.Token;
+            return JsonSerializer.Deserialize(File.ReadAllBytes(Path), BatchJsonContext.Default.LockInfo)?.Token
+                == Info.Token;
         }
         catch (Exception ex) when (ex is IOException or JsonException or UnauthorizedAccessException)
         {
@@ -151,7 +160,8 @@ public sealed class BriefLock : IDisposable
         BriefLock[] held;
         lock (Held) held = Held.ToArray();
         foreach (var l in held)
-            try { File.SetLastWriteTimeUtc(l.Path, DateTime.UtcNow); } catch (Exception) { /* judged at the next step */ }
+            try { File.SetLastWriteTimeUtc(l.Path, DateTime.UtcNow); }
+            catch (Exception) { /* judged at the next step */ }
     }
 
     public void Dispose()

@@ -31,7 +31,9 @@ public sealed record BuildLogEntry(
     /// <summary>What this attempt found left by an interrupted build and put right.</summary>
     public string? Recovered { get; init; }
 
-    /// <summary>Where the previous edition was kept (relative to the output folder), when this attempt archived it.</summary>
+    /// <summary>
+    /// Where the previous edition was kept (relative to the output folder), when this attempt archived it.
+    /// </summary>
     public string? Archived { get; init; }
 }
 
@@ -53,21 +55,28 @@ public sealed class BuildLog(TimeProvider clock, string? shard)
     private static readonly System.Text.Json.Serialization.Metadata.JsonTypeInfo<BuildLogEntry> Info =
         (System.Text.Json.Serialization.Metadata.JsonTypeInfo<BuildLogEntry>)Json.GetTypeInfo(typeof(BuildLogEntry));
 
-    private string Now() => clock.GetUtcNow().UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture);
+    private string Now() =>
+        clock.GetUtcNow().UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fff'Z'", CultureInfo.InvariantCulture);
 
     public static string Line(BuildLogEntry entry) => JsonSerializer.Serialize(entry, Info);
 
-    public BuildLogEntry Entry(BriefOutcome o) => new(Now(), ToolInfo.Version, "brief", o.Status.ToString().ToLowerInvariant(), null, o.Scenario, o.Id, shard,
-        o.InputHash, o.Edition, o.Pdf, o.Status == OutcomeStatus.Built ? o.Pages : null, o.Status == OutcomeStatus.Built ? o.Bytes : null, o.Milliseconds, o.Error,
+    public BuildLogEntry Entry(BriefOutcome o) => new(Now(), ToolInfo.Version, "brief",
+        o.Status.ToString().ToLowerInvariant(), null, o.Scenario, o.Id, shard, o.InputHash, o.Edition, o.Pdf,
+        o.Status == OutcomeStatus.Built ? o.Pages : null, o.Status == OutcomeStatus.Built ? o.Bytes : null,
+        o.Milliseconds, o.Error,
         o.Messages is { Count: > 0 } m ? m : null) { Recovered = o.Recovered, Archived = o.Archived };
 
     /// <summary>A run stopped before building: usage, settings, theme, template or option errors.</summary>
     public BuildLogEntry RunEntry(string stage, IReadOnlyList<string> messages) =>
-        new(Now(), ToolInfo.Version, "run", "invalid", stage, null, null, shard, null, null, null, null, null, null, messages.FirstOrDefault(), messages);
+        new(Now(), ToolInfo.Version, "run", "invalid", stage, null, null, shard, null, null, null, null, null, null,
+            messages.FirstOrDefault(), messages);
 
     public void Append(string dir, BriefOutcome o) => Append(dir, Entry(o));
 
-    /// <summary>Appends one line; a log that cannot be written never changes the outcome (it is on the console and in the exit code).</summary>
+    /// <summary>
+    /// Appends one line; a log that cannot be written never changes the outcome (it is on the console and in the exit
+    /// code).
+    /// </summary>
     public static void Append(string dir, BuildLogEntry entry)
     {
         try

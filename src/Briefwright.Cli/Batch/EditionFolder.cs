@@ -7,7 +7,8 @@ namespace Briefwright.Cli.Batch;
 /// <summary>
 /// Where one brief lives in an output folder, and what is there now. Paths: the brief's files and
 /// <c>&lt;id&gt;.manifest.json</c> in the folder; <c>archive/&lt;id&gt;/</c>; and in <c>.briefwright-tmp/</c> the lock
-/// <c>&lt;id&gt;.lock</c>, the switch journal <c>&lt;id&gt;.journal</c> and staging folders <c>&lt;id&gt;.&lt;token&gt;/</c>.
+/// <c>&lt;id&gt;.lock</c>, the switch journal <c>&lt;id&gt;.journal</c> and staging folders
+/// <c>&lt;id&gt;.&lt;token&gt;/</c>.
 /// </summary>
 public sealed class EditionFolder(string dir, string id)
 {
@@ -60,7 +61,8 @@ public sealed class EditionFolder(string dir, string id)
                 else if (manifest.Sizes is { } sizes && sizes[f] != info.Length) changed.Add(f);
                 else if (full && manifest.Sha256 is { } hashes && hashes[f] != Sha256(info.FullName)) changed.Add(f);
             }
-            return (manifest, new CurrentEdition(condition, manifest.Edition, manifest.Hash, manifest.Stem, manifest.Files, missing, changed, archived)
+            return (manifest, new CurrentEdition(
+                condition, manifest.Edition, manifest.Hash, manifest.Stem, manifest.Files, missing, changed, archived)
             {
                 Inputs = manifest.Inputs, Outputs = manifest.Outputs, RequestedEdition = manifest.RequestedEdition,
             });
@@ -70,16 +72,24 @@ public sealed class EditionFolder(string dir, string id)
         return (null, new CurrentEdition(condition, FoundEdition(found), null, null, found, [], [], archived));
     }
 
-    /// <summary>Files of this brief by name, <c>&lt;id&gt;-YYYY-MM-DD.*</c> or <c>&lt;id&gt;-YYYY-MM-DD-edition-N.*</c> (ids cannot
-    /// hold a dot, so no other brief's).</summary>
+    /// <summary>Files of this brief by name, <c>&lt;id&gt;-YYYY-MM-DD.*</c> or <c>&lt;id&gt;-YYYY-MM-DD-edition-N.*</c>
+    /// (ids cannot hold a dot, so no other brief's).</summary>
     public IReadOnlyList<string> Found()
     {
         if (!Directory.Exists(Dir)) return [];
-        var pattern = new Regex("^" + Regex.Escape(Id) + @"-\d{4}-\d{2}-\d{2}(-edition-\d{1,9})?\.", RegexOptions.CultureInvariant);
-        return Directory.EnumerateFiles(Dir, Id + "-*").Select(Path.GetFileName).Where(n => n is not null && pattern.IsMatch(n)).Select(n => n!).Order(StringComparer.Ordinal).ToList();
+        var pattern = new Regex(
+            "^" + Regex.Escape(Id) + @"-\d{4}-\d{2}-\d{2}(-edition-\d{1,9})?\.",
+            RegexOptions.CultureInvariant);
+        return Directory.EnumerateFiles(Dir, Id + "-*").Select(Path.GetFileName)
+            .Where(n => n is not null && pattern.IsMatch(n))
+            .Select(n => n!)
+            .Order(StringComparer.Ordinal)
+            .ToList();
     }
 
-    /// <summary>The edition a found results file names (the highest, if several), when the manifest cannot say.</summary>
+    /// <summary>
+    /// The edition a found results file names (the highest, if several), when the manifest cannot say.
+    /// </summary>
     private int? FoundEdition(IReadOnlyList<string> found)
     {
         int? best = null;
@@ -87,9 +97,11 @@ public sealed class EditionFolder(string dir, string id)
             try
             {
                 using var doc = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(Dir, f)));
-                if (doc.RootElement.TryGetProperty("edition", out var e) && e.TryGetInt32(out int n) && n > 0) best = Math.Max(best ?? 0, n);
+                if (doc.RootElement.TryGetProperty("edition", out var e) && e.TryGetInt32(out int n) && n > 0)
+                    best = Math.Max(best ?? 0, n);
             }
-            catch (Exception ex) when (ex is IOException or JsonException or UnauthorizedAccessException or InvalidOperationException)
+            catch (Exception ex)
+                when (ex is IOException or JsonException or UnauthorizedAccessException or InvalidOperationException)
             {
                 // damaged too: the edition stays unknown
             }
@@ -103,7 +115,8 @@ public sealed class EditionFolder(string dir, string id)
         if (!Directory.Exists(ArchiveRoot)) return 0;
         int best = 0;
         foreach (var d in Directory.EnumerateDirectories(ArchiveRoot))
-            if (ArchiveName.Match(Path.GetFileName(d)) is { Success: true } m) best = Math.Max(best, int.Parse(m.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture));
+            if (ArchiveName.Match(Path.GetFileName(d)) is { Success: true } m)
+                best = Math.Max(best, int.Parse(m.Groups[1].Value, System.Globalization.CultureInfo.InvariantCulture));
         return best;
     }
 }

@@ -7,14 +7,23 @@ namespace Briefwright.Cli.Batch;
 /// <summary>
 /// The record of a switch in progress, written (atomically, flushed) once the new edition is staged and the previous
 /// one archived, and removed when the switch is done. The files named in <see cref="Old"/> are moved from the folder
-/// into the staging folder's <c>old/</c> (the manifest first), then those in <see cref="New"/> from its <c>new/</c> into
-/// the folder (the manifest last). Each move is one rename(2) (a move that may replace its target: .NET's no-replace
-/// move links and unlinks, which can leave a file in two places), so every file is at any instant in exactly one place, and a
-/// build that finds the journal can finish the switch or undo it.
+/// into the staging folder's <c>old/</c> (the manifest first), then those in <see cref="New"/> from its <c>new/</c>
+/// into the folder (the manifest last). Each move is one rename(2) (a move that may replace its target: .NET's
+/// no-replace move links and unlinks, which can leave a file in two places), so every file is at any instant in exactly
+/// one place, and a build that finds the journal can finish the switch or undo it.
 /// </summary>
-public sealed record Journal(string Id, string Token, int Edition, IReadOnlyList<string> Old, IReadOnlyList<string> New, IReadOnlyDictionary<string, string> NewSha256, string? Archive);
+public sealed record Journal(
+    string Id,
+    string Token,
+    int Edition,
+    IReadOnlyList<string> Old,
+    IReadOnlyList<string> New,
+    IReadOnlyDictionary<string, string> NewSha256,
+    string? Archive);
 
-/// <summary>A transaction failed; <see cref="Exception.Message"/> says truthfully what state the folder is in.</summary>
+/// <summary>
+/// A transaction failed; <see cref="Exception.Message"/> says truthfully what state the folder is in.
+/// </summary>
 public sealed class EditionWriteException(string message, Exception inner) : IOException(message, inner);
 
 /// <summary>
@@ -26,7 +35,9 @@ public static class EditionTransaction
 {
     private const long Margin = 1 << 20;
 
-    /// <summary>Finishes or undoes a switch left by a build that stopped, and removes its staging and partial archive.</summary>
+    /// <summary>
+    /// Finishes or undoes a switch left by a build that stopped, and removes its staging and partial archive.
+    /// </summary>
     /// <returns>What was recovered, for the report; null when there was nothing.</returns>
     public static string? Recover(EditionFolder folder, BriefLock held)
     {
@@ -34,11 +45,15 @@ public static class EditionTransaction
         if (File.Exists(folder.JournalPath))
         {
             Journal? journal = null;
-            try { journal = JsonSerializer.Deserialize(File.ReadAllBytes(folder.JournalPath), BatchJsonContext.Default.Journal); }
+            try { journal = JsonSerializer.Deserialize(File.ReadAllBytes(folder.JournalPath),
+                BatchJsonContext.Default.Journal); }
             catch (JsonException) { }
-            if (journal is null || journal.Id != folder.Id || !journal.Old.Concat(journal.New).All(Manifest.Confined) || journal.Token.Any(c => !char.IsAsciiLetterOrDigit(c)))
-                throw new IOException($"{folder.JournalPath} is damaged, so an interrupted switch of {folder.Id} can be neither finished nor undone safely; nothing was changed. " +
-                                      $"Inspect {folder.TempDir} (old/ holds the previous files, new/ the new ones), put the files right and delete the journal");
+            if (journal is null || journal.Id != folder.Id || !journal.Old.Concat(journal.New).All(Manifest.Confined)
+                || journal.Token.Any(c => !char.IsAsciiLetterOrDigit(c)))
+                throw new IOException($"{folder.JournalPath} is damaged, so an interrupted switch of {folder.Id} can " +
+                    "be neither finished nor undone safely; nothing was changed. " +
+                    $"Inspect {folder.TempDir} (old/ holds the previous files, new/ the new ones), " +
+                    "put the files right and delete the journal");
             try
             {
                 Forward(folder, journal);
@@ -49,11 +64,14 @@ public static class EditionTransaction
                 try { Back(folder, journal); }
                 catch (Exception again) when (again is IOException or UnauthorizedAccessException)
                 {
-                    throw new EditionWriteException($"an interrupted switch to edition {journal.Edition} could be neither finished ({ex.Message}) nor undone " +
-                        $"({again.Message}); {folder.JournalPath} still records it, the previous files are in {Path.Combine(folder.Staging(journal.Token), "old")}" +
-                        (journal.Archive is null ? "" : $" and {journal.Archive}") + "; put right what stops it and build again", again);
+                    throw new EditionWriteException($"an interrupted switch to edition {journal.Edition} could be " +
+                        $"neither finished ({ex.Message}) nor undone ({again.Message}); {folder.JournalPath} still " +
+                        $"records it, the previous files are in {Path.Combine(folder.Staging(journal.Token), "old")}" +
+                        (journal.Archive is null ? "" : $" and {journal.Archive}") +
+                        "; put right what stops it and build again", again);
                 }
-                notes.Add($"undid the switch to edition {journal.Edition} that an interrupted build had begun ({ex.Message}); the previous edition is in place");
+                notes.Add($"undid the switch to edition {journal.Edition} that an interrupted build had begun " +
+                    $"({ex.Message}); the previous edition is in place");
             }
             File.Delete(folder.JournalPath);
             FaultSeam.After(folder.Id, "recover.journal");
@@ -73,16 +91,26 @@ public static class EditionTransaction
             foreach (var d in Directory.EnumerateDirectories(folder.ArchiveRoot, ".partial-*"))
             {
                 Directory.Delete(d, recursive: true);
-                notes.Add("removed a partial archive copy of an interrupted build (the edition it copied is still current)");
+                notes.Add("removed a partial archive copy of an interrupted build " +
+                    "(the edition it copied is still current)");
             }
         if (held.TookOver is { } t) notes.Insert(0, t);
         return notes.Count == 0 ? null : string.Join("; ", notes);
     }
 
-    /// <summary>Carries out <paramref name="plan"/>: the new edition's files replace the current ones as one step.</summary>
+    /// <summary>
+    /// Carries out <paramref name="plan"/>: the new edition's files replace the current ones as one step.
+    /// </summary>
     /// <returns>The archive folder written, if any.</returns>
-    public static string? Execute(EditionFolder folder, BriefLock held, EditionPlan.Build plan, Manifest? current, CurrentEdition state,
-        IReadOnlyList<(string Name, byte[] Bytes)> files, Manifest manifest, bool durable)
+    public static string? Execute(
+        EditionFolder folder,
+        BriefLock held,
+        EditionPlan.Build plan,
+        Manifest? current,
+        CurrentEdition state,
+        IReadOnlyList<(string Name, byte[] Bytes)> files,
+        Manifest manifest,
+        bool durable)
     {
         string token = held.Info.Token, staging = folder.Staging(token);
         byte[] manifestBytes = manifest.ToBytes();
@@ -118,7 +146,9 @@ public static class EditionTransaction
         string? archived = null;
         try
         {
-            long archiveBytes = plan.Archive is { } a ? a.Files.Sum(f => Length(Path.Combine(folder.Dir, f))) + Length(folder.ManifestPath) : 0;
+            long archiveBytes = plan.Archive is { } a
+                ? a.Files.Sum(f => Length(Path.Combine(folder.Dir, f))) + Length(folder.ManifestPath)
+                : 0;
             CheckSpace(folder.Dir, files.Sum(f => (long)f.Bytes.Length) + manifestBytes.Length + archiveBytes + Margin);
 
             Directory.CreateDirectory(stagedNew);
@@ -136,7 +166,8 @@ public static class EditionTransaction
                 FaultSeam.After(id, "archived");
             }
             if (!held.StillHeld())
-                throw new IOException($"another build took over the lock {held.Path} while this one worked (it judged it abandoned)");
+                throw new IOException(
+                    $"another build took over the lock {held.Path} while this one worked (it judged it abandoned)");
             return archived;
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException)
@@ -160,7 +191,9 @@ public static class EditionTransaction
         foreach (var f in previous.Union(newNames.Where(n => n != folder.ManifestName)))
             if (!old.Contains(f) && File.Exists(Path.Combine(folder.Dir, f))) old.Add(f);
         return new Journal(folder.Id, token, plan.Edition, old, newNames,
-            files.ToDictionary(f => f.Name, f => EditionFolder.Sha256(f.Bytes)).Append(new(folder.ManifestName, EditionFolder.Sha256(manifestBytes))).ToDictionary(),
+            files.ToDictionary(f => f.Name, f => EditionFolder.Sha256(f.Bytes))
+                .Append(new(folder.ManifestName, EditionFolder.Sha256(manifestBytes)))
+                .ToDictionary(),
             archived is null ? null : Relative(folder, archived));
     }
 
@@ -178,7 +211,8 @@ public static class EditionTransaction
         {
             TryDelete(folder.JournalPath);
             TryDelete(staging);
-            throw new EditionWriteException($"{ex.Message}; nothing was replaced: the previous files are untouched", ex);
+            throw new EditionWriteException(
+                $"{ex.Message}; nothing was replaced: the previous files are untouched", ex);
         }
     }
 
@@ -201,22 +235,28 @@ public static class EditionTransaction
             }
             catch (Exception again) when (again is IOException or UnauthorizedAccessException)
             {
-                throw new EditionWriteException($"{ex.Message}; the switch could neither be finished nor undone ({again.Message}): " +
+                throw new EditionWriteException(
+                    $"{ex.Message}; the switch could neither be finished nor undone ({again.Message}): " +
                     $"{folder.JournalPath} records it and the next build finishes or undoes it; " +
                     $"the previous files are in {Path.Combine(staging, "old")}" +
                     (archived is null ? "" : $" and {Relative(folder, archived)}"), ex);
             }
-            throw new EditionWriteException($"{ex.Message}; the switch was undone: the previous files are back in place" +
+            throw new EditionWriteException(
+                $"{ex.Message}; the switch was undone: the previous files are back in place" +
                 (archived is null ? "" : $" (and kept in {Relative(folder, archived)})"), ex);
         }
     }
 
-    /// <summary>Moves the old files aside (manifest first) and the new ones in (manifest last); safe to repeat after a kill.</summary>
+    /// <summary>
+    /// Moves the old files aside (manifest first) and the new ones in (manifest last); safe to repeat after a kill.
+    /// </summary>
     private static void Forward(EditionFolder folder, Journal journal)
     {
-        string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"), stagedOld = Path.Combine(staging, "old");
+        string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"),
+            stagedOld = Path.Combine(staging, "old");
         foreach (var n in journal.New)
-            if (!File.Exists(Path.Combine(stagedNew, n)) && !(File.Exists(Path.Combine(folder.Dir, n)) && EditionFolder.Sha256(Path.Combine(folder.Dir, n)) == journal.NewSha256[n]))
+            if (!File.Exists(Path.Combine(stagedNew, n)) && !(File.Exists(Path.Combine(folder.Dir, n))
+                && EditionFolder.Sha256(Path.Combine(folder.Dir, n)) == journal.NewSha256[n]))
                 throw new IOException($"the staged file {n} is gone");
         bool movingIn = journal.New.Any(n => !File.Exists(Path.Combine(stagedNew, n)));
         if (!movingIn)
@@ -246,7 +286,8 @@ public static class EditionTransaction
     /// <summary>Moves the new files back to staging and the old ones back into place; safe to repeat.</summary>
     private static void Back(EditionFolder folder, Journal journal)
     {
-        string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"), stagedOld = Path.Combine(staging, "old");
+        string staging = folder.Staging(journal.Token), stagedNew = Path.Combine(staging, "new"),
+            stagedOld = Path.Combine(staging, "old");
         foreach (var n in journal.New.Reverse())
         {
             string here = Path.Combine(folder.Dir, n), staged = Path.Combine(stagedNew, n);
@@ -260,10 +301,10 @@ public static class EditionTransaction
     }
 
     /// <summary>
-    /// Copies the current files into <c>archive/&lt;id&gt;/&lt;folder&gt;/</c>: first into a partial folder, each copy read
-    /// back and checked against the manifest's SHA-256 (or against the bytes read, for files kept as found), then renamed
-    /// into place in one step. An existing archive folder is never overwritten: one with the same files is reused, else
-    /// the copy gets the next free name.
+    /// Copies the current files into <c>archive/&lt;id&gt;/&lt;folder&gt;/</c>: first into a partial folder, each copy
+    /// read back and checked against the manifest's SHA-256 (or against the bytes read, for files kept as found), then
+    /// renamed into place in one step. An existing archive folder is never overwritten: one with the same files is
+    /// reused, else the copy gets the next free name.
     /// </summary>
     private static string Archive(EditionFolder folder, ArchiveStep step, Manifest? current, string token, bool durable)
     {
@@ -275,11 +316,13 @@ public static class EditionTransaction
         {
             byte[] bytes = File.ReadAllBytes(Path.Combine(folder.Dir, f));
             string hash = EditionFolder.Sha256(bytes);
-            if (!step.Recovered && current?.Sha256 is { } expected && expected.TryGetValue(f, out var want) && want != hash)
+            if (!step.Recovered && current?.Sha256 is { } expected && expected.TryGetValue(f, out var want)
+                && want != hash)
                 throw new IOException($"{f} changed while it was being archived");
             string copy = Path.Combine(partial, f);
             WriteNew(copy, bytes, durable);
-            if (EditionFolder.Sha256(copy) != hash) throw new IOException($"the archive copy of {f} does not read back as written");
+            if (EditionFolder.Sha256(copy) != hash)
+                throw new IOException($"the archive copy of {f} does not read back as written");
         }
         if (step.Recovered)
             WriteNew(Path.Combine(partial, "RECOVERED.txt"), Encoding.UTF8.GetBytes(
@@ -304,16 +347,19 @@ public static class EditionTransaction
     {
         var fa = Directory.GetFiles(a).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToList();
         var fb = Directory.GetFiles(b).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToList();
-        return fa.SequenceEqual(fb) && fa.All(f => EditionFolder.Sha256(Path.Combine(a, f!)) == EditionFolder.Sha256(Path.Combine(b, f!)));
+        return fa.SequenceEqual(fb)
+            && fa.All(f => EditionFolder.Sha256(Path.Combine(a, f!)) == EditionFolder.Sha256(Path.Combine(b, f!)));
     }
 
     private static void CheckSpace(string dir, long need)
     {
         long free;
         try { free = new DriveInfo(Path.GetFullPath(dir)).AvailableFreeSpace; }
-        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException) { return; } // unknown: the writes will tell
+        // unknown: the writes will tell
+        catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException) { return; }
         if (free < need)
-            throw new IOException($"not enough free space in {dir}: the new edition and the archive copy need {Mb(need)}, {Mb(free)} is free");
+            throw new IOException($"not enough free space in {dir}: the new edition and the archive copy need " +
+                $"{Mb(need)}, {Mb(free)} is free");
     }
 
     private static string Mb(long bytes) => $"{bytes / (1024.0 * 1024.0):0.0} MB";

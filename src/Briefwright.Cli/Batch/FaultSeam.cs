@@ -8,18 +8,20 @@ public sealed class InjectedFaultException(string step) : IOException($"fault in
 /// <summary>
 /// Off unless asked for. Each step of an edition's transaction calls <see cref="After"/> with its name
 /// (<c>&lt;id&gt;/&lt;step&gt;</c>, such as <c>auroria-national/switch.in.3</c>). The environment variable
-/// <c>BRIEFWRIGHT_FAULT=&lt;id&gt;/&lt;step&gt;=kill</c> kills the process there (SIGKILL to itself: no clean-up code runs),
-/// <c>=fail</c> makes the step fail as a write would, <c>=term</c> sends the process SIGTERM; <c>*/&lt;step&gt;</c> matches any
-/// brief. Tests in the same process set <see cref="Hook"/> instead.
+/// <c>BRIEFWRIGHT_FAULT=&lt;id&gt;/&lt;step&gt;=kill</c> kills the process there (SIGKILL to itself: no clean-up code
+/// runs), <c>=fail</c> makes the step fail as a write would, <c>=term</c> sends the process SIGTERM;
+/// <c>*/&lt;step&gt;</c> matches any brief. Tests in the same process set <see cref="Hook"/> instead.
 /// </summary>
 public static class FaultSeam
 {
-    private static readonly (string Step, string Action)? FromEnvironment = Parse(Environment.GetEnvironmentVariable("BRIEFWRIGHT_FAULT"));
+    private static readonly (string Step, string Action)? FromEnvironment = Parse(
+        Environment.GetEnvironmentVariable("BRIEFWRIGHT_FAULT"));
 
     private static readonly AsyncLocal<Action<string>?> LocalHook = new();
 
     /// <summary>Called with every step name when set (in-process tests: record the steps, or throw to fail one). Flows
-    /// with the calling test's execution context only, so tests running side by side do not see each other's steps.</summary>
+    /// with the calling test's execution context only, so tests running side by side do not see each other's
+    /// steps.</summary>
     public static Action<string>? Hook { get => LocalHook.Value; set => LocalHook.Value = value; }
 
     private static (string, string)? Parse(string? text)
@@ -35,11 +37,13 @@ public static class FaultSeam
         string name = $"{id}/{step}";
         LocalHook.Value?.Invoke(name);
         if (FromEnvironment is not { } fault) return;
-        if (fault.Step != name && !(fault.Step.StartsWith("*/", StringComparison.Ordinal) && fault.Step[2..] == step)) return;
+        if (fault.Step != name
+            && !(fault.Step.StartsWith("*/", StringComparison.Ordinal) && fault.Step[2..] == step)) return;
         if (fault.Action == "fail") throw new InjectedFaultException(name);
         if (fault.Action == "term")
         {
-            // As if an operator sent SIGTERM at this instant: the build must finish this brief and stop before the next.
+            // As if an operator sent SIGTERM at this instant: the build must finish this brief
+            // and stop before the next.
             using (var kill = Process.Start("kill", $"-TERM {Environment.ProcessId}")) kill.WaitForExit();
             StopSignal.Token.WaitHandle.WaitOne(TimeSpan.FromSeconds(30));
             return;

@@ -13,7 +13,8 @@ public sealed class Progress(TextWriter output, bool interactive, int total)
             done++;
             string what = o.Status switch
             {
-                OutcomeStatus.Built => $"built {o.Pdf} (edition {o.Edition}, {o.Pages} pages, {o.Bytes / 1024} KB, {o.Milliseconds} ms)",
+                OutcomeStatus.Built => $"built {o.Pdf} (edition {o.Edition}, {o.Pages} pages, {o.Bytes / 1024} KB, " +
+                    $"{o.Milliseconds} ms)",
                 OutcomeStatus.Skipped => $"up to date, skipped ({o.Pdf})",
                 OutcomeStatus.Invalid => "invalid input; nothing written",
                 OutcomeStatus.Stopped => $"stopped: {o.Error}",

@@ -15,7 +15,8 @@ public static class Shards
     {
         index = count = 0;
         var parts = text.Split('/');
-        return parts.Length == 2 && int.TryParse(parts[0], out index) && int.TryParse(parts[1], out count) && count >= 1 && index >= 1 && index <= count;
+        return parts.Length == 2 && int.TryParse(parts[0], out index) && int.TryParse(parts[1], out count)
+            && count >= 1 && index >= 1 && index <= count;
     }
 
     /// <summary>The text a file's shard is computed from: its path relative to <paramref name="root"/> when it lies
@@ -26,7 +27,8 @@ public static class Shards
         if (root is not null)
         {
             string relative = Path.GetRelativePath(Path.GetFullPath(root), full);
-            if (!relative.StartsWith("..", StringComparison.Ordinal) && !Path.IsPathRooted(relative)) return relative.Replace('\\', '/');
+            if (!relative.StartsWith("..", StringComparison.Ordinal) && !Path.IsPathRooted(relative))
+                return relative.Replace('\\', '/');
         }
         return Path.GetFileName(full);
     }
@@ -42,6 +44,6 @@ public static class Shards
         return (int)(hash % (ulong)count) + 1;
     }
 
-    public static IReadOnlyList<string> Select(IReadOnlyList<string> files, int index, int count, string? root = null) =>
-        files.Where(f => Of(Key(f, root), count) == index).ToList();
+    public static IReadOnlyList<string> Select(IReadOnlyList<string> files, int index, int count, string? root = null)
+        => files.Where(f => Of(Key(f, root), count) == index).ToList();
 }

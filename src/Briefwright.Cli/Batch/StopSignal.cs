@@ -21,7 +21,8 @@ public static class StopSignal
             {
                 if (Source.IsCancellationRequested) return; // the second signal ends the process
                 context.Cancel = true;
-                lock (error) error.WriteLine($"briefwright: {context.Signal} received; finishing the briefs in progress and starting no others (send it again to stop at once).");
+                lock (error) error.WriteLine($"briefwright: {context.Signal} received; finishing the briefs in " +
+                    "progress and starting no others (send it again to stop at once).");
                 Source.Cancel();
             }));
     }

@@ -10,41 +10,62 @@ using Briefwright.Templating;
 
 namespace Briefwright.Cli.Commands;
 
-/// <summary><c>build PATH...</c>: scenarios + template → dated PDF briefs with their data annex, in parallel, incrementally.</summary>
+/// <summary>
+/// <c>build PATH...</c>: scenarios + template → dated PDF briefs with their data annex, in parallel, incrementally.
+/// </summary>
 public static class BuildCommand
 {
     public static Command Create(CliIo io)
     {
         var paths = ScenarioInputs.PathsArgument("built", stdin: false);
-        var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing CommonMark). Default: the project's, else the standard brief; copy templates/standard-brief.md to start your own." };
-        var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size (A4 or US Letter), colours, footer text, logo, fonts. See docs/themes.md." };
-        var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: the project's, else an 'out' folder beside each scenario." };
-        var date = new Option<string?>("--date") { Description = "Date of the brief (YYYY-MM-DD), replacing brief.date. The clock is never used, so rebuilds are identical." };
-        var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on has changed." };
-        var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job arrays: shards are disjoint and together cover the list, whatever the spelling of the folder." };
-        var jobs = new Option<string?>("--jobs", "-j") { Description = "Briefs built at once, at least 1 (default: the project's, else one per core)." };
+        var template = new Option<string?>("--template", "-t") { Description = "Template file (Scriban producing " +
+            "CommonMark). Default: the project's, else the standard brief; copy templates/standard-brief.md to start " +
+            "your own." };
+        var theme = new Option<string?>("--theme") { Description = "Theme file (YAML): organisation name, paper size " +
+            "(A4 or US Letter), colours, footer text, logo, fonts. See docs/themes.md." };
+        var outDir = new Option<string?>("--out", "-o") { Description = "Folder for the briefs. Default: the " +
+            "project's, else an 'out' folder beside each scenario." };
+        var date = new Option<string?>("--date") { Description = "Date of the brief (YYYY-MM-DD), replacing " +
+            "brief.date. The clock is never used, so rebuilds are identical." };
+        var force = new Option<bool>("--force", "-f") { Description = "Rebuild even when nothing a brief depends on " +
+            "has changed." };
+        var shard = new Option<string?>("--shard") { Description = "Build only shard K of N (written K/N), for job " +
+            "arrays: shards are disjoint and together cover the list, whatever the spelling of the folder." };
+        var jobs = new Option<string?>("--jobs", "-j") { Description = "Briefs built at once, at least 1 (default: " +
+            "the project's, else one per core)." };
         var root = ScenarioInputs.RootOption();
-        var noImages = new Option<bool>("--no-chart-images") { Description = "Skip the SVG and PNG copies of each chart in the data annex (faster)." };
-        var csvBom = new Option<bool>("--csv-bom") { Description = "Start each CSV file with a UTF-8 byte order mark, so spreadsheet programs show '–', 'β₁' and 'δ' correctly." };
-        var skipFlush = new Option<bool>("--skip-flush") { Description = "Do not wait for each brief to reach the disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a power cut might leave an empty one." };
-        var settingsFile = new Option<string?>("--settings") { Description = $"Project settings file. Default: the nearest {ProjectSettings.FileName} in the scenarios' folder or a folder above it." };
+        var noImages = new Option<bool>("--no-chart-images") { Description = "Skip the SVG and PNG copies of each " +
+            "chart in the data annex (faster)." };
+        var csvBom = new Option<bool>("--csv-bom") { Description = "Start each CSV file with a UTF-8 byte order " +
+            "mark, so spreadsheet programs show '–', 'β₁' and 'δ' correctly." };
+        var skipFlush = new Option<bool>("--skip-flush") { Description = "Do not wait for each brief to reach the " +
+            "disk before renaming it into place: faster on slow disks; a kill still cannot leave half a file, but a " +
+            "power cut might leave an empty one." };
+        var settingsFile = new Option<string?>("--settings") { Description = "Project settings file. Default: the " +
+            $"nearest {ProjectSettings.FileName} in the scenarios' folder or a folder above it." };
         var quiet = new Option<bool>("--quiet", "-q") { Description = "Print nothing but errors." };
         var formatsOption = new Option<string?>("--formats")
         {
-            Description = "Which files to write for each brief, comma-separated: pdf (always written), html (a self-contained web page), " +
-                "xlsx (a spreadsheet workbook of the results tables), docx (an editable document). Default: the project's, else pdf. " +
+            Description = "Which files to write for each brief, comma-separated: pdf (always written), " +
+                "html (a self-contained web page), xlsx (a spreadsheet workbook of the results tables), " +
+                "docx (an editable document). Default: the project's, else pdf. " +
                 "Switching a format on or off rebuilds the same edition; it never makes a new one.",
         };
-        var plan = new Option<bool>("--plan") { Description = "Say what a build would do for each brief (build new, skip, rewrite, re-date, new edition) and which inputs changed, and write nothing at all: no brief, log line, lock or folder. Exit 0, or 2 on invalid input." };
-        var json = new Option<bool>("--json") { Description = "With --plan: print the plan as a JSON list, one object per scenario in the order given." };
+        var plan = new Option<bool>("--plan") { Description = "Say what a build would do for each brief (build new, " +
+            "skip, rewrite, re-date, new edition) and which inputs changed, and write nothing at all: no brief, log " +
+            "line, lock or folder. Exit 0, or 2 on invalid input." };
+        var json = new Option<bool>("--json") { Description = "With --plan: print the plan as a JSON list, one " +
+            "object per scenario in the order given." };
         var command = new Command("build",
-            "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results JSON, CSV tables and " +
-            "chart images beside it. Unchanged briefs are skipped. A changed scenario content, template or headline result makes a new edition " +
-            "(files named <id>-<date>-edition-<n>); a new date alone re-dates the current edition; a new theme or tool rewrites it; output " +
-            "switches never make an edition; whatever is replaced is archived first. --plan shows what a build would do, writing nothing. " +
+            "Build PDF briefs: model, charts and template text composed into a dated, tagged PDF, with the results " +
+            "JSON, CSV tables and chart images beside it. Unchanged briefs are skipped. A changed scenario content, " +
+            "template or headline result makes a new edition (files named <id>-<date>-edition-<n>); a new date alone " +
+            "re-dates the current edition; a new theme or tool rewrites it; output switches never make an edition; " +
+            "whatever is replaced is archived first. --plan shows what a build would do, writing nothing. " +
             $"Defaults come from the project settings ({ProjectSettings.FileName}); options given here win.")
         {
-            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet, root, plan, json, formatsOption,
+            paths, template, theme, outDir, date, force, shard, jobs, noImages, csvBom, skipFlush, settingsFile, quiet,
+            root, plan, json, formatsOption,
         };
         command.SetAction(parse => Execute(io, new Given(
             parse.GetValue(paths)!, parse.GetValue(template), parse.GetValue(theme), parse.GetValue(outDir),
@@ -171,8 +192,15 @@ public static class BuildCommand
         };
     }
 
-    /// <summary>Stops the run before any brief: prints the messages, logs them (one run line per output folder), exit 2.</summary>
-    private static int Refuse(BuildLog? log, string stage, IEnumerable<string> logDirs, TextWriter error, params string[] messages)
+    /// <summary>
+    /// Stops the run before any brief: prints the messages, logs them (one run line per output folder), exit 2.
+    /// </summary>
+    private static int Refuse(
+        BuildLog? log,
+        string stage,
+        IEnumerable<string> logDirs,
+        TextWriter error,
+        params string[] messages)
     {
         foreach (var m in messages) error.WriteLine(m);
         if (log is null) return ExitCodes.InvalidInput; // a plan writes nothing
@@ -181,16 +209,27 @@ public static class BuildCommand
         return ExitCodes.InvalidInput;
     }
 
-    /// <summary>Where a run's log lines go: the output folder, else an 'out' folder beside each scenario (or in each folder named).</summary>
-    private static IEnumerable<string> LogDirs(IEnumerable<string> paths, string? outDir, ProjectSettings? project, bool expanded = false)
+    /// <summary>
+    /// Where a run's log lines go: the output folder, else an 'out' folder beside each scenario (or in each folder
+    /// named).
+    /// </summary>
+    private static IEnumerable<string> LogDirs(
+        IEnumerable<string> paths,
+        string? outDir,
+        ProjectSettings? project,
+        bool expanded = false)
     {
         if ((outDir ?? project?.Out) is { } o) return [o];
         return paths.Where(p => p != "-" && p != ScenarioInputs.StdinName)
-            .Select(p => !expanded && Directory.Exists(p) ? Path.Combine(p, "out") : File.Exists(p) ? Path.Combine(Path.GetDirectoryName(p) ?? ".", "out") : null)
+            .Select(p => !expanded && Directory.Exists(p)
+                ? Path.Combine(p, "out")
+                : File.Exists(p) ? Path.Combine(Path.GetDirectoryName(p) ?? ".", "out") : null)
             .OfType<string>().Distinct().ToList();
     }
 
-    /// <summary>A usage error of <c>build</c> is logged too, where its output folder can be told from the words given.</summary>
+    /// <summary>
+    /// A usage error of <c>build</c> is logged too, where its output folder can be told from the words given.
+    /// </summary>
     public static void LogUsageError(string[] args, string message, CliIo io)
     {
         string? outDir = null, shardText = null;
@@ -216,19 +255,29 @@ public static class BuildCommand
 
     public const int MaxJobs = 256;
 
-    /// <summary>The --jobs value: a whole number from 1 to <see cref="MaxJobs"/>, or one per core when not given.</summary>
+    /// <summary>
+    /// The --jobs value: a whole number from 1 to <see cref="MaxJobs"/>, or one per core when not given.
+    /// </summary>
     public static int? ParseJobs(string? text, TextWriter error)
     {
         if (text is null) return Environment.ProcessorCount;
-        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out int n) && n is >= 1 and <= MaxJobs) return n;
-        error.WriteLine($"--jobs: must be a whole number from 1 to {MaxJobs}. Got '{Scenario.Binding.BindContext.Printable(text)}'.");
+        if (int.TryParse(text, NumberStyles.None, CultureInfo.InvariantCulture, out int n)
+            && n is >= 1 and <= MaxJobs) return n;
+        error.WriteLine($"--jobs: must be a whole number from 1 to {MaxJobs}. Got " +
+            $"'{Scenario.Binding.BindContext.Printable(text)}'.");
         return null;
     }
 
     /// <summary>Templates are read up to this size.</summary>
     public const long MaxTemplateBytes = 1 << 20;
 
-    public static IReadOnlyList<BriefOutcome> Run(IReadOnlyList<string> files, BatchSettings settings, int jobs, Progress progress, TextWriter error, BuildLog? log = null)
+    public static IReadOnlyList<BriefOutcome> Run(
+        IReadOnlyList<string> files,
+        BatchSettings settings,
+        int jobs,
+        Progress progress,
+        TextWriter error,
+        BuildLog? log = null)
     {
         log ??= new BuildLog(TimeProvider.System, null);
         string DirOf(string f) => settings.OutDir ?? Path.Combine(Path.GetDirectoryName(f) ?? ".", "out");
@@ -237,14 +286,17 @@ public static class BuildCommand
         // Every scenario is read first: ids must be unique within the batch before anything is written.
         var loaded = new LoadResult?[files.Count];
         var reader = new FileSourceReader();
-        Parallel.For(0, files.Count, parallel, i => loaded[i] = new ScenarioLoader(reader, settings.Root).Load(files[i]));
+        Parallel.For(0, files.Count, parallel,
+            i => loaded[i] = new ScenarioLoader(reader, settings.Root).Load(files[i]));
         var duplicates = ScenarioInputs.DuplicateIds(files.Select((f, i) => (f, loaded[i]!)).ToList(), reader);
         settings = settings with { Options = Speed.ForBatch(settings.Options, jobs, files.Count) };
         Parallel.For(0, files.Count, parallel, i =>
         {
             // A signal stops the build between briefs: those in progress finish, the others are not started.
             outcomes[i] = StopSignal.Token.IsCancellationRequested
-                ? new BriefOutcome(files[i], loaded[i]?.Document?.Brief.Id, OutcomeStatus.Stopped, null, null, 0, 0, 0, "not started: the build was stopped by a signal")
+                ? new BriefOutcome(
+                    files[i], loaded[i]?.Document?.Brief.Id, OutcomeStatus.Stopped, null, null, 0, 0, 0,
+                    "not started: the build was stopped by a signal")
                 : duplicates.TryGetValue(files[i], out var duplicate)
                     ? Duplicate(files[i], loaded[i]!, duplicate, error)
                     : BatchBuilder.BuildOne(files[i], settings, error, loaded[i], StopSignal.Token);
@@ -256,22 +308,38 @@ public static class BuildCommand
         return outcomes;
     }
 
-    private static BriefOutcome Duplicate(string file, LoadResult loaded, Scenario.Diagnostics.Diagnostic problem, TextWriter error)
+    private static BriefOutcome Duplicate(
+        string file,
+        LoadResult loaded,
+        Scenario.Diagnostics.Diagnostic problem,
+        TextWriter error)
     {
         lock (error)
         {
             error.WriteLine(loaded.Sources.Render(problem));
             error.WriteLine($"{file}: 1 problem; nothing written.");
         }
-        return new BriefOutcome(file, loaded.Document!.Brief.Id, OutcomeStatus.Invalid, null, null, 0, 0, 0, "brief.id is not unique within the batch")
+        return new BriefOutcome(
+            file, loaded.Document!.Brief.Id, OutcomeStatus.Invalid, null, null, 0, 0, 0,
+            "brief.id is not unique within the batch")
         {
             Messages = [problem.Message],
         };
     }
 
-    /// <summary>Reads the template and theme and checks the options; on failure, <paramref name="stage"/> says which was wrong.</summary>
-    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?, int)? Setup(string? templatePath, string? themePath, string? dateText,
-        string? shardText, string? jobsText, int? projectJobs, string? root, TextWriter error, out string stage)
+    /// <summary>
+    /// Reads the template and theme and checks the options; on failure, <paramref name="stage"/> says which was wrong.
+    /// </summary>
+    private static (BriefTemplate, BuildOptions, string, DateOnly?, (int Index, int Count)?, int)? Setup(
+        string? templatePath,
+        string? themePath,
+        string? dateText,
+        string? shardText,
+        string? jobsText,
+        int? projectJobs,
+        string? root,
+        TextWriter error,
+        out string stage)
     {
         stage = "options";
         int jobs = projectJobs ?? Environment.ProcessorCount;
@@ -307,7 +375,8 @@ public static class BuildCommand
         }
         catch (TemplateException ex)
         {
-            foreach (var line in StageErrors.Describe(ex, templatePath ?? "template").Lines.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(line);
+            var lines = StageErrors.Describe(ex, templatePath ?? "template").Lines;
+            foreach (var line in lines.Take(ScenarioInputs.MaxPrinted)) error.WriteLine(line);
             return null;
         }
     }
@@ -376,13 +445,18 @@ public static class BuildCommand
         sb.AppendLine();
         var rows = outcomes.Select(o => new[]
         {
-            o.Id ?? Path.GetFileName(o.Scenario), o.Status.ToString().ToLowerInvariant(), o.Edition?.ToString(CultureInfo.InvariantCulture) ?? "",
-            o.Pages > 0 ? o.Pages.ToString(CultureInfo.InvariantCulture) : "", o.Bytes > 0 ? $"{o.Bytes / 1024} KB" : "", $"{o.Milliseconds} ms",
+            o.Id ?? Path.GetFileName(o.Scenario), o.Status.ToString().ToLowerInvariant(),
+            o.Edition?.ToString(CultureInfo.InvariantCulture) ?? "",
+            o.Pages > 0 ? o.Pages.ToString(CultureInfo.InvariantCulture) : "",
+            o.Bytes > 0 ? $"{o.Bytes / 1024} KB" : "", $"{o.Milliseconds} ms",
             o.Formats ?? "",
         }).Prepend(new[] { "brief", "status", "edition", "pages", "size", "time", "formats" }).ToList();
         int[] w = Enumerable.Range(0, 7).Select(c => rows.Max(r => r[c].Length)).ToArray();
-        foreach (var r in rows) sb.AppendLine(string.Join("  ", r.Select((cell, c) => c is 0 or 6 ? cell.PadRight(w[c]) : cell.PadLeft(w[c]))).TrimEnd());
-        var counts = outcomes.GroupBy(o => o.Status).OrderBy(g => g.Key).Select(g => $"{g.Count()} {g.Key.ToString().ToLowerInvariant()}");
+        foreach (var r in rows)
+            sb.AppendLine(string.Join("  ",
+                r.Select((cell, c) => c is 0 or 6 ? cell.PadRight(w[c]) : cell.PadLeft(w[c]))).TrimEnd());
+        var counts = outcomes.GroupBy(o => o.Status).OrderBy(g => g.Key)
+            .Select(g => $"{g.Count()} {g.Key.ToString().ToLowerInvariant()}");
         sb.AppendLine($"{outcomes.Count} brief(s): {string.Join(", ", counts)}.");
         return sb.ToString();
     }

@@ -10,10 +10,15 @@ public static class CheckCommand
     public static Command Create(CliIo io)
     {
         var paths = ScenarioInputs.PathsArgument("checked");
-        paths.Description += " Themes (*.theme.yaml) and the project settings file (" + ProjectSettings.FileName + ") are checked as what they are; a folder's are checked too.";
+        paths.Description += " Themes (*.theme.yaml) and the project settings file " +
+            "(" + ProjectSettings.FileName + ") are checked as what they are; a folder's are checked too.";
         var root = ScenarioInputs.RootOption();
-        var command = new Command("check", "Validate scenario files, themes and project settings and report every problem at once, as file:line:col: field: rule. Got value. " +
-                                           "Scenarios of one check that share a brief.id are reported too.") { paths, root };
+        var command = new Command("check",
+            "Validate scenario files, themes and project settings and report every problem at once, as " +
+            "file:line:col: field: rule. Got value. Scenarios of one check that share a brief.id are reported too.")
+        {
+            paths, root,
+        };
         command.SetAction(parse => Execute(io, parse.GetValue(paths)!, parse.GetValue(root)));
         return command;
     }

@@ -5,16 +5,22 @@ using Briefwright.Brief.Annex;
 
 namespace Briefwright.Cli.Commands;
 
-/// <summary><c>diff OLD NEW</c>: changed assumptions and headline results between two scenarios or two results files.</summary>
+/// <summary>
+/// <c>diff OLD NEW</c>: changed assumptions and headline results between two scenarios or two results files.
+/// </summary>
 public static class DiffCommand
 {
     public static Command Create(TextWriter output, TextWriter error, TextReader input)
     {
         var reader = new InputReader(input);
-        var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file (.results.json); '-' reads a scenario from standard input." };
-        var newPath = new Argument<string>("new") { Description = "Later scenario (.yaml) or results file (.results.json)." };
+        var oldPath = new Argument<string>("old") { Description = "Earlier scenario (.yaml) or results file " +
+            "(.results.json); '-' reads a scenario from standard input." };
+        var newPath = new Argument<string>("new") { Description = "Later scenario (.yaml) or results file " +
+            "(.results.json)." };
         var root = ScenarioInputs.RootOption();
-        var command = new Command("diff", "Compare two scenarios or two results files: changed assumptions (old → new, with source) and changed headline results. Exit code 0 when nothing changed, 1 when something did, 2 on invalid input.")
+        var command = new Command("diff",
+            "Compare two scenarios or two results files: changed assumptions (old → new, with source) and changed " +
+            "headline results. Exit code 0 when nothing changed, 1 when something did, 2 on invalid input.")
         {
             oldPath, newPath, root,
         };
@@ -48,7 +54,8 @@ public static class DiffCommand
             {
                 return EditionSnapshot.FromJson(SafeFile.Decode(bytes));
             }
-            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException)
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException
+                or System.Text.Json.JsonException or KeyNotFoundException or InvalidOperationException)
             {
                 error.WriteLine($"{path}: not a briefwright results file ({ex.Message}).");
                 return null;
@@ -67,7 +74,9 @@ public static class DiffCommand
         if (c.Assumptions.Count > 0)
         {
             sb.AppendLine("Assumptions:");
-            foreach (var a in c.Assumptions) sb.AppendLine($"  {a.Label} ({a.Key}): {a.Old} → {a.New}{(a.Detail is null ? "" : $"  [source: {a.Detail}]")}");
+            foreach (var a in c.Assumptions)
+                sb.AppendLine($"  {a.Label} ({a.Key}): {a.Old} → {a.New}" +
+                    $"{(a.Detail is null ? "" : $"  [source: {a.Detail}]")}");
         }
         if (c.Results.Count > 0)
         {

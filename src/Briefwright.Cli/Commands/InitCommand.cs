@@ -61,9 +61,10 @@ public static class InitCommand
                 # `crontab -e`; replace /srv/briefs with this folder and /opt/briefwright with where the tool is).
                 # Unchanged briefs are skipped; every attempt is logged in out/build-log.jsonl.
                 CRON_TZ=UTC
-                0 6 1 * * cd /srv/briefs && /opt/briefwright/briefwright build . --quiet || echo "briefwright: exit $?, see out/build-log.jsonl" >&2
 
-                """;
+                """ +
+        "0 6 1 * * cd /srv/briefs && /opt/briefwright/briefwright build . --quiet || " +
+        "echo \"briefwright: exit $?, see out/build-log.jsonl\" >&2\n";
 
     private const string PipelineText = """
                 # Example CI pipeline (the common YAML workflow format of hosted CI services): rebuilds the briefs on a
@@ -99,30 +100,36 @@ public static class InitCommand
         using var stream = typeof(InitCommand).Assembly.GetManifestResourceStream("init.example-scenario.yaml")
             ?? throw new InvalidOperationException("The example scenario is missing from the build.");
         string text = new StreamReader(stream).ReadToEnd();
-        return "# Made by `briefwright init` as a starting point: copy it for each brief, change brief.id, and replace every\n" +
-               "# invented number and source with your own.\n" + text.Replace("id: auroria-national", "id: auroria-example");
+        return "# Made by `briefwright init` as a starting point: copy it for each brief, change brief.id, and " +
+               "replace every\n# invented number and source with your own.\n" +
+               text.Replace("id: auroria-national", "id: auroria-example");
     }
 
     public static Command Create(TextWriter output, TextWriter error)
     {
         var folder = new Argument<string>("folder")
         {
-            Description = "Where to lay out the project (created if missing; default: the current folder). Existing files are never overwritten.",
+            Description = "Where to lay out the project (created if missing; default: the current folder). Existing " +
+                "files are never overwritten.",
             Arity = ArgumentArity.ZeroOrOne,
             DefaultValueFactory = _ => ".",
         };
         var command = new Command("init",
-            "Start a project: an invented example scenario, a theme, a copy of the standard template, the project settings file (" + ProjectSettings.FileName +
-            ") and an example scheduled job (a cron line and a CI pipeline file). Then: briefwright check FOLDER; briefwright build FOLDER.") { folder };
+            "Start a project: an invented example scenario, a theme, a copy of the standard template, the project " +
+            "settings file (" + ProjectSettings.FileName + ") and an example scheduled job (a cron line and a CI " +
+            "pipeline file). Then: briefwright check FOLDER; briefwright build FOLDER.") { folder };
         command.SetAction(parse =>
         {
             string dir = parse.GetValue(folder)!;
             var files = Files();
-            var existing = files.Select(f => Path.Combine(dir, f.Path)).Where(p => File.Exists(p) || Directory.Exists(p)).ToList();
+            var existing = files.Select(f => Path.Combine(dir, f.Path))
+                .Where(p => File.Exists(p) || Directory.Exists(p))
+                .ToList();
             if (existing.Count > 0)
             {
                 foreach (var e in existing) error.WriteLine($"{e}: already exists; init never overwrites a file.");
-                error.WriteLine($"briefwright init: nothing written. Choose an empty folder, or move these files away.");
+                error.WriteLine(
+                    $"briefwright init: nothing written. Choose an empty folder, or move these files away.");
                 return ExitCodes.InvalidInput;
             }
             try
@@ -142,7 +149,8 @@ public static class InitCommand
                 error.WriteLine($"{dir}: cannot write the project ({ex.Message}).");
                 return ExitCodes.Failed;
             }
-            output.WriteLine($"Next: briefwright check {dir}   then   briefwright build {dir}   (briefs go to {Path.Combine(dir, "out")}).");
+            output.WriteLine($"Next: briefwright check {dir}   then   briefwright build {dir}   (briefs go to " +
+                $"{Path.Combine(dir, "out")}).");
             return ExitCodes.Ok;
         });
         return command;

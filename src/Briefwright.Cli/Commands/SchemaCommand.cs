@@ -19,7 +19,10 @@ public static class SchemaCommand
     };
 
     private static string Write(JsonObject schema) =>
-        schema.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + "\n";
+        schema.ToJsonString(new JsonSerializerOptions
+        {
+            WriteIndented = true, Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping,
+        }) + "\n";
 
     public static Command Create(TextWriter output, TextWriter error)
     {
@@ -29,15 +32,17 @@ public static class SchemaCommand
             Arity = ArgumentArity.ZeroOrOne,
             DefaultValueFactory = _ => "scenario",
         };
-        var command = new Command("schema", "Print the JSON Schema of the scenario format, a theme or the project settings, for editors' completion and checking " +
-                                            "(save it and point your editor's YAML support at it; docs/ holds all three).") { kind };
+        var command = new Command("schema",
+            "Print the JSON Schema of the scenario format, a theme or the project settings, for editors' completion " +
+            "and checking (save it and point your editor's YAML support at it; docs/ holds all three).") { kind };
         command.SetAction(parse =>
         {
             string k = parse.GetValue(kind)!;
             if (!Kinds.Contains(k))
             {
                 string? guess = Scenario.Binding.Suggestions.Closest(k, Kinds);
-                error.WriteLine($"briefwright schema: must be one of {string.Join(", ", Kinds)}{(guess is null ? "" : $" (did you mean '{guess}'?)")}. Got '{k}'.");
+                error.WriteLine("briefwright schema: must be one of " +
+                    $"{string.Join(", ", Kinds)}{(guess is null ? "" : $" (did you mean '{guess}'?)")}. Got '{k}'.");
                 error.WriteLine("Run 'briefwright schema --help' for its options.");
                 return ExitCodes.InvalidInput;
             }

@@ -13,9 +13,13 @@ public static class SolveCommand
         var (output, error) = (io.Out, io.Err);
         var reader = new InputReader(io.In);
         var paths = ScenarioInputs.PathsArgument("solved");
-        var json = new Option<bool>("--json") { Description = "Print the results as JSON: always a list with one object per scenario solved, in the order given (a list of one for one file). Field names: docs/results-json.md." };
+        var json = new Option<bool>("--json") { Description = "Print the results as JSON: always a list with one " +
+            "object per scenario solved, in the order given (a list of one for one file). Field names: " +
+            "docs/results-json.md." };
         var root = ScenarioInputs.RootOption();
-        var command = new Command("solve", "Solve scenarios: output per person for every option on the balanced growth path, and the output-maximising schooling length.") { paths, json, root };
+        var command = new Command("solve",
+            "Solve scenarios: output per person for every option on the balanced growth path, and the " +
+            "output-maximising schooling length.") { paths, json, root };
         command.SetAction(parse =>
         {
             if (!ScenarioInputs.RootIsValid(parse.GetValue(root), error)) return ExitCodes.InvalidInput;

@@ -3,7 +3,9 @@ using Briefwright.Scenario.Binding;
 
 namespace Briefwright.Cli.Commands;
 
-/// <summary>A mistake in the command line itself: which command (empty for none), what is wrong, where to read more.</summary>
+/// <summary>
+/// A mistake in the command line itself: which command (empty for none), what is wrong, where to read more.
+/// </summary>
 public sealed record UsageError(string Command, string Message, string Hint);
 
 /// <summary>
@@ -20,16 +22,21 @@ public static class Usage
         var commands = root.Subcommands.Select(c => c.Name).ToList();
         string list = string.Join(", ", commands);
         if (args.Length == 0)
-            return new UsageError("", $"briefwright: no command given. Commands: {list}.", "Run 'briefwright --help' for what each one does.");
+            return new UsageError("", $"briefwright: no command given. Commands: {list}.",
+                "Run 'briefwright --help' for what each one does.");
         string first = args[0];
         var command = root.Subcommands.FirstOrDefault(c => c.Name == first);
         if (command is null)
         {
             if (HelpNames.Contains(first) || first == "--version") return null;
             if (first.StartsWith('-'))
-                return new UsageError("", $"briefwright: '{first}' is not an option here; a command comes first ({list}).", "Run 'briefwright --help' for what each one does.");
+                return new UsageError("",
+                    $"briefwright: '{first}' is not an option here; a command comes first ({list}).",
+                    "Run 'briefwright --help' for what each one does.");
             string? guess = Suggestions.Closest(first, commands);
-            return new UsageError("", $"briefwright: unknown command '{first}'{Mean(guess)}. Commands: {list}.", "Run 'briefwright --help' for what each one does.");
+            return new UsageError("",
+                $"briefwright: unknown command '{first}'{Mean(guess)}. Commands: {list}.",
+                "Run 'briefwright --help' for what each one does.");
         }
         string hint = $"Run 'briefwright {command.Name} --help' for its options.";
         var options = command.Options.ToList();
@@ -49,14 +56,18 @@ public static class Usage
             if (sep > 0 && options.Any(o => o.Name == a[..sep] || o.Aliases.Contains(a[..sep]))) continue;
             if (HelpNames.Contains(a)) continue;
             string name = sep > 0 ? a[..sep] : a;
-            return new UsageError(command.Name, $"briefwright {command.Name}: '{name}' is not an option of {command.Name}{Mean(Suggestions.Closest(name, names))}.", hint);
+            return new UsageError(command.Name,
+                $"briefwright {command.Name}: '{name}' is not an option of " +
+                $"{command.Name}{Mean(Suggestions.Closest(name, names))}.", hint);
         }
         if (parsed.Errors.Count > 0)
-            return new UsageError(command.Name, $"briefwright {command.Name}: {string.Join(" ", parsed.Errors.Select(e => e.Message))}", hint);
+            return new UsageError(command.Name,
+                $"briefwright {command.Name}: {string.Join(" ", parsed.Errors.Select(e => e.Message))}", hint);
         return null;
     }
 
     private static string Mean(string? guess) => guess is null ? "" : $" (did you mean '{guess}'?)";
 
-    private static bool TakesValue(Option option) => option.ValueType != typeof(bool) && option.Arity.MaximumNumberOfValues > 0;
+    private static bool TakesValue(Option option) =>
+        option.ValueType != typeof(bool) && option.Arity.MaximumNumberOfValues > 0;
 }
