@@ -140,9 +140,12 @@ def main():
     for f in a.files:
         with open(f, encoding="utf-8", newline="") as fh:
             lines = fh.read().split("\n")
-        out, changed = [], 0
+        out, changed, in_raw = [], 0, False
         for line in lines:
-            new = split(line, a.max)
+            # A line inside a multi-line raw string ("""...""") is text, not code: never split it.
+            opens = line.count('"""') % 2 == 1
+            new = None if in_raw or opens else split(line, a.max)
+            in_raw ^= opens
             if new:
                 changed += 1
                 out += new
