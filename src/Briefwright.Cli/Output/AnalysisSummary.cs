@@ -1,5 +1,5 @@
-using System.Globalization;
 using System.Text;
+using static Briefwright.Cli.Output.ConsoleNumbers;
 using Briefwright.Brief;
 using Briefwright.Model.Dynamics;
 
@@ -8,7 +8,6 @@ namespace Briefwright.Cli.Output;
 /// <summary>The reform path, appraisal and uncertainty part of the <c>solve</c> summary.</summary>
 public static class AnalysisSummary
 {
-    private static string N(double v, string f) => v.ToString(f, CultureInfo.InvariantCulture);
     private static string Pct(double fraction) => N(fraction * 100, "0.00") + "%";
 
     public static string Render(SolvedScenario solved)

@@ -1,5 +1,5 @@
-using System.Globalization;
 using System.Text;
+using static Briefwright.Cli.Output.ConsoleNumbers;
 using Briefwright.Model.Results;
 using Briefwright.Scenario;
 using Briefwright.Templating;
@@ -9,7 +9,6 @@ namespace Briefwright.Cli.Output;
 /// <summary>The readable summary printed by <c>solve</c>.</summary>
 public static class SummaryTable
 {
-    private static string N(double v, string format) => v.ToString(format, CultureInfo.InvariantCulture);
 
     public static string Render(ScenarioDocument scenario, BalancedGrowthResults results)
     {
