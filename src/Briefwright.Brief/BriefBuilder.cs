@@ -22,20 +22,28 @@ public static class BriefBuilder
 {
     public static BuiltBrief Build(ScenarioDocument scenario, BriefTemplate template, BuildOptions? options = null)
     {
-        // Text the brief could not show is refused before the model runs (Compose checks again for its other callers).
-        GlyphCheck.Check(scenario, template, GlyphCheck.LanguageOf(scenario), (options ?? BuildOptions.Default).Fonts);
-        return Compose(ScenarioSolver.Solve(scenario, (options ?? BuildOptions.Default).ModelThreads), template,
-            options);
+        options ??= BuildOptions.Default;
+        // Text the brief could not show is refused before the model runs.
+        var language = GlyphCheck.LanguageOf(scenario);
+        GlyphCheck.Check(scenario, template, language, options.Fonts);
+        return ComposeChecked(ScenarioSolver.Solve(scenario, options.ModelThreads), template, options, language);
     }
 
     /// <summary>Everything after the model: charts, results data, filled template, layout and PDF.</summary>
     public static BuiltBrief Compose(SolvedScenario solved, BriefTemplate template, BuildOptions? options = null)
     {
         options ??= BuildOptions.Default;
+        var language = GlyphCheck.LanguageOf(solved.Scenario);
+        GlyphCheck.Check(solved.Scenario, template, language, options.Fonts);
+        return ComposeChecked(solved, template, options, language);
+    }
+
+    /// <summary><see cref="Compose"/> once the brief's texts are known to be in its fonts.</summary>
+    private static BuiltBrief ComposeChecked(SolvedScenario solved, BriefTemplate template, BuildOptions options,
+        BriefLanguage language)
+    {
         var scenario = solved.Scenario;
-        var language = GlyphCheck.LanguageOf(scenario);
         var words = new TemplateFunctions(language);
-        GlyphCheck.Check(scenario, template, language, options.Fonts);
         // The brief's own fonts and words for its pages and its charts, made here and passed down; nothing is kept
         // beyond this brief.
         var fonts = options.Fonts is { } f ? new FontFaces(f.Regular, f.Bold, f.Italic, f.BoldItalic) : null;
